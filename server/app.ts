@@ -1,0 +1,103 @@
+// Builds the Express app from an AppContext. main.ts only listens; tests drive this on port 0.
+import express, { Router, type Express } from 'express';
+import cookieParser from 'cookie-parser';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import type { AppContext } from './app-context';
+import { authenticate } from './auth/middleware';
+import { apiNotFound, errorMiddleware } from './errors';
+import { adminRoutes } from './routes/admin';
+import { authRoutes } from './routes/auth';
+import { environmentRoutes } from './routes/environment';
+import { invitationRoutes } from './routes/invitations';
+import { tokenRoutes } from './routes/tokens';
+import { workspaceRoutes } from './routes/workspaces';
+
+export type FeatureRoutes = (ctx: AppContext) => Router;
+
+/** Every feature's router, mounted under /api/v1 in this order; a new feature adds one entry. */
+export const featureRoutes: FeatureRoutes[] = [
+  authRoutes,
+  tokenRoutes,
+  workspaceRoutes,
+  invitationRoutes,
+  adminRoutes,
+  environmentRoutes,
+];
+
+// Large enough for a thermal model with per-step loads; uploads go through multer, not this.
+const jsonLimit = '2mb';
+
+export interface AppOptions {
+  /** Built client to serve; defaults to the config's clientDir. */
+  clientDir?: string;
+}
+
+export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // Angular inserts component styles as <style> elements at run time.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          fontSrc: ["'self'", 'data:'],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          upgradeInsecureRequests: ctx.config.publicUrl.startsWith('https:') ? [] : null,
+        },
+      },
+      // Plain-http local use must not be told to switch to https for a year.
+      strictTransportSecurity: ctx.config.publicUrl.startsWith('https:'),
+    }),
+  );
+
+  app.use((req, res, next) => {
+    const started = process.hrtime.bigint();
+    res.on('finish', () => {
+      const ms = Number(process.hrtime.bigint() - started) / 1e6;
+      // The path only: query strings, bodies, cookies and headers may carry secrets.
+      ctx.logger.info('request', {
+        method: req.method,
+        path: req.originalUrl.split('?')[0],
+        status: res.statusCode,
+        ms: Math.round(ms * 10) / 10,
+      });
+    });
+    next();
+  });
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ status: 'ok' });
+  });
+
+  const api = Router();
+  api.use(express.json({ limit: jsonLimit }));
+  api.use(cookieParser());
+  api.use(authenticate(ctx));
+  for (const routes of featureRoutes) api.use(routes(ctx));
+  app.use('/api/v1', api);
+  app.use('/api', apiNotFound);
+
+  const clientDir = options.clientDir ?? ctx.config.clientDir;
+  const indexHtml = path.join(clientDir, 'index.html');
+  if (existsSync(indexHtml)) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // The client's own routes (/missions/…, /invite/<token>) all load the same page.
+    app.get('/{*splat}', (_req, res) => {
+      res.set('Cache-Control', 'no-cache');
+      res.sendFile(indexHtml);
+    });
+  }
+
+  app.use(errorMiddleware(ctx.logger));
+  return app;
+}

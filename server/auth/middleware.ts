@@ -1,0 +1,139 @@
+// Who is calling, and may they: authentication (session cookie or personal API token), the
+// cross-site check for cookie-borne changes, and the workspace membership and role checks.
+import type { Request, RequestHandler } from 'express';
+import { and, eq } from 'drizzle-orm';
+import type { Role } from '../../shared/api/workspaces';
+import type { AppContext } from '../app-context';
+import { pathParam } from '../path-param';
+import type { Db } from '../db/database';
+import { memberships, users } from '../db/schema';
+import { ApiError, forbidden, notFound, unauthorized } from '../errors';
+import { findApiToken, tokenPrefix, touchApiToken } from './api-tokens';
+import type { RequestAuth } from './request-auth';
+import { endSession, readSession, sessionCookie, sessionStillValid } from './session';
+
+const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+const tokenProblems = {
+  unknown: 'This API token is not valid.',
+  revoked: 'This API token was revoked.',
+  expired: 'This API token has expired.',
+} as const;
+
+function bearerSecret(req: Request): string | null {
+  const header = req.get('authorization');
+  if (header === undefined) return null;
+  const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
+  if (!match?.[1]) throw new ApiError(401, 'invalid_token', 'Send a personal API token as "Authorization: Bearer <token>".');
+  return match[1];
+}
+
+/** True when an Origin header names a site other than this server (a cross-site form or script). */
+function foreignOrigin(ctx: AppContext, req: Request): boolean {
+  const origin = req.get('origin');
+  if (origin === undefined) return false;
+  let host: string;
+  try {
+    host = new URL(origin).host;
+  } catch {
+    return true;
+  }
+  return host !== new URL(ctx.config.publicUrl).host && host !== req.get('host');
+}
+
+/**
+ * Sets req.auth when the request carries a valid token or session; answers 401 for a bad token
+ * (a script should hear that its token failed, not get anonymous answers) and 403 for a write
+ * with a read-only token or from a foreign origin.
+ */
+export function authenticate(ctx: AppContext): RequestHandler {
+  return (req, res, next) => {
+    const secret = bearerSecret(req);
+    if (secret !== null) {
+      const found = secret.startsWith(tokenPrefix) ? findApiToken(ctx.db, secret) : ({ ok: false, reason: 'unknown' } as const);
+      if (!found.ok) throw new ApiError(401, 'invalid_token', tokenProblems[found.reason]);
+      const user = ctx.db.select().from(users).where(eq(users.id, found.row.userId)).get();
+      if (!user) throw new ApiError(401, 'invalid_token', tokenProblems.unknown);
+      if (found.row.readOnly && req.method !== 'GET' && req.method !== 'HEAD') {
+        throw forbidden('This API token is read-only.', 'read_only_token');
+      }
+      touchApiToken(ctx.db, found.row);
+      req.auth = { user, kind: 'token', readOnly: found.row.readOnly, tokenId: found.row.id };
+      next();
+      return;
+    }
+
+    // Changes that a browser could be tricked into sending (cookie or no cookie) must come from our own pages.
+    if (!safeMethods.has(req.method) && foreignOrigin(ctx, req)) {
+      throw forbidden('This request came from another site and was refused.', 'cross_site');
+    }
+
+    const cookies: unknown = req.cookies;
+    const cookie =
+      cookies !== null && typeof cookies === 'object' ? (cookies as Record<string, unknown>)[sessionCookie] : undefined;
+    if (typeof cookie === 'string' && cookie !== '') {
+      const claims = readSession(ctx, cookie);
+      const user = claims ? ctx.db.select().from(users).where(eq(users.id, claims.userId)).get() : undefined;
+      if (claims && user && sessionStillValid(user, claims)) {
+        req.auth = { user, kind: 'session', readOnly: false };
+      } else {
+        // A stale cookie would otherwise be sent (and refused) on every request.
+        endSession(ctx, res);
+      }
+    }
+    next();
+  };
+}
+
+/** The caller of a route behind requireUser (or workspaceAccess); a 401 if there is none. */
+export function signedIn(req: Request): RequestAuth {
+  if (!req.auth) throw unauthorized();
+  return req.auth;
+}
+
+export const requireUser: RequestHandler = (req, _res, next) => {
+  if (!req.auth) throw unauthorized();
+  next();
+};
+
+export const requireAdmin: RequestHandler = (req, _res, next) => {
+  if (!req.auth) throw unauthorized();
+  if (!req.auth.user.isAdmin) throw forbidden('Only an instance administrator may do this.');
+  next();
+};
+
+/** The user's role in a workspace, or null when they are not a member. */
+export function memberRole(db: Db, userId: string, workspaceId: string): Role | null {
+  const row = db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.userId, userId), eq(memberships.workspaceId, workspaceId)))
+    .get();
+  return row ? row.role : null;
+}
+
+export function noWorkspace(workspaceId: string): ApiError {
+  return notFound(`No workspace with id ${JSON.stringify(workspaceId.slice(0, 80))}.`);
+}
+
+export function roleRefused(role: Role, allowed: readonly Role[]): ApiError {
+  const needs = allowed.length === 1 ? `the ${allowed[0]} role` : `one of the roles ${allowed.join(', ')}`;
+  return forbidden(`Your role in this workspace is ${role}; this needs ${needs}.`);
+}
+
+/**
+ * Checks the :workspaceId of the route: 404 for a non-member (a workspace's existence is not
+ * revealed), 403 naming the role for a member whose role is not allowed. Includes requireUser.
+ */
+export function workspaceAccess(ctx: AppContext, allowed: readonly Role[]): RequestHandler {
+  return (req, _res, next) => {
+    if (!req.auth) throw unauthorized();
+    const workspaceId = pathParam(req, 'workspaceId');
+    if (workspaceId === '') throw new Error('workspaceAccess used on a route without :workspaceId');
+    const role = memberRole(ctx.db, req.auth.user.id, workspaceId);
+    if (!role) throw noWorkspace(workspaceId);
+    if (!allowed.includes(role)) throw roleRefused(role, allowed);
+    req.membership = { workspaceId, role };
+    next();
+  };
+}

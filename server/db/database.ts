@@ -1,0 +1,31 @@
+// Opens the SQLite file with the settings every connection needs and applies the generated
+// migrations. The migrations folder is passed in (from the config, resolved against the working
+// directory) so the same code runs under tsx and from the esbuild bundle in dist/server/.
+import Database from 'better-sqlite3';
+import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import * as schema from './schema';
+
+export type Db = BetterSQLite3Database<typeof schema>;
+export type Sqlite = Database.Database;
+
+export interface OpenedDatabase {
+  db: Db;
+  sqlite: Sqlite;
+}
+
+export function openDatabase(file: string): OpenedDatabase {
+  if (file !== ':memory:') mkdirSync(path.dirname(file), { recursive: true });
+  const sqlite = new Database(file);
+  // WAL lets readers go on while a write commits; foreign keys are off by default in SQLite.
+  sqlite.pragma('journal_mode = WAL');
+  sqlite.pragma('foreign_keys = ON');
+  sqlite.pragma('busy_timeout = 5000');
+  return { db: drizzle(sqlite, { schema }), sqlite };
+}
+
+export function migrateDatabase(db: Db, migrationsFolder: string): void {
+  migrate(db, { migrationsFolder });
+}

@@ -1,0 +1,138 @@
+// The one error type of the API and the middleware that turns every failure into API.md's shape:
+// {"error": {"code", "message", "details"?}}. No stack trace ever reaches a client.
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError, type ZodType, type z } from 'zod';
+import type { ErrorBody, ErrorDetail } from '../shared/api/errors';
+import { PhysicsError } from '../shared/physics/physics-error';
+import type { Logger } from './logger';
+
+export class ApiError extends Error {
+  override name = 'ApiError';
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details?: ErrorDetail[],
+    /** Extra headers for the answer, e.g. Retry-After on a 429. */
+    readonly headers?: Record<string, string>,
+  ) {
+    super(message);
+  }
+
+  toBody(): ErrorBody {
+    return { error: { code: this.code, message: this.message, ...(this.details ? { details: this.details } : {}) } };
+  }
+}
+
+export const badRequest = (message: string, details?: ErrorDetail[], code = 'invalid_input'): ApiError =>
+  new ApiError(400, code, message, details);
+export const unauthorized = (message = 'Sign in to continue.', code = 'unauthenticated'): ApiError =>
+  new ApiError(401, code, message);
+export const forbidden = (message: string, code = 'forbidden'): ApiError => new ApiError(403, code, message);
+export const notFound = (message: string, code = 'not_found'): ApiError => new ApiError(404, code, message);
+export const conflict = (message: string, code = 'conflict'): ApiError => new ApiError(409, code, message);
+export const tooLarge = (message: string): ApiError => new ApiError(413, 'too_large', message);
+export const unprocessable = (message: string, details?: ErrorDetail[]): ApiError =>
+  new ApiError(422, 'unprocessable', message, details);
+
+// Values of these fields are never repeated back, not even in an error message.
+const secretField = /password|secret|token/i;
+
+function describeValue(value: unknown): string {
+  if (value === undefined) return 'nothing';
+  let shown: string;
+  try {
+    shown = JSON.stringify(value) ?? String(value);
+  } catch {
+    shown = String(value);
+  }
+  return shown.length > 60 ? shown.slice(0, 57) + '…' : shown;
+}
+
+function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
+  let current: unknown = root;
+  for (const key of path) {
+    if (current === null || typeof current !== 'object') return undefined;
+    current = (current as Record<PropertyKey, unknown>)[key];
+  }
+  return current;
+}
+
+/** Turns zod's issues into our details, each naming the field and the value it got. */
+export function zodDetails(error: ZodError, input?: unknown): ErrorDetail[] {
+  return error.issues.map((issue) => {
+    const path = issue.path.map(String).join('.');
+    const value = 'input' in issue && issue.input !== undefined ? issue.input : valueAt(input, issue.path);
+    let message = issue.message;
+    if (issue.code === 'unrecognized_keys') {
+      message = `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => JSON.stringify(k)).join(', ')}`;
+    } else if (!secretField.test(path)) {
+      message = `${message} (got ${describeValue(value)})`;
+    }
+    return { path: path || undefined, message };
+  });
+}
+
+function summary(details: ErrorDetail[]): string {
+  const first = details[0];
+  if (!first) return 'The request is not valid.';
+  const lead = first.path ? `${first.path}: ${first.message}` : first.message;
+  return details.length > 1 ? `${lead} (and ${details.length - 1} more).` : `${lead}.`;
+}
+
+/** Parses a request part with a shared schema, or throws the 400 that names the fields. */
+export function parse<S extends ZodType>(schema: S, value: unknown): z.output<S> {
+  const result = schema.safeParse(value, { reportInput: true });
+  if (result.success) return result.data;
+  const details = zodDetails(result.error, value);
+  throw badRequest(summary(details), details);
+}
+
+/** JSON 404 for an /api path that no router answered. */
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(notFound(`No API route ${req.method} ${req.originalUrl.split('?')[0]}.`, 'no_route'));
+};
+
+interface BodyParserError {
+  type?: unknown;
+  status?: unknown;
+  expose?: unknown;
+}
+
+function isBodyParserError(err: unknown): err is Error & BodyParserError {
+  return err instanceof Error && typeof (err as BodyParserError).type === 'string' && typeof (err as BodyParserError).status === 'number';
+}
+
+export function errorMiddleware(logger: Logger): ErrorRequestHandler {
+  return (err: unknown, req, res, next) => {
+    if (res.headersSent) {
+      next(err);
+      return;
+    }
+    let apiError: ApiError;
+    if (err instanceof ApiError) {
+      apiError = err;
+    } else if (err instanceof PhysicsError) {
+      // Units that cannot be read and half-given orbit definitions are malformed input (400);
+      // everything else the physics refuses is well formed but impossible (422).
+      const malformed = err.code === 'invalid_quantity' || err.code === 'invalid_orbit_definition';
+      apiError = new ApiError(malformed ? 400 : 422, err.code, err.message, err.details);
+    } else if (err instanceof ZodError) {
+      const details = zodDetails(err, req.body);
+      apiError = badRequest(summary(details), details);
+    } else if (isBodyParserError(err) && err.type === 'entity.parse.failed') {
+      apiError = badRequest('The request body is not valid JSON.', undefined, 'invalid_json');
+    } else if (isBodyParserError(err) && err.type === 'entity.too.large') {
+      apiError = tooLarge('The request body is too large.');
+    } else if (isBodyParserError(err) && err.status === 415) {
+      apiError = new ApiError(415, 'unsupported_media_type', 'The request body must be JSON (Content-Type: application/json).');
+    } else if (isBodyParserError(err) && typeof err.status === 'number' && err.status >= 400 && err.status < 500) {
+      apiError = badRequest(err.expose === true ? err.message : 'The request could not be read.', undefined, 'bad_request');
+    } else {
+      logger.error('unhandled error', { method: req.method, path: req.path, error: err instanceof Error ? err : String(err) });
+      apiError = new ApiError(500, 'internal', 'Something went wrong on the server. The error was logged.');
+    }
+    if (apiError.headers) res.set(apiError.headers);
+    res.status(apiError.status).json(apiError.toBody());
+  };
+}

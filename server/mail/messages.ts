@@ -1,0 +1,39 @@
+// The texts of the mails the product sends. Plain text first; the links are the client's routes.
+import type { OutgoingMail } from './mailer';
+
+export function invitationMail(opts: {
+  to: string;
+  workspaceName: string;
+  role: string;
+  invitedBy: string;
+  link: string;
+  expiresAt: string;
+}): OutgoingMail {
+  return {
+    to: opts.to,
+    subject: `You are invited to the ${opts.workspaceName} workspace on Eclipta`,
+    text: [
+      `${opts.invitedBy} invites you to join the workspace "${opts.workspaceName}" on Eclipta as ${opts.role}.`,
+      '',
+      `Accept the invitation here: ${opts.link}`,
+      '',
+      `The link works once and until ${opts.expiresAt}.`,
+      'If you were not expecting this, ignore this message.',
+    ].join('\n'),
+  };
+}
+
+export function passwordResetMail(opts: { to: string; link: string; expiresAt: string }): OutgoingMail {
+  return {
+    to: opts.to,
+    subject: 'Reset your Eclipta password',
+    text: [
+      'Someone asked to reset the password of your Eclipta account.',
+      '',
+      `Choose a new password here: ${opts.link}`,
+      '',
+      `The link works once and until ${opts.expiresAt}.`,
+      'If it was not you, ignore this message; your password stays as it is.',
+    ].join('\n'),
+  };
+}

@@ -1,0 +1,143 @@
+// The two stateless environment routes (API.md "Environment computation", "Other fixed routes").
+//   POST /api/v1/environment/compute   environmentRequest -> 200 environmentResponse   (any signed-in role)
+//        physically impossible input (orbit below the surface, e >= 1, ...) -> 422 from PhysicsError
+//   GET  /api/v1/bodies                                   -> 200 bodiesResponse (a bare array)
+// Ranges here catch malformed input (400); physics/orbit-definition.ts refuses the impossible (422)
+// so its messages can say by how much.
+import { z } from 'zod';
+import { bodyIds } from '../physics/bodies';
+import type { EnvironmentRequest } from '../physics/environment';
+import { namedNormals } from '../physics/heat-loads';
+
+const finite = (label: string) => z.number({ message: `${label} must be a number` });
+
+export const orbitInput = z
+  .strictObject({
+    periapsisAltitudeKm: finite('periapsis altitude').optional(),
+    apoapsisAltitudeKm: finite('apoapsis altitude').optional(),
+    semiMajorAxisKm: finite('semi-major axis').optional(),
+    eccentricity: finite('eccentricity').optional(),
+    periodS: finite('period').optional(),
+    inclinationDeg: finite('inclination').min(0, 'inclination is 0..180 deg').max(180, 'inclination is 0..180 deg').default(0),
+    raanDeg: finite('RAAN').min(-360).max(360).default(0),
+    argPeriapsisDeg: finite('argument of periapsis').min(-360).max(360).default(0),
+  })
+  .superRefine((o, ctx) => {
+    const altitudes = o.periapsisAltitudeKm !== undefined || o.apoapsisAltitudeKm !== undefined;
+    const definitions = [altitudes, o.semiMajorAxisKm !== undefined, o.periodS !== undefined].filter(Boolean).length;
+    if (definitions !== 1) {
+      ctx.addIssue({
+        code: 'custom',
+        message: definitions === 0
+          ? 'define the orbit by periapsisAltitudeKm + apoapsisAltitudeKm, semiMajorAxisKm + eccentricity, or periodS + eccentricity'
+          : 'define the orbit one way only: altitudes, semi-major axis or period',
+      });
+      return;
+    }
+    if (altitudes) {
+      if (o.periapsisAltitudeKm === undefined) ctx.addIssue({ code: 'custom', path: ['periapsisAltitudeKm'], message: 'give the periapsis altitude too' });
+      if (o.apoapsisAltitudeKm === undefined) ctx.addIssue({ code: 'custom', path: ['apoapsisAltitudeKm'], message: 'give the apoapsis altitude too' });
+      if (o.eccentricity !== undefined) ctx.addIssue({ code: 'custom', path: ['eccentricity'], message: 'eccentricity follows from the two altitudes; leave it out' });
+    } else if (o.eccentricity === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['eccentricity'], message: 'give the eccentricity (0 for a circular orbit)' });
+    }
+  });
+
+export const localVector = z
+  .strictObject({ x: finite('x'), y: finite('y'), z: finite('z') })
+  .refine((v) => Math.abs(Math.hypot(v.x, v.y, v.z) - 1) <= 0.01, {
+    message: 'a custom normal is a unit vector {x, y, z} (x ram, y orbit normal, z zenith); its length must be 1',
+  });
+
+export const surfaceInput = z.strictObject({
+  name: z.string().trim().min(1, 'give the surface a name').max(80, 'a surface name has at most 80 characters'),
+  normal: z.union([z.enum(namedNormals), localVector], {
+    message: `normal is one of ${namedNormals.join(', ')} or a unit vector {x, y, z}`,
+  }),
+  areaM2: finite('area').positive('area must be above 0 m^2').max(10000),
+  absorptivity: finite('absorptivity').min(0, 'absorptivity is 0..1').max(1, 'absorptivity is 0..1'),
+  emissivity: finite('emissivity').min(0, 'emissivity is 0..1').max(1, 'emissivity is 0..1'),
+});
+
+export const environmentRequest = z
+  .strictObject({
+    bodyId: z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` }),
+    orbit: orbitInput,
+    epoch: z.iso.datetime({ offset: true, message: 'epoch is an ISO 8601 date and time, e.g. 2027-03-20T12:00:00Z' }).optional(),
+    betaDeg: finite('beta').min(-90, 'beta is -90..90 deg').max(90, 'beta is -90..90 deg').optional(),
+    solarDistanceAu: finite('solar distance').positive('solar distance must be above 0 AU').max(100).optional(),
+    albedo: finite('albedo').min(0, 'albedo is 0..1').max(1, 'albedo is 0..1').optional(),
+    olrWm2: finite('OLR').min(0, 'OLR cannot be negative').max(20000).optional(),
+    steps: z.number().int('steps is a whole number').min(12, 'steps is 12..100000').max(100000, 'steps is 12..100000').default(360),
+    surfaces: z
+      .array(surfaceInput)
+      .min(1, 'give at least one surface')
+      .max(100, 'at most 100 surfaces')
+      .refine((s) => new Set(s.map((x) => x.name)).size === s.length, { message: 'surface names must be unique' }),
+  })
+  .refine((r) => r.epoch !== undefined || r.betaDeg !== undefined, {
+    path: ['epoch'],
+    message: 'give an epoch (it sets the Sun) or a betaDeg',
+  });
+
+const surfaceLoad = z.object({
+  name: z.string(),
+  solarWm2: z.number(),
+  albedoWm2: z.number(),
+  irWm2: z.number(),
+  absorbedW: z.number(),
+});
+
+export const environmentResponse = z.object({
+  bodyId: z.string(),
+  periodS: z.number(),
+  semiMajorAxisKm: z.number(),
+  eccentricity: z.number(),
+  periapsisAltitudeKm: z.number(),
+  apoapsisAltitudeKm: z.number(),
+  betaDeg: z.number(),
+  epochBetaDeg: z.number().nullable(),
+  solarDistanceAu: z.number(),
+  solarFluxWm2: z.number(),
+  albedo: z.number(),
+  olrWm2: z.number(),
+  /** Umbra plus half of penumbra. */
+  eclipseFraction: z.number(),
+  eclipseDurationS: z.number(),
+  umbraDurationS: z.number(),
+  penumbraDurationS: z.number(),
+  nodalRateDegPerDay: z.number(),
+  profile: z.array(z.object({ tS: z.number(), trueAnomalyDeg: z.number(), sunlit: z.number(), surfaces: z.array(surfaceLoad) })),
+  orbitAverage: z.object({ surfaces: z.array(surfaceLoad) }),
+  peak: z.object({ surfaces: z.array(surfaceLoad) }),
+  assumptions: z.array(z.string()),
+});
+
+const range = z.object({ min: z.number(), nominal: z.number(), max: z.number() });
+
+export const bodySummary = z.object({
+  id: z.enum(bodyIds),
+  name: z.string(),
+  kind: z.enum(['planet', 'moon']),
+  planetId: z.string(),
+  gmKm3S2: z.number(),
+  radiusKm: z.number(),
+  j2: z.number(),
+  poleRaDeg: z.number(),
+  poleDecDeg: z.number(),
+  solarDistanceAu: z.object({ mean: z.number(), min: z.number(), max: z.number() }),
+  albedo: range,
+  olrWm2: range,
+  /** True where ranges await the published design tables; the screen says "provisional". */
+  provisional: z.boolean(),
+  sources: z.record(z.string(), z.string()),
+});
+export const bodiesResponse = z.array(bodySummary);
+
+export type EnvironmentRequestInput = z.input<typeof environmentRequest>;
+export type EnvironmentRequestParsed = z.infer<typeof environmentRequest>;
+export type EnvironmentResponse = z.infer<typeof environmentResponse>;
+export type BodySummaryResponse = z.infer<typeof bodySummary>;
+
+// A parsed request must be something computeEnvironment accepts; this fails to compile if they drift apart.
+export const asEnvironmentRequest = (parsed: EnvironmentRequestParsed): EnvironmentRequest => parsed;

@@ -1,0 +1,145 @@
+// The Sun as seen from a central body at an epoch: direction in the body's own equatorial frame
+// (from its IAU pole) and distance, from the VSOP87B heliocentric theory of the planets; the solar
+// flux by the inverse-square law.
+// Leaves out: light time, aberration and nutation (arcseconds), the Moon's and other moons' own
+// offsets from their planet (the Moon sits 0.0026 AU from Earth: under 0.15 deg and 0.5 % in flux).
+// Sources: Bretagnon & Francou 1988 (VSOP87) via astronomia's planetposition; Meeus, Astronomical
+// Algorithms, ch. 25 and 32; IAU WGCCRE 2015 for the poles.
+import { Planet } from 'astronomia/planetposition';
+import earthData from 'astronomia/data/vsop87Bearth';
+import jupiterData from 'astronomia/data/vsop87Bjupiter';
+import marsData from 'astronomia/data/vsop87Bmars';
+import mercuryData from 'astronomia/data/vsop87Bmercury';
+import neptuneData from 'astronomia/data/vsop87Bneptune';
+import saturnData from 'astronomia/data/vsop87Bsaturn';
+import uranusData from 'astronomia/data/vsop87Buranus';
+import venusData from 'astronomia/data/vsop87Bvenus';
+import type { Body, PlanetId } from './bodies';
+import {
+  DAYS_PER_JULIAN_CENTURY, J2000_JD, OBLIQUITY_J2000_DEG, SECONDS_PER_DAY, SOLAR_CONSTANT_WM2, TT_MINUS_UTC_S,
+} from './constants';
+import { cross, DEG, dot, fromSpherical, norm, scale, unit, type Vector3 } from './vector3';
+
+interface VsopPosition {
+  lon: number;
+  lat: number;
+  range: number;
+}
+interface VsopPlanet {
+  position2000(jde: number): VsopPosition;
+}
+type PlanetConstructor = new (data: unknown) => VsopPlanet;
+
+// The data modules are ES modules with a default export; under CommonJS interop (some bundlers,
+// tsx in CJS mode) the default arrives wrapped as {default}. Accept both.
+function unwrap(module: unknown): unknown {
+  if (typeof module === 'object' && module !== null && !('L' in module) && 'default' in module) {
+    return (module as { default: unknown }).default;
+  }
+  return module;
+}
+
+const PlanetClass = Planet as PlanetConstructor;
+const vsopData: Record<PlanetId, unknown> = {
+  mercury: mercuryData, venus: venusData, earth: earthData, mars: marsData,
+  jupiter: jupiterData, saturn: saturnData, uranus: uranusData, neptune: neptuneData,
+};
+const planets = new Map<PlanetId, VsopPlanet>();
+
+function planet(id: PlanetId): VsopPlanet {
+  let p = planets.get(id);
+  if (!p) {
+    p = new PlanetClass(unwrap(vsopData[id]));
+    planets.set(id, p);
+  }
+  return p;
+}
+
+/** Julian ephemeris date (TT) of a UTC instant. */
+export function julianDateTT(epoch: Date): number {
+  const ms = epoch.getTime();
+  if (!Number.isFinite(ms)) throw new RangeError('the epoch is not a valid date');
+  // 1970-01-01T00:00Z is JD 2440587.5
+  return 2440587.5 + (ms / 1000 + TT_MINUS_UTC_S) / SECONDS_PER_DAY;
+}
+
+const SIN_EPS = Math.sin(OBLIQUITY_J2000_DEG * DEG);
+const COS_EPS = Math.cos(OBLIQUITY_J2000_DEG * DEG);
+
+/** Ecliptic J2000 -> equatorial J2000 (rotation about x by the obliquity). */
+export const eclipticToEquatorial = ([x, y, z]: Vector3): Vector3 => [x, y * COS_EPS - z * SIN_EPS, y * SIN_EPS + z * COS_EPS];
+
+/** Heliocentric position of a planet in AU, J2000 ecliptic and equinox (VSOP87B). */
+export function heliocentricEclipticAu(id: PlanetId, jde: number): Vector3 {
+  const { lon, lat, range } = planet(id).position2000(jde);
+  return scale(fromSpherical(lon, lat), range);
+}
+
+/** The body's north pole (IAU rotational elements) at a date, as right ascension and declination in radians. */
+export function poleRaDecRad(body: Body, jde: number): { raRad: number; decRad: number } {
+  const days = jde - J2000_JD;
+  const t = days / DAYS_PER_JULIAN_CENTURY;
+  const { pole } = body;
+  let ra = pole.alpha0Deg + pole.alphaRateDegPerCentury * t;
+  let dec = pole.delta0Deg + pole.deltaRateDegPerCentury * t;
+  for (const term of pole.terms) {
+    const arg = (term.phaseDeg + term.rateDegPerDay * days) * DEG;
+    ra += term.raAmpDeg * Math.sin(arg);
+    dec += term.decAmpDeg * Math.cos(arg);
+  }
+  return { raRad: ra * DEG, decRad: dec * DEG };
+}
+
+/** Axes of the body's equatorial frame in ICRF: z the pole, x the ascending node of the body's equator on the ICRF equator. */
+export function bodyFrameAxes(body: Body, jde: number): { x: Vector3; y: Vector3; z: Vector3 } {
+  const { raRad, decRad } = poleRaDecRad(body, jde);
+  const z = fromSpherical(raRad, decRad);
+  const nodeDirection = cross([0, 0, 1], z);
+  // A pole on the ICRF pole (Earth) has no node: keep the ICRF axes, x at the J2000 equinox.
+  const x: Vector3 = norm(nodeDirection) < 1e-12 ? [1, 0, 0] : unit(nodeDirection);
+  return { x, y: cross(z, x), z };
+}
+
+export const toBodyFrame = (axes: { x: Vector3; y: Vector3; z: Vector3 }, v: Vector3): Vector3 => [
+  dot(axes.x, v), dot(axes.y, v), dot(axes.z, v),
+];
+
+export interface SunGeometry {
+  /** Unit vector from the body's centre to the Sun, body equatorial frame. */
+  direction: Vector3;
+  /** The same in ICRF (J2000 equator). */
+  directionIcrf: Vector3;
+  distanceAu: number;
+  /** Right ascension and declination of the Sun in the body's equatorial frame, radians. */
+  raRad: number;
+  decRad: number;
+}
+
+/** Where the Sun is, seen from the body's centre, at a UTC epoch. */
+export function sunFromBody(body: Body, epoch: Date): SunGeometry {
+  const jde = julianDateTT(epoch);
+  const helio = heliocentricEclipticAu(body.planetId, jde);
+  const towardSunIcrf = eclipticToEquatorial(scale(helio, -1));
+  const distanceAu = norm(towardSunIcrf);
+  const directionIcrf = scale(towardSunIcrf, 1 / distanceAu);
+  const direction = toBodyFrame(bodyFrameAxes(body, jde), directionIcrf);
+  return {
+    direction,
+    directionIcrf,
+    distanceAu,
+    raRad: Math.atan2(direction[1], direction[0]),
+    decRad: Math.asin(Math.max(-1, Math.min(1, direction[2]))),
+  };
+}
+
+/** Solar flux in W/m^2 at a distance in AU. */
+// inverse-square law from TSI 1361 W/m^2 at 1 AU
+export const solarFluxWm2 = (distanceAu: number): number => SOLAR_CONSTANT_WM2 / (distanceAu * distanceAu);
+
+/** Sign (+1/-1) of the Sun's apparent motion around the body's pole: + when the body's orbit runs prograde about that pole. */
+export function sunMotionSign(body: Body): 1 | -1 {
+  // The planet's orbital pole is near the ecliptic pole (within 7 deg for every planet here).
+  const eclipticPole = eclipticToEquatorial([0, 0, 1]);
+  const { raRad, decRad } = poleRaDecRad(body, J2000_JD);
+  return dot(fromSpherical(raRad, decRad), eclipticPole) >= 0 ? 1 : -1;
+}

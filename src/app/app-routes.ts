@@ -1,0 +1,91 @@
+import { inject } from '@angular/core';
+import { Router, Routes, UrlTree } from '@angular/router';
+import { signedInGuard } from './auth/signed-in-guard';
+import { adminGuard, sectionGuard, workspaceGuard } from './workspace/role-guard';
+import { CurrentWorkspace } from './workspace/current-workspace';
+
+/** "/" opens the remembered workspace; a user in none still has their tokens page. */
+function homeOf(): string | UrlTree {
+  const id = inject(CurrentWorkspace).id();
+  return id === null ? '/tokens' : inject(Router).createUrlTree(['/w', id, 'overview']);
+}
+
+export const appRoutes: Routes = [
+  { path: 'sign-in', title: 'Sign in · Eclipta', loadComponent: () => import('./auth/sign-in-page').then((m) => m.SignInPage) },
+  {
+    path: 'reset-password',
+    title: 'Reset password · Eclipta',
+    loadComponent: () => import('./auth/password-reset-request-page').then((m) => m.PasswordResetRequestPage),
+  },
+  {
+    path: 'reset-password/:token',
+    title: 'Choose a new password · Eclipta',
+    loadComponent: () => import('./auth/password-reset-confirm-page').then((m) => m.PasswordResetConfirmPage),
+  },
+  {
+    path: 'invite/:token',
+    title: 'Invitation · Eclipta',
+    loadComponent: () => import('./auth/invitation-page').then((m) => m.InvitationPage),
+  },
+  {
+    path: '',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./shell/shell-layout').then((m) => m.ShellLayout),
+    children: [
+      { path: '', pathMatch: 'full', redirectTo: homeOf },
+      {
+        path: 'w/:workspaceId',
+        canActivate: [workspaceGuard],
+        children: [
+          { path: '', pathMatch: 'full', redirectTo: 'overview' },
+          {
+            path: 'overview',
+            title: 'Overview · Eclipta',
+            loadComponent: () => import('./workspace/workspace-overview-page').then((m) => m.WorkspaceOverviewPage),
+          },
+          {
+            path: 'cases',
+            title: 'Load cases · Eclipta',
+            canActivate: [sectionGuard('cases')],
+            loadComponent: () => import('./cases/load-cases-page').then((m) => m.LoadCasesPage),
+          },
+          {
+            path: 'thermal',
+            title: 'Thermal models · Eclipta',
+            canActivate: [sectionGuard('thermal')],
+            loadComponent: () => import('./thermal/thermal-models-page').then((m) => m.ThermalModelsPage),
+          },
+          {
+            path: 'members',
+            title: 'Members · Eclipta',
+            canActivate: [sectionGuard('members')],
+            loadComponent: () => import('./workspace/members-page').then((m) => m.MembersPage),
+          },
+          {
+            path: 'audit',
+            title: 'Audit log · Eclipta',
+            canActivate: [sectionGuard('audit')],
+            loadComponent: () => import('./workspace/audit-page').then((m) => m.AuditPage),
+          },
+        ],
+      },
+      {
+        path: 'tokens',
+        title: 'API tokens · Eclipta',
+        loadComponent: () => import('./auth/api-tokens-page').then((m) => m.ApiTokensPage),
+      },
+      {
+        path: 'admin/mail',
+        title: 'Mail outbox · Eclipta',
+        canActivate: [adminGuard],
+        loadComponent: () => import('./admin/mail-outbox-page').then((m) => m.MailOutboxPage),
+      },
+      {
+        path: 'not-allowed',
+        title: 'Not allowed · Eclipta',
+        loadComponent: () => import('./shell/not-allowed-page').then((m) => m.NotAllowedPage),
+      },
+      { path: '**', title: 'Not found · Eclipta', loadComponent: () => import('./shell/not-found-page').then((m) => m.NotFoundPage) },
+    ],
+  },
+];

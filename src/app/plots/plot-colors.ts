@@ -1,0 +1,27 @@
+// Plot colours come only from the theme's custom properties (styles.scss) so one flux component
+// has one colour on every page; the fallbacks (the light theme's values) keep a plot legible where
+// the theme is not loaded, e.g. in an embedded page or a test.
+
+const FALLBACKS: Readonly<Record<string, string>> = {
+  '--ecl-solar': '#c27c00',
+  '--ecl-albedo': '#3f7fbf',
+  '--ecl-ir': '#b3443a',
+  '--ecl-absorbed': '#2e2a4f',
+  '--ecl-eclipse-band': 'rgb(23 48 93 / 0.12)',
+  '--ecl-hot': '#b8431a',
+  '--ecl-cold': '#1d6fa3',
+  '--ecl-accent': '#7e5601',
+  '--mat-sys-primary': '#4b5e8f',
+  '--mat-sys-on-surface': '#1a1b21',
+  '--mat-sys-on-surface-variant': '#44464f',
+  '--mat-sys-outline': '#75777f',
+  '--mat-sys-outline-variant': '#c5c6d0',
+  '--mat-sys-surface-container': '#eeedf4',
+  '--mat-sys-error': '#ba1a1a',
+};
+
+/** `var(--name, fallback)` for a style binding; an unknown property falls back to the text colour. */
+export function cssColor(customProperty: string): string {
+  const name = customProperty.startsWith('--') ? customProperty : `--${customProperty}`;
+  return `var(${name}, ${FALLBACKS[name] ?? 'currentColor'})`;
+}

@@ -1,0 +1,53 @@
+// The data shapes every Eclipta plot accepts. Kept apart from the components so pages can build
+// plot inputs (from API answers) without importing a component.
+
+export interface PlotPoint {
+  /** Plot x: a number in the axis unit, or ms since the Unix epoch when the plot's xKind is 'date'. */
+  readonly x: number;
+  /** NaN marks a gap: the line breaks there. */
+  readonly y: number;
+}
+
+export interface PlotSeries {
+  readonly id: string;
+  readonly label: string;
+  readonly unit: string;
+  /** A CSS custom property name, e.g. '--ecl-solar'; see plot-colors.ts for the known ones. */
+  readonly colorVar: string;
+  /** Sorted by x ascending: lookups and thinning rely on it. */
+  readonly points: readonly PlotPoint[];
+  readonly dash?: boolean;
+}
+
+export type BandKind = 'eclipse' | 'penumbra' | 'limit' | 'custom';
+
+/** A shaded x range behind the data, e.g. an eclipse from entry to exit. */
+export interface PlotBand {
+  readonly from: number;
+  readonly to: number;
+  readonly label: string;
+  readonly kind: BandKind;
+}
+
+/** A horizontal limit, e.g. a maximum operating temperature. */
+export interface LimitLine {
+  readonly y: number;
+  readonly label: string;
+  readonly kind: 'hot' | 'cold';
+}
+
+export type XKind = 'number' | 'date';
+
+/** One row of a strip plot: the x ranges in which something (a heater) is on. */
+export interface StripRow {
+  readonly label: string;
+  readonly segments: readonly { readonly from: number; readonly to: number }[];
+  /** Defaults to the theme's primary colour. */
+  readonly colorVar?: string;
+}
+
+/** Minimum plot margins in px, so plots stacked one above the other share their x positions. */
+export interface PlotGutters {
+  readonly left?: number;
+  readonly right?: number;
+}

@@ -1,0 +1,81 @@
+// The stateless physics routes through the app: the body catalogue, the environment computation,
+// and how impossible and malformed input is answered (API.md "Environment computation", "Errors").
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type request from 'supertest';
+import { createTestApp, type TestApp } from './test-app';
+
+let t: TestApp;
+let viewer: request.Agent;
+
+beforeAll(async () => {
+  t = await createTestApp();
+  viewer = await t.signIn('viewer@kestrel.test');
+});
+afterAll(() => t.close());
+
+const leo = {
+  bodyId: 'earth',
+  orbit: { periapsisAltitudeKm: 550, apoapsisAltitudeKm: 550, inclinationDeg: 97.6 },
+  epoch: '2027-03-20T12:00:00Z',
+  betaDeg: 0,
+  steps: 360,
+  surfaces: [{ name: 'nadir panel', normal: 'nadir', areaM2: 0.5, absorptivity: 0.25, emissivity: 0.85 }],
+};
+
+describe('GET /api/v1/bodies', () => {
+  it('lists every body id API.md names, each with its sources', async () => {
+    const res = await viewer.get('/api/v1/bodies').expect(200);
+    const ids = (res.body as { id: string }[]).map((b) => b.id);
+    for (const id of ['mercury', 'venus', 'earth', 'moon', 'mars', 'jupiter', 'saturn', 'uranus', 'neptune', 'europa', 'titan']) {
+      expect(ids).toContain(id);
+    }
+    const earth = (res.body as { id: string; radiusKm: number; sources: object }[]).find((b) => b.id === 'earth');
+    // Earth's equatorial radius 6378.137 km (WGS 84, from memory)
+    expect(earth?.radiusKm).toBeCloseTo(6378.137, 2);
+    expect(Object.keys(earth?.sources ?? {}).length).toBeGreaterThan(3);
+  });
+});
+
+describe('POST /api/v1/environment/compute', () => {
+  it("answers API.md's example with Kepler's period and the absorbed-load formula", async () => {
+    const res = await viewer.post('/api/v1/environment/compute').send(leo).expect(200);
+    // Kepler's third law with GM = 398600.4418 km^3/s^2, a = 6928.137 km: 5739 s (API.md's example shape)
+    expect(res.body.periodS).toBeCloseTo(5739, -1);
+    expect(res.body.semiMajorAxisKm).toBeCloseTo(6928.137, 2);
+    expect(res.body.profile).toHaveLength(360);
+    // absorbedW = areaM2 x (absorptivity x (solar + albedo) + emissivity x ir) (API.md)
+    for (const point of res.body.profile.slice(0, 20)) {
+      const s = point.surfaces[0];
+      expect(s.absorbedW).toBeCloseTo(0.5 * (0.25 * (s.solarWm2 + s.albedoWm2) + 0.85 * s.irWm2), 6);
+    }
+    expect(res.body.eclipseFraction).toBeGreaterThan(0.3);
+    expect(res.body.eclipseFraction).toBeLessThan(0.4);
+  });
+
+  it('refuses a periapsis below the surface with 422 saying by how much', async () => {
+    const res = await viewer
+      .post('/api/v1/environment/compute')
+      .send({ ...leo, orbit: { periapsisAltitudeKm: -312, apoapsisAltitudeKm: 500 } })
+      .expect(422);
+    expect(res.body.error.message).toMatch(/312 km below the surface of Earth/);
+  });
+
+  it('refuses e >= 1 with 422', async () => {
+    const res = await viewer
+      .post('/api/v1/environment/compute')
+      .send({ ...leo, orbit: { semiMajorAxisKm: 8000, eccentricity: 1.2 } })
+      .expect((r) => expect([400, 422]).toContain(r.status));
+    expect(res.body.error.message).toMatch(/eccentricity/i);
+  });
+
+  it('answers 400 naming the field and the value for too few steps', async () => {
+    const res = await viewer.post('/api/v1/environment/compute').send({ ...leo, steps: 5 }).expect(400);
+    expect(res.body.error.details[0].path).toBe('steps');
+    expect(res.body.error.details[0].message).toMatch(/5/);
+  });
+
+  it('answers 400 for an unknown body', async () => {
+    const res = await viewer.post('/api/v1/environment/compute').send({ ...leo, bodyId: 'pluto' }).expect(400);
+    expect(res.body.error.details[0].path).toBe('bodyId');
+  });
+});

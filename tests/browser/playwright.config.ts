@@ -1,0 +1,39 @@
+// Browser tests: Debian's Chromium (no downloaded browser) against the bundled server on a spare port,
+// with a fresh database and data dir each run (tests/browser/serve.mjs).
+import { defineConfig } from '@playwright/test';
+
+export const browserTestPort = 4391;
+
+export default defineConfig({
+  testDir: '.',
+  testMatch: '**/*.spec.ts',
+  outputDir: '../../tmp/browser-results',
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  timeout: 60_000,
+  expect: { timeout: 10_000 },
+  reporter: [['list'], ['json', { outputFile: '../../tmp/test-reports/browser.json' }]],
+  use: {
+    baseURL: `http://127.0.0.1:${browserTestPort}`,
+    screenshot: 'only-on-failure',
+    trace: 'off',
+    launchOptions: {
+      executablePath: '/usr/bin/chromium',
+      args: [
+        '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+        '--disable-background-networking', '--disable-component-update', '--disable-sync',
+      ],
+    },
+  },
+  webServer: {
+    command: 'node tests/browser/serve.mjs',
+    cwd: '../..',
+    url: `http://127.0.0.1:${browserTestPort}/api/health`,
+    reuseExistingServer: false,
+    timeout: 60_000,
+    stdout: 'ignore',
+    stderr: 'pipe',
+    env: { PORT: String(browserTestPort) },
+  },
+});

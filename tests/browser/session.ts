@@ -1,0 +1,16 @@
+// Shared steps of the browser tests: signing in through the real sign-in page.
+import { expect, type Page } from '@playwright/test';
+
+export const demoPassword = process.env['ECLIPTA_DEMO_PASSWORD'] ?? 'eclipta-demo';
+
+export async function signIn(page: Page, email: string, password = demoPassword): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByTestId('sign-in-email').fill(email);
+  await page.getByTestId('sign-in-password').fill(password);
+  await page.getByTestId('sign-in-submit').click();
+  await expect(page.getByTestId('user-menu')).toBeVisible();
+}
+
+export async function screenshot(page: Page, name: string): Promise<void> {
+  await page.screenshot({ path: `tmp/screenshots/${name}.png`, fullPage: true });
+}
