@@ -3,15 +3,7 @@
 import { sql } from 'drizzle-orm';
 import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { roles } from '../../shared/api/workspaces';
-
-const id = () =>
-  text('id')
-    .primaryKey()
-    .$defaultFn(() => crypto.randomUUID());
-const createdAt = () =>
-  text('created_at')
-    .notNull()
-    .$defaultFn(() => new Date().toISOString());
+import { createdAt, id } from './columns';
 
 export const users = sqliteTable('users', {
   id: id(),
@@ -122,3 +114,7 @@ export type ApiTokenRow = typeof apiTokens.$inferSelect;
 export type InvitationRow = typeof invitations.$inferSelect;
 export type PasswordResetRow = typeof passwordResets.$inferSelect;
 export type AuditEventRow = typeof auditEvents.$inferSelect;
+
+// Feature tables live in files of their own, re-exported here so that drizzle-kit and the code
+// still see one schema.
+export * from './mission-tables';
