@@ -2,7 +2,9 @@
 // with a fresh database and data dir each run (tests/browser/serve.mjs).
 import { defineConfig } from '@playwright/test';
 
-export const browserTestPort = 4391;
+// A port of its own per run, so that two runs on one machine don't meet; the test workers inherit it.
+process.env['ECLIPTA_TEST_PORT'] ??= String(4400 + Math.floor(Math.random() * 500));
+export const browserTestPort = Number(process.env['ECLIPTA_TEST_PORT']);
 
 export default defineConfig({
   testDir: '.',

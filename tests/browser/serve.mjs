@@ -2,7 +2,7 @@
 import { mkdirSync, rmSync } from 'node:fs';
 import { resolve } from 'node:path';
 
-const dataDir = resolve('tmp/browser-data');
+const dataDir = resolve(`tmp/browser-data-${process.env.PORT}`);
 rmSync(dataDir, { recursive: true, force: true });
 mkdirSync(dataDir, { recursive: true });
 Object.assign(process.env, {
