@@ -9,8 +9,16 @@ import { authenticate } from './auth/middleware';
 import { apiNotFound, errorMiddleware } from './errors';
 import { adminRoutes } from './routes/admin';
 import { authRoutes } from './routes/auth';
+import { caseRoutes } from './routes/cases';
 import { environmentRoutes } from './routes/environment';
+import { ephemerisRoutes } from './routes/ephemerides';
 import { invitationRoutes } from './routes/invitations';
+import { materialRoutes } from './routes/materials';
+import { missionRoutes } from './routes/missions';
+import { orbitRoutes } from './routes/orbits';
+import { surfaceRoutes } from './routes/surfaces';
+import { thermalRoutes } from './routes/thermal';
+import { thermalModelRoutes } from './routes/thermal-models';
 import { tokenRoutes } from './routes/tokens';
 import { workspaceRoutes } from './routes/workspaces';
 
@@ -24,6 +32,14 @@ export const featureRoutes: FeatureRoutes[] = [
   invitationRoutes,
   adminRoutes,
   environmentRoutes,
+  thermalRoutes,
+  missionRoutes,
+  orbitRoutes,
+  surfaceRoutes,
+  materialRoutes,
+  ephemerisRoutes,
+  caseRoutes,
+  thermalModelRoutes,
 ];
 
 // Large enough for a thermal model with per-step loads; uploads go through multer, not this.

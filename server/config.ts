@@ -29,6 +29,8 @@ export interface Config {
   migrationsDir: string;
   /** bcrypt cost; lowered under NODE_ENV=test so the test suite stays fast. */
   bcryptCost: number;
+  /** Largest accepted upload (an ephemeris file), MB; beyond it 413. */
+  uploadLimitMb: number;
 }
 
 export class ConfigError extends Error {
@@ -132,6 +134,7 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     clientDir: path.resolve(cwd, text(env, 'ECLIPTA_CLIENT_DIR', 'dist/client/browser')),
     migrationsDir: path.resolve(cwd, text(env, 'ECLIPTA_MIGRATIONS_DIR', 'migrations')),
     bcryptCost: env['NODE_ENV'] === 'test' ? 4 : 10,
+    uploadLimitMb: positiveNumber(env, 'ECLIPTA_UPLOAD_LIMIT_MB', 50, 10000),
   };
 }
 

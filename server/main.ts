@@ -8,6 +8,7 @@ import { migrateDatabase, openDatabase } from './db/database';
 import { createLogger } from './logger';
 import { startMailer } from './mail/mailer';
 import { seedDatabase } from './seed/seed';
+import { clearLeftoverUploads } from './ephemerides/ephemeris-upload';
 
 let config: Config;
 try {
@@ -22,6 +23,8 @@ try {
 
 const logger = createLogger({ level: config.logLevel, file: config.logFile });
 mkdirSync(config.dataDir, { recursive: true });
+const leftovers = clearLeftoverUploads(config);
+if (leftovers > 0) logger.warn('removed files of uploads interrupted by the last stop', { files: leftovers });
 const { db, sqlite } = openDatabase(config.dbPath);
 migrateDatabase(db, config.migrationsDir);
 const mailer = await startMailer(config, logger);

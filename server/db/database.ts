@@ -7,6 +7,7 @@ import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import * as schema from './schema';
+import { ensureMaterialLibrary } from '../missions/material-library';
 
 export type Db = BetterSQLite3Database<typeof schema>;
 export type Sqlite = Database.Database;
@@ -21,6 +22,10 @@ export function openDatabase(file: string): OpenedDatabase {
   const sqlite = new Database(file);
   // WAL lets readers go on while a write commits; foreign keys are off by default in SQLite.
   sqlite.pragma('journal_mode = WAL');
+  // In WAL mode NORMAL is safe from corruption: a commit is durable once the WAL is synced at the
+  // next checkpoint, and a power cut can lose only the last commits, never leave a torn database.
+  // FULL would sync on every commit, which a large ephemeris upload pays for in full.
+  sqlite.pragma('synchronous = NORMAL');
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
   return { db: drizzle(sqlite, { schema }), sqlite };
@@ -28,4 +33,6 @@ export function openDatabase(file: string): OpenedDatabase {
 
 export function migrateDatabase(db: Db, migrationsFolder: string): void {
   migrate(db, { migrationsFolder });
+  // Reference data the schema implies, so it is there with or without the demo seed.
+  ensureMaterialLibrary(db);
 }

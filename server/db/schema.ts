@@ -118,3 +118,6 @@ export type AuditEventRow = typeof auditEvents.$inferSelect;
 // Feature tables live in files of their own, re-exported here so that drizzle-kit and the code
 // still see one schema.
 export * from './mission-tables';
+export * from './ephemeris-tables';
+export * from './case-tables';
+export * from './thermal-tables';

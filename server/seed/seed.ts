@@ -6,11 +6,14 @@ import { hashPassword } from '../auth/passwords';
 import type { Db } from '../db/database';
 import { users } from '../db/schema';
 import { seedDemoTeam, type DemoTeam } from './demo';
+import { seedDemoMissions } from './missions-demo';
+import { seedDemoCases } from './cases-demo';
+import { seedDemoThermalModel } from './thermal-demo';
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 export type FeatureSeed = (tx: Tx, team: DemoTeam) => void;
 
-const featureSeeds: FeatureSeed[] = [];
+const featureSeeds: FeatureSeed[] = [seedDemoMissions, seedDemoCases, seedDemoThermalModel];
 
 /** Seeds the demo data when ECLIPTA_SEED=demo and there are no users yet; answers whether it did. */
 export async function seedDatabase(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>): Promise<boolean> {

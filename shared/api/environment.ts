@@ -141,3 +141,127 @@ export type BodySummaryResponse = z.infer<typeof bodySummary>;
 
 // A parsed request must be something computeEnvironment accepts; this fails to compile if they drift apart.
 export const asEnvironmentRequest = (parsed: EnvironmentRequestParsed): EnvironmentRequest => parsed;
+
+// ---- Orbit figures, sun-synchronous orbits, beta history, one body, unit conversion ----------
+//   POST /api/v1/orbits/figures                    orbitFiguresRequest -> orbitFiguresResponse
+//   GET  /api/v1/bodies/:bodyId/sun-synchronous    ?altitudeKm=&eccentricity= -> sunSynchronousResponse (422 where none exists)
+//   POST /api/v1/environment/beta-history          betaHistoryRequest -> betaHistoryResponse
+//   GET  /api/v1/bodies/:bodyId                    -> bodyDetail (404 for an unknown body)
+//   POST /api/v1/units/convert                     unitConvertRequest -> unitConvertResponse
+
+const bodyIdField = z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` });
+
+export const orbitFiguresRequest = z.strictObject({ bodyId: bodyIdField, orbit: orbitInput });
+
+export const orbitFiguresResponse = z.object({
+  bodyId: z.string(),
+  periodS: z.number(),
+  meanMotionRadS: z.number(),
+  meanMotionRevPerDay: z.number(),
+  semiMajorAxisKm: z.number(),
+  eccentricity: z.number(),
+  periapsisAltitudeKm: z.number(),
+  apoapsisAltitudeKm: z.number(),
+  periapsisSpeedKmS: z.number(),
+  apoapsisSpeedKmS: z.number(),
+  nodalRateDegPerDay: z.number(),
+  apsidalRateDegPerDay: z.number(),
+  /** Circular orbit at the surface: the shortest period any orbit around the body can have. */
+  minimumPeriodS: z.number(),
+});
+
+// Query strings arrive as text: read as numbers here so that the 400 can repeat what was typed.
+const queryNumber = (label: string) =>
+  z
+    .string({ message: `give ${label} as a number` })
+    .trim()
+    .refine((text) => text !== '' && Number.isFinite(Number(text)), `${label} must be a number`)
+    .transform(Number);
+
+export const sunSynchronousQuery = z.strictObject({
+  altitudeKm: queryNumber('altitudeKm'),
+  eccentricity: queryNumber('eccentricity').pipe(z.number().min(0, 'eccentricity is 0..1').lt(1, 'eccentricity must be below 1')).optional(),
+});
+
+export const sunSynchronousResponse = z.object({
+  bodyId: z.string(),
+  /** Semi-major axis minus the body's radius. */
+  altitudeKm: z.number(),
+  semiMajorAxisKm: z.number(),
+  eccentricity: z.number(),
+  inclinationDeg: z.number(),
+  nodalRateDegPerDay: z.number(),
+  periodS: z.number(),
+});
+
+/** The most samples one beta history may hold. */
+export const MAX_BETA_HISTORY_SAMPLES = 20000;
+const DAY_MS = 86400e3;
+const isoDateTime = (label: string) =>
+  z.iso.datetime({ offset: true, message: `${label} is an ISO 8601 date and time, e.g. 2027-03-20T00:00:00Z` });
+
+export const betaHistoryRequest = z
+  .strictObject({
+    bodyId: bodyIdField,
+    orbit: orbitInput,
+    from: isoDateTime('from'),
+    to: isoDateTime('to'),
+    /** When the orbit's RAAN and argument of periapsis hold; `from` when left out. */
+    epoch: isoDateTime('epoch').optional(),
+    stepDays: finite('stepDays').positive('stepDays must be above 0').max(3650, 'stepDays is at most 3650'),
+  })
+  .superRefine((r, ctx) => {
+    const span = Date.parse(r.to) - Date.parse(r.from);
+    if (!(span >= 0)) {
+      ctx.addIssue({ code: 'custom', path: ['to'], message: `to must not be before from (${r.from})` });
+      return;
+    }
+    const samples = Math.floor(span / DAY_MS / r.stepDays + 1e-9) + 1;
+    if (samples > MAX_BETA_HISTORY_SAMPLES) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['stepDays'],
+        message: `${samples} samples from ${r.from} to ${r.to} is more than ${MAX_BETA_HISTORY_SAMPLES}; use a larger stepDays`,
+      });
+    }
+  });
+
+export const betaHistoryResponse = z.object({
+  bodyId: z.string(),
+  periodS: z.number(),
+  nodalRateDegPerDay: z.number(),
+  apsidalRateDegPerDay: z.number(),
+  items: z.array(z.object({
+    date: z.string(),
+    betaDeg: z.number(),
+    raanDeg: z.number(),
+    solarDistanceAu: z.number(),
+    solarFluxWm2: z.number(),
+    /** Umbra plus half of penumbra. */
+    eclipseFraction: z.number(),
+    eclipseDurationS: z.number(),
+  })),
+  minBetaDeg: z.number(),
+  maxBetaDeg: z.number(),
+  assumptions: z.array(z.string()),
+});
+
+const sunlightPoint = z.object({ distanceAu: z.number(), solarFluxWm2: z.number() });
+export const bodyDetail = bodySummary.extend({
+  perihelion: sunlightPoint,
+  mean: sunlightPoint,
+  aphelion: sunlightPoint,
+});
+
+export const unitConvertRequest = z.strictObject({
+  value: z.union([z.string().max(100, 'value has at most 100 characters'), finite('value')], { message: 'value is a number or a text such as "341.8 mi"' }),
+  unit: z.string().trim().min(1, 'give the unit to convert to, e.g. "km"').max(40, 'unit has at most 40 characters'),
+});
+export const unitConvertResponse = z.object({ value: z.number(), unit: z.string() });
+
+export type OrbitFiguresResponse = z.infer<typeof orbitFiguresResponse>;
+export type SunSynchronousResponse = z.infer<typeof sunSynchronousResponse>;
+export type BetaHistoryRequest = z.input<typeof betaHistoryRequest>;
+export type BetaHistoryResponse = z.infer<typeof betaHistoryResponse>;
+export type BodyDetailResponse = z.infer<typeof bodyDetail>;
+export type UnitConvertResponse = z.infer<typeof unitConvertResponse>;

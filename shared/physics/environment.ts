@@ -4,10 +4,12 @@
 // computed. Source: API.md "Environment computation" for the contract.
 import { getBody, type BodyId } from './bodies';
 import { betaFromVectorsRad } from './beta-angle';
-import { eclipseSummary, shadowGeometry, sunlitFraction } from './eclipse';
-import { localNormal, surfaceLoad, type Surface, type SurfaceLoad } from './heat-loads';
+import type { Surface, SurfaceLoad } from './heat-loads';
 import { defineOrbit, type OrbitInput } from './orbit-definition';
-import { orbitBasis, orbitSampler } from './orbit-position';
+import { eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, shadeGrid, type PerifocalSun } from './orbit-grid';
+import { orbitBasis } from './orbit-position';
+import { profileLoads } from './profile-loads';
+import { prepareSurfaces } from './surface-grid';
 import { AU_KM } from './constants';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2, sunFromBody } from './sun';
@@ -60,6 +62,8 @@ export interface EnvironmentResult {
 }
 
 export const DEFAULT_STEPS = 360;
+/** Samples of the shadow scan over one orbit (each crossing is then refined by bisection). */
+export const ECLIPSE_SCAN_STEPS = 2048;
 
 const ASSUMPTIONS = [
   'eclipseFraction counts umbra plus half of penumbra (conical shadow, Sun as a uniform disk, no atmosphere)',
@@ -90,8 +94,6 @@ function parseEpoch(epoch: string): Date {
   return date;
 }
 
-const zeroLoad = (name: string): SurfaceLoad => ({ name, solarWm2: 0, albedoWm2: 0, irWm2: 0, absorbedW: 0 });
-
 /** Everything the compute route answers, from its request. Throws PhysicsError for the physically impossible. */
 export function computeEnvironment(request: EnvironmentRequest): EnvironmentResult {
   const body = getBody(request.bodyId);
@@ -118,31 +120,23 @@ export function computeEnvironment(request: EnvironmentRequest): EnvironmentResu
   const albedo = request.albedo ?? body.albedo.nominal;
   const olrWm2 = request.olrWm2 ?? body.olrWm2.nominal;
 
-  const stateAt = orbitSampler(orbit, basis);
-  const normals = request.surfaces.map((s, i) => ({ surface: s, fixed: s.normal === 'sun' ? null : localNormal(s.normal, [0, 0, 1], `surfaces.${i}.normal`) }));
-  const sums = request.surfaces.map((s) => zeroLoad(s.name));
-  const peaks = request.surfaces.map((s) => zeroLoad(s.name));
-  const profile: ProfilePoint[] = new Array(steps);
-  for (let k = 0; k < steps; k++) {
-    const tS = (k * orbit.periodS) / steps;
-    const state = stateAt(tS);
-    const sunLocal: Vector3 = [dot(sunDirection, state.ram), dot(sunDirection, state.normal), dot(sunDirection, state.zenith)];
-    const sunlit = sunlitFraction(shadowGeometry(state.positionKm, sunDirection, sunDistanceKm, body.radiusKm));
-    const point = { sunLocal, sunlit, solarFluxWm2: solarFlux, albedo, olrWm2, radiusKm: state.radiusKm, bodyRadiusKm: body.radiusKm };
-    const loads = normals.map(({ surface, fixed }, i) => {
-      const load = surfaceLoad(surface, fixed ?? sunLocal, point);
-      const [sum, peak] = [sums[i], peaks[i]];
-      sum.solarWm2 += load.solarWm2; sum.albedoWm2 += load.albedoWm2; sum.irWm2 += load.irWm2; sum.absorbedW += load.absorbedW;
-      peak.solarWm2 = Math.max(peak.solarWm2, load.solarWm2); peak.albedoWm2 = Math.max(peak.albedoWm2, load.albedoWm2);
-      peak.irWm2 = Math.max(peak.irWm2, load.irWm2); peak.absorbedW = Math.max(peak.absorbedW, load.absorbedW);
-      return load;
-    });
-    profile[k] = { tS, trueAnomalyDeg: state.trueAnomalyRad / DEG, sunlit, surfaces: loads };
-  }
-  const eclipse = eclipseSummary(stateAt, orbit.periodS, sunDirection, sunDistanceKm, body.radiusKm);
+  const grid = orbitGrid(orbit, body.radiusKm, steps);
+  const sun: PerifocalSun = {
+    sp: dot(sunDirection, basis.p), sq: dot(sunDirection, basis.q), sw: dot(sunDirection, basis.w), distanceKm: sunDistanceKm,
+  };
+  const prepared = prepareSurfaces(request.surfaces, grid, body.radiusKm);
+  const shade = gridShade(steps);
+  shadeGrid(grid, sun, shade);
+  const profile = profileLoads(prepared, grid, shade, sun.sw, body.radiusKm, solarFlux, albedo, olrWm2);
+  const { sums, peaks } = profile;
+  // The shadow scan needs a fine grid even when few load steps are asked for.
+  const eclipse = steps >= ECLIPSE_SCAN_STEPS
+    ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm)
+    : eclipseOnGrid(orbit, orbitGrid(orbit, body.radiusKm, ECLIPSE_SCAN_STEPS), sun, body.radiusKm);
   const average = (l: SurfaceLoad): SurfaceLoad => ({
     name: l.name, solarWm2: l.solarWm2 / steps, albedoWm2: l.albedoWm2 / steps, irWm2: l.irWm2 / steps, absorbedW: l.absorbedW / steps,
   });
+  const points = profile.points;
 
   return {
     bodyId: body.id,
@@ -162,7 +156,7 @@ export function computeEnvironment(request: EnvironmentRequest): EnvironmentResu
     umbraDurationS: eclipse.umbraS,
     penumbraDurationS: eclipse.penumbraS,
     nodalRateDegPerDay: (orbit.nodalRateRadS / DEG) * 86400,
-    profile,
+    profile: points,
     orbitAverage: { surfaces: sums.map(average) },
     peak: { surfaces: peaks },
     assumptions: ASSUMPTIONS,

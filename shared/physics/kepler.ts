@@ -69,6 +69,15 @@ export function nodalRateRadS(body: J2Body, semiMajorAxisKm: number, eccentricit
   return -1.5 * n * body.j2 * (body.radiusKm / p) ** 2 * Math.cos(inclinationRad);
 }
 
+/** Secular drift of the argument of periapsis in rad/s (zero at the critical inclination 63.4 deg). */
+// J2 apsidal rotation: domega/dt = (3/4) n J2 (R/p)^2 (4 - 5 sin^2 i)  (Vallado eq. 9-41)
+export function apsidalRateRadS(body: J2Body, semiMajorAxisKm: number, eccentricity: number, inclinationRad: number): number {
+  const p = semiMajorAxisKm * (1 - eccentricity * eccentricity);
+  const n = meanMotionRadS(semiMajorAxisKm, body.gmKm3S2);
+  const sinI = Math.sin(inclinationRad);
+  return 0.75 * n * body.j2 * (body.radiusKm / p) ** 2 * (4 - 5 * sinI * sinI);
+}
+
 /**
  * Inclination (radians) whose J2 nodal drift equals requiredRateRadS (the Sun's mean motion as seen
  * in the body's equatorial frame, signed). Throws when no inclination can reach it.

@@ -12,7 +12,8 @@ export type PhysicsErrorCode =
   | 'unknown_body'
   | 'invalid_quantity'
   | 'invalid_surface'
-  | 'missing_sun_geometry';
+  | 'missing_sun_geometry'
+  | 'invalid_trajectory';
 
 export class PhysicsError extends Error {
   override readonly name = 'PhysicsError';

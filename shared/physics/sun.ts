@@ -3,57 +3,14 @@
 // flux by the inverse-square law.
 // Leaves out: light time, aberration and nutation (arcseconds), the Moon's and other moons' own
 // offsets from their planet (the Moon sits 0.0026 AU from Earth: under 0.15 deg and 0.5 % in flux).
-// Sources: Bretagnon & Francou 1988 (VSOP87) via astronomia's planetposition; Meeus, Astronomical
+// Sources: Bretagnon & Francou 1988 (VSOP87) with astronomia's tables (vsop87.ts); Meeus, Astronomical
 // Algorithms, ch. 25 and 32; IAU WGCCRE 2015 for the poles.
-import { Planet } from 'astronomia/planetposition';
-import earthData from 'astronomia/data/vsop87Bearth';
-import jupiterData from 'astronomia/data/vsop87Bjupiter';
-import marsData from 'astronomia/data/vsop87Bmars';
-import mercuryData from 'astronomia/data/vsop87Bmercury';
-import neptuneData from 'astronomia/data/vsop87Bneptune';
-import saturnData from 'astronomia/data/vsop87Bsaturn';
-import uranusData from 'astronomia/data/vsop87Buranus';
-import venusData from 'astronomia/data/vsop87Bvenus';
-import type { Body, PlanetId } from './bodies';
+import { solarDistanceRangeAu, type Body, type PlanetId } from './bodies';
 import {
   DAYS_PER_JULIAN_CENTURY, J2000_JD, OBLIQUITY_J2000_DEG, SECONDS_PER_DAY, SOLAR_CONSTANT_WM2, TT_MINUS_UTC_S,
 } from './constants';
 import { cross, DEG, dot, fromSpherical, norm, scale, unit, type Vector3 } from './vector3';
-
-interface VsopPosition {
-  lon: number;
-  lat: number;
-  range: number;
-}
-interface VsopPlanet {
-  position2000(jde: number): VsopPosition;
-}
-type PlanetConstructor = new (data: unknown) => VsopPlanet;
-
-// The data modules are ES modules with a default export; under CommonJS interop (some bundlers,
-// tsx in CJS mode) the default arrives wrapped as {default}. Accept both.
-function unwrap(module: unknown): unknown {
-  if (typeof module === 'object' && module !== null && !('L' in module) && 'default' in module) {
-    return (module as { default: unknown }).default;
-  }
-  return module;
-}
-
-const PlanetClass = Planet as PlanetConstructor;
-const vsopData: Record<PlanetId, unknown> = {
-  mercury: mercuryData, venus: venusData, earth: earthData, mars: marsData,
-  jupiter: jupiterData, saturn: saturnData, uranus: uranusData, neptune: neptuneData,
-};
-const planets = new Map<PlanetId, VsopPlanet>();
-
-function planet(id: PlanetId): VsopPlanet {
-  let p = planets.get(id);
-  if (!p) {
-    p = new PlanetClass(unwrap(vsopData[id]));
-    planets.set(id, p);
-  }
-  return p;
-}
+import { vsop87Position } from './vsop87';
 
 /** Julian ephemeris date (TT) of a UTC instant. */
 export function julianDateTT(epoch: Date): number {
@@ -71,7 +28,7 @@ export const eclipticToEquatorial = ([x, y, z]: Vector3): Vector3 => [x, y * COS
 
 /** Heliocentric position of a planet in AU, J2000 ecliptic and equinox (VSOP87B). */
 export function heliocentricEclipticAu(id: PlanetId, jde: number): Vector3 {
-  const { lon, lat, range } = planet(id).position2000(jde);
+  const { lon, lat, range } = vsop87Position(id, jde);
   return scale(fromSpherical(lon, lat), range);
 }
 
@@ -142,4 +99,14 @@ export function sunMotionSign(body: Body): 1 | -1 {
   const eclipticPole = eclipticToEquatorial([0, 0, 1]);
   const { raRad, decRad } = poleRaDecRad(body, J2000_JD);
   return dot(fromSpherical(raRad, decRad), eclipticPole) >= 0 ? 1 : -1;
+}
+
+/** The Sun at the body's (or its planet's) perihelion, mean distance and aphelion: distance in AU, flux in W/m^2. */
+export function sunlightRange(body: Body) {
+  const { mean, min, max } = solarDistanceRangeAu(body);
+  return {
+    perihelion: { distanceAu: min, solarFluxWm2: solarFluxWm2(min) },
+    mean: { distanceAu: mean, solarFluxWm2: solarFluxWm2(mean) },
+    aphelion: { distanceAu: max, solarFluxWm2: solarFluxWm2(max) },
+  };
 }

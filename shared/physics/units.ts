@@ -72,3 +72,19 @@ export function readSi(input: string | number, defaultUnit: string, path = 'valu
   const si = math.unit(defaultUnit).toSI().formatUnits();
   return readQuantity(input, si === '' ? defaultUnit : si, defaultUnit, path);
 }
+
+/**
+ * `input` in `unit`, for the client's unit fields: a bare number is taken as already in `unit`.
+ * An unknown target unit is refused like an unreadable quantity (path "unit").
+ */
+export function convertQuantity(input: string | number, unit: string): number {
+  let target: Unit;
+  try {
+    target = math.unit(unit);
+  } catch (error) {
+    const reason = error instanceof Error ? error.message : String(error);
+    throw refuse('unit', `"${unit}" is not a unit Eclipta can read (${reason})`);
+  }
+  if (target.value !== null) throw refuse('unit', `"${unit}" is a quantity; give the unit alone, e.g. "km"`);
+  return readQuantity(input, unit, unit, 'value');
+}

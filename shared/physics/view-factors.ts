@@ -10,6 +10,9 @@
  * View factor from a plate at distance rKm from the centre of a sphere of radius radiusKm, its normal
  * tilted tiltRad from the direction to the centre (0 = facing the centre, i.e. nadir).
  */
+// At module level: a closure inside the function would be rebuilt on every call of this hot path.
+const clamp = (v: number): number => Math.max(-1, Math.min(1, v));
+
 export function plateToSphereViewFactor(rKm: number, radiusKm: number, tiltRad: number): number {
   const h = rKm / radiusKm;
   if (!(h > 1)) throw new RangeError(`the plate must be outside the sphere: r/R = ${h}`);
@@ -25,7 +28,6 @@ export function plateToSphereViewFactor(rKm: number, radiusKm: number, tiltRad: 
   if (tilt >= Math.PI - fullLimit) return 0;
   // Howell catalogue, plate-to-sphere, tilted, partly visible:
   // F = 1/2 - asin(X / (H sin l)) / pi + [cos l acos(-X cot l) - X sqrt(1 - H^2 cos^2 l)] / (pi H^2)
-  const clamp = (v: number) => Math.max(-1, Math.min(1, v));
   const f = 0.5 - Math.asin(clamp(x / (h * sinL))) / Math.PI
     + (cosL * Math.acos(clamp((-x * cosL) / sinL)) - x * Math.sqrt(Math.max(0, 1 - h * h * cosL * cosL))) / (Math.PI * h * h);
   return Math.max(0, f);

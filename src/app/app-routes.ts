@@ -4,10 +4,10 @@ import { signedInGuard } from './auth/signed-in-guard';
 import { adminGuard, sectionGuard, workspaceGuard } from './workspace/role-guard';
 import { CurrentWorkspace } from './workspace/current-workspace';
 
-/** "/" opens the remembered workspace; a user in none still has their tokens page. */
+/** "/" opens the remembered workspace's missions; a user in none still has their tokens page. */
 function homeOf(): string | UrlTree {
   const id = inject(CurrentWorkspace).id();
-  return id === null ? '/tokens' : inject(Router).createUrlTree(['/w', id, 'overview']);
+  return id === null ? '/tokens' : inject(Router).createUrlTree(['/w', id, 'missions']);
 }
 
 export const appRoutes: Routes = [
@@ -37,7 +37,25 @@ export const appRoutes: Routes = [
         path: 'w/:workspaceId',
         canActivate: [workspaceGuard],
         children: [
-          { path: '', pathMatch: 'full', redirectTo: 'overview' },
+          { path: '', pathMatch: 'full', redirectTo: 'missions' },
+          {
+            path: 'missions',
+            title: 'Missions · Eclipta',
+            canActivate: [sectionGuard('missions')],
+            loadComponent: () => import('./missions/missions-page').then((m) => m.MissionsPage),
+          },
+          {
+            path: 'missions/:missionId',
+            title: 'Mission · Eclipta',
+            canActivate: [sectionGuard('missions')],
+            loadComponent: () => import('./missions/mission-page').then((m) => m.MissionPage),
+          },
+          {
+            path: 'missions/:missionId/ephemerides',
+            title: 'Ephemerides · Eclipta',
+            canActivate: [sectionGuard('missions')],
+            loadComponent: () => import('./ephemerides/mission-ephemerides-page').then((m) => m.MissionEphemeridesPage),
+          },
           {
             path: 'overview',
             title: 'Overview · Eclipta',
@@ -47,13 +65,31 @@ export const appRoutes: Routes = [
             path: 'cases',
             title: 'Load cases · Eclipta',
             canActivate: [sectionGuard('cases')],
-            loadComponent: () => import('./cases/load-cases-page').then((m) => m.LoadCasesPage),
+            loadComponent: () => import('./cases/case-library-page').then((m) => m.CaseLibraryPage),
+          },
+          {
+            path: 'cases/:caseId',
+            title: 'Load case · Eclipta',
+            canActivate: [sectionGuard('cases')],
+            loadComponent: () => import('./cases/case-page').then((m) => m.CasePage),
+          },
+          {
+            path: 'cases/:caseId/compare/:otherId',
+            title: 'Compare load cases · Eclipta',
+            canActivate: [sectionGuard('cases')],
+            loadComponent: () => import('./cases/case-comparison-page').then((m) => m.CaseComparisonPage),
           },
           {
             path: 'thermal',
             title: 'Thermal models · Eclipta',
             canActivate: [sectionGuard('thermal')],
             loadComponent: () => import('./thermal/thermal-models-page').then((m) => m.ThermalModelsPage),
+          },
+          {
+            path: 'thermal/:modelId',
+            title: 'Thermal model · Eclipta',
+            canActivate: [sectionGuard('thermal')],
+            loadComponent: () => import('./thermal/thermal-model-page').then((m) => m.ThermalModelPage),
           },
           {
             path: 'members',

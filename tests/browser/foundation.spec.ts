@@ -4,7 +4,7 @@ import { expect, test } from '@playwright/test';
 import { screenshot, signIn } from './session';
 
 const navigationByRole = [
-  { email: 'owner@kestrel.test', role: 'owner', shows: ['overview', 'cases', 'thermal', 'members', 'audit', 'tokens', 'mail'], hides: [] },
+  { email: 'owner@kestrel.test', role: 'owner', shows: ['missions', 'overview', 'cases', 'thermal', 'members', 'audit', 'tokens', 'mail'], hides: [] },
   { email: 'analyst@kestrel.test', role: 'analyst', shows: ['overview', 'cases', 'tokens'], hides: ['thermal', 'members', 'audit', 'mail'] },
   { email: 'thermal@kestrel.test', role: 'thermal', shows: ['overview', 'cases', 'thermal', 'tokens'], hides: ['members', 'audit', 'mail'] },
   { email: 'viewer@kestrel.test', role: 'viewer', shows: ['overview', 'cases', 'tokens'], hides: ['thermal', 'members', 'audit', 'mail'] },
@@ -13,6 +13,7 @@ const navigationByRole = [
 for (const { email, role, shows, hides } of navigationByRole) {
   test(`${role} signs in and sees the ${role}'s navigation`, async ({ page }) => {
     await signIn(page, email);
+    await page.getByTestId('nav-overview').click(); // "/" lands on the missions list
     await expect(page.getByTestId('overview-role')).toContainText(role);
     for (const id of shows) await expect(page.getByTestId(`nav-${id}`)).toBeVisible();
     for (const id of hides) await expect(page.getByTestId(`nav-${id}`)).toHaveCount(0);
@@ -22,6 +23,7 @@ for (const { email, role, shows, hides } of navigationByRole) {
 
 test('a member of another workspace does not see Kestrel', async ({ page }) => {
   await signIn(page, 'owner@plover.test');
+  await page.getByTestId('nav-overview').click();
   await expect(page.getByTestId('overview-title')).toContainText('Plover');
   await page.getByTestId('workspace-switcher').click();
   await expect(page.getByRole('option', { name: /Kestrel/ })).toHaveCount(0);
@@ -65,5 +67,6 @@ test('a password reset by e-mail works end to end', async ({ browser }) => {
   await expect(requester.getByTestId('reset-done-sign-in')).toBeVisible();
 
   await signIn(requester, 'owner@plover.test', newPassword);
+  await requester.getByTestId('nav-overview').click();
   await expect(requester.getByTestId('overview-title')).toContainText('Plover');
 });

@@ -1,7 +1,7 @@
 import type { MembershipSummary } from '../../../shared/api/auth';
 import { roles, type Role } from '../../../shared/api/workspaces';
 
-export type SectionId = 'overview' | 'cases' | 'thermal' | 'members' | 'audit' | 'tokens' | 'mail';
+export type SectionId = 'missions' | 'overview' | 'cases' | 'thermal' | 'members' | 'audit' | 'tokens' | 'mail';
 
 interface Section {
   readonly id: SectionId;
@@ -16,6 +16,7 @@ interface Section {
 // One table decides both what the side navigation offers and what the route guards let through,
 // so a link is never shown to someone the page would turn away. Roles follow PRODUCT.md.
 const SECTIONS: readonly Section[] = [
+  { id: 'missions', label: 'Missions', icon: 'public', scope: 'workspace', roles },
   { id: 'overview', label: 'Overview', icon: 'dashboard', scope: 'workspace', roles },
   { id: 'cases', label: 'Load cases', icon: 'stacked_line_chart', scope: 'workspace', roles },
   { id: 'thermal', label: 'Thermal models', icon: 'device_thermostat', scope: 'workspace', roles: ['thermal', 'owner'] },

@@ -1,20 +1,153 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+// The thermal models of one mission of the workspace, chosen with ?mission=; thermal engineers and
+// owners start a new model here (one node to begin with) and go on in the editor.
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatButton } from '@angular/material/button';
+import { MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatIcon } from '@angular/material/icon';
+import { MatOption, MatSelect } from '@angular/material/select';
+import { MatTableModule } from '@angular/material/table';
+import { Router, RouterLink } from '@angular/router';
+import { combineLatest, of, switchMap } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error-message';
+import { loaded } from '../api/loaded';
+import { CaseApi } from '../cases/case-api';
 import { DesignCaution } from '../shell/design-caution';
+import { CurrentWorkspace } from '../workspace/current-workspace';
+import { ThermalModelApi } from './thermal-api';
 
-/** Placeholder until the lumped-node model editor lands; the route and its role rule are in place. */
 @Component({
   selector: 'ecl-thermal-models-page',
-  imports: [DesignCaution],
+  imports: [DatePipe, RouterLink, MatTableModule, MatFormField, MatLabel, MatSelect, MatOption, MatButton, MatIcon, DesignCaution],
   template: `
     <section class="ecl-page">
       <h1>Thermal models</h1>
       <p class="ecl-muted">
-        Lumped-node models (nodes, couplings, heaters with thermostats) arrive with a coming release. Thermal engineers and
-        owners will build and run them here.
+        Lumped-node models of a mission's spacecraft: nodes, couplings, heaters and coolant loops, run on the mission's hot and cold load cases.
       </p>
-      <ecl-design-caution />
+      @let ms = missions();
+      @if (ms.status === 'failed') {
+        <p class="ecl-error" role="alert">{{ ms.message }}</p>
+      } @else if (ms.status === 'ready') {
+        <div class="row">
+          <mat-form-field appearance="outline" class="mission-pick">
+            <mat-label>Mission</mat-label>
+            <mat-select [value]="chosen()" (valueChange)="choose($event)" data-testid="thermal-mission">
+              @for (m of ms.value; track m.id) {
+                <mat-option [value]="m.id">{{ m.name }}</mat-option>
+              }
+            </mat-select>
+          </mat-form-field>
+          @if (canEdit() && chosen()) {
+            <button mat-flat-button type="button" (click)="createModel()" [disabled]="creating()" data-testid="new-model"><mat-icon>add</mat-icon>New model</button>
+          }
+        </div>
+        @if (failure(); as f) {
+          <p class="ecl-error" role="alert">{{ f }}</p>
+        }
+        @let list = models();
+        @if (list.status === 'failed') {
+          <p class="ecl-error" role="alert">{{ list.message }}</p>
+        } @else if (list.status === 'ready') {
+          @if (list.value.length === 0) {
+            <p class="ecl-muted">No thermal models for this mission yet.</p>
+          } @else {
+            <div class="ecl-table-wrap">
+              <table mat-table [dataSource]="list.value" data-testid="thermal-models">
+                <ng-container matColumnDef="name">
+                  <th mat-header-cell *matHeaderCellDef>Model</th>
+                  <td mat-cell *matCellDef="let m"><a [routerLink]="['/w', workspaceId(), 'thermal', m.id]">{{ m.name }}</a></td>
+                </ng-container>
+                <ng-container matColumnDef="nodes">
+                  <th mat-header-cell *matHeaderCellDef class="num">Nodes</th>
+                  <td mat-cell *matCellDef="let m" class="num">{{ m.nodeCount }}</td>
+                </ng-container>
+                <ng-container matColumnDef="heaters">
+                  <th mat-header-cell *matHeaderCellDef class="num">Heaters</th>
+                  <td mat-cell *matCellDef="let m" class="num">{{ m.heaterCount }}</td>
+                </ng-container>
+                <ng-container matColumnDef="by">
+                  <th mat-header-cell *matHeaderCellDef>Created by</th>
+                  <td mat-cell *matCellDef="let m">{{ m.createdBy?.name ?? '—' }}</td>
+                </ng-container>
+                <ng-container matColumnDef="updated">
+                  <th mat-header-cell *matHeaderCellDef>Changed</th>
+                  <td mat-cell *matCellDef="let m">{{ m.updatedAt | date: 'yyyy-MM-dd HH:mm' : 'UTC' }} UTC</td>
+                </ng-container>
+                <tr mat-header-row *matHeaderRowDef="columns"></tr>
+                <tr mat-row *matRowDef="let row; columns: columns"></tr>
+              </table>
+            </div>
+          }
+        } @else {
+          <p class="ecl-muted">Loading models…</p>
+        }
+      } @else {
+        <p class="ecl-muted">Loading missions…</p>
+      }
+      <ecl-design-caution [crewed]="true" />
     </section>
+  `,
+  styles: `
+    .row { display: flex; flex-wrap: wrap; gap: 12px; align-items: center; }
+    .mission-pick { min-width: 320px; }
+    .num { text-align: right; }
+    table { width: 100%; }
+    ecl-design-caution { display: block; margin-top: 24px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ThermalModelsPage {}
+export class ThermalModelsPage {
+  readonly workspaceId = input.required<string>();
+  /** ?mission= chooses the mission; the workspace's first one otherwise. */
+  readonly mission = input<string | undefined>(undefined);
+
+  private readonly cases = inject(CaseApi);
+  private readonly api = inject(ThermalModelApi);
+  private readonly router = inject(Router);
+  private readonly role = inject(CurrentWorkspace).role;
+
+  protected readonly columns = ['name', 'nodes', 'heaters', 'by', 'updated'];
+  protected readonly canEdit = computed(() => this.role() === 'thermal' || this.role() === 'owner');
+  protected readonly creating = signal(false);
+  protected readonly failure = signal<string | null>(null);
+
+  protected readonly missions = toSignal(toObservable(this.workspaceId).pipe(switchMap((id) => this.cases.missions(id).pipe(loaded()))), {
+    initialValue: { status: 'loading' as const },
+  });
+  private readonly picked = linkedSignal(() => this.mission() ?? null);
+  protected readonly chosen = computed(() => {
+    const ms = this.missions();
+    const list = ms.status === 'ready' ? ms.value : [];
+    const picked = this.picked();
+    return list.find((m) => m.id === picked)?.id ?? list[0]?.id ?? null;
+  });
+  private readonly reload = signal(0);
+  protected readonly models = toSignal(
+    combineLatest([toObservable(this.chosen), toObservable(this.reload)]).pipe(
+      switchMap(([id]) => (id ? this.api.list(id).pipe(loaded()) : of({ status: 'loading' as const }))),
+    ),
+    { initialValue: { status: 'loading' as const } },
+  );
+
+  protected choose(missionId: string): void {
+    this.picked.set(missionId);
+    void this.router.navigate([], { queryParams: { mission: missionId }, replaceUrl: true });
+  }
+
+  protected createModel(): void {
+    const missionId = this.chosen();
+    if (!missionId) return;
+    this.creating.set(true);
+    this.failure.set(null);
+    const model = { nodes: [{ name: 'node 1', capacitanceJK: 1000, initialC: 20 }] };
+    this.api.create(missionId, { name: `New model ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`, model }).subscribe({
+      next: (created) => void this.router.navigate(['/w', this.workspaceId(), 'thermal', created.id]),
+      error: (e: unknown) => {
+        this.creating.set(false);
+        this.failure.set(apiErrorMessage(e));
+      },
+    });
+  }
+}

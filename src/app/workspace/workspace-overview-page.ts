@@ -50,7 +50,6 @@ import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
             </tbody>
           </table>
         </div>
-        <p class="ecl-muted">Missions, orbits and load cases arrive in the next releases.</p>
       </section>
     }
   `,

@@ -1,0 +1,143 @@
+// The environment core against a plain numpy implementation of the same math
+// (bench/reference/environment.py): (a) one orbit of 3600 steps and 20 surfaces through
+// computeEnvironment, (b) a ten-year mission, one orbit a day (3653 orbits x 360 steps x 6 surfaces)
+// with beta, eclipse and orbit-average loads through sweepMission. Each side is timed inside its own
+// process (median of several runs after warm-up); the answers are compared so the two cannot drift.
+import { spawnSync } from 'node:child_process';
+import { cpus, loadavg } from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import earthData from 'astronomia/data/vsop87Bearth';
+import { getBody } from '../shared/physics/bodies';
+import { AU_KM, OBLIQUITY_J2000_DEG, SOLAR_CONSTANT_WM2, SUN_RADIUS_KM, TT_MINUS_UTC_S } from '../shared/physics/constants';
+import { computeEnvironment, type EnvironmentRequest } from '../shared/physics/environment';
+import { localNormal, type Surface } from '../shared/physics/heat-loads';
+import { apsidalRateRadS } from '../shared/physics/kepler';
+import { sweepMission, type MissionSweepRequest } from '../shared/physics/mission-sweep';
+import { defineOrbit, type OrbitInput } from '../shared/physics/orbit-definition';
+import { sunTrackNodeDays } from '../shared/physics/sun-track';
+import { unwrapVsopModule } from '../shared/physics/vsop87';
+import type { BenchRow } from './bench-table';
+
+const earth = getBody('earth');
+const named = ['nadir', 'zenith', 'ram', 'wake', 'orbit-normal', 'anti-orbit-normal'] as const;
+const panel = (name: string, normal: Surface['normal'], i: number): Surface => ({
+  name, normal, areaM2: 0.1 + 0.02 * i, absorptivity: 0.2 + 0.03 * i, emissivity: 0.9 - 0.02 * i,
+});
+// 20 surfaces: the six faces and 14 tilted panels all round the local frame
+const twenty: Surface[] = [
+  ...named.map((n, i) => panel(n, n, i)),
+  ...Array.from({ length: 14 }, (_, k) => {
+    const [polar, azimuth] = [((k + 0.5) / 14) * Math.PI, k * 2.4];
+    return panel(`tilted ${k + 1}`, { x: Math.sin(polar) * Math.cos(azimuth), y: Math.sin(polar) * Math.sin(azimuth), z: Math.cos(polar) }, k + 6);
+  }),
+];
+const six = named.map((n, i) => panel(n, n, i));
+
+const caseA: EnvironmentRequest = {
+  bodyId: 'earth', orbit: { periapsisAltitudeKm: 550, apoapsisAltitudeKm: 550, inclinationDeg: 97.6, raanDeg: 30 },
+  epoch: '2027-03-20T12:00:00Z', albedo: 0.3, olrWm2: 237, steps: 3600, surfaces: twenty,
+};
+const missionOrbit: OrbitInput = { periapsisAltitudeKm: 550, apoapsisAltitudeKm: 550, inclinationDeg: 51.6, raanDeg: 40 };
+const caseB: MissionSweepRequest = {
+  bodyId: 'earth', orbit: missionOrbit, epochStart: '2027-01-01T12:00:00Z', days: 3652, stepDays: 1, steps: 360,
+  surfaces: six, albedo: 0.3, olrWm2: 237,
+};
+
+/** Median and best wall-clock time of `repeats` runs after `warmUp` runs. */
+function timeRuns(run: () => unknown, warmUp: number, repeats: number): { median: number; best: number } {
+  for (let i = 0; i < warmUp; i++) run();
+  const times: number[] = [];
+  for (let i = 0; i < repeats; i++) {
+    const started = performance.now();
+    run();
+    times.push(performance.now() - started);
+  }
+  times.sort((x, y) => x - y);
+  return { median: times[Math.floor(times.length / 2)], best: times[0] };
+}
+
+function orbitJob(input: OrbitInput) {
+  const o = defineOrbit(input, earth);
+  return {
+    a: o.semiMajorAxisKm, e: o.eccentricity, i: o.inclinationRad, raan: o.raanRad, argp: o.argPeriapsisRad,
+    n: o.meanMotionRadS, T: o.periodS, nodalRate: o.nodalRateRadS,
+    apsidalRate: o.circular ? 0 : apsidalRateRadS(earth, o.semiMajorAxisKm, o.eccentricity, o.inclinationRad),
+  };
+}
+
+const surfaceJob = (surfaces: Surface[]) => ({
+  normals: surfaces.map((s) => localNormal(s.normal, [0, 0, 1])),
+  areaM2: surfaces.map((s) => s.areaM2), absorptivity: surfaces.map((s) => s.absorptivity), emissivity: surfaces.map((s) => s.emissivity),
+});
+
+function findNumpy(): string | null {
+  for (const python of ['python3', '/usr/bin/python3']) {
+    const probe = spawnSync(python, ['-c', 'import numpy'], { encoding: 'utf8' });
+    if (probe.status === 0) return python;
+  }
+  return null;
+}
+
+interface NumpyCase {
+  name: string;
+  medianMs: number;
+  bestMs: number;
+  result: Record<string, number[] | number[][]>;
+}
+
+const maxRelative = (ours: number[], theirs: number[]): number =>
+  Math.max(...ours.map((v, i) => Math.abs(v - theirs[i]) / Math.max(1e-9, Math.abs(theirs[i]))));
+const maxAbsolute = (ours: number[], theirs: number[]): number => Math.max(...ours.map((v, i) => Math.abs(v - theirs[i])));
+
+export default async function environmentBench(): Promise<BenchRow[]> {
+  const repeats = Number(process.env['ECLIPTA_BENCH_REPEATS'] ?? 7);
+  let resultA = computeEnvironment(caseA);
+  const timeA = timeRuns(() => (resultA = computeEnvironment(caseA)), 5, repeats * 2);
+  let resultB = sweepMission(caseB);
+  const timeB = timeRuns(() => (resultB = sweepMission(caseB)), 2, repeats);
+
+  const rowA: BenchRow = { case: '(a) one orbit, 3600 steps x 20 surfaces', 'eclipta ms': timeA.median, 'eclipta best ms': timeA.best };
+  const rowB: BenchRow = { case: '(b) 10 years, 3653 orbits x 360 steps x 6 surfaces', 'eclipta ms': timeB.median, 'eclipta best ms': timeB.best };
+  const python = findNumpy();
+  if (!python) {
+    rowA['numpy ms'] = rowB['numpy ms'] = 'skipped: no python3 with numpy on PATH or at /usr/bin/python3';
+    return [rowA, rowB];
+  }
+  const job = {
+    repeats,
+    vsop: unwrapVsopModule(earthData),
+    obliquityDeg: OBLIQUITY_J2000_DEG, ttMinusUtcS: TT_MINUS_UTC_S, solarConstantWm2: SOLAR_CONSTANT_WM2, auKm: AU_KM, sunRadiusKm: SUN_RADIUS_KM,
+    body: { radiusKm: earth.radiusKm },
+    cases: [
+      { name: 'a', kind: 'orbit', orbit: orbitJob(caseA.orbit), epochMs: Date.parse(caseA.epoch ?? ''), steps: caseA.steps, albedo: 0.3, olrWm2: 237, ...surfaceJob(twenty) },
+      {
+        name: 'b', kind: 'sweep', orbit: orbitJob(missionOrbit), startMs: Date.parse(String(caseB.epochStart)), orbitEpochMs: Date.parse(String(caseB.epochStart)),
+        rows: resultB.rows.length, stepDays: 1, nodeDays: sunTrackNodeDays(earth), steps: 360, albedo: 0.3, olrWm2: 237, ...surfaceJob(six),
+      },
+    ],
+  };
+  const script = path.join(path.dirname(fileURLToPath(import.meta.url)), 'reference', 'environment.py');
+  const run = spawnSync(python, [script], { input: JSON.stringify(job), encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
+  if (run.status !== 0) throw new Error(`the numpy reference failed: ${run.stderr}`);
+  const answer = JSON.parse(run.stdout) as { numpy: string; cases: NumpyCase[] };
+  const [a, b] = answer.cases;
+
+  const absorbedA = resultA.orbitAverage.surfaces.map((s) => s.absorbedW);
+  const agreeA = `absorbed avg ${maxRelative(absorbedA, a.result['absorbedAverage'] as number[]).toExponential(1)} rel, ` +
+    `eclipse ${Math.abs(resultA.eclipseFraction - (a.result['eclipseFraction'] as number[])[0]).toExponential(1)}`;
+  const betaB = maxAbsolute(resultB.rows.map((r) => r.betaDeg), b.result['betaDeg'] as number[]);
+  const eclipseB = maxAbsolute(resultB.rows.map((r) => r.eclipseFraction), b.result['eclipseFraction'] as number[]);
+  const absorbedB = maxRelative(resultB.rows.flatMap((r) => r.surfaces.map((s) => s.absorbedW)), (b.result['absorbedAverage'] as number[][]).flat());
+  const agreeB = `beta ${betaB.toExponential(1)} deg, eclipse ${eclipseB.toExponential(1)}, absorbed ${absorbedB.toExponential(1)} rel`;
+
+  for (const [row, numpy, agree] of [[rowA, a, agreeA], [rowB, b, agreeB]] as const) {
+    row['numpy ms'] = numpy.medianMs;
+    row['numpy best ms'] = numpy.bestMs;
+    row['ratio (numpy / eclipta)'] = `${(numpy.medianMs / (row['eclipta ms'] as number)).toFixed(2)}x`;
+    row['best ratio'] = `${(numpy.bestMs / (row['eclipta best ms'] as number)).toFixed(2)}x`;
+    row['largest difference'] = agree;
+  }
+  rowB['under 1 s'] = timeB.median < 1000 ? 'yes' : 'NO';
+  return [rowA, rowB, { case: `numpy ${answer.numpy} (${python}), node ${process.version}, median and best of ${repeats} runs (a: Eclipta ${repeats * 2}), ms of wall clock, load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores` }];
+}

@@ -1,0 +1,116 @@
+// Ephemeris upload (issue 6): 100,000 and 1,000,000 rows of CSV through POST /missions/:id/ephemerides
+// of a real server process, against csv-parse alone reading the same file (target: at least half its
+// throughput), with the server's peak resident memory (target: under 300 MB, no larger for the
+// bigger file). Each size gets a fresh server (node --import tsx server/main.ts, temp data dir), so
+// its peak is its own; the peak is VmHWM from /proc (Linux), read just before the server stops.
+import { spawn, type ChildProcess } from 'node:child_process';
+import { createReadStream, mkdtempSync, openAsBlob, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { createInterface } from 'node:readline';
+import { fileURLToPath } from 'node:url';
+import { parse } from 'csv-parse';
+import type { BenchRow } from './bench-table';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const sizes = [100_000, 1_000_000];
+
+/** A 550 km circular equatorial orbit every 10 s, positions and velocities (about 100 bytes a row). */
+function writeCsv(file: string, rows: number): void {
+  const r = 6928.137;
+  const w = Math.sqrt(398600.4418 / r ** 3);
+  const t0 = Date.parse('2027-03-20T12:00:00Z');
+  const lines = ['epoch,x,y,z,vx,vy,vz'];
+  for (let i = 0; i < rows; i++) {
+    const a = w * i * 10;
+    lines.push([
+      new Date(t0 + i * 10_000).toISOString(), (r * Math.cos(a)).toFixed(6), (r * Math.sin(a)).toFixed(6), '0.000000',
+      (-r * w * Math.sin(a)).toFixed(9), (r * w * Math.cos(a)).toFixed(9), '0.000000000',
+    ].join(','));
+  }
+  writeFileSync(file, lines.join('\n') + '\n');
+}
+
+async function csvParseAlone(file: string): Promise<number> {
+  const started = performance.now();
+  let rows = 0;
+  for await (const record of createReadStream(file).pipe(parse({ relax_column_count: true, skip_empty_lines: true, trim: true }))) {
+    if (Array.isArray(record)) rows++;
+  }
+  return (rows - 1) / ((performance.now() - started) / 1000);
+}
+
+interface Server {
+  child: ChildProcess;
+  url: string;
+}
+
+function startServer(dataDir: string): Promise<Server> {
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
+    cwd: root,
+    env: { ...process.env, PORT: '0', ECLIPTA_DATA_DIR: dataDir, ECLIPTA_DB_PATH: path.join(dataDir, 'eclipta.db'), ECLIPTA_UPLOAD_LIMIT_MB: '1000', ECLIPTA_LOG_LEVEL: 'info', ECLIPTA_CLIENT_DIR: path.join(dataDir, 'no-client') },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  return new Promise((resolve, reject) => {
+    child.on('exit', (code) => reject(new Error(`the server exited with ${code}`)));
+    const lines = createInterface({ input: child.stdout! });
+    lines.on('line', (line) => {
+      const match = /"url":"(http:\/\/localhost:\d+)"/.exec(line);
+      if (match) resolve({ child, url: match[1] });
+    });
+  });
+}
+
+const peakRssMb = (pid: number): number => {
+  const status = readFileSync(`/proc/${pid}/status`, 'utf8');
+  const kb = Number(/VmHWM:\s+(\d+)/.exec(status)?.[1] ?? NaN);
+  return kb / 1024;
+};
+
+async function ingest(server: Server, file: string): Promise<{ seconds: number; status: number }> {
+  const json = (body: unknown) => ({ method: 'POST', headers: { 'content-type': 'application/json', origin: server.url }, body: JSON.stringify(body) });
+  const signIn = await fetch(`${server.url}/api/v1/auth/sign-in`, json({ email: 'analyst@kestrel.test', password: process.env['ECLIPTA_DEMO_PASSWORD'] ?? 'eclipta-demo' }));
+  const cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0];
+  const created = await fetch(`${server.url}/api/v1/missions`, { ...json({ name: 'Bench mission', bodyId: 'earth', startDate: '2027-03-01', endDate: '2027-12-31' }), headers: { ...json({}).headers, cookie } });
+  const mission = (await created.json()) as { id: string };
+  const form = new FormData();
+  form.append('frame', 'EME2000');
+  form.append('file', await openAsBlob(file), path.basename(file));
+  const started = performance.now();
+  const res = await fetch(`${server.url}/api/v1/missions/${mission.id}/ephemerides`, { method: 'POST', headers: { cookie, origin: server.url }, body: form });
+  await res.arrayBuffer();
+  return { seconds: (performance.now() - started) / 1000, status: res.status };
+}
+
+export default async function ephemerisIngestBench(): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
+  for (const size of sizes) {
+    const dir = mkdtempSync(path.join(tmpdir(), 'eclipta-bench-ephemeris-'));
+    const file = path.join(dir, `orbit-${size}.csv`);
+    try {
+      writeCsv(file, size);
+      const baseline = await csvParseAlone(file);
+      const server = await startServer(path.join(dir, 'data'));
+      try {
+        const { seconds, status } = await ingest(server, file);
+        if (status !== 201) throw new Error(`the upload of ${size} rows answered ${status}`);
+        const throughput = size / seconds;
+        rows.push({
+          rows: size,
+          'file MB': readFileSync(file).length / 1e6,
+          'upload+ingest s': seconds,
+          'ingest rows/s': Math.round(throughput),
+          'csv-parse alone rows/s': Math.round(baseline),
+          'share of csv-parse': `${Math.round((100 * throughput) / baseline)} % (target >= 50 %)`,
+          'server peak RSS MB': Math.round(peakRssMb(server.child.pid!)),
+        });
+      } finally {
+        server.child.removeAllListeners('exit');
+        server.child.kill('SIGTERM');
+      }
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }
+  return rows;
+}

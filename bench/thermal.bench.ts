@@ -1,0 +1,89 @@
+// Thermal benchmark (issue 7): the 100-node, 300-coupling, 10-heater network of
+// thermal-bench-model.ts, 720 steps per orbit, solved to its periodic steady state; then the same
+// network with SciPy's solve_ivp (BDF) in bench/reference/thermal.py, started from the same
+// temperatures, and the ratio of the two times. Skipped with a message where python3 or scipy is
+// missing. Runs under bench/run.ts (npm run bench -- thermal), or alone: npx tsx bench/thermal.bench.ts
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { orbitAverageStartC } from '../shared/physics/thermal-periodic';
+import { solveThermal } from '../shared/physics/thermal-solver';
+import type { BenchRow } from './bench-table';
+import { benchThermalModel } from './thermal-bench-model';
+
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+const TOLERANCE_K = 0.01;
+// SciPy's error control: tighter than the periodic tolerance, so its answer is the reference.
+const RTOL = 1e-5;
+const ATOL_K = 1e-3;
+
+function scipyAvailable(): string | null {
+  const probe = spawnSync('python3', ['-c', 'import scipy, numpy'], { encoding: 'utf8' });
+  if (probe.error) return 'python3 is not installed';
+  if (probe.status !== 0) return 'python3 has no scipy/numpy';
+  return null;
+}
+
+export default async function thermalBench(): Promise<BenchRow[]> {
+  const model = benchThermalModel();
+  const runs: number[] = [];
+  const cpuRuns: number[] = [];
+  let result = solveThermal({ ...model, toleranceK: TOLERANCE_K });
+  for (let k = 0; k < 4; k++) {
+    const t0 = performance.now();
+    const c0 = process.cpuUsage();
+    result = solveThermal({ ...model, toleranceK: TOLERANCE_K });
+    const used = process.cpuUsage(c0);
+    runs.push(performance.now() - t0);
+    cpuRuns.push((used.user + used.system) / 1000);
+  }
+  cpuRuns.sort((a, b) => a - b);
+  const eclipsCpuMs = cpuRuns[Math.floor(cpuRuns.length / 2)];
+  const first = performance.now();
+  solveThermal({ ...model, toleranceK: TOLERANCE_K, start: 'initial', accelerate: false });
+  const plainMs = performance.now() - first;
+  runs.sort((a, b) => a - b);
+  const eclipsMs = runs[Math.floor(runs.length / 2)];
+  const rows: BenchRow[] = [
+    { name: 'thermal: nodes / couplings / heaters / steps', value: `${model.nodes.length} / ${(model.couplings?.length ?? 0) + (model.radiativeCouplings?.length ?? 0)} / ${model.heaters?.length ?? 0} / ${model.steps}`, unit: '' },
+    { name: 'thermal: eclipta to periodic state (median of 4), wall', value: Math.round(eclipsMs), unit: 'ms' },
+    // CPU time as well: on a shared machine the wall clock counts other processes' turns.
+    { name: 'thermal: eclipta to periodic state (median of 4), CPU', value: Math.round(eclipsCpuMs), unit: 'ms' },
+    { name: 'thermal: eclipta orbits', value: result.orbits, unit: 'orbits' },
+    { name: 'thermal: eclipta from initialC, no acceleration', value: Math.round(plainMs), unit: 'ms' },
+  ];
+  const missing = scipyAvailable();
+  if (missing) {
+    rows.push({ name: 'thermal: scipy reference', value: `skipped: ${missing}`, unit: '' });
+    return rows;
+  }
+  // Both start from the orbit-average steady state eclipta starts from.
+  const startC = orbitAverageStartC(model);
+  const dir = path.join(here, '..', 'tmp', 'bench');
+  mkdirSync(dir, { recursive: true });
+  const file = path.join(dir, 'thermal-model.json');
+  writeFileSync(file, JSON.stringify({ ...model, initialK: startC.map((c) => c + 273.15), toleranceK: TOLERANCE_K, rtol: RTOL, atolK: ATOL_K }));
+  const py = spawnSync('python3', [path.join(here, 'reference', 'thermal.py'), file], { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
+  if (py.status !== 0) {
+    rows.push({ name: 'thermal: scipy reference', value: `failed: ${py.stderr.trim().split('\n').pop() ?? ''}`, unit: '' });
+    return rows;
+  }
+  const reference = JSON.parse(py.stdout) as { ms: number; cpuMs: number; orbits: number; converged: boolean; temperaturesC: number[][] };
+  let maxDiff = 0;
+  result.nodes.forEach((node, i) => node.temperaturesC.forEach((t, s) => (maxDiff = Math.max(maxDiff, Math.abs(t - reference.temperaturesC[i][s])))));
+  rows.push(
+    { name: `thermal: scipy solve_ivp BDF (rtol ${RTOL}, atol ${ATOL_K} K), wall`, value: Math.round(reference.ms), unit: 'ms' },
+    { name: 'thermal: scipy, CPU', value: Math.round(reference.cpuMs), unit: 'ms' },
+    { name: 'thermal: scipy orbits', value: reference.converged ? reference.orbits : `${reference.orbits} (not converged)`, unit: 'orbits' },
+    { name: 'thermal: scipy / eclipta, wall', value: Math.round((reference.ms / eclipsMs) * 10) / 10, unit: 'x' },
+    { name: 'thermal: scipy / eclipta, CPU', value: Math.round((reference.cpuMs / eclipsCpuMs) * 10) / 10, unit: 'x' },
+    { name: 'thermal: largest difference between the two, last orbit', value: Math.round(maxDiff * 1000) / 1000, unit: 'K' },
+  );
+  return rows;
+}
+
+if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  for (const row of await thermalBench()) console.log(`${row.name}: ${row.value} ${row.unit}`.trimEnd());
+}

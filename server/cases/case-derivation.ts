@@ -1,0 +1,202 @@
+// Turns a mission's stored orbit, surfaces and materials into the snapshot a case keeps, derives
+// the hot and cold cases (physics/design-cases.ts) or computes a custom one, and saves them as drafts.
+import { randomUUID } from 'node:crypto';
+import { and, eq } from 'drizzle-orm';
+import type { CaseCreateParsed, CaseDeriveParsed } from '../../shared/api/cases';
+import type { CaseInputs, StoredConditions } from '../../shared/api/case-content';
+import { surfaceNormal } from '../../shared/api/missions';
+import { getBody, solarDistanceRangeAu } from '../../shared/physics/bodies';
+import { deriveDesignCases, evaluateCase, type CaseSurface } from '../../shared/physics/design-cases';
+import { designPairs, resolveMargins, type Margins } from '../../shared/physics/design-environment';
+import { raanOnDateRad, scanMission } from '../../shared/physics/design-scan';
+import { defineOrbit } from '../../shared/physics/orbit-definition';
+import { DEG } from '../../shared/physics/vector3';
+import type { AppContext } from '../app-context';
+import type { Db } from '../db/database';
+import { recordAudit } from '../audit/audit-log';
+import { loadCases, materials, orbits, surfaces, type LoadCaseRow, type MissionRow, type OrbitRow, type UserRow } from '../db/schema';
+import { notFound, unprocessable } from '../errors';
+
+export const caseAssumptions = [
+  'eclipseFraction counts umbra plus half of penumbra (conical shadow, Sun as a uniform disk, no atmosphere)',
+  'albedo load = S * albedo * F * cos(solar zenith at the sub-spacecraft point) on the sunlit side: a common engineering approximation',
+  'planetary IR = OLR * F, with F the plate-to-sphere view factor (Howell catalogue)',
+  'surfaces are flat plates fixed in the local orbital frame (x ram, y orbit normal, z zenith) or pointed at the Sun; no shadowing between them',
+  'the worst Sun distance and the worst beta are combined even when they fall on different days (conservative)',
+  'the Sun is held fixed over the orbit; tS counts from periapsis (from the ascending node for a circular orbit)',
+];
+
+const describeNormal = (n: CaseSurface['normal']): string => (typeof n === 'string' ? n : `{x: ${n.x}, y: ${n.y}, z: ${n.z}}`);
+export const attitudeText = (list: CaseSurface[]): string =>
+  `surface normals in the local orbital frame: ${list.map((s) => `${s.name} ${describeNormal(s.normal)}`).join('; ')}`;
+
+interface MissionSnapshot {
+  orbit: OrbitRow;
+  surfaces: CaseSurface[];
+}
+
+function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string): MissionSnapshot {
+  const orbit = db.select().from(orbits).where(and(eq(orbits.id, orbitId), eq(orbits.missionId, mission.id))).get();
+  if (!orbit) throw notFound(`The mission "${mission.name}" has no orbit with id ${JSON.stringify(orbitId.slice(0, 80))}.`);
+  const rows = db
+    .select({ surface: surfaces, material: materials })
+    .from(surfaces)
+    .innerJoin(materials, eq(materials.id, surfaces.materialId))
+    .where(eq(surfaces.missionId, mission.id))
+    .orderBy(surfaces.createdAt, surfaces.name)
+    .all();
+  if (rows.length === 0) {
+    throw unprocessable(`The mission "${mission.name}" has no spacecraft surfaces yet; add them before deriving load cases.`, [
+      { path: 'missionId', message: 'no surfaces' },
+    ]);
+  }
+  return {
+    orbit,
+    surfaces: rows.map(({ surface, material }) => ({
+      name: surface.name,
+      // Stored as JSON text; checked against the contract's normals on the way out.
+      normal: surfaceNormal.parse(surface.normal),
+      areaM2: surface.areaM2,
+      material: {
+        name: material.name,
+        absorptivityBol: material.absorptivityBol,
+        emissivityBol: material.emissivityBol,
+        absorptivityEol: material.absorptivityEol,
+        emissivityEol: material.emissivityEol,
+        source: material.source,
+      },
+    })),
+  };
+}
+
+function baseInputs(mission: MissionRow, orbit: OrbitRow): Pick<CaseInputs, 'mission' | 'body' | 'orbit'> {
+  const body = getBody(mission.bodyId);
+  return {
+    mission: { id: mission.id, name: mission.name, startDate: mission.startDate, endDate: mission.endDate, crewed: mission.crewed },
+    body: {
+      id: body.id, name: body.name, gmKm3S2: body.gmKm3S2, radiusKm: body.radiusKm, j2: body.j2,
+      solarDistanceAu: solarDistanceRangeAu(body), albedo: { ...body.albedo }, olrWm2: { ...body.olrWm2 },
+      provisional: body.provisional, sources: { ...body.sources },
+    },
+    orbit: {
+      id: orbit.id, name: orbit.name, epoch: orbit.epoch, periapsisAltitudeKm: orbit.periapsisAltitudeKm,
+      apoapsisAltitudeKm: orbit.apoapsisAltitudeKm, semiMajorAxisKm: orbit.semiMajorAxisKm, eccentricity: orbit.eccentricity,
+      periodS: orbit.periodS, inclinationDeg: orbit.inclinationDeg, raanDeg: orbit.raanDeg, argPeriapsisDeg: orbit.argPeriapsisDeg,
+    },
+  };
+}
+
+const canonicalOrbit = (o: OrbitRow): StoredConditions['orbit'] => ({
+  semiMajorAxisKm: o.semiMajorAxisKm, eccentricity: o.eccentricity, inclinationDeg: o.inclinationDeg, raanDeg: o.raanDeg, argPeriapsisDeg: o.argPeriapsisDeg,
+});
+
+function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: UserRow, values: DraftValues): LoadCaseRow {
+  return tx
+    .insert(loadCases)
+    .values({ ...values, missionId: mission.id, workspaceId: mission.workspaceId, seriesId: randomUUID(), revision: 1, status: 'draft', authorId: user.id })
+    .returning()
+    .get();
+}
+
+type DraftValues = Pick<LoadCaseRow, 'name' | 'kind' | 'inputs' | 'results'>;
+
+/** The hot and cold cases of a mission's orbit, ready to be saved (the seed saves them too). */
+export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {
+  const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId);
+  const margins: Margins = resolveMargins(input.margins);
+  const pair = (p: { albedo: number; olrWm2: number; source: string } | undefined) => (p ? { ...p, provisional: false } : undefined);
+  const derivation = deriveDesignCases({
+    bodyId: mission.bodyId,
+    orbit: canonicalOrbit(orbit),
+    orbitEpoch: orbit.epoch,
+    startDate: mission.startDate,
+    endDate: mission.endDate,
+    surfaces: list,
+    margins,
+    properties: input.properties,
+    environment: { hot: pair(input.environment?.hot), cold: pair(input.environment?.cold) },
+    steps: input.steps,
+  });
+  const prefix = input.name ?? `${mission.name} ${orbit.name}`;
+  return [derivation.hot, derivation.cold].map((c) => ({
+    name: `${prefix} ${c.kind}`,
+    kind: c.kind,
+    inputs: {
+      ...baseInputs(mission, orbit),
+      attitude: attitudeText(list),
+      conditions: { ...c.conditions, orbit: canonicalOrbit(orbit) },
+      environmentSource: c.environmentSource,
+      provisional: c.provisional,
+      margins,
+      rationale: c.rationale,
+      surfaceDrivers: c.surfaceDrivers,
+      scan: derivation.scan,
+      assumptions: caseAssumptions,
+    },
+    results: c.results,
+  }));
+}
+
+/** Derives and saves the hot and cold drafts of a mission's orbit. */
+export function deriveCases(ctx: AppContext, user: UserRow, mission: MissionRow, input: CaseDeriveParsed): LoadCaseRow[] {
+  const values = derivedCaseValues(ctx.db, mission, input);
+  return ctx.db.transaction((tx) => {
+    const rows = values.map((v) => insertDraft(tx, mission, user, v));
+    for (const row of rows) {
+      recordAudit(tx, {
+        workspaceId: mission.workspaceId, actorUserId: user.id, action: 'case.derived', targetType: 'load_case', targetId: row.id,
+        summary: `Derived ${row.kind} case "${row.name}" (revision 1, draft) for mission "${mission.name}".`,
+      });
+    }
+    return rows;
+  });
+}
+
+/** Saves a user-defined case: a fixed date (and beta, if given), property set and attitude. */
+export function createCustomCase(ctx: AppContext, user: UserRow, mission: MissionRow, input: CaseCreateParsed): LoadCaseRow {
+  const { orbit, surfaces: list } = snapshotOf(ctx.db, mission, input.orbitId);
+  const unknown = Object.keys(input.normals ?? {}).filter((n) => !list.some((s) => s.name === n));
+  if (unknown.length > 0) {
+    throw unprocessable(`The mission has no surface named ${unknown.map((n) => JSON.stringify(n)).join(', ')}.`, unknown.map((n) => ({ path: `normals.${n}`, message: 'no such surface' })));
+  }
+  const pointed = list.map((s) => ({ ...s, normal: input.normals?.[s.name] ?? s.normal }));
+  const body = getBody(mission.bodyId);
+  const elements = canonicalOrbit(orbit);
+  const day = scanMission(body, defineOrbit(elements, body), new Date(orbit.epoch), input.date, input.date)[0]!;
+  const pairs = designPairs(body, orbit.inclinationDeg);
+  const margins = resolveMargins(input.margins);
+  const conditions: StoredConditions = {
+    bodyId: mission.bodyId, orbit: elements, orbitEpoch: orbit.epoch, date: input.date,
+    betaDeg: input.betaDeg ?? day.betaDeg, solarDistanceAu: input.solarDistanceAu ?? day.solarDistanceAu,
+    albedo: input.albedo ?? body.albedo.nominal, olrWm2: input.olrWm2 ?? body.olrWm2.nominal,
+    properties: input.properties, marginDirection: input.marginDirection, steps: input.steps, surfaces: pointed,
+  };
+  const given = (v: unknown, what: string, fallback: string) => (v === undefined ? fallback : `${what} given by the user`);
+  const rationale = [
+    `custom case on ${input.date}: ${given(input.betaDeg, `beta ${conditions.betaDeg.toFixed(1)} deg`, `beta ${conditions.betaDeg.toFixed(1)} deg from the date (node drifted under J2 to ${(raanOnDateRad(defineOrbit(elements, body), new Date(orbit.epoch), new Date(`${input.date}T12:00:00Z`)) / DEG).toFixed(1)} deg)`)}`,
+    `Sun distance ${conditions.solarDistanceAu.toFixed(4)} AU, ${given(input.solarDistanceAu, 'distance', 'from the date (VSOP87)')}`,
+    `albedo ${conditions.albedo.toFixed(2)} with OLR ${conditions.olrWm2.toFixed(0)} W/m^2, ${input.albedo === undefined && input.olrWm2 === undefined ? `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}` : 'given by the user'}`,
+    `${input.properties.toUpperCase()} optical properties`,
+  ];
+  const inputs: CaseInputs = {
+    ...baseInputs(mission, orbit),
+    attitude: input.attitude ?? attitudeText(pointed),
+    conditions,
+    environmentSource: input.albedo === undefined && input.olrWm2 === undefined ? `${body.name} nominal: ${body.sources['albedo'] ?? ''}` : 'entered by the user',
+    provisional: body.provisional,
+    margins,
+    rationale,
+    surfaceDrivers: [],
+    scan: null,
+    assumptions: caseAssumptions,
+  };
+  const results = evaluateCase(conditions, margins);
+  return ctx.db.transaction((tx) => {
+    const row = insertDraft(tx, mission, user, { name: input.name, kind: 'custom', inputs, results });
+    recordAudit(tx, {
+      workspaceId: mission.workspaceId, actorUserId: user.id, action: 'case.created', targetType: 'load_case', targetId: row.id,
+      summary: `Created custom case "${row.name}" (revision 1, draft) for mission "${mission.name}".`,
+    });
+    return row;
+  });
+}

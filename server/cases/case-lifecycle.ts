@@ -1,0 +1,166 @@
+// A case's life: edits to a draft, submission for review, release by a second engineer (four eyes),
+// new revisions, and the subscribers' e-mail when a release supersedes the one they use.
+// Every change and its audit event share one transaction; a released revision never changes.
+import { and, desc, eq, max } from 'drizzle-orm';
+import type { CaseUpdateParsed } from '../../shared/api/cases';
+import type { CaseInputs } from '../../shared/api/case-content';
+import { evaluateCase } from '../../shared/physics/design-cases';
+import { resolveMargins } from '../../shared/physics/design-environment';
+import type { AppContext } from '../app-context';
+import { recordAudit } from '../audit/audit-log';
+import { caseSubscriptions, loadCases, type LoadCaseRow, type UserRow } from '../db/schema';
+import { conflict, forbidden } from '../errors';
+import { canonicalJson } from './canonical-json';
+import { caseChecksum } from './case-export';
+import { attitudeText } from './case-derivation';
+import { caseReleasedMail } from './case-mail';
+import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
+
+type Tx = Parameters<Parameters<AppContext['db']['transaction']>[0]>[0];
+
+const label = (row: LoadCaseRow) => `"${row.name}" revision ${row.revision}`;
+
+function requireStatus(row: LoadCaseRow, allowed: LoadCaseRow['status'][], doing: string): void {
+  if (allowed.includes(row.status)) return;
+  const why = row.status === 'released' || row.status === 'superseded'
+    ? `it is ${row.status} and cannot change; start a new revision instead`
+    : `it is in ${row.status}, and only a case in ${allowed.join(' or ')} can be ${doing}`;
+  throw conflict(`The load case ${label(row)} cannot be ${doing}: ${why}.`, `case_${row.status}`);
+}
+
+function audit(tx: Tx, row: LoadCaseRow, user: UserRow, action: string, summary: string): void {
+  recordAudit(tx, { workspaceId: row.workspaceId, actorUserId: user.id, action, targetType: 'load_case', targetId: row.id, summary });
+}
+
+/** Changes a draft: its name, margins and inputs; the results are computed again from the new inputs. */
+export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, change: CaseUpdateParsed): LoadCaseRow {
+  requireStatus(row, ['draft'], 'changed');
+  const before = row.inputs;
+  const edits = change.inputs ?? {};
+  const { attitude, ...conditionEdits } = edits;
+  const conditions = { ...before.conditions, ...conditionEdits };
+  const margins = change.margins
+    ? resolveMargins({
+        heatLoadPercent: change.margins.heatLoadPercent ?? before.margins.heatLoadPercent,
+        temperatureMarginC: change.margins.temperatureMarginC ?? before.margins.temperatureMarginC,
+      })
+    : before.margins;
+  const changedKeys = Object.keys(conditionEdits).filter(
+    (k) => canonicalJson(conditionEdits[k as keyof typeof conditionEdits]) !== canonicalJson(before.conditions[k as keyof typeof before.conditions]),
+  );
+  const noted = changedKeys.map((k) => {
+    const v = conditions[k as keyof typeof conditions];
+    return `${k} changed by hand to ${typeof v === 'object' ? 'the values given' : String(v)} by ${user.name}`;
+  });
+  const inputs: CaseInputs = {
+    ...before,
+    attitude: attitude ?? (conditionEdits.surfaces ? attitudeText(conditions.surfaces) : before.attitude),
+    conditions,
+    margins,
+    rationale: [...before.rationale, ...noted],
+  };
+  const results = evaluateCase(conditions, margins);
+  return ctx.db.transaction((tx) => {
+    const updated = tx
+      .update(loadCases)
+      .set({ name: change.name ?? row.name, inputs, results, updatedAt: new Date().toISOString() })
+      .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'draft')))
+      .returning()
+      .get();
+    if (!updated) throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
+    const what = [change.name ? 'name' : null, change.margins ? 'margins' : null, ...changedKeys].filter(Boolean).join(', ') || 'nothing';
+    audit(tx, updated, user, 'case.edited', `Edited ${label(updated)} (${what}).`);
+    return updated;
+  });
+}
+
+export function submitCase(ctx: AppContext, user: UserRow, row: LoadCaseRow): LoadCaseRow {
+  requireStatus(row, ['draft'], 'submitted for review');
+  return ctx.db.transaction((tx) => {
+    const now = new Date().toISOString();
+    const updated = tx.update(loadCases).set({ status: 'review', submittedBy: user.id, submittedAt: now, updatedAt: now }).where(eq(loadCases.id, row.id)).returning().get();
+    if (!updated) throw conflict(`The load case ${label(row)} is gone.`);
+    audit(tx, updated, user, 'case.submitted', `Submitted ${label(updated)} for review.`);
+    return updated;
+  });
+}
+
+/**
+ * Releases a case in review: needs a thermal engineer or owner other than its author (four eyes);
+ * sets the checksum, supersedes the series' previous release and mails the series' subscribers.
+ */
+export async function releaseCase(ctx: AppContext, user: UserRow, row: LoadCaseRow): Promise<LoadCaseRow> {
+  requireStatus(row, ['review'], 'released');
+  if (row.authorId === user.id) {
+    throw forbidden(`You wrote ${label(row)}, so another thermal engineer or owner must release it (four-eyes rule).`, 'four_eyes');
+  }
+  const { released, previous } = ctx.db.transaction((tx) => {
+    const now = new Date().toISOString();
+    const previousRow = tx
+      .select()
+      .from(loadCases)
+      .where(and(eq(loadCases.seriesId, row.seriesId), eq(loadCases.status, 'released')))
+      .orderBy(desc(loadCases.revision))
+      .get();
+    const withRelease: LoadCaseRow = { ...row, status: 'released', releasedBy: user.id, releasedAt: now };
+    const checksum = caseChecksum(withRelease);
+    const updated = tx
+      .update(loadCases)
+      .set({ status: 'released', releasedBy: user.id, releasedAt: now, checksum, updatedAt: now })
+      .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'review')))
+      .returning()
+      .get();
+    if (!updated) throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
+    if (previousRow) {
+      tx.update(loadCases).set({ status: 'superseded', updatedAt: now }).where(eq(loadCases.id, previousRow.id)).run();
+      audit(tx, previousRow, user, 'case.superseded', `${label(previousRow)} superseded by revision ${updated.revision}.`);
+    }
+    audit(tx, updated, user, 'case.released', `Released ${label(updated)} (sha256 ${checksum.slice(0, 12)}…).`);
+    return { released: updated, previous: previousRow ?? null };
+  });
+  await notifySubscribers(ctx, released, previous);
+  return released;
+}
+
+async function notifySubscribers(ctx: AppContext, released: LoadCaseRow, previous: LoadCaseRow | null): Promise<void> {
+  const recipients = emailsOf(ctx.db, subscribersOf(ctx.db, released.seriesId));
+  const link = `${ctx.config.publicUrl}/w/${released.workspaceId}/cases/${released.id}`;
+  const differences = previous ? surfaceDifferences(previous.results, released.results) : null;
+  for (const r of recipients) {
+    // A mail server that fails must not undo a release that is already committed.
+    try {
+      await ctx.mailer.send(caseReleasedMail({ to: r.email, row: released, previous, differences, link }));
+    } catch (error) {
+      ctx.logger.error('case release mail failed', { caseId: released.id, error: error instanceof Error ? error : String(error) });
+    }
+  }
+}
+
+/** Starts a new draft revision from a released (or superseded) one, with the same inputs. */
+export function newRevision(ctx: AppContext, user: UserRow, row: LoadCaseRow): LoadCaseRow {
+  requireStatus(row, ['released', 'superseded'], 'revised');
+  return ctx.db.transaction((tx) => {
+    const top = tx.select({ n: max(loadCases.revision) }).from(loadCases).where(eq(loadCases.seriesId, row.seriesId)).get();
+    const created = tx
+      .insert(loadCases)
+      .values({
+        missionId: row.missionId, workspaceId: row.workspaceId, seriesId: row.seriesId, revision: (top?.n ?? row.revision) + 1,
+        name: row.name, kind: row.kind, status: 'draft', inputs: row.inputs, results: row.results, authorId: user.id,
+      })
+      .returning()
+      .get();
+    audit(tx, created, user, 'case.revised', `Started ${label(created)} from revision ${row.revision}.`);
+    return created;
+  });
+}
+
+export function setSubscription(ctx: AppContext, user: UserRow, row: LoadCaseRow, on: boolean): void {
+  ctx.db.transaction((tx) => {
+    if (on) {
+      tx.insert(caseSubscriptions).values({ caseSeriesId: row.seriesId, userId: user.id }).onConflictDoNothing().run();
+    } else {
+      tx.delete(caseSubscriptions).where(and(eq(caseSubscriptions.caseSeriesId, row.seriesId), eq(caseSubscriptions.userId, user.id))).run();
+    }
+    audit(tx, row, user, on ? 'case.subscribed' : 'case.unsubscribed', `${on ? 'Subscribed to' : 'Unsubscribed from'} "${row.name}".`);
+  });
+}

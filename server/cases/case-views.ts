@@ -1,0 +1,169 @@
+// The answers of the case routes, built from rows: summaries for lists, the full case, and the
+// side-by-side comparison of two revisions.
+import { and, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
+import type { CaseComparison, CaseDetail, CaseSummary } from '../../shared/api/cases';
+import type { CaseResultsContent } from '../../shared/api/case-content';
+import type { AppContext } from '../app-context';
+import type { Db } from '../db/database';
+import { caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
+import { visibleToViewer } from './case-access';
+
+export const cautionText =
+  'Preliminary-design estimate from simplified models. Verify with detailed analysis, a correlated model and thermal test under the project\'s standards and qualified practitioners.';
+export const crewedCaution = 'Habitability and touch-temperature limits are not checked.';
+export const cautionFor = (crewed: boolean): string => (crewed ? `${cautionText} ${crewedCaution}` : cautionText);
+
+type Person = CaseSummary['author'];
+
+export function personOf(db: Db, userId: string | null): Person {
+  if (!userId) return null;
+  const u = db.select({ id: users.id, name: users.name, email: users.email }).from(users).where(eq(users.id, userId)).get();
+  return u ?? null;
+}
+
+function missionName(db: Db, missionId: string): string {
+  return db.select({ name: missions.name }).from(missions).where(eq(missions.id, missionId)).get()?.name ?? '';
+}
+
+export function toSummary(db: Db, row: LoadCaseRow): CaseSummary {
+  return {
+    id: row.id, missionId: row.missionId, missionName: missionName(db, row.missionId), workspaceId: row.workspaceId, seriesId: row.seriesId,
+    name: row.name, kind: row.kind, status: row.status, revision: row.revision, checksum: row.checksum,
+    author: personOf(db, row.authorId), releasedBy: personOf(db, row.releasedBy), releasedAt: row.releasedAt,
+    orbitAverageAbsorbedW: row.results.total.orbitAverageAbsorbedW, betaDeg: row.results.betaDeg,
+    createdAt: row.createdAt, updatedAt: row.updatedAt,
+  };
+}
+
+export function isSubscribed(db: Db, seriesId: string, userId: string): boolean {
+  return !!db
+    .select({ id: caseSubscriptions.id })
+    .from(caseSubscriptions)
+    .where(and(eq(caseSubscriptions.caseSeriesId, seriesId), eq(caseSubscriptions.userId, userId)))
+    .get();
+}
+
+export function toDetail(db: Db, row: LoadCaseRow, userId: string): CaseDetail {
+  return {
+    ...toSummary(db, row),
+    submittedBy: personOf(db, row.submittedBy),
+    submittedAt: row.submittedAt,
+    subscribed: isSubscribed(db, row.seriesId, userId),
+    caution: cautionFor(row.inputs.mission.crewed),
+    inputs: row.inputs,
+    results: row.results,
+  };
+}
+
+export interface CaseFilter {
+  missionId?: string | undefined;
+  status?: LoadCaseRow['status'] | undefined;
+  kind?: LoadCaseRow['kind'] | undefined;
+}
+
+/** The cases of every workspace the user belongs to; a viewer's list holds released and superseded ones only. */
+export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): CaseSummary[] {
+  const conditions: SQL[] = [];
+  if (filter.missionId) conditions.push(eq(loadCases.missionId, filter.missionId));
+  if (filter.status) conditions.push(eq(loadCases.status, filter.status));
+  if (filter.kind) conditions.push(eq(loadCases.kind, filter.kind));
+  const rows = ctx.db
+    .select({
+      c: {
+        id: loadCases.id, missionId: loadCases.missionId, workspaceId: loadCases.workspaceId, seriesId: loadCases.seriesId,
+        name: loadCases.name, kind: loadCases.kind, status: loadCases.status, revision: loadCases.revision, checksum: loadCases.checksum,
+        authorId: loadCases.authorId, releasedBy: loadCases.releasedBy, releasedAt: loadCases.releasedAt,
+        createdAt: loadCases.createdAt, updatedAt: loadCases.updatedAt,
+      },
+      // Read out of the JSON in SQL so a list does not parse every case's time series.
+      orbitAverageAbsorbedW: sql<number>`json_extract(${loadCases.results}, '$.total.orbitAverageAbsorbedW')`,
+      betaDeg: sql<number>`json_extract(${loadCases.results}, '$.betaDeg')`,
+      missionName: missions.name,
+      role: memberships.role,
+    })
+    .from(loadCases)
+    .innerJoin(memberships, and(eq(memberships.workspaceId, loadCases.workspaceId), eq(memberships.userId, userId)))
+    .innerJoin(missions, eq(missions.id, loadCases.missionId))
+    .where(conditions.length > 0 ? and(...conditions) : undefined)
+    .orderBy(missions.name, loadCases.name, desc(loadCases.revision))
+    .all();
+  const people = new Map<string, Person>();
+  const person = (id: string | null): Person => {
+    if (!id) return null;
+    if (!people.has(id)) people.set(id, personOf(ctx.db, id));
+    return people.get(id) ?? null;
+  };
+  return rows
+    .filter((r) => r.role !== 'viewer' || visibleToViewer(r.c.status))
+    .map((r) => ({
+      id: r.c.id, missionId: r.c.missionId, missionName: r.missionName, workspaceId: r.c.workspaceId, seriesId: r.c.seriesId,
+      name: r.c.name, kind: r.c.kind, status: r.c.status, revision: r.c.revision, checksum: r.c.checksum,
+      author: person(r.c.authorId), releasedBy: person(r.c.releasedBy), releasedAt: r.c.releasedAt,
+      orbitAverageAbsorbedW: Number(r.orbitAverageAbsorbedW), betaDeg: Number(r.betaDeg),
+      createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
+    }));
+}
+
+/** The subscribers' ids of a case series. */
+export function subscribersOf(db: Db, seriesId: string): string[] {
+  return db.select({ userId: caseSubscriptions.userId }).from(caseSubscriptions).where(eq(caseSubscriptions.caseSeriesId, seriesId)).all().map((r) => r.userId);
+}
+
+export function emailsOf(db: Db, ids: string[]): { id: string; email: string }[] {
+  if (ids.length === 0) return [];
+  return db.select({ id: users.id, email: users.email }).from(users).where(inArray(users.id, ids)).all();
+}
+
+type Scalar = string | number | boolean | null;
+
+/** Flattens a snapshot into path -> scalar; arrays of named objects are keyed by name. */
+function flatten(value: unknown, path: string, out: Map<string, Scalar>): void {
+  if (value === null || typeof value !== 'object') {
+    out.set(path, value as Scalar);
+    return;
+  }
+  if (Array.isArray(value)) {
+    value.forEach((item, i) => {
+      const key = item !== null && typeof item === 'object' && 'name' in item ? `[${String((item as { name: unknown }).name)}]` : `[${i}]`;
+      flatten(item, `${path}${key}`, out);
+    });
+    return;
+  }
+  for (const [k, v] of Object.entries(value as Record<string, unknown>)) flatten(v, path ? `${path}.${k}` : k, out);
+}
+
+const round = (x: number) => Math.round(x * 1e4) / 1e4;
+const compared = (a: number | undefined, b: number | undefined) =>
+  a === undefined || b === undefined ? null : { a, b, difference: round(b - a) };
+
+/** Per-surface orbit-average differences, b minus a, by surface name. */
+export function surfaceDifferences(a: CaseResultsContent, b: CaseResultsContent): CaseComparison['surfaces'] {
+  const names = [...new Set([...a.surfaces.map((s) => s.name), ...b.surfaces.map((s) => s.name)])];
+  return names.map((name) => {
+    const sa = a.surfaces.find((s) => s.name === name);
+    const sb = b.surfaces.find((s) => s.name === name);
+    return {
+      name,
+      solarW: compared(sa?.orbitAverage.solarW, sb?.orbitAverage.solarW),
+      albedoW: compared(sa?.orbitAverage.albedoW, sb?.orbitAverage.albedoW),
+      irW: compared(sa?.orbitAverage.irW, sb?.orbitAverage.irW),
+      absorbedW: compared(sa?.orbitAverage.absorbedW, sb?.orbitAverage.absorbedW),
+      peakAbsorbedW: compared(sa?.peak.absorbedW, sb?.peak.absorbedW),
+    };
+  });
+}
+
+export function compareCases(db: Db, a: LoadCaseRow, b: LoadCaseRow): CaseComparison {
+  const fa = new Map<string, Scalar>();
+  const fb = new Map<string, Scalar>();
+  flatten(a.inputs, '', fa);
+  flatten(b.inputs, '', fb);
+  const paths = [...new Set([...fa.keys(), ...fb.keys()])];
+  return {
+    a: toSummary(db, a),
+    b: toSummary(db, b),
+    inputs: paths.map((path) => ({ path, a: fa.get(path) ?? null, b: fb.get(path) ?? null, changed: fa.get(path) !== fb.get(path) })),
+    surfaces: surfaceDifferences(a.results, b.results),
+    total: { orbitAverageAbsorbedW: compared(a.results.total.orbitAverageAbsorbedW, b.results.total.orbitAverageAbsorbedW)! },
+  };
+}

@@ -1,0 +1,60 @@
+// Load cases (shared/api/cases.ts): each row one revision of a case series; a series groups the
+// revisions of the same case, and subscribers follow a series. Inputs and results are JSON
+// snapshots so a released revision stays exactly what it was, whatever happens to the mission.
+import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import type { CaseInputs, CaseResultsContent } from '../../shared/api/case-content';
+import { caseKinds, caseStatuses } from '../../shared/api/case-content';
+import { createdAt, id, updatedAt } from './columns';
+import { missions } from './mission-tables';
+import { users, workspaces } from './schema';
+
+export const loadCases = sqliteTable(
+  'load_cases',
+  {
+    id: id(),
+    missionId: text('mission_id')
+      .notNull()
+      .references(() => missions.id, { onDelete: 'cascade' }),
+    workspaceId: text('workspace_id')
+      .notNull()
+      .references(() => workspaces.id, { onDelete: 'cascade' }),
+    /** Shared by every revision of one case. */
+    seriesId: text('series_id').notNull(),
+    revision: integer('revision').notNull(),
+    name: text('name').notNull(),
+    kind: text('kind', { enum: caseKinds }).notNull(),
+    status: text('status', { enum: caseStatuses }).notNull().default('draft'),
+    inputs: text('inputs', { mode: 'json' }).$type<CaseInputs>().notNull(),
+    results: text('results', { mode: 'json' }).$type<CaseResultsContent>().notNull(),
+    /** SHA-256 hex of the canonical content, set at release. */
+    checksum: text('checksum'),
+    authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+    submittedBy: text('submitted_by').references(() => users.id, { onDelete: 'set null' }),
+    submittedAt: text('submitted_at'),
+    releasedBy: text('released_by').references(() => users.id, { onDelete: 'set null' }),
+    releasedAt: text('released_at'),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    index('load_cases_mission').on(t.missionId),
+    index('load_cases_workspace').on(t.workspaceId),
+    uniqueIndex('load_cases_series_revision').on(t.seriesId, t.revision),
+  ],
+);
+
+export const caseSubscriptions = sqliteTable(
+  'case_subscriptions',
+  {
+    id: id(),
+    caseSeriesId: text('case_series_id').notNull(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('case_subscriptions_series_user').on(t.caseSeriesId, t.userId)],
+);
+
+export type LoadCaseRow = typeof loadCases.$inferSelect;
+export type CaseSubscriptionRow = typeof caseSubscriptions.$inferSelect;

@@ -1,0 +1,158 @@
+// CSV ephemerides, read as a stream with csv-parse: a header row naming epoch (ISO 8601 UTC) or t
+// (seconds from the epoch given with the upload), x, y, z in km and optionally vx, vy, vz in km/s.
+// Units may follow a name ("x_km", "x (km)"); metres in a header are refused outright.
+import type { Readable } from 'node:stream';
+import { CsvError, parse } from 'csv-parse';
+import type { EphemerisChecker } from './ephemeris-checker';
+import { parseEpochMs } from './epoch-text';
+
+type Field = 'epoch' | 't' | 'x' | 'y' | 'z' | 'vx' | 'vy' | 'vz';
+
+const aliases: Record<string, Field> = {
+  epoch: 'epoch', utc: 'epoch', time_utc: 'epoch', t: 't', t_s: 't',
+  x: 'x', y: 'y', z: 'z', vx: 'vx', vy: 'vy', vz: 'vz', x_dot: 'vx', y_dot: 'vy', z_dot: 'vz',
+};
+const expectedColumns = 'epoch (or t), x, y, z, and optionally vx, vy, vz';
+
+interface Columns {
+  byEpoch: boolean;
+  epoch: number;
+  x: number;
+  y: number;
+  z: number;
+  /** -1 without velocities. */
+  vx: number;
+  vy: number;
+  vz: number;
+}
+
+interface Header {
+  index: Map<Field, number>;
+  names: string[];
+  columns?: Columns;
+}
+
+/** Splits "x (km)", "x [km]", "x_km" into the name and its unit. */
+function nameAndUnit(cell: string): { name: string; unit: string } {
+  const text = cell.trim().toLowerCase();
+  const bracket = /^(.*?)\s*[([]\s*([^)\]]*)\s*[)\]]$/.exec(text);
+  if (bracket) return { name: bracket[1].trim(), unit: bracket[2].trim() };
+  const suffix = /^(v?[xyz]|[xyz]_dot|t)_(km|m|km_s|kms|m_s|s)$/.exec(text);
+  if (suffix) return { name: suffix[1], unit: suffix[2] };
+  return { name: text, unit: '' };
+}
+
+function readHeader(cells: string[], checker: EphemerisChecker, hasEpochField: boolean): Header | null {
+  if (cells.length === 1) {
+    const delimiter = [';', '\t', '|'].find((d) => cells[0].includes(d));
+    if (delimiter) {
+      checker.problem(0, undefined, cells[0], `the columns are separated by ${delimiter === '\t' ? 'tabs' : `"${delimiter}"`}; Eclipta reads comma-separated values`);
+      return null;
+    }
+  }
+  const index = new Map<Field, number>();
+  cells.forEach((cell, i) => {
+    const { name, unit } = nameAndUnit(cell);
+    const field = aliases[name];
+    if (!field) {
+      checker.problem(0, cell, cell, `unknown column; the columns are ${expectedColumns}`);
+      return;
+    }
+    if (index.has(field)) checker.problem(0, cell, cell, `the ${field} column appears twice`);
+    const positional = field === 'x' || field === 'y' || field === 'z';
+    if (positional && (unit === 'm' || unit === 'metres' || unit === 'meters')) {
+      checker.problem(0, cell, cell, 'the header says metres; Eclipta expects km');
+    } else if (!positional && field.startsWith('v') && (unit === 'm/s' || unit === 'm_s')) {
+      checker.problem(0, cell, cell, 'the header says m/s; Eclipta expects km/s');
+    }
+    index.set(field, i);
+  });
+  const epochFields = ['epoch', 't'].filter((f) => index.has(f as Field));
+  if (epochFields.length === 0) checker.problem(0, undefined, cells.join(','), `no epoch column; the columns are ${expectedColumns}`);
+  if (epochFields.length === 2) checker.problem(0, 't', undefined, 'give either epoch or t, not both');
+  if (index.has('t') && !hasEpochField) checker.problem(0, 't', undefined, 'the t column counts seconds from an epoch: send that epoch with the upload (field "epoch")');
+  for (const f of ['x', 'y', 'z'] as const) if (!index.has(f)) checker.problem(0, f, undefined, `no ${f} column; the columns are ${expectedColumns}`);
+  const velocities = (['vx', 'vy', 'vz'] as const).filter((f) => index.has(f));
+  if (velocities.length > 0 && velocities.length < 3) checker.problem(0, undefined, velocities.join(','), 'give all three of vx, vy, vz or none');
+  return checker.clean ? { index, names: cells.map((c) => c.trim()) } : null;
+}
+
+/** Feeds the CSV rows of `input` to the checker; stops early once it has all the problems it keeps. */
+export function readCsvEphemeris(input: Readable, checker: EphemerisChecker, epochMs: number | null): Promise<void> {
+  const parser = parse({ bom: true, relax_column_count: true, skip_empty_lines: true, trim: true, comment: '#' });
+  let header: Header | null = null;
+  let row = 0;
+  return new Promise<void>((resolve, reject) => {
+    let settled = false;
+    const finish = (err?: unknown) => {
+      if (settled) return;
+      settled = true;
+      input.unpipe(parser);
+      parser.destroy();
+      if (err) reject(err);
+      else resolve();
+    };
+    // Records are taken by 'data' callbacks rather than for-await: a promise per row would cost
+    // more than the checks themselves.
+    parser.on('data', (record: string[]) => {
+      if (settled) return;
+      if (header === null) {
+        header = readHeader(record, checker, epochMs !== null);
+        if (header === null) finish();
+        return;
+      }
+      row++;
+      readRow(row, record, header, checker, epochMs);
+      if (checker.full) finish();
+    });
+    parser.on('end', () => {
+      if (header === null) checker.problem(0, undefined, undefined, 'the file is empty');
+      finish();
+    });
+    parser.on('error', (err) => {
+      if (!(err instanceof CsvError)) {
+        finish(err);
+        return;
+      }
+      // A quote out of place and similar: csv-parse cannot go on past it.
+      const records = typeof err.records === 'number' ? err.records : row + 1;
+      checker.problem(records, undefined, undefined, `this line cannot be read as CSV: ${err.message}`);
+      finish();
+    });
+    input.on('error', finish);
+    input.pipe(parser);
+  });
+}
+
+function readRow(row: number, cells: string[], header: Header, checker: EphemerisChecker, epochMs: number | null): void {
+  const expected = header.names.length;
+  if (cells.length !== expected) {
+    const which = cells.length < expected
+      ? `missing column: ${header.names.slice(cells.length).join(', ')} (expected ${expected} values, found ${cells.length})`
+      : `extra column: expected ${expected} values (${header.names.join(', ')}), found ${cells.length}`;
+    checker.problem(row, cells.length < expected ? header.names[cells.length] : undefined, cells.length > expected ? cells.slice(expected).join(',') : undefined, which);
+    return;
+  }
+  // Column positions are looked up once per file (columnsOf), not per row: a million rows add up.
+  const c = header.columns ?? (header.columns = columnsOf(header));
+  const names = header.names;
+  let tMs: number | null;
+  const epochText = cells[c.epoch];
+  if (c.byEpoch) {
+    tMs = parseEpochMs(epochText);
+    if (tMs === null) checker.problem(row, names[c.epoch], epochText, 'not an ISO 8601 UTC epoch like 2027-03-20T12:00:00Z');
+  } else {
+    const seconds = checker.number(row, names[c.epoch], epochText);
+    tMs = seconds === null || epochMs === null ? null : epochMs + seconds * 1000;
+  }
+  const r = [checker.number(row, names[c.x], cells[c.x]), checker.number(row, names[c.y], cells[c.y]), checker.number(row, names[c.z], cells[c.z])];
+  const v = c.vx < 0 ? null
+    : [checker.number(row, names[c.vx], cells[c.vx]), checker.number(row, names[c.vy], cells[c.vy]), checker.number(row, names[c.vz], cells[c.vz])];
+  checker.point(row, names[c.epoch], epochText, tMs, r, v);
+}
+
+function columnsOf(header: Header): Columns {
+  const at = (f: Field) => header.index.get(f) ?? -1;
+  const byEpoch = header.index.has('epoch');
+  return { byEpoch, epoch: byEpoch ? at('epoch') : at('t'), x: at('x'), y: at('y'), z: at('z'), vx: at('vx'), vy: at('vy'), vz: at('vz') };
+}

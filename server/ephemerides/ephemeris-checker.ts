@@ -1,0 +1,158 @@
+// Row-by-row checks every ephemeris format goes through, and the summary computed while the rows
+// stream past (span, median step, altitude range). Collects at most the first MAX_PROBLEMS;
+// points go to the spool only while the file is still clean (a refused file keeps nothing).
+import type { ErrorDetail } from '../../shared/api/errors';
+import type { Body } from '../../shared/physics/bodies';
+import type { PointSpool } from './point-spool';
+
+export const MAX_PROBLEMS = 20;
+/** A distance above this many body radii is taken for metres (Earth: 6.4 million km, past its sphere of influence). */
+const METRES_RADII = 1000;
+/** No trajectory about a body in this catalogue moves faster than this (km/s); above it, m/s. */
+const METRES_SPEED_KMS = 200;
+
+export type Problem = Required<Pick<ErrorDetail, 'row' | 'message'>> & Pick<ErrorDetail, 'column' | 'value'>;
+
+const shownValue = (text: string): string => (text.length > 40 ? text.slice(0, 37) + '…' : text);
+const plainNumber = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const fmt = (x: number) => (Math.abs(x) >= 1e5 ? x.toExponential(3) : x.toFixed(1));
+
+export interface EphemerisStats {
+  rows: number;
+  startMs: number;
+  endMs: number;
+  stepS: number;
+  minAltitudeKm: number;
+  maxAltitudeKm: number;
+  hasVelocity: boolean;
+}
+
+export class EphemerisChecker {
+  readonly problems: Problem[] = [];
+  private lastMs: number | null = null;
+  private lastRow = 0;
+  private firstMs = NaN;
+  private minRadius = Infinity;
+  private maxRadius = -Infinity;
+  // Steps rounded to the microsecond, counted: exact median in little memory, as steps repeat.
+  private readonly steps = new Map<number, number>();
+  private rows = 0;
+  private velocity = false;
+
+  constructor(
+    private readonly body: Body,
+    private readonly spool: PointSpool,
+  ) {}
+
+  get full(): boolean {
+    return this.problems.length >= MAX_PROBLEMS;
+  }
+
+  get clean(): boolean {
+    return this.problems.length === 0;
+  }
+
+  problem(row: number, column: string | undefined, value: string | undefined, message: string): void {
+    if (this.full) return;
+    this.problems.push({ row, message, ...(column ? { column } : {}), ...(value !== undefined ? { value: shownValue(value) } : {}) });
+  }
+
+  /** The cell as a finite number, or null after recording why it is not one. */
+  number(row: number, column: string, text: string): number | null {
+    const t = text.trim();
+    // The well-formed number first: it is nearly every cell, and one test is all it needs.
+    if (plainNumber.test(t)) {
+      const value = Number(t);
+      if (Number.isFinite(value)) return value;
+      this.problem(row, column, text, 'too large to be a finite number');
+      return null;
+    }
+    if (t === '') this.problem(row, column, text, 'empty: a number is needed');
+    else if (/^[+-]?nan$/i.test(t)) this.problem(row, column, text, 'NaN is not a number: the propagator gave no value here');
+    else if (/^[+-]?(inf|infinity)$/i.test(t)) this.problem(row, column, text, 'infinite: a position or velocity must be a finite number');
+    else this.problem(row, column, text, 'not a number');
+    return null;
+  }
+
+  /**
+   * One data row, its cells already read (null where a cell was refused). Checks the epoch order,
+   * the position against the surface and the units, then keeps the point while the file is clean.
+   */
+  point(row: number, epochColumn: string, epochValue: string, tMs: number | null, r: (number | null)[], v: (number | null)[] | null): void {
+    this.rows = row;
+    if (tMs !== null) {
+      if (this.lastMs !== null && tMs === this.lastMs) {
+        this.problem(row, epochColumn, epochValue, `repeated epoch: row ${this.lastRow} has the same one`);
+      } else if (this.lastMs !== null && tMs < this.lastMs) {
+        this.problem(row, epochColumn, epochValue, `epochs must increase: this one is before row ${this.lastRow}'s`);
+      } else {
+        if (this.lastMs !== null) {
+          const step = Math.round((tMs - this.lastMs) * 1000) / 1e6;
+          this.steps.set(step, (this.steps.get(step) ?? 0) + 1);
+        } else {
+          this.firstMs = tMs;
+        }
+        this.lastMs = tMs;
+        this.lastRow = row;
+      }
+    }
+    const [x, y, z] = r;
+    if (x === null || y === null || z === null || tMs === null) return;
+    const radius = Math.hypot(x, y, z);
+    const R = this.body.radiusKm;
+    if (radius > METRES_RADII * R) {
+      this.problem(row, 'x, y, z', `|r| = ${fmt(radius)}`, `looks like metres; Eclipta expects km (|r| is ${fmt(radius / R)} times the radius of ${this.body.name})`);
+      return;
+    }
+    if (radius < R) {
+      this.problem(row, 'x, y, z', `|r| = ${fmt(radius)} km`, `below the surface of ${this.body.name}: |r| = ${fmt(radius)} km is less than its radius ${R} km (altitude ${fmt(radius - R)} km)`);
+      return;
+    }
+    let velocity: [number, number, number] | null = null;
+    if (v) {
+      const [vx, vy, vz] = v;
+      if (vx === null || vy === null || vz === null) return;
+      const speed = Math.hypot(vx, vy, vz);
+      if (speed > METRES_SPEED_KMS) {
+        this.problem(row, 'vx, vy, vz', `|v| = ${fmt(speed)}`, `looks like m/s; Eclipta expects km/s (|v| = ${fmt(speed)} km/s is faster than anything in orbit)`);
+        return;
+      }
+      velocity = [vx, vy, vz];
+      this.velocity = true;
+    }
+    this.minRadius = Math.min(this.minRadius, radius);
+    this.maxRadius = Math.max(this.maxRadius, radius);
+    if (this.clean) this.spool.push(tMs, x, y, z, velocity?.[0] ?? NaN, velocity?.[1] ?? NaN, velocity?.[2] ?? NaN);
+  }
+
+  /** Called after the last row: refuses files with too few rows; the stats when all is well. */
+  finish(): EphemerisStats | null {
+    if (this.clean && this.rows === 0) this.problem(0, undefined, undefined, 'the file has a header but no data rows');
+    else if (this.clean && this.rows === 1) this.problem(1, undefined, undefined, 'the file has one data row; a trajectory needs at least two');
+    if (!this.clean || this.lastMs === null) return null;
+    return {
+      rows: this.spool.points,
+      startMs: this.firstMs,
+      endMs: this.lastMs,
+      stepS: medianStep(this.steps),
+      minAltitudeKm: this.minRadius - this.body.radiusKm,
+      maxAltitudeKm: this.maxRadius - this.body.radiusKm,
+      hasVelocity: this.velocity,
+    };
+  }
+}
+
+function medianStep(steps: Map<number, number>): number {
+  const sorted = [...steps.entries()].sort((a, b) => a[0] - b[0]);
+  const total = sorted.reduce((n, [, count]) => n + count, 0);
+  const middle = [Math.floor((total - 1) / 2), Math.floor(total / 2)];
+  const at = (k: number): number => {
+    let seen = 0;
+    for (const [step, count] of sorted) {
+      seen += count;
+      if (k < seen) return step;
+    }
+    return sorted[sorted.length - 1]?.[0] ?? 0;
+  };
+  return (at(middle[0]) + at(middle[1])) / 2;
+}

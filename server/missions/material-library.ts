@@ -1,0 +1,97 @@
+// The built-in material library: DOMAIN.md's table of beginning-of-life optical properties, with
+// end-of-life values where DOMAIN.md gives a range. Written at every start (after the migrations),
+// so a database that was created before the library, or without the demo seed, still has it.
+import { and, eq, isNull } from 'drizzle-orm';
+import type { Db } from '../db/database';
+import { materials } from '../db/schema';
+
+interface LibraryMaterial {
+  name: string;
+  absorptivityBol: number;
+  emissivityBol: number;
+  absorptivityEol: number;
+  emissivityEol: number;
+  source: string;
+}
+
+const bolSource = 'BOL: Fortescue, Swinerd & Stark 2011, Table 11.3; Gilmore 2002, App. A';
+const emissivityKept = 'EOL emissivity = BOL (no change given in DOMAIN.md)';
+// DOMAIN.md's end-of-life paragraph is marked [M]: from memory, to be confirmed against the source.
+const eolFromRange = (range: string, chosen: number): string =>
+  `EOL absorptivity ${chosen}: middle of DOMAIN.md's range ${range} (from memory, not yet confirmed against a published source)`;
+const eolAssumed = 'EOL absorptivity not published in DOMAIN.md: BOL + 0.05 assumed (common practice, no source)';
+
+function assumedEol(name: string, absorptivityBol: number, emissivityBol: number): LibraryMaterial {
+  const absorptivityEol = Math.min(1, Math.round((absorptivityBol + 0.05) * 100) / 100);
+  return {
+    name,
+    absorptivityBol,
+    emissivityBol,
+    absorptivityEol,
+    emissivityEol: emissivityBol,
+    source: `${bolSource}. ${eolAssumed}. ${emissivityKept}.`,
+  };
+}
+
+function rangedEol(name: string, absorptivityBol: number, emissivityBol: number, range: string, absorptivityEol: number): LibraryMaterial {
+  return {
+    name,
+    absorptivityBol,
+    emissivityBol,
+    absorptivityEol,
+    emissivityEol: emissivityBol,
+    source: `${bolSource}. ${eolFromRange(range, absorptivityEol)}. ${emissivityKept}.`,
+  };
+}
+
+/** DOMAIN.md "Optical properties, beginning of life" [S: F, G App. A], in its order. */
+export const libraryMaterials: readonly LibraryMaterial[] = [
+  rangedEol('optical solar reflector (silvered quartz)', 0.07, 0.8, '0.10-0.15', 0.12),
+  rangedEol('silver-backed FEP', 0.08, 0.78, '0.15-0.25', 0.2),
+  rangedEol('white silicone paint', 0.26, 0.83, '0.4-0.6', 0.5),
+  assumedEol('white silicate paint', 0.12, 0.9),
+  assumedEol('black paint', 0.95, 0.87),
+  assumedEol('aluminized polyimide, polyimide outward (blanket outer layer)', 0.4, 0.63),
+  assumedEol('polished aluminium', 0.24, 0.08),
+  assumedEol('silicon solar cells', 0.75, 0.82),
+  assumedEol('GaAs solar cells', 0.88, 0.8),
+];
+
+/**
+ * Inserts the library rows that are missing and brings existing ones to the values above, by name;
+ * idempotent, and leaves every workspace's own materials alone. Ids of existing rows are kept, so
+ * surfaces that use them stay valid.
+ */
+export function ensureMaterialLibrary(db: Db): void {
+  db.transaction((tx) => {
+    for (const entry of libraryMaterials) {
+      const existing = tx
+        .select()
+        .from(materials)
+        .where(and(isNull(materials.workspaceId), eq(materials.name, entry.name)))
+        .get();
+      if (!existing) {
+        tx.insert(materials).values({ ...entry, workspaceId: null }).run();
+      } else if (
+        existing.absorptivityBol !== entry.absorptivityBol ||
+        existing.emissivityBol !== entry.emissivityBol ||
+        existing.absorptivityEol !== entry.absorptivityEol ||
+        existing.emissivityEol !== entry.emissivityEol ||
+        existing.source !== entry.source
+      ) {
+        tx.update(materials).set(entry).where(eq(materials.id, existing.id)).run();
+      }
+    }
+  });
+}
+
+/** The library row of this name (for the demo seed); throws when the library was not written first. */
+export function libraryMaterialId(db: Pick<Db, 'select'>, name: string): string {
+  const row = db
+    .select({ id: materials.id })
+    .from(materials)
+    .where(and(isNull(materials.workspaceId), eq(materials.name, name)))
+    .get();
+  if (!row) throw new Error(`the material library has no "${name}"; ensureMaterialLibrary runs before the seed`);
+  return row.id;
+}

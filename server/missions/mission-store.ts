@@ -1,0 +1,157 @@
+// Missions: listing across the caller's workspaces, creating, changing (archiving too) and deleting,
+// each change with its audit event in the same transaction.
+import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import type { MissionDetail, Mission, missionCreate, missionUpdate } from '../../shared/api/missions';
+import type { z } from 'zod';
+import { getBody } from '../../shared/physics/bodies';
+import { recordAudit } from '../audit/audit-log';
+import { noWorkspace, roleRefused } from '../auth/middleware';
+import type { Db } from '../db/database';
+import { memberships, missions, orbits, surfaces, workspaces, type MissionRow } from '../db/schema';
+import { ApiError, badRequest } from '../errors';
+import { editorRoles, missionFor, roleIn, type Tx } from './mission-access';
+import { toMission, toOrbit, toSurface } from './mission-responses';
+import { canonicalOrbit } from './orbit-values';
+
+type MissionCreate = z.output<typeof missionCreate>;
+type MissionUpdate = z.output<typeof missionUpdate>;
+
+export function listMissions(db: Db, userId: string, includeArchived: boolean): Mission[] {
+  const mine = db.select({ id: memberships.workspaceId }).from(memberships).where(eq(memberships.userId, userId));
+  const rows = db
+    .select()
+    .from(missions)
+    .where(and(inArray(missions.workspaceId, mine), includeArchived ? undefined : isNull(missions.archivedAt)))
+    .orderBy(asc(missions.name), asc(missions.id))
+    .all();
+  return rows.map(toMission);
+}
+
+export function missionDetail(db: Db, mission: MissionRow): MissionDetail {
+  const orbitRows = db.select().from(orbits).where(eq(orbits.missionId, mission.id)).orderBy(asc(orbits.createdAt), sql`"orbits".rowid`).all();
+  const surfaceRows = db.select().from(surfaces).where(eq(surfaces.missionId, mission.id)).orderBy(asc(surfaces.createdAt), sql`"surfaces".rowid`).all();
+  return { ...toMission(mission), orbits: orbitRows.map(toOrbit), surfaces: surfaceRows.map(toSurface) };
+}
+
+/** The workspace a new mission goes to: the one named, or the caller's only one. */
+function targetWorkspace(db: Db, userId: string, workspaceId: string | undefined): string {
+  if (workspaceId !== undefined) return workspaceId;
+  const mine = db
+    .select({ id: workspaces.id, name: workspaces.name })
+    .from(memberships)
+    .innerJoin(workspaces, eq(workspaces.id, memberships.workspaceId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(asc(workspaces.name))
+    .all();
+  const [only] = mine;
+  if (mine.length === 1 && only) return only.id;
+  const message =
+    mine.length === 0
+      ? 'You belong to no workspace, so there is nowhere to create the mission.'
+      : `workspaceId: you belong to ${mine.length} workspaces, so say which one: ${mine.map((w) => `${w.name} (${w.id})`).join(', ')}.`;
+  throw badRequest(message, [{ path: 'workspaceId', message }]);
+}
+
+export function createMission(db: Db, userId: string, input: MissionCreate): Mission {
+  const workspaceId = targetWorkspace(db, userId, input.workspaceId);
+  return db.transaction((tx) => {
+    const role = roleIn(tx, userId, workspaceId);
+    if (!role) throw noWorkspace(workspaceId);
+    if (!editorRoles.includes(role)) throw roleRefused(role, editorRoles);
+    const { workspaceId: _named, ...fields } = input;
+    const row = tx.insert(missions).values({ ...fields, workspaceId, createdBy: userId }).returning().get();
+    recordAudit(tx, {
+      workspaceId,
+      actorUserId: userId,
+      action: 'mission.created',
+      targetType: 'mission',
+      targetId: row.id,
+      summary: `Mission "${row.name}" created (${getBody(row.bodyId).name}, ${row.startDate} to ${row.endDate}).`,
+    });
+    return toMission(row);
+  });
+}
+
+const describeChange = (name: string, before: unknown, after: unknown): string =>
+  `${name} ${JSON.stringify(before)} -> ${JSON.stringify(after)}`;
+
+/** A change of body moves every orbit's canonical values (altitudes are above the new body). */
+function recomputeOrbits(tx: Tx, missionId: string, bodyId: string): void {
+  const body = getBody(bodyId);
+  for (const orbit of tx.select().from(orbits).where(eq(orbits.missionId, missionId)).all()) {
+    let values;
+    try {
+      values = canonicalOrbit(orbit.input, body);
+    } catch (error) {
+      if (error instanceof ApiError) {
+        const message = `bodyId: orbit "${orbit.name}" does not fit around ${body.name}: ${error.message}`;
+        throw new ApiError(422, error.code, message, [{ path: 'bodyId', message }]);
+      }
+      throw error;
+    }
+    tx.update(orbits).set({ ...values, updatedAt: new Date().toISOString() }).where(eq(orbits.id, orbit.id)).run();
+  }
+}
+
+export function updateMission(db: Db, userId: string, missionId: string, input: MissionUpdate): Mission {
+  return db.transaction((tx) => {
+    const { mission } = missionFor(tx, userId, missionId, 'edit');
+    const startDate = input.startDate ?? mission.startDate;
+    const endDate = input.endDate ?? mission.endDate;
+    if (endDate < startDate) {
+      const path = input.endDate !== undefined ? 'endDate' : 'startDate';
+      const message = `${path}: the mission would end (${endDate}) before it starts (${startDate})`;
+      throw badRequest(`${message}.`, [{ path, message }]);
+    }
+    const { archived, ...fields } = input;
+    const changes: string[] = [];
+    for (const [name, value] of Object.entries(fields)) {
+      const before: unknown = mission[name as keyof typeof fields];
+      if (value !== undefined && value !== before) changes.push(name === 'description' ? 'description' : describeChange(name, before, value));
+    }
+    let archivedAt = mission.archivedAt;
+    if (archived === true && archivedAt === null) {
+      archivedAt = new Date().toISOString();
+      changes.push('archived');
+    } else if (archived === false && archivedAt !== null) {
+      archivedAt = null;
+      changes.push('un-archived');
+    }
+    if (changes.length === 0) return toMission(mission);
+    if (fields.bodyId !== undefined && fields.bodyId !== mission.bodyId) recomputeOrbits(tx, mission.id, fields.bodyId);
+    const row = tx
+      .update(missions)
+      .set({ ...fields, archivedAt, updatedAt: new Date().toISOString() })
+      .where(eq(missions.id, mission.id))
+      .returning()
+      .get();
+    const action = archived === true && changes.length === 1 ? 'mission.archived' : archived === false && changes.length === 1 ? 'mission.unarchived' : 'mission.updated';
+    recordAudit(tx, {
+      workspaceId: mission.workspaceId,
+      actorUserId: userId,
+      action,
+      targetType: 'mission',
+      targetId: mission.id,
+      summary: `Mission "${row.name}": ${changes.join('; ')}.`,
+    });
+    return toMission(row);
+  });
+}
+
+export function deleteMission(db: Db, userId: string, missionId: string): void {
+  db.transaction((tx) => {
+    const { mission } = missionFor(tx, userId, missionId, 'edit');
+    const orbitCount = tx.select({ id: orbits.id }).from(orbits).where(eq(orbits.missionId, mission.id)).all().length;
+    const surfaceCount = tx.select({ id: surfaces.id }).from(surfaces).where(eq(surfaces.missionId, mission.id)).all().length;
+    // Orbits and surfaces go with it (ON DELETE CASCADE).
+    tx.delete(missions).where(eq(missions.id, mission.id)).run();
+    recordAudit(tx, {
+      workspaceId: mission.workspaceId,
+      actorUserId: userId,
+      action: 'mission.deleted',
+      targetType: 'mission',
+      targetId: mission.id,
+      summary: `Mission "${mission.name}" deleted with its ${orbitCount} orbit(s) and ${surfaceCount} surface(s).`,
+    });
+  });
+}

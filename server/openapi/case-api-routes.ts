@@ -1,0 +1,28 @@
+// Load cases and the documents that describe the API (shared/api/cases.ts).
+import { z } from 'zod';
+import {
+  caseCompareQuery, caseComparison, caseCreate, caseDerive, caseDetail, caseExport, caseExportQuery, caseList, caseListQuery, caseUpdate,
+  derivedCases, subscriptionState,
+} from '../../shared/api/cases';
+import type { ApiRoute } from './api-route';
+
+const v1 = '/api/v1';
+const c = `${v1}/cases/:id`;
+const editors = '(thermal engineer or owner)';
+
+export const caseApiRoutes: ApiRoute[] = [
+  { method: 'post', path: `${v1}/missions/:id/cases/derive`, tag: 'cases', summary: `Derive the hot and cold cases of an orbit; both saved as drafts ${editors}`, body: caseDerive, status: 201, response: derivedCases },
+  { method: 'post', path: `${v1}/missions/:id/cases`, tag: 'cases', summary: `Add a custom case: fixed date, beta, properties, attitude ${editors}`, body: caseCreate, status: 201, response: caseDetail },
+  { method: 'get', path: `${v1}/cases`, tag: 'cases', summary: 'The cases the caller may see (viewers: released and superseded only)', query: caseListQuery, response: caseList },
+  { method: 'get', path: c, tag: 'cases', summary: 'A case with its inputs, rationale and results', response: caseDetail },
+  { method: 'patch', path: c, tag: 'cases', summary: `Change a draft; 409 for any other status ${editors}`, body: caseUpdate, response: caseDetail },
+  { method: 'post', path: `${c}/submit`, tag: 'cases', summary: `Submit a draft for review ${editors}`, response: caseDetail },
+  { method: 'post', path: `${c}/release`, tag: 'cases', summary: 'Release a case in review: a thermal engineer or owner other than its author', response: caseDetail },
+  { method: 'post', path: `${c}/revisions`, tag: 'cases', summary: `Start a new draft revision from a released one ${editors}`, status: 201, response: caseDetail },
+  { method: 'get', path: `${c}/compare`, tag: 'cases', summary: 'Two revisions side by side: inputs and per-surface orbit averages', query: caseCompareQuery, response: caseComparison },
+  { method: 'post', path: `${c}/subscription`, tag: 'cases', summary: 'Follow the case: mail on every new release', response: subscriptionState },
+  { method: 'delete', path: `${c}/subscription`, tag: 'cases', summary: 'Stop following the case', response: subscriptionState },
+  { method: 'get', path: `${c}/export`, tag: 'cases', summary: 'The case as a file: JSON (load-case.json schema) or CSV (RFC 4180)', query: caseExportQuery, response: caseExport, produces: ['application/json', 'text/csv'] },
+  { method: 'get', path: `${v1}/schemas/load-case.json`, tag: 'documents', summary: 'JSON Schema (draft 2020-12) of a case’s JSON export', response: z.record(z.string(), z.unknown()) },
+  { method: 'get', path: `${v1}/openapi.json`, tag: 'documents', summary: 'This document: the whole API in OpenAPI 3', response: z.record(z.string(), z.unknown()) },
+];

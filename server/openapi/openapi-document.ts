@@ -1,0 +1,96 @@
+// The OpenAPI 3 description of the whole API, generated from the zod schemas of shared/api/ with
+// @asteasolutions/zod-to-openapi, and the JSON Schema of a case export from zod 4's own converter.
+import { OpenAPIRegistry, OpenApiGeneratorV3 } from '@asteasolutions/zod-to-openapi';
+import { z } from 'zod';
+import { caseExport } from '../../shared/api/cases';
+import { errorBody } from '../../shared/api/errors';
+import type { ApiRoute } from './api-route';
+import { caseApiRoutes } from './case-api-routes';
+import { foundationApiRoutes } from './foundation-api-routes';
+import { missionApiRoutes } from './mission-api-routes';
+import { physicsApiRoutes } from './physics-api-routes';
+import { thermalModelApiRoutes } from './thermal-model-api-routes';
+
+/** Every feature's routes; a new feature adds its list here. */
+export const apiRouteLists: ApiRoute[][] = [foundationApiRoutes, physicsApiRoutes, missionApiRoutes, caseApiRoutes, thermalModelApiRoutes];
+
+export const allApiRoutes = (): ApiRoute[] => apiRouteLists.flat();
+
+const openApiPath = (path: string) => path.replace(/:(\w+)/g, '{$1}');
+const pathParams = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1] ?? '');
+
+const errorStatuses: Record<string, string> = {
+  '400': 'Malformed or out-of-range input; details name each field and value',
+  '401': 'Not signed in (no session cookie, no valid API token)',
+  '403': 'Signed in but not allowed (role, read-only token, four-eyes rule)',
+  '404': 'Not found, also for another workspace’s object',
+  '409': 'Conflict, e.g. changing a released revision',
+  '422': 'Well formed but physically impossible',
+};
+
+function register(registry: OpenAPIRegistry, route: ApiRoute): void {
+  const names = pathParams(route.path);
+  const params = names.length > 0 ? z.object(Object.fromEntries(names.map((n) => [n, z.string()]))) : undefined;
+  const status = String(route.status ?? 200);
+  const content: Record<string, { schema: z.ZodType }> = {};
+  if (route.response) content['application/json'] = { schema: route.response };
+  for (const type of route.produces ?? []) if (!content[type]) content[type] = { schema: z.string() };
+  const bodyContent = route.body
+    ? route.bodyKind === 'multipart'
+      ? { 'multipart/form-data': { schema: route.body instanceof z.ZodObject ? route.body.extend({ file: z.string().meta({ format: 'binary' }) }) : route.body } }
+      : { 'application/json': { schema: route.body } }
+    : undefined;
+  registry.registerPath({
+    method: route.method,
+    path: openApiPath(route.path),
+    summary: route.summary,
+    tags: [route.tag],
+    ...(route.public ? { security: [] } : {}),
+    request: {
+      ...(params ? { params } : {}),
+      ...(route.query ? { query: route.query } : {}),
+      ...(bodyContent ? { body: { content: bodyContent, required: true } } : {}),
+    },
+    responses: {
+      [status]: { description: status === '204' ? 'Done, no content' : 'Success', ...(Object.keys(content).length > 0 ? { content } : {}) },
+      ...Object.fromEntries(
+        Object.entries(errorStatuses)
+          .filter(([code]) => !(route.public && code === '401'))
+          .map(([code, description]) => [code, { description, content: { 'application/json': { schema: errorBody } } }]),
+      ),
+    },
+  });
+}
+
+let cached: object | null = null;
+
+export function openApiDocument(publicUrl: string): object {
+  if (cached) return cached;
+  const registry = new OpenAPIRegistry();
+  registry.registerComponent('securitySchemes', 'apiToken', { type: 'http', scheme: 'bearer', description: 'A personal API token: Authorization: Bearer <token>' });
+  registry.registerComponent('securitySchemes', 'session', { type: 'apiKey', in: 'cookie', name: 'eclipta_session' });
+  for (const route of allApiRoutes()) register(registry, route);
+  cached = new OpenApiGeneratorV3(registry.definitions).generateDocument({
+    openapi: '3.0.3',
+    info: {
+      title: 'Eclipta API',
+      version: '1',
+      description: 'Orbital thermal environment, hot and cold load cases, thermal models. Errors: {"error": {"code", "message", "details"}}.',
+    },
+    servers: [{ url: publicUrl }],
+    security: [{ apiToken: [] }, { session: [] }],
+  });
+  return cached;
+}
+
+let schemaCache: object | null = null;
+
+/** The JSON Schema of a case's JSON export (draft 2020-12). */
+export function loadCaseJsonSchema(publicUrl: string): object {
+  schemaCache ??= {
+    $id: `${publicUrl}/api/v1/schemas/load-case.json`,
+    title: 'Eclipta load case',
+    ...z.toJSONSchema(caseExport, { target: 'draft-2020-12', io: 'output', unrepresentable: 'any' }),
+  };
+  return schemaCache;
+}

@@ -1,0 +1,70 @@
+// orbits of a mission, their environment and the mission sweep (shared/api/missions.ts).
+import { Router } from 'express';
+import { orbitCreate, orbitUpdate, savedEnvironmentRequest, sweepQuery } from '../../shared/api/missions';
+import type { AppContext } from '../app-context';
+import { requireUser, signedIn } from '../auth/middleware';
+import { parse } from '../errors';
+import { missionFor, orbitOf } from '../missions/mission-access';
+import { toOrbit } from '../missions/mission-responses';
+import { createOrbit, deleteOrbit, listOrbits, updateOrbit } from '../missions/orbit-store';
+import { missionSurfaces, savedEnvironment } from '../missions/saved-environment';
+import { planSweep, sweepChunkComputer } from '../missions/sweep-days';
+import { csvFileName, streamSweep } from '../missions/sweep-stream';
+import { pathParam } from '../path-param';
+
+export function orbitRoutes(ctx: AppContext): Router {
+  const router = Router();
+  const userId = (req: Parameters<typeof signedIn>[0]) => signedIn(req).user.id;
+
+  router.get('/missions/:id/orbits', requireUser, (req, res) => {
+    const { mission } = missionFor(ctx.db, userId(req), pathParam(req, 'id'), 'read');
+    res.json({ items: listOrbits(ctx.db, mission.id) });
+  });
+
+  router.post('/missions/:id/orbits', requireUser, (req, res) => {
+    const input = parse(orbitCreate, req.body);
+    res.status(201).json(createOrbit(ctx.db, userId(req), pathParam(req, 'id'), input));
+  });
+
+  router.get('/missions/:id/orbits/:orbitId', requireUser, (req, res) => {
+    const { mission } = missionFor(ctx.db, userId(req), pathParam(req, 'id'), 'read');
+    res.json(toOrbit(orbitOf(ctx.db, mission.id, pathParam(req, 'orbitId'))));
+  });
+
+  router.patch('/missions/:id/orbits/:orbitId', requireUser, (req, res) => {
+    const input = parse(orbitUpdate, req.body);
+    res.json(updateOrbit(ctx.db, userId(req), pathParam(req, 'id'), pathParam(req, 'orbitId'), input));
+  });
+
+  router.delete('/missions/:id/orbits/:orbitId', requireUser, (req, res) => {
+    deleteOrbit(ctx.db, userId(req), pathParam(req, 'id'), pathParam(req, 'orbitId'));
+    res.status(204).end();
+  });
+
+  // A computation, not a change: every member may run it.
+  router.post('/missions/:id/orbits/:orbitId/environment', requireUser, (req, res) => {
+    const { mission } = missionFor(ctx.db, userId(req), pathParam(req, 'id'), 'read');
+    const orbit = orbitOf(ctx.db, mission.id, pathParam(req, 'orbitId'));
+    const request = parse(savedEnvironmentRequest, req.body ?? {});
+    res.json(savedEnvironment(ctx.db, mission, orbit, request));
+  });
+
+  router.get('/missions/:id/orbits/:orbitId/sweep', requireUser, async (req, res) => {
+    const { mission } = missionFor(ctx.db, userId(req), pathParam(req, 'id'), 'read');
+    const orbit = orbitOf(ctx.db, mission.id, pathParam(req, 'orbitId'));
+    const query = parse(sweepQuery, req.query);
+    const plan = planSweep(mission, query);
+    const surfaces = missionSurfaces(ctx.db, mission.id, query.properties);
+    await streamSweep({
+      res,
+      logger: ctx.logger,
+      plan,
+      surfaces,
+      format: query.format,
+      fileName: csvFileName(mission.name, orbit.name, 'sweep', plan.from, plan.to, query.properties),
+      computeDays: sweepChunkComputer(mission, orbit, plan, surfaces),
+    });
+  });
+
+  return router;
+}

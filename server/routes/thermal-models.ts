@@ -1,0 +1,53 @@
+// Saved thermal models of a mission, their runs against load cases and their sizing
+// (shared/api/thermal-models.ts). The work and the role checks are in server/thermal/.
+import { Router } from 'express';
+import { thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, thermalRunRequest } from '../../shared/api/thermal-models';
+import type { AppContext } from '../app-context';
+import { requireUser, signedIn } from '../auth/middleware';
+import { parse } from '../errors';
+import { pathParam } from '../path-param';
+import { lastRun, runModel, sizeModel } from '../thermal/thermal-model-runs';
+import { createModel, deleteModel, getModel, listModels, updateModel } from '../thermal/thermal-model-store';
+
+export function thermalModelRoutes(ctx: AppContext): Router {
+  const router = Router();
+
+  router.get('/missions/:id/thermal-models', requireUser, (req, res) => {
+    res.json({ items: listModels(ctx.db, signedIn(req).user.id, pathParam(req, 'id')) });
+  });
+
+  router.post('/missions/:id/thermal-models', requireUser, (req, res) => {
+    const input = parse(thermalModelCreate, req.body);
+    res.status(201).json(createModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), input));
+  });
+
+  router.get('/thermal-models/:id', requireUser, (req, res) => {
+    res.json(getModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id')));
+  });
+
+  router.patch('/thermal-models/:id', requireUser, (req, res) => {
+    const input = parse(thermalModelUpdate, req.body);
+    res.json(updateModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), input));
+  });
+
+  router.delete('/thermal-models/:id', requireUser, (req, res) => {
+    deleteModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'));
+    res.status(204).end();
+  });
+
+  router.post('/thermal-models/:id/run', requireUser, (req, res) => {
+    const { caseId } = parse(thermalRunRequest, req.body);
+    res.json(runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId));
+  });
+
+  router.get('/thermal-models/:id/runs/:caseId', requireUser, (req, res) => {
+    res.json(lastRun(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), pathParam(req, 'caseId')));
+  });
+
+  router.post('/thermal-models/:id/size', requireUser, (req, res) => {
+    const body = parse(thermalModelSizeRequest, req.body);
+    res.json(sizeModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), body));
+  });
+
+  return router;
+}

@@ -1,0 +1,100 @@
+// Running a saved model against a load case (the periodic steady state, kept as the model's last
+// run for that case) and sizing its radiator in the hot case and its heater in the cold case, with
+// the stateless solver and sizing of shared/physics.
+import { and, eq } from 'drizzle-orm';
+import { asThermalSolveInput, thermalSolveRequest } from '../../shared/api/thermal';
+import type { ThermalModelSizeResponse, ThermalRunResponse, thermalModelSizeRequest } from '../../shared/api/thermal-models';
+import { ThermalConvergenceError, ThermalModelError } from '../../shared/physics/thermal-model';
+import { heaterPowerFor, radiatorAreaFor } from '../../shared/physics/thermal-sizing';
+import { solveThermal } from '../../shared/physics/thermal-solver';
+import type { z } from 'zod';
+import { recordAudit } from '../audit/audit-log';
+import type { Db } from '../db/database';
+import { surfaces, thermalRuns, type LoadCaseRow, type MissionRow, type ThermalModelRow } from '../db/schema';
+import { badRequest, notFound, parse } from '../errors';
+import { caseOfMission, modelFor } from './thermal-model-access';
+import { answerThermal } from './thermal-failures';
+import { runInputs } from './thermal-run-inputs';
+
+type SizeRequest = z.output<typeof thermalModelSizeRequest>;
+
+const caseRef = (c: LoadCaseRow) => ({ id: c.id, name: c.name, kind: c.kind, status: c.status, revision: c.revision });
+
+function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: LoadCaseRow) {
+  const names = new Map(db.select({ id: surfaces.id, name: surfaces.name }).from(surfaces).where(eq(surfaces.missionId, mission.id)).all().map((s) => [s.id, s.name]));
+  const inputs = runInputs(row.model, names, kase);
+  // The request is built from checked parts; parsing again fills the solver's defaults and keeps
+  // the route honest should a case hold something the stateless route would refuse.
+  return { ...inputs, parsed: asThermalSolveInput(parse(thermalSolveRequest, inputs.request)) };
+}
+
+export function runModel(db: Db, userId: string, modelId: string, caseId: string): ThermalRunResponse {
+  const { row, mission, role } = modelFor(db, userId, modelId, 'run');
+  const kase = caseOfMission(db, mission, caseId, role, 'caseId');
+  const { request, nodes, assumptions, parsed } = inputsFor(db, row, mission, kase);
+  const result = answerThermal(() => solveThermal(parsed), 'impossible_model');
+  const ranAt = new Date().toISOString();
+  const answer: Omit<ThermalRunResponse, 'stale'> = {
+    model: { id: row.id, name: row.name, updatedAt: row.updatedAt },
+    case: { ...caseRef(kase), periodS: kase.results.periodS, steps: kase.results.tS.length, eclipseFraction: kase.results.eclipseFraction, sunlit: kase.results.sunlit },
+    crewed: mission.crewed,
+    ranAt,
+    inputs: nodes,
+    solveRequest: { ...request },
+    result,
+    assumptions: [...assumptions, ...result.assumptions],
+  };
+  db.transaction((tx) => {
+    tx.delete(thermalRuns).where(and(eq(thermalRuns.modelId, row.id), eq(thermalRuns.caseId, kase.id))).run();
+    tx.insert(thermalRuns).values({ modelId: row.id, caseId: kase.id, pass: result.pass, modelUpdatedAt: row.updatedAt, result: answer, ranBy: userId, ranAt }).run();
+    recordAudit(tx, {
+      workspaceId: mission.workspaceId, actorUserId: userId, action: 'thermal_model.run', targetType: 'thermal_model', targetId: row.id,
+      summary: `Ran thermal model "${row.name}" on case "${kase.name}" (${kase.kind}): ${result.pass ? 'pass' : 'fail'}.`,
+    });
+  });
+  return { ...answer, stale: false };
+}
+
+export function lastRun(db: Db, userId: string, modelId: string, caseId: string): ThermalRunResponse {
+  const { row, mission, role } = modelFor(db, userId, modelId, 'read');
+  const kase = caseOfMission(db, mission, caseId, role, 'caseId');
+  const run = db.select().from(thermalRuns).where(and(eq(thermalRuns.modelId, row.id), eq(thermalRuns.caseId, kase.id))).get();
+  if (!run) throw notFound(`Thermal model "${row.name}" has not been run on case "${kase.name}" yet.`, 'no_run');
+  return { ...run.result, stale: run.modelUpdatedAt !== row.updatedAt };
+}
+
+/** The sizing's answer, or the sentence saying why this model cannot be sized so. */
+function attempt<T>(work: () => T): { sizing: T | null; refused: string | null } {
+  try {
+    return { sizing: work(), refused: null };
+  } catch (error) {
+    if (error instanceof ThermalModelError || error instanceof ThermalConvergenceError) return { sizing: null, refused: error.message };
+    throw error;
+  }
+}
+
+export function sizeModel(db: Db, userId: string, modelId: string, body: SizeRequest): ThermalModelSizeResponse {
+  const { row, mission, role } = modelFor(db, userId, modelId, 'run');
+  const hot = caseOfMission(db, mission, body.caseHotId, role, 'caseHotId');
+  const cold = caseOfMission(db, mission, body.caseColdId, role, 'caseColdId');
+  const heaterNode = body.heaterNode ?? body.node;
+  for (const [field, name] of [['node', body.node], ['heaterNode', heaterNode]] as const) {
+    if (!row.model.nodes.some((n) => n.name === name)) {
+      const message = `no node is named ${JSON.stringify(name)} in model "${row.name}" (got ${JSON.stringify(name)})`;
+      throw badRequest(`${field}: ${message}.`, [{ path: field, message }]);
+    }
+  }
+  const hotInputs = inputsFor(db, row, mission, hot);
+  const coldInputs = inputsFor(db, row, mission, cold);
+  const hotMarginK = body.marginK ?? hotInputs.parsed.margins?.operatingK ?? 0;
+  const coldMarginK = body.marginK ?? coldInputs.parsed.margins?.operatingK ?? 0;
+  const maxDutyCycle = body.maxDutyCycle ?? row.model.maxDutyCycle;
+  const radiator = attempt(() => ({ kind: 'radiator' as const, ...radiatorAreaFor(hotInputs.parsed, body.node, hotMarginK) }));
+  const heater = attempt(() => ({ kind: 'heater' as const, ...heaterPowerFor(coldInputs.parsed, heaterNode, coldMarginK, maxDutyCycle) }));
+  return {
+    radiator: { case: caseRef(hot), ...radiator },
+    heater: { case: caseRef(cold), ...heater },
+    margins: { hotK: hotMarginK, coldK: coldMarginK },
+    maxDutyCycle,
+  };
+}

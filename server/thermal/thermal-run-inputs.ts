@@ -1,0 +1,113 @@
+// A saved model against one load case becomes a POST /thermal/solve body: the case gives the period,
+// the steps and, through the surfaces each node owns, the node's absorbed load over the orbit; the
+// case's kind picks the node's hot or cold dissipation. Surfaces are the mission's by id, found in
+// the case's snapshot by name (a case keeps the surfaces as they were when it was derived).
+import type { ThermalSolveRequestInput } from '../../shared/api/thermal';
+import type { SavedThermalNode, ThermalModelContent, ThermalRunNodeInput } from '../../shared/api/thermal-models';
+import type { LoadCaseRow } from '../db/schema';
+import { unprocessable } from '../errors';
+
+export interface RunInputs {
+  request: ThermalSolveRequestInput;
+  nodes: ThermalRunNodeInput[];
+  assumptions: string[];
+}
+
+const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
+
+/** `values` (evenly spaced over one period) at `n` evenly spaced times, linear between samples, wrapping round the orbit. */
+export function resamplePeriodic(values: readonly number[], n: number): number[] {
+  if (values.length === n) return [...values];
+  return Array.from({ length: n }, (_, k) => {
+    const at = (k * values.length) / n;
+    const i = Math.floor(at);
+    const f = at - i;
+    return (values[i % values.length] ?? 0) * (1 - f) + (values[(i + 1) % values.length] ?? 0) * f;
+  });
+}
+
+function dissipationFor(node: SavedThermalNode, kind: LoadCaseRow['kind']): SavedThermalNode['dissipationW'] {
+  if (kind === 'hot' && node.hotDissipationW !== undefined) return node.hotDissipationW;
+  if (kind === 'cold' && node.coldDissipationW !== undefined) return node.coldDissipationW;
+  return node.dissipationW;
+}
+
+function describeDissipation(d: SavedThermalNode['dissipationW']): string {
+  if (d === undefined) return 'none';
+  if (typeof d === 'number') return `${d} W`;
+  return `${d.onW} W for ${d.onS} s every ${d.periodS} s${d.offW ? `, ${d.offW} W otherwise` : ''}`;
+}
+
+export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<string, string>, kase: LoadCaseRow): RunInputs {
+  const results = kase.results;
+  const steps = results.tS.length;
+  const byName = new Map(results.surfaces.map((s) => [s.name, s]));
+  const { heatLoadPercent, temperatureMarginC } = kase.inputs.margins;
+  const direction = kase.inputs.conditions.marginDirection;
+  // The case's stored series are without its heat-load margin; the design case is with it.
+  const factor = direction === 'increase' ? 1 + heatLoadPercent / 100 : 1 - heatLoadPercent / 100;
+
+  const nodeInputs: ThermalRunNodeInput[] = [];
+  const nodes = model.nodes.map((node, i) => {
+    const { surfaceIds, hotDissipationW: _hot, coldDissipationW: _cold, dissipationW: _base, ...rest } = node;
+    const owned = surfaceIds.map((id, j) => {
+      const name = surfaceNames.get(id);
+      if (name === undefined) {
+        throw unprocessable(`Node ${JSON.stringify(node.name)} owns surface ${JSON.stringify(id)}, which the mission no longer has; edit the model.`, [{ path: `model.nodes.${i}.surfaceIds.${j}`, message: 'no such surface in the mission' }]);
+      }
+      const found = byName.get(name);
+      if (!found) {
+        throw unprocessable(`The case "${kase.name}" has no surface named ${JSON.stringify(name)} (node ${JSON.stringify(node.name)}); derive the case again after adding the surface.`, [{ path: `model.nodes.${i}.surfaceIds.${j}`, message: `not in the case's snapshot: ${name}` }]);
+      }
+      return found;
+    });
+    const absorbed = new Array<number>(steps).fill(0);
+    for (const s of owned) resamplePeriodic(s.series.absorbedW, steps).forEach((w, k) => (absorbed[k] = (absorbed[k] ?? 0) + w * factor));
+    const areaM2 = owned.reduce((sum, s) => sum + s.areaM2, 0);
+    // An explicit radiator replaces the surfaces' own; otherwise they radiate with their area-weighted emissivity.
+    const explicit = node.radiatorAreaM2 !== undefined;
+    const fromSurfaces = !explicit && areaM2 > 0;
+    const surfaceEmissivity = fromSurfaces ? round(owned.reduce((sum, s) => sum + s.areaM2 * s.emissivity, 0) / areaM2, 6) : null;
+    const radiator = fromSurfaces ? { radiatorAreaM2: round(areaM2, 6), emissivity: surfaceEmissivity ?? 0 } : {};
+    const dissipationW = dissipationFor(node, kase.kind);
+    nodeInputs.push({
+      name: node.name,
+      surfaces: owned.map((s) => s.name),
+      orbitAverageAbsorbedW: round(absorbed.reduce((a, b) => a + b, 0) / steps),
+      peakAbsorbedW: round(Math.max(0, ...absorbed)),
+      radiatorAreaM2: explicit ? (node.radiatorAreaM2 ?? 0) : round(areaM2, 6),
+      emissivity: surfaceEmissivity ?? node.emissivity ?? null,
+      dissipation: describeDissipation(dissipationW),
+    });
+    return {
+      ...rest,
+      ...radiator,
+      ...(dissipationW !== undefined ? { dissipationW } : {}),
+      ...(owned.length > 0 ? { absorbedW: absorbed.map((w) => round(w)) } : {}),
+    };
+  });
+
+  const operatingK = model.margins.operatingK ?? temperatureMarginC;
+  const request: ThermalSolveRequestInput = {
+    periodS: results.periodS,
+    steps,
+    nodes,
+    couplings: model.couplings,
+    radiativeCouplings: model.radiativeCouplings,
+    heaters: model.heaters,
+    loops: model.loops,
+    margins: { operatingK, ...(model.margins.survivalK !== undefined ? { survivalK: model.margins.survivalK } : {}) },
+    ...(model.toleranceK !== undefined ? { toleranceK: model.toleranceK } : {}),
+    ...(model.maxOrbits !== undefined ? { maxOrbits: model.maxOrbits } : {}),
+    ...(model.substeps !== undefined ? { substeps: model.substeps } : {}),
+  };
+  const assumptions = [
+    `Loads from case "${kase.name}" (${kase.kind}, revision ${kase.revision}, ${kase.status}): each node absorbs the sum of its surfaces' absorbed loads, ${steps} samples over ${round(results.periodS, 1)} s.`,
+    `The case's heat-load margin is applied: loads ${direction === 'increase' ? '+' : '-'}${heatLoadPercent} %.`,
+    model.margins.operatingK !== undefined
+      ? `Operating limits checked with the model's margin of ${operatingK} K.`
+      : `Operating limits checked with the case's temperature margin of ${operatingK} K (the model sets none).`,
+    'A node radiates to space through its surfaces (their area, their emissivity in the case) unless it names a radiator of its own.',
+  ];
+  return { request, nodes: nodeInputs, assumptions };
+}

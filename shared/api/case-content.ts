@@ -1,0 +1,163 @@
+// What a load case holds: the snapshot of its inputs and its results (physics/design-cases.ts).
+// These schemas describe the stored JSON, the case routes' answers and the JSON export, and the
+// JSON Schema served at /api/v1/schemas/load-case.json is generated from them.
+import { z } from 'zod';
+import { bodyIds } from '../physics/bodies';
+import type { CaseConditions, CaseResults, SurfaceDriver, ScanSummary } from '../physics/design-cases';
+import type { Margins } from '../physics/design-environment';
+import { surfaceNormal } from './missions';
+
+export const caseKinds = ['hot', 'cold', 'custom'] as const;
+export const caseStatuses = ['draft', 'review', 'released', 'superseded'] as const;
+export const propertySetValues = ['bol', 'eol'] as const;
+
+const num = z.number();
+const range = z.object({ min: num, nominal: num, max: num });
+
+export const caseMaterial = z.object({
+  name: z.string(),
+  absorptivityBol: num,
+  emissivityBol: num,
+  absorptivityEol: num,
+  emissivityEol: num,
+  source: z.string(),
+});
+
+export const caseSurface = z.object({
+  name: z.string(),
+  normal: surfaceNormal,
+  areaM2: num.describe('m^2'),
+  material: caseMaterial,
+});
+
+export const caseConditions = z.object({
+  bodyId: z.enum(bodyIds),
+  /** Canonical elements: km, deg. */
+  orbit: z.object({
+    semiMajorAxisKm: num,
+    eccentricity: num,
+    inclinationDeg: num,
+    raanDeg: num,
+    argPeriapsisDeg: num,
+  }),
+  orbitEpoch: z.string().describe('ISO 8601 UTC epoch of the orbit elements'),
+  date: z.string().describe('YYYY-MM-DD: the day the node and the Sun azimuth are taken from'),
+  betaDeg: num,
+  solarDistanceAu: num,
+  albedo: num,
+  olrWm2: num,
+  properties: z.enum(propertySetValues).describe('bol: beginning of life; eol: end of life'),
+  marginDirection: z.enum(['increase', 'decrease']),
+  steps: z.number().int(),
+  surfaces: z.array(caseSurface),
+});
+
+export const caseMargins = z.object({
+  heatLoadPercent: num,
+  temperatureMarginC: num,
+  sources: z.object({ heatLoadPercent: z.string(), temperatureMarginC: z.string() }),
+});
+
+export const surfaceDriver = z.object({
+  surface: z.string(),
+  date: z.string(),
+  betaDeg: num,
+  orbitAverageAbsorbedW: num,
+  sameAsCase: z.boolean(),
+  text: z.string(),
+});
+
+export const scanSummary = z.object({
+  startDate: z.string(),
+  endDate: z.string(),
+  days: num,
+  candidates: num,
+  betaMinDeg: num,
+  betaMaxDeg: num,
+  solarDistanceMinAu: num,
+  solarDistanceMaxAu: num,
+  spansFullYear: z.boolean(),
+});
+
+export const caseInputs = z.object({
+  mission: z.object({ id: z.string(), name: z.string(), startDate: z.string(), endDate: z.string(), crewed: z.boolean() }),
+  body: z.object({
+    id: z.enum(bodyIds),
+    name: z.string(),
+    gmKm3S2: num,
+    radiusKm: num,
+    j2: num,
+    solarDistanceAu: z.object({ mean: num, min: num, max: num }),
+    albedo: range,
+    olrWm2: range,
+    provisional: z.boolean(),
+    sources: z.record(z.string(), z.string()),
+  }),
+  orbit: z.object({
+    id: z.string().nullable(),
+    name: z.string(),
+    epoch: z.string(),
+    periapsisAltitudeKm: num,
+    apoapsisAltitudeKm: num,
+    semiMajorAxisKm: num,
+    eccentricity: num,
+    periodS: num,
+    inclinationDeg: num,
+    raanDeg: num,
+    argPeriapsisDeg: num,
+  }),
+  attitude: z.string().describe('how the surfaces are pointed, in words'),
+  conditions: caseConditions,
+  environmentSource: z.string(),
+  provisional: z.boolean().describe('true when a value awaits its published table'),
+  margins: caseMargins,
+  rationale: z.array(z.string()),
+  surfaceDrivers: z.array(surfaceDriver),
+  scan: scanSummary.nullable(),
+  assumptions: z.array(z.string()),
+});
+
+const loadSummary = z.object({
+  solarWm2: num, albedoWm2: num, irWm2: num, solarW: num, albedoW: num, irW: num, absorbedW: num,
+});
+
+export const caseSurfaceResult = z.object({
+  name: z.string(),
+  areaM2: num,
+  absorptivity: num,
+  emissivity: num,
+  series: z.object({
+    solarWm2: z.array(num), albedoWm2: z.array(num), irWm2: z.array(num),
+    solarW: z.array(num), albedoW: z.array(num), irW: z.array(num), absorbedW: z.array(num),
+  }).describe('one value per time step of tS: incident fluxes in W/m^2, absorbed loads in W'),
+  orbitAverage: loadSummary.extend({ absorbedWithMarginW: num }),
+  peak: loadSummary,
+});
+
+export const caseResultsContent = z.object({
+  periodS: num,
+  betaDeg: num,
+  solarFluxWm2: num,
+  eclipseFraction: num.describe('umbra plus half of penumbra, fraction of the period'),
+  eclipseDurationS: num,
+  umbraDurationS: num,
+  penumbraDurationS: num,
+  tS: z.array(num).describe('s from periapsis (from the ascending node for a circular orbit)'),
+  sunlit: z.array(num).describe('1 full sun, 0 umbra'),
+  surfaces: z.array(caseSurfaceResult),
+  total: z.object({ orbitAverageAbsorbedW: num, orbitAverageWithMarginW: num, peakAbsorbedW: num }),
+});
+
+export type CaseKind = (typeof caseKinds)[number];
+export type CaseStatus = (typeof caseStatuses)[number];
+export type CaseInputs = z.infer<typeof caseInputs>;
+export type StoredConditions = z.infer<typeof caseConditions>;
+export type CaseResultsContent = z.infer<typeof caseResultsContent>;
+
+// The physics' shapes must fit the stored ones; these fail to compile if they drift apart.
+/** Stored conditions are what evaluateCase takes (with the orbit in its canonical form). */
+export const asConditions = (c: z.infer<typeof caseConditions>): CaseConditions => c;
+export const asStoredResults = (r: CaseResults): CaseResultsContent => r;
+export const asStoredMargins = (m: Margins): z.infer<typeof caseMargins> => m;
+export const asStoredDriver = (d: SurfaceDriver): z.infer<typeof surfaceDriver> => d;
+export const asStoredScan = (s: ScanSummary): z.infer<typeof scanSummary> => s;

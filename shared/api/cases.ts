@@ -1,0 +1,214 @@
+// Load cases: derive, edit, review, release, compare, subscribe, export (API.md "Other fixed routes").
+// Routes (under /api/v1). Thermal engineers and owners derive, edit, submit and release; every member
+// reads, except that viewers see released and superseded revisions only; another workspace's case is 404.
+//   POST   missions/:id/cases/derive        caseDerive -> 201 {items: [hot, cold]} (both saved as drafts)
+//   POST   missions/:id/cases               caseCreate -> 201 caseDetail (a custom case, draft)
+//   GET    cases?missionId=&status=&kind=   -> {items: caseSummary[]}
+//   GET    cases/:id                        -> caseDetail
+//   PATCH  cases/:id                        caseUpdate -> caseDetail (drafts only; else 409)
+//   POST   cases/:id/submit                 -> caseDetail (draft -> review)
+//   POST   cases/:id/release                -> caseDetail (review -> released; by a thermal engineer or
+//                                              owner other than the author; supersedes the previous release)
+//   POST   cases/:id/revisions              -> 201 caseDetail (a new draft from a released or superseded one)
+//   GET    cases/:id/compare?with=otherId   -> caseComparison
+//   POST   cases/:id/subscription           -> {subscribed: true}    DELETE -> {subscribed: false}
+//   GET    cases/:id/export?format=json|csv -> the case as a file (caseExport for JSON)
+//   GET    schemas/load-case.json           -> the JSON Schema of caseExport
+//   GET    openapi.json                     -> the whole API in OpenAPI 3
+import { z } from 'zod';
+import { caseInputs, caseKinds, caseResultsContent, caseStatuses, propertySetValues } from './case-content';
+import { surfaceNormal } from './missions';
+
+const isoDate = z.iso.date({ message: 'is a date like 2028-03-20' });
+const fraction = (label: string) => z.number({ message: `${label} must be a number` }).min(0, `${label} is 0..1`).max(1, `${label} is 0..1`);
+const name = z.string().trim().min(1, 'give the case a name').max(120, 'a case name has at most 120 characters');
+const steps = z.number().int('steps is a whole number').min(12, 'steps is 12..2000').max(2000, 'steps is 12..2000');
+
+export const marginsInput = z.strictObject({
+  heatLoadPercent: z.number().min(0, 'heatLoadPercent is 0..200').max(200, 'heatLoadPercent is 0..200').optional(),
+  temperatureMarginC: z.number().min(0, 'temperatureMarginC is 0..100').max(100, 'temperatureMarginC is 0..100').optional(),
+});
+
+export const pairInput = z.strictObject({
+  albedo: fraction('albedo'),
+  olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000),
+  source: z.string().trim().min(1).max(300).default('entered by the user, no source given'),
+});
+
+export const caseDerive = z.strictObject({
+  orbitId: z.string().min(1, 'choose an orbit').max(64),
+  /** A name prefix: the cases are called "<name> hot" and "<name> cold". */
+  name: name.optional(),
+  properties: z.strictObject({ hot: z.enum(propertySetValues).default('eol'), cold: z.enum(propertySetValues).default('bol') }).optional(),
+  margins: marginsInput.optional(),
+  environment: z.strictObject({ hot: pairInput.optional(), cold: pairInput.optional() }).optional(),
+  steps: steps.default(120),
+});
+
+export const caseCreate = z.strictObject({
+  orbitId: z.string().min(1, 'choose an orbit').max(64),
+  name,
+  date: isoDate,
+  /** Overrides the beta the date gives. */
+  betaDeg: z.number().min(-90, 'beta is -90..90 deg').max(90, 'beta is -90..90 deg').optional(),
+  solarDistanceAu: z.number().positive('solar distance must be above 0 AU').max(100).optional(),
+  albedo: fraction('albedo').optional(),
+  olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000).optional(),
+  properties: z.enum(propertySetValues).default('bol'),
+  marginDirection: z.enum(['increase', 'decrease']).default('increase'),
+  /** Attitude: surface name -> normal, over the mission's own normals. */
+  normals: z.record(z.string(), surfaceNormal).optional(),
+  attitude: z.string().trim().max(300).optional(),
+  margins: marginsInput.optional(),
+  steps: steps.default(120),
+});
+
+const materialInput = z.strictObject({
+  name: z.string().trim().min(1).max(120),
+  absorptivityBol: fraction('absorptivityBol'),
+  emissivityBol: fraction('emissivityBol'),
+  absorptivityEol: fraction('absorptivityEol'),
+  emissivityEol: fraction('emissivityEol'),
+  source: z.string().trim().max(300).default('entered by the user, no source given'),
+});
+
+export const caseSurfaceInput = z.strictObject({
+  name: z.string().trim().min(1, 'give the surface a name').max(80),
+  normal: surfaceNormal,
+  areaM2: z.number().positive('area must be above 0 m^2').max(10000),
+  material: materialInput,
+});
+
+export const caseUpdate = z.strictObject({
+  name: name.optional(),
+  margins: marginsInput.optional(),
+  inputs: z
+    .strictObject({
+      date: isoDate.optional(),
+      betaDeg: z.number().min(-90, 'beta is -90..90 deg').max(90, 'beta is -90..90 deg').optional(),
+      solarDistanceAu: z.number().positive('solar distance must be above 0 AU').max(100).optional(),
+      albedo: fraction('albedo').optional(),
+      olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000).optional(),
+      properties: z.enum(propertySetValues).optional(),
+      marginDirection: z.enum(['increase', 'decrease']).optional(),
+      steps: steps.optional(),
+      attitude: z.string().trim().max(300).optional(),
+      surfaces: z
+        .array(caseSurfaceInput)
+        .min(1, 'give at least one surface')
+        .max(100)
+        .refine((s) => new Set(s.map((x) => x.name)).size === s.length, { message: 'surface names must be unique' })
+        .optional(),
+    })
+    .optional(),
+});
+
+export const caseListQuery = z.strictObject({
+  missionId: z.string().max(64).optional(),
+  status: z.enum(caseStatuses, { message: `status is one of ${caseStatuses.join(', ')}` }).optional(),
+  kind: z.enum(caseKinds, { message: `kind is one of ${caseKinds.join(', ')}` }).optional(),
+});
+
+export const caseCompareQuery = z.strictObject({ with: z.string().min(1, 'give the id of the case to compare with').max(64) });
+export const caseExportQuery = z.strictObject({ format: z.enum(['json', 'csv'], { message: 'format is json or csv' }).default('json') });
+
+const person = z.object({ id: z.string(), name: z.string(), email: z.string() }).nullable();
+
+export const caseSummary = z.object({
+  id: z.string(),
+  missionId: z.string(),
+  missionName: z.string(),
+  workspaceId: z.string(),
+  seriesId: z.string(),
+  name: z.string(),
+  kind: z.enum(caseKinds),
+  status: z.enum(caseStatuses),
+  revision: z.number().int(),
+  checksum: z.string().nullable(),
+  author: person,
+  releasedBy: person,
+  releasedAt: z.string().nullable(),
+  orbitAverageAbsorbedW: z.number(),
+  betaDeg: z.number(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+
+export const caseDetail = caseSummary.extend({
+  submittedBy: person,
+  submittedAt: z.string().nullable(),
+  subscribed: z.boolean(),
+  caution: z.string(),
+  inputs: caseInputs,
+  results: caseResultsContent,
+});
+
+export const caseList = z.object({ items: z.array(caseSummary) });
+export const derivedCases = z.object({ items: z.array(caseDetail) });
+export const subscriptionState = z.object({ subscribed: z.boolean() });
+
+const compared = z.object({ a: z.number(), b: z.number(), difference: z.number() });
+
+export const caseComparison = z.object({
+  a: caseSummary,
+  b: caseSummary,
+  /** Every input whose value differs (or every scalar one, when `all` is true), by path. */
+  inputs: z.array(z.object({ path: z.string(), a: z.unknown(), b: z.unknown(), changed: z.boolean() })),
+  surfaces: z.array(
+    z.object({
+      name: z.string(),
+      solarW: compared.nullable(),
+      albedoW: compared.nullable(),
+      irW: compared.nullable(),
+      absorbedW: compared.nullable(),
+      peakAbsorbedW: compared.nullable(),
+    }),
+  ),
+  total: z.object({ orbitAverageAbsorbedW: compared }),
+});
+
+/**
+ * The hashed part of an export's metadata: only what never changes once released (people are named
+ * by id here; their names and addresses travel outside the hash, since accounts can be renamed).
+ */
+export const caseExportCase = z.object({
+  id: z.string(),
+  seriesId: z.string(),
+  revision: z.number().int(),
+  name: z.string(),
+  kind: z.enum(caseKinds),
+  missionId: z.string(),
+  workspaceId: z.string(),
+  authorId: z.string().nullable(),
+  releasedById: z.string().nullable(),
+  releasedAt: z.string().nullable(),
+});
+
+export const caseExport = z
+  .object({
+    format: z.literal('eclipta.load-case'),
+    formatVersion: z.literal(1),
+    caution: z.string(),
+    status: z.enum(caseStatuses),
+    checksum: z.string().regex(/^[0-9a-f]{64}$/),
+    checksumMethod: z.string(),
+    exportedAt: z.string(),
+    author: person,
+    releasedBy: person,
+    case: caseExportCase,
+    inputs: caseInputs,
+    results: caseResultsContent,
+  })
+  .describe('An Eclipta load case: metadata, every input with its source, per-surface loads over one orbit');
+
+export type CaseDerive = z.input<typeof caseDerive>;
+export type CaseCreate = z.input<typeof caseCreate>;
+export type CaseDeriveParsed = z.output<typeof caseDerive>;
+export type CaseCreateParsed = z.output<typeof caseCreate>;
+export type CaseUpdateParsed = z.output<typeof caseUpdate>;
+export type CaseUpdate = z.input<typeof caseUpdate>;
+export type CaseSummary = z.infer<typeof caseSummary>;
+export type CaseDetail = z.infer<typeof caseDetail>;
+export type CaseComparison = z.infer<typeof caseComparison>;
+export type CaseExport = z.infer<typeof caseExport>;
+export type CaseExportCase = z.infer<typeof caseExportCase>;

@@ -1,0 +1,110 @@
+// Ephemerides: trajectories uploaded as files (API.md "Other fixed routes"), and the environment
+// computed along them. Uploading and deleting: analyst, thermal, owner; reading: every member;
+// another workspace's mission answers 404.
+//   POST   missions/:id/ephemerides                multipart: file, frame, name, epoch? -> 201 ephemerisSummary
+//            a refused file: 400 {"error": {"code": "invalid_ephemeris", "details": [{row, column, value, message}]}}
+//            (row 1 is the first data row after the header; row 0 the header or the file as a whole)
+//            beyond ECLIPTA_UPLOAD_LIMIT_MB: 413 too_large
+//   GET    missions/:id/ephemerides                -> {items: ephemerisSummary[]}
+//   GET    missions/:id/ephemerides/:ephemerisId   -> ephemerisSummary
+//   GET    missions/:id/ephemerides/:ephemerisId/points?offset=0&limit=1000 -> ephemerisPointsPage
+//   DELETE missions/:id/ephemerides/:ephemerisId   -> 204 (its points go too)
+//   POST   missions/:id/ephemerides/:ephemerisId/environment  trajectoryEnvironmentRequest
+//            -> trajectoryEnvironmentResponse (the mission's surfaces with their materials)
+import { z } from 'zod';
+
+/** Inertial frames accepted, centred on the mission's body; GCRF only for the Earth. */
+export const ephemerisFrames = ['EME2000', 'J2000', 'ICRF', 'GCRF'] as const;
+export type EphemerisFrame = (typeof ephemerisFrames)[number];
+
+export const ephemerisUploadFields = z.strictObject({
+  name: z.string().trim().max(120, 'the name has at most 120 characters').optional(),
+  /** Required for CSV; an OEM file names its own REF_FRAME, which must agree when both are given. */
+  frame: z.string().trim().max(40).optional(),
+  /** The origin of a CSV's `t` column (seconds), ISO 8601 UTC. */
+  epoch: z.iso
+    .datetime({ offset: true, message: 'epoch is an ISO 8601 date and time in UTC, e.g. 2027-03-20T12:00:00Z' })
+    .optional()
+    .or(z.literal('').transform(() => undefined)),
+});
+
+export const ephemerisSummary = z.object({
+  id: z.string(),
+  missionId: z.string(),
+  name: z.string(),
+  frame: z.string(),
+  format: z.enum(['csv', 'oem']),
+  rows: z.number(),
+  startEpoch: z.string(),
+  endEpoch: z.string(),
+  /** Median step between rows, s. */
+  stepS: z.number(),
+  minAltitudeKm: z.number(),
+  maxAltitudeKm: z.number(),
+  hasVelocity: z.boolean(),
+  sha256: z.string(),
+  fileName: z.string(),
+  createdAt: z.string(),
+});
+
+export const ephemerisPointsQuery = z.strictObject({
+  offset: z.coerce.number().int().min(0, 'offset is 0 or more').default(0),
+  limit: z.coerce.number().int().min(1, 'limit is 1..10000').max(10000, 'limit is 1..10000').default(1000),
+});
+
+export const ephemerisPoint = z.object({
+  seq: z.number(),
+  epoch: z.string(),
+  xKm: z.number(),
+  yKm: z.number(),
+  zKm: z.number(),
+  vxKmS: z.number().nullable(),
+  vyKmS: z.number().nullable(),
+  vzKmS: z.number().nullable(),
+});
+
+export const ephemerisPointsPage = z.object({
+  items: z.array(ephemerisPoint),
+  offset: z.number(),
+  limit: z.number(),
+  total: z.number(),
+});
+
+export const trajectoryEnvironmentRequest = z.strictObject({
+  properties: z.enum(['bol', 'eol']).default('bol'),
+  /** Points returned (evenly thinned); the averages always use every row. */
+  maxPoints: z.number().int().min(2, 'maxPoints is 2..20000').max(20000, 'maxPoints is 2..20000').default(2000),
+  albedo: z.number().min(0, 'albedo is 0..1').max(1, 'albedo is 0..1').optional(),
+  olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000).optional(),
+});
+
+const surfaceLoad = z.object({
+  name: z.string(),
+  solarWm2: z.number(),
+  albedoWm2: z.number(),
+  irWm2: z.number(),
+  absorbedW: z.number(),
+});
+
+export const trajectoryEnvironmentResponse = z.object({
+  ephemerisId: z.string(),
+  bodyId: z.string(),
+  properties: z.enum(['bol', 'eol']),
+  albedo: z.number(),
+  olrWm2: z.number(),
+  rows: z.number(),
+  points: z.array(
+    z.object({ epoch: z.string(), altitudeKm: z.number(), sunlit: z.number(), surfaces: z.array(surfaceLoad) }),
+  ),
+  /** Time-weighted over the whole span (trapezoidal), every row. */
+  averages: z.object({ sunlitFraction: z.number(), surfaces: z.array(surfaceLoad) }),
+  peaks: z.object({ surfaces: z.array(surfaceLoad) }),
+  assumptions: z.array(z.string()),
+});
+
+export type EphemerisUploadFields = z.infer<typeof ephemerisUploadFields>;
+export type EphemerisSummary = z.infer<typeof ephemerisSummary>;
+export type EphemerisPoint = z.infer<typeof ephemerisPoint>;
+export type EphemerisPointsPage = z.infer<typeof ephemerisPointsPage>;
+export type TrajectoryEnvironmentRequest = z.input<typeof trajectoryEnvironmentRequest>;
+export type TrajectoryEnvironmentResponse = z.infer<typeof trajectoryEnvironmentResponse>;

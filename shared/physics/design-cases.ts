@@ -1,0 +1,308 @@
+// Hot and cold design cases: from a mission's orbit, date range and surfaces, the combination of
+// Sun distance, paired albedo/OLR, property set and beta that bounds the absorbed heat, for the
+// spacecraft as a whole and for each surface, each choice with the words that say what drove it.
+// Leaves out: dissipation and attitude modes (the thermal model's part), survival cases, and any
+// coupling between parameters: the worst Sun distance and the worst beta are combined even when
+// they fall on different days, the usual conservative practice (DOMAIN.md "Cases" [P, G]).
+import { getBody, solarDistanceRangeAu, type Body, type BodyId } from './bodies';
+import { designPairs, opticalProperties, type CaseMaterial, type EnvironmentPair, type Margins, type PropertySet } from './design-environment';
+import { candidateDays, maxBy, raanOnDateRad, scanMission, type ScanDay } from './design-scan';
+import { computeEnvironment, type EnvironmentResult } from './environment';
+import type { SurfaceNormal } from './heat-loads';
+import { defineOrbit, type OrbitInput } from './orbit-definition';
+import { solarFluxWm2 } from './sun';
+import { DEG } from './vector3';
+
+export interface CaseSurface {
+  name: string;
+  normal: SurfaceNormal;
+  areaM2: number;
+  material: CaseMaterial;
+}
+
+/** Everything one case is computed from; a case's results follow from these alone. */
+export interface CaseConditions {
+  bodyId: BodyId;
+  orbit: OrbitInput;
+  orbitEpoch: string;
+  /** YYYY-MM-DD: sets the node (J2 drift) and the Sun's azimuth; beta and distance are given below. */
+  date: string;
+  betaDeg: number;
+  solarDistanceAu: number;
+  albedo: number;
+  olrWm2: number;
+  properties: PropertySet;
+  /** Hot cases add the heat-load margin, cold cases take it off. */
+  marginDirection: 'increase' | 'decrease';
+  steps: number;
+  surfaces: CaseSurface[];
+}
+
+export interface LoadSummary {
+  solarWm2: number;
+  albedoWm2: number;
+  irWm2: number;
+  solarW: number;
+  albedoW: number;
+  irW: number;
+  absorbedW: number;
+}
+
+export interface CaseSurfaceResult {
+  name: string;
+  areaM2: number;
+  absorptivity: number;
+  emissivity: number;
+  series: { solarWm2: number[]; albedoWm2: number[]; irWm2: number[]; solarW: number[]; albedoW: number[]; irW: number[]; absorbedW: number[] };
+  orbitAverage: LoadSummary & { absorbedWithMarginW: number };
+  peak: LoadSummary;
+}
+
+export interface CaseResults {
+  periodS: number;
+  betaDeg: number;
+  solarFluxWm2: number;
+  eclipseFraction: number;
+  eclipseDurationS: number;
+  umbraDurationS: number;
+  penumbraDurationS: number;
+  tS: number[];
+  sunlit: number[];
+  surfaces: CaseSurfaceResult[];
+  total: { orbitAverageAbsorbedW: number; orbitAverageWithMarginW: number; peakAbsorbedW: number };
+}
+
+const round = (x: number, digits = 4): number => {
+  const k = 10 ** digits;
+  const r = Math.round(x * k) / k;
+  return Object.is(r, -0) ? 0 : r;
+};
+
+const noonOf = (date: string): Date => new Date(`${date}T12:00:00Z`);
+
+function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
+  const body = getBody(c.bodyId);
+  const orbit = defineOrbit(c.orbit, body);
+  const at = noonOf(c.date);
+  const raanDeg = raanOnDateRad(orbit, new Date(c.orbitEpoch), at) / DEG;
+  return computeEnvironment({
+    bodyId: c.bodyId,
+    orbit: { ...c.orbit, raanDeg: ((raanDeg % 360) + 360) % 360 },
+    epoch: at.toISOString(),
+    betaDeg: c.betaDeg,
+    solarDistanceAu: c.solarDistanceAu,
+    albedo: c.albedo,
+    olrWm2: c.olrWm2,
+    steps,
+    surfaces: c.surfaces.map((s) => ({ name: s.name, normal: s.normal, areaM2: s.areaM2, ...opticalProperties(s.material, c.properties) })),
+  });
+}
+
+/** A case's results: per-surface time series of incident (W/m^2) and absorbed (W) loads, orbit averages and peaks. */
+export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
+  const env = environmentFor(c, c.steps);
+  const factor = c.marginDirection === 'increase' ? 1 + margins.heatLoadPercent / 100 : 1 - margins.heatLoadPercent / 100;
+  const surfaces = c.surfaces.map((s, i): CaseSurfaceResult => {
+    const { absorptivity, emissivity } = opticalProperties(s.material, c.properties);
+    const loads = env.profile.map((p) => p.surfaces[i]!);
+    const watts = (w: { solarWm2: number; albedoWm2: number; irWm2: number }) => ({
+      solarW: s.areaM2 * absorptivity * w.solarWm2,
+      albedoW: s.areaM2 * absorptivity * w.albedoWm2,
+      irW: s.areaM2 * emissivity * w.irWm2,
+    });
+    const perStep = loads.map((l) => ({ ...l, ...watts(l) }));
+    const mean = (pick: (x: (typeof perStep)[number]) => number) => perStep.reduce((sum, x) => sum + pick(x), 0) / perStep.length;
+    const peakOf = (pick: (x: (typeof perStep)[number]) => number) => Math.max(...perStep.map(pick));
+    const summary = (f: typeof mean): LoadSummary => ({
+      solarWm2: round(f((x) => x.solarWm2)), albedoWm2: round(f((x) => x.albedoWm2)), irWm2: round(f((x) => x.irWm2)),
+      solarW: round(f((x) => x.solarW)), albedoW: round(f((x) => x.albedoW)), irW: round(f((x) => x.irW)),
+      absorbedW: round(f((x) => x.absorbedW)),
+    });
+    const orbitAverage = summary(mean);
+    return {
+      name: s.name, areaM2: s.areaM2, absorptivity, emissivity,
+      series: {
+        solarWm2: perStep.map((x) => round(x.solarWm2)), albedoWm2: perStep.map((x) => round(x.albedoWm2)), irWm2: perStep.map((x) => round(x.irWm2)),
+        solarW: perStep.map((x) => round(x.solarW)), albedoW: perStep.map((x) => round(x.albedoW)), irW: perStep.map((x) => round(x.irW)),
+        absorbedW: perStep.map((x) => round(x.absorbedW)),
+      },
+      orbitAverage: { ...orbitAverage, absorbedWithMarginW: round(orbitAverage.absorbedW * factor) },
+      peak: summary(peakOf),
+    };
+  });
+  const totalSeries = env.profile.map((p) => p.surfaces.reduce((sum, l) => sum + l.absorbedW, 0));
+  const totalAverage = surfaces.reduce((sum, s) => sum + s.orbitAverage.absorbedW, 0);
+  return {
+    periodS: round(env.periodS, 3),
+    betaDeg: round(env.betaDeg, 4),
+    solarFluxWm2: round(env.solarFluxWm2, 3),
+    eclipseFraction: round(env.eclipseFraction, 5),
+    eclipseDurationS: round(env.eclipseDurationS, 1),
+    umbraDurationS: round(env.umbraDurationS, 1),
+    penumbraDurationS: round(env.penumbraDurationS, 1),
+    tS: env.profile.map((p) => round(p.tS, 3)),
+    sunlit: env.profile.map((p) => round(p.sunlit, 5)),
+    surfaces,
+    total: { orbitAverageAbsorbedW: round(totalAverage), orbitAverageWithMarginW: round(totalAverage * factor), peakAbsorbedW: round(Math.max(...totalSeries)) },
+  };
+}
+
+export interface DerivationInput {
+  bodyId: BodyId;
+  orbit: OrbitInput;
+  orbitEpoch: string;
+  startDate: string;
+  endDate: string;
+  surfaces: CaseSurface[];
+  margins: Margins;
+  properties?: { hot?: PropertySet | undefined; cold?: PropertySet | undefined } | undefined;
+  /** The user's own pairs (e.g. transcribed from NASA/TM-2001-211221) over the catalogue's. */
+  environment?: { hot?: EnvironmentPair | undefined; cold?: EnvironmentPair | undefined } | undefined;
+  steps?: number | undefined;
+}
+
+/** What made one surface hottest (or coldest), when that differs from the spacecraft's case. */
+export interface SurfaceDriver {
+  surface: string;
+  date: string;
+  betaDeg: number;
+  orbitAverageAbsorbedW: number;
+  sameAsCase: boolean;
+  text: string;
+}
+
+export interface DerivedCase {
+  kind: 'hot' | 'cold';
+  conditions: CaseConditions;
+  environmentSource: string;
+  provisional: boolean;
+  rationale: string[];
+  surfaceDrivers: SurfaceDriver[];
+  results: CaseResults;
+}
+
+export interface ScanSummary {
+  startDate: string;
+  endDate: string;
+  days: number;
+  candidates: number;
+  betaMinDeg: number;
+  betaMaxDeg: number;
+  solarDistanceMinAu: number;
+  solarDistanceMaxAu: number;
+  spansFullYear: boolean;
+}
+
+export interface Derivation {
+  hot: DerivedCase;
+  cold: DerivedCase;
+  scan: ScanSummary;
+}
+
+const SCAN_STEPS = 72;
+// Formats for the rationale; never "-0.0".
+const f = (x: number, digits = 1): string => {
+  const text = x.toFixed(digits);
+  return Number(text) === 0 ? (0).toFixed(digits) : text;
+};
+const minutes = (s: number) => `${f(s / 60)} min`;
+
+interface Evaluated {
+  day: ScanDay;
+  env: EnvironmentResult;
+  total: number;
+}
+
+/** The hot and the cold case of a mission (DOMAIN.md "Cases"). */
+export function deriveDesignCases(input: DerivationInput): Derivation {
+  const body = getBody(input.bodyId);
+  const orbit = defineOrbit(input.orbit, body);
+  const scan = scanMission(body, orbit, new Date(input.orbitEpoch), input.startDate, input.endDate);
+  const candidates = candidateDays(scan);
+  const spanDays = Math.round((noonOf(input.endDate).getTime() - noonOf(input.startDate).getTime()) / 86_400_000) + 1;
+  const spansFullYear = spanDays >= body.solarYearDays;
+  const pairs = designPairs(body, orbit.inclinationRad / DEG);
+  const summary: ScanSummary = {
+    startDate: input.startDate, endDate: input.endDate, days: scan.length, candidates: candidates.length,
+    betaMinDeg: round(Math.min(...scan.map((d) => d.betaDeg)), 3), betaMaxDeg: round(Math.max(...scan.map((d) => d.betaDeg)), 3),
+    solarDistanceMinAu: round(Math.min(...scan.map((d) => d.solarDistanceAu)), 6),
+    solarDistanceMaxAu: round(Math.max(...scan.map((d) => d.solarDistanceAu)), 6),
+    spansFullYear,
+  };
+  const one = (kind: 'hot' | 'cold'): DerivedCase =>
+    deriveOne(kind, input, body, scan, candidates, spansFullYear, input.environment?.[kind] ?? pairs[kind]);
+  return { hot: one('hot'), cold: one('cold'), scan: summary };
+}
+
+function deriveOne(
+  kind: 'hot' | 'cold', input: DerivationInput, body: Body, scan: ScanDay[], candidates: ScanDay[], spansFullYear: boolean, pair: EnvironmentPair,
+): DerivedCase {
+  const hot = kind === 'hot';
+  const sign = hot ? 1 : -1;
+  const properties = input.properties?.[kind] ?? (hot ? 'eol' : 'bol');
+  // Sun distance: the closest (hot) or farthest (cold) day of the mission, or the body's
+  // perihelion/aphelion when the mission spans a whole orbit of the body about the Sun.
+  const sunDay = maxBy(scan, (d) => -sign * d.solarDistanceAu);
+  const range = solarDistanceRangeAu(body);
+  const distanceAu = spansFullYear ? (hot ? range.min : range.max) : sunDay.solarDistanceAu;
+  const where = spansFullYear
+    ? `${hot ? 'perihelion' : 'aphelion'} a(1 ${hot ? '-' : '+'} e) of ${body.name}'s orbit, reached near ${sunDay.date}`
+    : `the ${hot ? 'closest' : 'farthest'} the mission comes to the Sun, ${sunDay.date}`;
+
+  const base = (day: ScanDay, steps: number): CaseConditions => ({
+    bodyId: input.bodyId, orbit: input.orbit, orbitEpoch: input.orbitEpoch, date: day.date, betaDeg: day.betaDeg,
+    solarDistanceAu: distanceAu, albedo: pair.albedo, olrWm2: pair.olrWm2, properties,
+    marginDirection: hot ? 'increase' : 'decrease', steps, surfaces: input.surfaces,
+  });
+  const evaluated: Evaluated[] = candidates.map((day) => {
+    const env = environmentFor(base(day, SCAN_STEPS), SCAN_STEPS);
+    return { day, env, total: env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0) };
+  });
+  const chosen = maxBy(evaluated, (e) => sign * e.total);
+  // Hot: the least eclipse (ties to the largest |beta|); cold: the longest eclipse (smallest |beta|).
+  const eclipseExtreme = maxBy(evaluated, (e) => -sign * e.env.eclipseDurationS * 1e3 + sign * Math.abs(e.day.betaDeg) * 1e-3);
+  const conditions = base(chosen.day, input.steps ?? 120);
+  const results = evaluateCase(conditions, input.margins);
+
+  const rationale = [
+    `solar flux ${f(solarFluxWm2(distanceAu), 0)} W/m^2 at ${f(distanceAu, 4)} AU (${where}; TSI 1361 W/m^2 at 1 AU, inverse square)`,
+    betaReason(hot, chosen, eclipseExtreme),
+    `albedo ${f(pair.albedo, 2)} with OLR ${f(pair.olrWm2, 0)} W/m^2: the ${kind} pair (${pair.source})`,
+    ...materialReasons(input.surfaces, properties),
+    `heat loads ${hot ? '+' : '-'}${input.margins.heatLoadPercent} % (${input.margins.sources.heatLoadPercent}); temperature margin ${input.margins.temperatureMarginC} C (${input.margins.sources.temperatureMarginC})`,
+  ];
+  const surfaceDrivers = input.surfaces.map((s, i): SurfaceDriver => {
+    const best = maxBy(evaluated, (e) => sign * e.env.orbitAverage.surfaces[i]!.absorbedW);
+    const w = best.env.orbitAverage.surfaces[i]!.absorbedW;
+    const caseW = chosen.env.orbitAverage.surfaces[i]!.absorbedW;
+    const sameAsCase = best.day.date === chosen.day.date;
+    const text = sameAsCase
+      ? `${s.name}: ${hot ? 'hottest' : 'coldest'} in the spacecraft's case (beta ${f(best.day.betaDeg)} deg, ${f(w)} W orbit-average absorbed)`
+      : `${s.name}: ${hot ? 'hottest' : 'coldest'} at beta ${f(best.day.betaDeg)} deg on ${best.day.date} (${f(w)} W orbit-average absorbed; the spacecraft's case gives it ${f(caseW)} W)`;
+    return { surface: s.name, date: best.day.date, betaDeg: round(best.day.betaDeg, 3), orbitAverageAbsorbedW: round(w), sameAsCase, text };
+  });
+  return { kind, conditions, environmentSource: pair.source, provisional: pair.provisional, rationale, surfaceDrivers, results };
+}
+
+function betaReason(hot: boolean, chosen: Evaluated, extreme: Evaluated): string {
+  const eclipse = (e: Evaluated) => minutes(e.env.eclipseDurationS);
+  const load = `${hot ? 'largest' : 'smallest'} total orbit-average absorbed load (${f(chosen.total)} W)`;
+  const which = hot ? 'shortest' : 'longest';
+  if (chosen.day.date === extreme.day.date || Math.abs(chosen.env.eclipseDurationS - extreme.env.eclipseDurationS) < 1) {
+    return `beta ${f(chosen.day.betaDeg)} deg on ${chosen.day.date} gives the ${which} eclipse (${eclipse(chosen)}) and the ${load}`;
+  }
+  return (
+    `beta ${f(chosen.day.betaDeg)} deg on ${chosen.day.date} gives the ${load} with an eclipse of ${eclipse(chosen)}; ` +
+    `the ${which} eclipse (${eclipse(extreme)}, beta ${f(extreme.day.betaDeg)} deg on ${extreme.day.date}) gives ${f(extreme.total)} W`
+  );
+}
+
+function materialReasons(surfaces: CaseSurface[], set: PropertySet): string[] {
+  const seen = new Map<string, CaseMaterial>();
+  for (const s of surfaces) seen.set(s.material.name, s.material);
+  const label = set.toUpperCase();
+  return [...seen.values()].map((m) => {
+    const p = opticalProperties(m, set);
+    return `${label} absorptivity ${f(p.absorptivity, 2)} and emissivity ${f(p.emissivity, 2)} for ${m.name} (${m.source})`;
+  });
+}

@@ -1,0 +1,240 @@
+// The lumped-node thermal model: what a model holds (nodes, couplings, heaters, coolant loops) and
+// what a solve answers. Plain JSON-able data, so a mission can save a model as it is posted to
+// POST /api/v1/thermal/solve (API.md "Thermal solve"); the solver is in thermal-solver.ts.
+// Temperatures cross this boundary in degrees Celsius; the solver works in kelvin inside.
+
+/** A value constant over the orbit, or one value per sample (`steps` of them, evenly spaced in time). */
+export type OrbitSeries = number | readonly number[];
+
+/** Internal dissipation switched on and off with its own period; the cycle restarts each orbit. */
+export interface DissipationSchedule {
+  onW: number;
+  /** Dissipation while off; 0 when not given. */
+  offW?: number;
+  periodS: number;
+  /** Time on in each period. */
+  onS: number;
+  /** When in the period the unit switches on, from the orbit start. */
+  phaseS?: number;
+}
+
+export interface ThermalNodeInput {
+  name: string;
+  /** Thermal capacitance; or give massKg and specificHeatJKgK. Boundary nodes need neither. */
+  capacitanceJK?: number;
+  massKg?: number;
+  specificHeatJKgK?: number;
+  initialC: number;
+  dissipationW?: OrbitSeries | DissipationSchedule;
+  /** The case's environmental load absorbed by the node's surfaces. */
+  absorbedW?: OrbitSeries;
+  /** Area radiating to the sink (deep space at 0 K unless sinkC). */
+  radiatorAreaM2?: number;
+  emissivity?: number;
+  sinkC?: number;
+  /** A boundary held at this temperature. */
+  fixedC?: number;
+  /** Operating limits. */
+  minC?: number;
+  maxC?: number;
+  survivalMinC?: number;
+  survivalMaxC?: number;
+}
+
+export interface ConductiveCoupling {
+  from: string;
+  to: string;
+  conductanceWK: number;
+}
+
+/** Radiative exchange sigma * areaM2 * effectiveEmissivity * viewFactor * (T_from^4 - T_to^4). */
+export interface RadiativeCoupling {
+  from: string;
+  to: string;
+  areaM2: number;
+  effectiveEmissivity: number;
+  viewFactor: number;
+}
+
+/** The heater's resistance is fixed, so its power goes with the square of the bus voltage (P = V^2/R). */
+export interface BusVoltage {
+  nominalV: number;
+  minV: number;
+  maxV: number;
+}
+
+export type HeaterControl = 'thermostat' | 'pi';
+
+export interface HeaterInput {
+  name?: string;
+  node: string;
+  /** Installed power at the nominal bus voltage. */
+  powerW: number;
+  control?: HeaterControl;
+  /** Thermostat: on at or below onC, off at or above offC. */
+  onC?: number;
+  offC?: number;
+  /** Proportional-integral control: the set point and gains (defaults in thermal-controllers.ts). */
+  setPointC?: number;
+  proportionalWK?: number;
+  integralWKs?: number;
+  busVoltage?: BusVoltage;
+}
+
+/**
+ * A pumped loop: each of its nodes gives the coolant effectiveness * flow * c_p * (T_node - T_inlet)
+ * (each node's cold plate sees the loop's flow at the inlet temperature). The flow is set by a
+ * proportional-integral controller holding the control node at the set point.
+ */
+export interface CoolantLoopInput {
+  name: string;
+  nodes: readonly string[];
+  inletC: number;
+  specificHeatJKgK: number;
+  effectiveness?: number;
+  setPointC: number;
+  /** The node whose temperature the flow controller holds; the loop's first node when not given. */
+  controlNode?: string;
+  minFlowKgS: number;
+  maxFlowKgS: number;
+  nominalFlowKgS: number;
+  proportionalKgSK?: number;
+  integralKgSKs?: number;
+}
+
+export interface ThermalMargins {
+  /** Added to the minimum and taken from the maximum of the operating limits. */
+  operatingK?: number;
+  survivalK?: number;
+}
+
+export interface ThermalModelInput {
+  periodS: number;
+  steps: number;
+  nodes: readonly ThermalNodeInput[];
+  couplings?: readonly ConductiveCoupling[];
+  radiativeCouplings?: readonly RadiativeCoupling[];
+  heaters?: readonly HeaterInput[];
+  loops?: readonly CoolantLoopInput[];
+  margins?: ThermalMargins;
+}
+
+export interface ThermalSolveOptions {
+  /** Periodic steady state: the largest change of any node over one orbit, K. */
+  toleranceK?: number;
+  maxOrbits?: number;
+  /** Integration steps per sample; more for stiff or fast-switching models. */
+  substeps?: number;
+  /**
+   * 'orbit-average' starts from the steady state of the orbit-averaged loads (few orbits to go);
+   * 'initial' starts every node at its initialC, as a test from cold would.
+   */
+  start?: 'orbit-average' | 'initial';
+  /** Extrapolate the orbit map (Anderson acceleration) to reach the periodic state in fewer orbits; on by default. */
+  accelerate?: boolean;
+}
+
+export type ThermalSolveInput = ThermalModelInput & ThermalSolveOptions;
+
+export interface LimitCheck {
+  kind: 'operating' | 'survival';
+  minC: number | null;
+  maxC: number | null;
+  marginK: number;
+  /** Predicted minus (limit plus margin): negative means the prediction breaks the limit. */
+  coldMarginK: number | null;
+  hotMarginK: number | null;
+  pass: boolean;
+}
+
+export interface NodeResult {
+  name: string;
+  minC: number;
+  maxC: number;
+  meanC: number;
+  temperaturesC: number[];
+  limits: LimitCheck[];
+}
+
+export interface HeaterVoltageResult {
+  voltageV: number;
+  powerW: number;
+  dutyCycle: number;
+  orbitAverageW: number;
+  peakW: number;
+  /** The coldest its node gets at this voltage. */
+  nodeMinC: number;
+}
+
+export interface HeaterResult {
+  name: string;
+  node: string;
+  dutyCycle: number;
+  orbitAverageW: number;
+  peakW: number;
+  /** Heater power over the orbit, one value per sample (the mean over the sample's interval). */
+  powerW: number[];
+  atMinVoltage?: HeaterVoltageResult;
+  atMaxVoltage?: HeaterVoltageResult;
+}
+
+export interface LoopResult {
+  name: string;
+  flowKgS: number[];
+  averageFlowKgS: number;
+  nominalFlowKgS: number;
+  averageToNominal: number;
+  heatRemovedW: number;
+}
+
+export interface ThermalSolveResult {
+  converged: true;
+  orbits: number;
+  /**
+   * 1 when the answer repeats every orbit; p when a thermostat's cycle repeats only every p orbits;
+   * 0 when it never locks to the orbit and the figures are averages over averagedOrbits orbits.
+   */
+  periodOrbits: number;
+  /** Orbits that minC, maxC, meanC, duty cycles and powers are taken over. */
+  averagedOrbits: number;
+  residualK: number;
+  tS: number[];
+  nodes: NodeResult[];
+  heaters: HeaterResult[];
+  loops: LoopResult[];
+  pass: boolean;
+  assumptions: string[];
+}
+
+/** MIL-STD-1540 temperature margins, K [S: Gilmore, Spacecraft Thermal Control Handbook, Ch. 19]. */
+export const MARGIN_CORRELATED_PASSIVE_K = 11;
+export const MARGIN_UNCORRELATED_K = 17;
+/** Heater sizing: duty cycle at most 70-80 % at minimum bus voltage [M: DOMAIN.md]; the middle of that. */
+export const DEFAULT_MAX_HEATER_DUTY = 0.75;
+export const DEFAULT_TOLERANCE_K = 0.01;
+export const DEFAULT_MAX_ORBITS = 200;
+
+export const KELVIN_OFFSET = 273.15;
+
+/** The solver gave up: the orbit did not repeat, or a step's iteration did not settle. */
+export class ThermalConvergenceError extends Error {
+  override readonly name = 'ThermalConvergenceError';
+  constructor(
+    message: string,
+    readonly orbits: number,
+    readonly residualK: number,
+  ) {
+    super(message);
+  }
+}
+
+/** The model cannot be what was asked: an unknown node, a radiator no area can make cool enough. */
+export class ThermalModelError extends Error {
+  override readonly name = 'ThermalModelError';
+  constructor(
+    message: string,
+    readonly path: string,
+  ) {
+    super(message);
+  }
+}

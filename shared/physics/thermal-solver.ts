@@ -1,0 +1,104 @@
+// One case's answer from a lumped-node model: the periodic steady state at the nominal bus voltage,
+// and, for heaters that name a bus range, again at its minimum and maximum (a heater's power goes
+// with V^2, so the cold case at minimum voltage is where a heater runs longest).
+// Pass/fail takes the coldest prediction of all the runs against the minimum limits and the hottest
+// against the maximum limits.
+import { checkLimits } from './thermal-limits';
+import { KELVIN_OFFSET, type HeaterResult, type HeaterVoltageResult, type NodeResult, type ThermalSolveInput, type ThermalSolveResult } from './thermal-model';
+import { buildNetwork, type ThermalNetwork } from './thermal-network';
+import { runPeriodic, type PeriodicRun } from './thermal-periodic';
+
+const toC = (k: number) => k - KELVIN_OFFSET;
+const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
+
+export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
+  const net = buildNetwork(input, input.substeps ?? 1);
+  const heaters = input.heaters ?? [];
+  const base = runPeriodic(input, net, heaters.map(() => 1), input);
+  const withBus = heaters.some((h) => h.busVoltage);
+  const scaleAt = (pick: 'minV' | 'maxV') => heaters.map((h) => (h.busVoltage ? (h.busVoltage[pick] / h.busVoltage.nominalV) ** 2 : 1));
+  const cold = withBus ? runPeriodic(input, net, scaleAt('minV'), input) : null;
+  const hot = withBus ? runPeriodic(input, net, scaleAt('maxV'), input) : null;
+
+  const nodes = input.nodes.map((node, i): NodeResult => {
+    const free = net.freeOfNode[i];
+    if (free < 0) {
+      const c = node.fixedC ?? 0;
+      return { name: node.name, minC: c, maxC: c, meanC: c, temperaturesC: new Array<number>(input.steps).fill(c), limits: checkLimits(node, c, c, input.margins) };
+    }
+    const minC = toC(Math.min(base.minK[free], cold?.minK[free] ?? Infinity, hot?.minK[free] ?? Infinity));
+    const maxC = toC(Math.max(base.maxK[free], cold?.maxK[free] ?? -Infinity, hot?.maxK[free] ?? -Infinity));
+    return {
+      name: node.name,
+      minC: round(toC(base.minK[free])),
+      maxC: round(toC(base.maxK[free])),
+      meanC: round(toC(base.meanK[free])),
+      temperaturesC: Array.from(base.samplesK[free], (k) => round(toC(k))),
+      limits: checkLimits(node, minC, maxC, input.margins),
+    };
+  });
+
+  const voltageResult = (run: PeriodicRun, k: number, voltageV: number, free: number): HeaterVoltageResult => ({
+    voltageV,
+    powerW: round(run.heaterInstalledW[k]),
+    dutyCycle: round(run.heaterDuty[k]),
+    orbitAverageW: round(run.heaterAverageW[k]),
+    peakW: round(run.heaterPeakW[k]),
+    nodeMinC: round(toC(run.minK[free])),
+  });
+  const heaterResults = heaters.map((h, k): HeaterResult => {
+    const free = net.freeOfNode[input.nodes.findIndex((node) => node.name === h.node)];
+    return {
+      name: h.name ?? `${h.node} heater`,
+      node: h.node,
+      dutyCycle: round(base.heaterDuty[k]),
+      orbitAverageW: round(base.heaterAverageW[k]),
+      peakW: round(base.heaterPeakW[k]),
+      powerW: Array.from(base.heaterSamplesW[k], (w) => round(w)),
+      ...(h.busVoltage && cold && hot
+        ? { atMinVoltage: voltageResult(cold, k, h.busVoltage.minV, free), atMaxVoltage: voltageResult(hot, k, h.busVoltage.maxV, free) }
+        : {}),
+    };
+  });
+
+  const loops = (input.loops ?? []).map((loop, k) => ({
+    name: loop.name,
+    flowKgS: Array.from(base.loopSamplesKgS[k], (f) => round(f, 6)),
+    averageFlowKgS: round(base.loopAverageKgS[k], 6),
+    nominalFlowKgS: loop.nominalFlowKgS,
+    averageToNominal: round(base.loopAverageKgS[k] / loop.nominalFlowKgS),
+    heatRemovedW: round(base.loopHeatW[k]),
+  }));
+
+  return {
+    converged: true,
+    orbits: Math.max(base.orbits, cold?.orbits ?? 0, hot?.orbits ?? 0),
+    periodOrbits: base.periodOrbits,
+    averagedOrbits: base.averagedOrbits,
+    residualK: round(base.residualK, 6),
+    tS: Array.from({ length: input.steps }, (_, s) => round((s * input.periodS) / input.steps, 3)),
+    nodes,
+    heaters: heaterResults,
+    loops,
+    pass: nodes.every((node) => node.limits.every((l) => l.pass)),
+    assumptions: assumptions(input, net, withBus),
+  };
+}
+
+function assumptions(input: ThermalSolveInput, net: ThermalNetwork, withBus: boolean): string[] {
+  const list = [
+    `Periodic steady state: orbits repeated until no node changes by more than ${input.toleranceK ?? 0.01} K over an orbit.`,
+    `Implicit BDF2 steps of ${round(net.dtS, 2)} s; loads between samples interpolated linearly; heaters and loop flows set at the start of each step.`,
+    'Radiators see deep space at 0 K unless a sink temperature is given.',
+  ];
+  if (net.n && input.heaters?.some((h) => (h.control ?? 'thermostat') === 'thermostat')) {
+    list.push('Thermostat cycles that do not repeat with the orbit are judged by their averages over 24 orbits.');
+  }
+  if (withBus) list.push('Heater power scales with the square of the bus voltage; pass/fail uses the coldest and hottest of the nominal, minimum and maximum voltage runs.');
+  if ((input.loops ?? []).length) list.push("Each loop node's cold plate sees the loop's flow at the inlet temperature: effectiveness x flow x c_p x (T_node - T_inlet).");
+  const m = input.margins;
+  list.push(m && (m.operatingK || m.survivalK)
+    ? `Limits checked with margins of ${m.operatingK ?? 0} K (operating) and ${m.survivalK ?? 0} K (survival).`
+    : 'Limits checked with no margin; MIL-STD-1540 uses 11 K for a correlated passive model and 17 K before correlation (Gilmore Ch. 19).');
+  return list;
+}

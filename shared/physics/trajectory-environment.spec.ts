@@ -1,0 +1,87 @@
+import { describe, expect, it } from 'vitest';
+import { getBody } from './bodies';
+import { defineOrbit } from './orbit-definition';
+import { orbitSampler } from './orbit-position';
+import { PhysicsError } from './physics-error';
+import { solarFluxWm2, sunFromBody } from './sun';
+import { trajectoryEnvironment, type TrajectorySample } from './trajectory-environment';
+import { scale, type Vector3 } from './vector3';
+import type { Surface } from './heat-loads';
+
+const earth = getBody('earth');
+const t0 = Date.parse('2027-06-21T00:00:00Z');
+const panels: Surface[] = [
+  { name: 'nadir', normal: 'nadir', areaM2: 1, absorptivity: 0.3, emissivity: 0.8 },
+  { name: 'zenith', normal: 'zenith', areaM2: 1, absorptivity: 0.3, emissivity: 0.8 },
+  { name: 'ram', normal: 'ram', areaM2: 1, absorptivity: 0.3, emissivity: 0.8 },
+  { name: 'normal', normal: 'orbit-normal', areaM2: 1, absorptivity: 0.3, emissivity: 0.8 },
+];
+
+/** A 700 km circular orbit every stepS for one period, with exact velocities (v = dr/dt of the sampler). */
+function circularSamples(stepS: number, withVelocity: boolean): TrajectorySample[] {
+  const orbit = defineOrbit({ periapsisAltitudeKm: 700, apoapsisAltitudeKm: 700, inclinationDeg: 51.6, raanDeg: 40 }, earth);
+  const at = orbitSampler(orbit);
+  const speed = Math.sqrt(earth.gmKm3S2 / orbit.semiMajorAxisKm);
+  const samples: TrajectorySample[] = [];
+  for (let t = 0; t <= orbit.periodS; t += stepS) {
+    const s = at(t);
+    samples.push({ tMs: t0 + t * 1000, positionKm: s.positionKm, velocityKmS: withVelocity ? scale(s.ram, speed) : null });
+  }
+  return samples;
+}
+
+describe('trajectoryEnvironment', () => {
+  it('a nadir plate sees OLR (R/r)^2 of IR at every point (Howell catalogue, plate facing the sphere)', () => {
+    const result = trajectoryEnvironment(circularSamples(60, true), { body: earth, surfaces: panels });
+    const f = (earth.radiusKm / (earth.radiusKm + 700)) ** 2;
+    for (const p of result.points) {
+      expect(p.altitudeKm).toBeCloseTo(700, 6);
+      expect(p.surfaces[0].irWm2).toBeCloseTo(earth.olrWm2.nominal * f, 9);
+      // a zenith plate faces away from the whole sphere at this altitude: no IR, no albedo
+      expect(p.surfaces[1].irWm2).toBe(0);
+      expect(p.surfaces[1].albedoWm2).toBe(0);
+    }
+  });
+
+  it('finite-difference velocities give the loads of exact ones within 0.5 % (10 s steps; common practice, no source)', () => {
+    const exact = trajectoryEnvironment(circularSamples(10, true), { body: earth, surfaces: panels });
+    const differenced = trajectoryEnvironment(circularSamples(10, false), { body: earth, surfaces: panels });
+    exact.averages.surfaces.forEach((l, i) => {
+      const d = differenced.averages.surfaces[i];
+      expect(Math.abs(d.absorbedW - l.absorbedW) / l.absorbedW, l.name).toBeLessThan(0.005);
+    });
+  });
+
+  it('full Sun on the sunward side, umbra straight behind the body (shadow geometry)', () => {
+    const sun = sunFromBody(earth, new Date(t0));
+    const r = earth.radiusKm + 700;
+    const along = (sign: number, dtS: number): TrajectorySample => {
+      const position = scale(sun.directionIcrf, sign * r);
+      // moving perpendicular to the Sun line, so zenith is along the Sun line
+      const perpendicular: Vector3 = [-sun.directionIcrf[1], sun.directionIcrf[0], 0];
+      return { tMs: t0 + dtS * 1000, positionKm: position, velocityKmS: scale(perpendicular, 7.5 / Math.hypot(...perpendicular)) };
+    };
+    const sunward = trajectoryEnvironment([along(1, 0), along(1, 1)], { body: earth, surfaces: panels });
+    expect(sunward.points[0].sunlit).toBe(1);
+    // zenith plate faces the Sun: S at the epoch's distance, cos 0
+    expect(sunward.points[0].surfaces[1].solarWm2).toBeCloseTo(solarFluxWm2(sun.distanceAu), 6);
+    const behind = trajectoryEnvironment([along(-1, 0), along(-1, 1)], { body: earth, surfaces: panels });
+    expect(behind.points[0].sunlit).toBe(0);
+    expect(behind.points[0].surfaces.every((l) => l.solarWm2 === 0 && l.albedoWm2 === 0)).toBe(true);
+    expect(behind.averages.sunlitFraction).toBe(0);
+  });
+
+  it('weights averages by time: a long interval counts for more (trapezoidal rule)', () => {
+    const samples = circularSamples(60, true);
+    // keep rows 0, 1 and 50: the 49-step gap outweighs the single step
+    const uneven = [samples[0], samples[1], samples[50]];
+    const result = trajectoryEnvironment(uneven, { body: earth, surfaces: panels });
+    const loads = result.points.map((p) => p.surfaces[2].absorbedW);
+    const expected = (loads[0] * 30 + loads[1] * (30 + 49 * 30) + loads[2] * 49 * 30) / (50 * 60);
+    expect(result.averages.surfaces[2].absorbedW).toBeCloseTo(expected, 9);
+  });
+
+  it('refuses a trajectory of one point', () => {
+    expect(() => trajectoryEnvironment(circularSamples(60, true).slice(0, 1), { body: earth, surfaces: panels })).toThrow(PhysicsError);
+  });
+});

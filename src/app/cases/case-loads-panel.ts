@@ -1,0 +1,31 @@
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
+import { MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatOption, MatSelect } from '@angular/material/select';
+import type { CaseResultsContent } from '../../../shared/api/case-content';
+import { TimeSeriesPlot } from '../plots/time-series-plot';
+import { WHOLE_SPACECRAFT, absorbedSeries, eclipseBands, incidentSeries } from './case-plots';
+
+/** The case's loads around the orbit for a chosen surface (or all), and the table of orbit averages and peaks. */
+@Component({
+  selector: 'ecl-case-loads',
+  imports: [DecimalPipe, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot],
+  templateUrl: './case-loads-panel.html',
+  styleUrl: './case-loads-panel.css',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CaseLoadsPanel {
+  readonly results = input.required<CaseResultsContent>();
+  /** Names the CSV files the plots offer. */
+  readonly caseName = input('case');
+
+  protected readonly whole = WHOLE_SPACECRAFT;
+  protected readonly surface = signal(WHOLE_SPACECRAFT);
+  protected readonly bands = computed(() => eclipseBands(this.results()));
+  protected readonly incident = computed(() => incidentSeries(this.results(), this.surface()));
+  protected readonly absorbed = computed(() => absorbedSeries(this.results(), this.surface()));
+  protected readonly surfaceLabel = computed(() => (this.surface() === WHOLE_SPACECRAFT ? 'the whole spacecraft' : this.surface()));
+  protected readonly fileStem = computed(() =>
+    `${this.caseName()}-${this.surface() === WHOLE_SPACECRAFT ? 'spacecraft' : this.surface()}`.replace(/[^A-Za-z0-9-]+/g, '-').toLowerCase(),
+  );
+}

@@ -1,0 +1,126 @@
+import { DatePipe, DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatButton } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIcon } from '@angular/material/icon';
+import { MatSlideToggle } from '@angular/material/slide-toggle';
+import { Router, RouterLink } from '@angular/router';
+import { combineLatest, filter, switchMap } from 'rxjs';
+import type { CaseDetail } from '../../../shared/api/cases';
+import { apiErrorMessage } from '../api/api-error-message';
+import { loaded } from '../api/loaded';
+import { DesignCaution } from '../shell/design-caution';
+import { CurrentWorkspace } from '../workspace/current-workspace';
+import { caseActions, type CaseAction } from './case-actions';
+import { CaseApi } from './case-api';
+import { CaseCompareDialog } from './case-compare-dialog';
+import { CaseEditDialog } from './case-edit-dialog';
+import { CaseInputsPanel } from './case-inputs-panel';
+import { CaseKindLabel } from './case-kind-label';
+import { CaseLoadsPanel } from './case-loads-panel';
+import { CaseReviewDialog } from './case-review-dialog';
+import { CaseStatusChip } from './case-status-chip';
+
+/** One load case: why it is the worst case, its loads around the orbit, its inputs, and its life cycle. */
+@Component({
+  selector: 'ecl-case-page',
+  imports: [
+    DatePipe, DecimalPipe, RouterLink, MatButton, MatIcon, MatSlideToggle, DesignCaution, CaseKindLabel, CaseStatusChip,
+    CaseInputsPanel, CaseLoadsPanel,
+  ],
+  templateUrl: './case-page.html',
+  styleUrl: './case-page.css',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CasePage {
+  readonly workspaceId = input.required<string>();
+  readonly caseId = input.required<string>();
+
+  private readonly api = inject(CaseApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly router = inject(Router);
+  private readonly role = inject(CurrentWorkspace).role;
+  private readonly reload = signal(0);
+
+  protected readonly state = toSignal(
+    combineLatest([toObservable(this.caseId), toObservable(this.reload)]).pipe(switchMap(([id]) => this.api.get(id).pipe(loaded()))),
+    { initialValue: { status: 'loading' as const } },
+  );
+  private readonly current = computed(() => {
+    const s = this.state();
+    return s.status === 'ready' ? s.value : null;
+  });
+  protected readonly actions = computed(() => {
+    const c = this.current();
+    return c ? caseActions(c.status, this.role()) : new Set<CaseAction>();
+  });
+  protected readonly subscribed = linkedSignal(() => this.current()?.subscribed ?? false);
+  protected readonly busy = signal(false);
+  protected readonly failure = signal<string | null>(null);
+
+  protected exportUrl(format: 'json' | 'csv'): string {
+    return this.api.exportUrl(this.caseId(), format);
+  }
+
+  protected fileName(c: CaseDetail, format: 'json' | 'csv'): string {
+    return `${c.name.replace(/[^A-Za-z0-9-]+/g, '-').toLowerCase()}-rev${c.revision}.${format}`;
+  }
+
+  protected editCase(c: CaseDetail): void {
+    this.dialog
+      .open<CaseEditDialog, CaseDetail, CaseDetail>(CaseEditDialog, { data: c, width: '560px', maxWidth: '95vw' })
+      .afterClosed()
+      .pipe(filter((saved) => saved !== undefined))
+      .subscribe(() => this.reload.update((n) => n + 1));
+  }
+
+  protected submitCase(c: CaseDetail): void {
+    this.review(c, 'submit');
+  }
+
+  protected releaseCase(c: CaseDetail): void {
+    this.review(c, 'release');
+  }
+
+  protected startRevision(c: CaseDetail): void {
+    this.busy.set(true);
+    this.failure.set(null);
+    this.api.newRevision(c.id).subscribe({
+      next: (draft) => {
+        this.busy.set(false);
+        void this.router.navigate(['/w', this.workspaceId(), 'cases', draft.id]);
+      },
+      error: (failure: unknown) => {
+        this.busy.set(false);
+        this.failure.set(apiErrorMessage(failure));
+      },
+    });
+  }
+
+  protected compareWith(c: CaseDetail): void {
+    this.dialog
+      .open<CaseCompareDialog, CaseDetail, string>(CaseCompareDialog, { data: c, width: '560px', maxWidth: '95vw' })
+      .afterClosed()
+      .pipe(filter((otherId): otherId is string => typeof otherId === 'string' && otherId !== ''))
+      .subscribe((otherId) => void this.router.navigate(['/w', this.workspaceId(), 'cases', c.id, 'compare', otherId]));
+  }
+
+  protected toggleSubscription(c: CaseDetail, wanted: boolean): void {
+    this.failure.set(null);
+    this.subscribed.set(wanted);
+    this.api.setSubscribed(c.id, wanted).subscribe({
+      next: (now) => this.subscribed.set(now),
+      error: (failure: unknown) => {
+        this.subscribed.set(!wanted);
+        this.failure.set(apiErrorMessage(failure));
+      },
+    });
+  }
+
+  private review(c: CaseDetail, step: 'submit' | 'release'): void {
+    CaseReviewDialog.open(this.dialog, { step, loadCase: c })
+      .pipe(filter((answer) => answer !== undefined))
+      .subscribe(() => this.reload.update((n) => n + 1));
+  }
+}

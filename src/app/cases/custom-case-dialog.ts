@@ -1,0 +1,86 @@
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButton } from '@angular/material/button';
+import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
+import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
+import { MatInput } from '@angular/material/input';
+import { MatProgressBar } from '@angular/material/progress-bar';
+import { MatOption, MatSelect } from '@angular/material/select';
+import type { CaseCreate, CaseDetail } from '../../../shared/api/cases';
+import { apiErrorMessage } from '../api/api-error-message';
+import { CaseApi } from './case-api';
+import type { CaseDeriveData } from './case-derive-dialog';
+import { MARGIN_DEFAULTS, heatLoadMarginHint, temperatureMarginHint } from './case-margins';
+import { missionOrbitChoice } from './mission-orbit-choice';
+
+/** A case the engineer defines: a date (and with it the Sun), or a fixed beta, an attitude, a property set. */
+@Component({
+  selector: 'ecl-custom-case-dialog',
+  imports: [
+    ReactiveFormsModule, MatButton, MatButtonToggleGroup, MatButtonToggle, MatDialogTitle, MatDialogContent, MatDialogActions,
+    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatSelect, MatOption, MatProgressBar,
+  ],
+  templateUrl: './custom-case-dialog.html',
+  styleUrl: './case-dialog.css',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CustomCaseDialog {
+  private readonly api = inject(CaseApi);
+  private readonly dialogRef = inject<MatDialogRef<CustomCaseDialog, CaseDetail>>(MatDialogRef);
+  private readonly data = inject<CaseDeriveData>(MAT_DIALOG_DATA);
+
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    missionId: [this.data.missionId ?? '', Validators.required],
+    orbitId: ['', Validators.required],
+    name: ['', [Validators.required, Validators.maxLength(120)]],
+    date: ['', Validators.required],
+    betaDeg: [null as number | null, [Validators.min(-90), Validators.max(90)]],
+    properties: ['bol' as 'bol' | 'eol'],
+    marginDirection: ['increase' as 'increase' | 'decrease'],
+    attitude: ['', Validators.maxLength(300)],
+    heatLoadPercent: [MARGIN_DEFAULTS.heatLoadPercent as number, [Validators.required, Validators.min(0), Validators.max(200)]],
+    temperatureMarginC: [MARGIN_DEFAULTS.temperatureMarginC as number, [Validators.required, Validators.min(0), Validators.max(100)]],
+  });
+  protected readonly choice = missionOrbitChoice(this.api, this.data.workspaceId, this.form.controls.missionId, this.form.controls.orbitId);
+  private readonly values = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
+  protected readonly heatHint = computed(() => heatLoadMarginHint(this.values().heatLoadPercent ?? null));
+  protected readonly temperatureHint = computed(() => temperatureMarginHint(this.values().temperatureMarginC ?? null));
+  protected readonly busy = signal(false);
+  protected readonly failure = signal<string | null>(null);
+
+  protected missionStart(): string {
+    const m = this.choice.mission();
+    return m.status === 'ready' && m.value ? m.value.startDate : '';
+  }
+
+  protected createCase(): void {
+    // An empty date means the mission's first day, as the hint says.
+    if (this.form.controls.date.value === '' && this.missionStart() !== '') this.form.controls.date.setValue(this.missionStart());
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const v = this.form.getRawValue();
+    const body: CaseCreate = {
+      orbitId: v.orbitId,
+      name: v.name.trim(),
+      date: v.date,
+      ...(v.betaDeg !== null ? { betaDeg: v.betaDeg } : {}),
+      properties: v.properties,
+      marginDirection: v.marginDirection,
+      ...(v.attitude.trim() ? { attitude: v.attitude.trim() } : {}),
+      margins: { heatLoadPercent: v.heatLoadPercent, temperatureMarginC: v.temperatureMarginC },
+    };
+    this.busy.set(true);
+    this.failure.set(null);
+    this.api.create(v.missionId, body).subscribe({
+      next: (made) => this.dialogRef.close(made),
+      error: (failure: unknown) => {
+        this.busy.set(false);
+        this.failure.set(apiErrorMessage(failure));
+      },
+    });
+  }
+}

@@ -1,0 +1,87 @@
+import { DOCUMENT, DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatButton } from '@angular/material/button';
+import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
+import { MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatOption, MatSelect } from '@angular/material/select';
+import { distinctUntilChanged, switchMap } from 'rxjs';
+import type { BodySummaryResponse, EnvironmentResponse } from '../../../shared/api/environment';
+import type { MissionDetail, Orbit } from '../../../shared/api/missions';
+import { loaded } from '../api/loaded';
+import { MissionApi, type PropertySet } from '../missions/mission-api';
+import { buildCsv, downloadCsv } from '../plots/csv-download';
+import { TimeSeriesPlot } from '../plots/time-series-plot';
+import { absorbedSeries, eclipseBands, fluxSeries, profileCsvColumns } from './environment-plot-data';
+
+/** One saved orbit's environment with the mission's surfaces: figures, plots around the orbit, averages. */
+@Component({
+  selector: 'ecl-environment-results',
+  imports: [DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot],
+  templateUrl: './environment-results.html',
+  styleUrl: './environment-results.css',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class EnvironmentResults {
+  private readonly api = inject(MissionApi);
+  private readonly document = inject(DOCUMENT);
+
+  readonly mission = input.required<MissionDetail>();
+  readonly orbit = input.required<Orbit>();
+  readonly body = input.required<BodySummaryResponse>();
+
+  protected readonly properties = signal<PropertySet>('bol');
+  protected readonly surfaceIndex = signal(0);
+
+  // Anything that changes the answer: the orbit, the surfaces (and their materials) and BOL/EOL.
+  private readonly request = computed(() => ({
+    missionId: this.mission().id,
+    orbitId: this.orbit().id,
+    properties: this.properties(),
+    key: [this.orbit().updatedAt, ...this.mission().surfaces.map((s) => `${s.id}@${s.updatedAt}`)].join('|'),
+  }));
+  protected readonly result = toSignal(
+    toObservable(this.request).pipe(
+      distinctUntilChanged((a, b) => a.orbitId === b.orbitId && a.properties === b.properties && a.key === b.key && a.missionId === b.missionId),
+      switchMap((r) => this.api.orbitEnvironment(r.missionId, r.orbitId, r.properties).pipe(loaded())),
+    ),
+  );
+  protected readonly answer = computed<EnvironmentResponse | null>(() => {
+    const state = this.result();
+    return state?.status === 'ready' ? state.value : null;
+  });
+  protected readonly failure = computed(() => {
+    const state = this.result();
+    return state?.status === 'failed' ? state.message : null;
+  });
+
+  protected readonly surfaceNames = computed(() => this.answer()?.orbitAverage.surfaces.map((s) => s.name) ?? []);
+  private readonly shownIndex = computed(() => Math.min(this.surfaceIndex(), Math.max(0, this.surfaceNames().length - 1)));
+  protected readonly shownName = computed(() => this.surfaceNames()[this.shownIndex()] ?? '');
+  protected readonly bands = computed(() => eclipseBands(this.answer()?.profile ?? []));
+  protected readonly flux = computed(() => {
+    const a = this.answer();
+    return a && a.profile.length > 0 && this.surfaceNames().length > 0 ? fluxSeries(a.profile, this.shownIndex()) : [];
+  });
+  protected readonly absorbed = computed(() => {
+    const a = this.answer();
+    return a && a.profile.length > 0 && this.surfaceNames().length > 0 ? absorbedSeries(a.profile, this.shownIndex()) : [];
+  });
+  protected readonly averages = computed(() => {
+    const a = this.answer();
+    if (!a) return [];
+    return a.orbitAverage.surfaces.map((avg, i) => ({ ...avg, peakW: a.peak.surfaces[i]?.absorbedW ?? NaN }));
+  });
+
+  protected readonly fileStem = computed(() => `${this.mission().name}-${this.orbit().name}-${this.properties()}`.replace(/[^A-Za-z0-9._-]+/g, '-'));
+
+  protected setProperties(value: PropertySet): void {
+    this.properties.set(value);
+  }
+
+  protected downloadProfile(): void {
+    const a = this.answer();
+    if (!a) return;
+    downloadCsv(`${this.fileStem()}-profile.csv`, buildCsv(profileCsvColumns(a.profile)), this.document);
+  }
+}

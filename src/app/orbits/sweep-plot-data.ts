@@ -1,0 +1,56 @@
+// Plot inputs and the CSV file from the sweep's day lines; x is the day's date (UTC midnight).
+import type { SweepDay } from '../../../shared/api/missions';
+import type { CsvColumn } from '../plots/csv-download';
+import type { PlotSeries } from '../plots/plot-series';
+
+// Distinct theme colours for up to six surfaces on one plot; dashes tell the next six apart.
+const SURFACE_COLORS = ['--ecl-absorbed', '--ecl-solar', '--ecl-albedo', '--ecl-ir', '--mat-sys-primary', '--ecl-accent'];
+
+const dateMs = (date: string): number => Date.parse(`${date.slice(0, 10)}T00:00:00Z`);
+
+export interface SweepSeries {
+  readonly beta: readonly PlotSeries[];
+  readonly eclipse: readonly PlotSeries[];
+  readonly absorbed: readonly PlotSeries[];
+}
+
+export function sweepSeries(days: readonly SweepDay[]): SweepSeries {
+  const names = days[0]?.surfaces.map((s) => ({ id: s.surfaceId, name: s.name })) ?? [];
+  return {
+    beta: [{ id: 'beta', label: 'Beta angle', unit: 'deg', colorVar: '--ecl-solar', points: days.map((d) => ({ x: dateMs(d.date), y: d.betaDeg })) }],
+    eclipse: [
+      {
+        id: 'eclipse',
+        label: 'Eclipse duration',
+        unit: 'min',
+        colorVar: '--ecl-cold',
+        points: days.map((d) => ({ x: dateMs(d.date), y: d.eclipseDurationS / 60 })),
+      },
+    ],
+    absorbed: names.map((s, i) => ({
+      id: s.id,
+      label: s.name,
+      unit: 'W',
+      colorVar: SURFACE_COLORS[i % SURFACE_COLORS.length],
+      dash: i >= SURFACE_COLORS.length,
+      points: days.map((d) => ({ x: dateMs(d.date), y: d.surfaces.find((x) => x.surfaceId === s.id)?.absorbedW ?? NaN })),
+    })),
+  };
+}
+
+export function sweepCsvColumns(days: readonly SweepDay[]): CsvColumn[] {
+  const names = days[0]?.surfaces.map((s) => ({ id: s.surfaceId, name: s.name })) ?? [];
+  return [
+    { header: 'Date (UTC)', values: days.map((d) => d.date) },
+    { header: 'Beta', unit: 'deg', values: days.map((d) => d.betaDeg) },
+    { header: 'Eclipse fraction', values: days.map((d) => d.eclipseFraction) },
+    { header: 'Eclipse duration', unit: 'min', values: days.map((d) => d.eclipseDurationS / 60) },
+    { header: 'Sun distance', unit: 'AU', values: days.map((d) => d.solarDistanceAu) },
+    { header: 'Solar flux', unit: 'W/m²', values: days.map((d) => d.solarFluxWm2) },
+    ...names.map((s) => ({
+      header: `${s.name} orbit-average absorbed`,
+      unit: 'W',
+      values: days.map((d) => d.surfaces.find((x) => x.surfaceId === s.id)?.absorbedW),
+    })),
+  ];
+}

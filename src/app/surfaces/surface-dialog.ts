@@ -1,0 +1,98 @@
+import { DecimalPipe } from '@angular/common';
+import { HttpErrorResponse } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButton } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
+import { MatInput } from '@angular/material/input';
+import { MatOptgroup, MatOption, MatSelect } from '@angular/material/select';
+import { Observable } from 'rxjs';
+import type { Material, Surface, SurfaceCreate, SurfaceNormal } from '../../../shared/api/missions';
+import { apiErrorMessage } from '../api/api-error-message';
+import { MissionApi } from '../missions/mission-api';
+import { NAMED_NORMALS, NORMAL_LABELS } from './surface-normals';
+
+export interface SurfaceDialogData {
+  readonly missionId: string;
+  readonly surface: Surface | null;
+  readonly materials: readonly Material[];
+}
+
+type SurfaceField = 'name' | 'areaM2' | 'normal' | 'materialId';
+
+/** Adds or edits one spacecraft surface: size, which way it faces, what it is covered with. */
+@Component({
+  selector: 'ecl-surface-dialog',
+  imports: [
+    ReactiveFormsModule, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel,
+    MatInput, MatError, MatHint, MatSuffix, MatSelect, MatOption, MatOptgroup,
+  ],
+  templateUrl: './surface-dialog.html',
+  styleUrl: './surface-dialog.css',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SurfaceDialog {
+  private readonly api = inject(MissionApi);
+  protected readonly data = inject<SurfaceDialogData>(MAT_DIALOG_DATA);
+  protected readonly dialogRef = inject<MatDialogRef<SurfaceDialog, Surface>>(MatDialogRef);
+  protected readonly normals = NAMED_NORMALS;
+  protected readonly normalLabels = NORMAL_LABELS;
+  protected readonly library = this.data.materials.filter((m) => m.workspaceId === null);
+  protected readonly own = this.data.materials.filter((m) => m.workspaceId !== null);
+  protected readonly busy = signal(false);
+  protected readonly failure = signal<string | null>(null);
+  protected readonly problems = signal<Partial<Record<SurfaceField, string>>>({});
+
+  private readonly start = this.data.surface;
+  private readonly startVector = typeof this.start?.normal === 'object' ? this.start.normal : { x: 0, y: 0, z: 1 };
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    name: [this.start?.name ?? '', Validators.required],
+    area: [this.start ? String(this.start.areaM2) : '', Validators.required],
+    normal: [typeof this.start?.normal === 'string' ? this.start.normal : this.start ? 'custom' : 'nadir'],
+    x: this.startVector.x,
+    y: this.startVector.y,
+    z: this.startVector.z,
+    materialId: [this.start?.materialId ?? '', Validators.required],
+  });
+  protected readonly normalChoice = toSignal(this.form.controls.normal.valueChanges, { initialValue: this.form.controls.normal.value });
+  private readonly materialId = toSignal(this.form.controls.materialId.valueChanges, { initialValue: this.form.controls.materialId.value });
+  protected readonly chosenMaterial = computed(() => this.data.materials.find((m) => m.id === this.materialId()) ?? null);
+
+  static open(dialog: MatDialog, data: SurfaceDialogData): Observable<Surface | undefined> {
+    return dialog.open<SurfaceDialog, SurfaceDialogData, Surface>(SurfaceDialog, { data, width: '600px' }).afterClosed();
+  }
+
+  protected save(): void {
+    this.problems.set({});
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const v = this.form.getRawValue();
+    const normal: SurfaceNormal = v.normal === 'custom' ? { x: v.x, y: v.y, z: v.z } : (v.normal as SurfaceNormal);
+    const areaText = v.area.trim();
+    // A bare number is m²; text with a unit ("5000 cm^2") goes as typed, the server converts it.
+    const areaM2 = Number.isFinite(Number(areaText)) ? Number(areaText) : areaText;
+    const body: SurfaceCreate = { name: v.name.trim(), areaM2, normal, materialId: v.materialId };
+    const existing = this.data.surface;
+    const request = existing ? this.api.updateSurface(this.data.missionId, existing.id, body) : this.api.createSurface(this.data.missionId, body);
+    this.busy.set(true);
+    this.failure.set(null);
+    request.subscribe({
+      next: (saved) => this.dialogRef.close(saved),
+      error: (failure: unknown) => {
+        this.busy.set(false);
+        const details = failure instanceof HttpErrorResponse ? (failure.error as { error?: { details?: { path?: string; message: string }[] } } | null)?.error?.details ?? [] : [];
+        const placed: Partial<Record<SurfaceField, string>> = {};
+        for (const d of details) {
+          const field = (d.path ?? '').split('.')[0] as SurfaceField;
+          if (['name', 'areaM2', 'normal', 'materialId'].includes(field)) placed[field] = d.message;
+        }
+        this.problems.set(placed);
+        if (Object.keys(placed).length < details.length || details.length === 0) this.failure.set(apiErrorMessage(failure));
+      },
+    });
+  }
+}

@@ -1,0 +1,93 @@
+// Plot and file inputs from a run's answer: a node's temperature over the orbit with its limits,
+// the heaters' on/off strips, the loops' flows, and the CSV of every node's temperature. Minutes.
+import type { ThermalRunResponse } from '../../../shared/api/thermal-models';
+import type { CsvColumn } from '../plots/csv-download';
+import type { LimitLine, PlotBand, PlotSeries, StripRow } from '../plots/plot-series';
+
+type Run = ThermalRunResponse;
+
+const minutes = (run: Run) => run.result.tS.map((t) => t / 60);
+
+/** Eclipse (sunlit 0) and penumbra bands from the case's sunlit fraction. */
+export function shadowBands(run: Run): PlotBand[] {
+  const x = minutes(run);
+  const sunlit = run.case.sunlit;
+  const bands: PlotBand[] = [];
+  const kindAt = (i: number): PlotBand['kind'] | null => ((sunlit[i] ?? 1) <= 0 ? 'eclipse' : (sunlit[i] ?? 1) < 1 ? 'penumbra' : null);
+  let start = 0;
+  let kind: PlotBand['kind'] | null = null;
+  for (let i = 0; i <= x.length; i++) {
+    const here = i < x.length ? kindAt(i) : null;
+    if (here === kind) continue;
+    if (kind !== null) bands.push({ from: x[start] ?? 0, to: x[Math.min(i, x.length - 1)] ?? 0, kind, label: kind === 'eclipse' ? 'Eclipse (umbra)' : 'Penumbra' });
+    start = i;
+    kind = here;
+  }
+  return bands;
+}
+
+export function temperatureSeries(run: Run, node: string): PlotSeries[] {
+  const n = run.result.nodes.find((x) => x.name === node);
+  if (!n) return [];
+  const x = minutes(run);
+  return [{ id: `t-${n.name}`, label: n.name, unit: '°C', colorVar: '--ecl-absorbed', points: n.temperaturesC.map((y, i) => ({ x: x[i] ?? 0, y })) }];
+}
+
+/** The node's operating limits, and the limits less the margin the run checked against. */
+export function limitLines(run: Run, node: string): LimitLine[] {
+  const n = run.result.nodes.find((x) => x.name === node);
+  const op = n?.limits.find((l) => l.kind === 'operating');
+  if (!op) return [];
+  const lines: LimitLine[] = [];
+  if (op.minC !== null) {
+    lines.push({ y: op.minC, label: `Min operating ${op.minC} °C`, kind: 'cold' });
+    if (op.marginK > 0) lines.push({ y: op.minC + op.marginK, label: `Min + ${op.marginK} K margin`, kind: 'cold' });
+  }
+  if (op.maxC !== null) {
+    lines.push({ y: op.maxC, label: `Max operating ${op.maxC} °C`, kind: 'hot' });
+    if (op.marginK > 0) lines.push({ y: op.maxC - op.marginK, label: `Max − ${op.marginK} K margin`, kind: 'hot' });
+  }
+  return lines;
+}
+
+/** On wherever the heater's mean power over a sample is above zero. */
+export function heaterRows(run: Run): StripRow[] {
+  const x = minutes(run);
+  const dt = x.length > 1 ? (x[1] ?? 0) - (x[0] ?? 0) : 0;
+  return run.result.heaters.map((h) => {
+    const segments: { from: number; to: number }[] = [];
+    h.powerW.forEach((w, i) => {
+      if (w <= 0) return;
+      const from = x[i] ?? 0;
+      const last = segments[segments.length - 1];
+      // A sample partly on counts in proportion, so the strip's on fraction matches the duty cycle.
+      const to = from + (dt * Math.min(1, w / Math.max(h.peakW, 1e-12)));
+      if (last && Math.abs(last.to - from) < 1e-9) last.to = to;
+      else segments.push({ from, to });
+    });
+    return { label: h.name, segments, colorVar: '--ecl-hot' };
+  });
+}
+
+export function loopSeries(run: Run): PlotSeries[] {
+  const x = minutes(run);
+  return run.result.loops.map((l, k) => ({
+    id: `flow-${k}`, label: l.name, unit: 'kg/s', colorVar: k % 2 === 0 ? '--ecl-cold' : '--ecl-albedo', points: l.flowKgS.map((y, i) => ({ x: x[i] ?? 0, y })),
+  }));
+}
+
+export function temperatureColumns(run: Run): CsvColumn[] {
+  return [
+    { header: 'Time', unit: 's', values: run.result.tS },
+    ...run.result.nodes.map((n): CsvColumn => ({ header: n.name, unit: '°C', values: n.temperaturesC })),
+    ...run.result.heaters.map((h): CsvColumn => ({ header: h.name, unit: 'W', values: h.powerW })),
+  ];
+}
+
+/** The tightest operating margin of a node, K (negative: the limit is broken). */
+export function worstMarginK(run: Run, node: string): number | null {
+  const op = run.result.nodes.find((x) => x.name === node)?.limits.find((l) => l.kind === 'operating');
+  if (!op) return null;
+  const margins = [op.coldMarginK, op.hotMarginK].filter((m): m is number => m !== null);
+  return margins.length > 0 ? Math.min(...margins) : null;
+}

@@ -1,0 +1,131 @@
+// The analyst's path through missions: a new mission from nothing, an orbit typed with units, two
+// surfaces, the environment with its plots and CSV, and the mission sweep streamed day by day.
+import { readFile } from 'node:fs/promises';
+import { expect, test, type Page } from '@playwright/test';
+import { screenshot, signIn } from './session';
+
+async function chooseOption(page: Page, selectTestId: string, option: RegExp | string): Promise<void> {
+  await page.getByTestId(selectTestId).click();
+  await page.getByRole('option', { name: option }).first().click();
+}
+
+async function addSurface(page: Page, name: string, area: string, faces: RegExp): Promise<void> {
+  await page.getByTestId('surface-add').click();
+  await page.getByTestId('surface-name').fill(name);
+  await page.getByTestId('surface-area').fill(area);
+  await chooseOption(page, 'surface-normal', faces);
+  await page.getByTestId('surface-material').click();
+  await page.getByRole('option').first().click();
+  await expect(page.getByTestId('surface-material-facts')).toContainText('Source');
+  await page.getByTestId('surface-save').click();
+  await expect(page.getByTestId('surface-row').filter({ hasText: name })).toBeVisible();
+}
+
+test('the analyst creates a mission, an orbit and surfaces, and reads the environment and the sweep', async ({ page }) => {
+  test.setTimeout(120_000);
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await signIn(page, 'analyst@kestrel.test');
+
+  // "/" lands on the missions list, with the seeded demo missions.
+  await expect(page.getByRole('heading', { name: 'Missions' })).toBeVisible();
+  await expect(page.getByTestId('mission-row').first()).toBeVisible();
+  await screenshot(page, 'missions-list');
+
+  const name = `Heron test ${Date.now()}`;
+  await page.getByTestId('mission-new').click();
+  await page.getByTestId('mission-name').fill(name);
+  await page.getByTestId('mission-start').fill('2027-03-20');
+  await page.getByTestId('mission-end').fill('2027-05-20');
+  await page.getByTestId('mission-description').fill('Browser test: a small Earth observer.');
+  await page.getByTestId('mission-save').click();
+  await expect(page.getByTestId('mission-title')).toHaveText(name);
+
+  await page.getByTestId('orbit-add').click();
+  await page.getByTestId('orbit-name').fill('Operational 550 km');
+  await page.getByTestId('orbit-periapsisAltitude').fill('550 km');
+  await page.getByTestId('orbit-apoapsisAltitude').fill('341.8 mi');
+  await page.getByTestId('orbit-inclination').fill('97.6 deg');
+  await expect(page.getByTestId('converted-apoapsisAltitude')).toHaveText('= 550.0738 km'); // 1 mi = 1.609344 km (NIST SP 811)
+  // A circular 550 km Earth orbit has a period of about 95.6 min (Kepler's third law; common practice, no source).
+  await expect(page.getByTestId('figure-period')).toHaveText(/^95\.[5-7]\d min$/);
+  await expect(page.getByTestId('figure-eclipse-duration')).toContainText('min');
+  await screenshot(page, 'orbit-editor-derived');
+
+  // A wrong field is explained under the field, from the local check.
+  await page.getByTestId('orbit-apoapsisAltitude').fill('500 km');
+  await expect(page.getByTestId('error-apoapsisAltitude')).toHaveText('apoapsis is below periapsis by 50 km');
+  await page.getByTestId('orbit-apoapsisAltitude').fill('550 km');
+  await expect(page.getByTestId('figure-period')).toHaveText(/^95\.[5-7]\d min$/);
+  await page.getByTestId('orbit-save').click();
+  await expect(page.getByTestId('orbit-row')).toHaveCount(1);
+  await expect(page.getByTestId('orbit-row-period')).toHaveText(/^95\.[5-7]\d$/);
+
+  await page.getByRole('tab', { name: 'Surfaces' }).click();
+  await addSurface(page, 'Nadir panel', '0.5', /^Nadir/);
+  await addSurface(page, 'Zenith radiator', '3000 cm^2', /^Zenith/);
+  await expect(page.getByTestId('surface-row')).toHaveCount(2);
+  await expect(page.getByTestId('surface-row').filter({ hasText: 'Zenith radiator' })).toContainText('0.300');
+
+  await page.getByRole('tab', { name: 'Environment' }).click();
+  await expect(page.getByTestId('result-period')).toHaveText(/^95\.[5-7]\d min$/);
+  await expect(page.getByTestId('result-flux-plot').locator('svg.ecl-plot-svg')).toBeVisible();
+  await expect(page.getByTestId('result-absorbed-plot').locator('svg.ecl-plot-svg')).toBeVisible();
+  await expect(page.getByTestId('result-averages').locator('tbody tr')).toHaveCount(2);
+  await expect(page.getByLabel('Design caution')).toBeVisible();
+  await screenshot(page, 'orbit-environment-results');
+  await page.getByTestId('result-averages').scrollIntoViewIfNeeded();
+  await screenshot(page, 'orbit-environment-averages');
+
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('result-download').click()]);
+  expect(download.suggestedFilename()).toMatch(/-profile\.csv$/);
+  const csv = (await readFile(await download.path(), 'utf8')).replace(/^\uFEFF/, '');
+  const [header, firstRow] = csv.split('\r\n');
+  expect(header).toBe(
+    'Time from periapsis (min),True anomaly (deg),Sunlit fraction,' +
+      'Nadir panel solar (W/m²),Nadir panel albedo (W/m²),Nadir panel IR (W/m²),Nadir panel absorbed (W),' +
+      'Zenith radiator solar (W/m²),Zenith radiator albedo (W/m²),Zenith radiator IR (W/m²),Zenith radiator absorbed (W)',
+  );
+  expect(firstRow.split(',')).toHaveLength(11);
+
+  await page.getByRole('tab', { name: 'Mission sweep' }).click();
+  await page.getByTestId('sweep-run').click();
+  await expect(page.getByTestId('sweep-done')).toContainText('62 days', { timeout: 60_000 });
+  await expect(page.getByTestId('sweep-beta-plot').locator('svg.ecl-plot-svg')).toBeVisible();
+  await expect(page.getByTestId('sweep-absorbed-plot')).toContainText('Zenith radiator');
+  await screenshot(page, 'mission-sweep');
+  await page.getByTestId('sweep-absorbed-plot').scrollIntoViewIfNeeded();
+  await screenshot(page, 'mission-sweep-absorbed');
+  const [sweepFile] = await Promise.all([page.waitForEvent('download'), page.getByTestId('sweep-download').click()]);
+  const sweepCsv = (await readFile(await sweepFile.path(), 'utf8')).replace(/^\uFEFF/, '');
+  expect(sweepCsv.split('\r\n')[0]).toMatch(/^Date \(UTC\),Beta \(deg\),Eclipse fraction,Eclipse duration \(min\)/);
+});
+
+test('a viewer reads a mission but is offered no changes, and can run and cancel the sweep', async ({ page }) => {
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await signIn(page, 'viewer@kestrel.test');
+  await expect(page.getByRole('heading', { name: 'Missions' })).toBeVisible();
+  await expect(page.getByTestId('mission-new')).toHaveCount(0);
+  await page.getByTestId('mission-filter').fill('imaging');
+  await expect(page.getByTestId('mission-row')).toHaveCount(1);
+  await page.getByTestId('mission-row').first().getByRole('link').click();
+  await expect(page.getByTestId('mission-title')).toBeVisible();
+  await expect(page.getByTestId('orbit-row').first()).toBeVisible();
+  await expect(page.getByTestId('orbit-add')).toHaveCount(0);
+  await expect(page.getByTestId('mission-edit')).toHaveCount(0);
+  await page.getByRole('tab', { name: 'Surfaces' }).click();
+  await expect(page.getByTestId('surface-row').first()).toBeVisible();
+  await expect(page.getByTestId('surface-add')).toHaveCount(0);
+  await screenshot(page, 'mission-viewer-surfaces');
+
+  // A multi-year sweep streams long enough to show its progress and to be cancelled.
+  await page.getByRole('tab', { name: 'Mission sweep' }).click();
+  await page.getByTestId('sweep-run').click();
+  await expect(page.getByTestId('sweep-progress')).toBeVisible();
+  await page.getByTestId('sweep-cancel').click();
+  await expect(page.getByText(/^Cancelled after \d+ of \d+ days/)).toBeVisible();
+
+  await page.getByTestId('sweep-run').click();
+  await expect(page.getByTestId('sweep-progress')).toContainText(/[1-9]\d* of \d+ days/);
+  await screenshot(page, 'mission-sweep-progress');
+  await expect(page.getByTestId('sweep-done')).toContainText('days from 2027-04-01', { timeout: 60_000 });
+});
