@@ -5,7 +5,7 @@ import { and, eq } from 'drizzle-orm';
 import type { Role } from '../../shared/api/workspaces';
 import type { AppContext } from '../app-context';
 import { pathParam } from '../path-param';
-import type { Db } from '../db/database';
+import type { DbOrTx } from '../db/database';
 import { memberships, users } from '../db/schema';
 import { ApiError, forbidden, notFound, unauthorized } from '../errors';
 import { findApiToken, tokenPrefix, touchApiToken } from './api-tokens';
@@ -102,8 +102,8 @@ export const requireAdmin: RequestHandler = (req, _res, next) => {
   next();
 };
 
-/** The user's role in a workspace, or null when they are not a member. */
-export function memberRole(db: Db, userId: string, workspaceId: string): Role | null {
+/** The user's role in a workspace, or null when they are not a member (inside a transaction too). */
+export function memberRole(db: DbOrTx, userId: string, workspaceId: string): Role | null {
   const row = db
     .select({ role: memberships.role })
     .from(memberships)

@@ -8,6 +8,7 @@ import { evaluateCase } from '../../shared/physics/design-cases';
 import { resolveMargins } from '../../shared/physics/design-environment';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
+import type { Tx } from '../db/database';
 import { caseSubscriptions, loadCases, type LoadCaseRow, type UserRow } from '../db/schema';
 import { conflict, forbidden } from '../errors';
 import { canonicalJson } from './canonical-json';
@@ -16,7 +17,6 @@ import { attitudeText } from './case-derivation';
 import { caseReleasedMail } from './case-mail';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
 
-type Tx = Parameters<Parameters<AppContext['db']['transaction']>[0]>[0];
 
 const label = (row: LoadCaseRow) => `"${row.name}" revision ${row.revision}`;
 

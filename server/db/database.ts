@@ -11,6 +11,10 @@ import { ensureMaterialLibrary } from '../missions/material-library';
 
 export type Db = BetterSQLite3Database<typeof schema>;
 export type Sqlite = Database.Database;
+/** The handle a transaction callback gets. */
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+/** A database handle or a transaction's: both answer the same queries. */
+export type DbOrTx = Db | Tx;
 
 export interface OpenedDatabase {
   db: Db;

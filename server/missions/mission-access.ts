@@ -2,14 +2,13 @@
 // owners edit. A mission of a workspace the caller is not in answers 404, exactly as a missing one.
 import { and, eq } from 'drizzle-orm';
 import type { Role } from '../../shared/api/workspaces';
-import { roleRefused } from '../auth/middleware';
-import type { Db } from '../db/database';
-import { memberships, missions, orbits, surfaces, type MissionRow, type OrbitRow, type SurfaceRow } from '../db/schema';
+import { memberRole, roleRefused } from '../auth/middleware';
+import type { DbOrTx } from '../db/database';
+import { missions, orbits, surfaces, type MissionRow, type OrbitRow, type SurfaceRow } from '../db/schema';
 import { notFound } from '../errors';
 
-export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
-/** A database handle or a transaction's: both answer the queries used here. */
-export type DbLike = Db | Tx;
+export type { Tx } from '../db/database';
+export type DbLike = DbOrTx;
 
 export const editorRoles: readonly Role[] = ['owner', 'analyst', 'thermal'];
 export const readerRoles: readonly Role[] = ['owner', 'analyst', 'thermal', 'viewer'];
@@ -31,21 +30,11 @@ export interface MissionAccess {
 export function missionFor(db: DbLike, userId: string, missionId: string, access: Access): MissionAccess {
   const mission = db.select().from(missions).where(eq(missions.id, missionId)).get();
   if (!mission) throw noMission(missionId);
-  const role = roleIn(db, userId, mission.workspaceId);
+  const role = memberRole(db, userId, mission.workspaceId);
   if (!role) throw noMission(missionId);
   const allowed = access === 'edit' ? editorRoles : readerRoles;
   if (!allowed.includes(role)) throw roleRefused(role, allowed);
   return { mission, role };
-}
-
-/** The user's role in a workspace (null for a non-member), inside or outside a transaction. */
-export function roleIn(db: DbLike, userId: string, workspaceId: string): Role | null {
-  const row = db
-    .select({ role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.userId, userId), eq(memberships.workspaceId, workspaceId)))
-    .get();
-  return row ? row.role : null;
 }
 
 export function orbitOf(db: DbLike, missionId: string, orbitId: string): OrbitRow {

@@ -9,7 +9,8 @@ import { noWorkspace, roleRefused } from '../auth/middleware';
 import type { Db } from '../db/database';
 import { memberships, missions, orbits, surfaces, workspaces, type MissionRow } from '../db/schema';
 import { ApiError, badRequest } from '../errors';
-import { editorRoles, missionFor, roleIn, type Tx } from './mission-access';
+import { memberRole } from '../auth/middleware';
+import { editorRoles, missionFor, type Tx } from './mission-access';
 import { toMission, toOrbit, toSurface } from './mission-responses';
 import { canonicalOrbit } from './orbit-values';
 
@@ -55,7 +56,7 @@ function targetWorkspace(db: Db, userId: string, workspaceId: string | undefined
 export function createMission(db: Db, userId: string, input: MissionCreate): Mission {
   const workspaceId = targetWorkspace(db, userId, input.workspaceId);
   return db.transaction((tx) => {
-    const role = roleIn(tx, userId, workspaceId);
+    const role = memberRole(tx, userId, workspaceId);
     if (!role) throw noWorkspace(workspaceId);
     if (!editorRoles.includes(role)) throw roleRefused(role, editorRoles);
     const { workspaceId: _named, ...fields } = input;

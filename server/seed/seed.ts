@@ -3,14 +3,13 @@
 import { count } from 'drizzle-orm';
 import type { AppContext } from '../app-context';
 import { hashPassword } from '../auth/passwords';
-import type { Db } from '../db/database';
+import type { Tx } from '../db/database';
 import { users } from '../db/schema';
 import { seedDemoTeam, type DemoTeam } from './demo';
 import { seedDemoMissions } from './missions-demo';
 import { seedDemoCases } from './cases-demo';
 import { seedDemoThermalModel } from './thermal-demo';
 
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 export type FeatureSeed = (tx: Tx, team: DemoTeam) => void;
 
 const featureSeeds: FeatureSeed[] = [seedDemoMissions, seedDemoCases, seedDemoThermalModel];

@@ -7,7 +7,8 @@ import { roleRefused } from '../auth/middleware';
 import { visibleToViewer } from '../cases/case-access';
 import { loadCases, missions, thermalModels, type LoadCaseRow, type MissionRow, type ThermalModelRow } from '../db/schema';
 import { notFound } from '../errors';
-import { roleIn, type DbLike } from '../missions/mission-access';
+import { memberRole } from '../auth/middleware';
+import type { DbLike } from '../missions/mission-access';
 
 export type ModelAccess = 'read' | 'run' | 'edit';
 
@@ -36,7 +37,7 @@ export function missionForModels(db: DbLike, userId: string, missionId: string, 
   const mission = db.select().from(missions).where(eq(missions.id, missionId)).get();
   const missing = () => notFound(`No mission with id ${shown(missionId)}.`);
   if (!mission) throw missing();
-  return { mission, role: check(roleIn(db, userId, mission.workspaceId), access, missing) };
+  return { mission, role: check(memberRole(db, userId, mission.workspaceId), access, missing) };
 }
 
 export function modelFor(db: DbLike, userId: string, modelId: string, access: ModelAccess): ModelWithAccess {
@@ -44,7 +45,7 @@ export function modelFor(db: DbLike, userId: string, modelId: string, access: Mo
   const missing = () => notFound(`No thermal model with id ${shown(modelId)}.`);
   const mission = row ? db.select().from(missions).where(eq(missions.id, row.missionId)).get() : undefined;
   if (!row || !mission) throw missing();
-  return { row, mission, role: check(roleIn(db, userId, mission.workspaceId), access, missing) };
+  return { row, mission, role: check(memberRole(db, userId, mission.workspaceId), access, missing) };
 }
 
 /** A load case of the model's own mission that the caller may see (viewers: released revisions only). */

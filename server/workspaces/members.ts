@@ -2,7 +2,7 @@
 import { and, asc, count, eq } from 'drizzle-orm';
 import type { Member, Role } from '../../shared/api/workspaces';
 import { recordAudit } from '../audit/audit-log';
-import type { Db } from '../db/database';
+import type { Db, Tx } from '../db/database';
 import { memberships, users } from '../db/schema';
 import { conflict, notFound } from '../errors';
 
@@ -24,7 +24,6 @@ export function listMembers(db: Db, workspaceId: string): Member[] {
     .all();
 }
 
-type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
 function findMember(tx: Tx, workspaceId: string, userId: string): Member {
   const member = tx
