@@ -62,11 +62,15 @@ function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
 export function zodDetails(error: ZodError, input?: unknown): ErrorDetail[] {
   return error.issues.map((issue) => {
     const path = issue.path.map(String).join('.');
-    const value = 'input' in issue && issue.input !== undefined ? issue.input : valueAt(input, issue.path);
+    // A refinement's issue carries the object it refined as its input, not the value at the path it
+    // names (a cross-field check on a whole model would print the model): look that up in the root,
+    // and without the root say nothing rather than the wrong value.
+    const refined = issue.code === 'custom';
+    const value = !refined && 'input' in issue && issue.input !== undefined ? issue.input : valueAt(input, issue.path);
     let message = issue.message;
     if (issue.code === 'unrecognized_keys') {
       message = `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => JSON.stringify(k)).join(', ')}`;
-    } else if (!secretField.test(path)) {
+    } else if (!secretField.test(path) && !(refined && input === undefined)) {
       message = `${message} (got ${describeValue(value)})`;
     }
     return { path: path || undefined, message };

@@ -111,6 +111,15 @@ def view_factor(r, radius, tilt):
     return f
 
 
+def view_factors(r, radius, normals):
+    """View factor of each surface (rows) at each sample (columns). A circular orbit has one radius, so,
+    as surface-grid.ts does, one evaluation per surface broadcast over the samples."""
+    tilt = np.arccos(np.clip(-normals[:, 2:3], -1, 1))
+    if np.all(r == r[0]):
+        return np.broadcast_to(view_factor(r[None, :1], radius, tilt), (normals.shape[0], r.size))
+    return view_factor(r[None, :], radius, tilt)
+
+
 def test_at(job, orbit, t, sp, sq, d, which):
     nu = anomaly(orbit, t)
     e = orbit["e"]
@@ -190,7 +199,9 @@ def loads(job, orbit, t_grid, sp, sq, sw, d_km, flux):
 
 
 def one_orbit(job, case):
-    """Case (a): one orbit, every step and surface, averages and peaks, the eclipse."""
+    """Case (a): one orbit, every step and surface: incident solar, albedo, IR and absorbed per surface per
+    step (surfaces x steps arrays), their orbit averages and peaks, the eclipse. The same quantities as
+    computeEnvironmentColumns (shared/physics/environment-columns.ts)."""
     orbit, body = case["orbit"], job["body"]
     sun = sun_vectors(job, jde_of([case["epochMs"]], job))
     d_au = np.linalg.norm(sun, axis=1)
@@ -204,14 +215,15 @@ def one_orbit(job, case):
     n = np.asarray(case["normals"])
     area, alpha, eps = (np.asarray(case[k])[:, None] for k in ("areaM2", "absorptivity", "emissivity"))
     cos_inc = n[:, 0:1] * cx + n[:, 1:2] * sw[:, None] + n[:, 2:3] * cz
-    f = view_factor(r[None, :], body["radiusKm"], np.arccos(np.clip(-n[:, 2:3], -1, 1)))
+    f = view_factors(r, body["radiusKm"], n)
     solar = flux[0] * sunlit * np.maximum(cos_inc, 0)
     albedo = np.where(cz > 0, flux[0] * case["albedo"] * f * cz, 0.0)
     ir = case["olrWm2"] * f
     absorbed = area * (alpha * (solar + albedo) + eps * ir)
     result = {
-        "absorbedAverage": absorbed.mean(axis=1), "absorbedPeak": absorbed.max(axis=1),
-        "solarAverage": solar.mean(axis=1), "irAverage": ir.mean(axis=1), "albedoAverage": albedo.mean(axis=1),
+        "solarAverage": solar.mean(axis=1), "albedoAverage": albedo.mean(axis=1), "irAverage": ir.mean(axis=1),
+        "absorbedAverage": absorbed.mean(axis=1),
+        "solarPeak": solar.max(axis=1), "albedoPeak": albedo.max(axis=1), "irPeak": ir.max(axis=1), "absorbedPeak": absorbed.max(axis=1),
         "eclipseFraction": eclipse(job, orbit, clear, umbra, sp, sq, d_km),
     }
     return result
@@ -244,7 +256,7 @@ def sweep(job, case):
     nu, r, cz, cx, clear, umbra, sunlit = loads(job, orbit, t_grid, sp, sq, sw, d_km, flux)
     n = np.asarray(case["normals"])
     area, alpha, eps = (np.asarray(case[k]) for k in ("areaM2", "absorptivity", "emissivity"))
-    f = view_factor(r[None, :], body["radiusKm"], np.arccos(np.clip(-n[:, 2:3], -1, 1)))  # surfaces x steps
+    f = view_factors(r, body["radiusKm"], n)  # surfaces x steps
     zplus = np.maximum(cz, 0)
     albedo_avg = flux[:, None] * case["albedo"] * (zplus @ f.T) / steps
     ir_avg = case["olrWm2"] * f.mean(axis=1)[None, :]
@@ -267,7 +279,7 @@ def main():
         run = one_orbit if case["kind"] == "orbit" else sweep
         times = []
         result = None
-        for _ in range(job["repeats"]):
+        for _ in range(case.get("repeats", job["repeats"])):
             started = time.perf_counter()
             result = run(job, case)
             times.append((time.perf_counter() - started) * 1000)

@@ -13,7 +13,10 @@ const METRES_SPEED_KMS = 200;
 
 export type Problem = Required<Pick<ErrorDetail, 'row' | 'message'>> & Pick<ErrorDetail, 'column' | 'value'>;
 
-const shownValue = (text: string): string => (text.length > 40 ? text.slice(0, 37) + '…' : text);
+const shownValue = (cell: string): string => {
+  const text = cell.trim();
+  return text.length > 40 ? text.slice(0, 37) + '…' : text;
+};
 const plainNumber = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const fmt = (x: number) => (Math.abs(x) >= 1e5 ? x.toExponential(3) : x.toFixed(1));
 
@@ -75,10 +78,16 @@ export class EphemerisChecker {
   }
 
   /**
-   * One data row, its cells already read (null where a cell was refused). Checks the epoch order,
-   * the position against the surface and the units, then keeps the point while the file is clean.
+   * One data row, its cells already read (null where a cell was refused; `hasV` false and the
+   * velocities null when the file has none). Checks the epoch order, the position against the
+   * surface and the units, then keeps the point while the file is clean. Scalars rather than
+   * arrays: a million rows would otherwise make two million short-lived arrays.
    */
-  point(row: number, epochColumn: string, epochValue: string, tMs: number | null, r: (number | null)[], v: (number | null)[] | null): void {
+  point(
+    row: number, epochColumn: string, epochValue: string, tMs: number | null,
+    x: number | null, y: number | null, z: number | null,
+    hasV: boolean, vx: number | null, vy: number | null, vz: number | null,
+  ): void {
     this.rows = row;
     if (tMs !== null) {
       if (this.lastMs !== null && tMs === this.lastMs) {
@@ -96,7 +105,6 @@ export class EphemerisChecker {
         this.lastRow = row;
       }
     }
-    const [x, y, z] = r;
     if (x === null || y === null || z === null || tMs === null) return;
     const radius = Math.hypot(x, y, z);
     const R = this.body.radiusKm;
@@ -108,21 +116,18 @@ export class EphemerisChecker {
       this.problem(row, 'x, y, z', `|r| = ${fmt(radius)} km`, `below the surface of ${this.body.name}: |r| = ${fmt(radius)} km is less than its radius ${R} km (altitude ${fmt(radius - R)} km)`);
       return;
     }
-    let velocity: [number, number, number] | null = null;
-    if (v) {
-      const [vx, vy, vz] = v;
+    if (hasV) {
       if (vx === null || vy === null || vz === null) return;
       const speed = Math.hypot(vx, vy, vz);
       if (speed > METRES_SPEED_KMS) {
         this.problem(row, 'vx, vy, vz', `|v| = ${fmt(speed)}`, `looks like m/s; Eclipta expects km/s (|v| = ${fmt(speed)} km/s is faster than anything in orbit)`);
         return;
       }
-      velocity = [vx, vy, vz];
       this.velocity = true;
     }
     this.minRadius = Math.min(this.minRadius, radius);
     this.maxRadius = Math.max(this.maxRadius, radius);
-    if (this.clean) this.spool.push(tMs, x, y, z, velocity?.[0] ?? NaN, velocity?.[1] ?? NaN, velocity?.[2] ?? NaN);
+    if (this.clean) this.spool.push(tMs, x, y, z, vx ?? NaN, vy ?? NaN, vz ?? NaN);
   }
 
   /** Called after the last row: refuses files with too few rows; the stats when all is well. */

@@ -64,7 +64,8 @@ export async function ingestEphemeris(ctx: AppContext, request: IngestRequest): 
   try {
     const checker = new EphemerisChecker(body, spool);
     const hash = createHash('sha256');
-    const input = createReadStream(file.path);
+    // 256 KiB reads: a quarter as many chunks through the hash and csv-parse as the 64 KiB default.
+    const input = createReadStream(file.path, { highWaterMark: 256 * 1024 });
     input.on('data', (chunk) => hash.update(chunk));
     let objectName: string | null = null;
     let frame = declaredFrame;

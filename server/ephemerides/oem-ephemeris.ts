@@ -114,7 +114,6 @@ function readDataLine(row: number, line: string, checker: EphemerisChecker, segm
   else if ((segment.startMs !== null && tMs < segment.startMs - 0.5) || (segment.stopMs !== null && tMs > segment.stopMs + 0.5)) {
     checker.problem(row, 'EPOCH', cells[0], 'outside the START_TIME…STOP_TIME of its metadata block');
   }
-  const r = [1, 2, 3].map((i) => checker.number(row, dataColumns[i], cells[i]));
-  const v = [4, 5, 6].map((i) => checker.number(row, dataColumns[i], cells[i]));
-  checker.point(row, 'EPOCH', cells[0], tMs, r, v);
+  const [x, y, z, vx, vy, vz] = [1, 2, 3, 4, 5, 6].map((i) => checker.number(row, dataColumns[i], cells[i]));
+  checker.point(row, 'EPOCH', cells[0], tMs, x, y, z, true, vx, vy, vz);
 }

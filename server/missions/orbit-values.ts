@@ -1,12 +1,12 @@
 // An orbit as typed ("550 km", "341.8 mi", 97.6, "95 min") read into canonical values (km, s, deg):
-// each quantity through shared/physics/units.ts, then the body's defineOrbit, which refuses the
+// each quantity through quantity-reader.ts (shared/physics/units.ts when a unit needs converting), then the body's defineOrbit, which refuses the
 // impossible (a 422 saying by how much). Unit errors are 400s naming the field and the value.
 import type { orbitDefinitions } from '../../shared/api/missions';
 import type { Body } from '../../shared/physics/bodies';
 import { defineOrbit, type OrbitInput } from '../../shared/physics/orbit-definition';
 import { PhysicsError } from '../../shared/physics/physics-error';
-import { readQuantity } from '../../shared/physics/units';
 import { ApiError } from '../errors';
+import { readQuantityIn } from './quantity-reader';
 
 export type OrbitFields = Record<string, number | string>;
 export type OrbitDefinition = (typeof orbitDefinitions)[number];
@@ -45,7 +45,7 @@ function withPath(error: PhysicsError, status: number): ApiError {
 
 function readField(value: number | string, unit: string, path: string): number {
   try {
-    return readQuantity(value, unit, unit, path);
+    return readQuantityIn(value, unit, path);
   } catch (error) {
     if (error instanceof PhysicsError) throw withPath(error, 400);
     throw error;

@@ -4,13 +4,13 @@ import { and, asc, eq, ne, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { Surface, surfaceCreate, surfaceUpdate } from '../../shared/api/missions';
 import { PhysicsError } from '../../shared/physics/physics-error';
-import { readQuantity } from '../../shared/physics/units';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { materials, surfaces, type MaterialRow, type MissionRow, type SurfaceRow } from '../db/schema';
 import { badRequest, conflict } from '../errors';
 import { missionFor, surfaceOf, type Tx } from './mission-access';
 import { toSurface } from './mission-responses';
+import { readQuantityIn } from './quantity-reader';
 
 type SurfaceCreate = z.output<typeof surfaceCreate>;
 type SurfaceUpdate = z.output<typeof surfaceUpdate>;
@@ -23,7 +23,7 @@ const refuse = (path: string, message: string) => badRequest(`${path}: ${message
 export function readAreaM2(value: number | string): number {
   let area: number;
   try {
-    area = readQuantity(value, 'm^2', 'm^2', 'areaM2');
+    area = readQuantityIn(value, 'm^2', 'areaM2');
   } catch (error) {
     if (error instanceof PhysicsError) throw refuse('areaM2', error.message);
     throw error;

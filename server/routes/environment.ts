@@ -13,10 +13,10 @@ import { sweepMission } from '../../shared/physics/mission-sweep';
 import { orbitFigures } from '../../shared/physics/orbit-figures';
 import { sunlightRange } from '../../shared/physics/sun';
 import { sunSynchronousOrbit } from '../../shared/physics/sun-synchronous';
-import { convertQuantity } from '../../shared/physics/units';
 import type { AppContext } from '../app-context';
 import { requireUser } from '../auth/middleware';
 import { notFound, parse } from '../errors';
+import { loadUnits } from '../missions/quantity-reader';
 
 const DAY_MS = 86400e3;
 
@@ -91,8 +91,9 @@ export function environmentRoutes(_ctx: AppContext): Router {
     res.json(answer);
   });
 
-  router.post('/units/convert', requireUser, (req, res) => {
+  router.post('/units/convert', requireUser, async (req, res) => {
     const request = parse(unitConvertRequest, req.body);
+    const { convertQuantity } = await loadUnits();
     res.json({ value: convertQuantity(request.value, request.unit), unit: request.unit });
   });
 

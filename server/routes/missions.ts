@@ -7,6 +7,7 @@ import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
 import { missionFor } from '../missions/mission-access';
 import { createMission, deleteMission, listMissions, missionDetail, updateMission } from '../missions/mission-store';
+import { loadUnits } from '../missions/quantity-reader';
 import { pathParam } from '../path-param';
 
 const listQuery = z.object({
@@ -31,8 +32,10 @@ export function missionRoutes(ctx: AppContext): Router {
     res.json(missionDetail(ctx.db, mission));
   });
 
-  router.patch('/missions/:id', requireUser, (req, res) => {
+  router.patch('/missions/:id', requireUser, async (req, res) => {
     const input = parse(missionUpdate, req.body);
+    // A new body recomputes every stored orbit from its typed fields.
+    if (input.bodyId !== undefined) await loadUnits();
     res.json(updateMission(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), input));
   });
 

@@ -11,6 +11,7 @@ import { missionSurfaces, savedEnvironment } from '../missions/saved-environment
 import { planSweep, sweepChunkComputer } from '../missions/sweep-days';
 import { csvFileName, streamSweep } from '../missions/sweep-stream';
 import { pathParam } from '../path-param';
+import { loadUnits } from '../missions/quantity-reader';
 
 export function orbitRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -21,8 +22,9 @@ export function orbitRoutes(ctx: AppContext): Router {
     res.json({ items: listOrbits(ctx.db, mission.id) });
   });
 
-  router.post('/missions/:id/orbits', requireUser, (req, res) => {
+  router.post('/missions/:id/orbits', requireUser, async (req, res) => {
     const input = parse(orbitCreate, req.body);
+    await loadUnits();
     res.status(201).json(createOrbit(ctx.db, userId(req), pathParam(req, 'id'), input));
   });
 
@@ -31,8 +33,9 @@ export function orbitRoutes(ctx: AppContext): Router {
     res.json(toOrbit(orbitOf(ctx.db, mission.id, pathParam(req, 'orbitId'))));
   });
 
-  router.patch('/missions/:id/orbits/:orbitId', requireUser, (req, res) => {
+  router.patch('/missions/:id/orbits/:orbitId', requireUser, async (req, res) => {
     const input = parse(orbitUpdate, req.body);
+    await loadUnits();
     res.json(updateOrbit(ctx.db, userId(req), pathParam(req, 'id'), pathParam(req, 'orbitId'), input));
   });
 

@@ -6,6 +6,7 @@ import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
 import { missionFor } from '../missions/mission-access';
 import { createSurface, deleteSurface, listSurfaces, updateSurface } from '../missions/surface-store';
+import { loadUnits } from '../missions/quantity-reader';
 import { pathParam } from '../path-param';
 
 export function surfaceRoutes(ctx: AppContext): Router {
@@ -16,13 +17,15 @@ export function surfaceRoutes(ctx: AppContext): Router {
     res.json({ items: listSurfaces(ctx.db, mission.id) });
   });
 
-  router.post('/missions/:id/surfaces', requireUser, (req, res) => {
+  router.post('/missions/:id/surfaces', requireUser, async (req, res) => {
     const input = parse(surfaceCreate, req.body);
+    await loadUnits();
     res.status(201).json(createSurface(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), input));
   });
 
-  router.patch('/missions/:id/surfaces/:surfaceId', requireUser, (req, res) => {
+  router.patch('/missions/:id/surfaces/:surfaceId', requireUser, async (req, res) => {
     const input = parse(surfaceUpdate, req.body);
+    await loadUnits();
     res.json(updateSurface(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), pathParam(req, 'surfaceId'), input));
   });
 

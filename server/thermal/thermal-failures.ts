@@ -9,7 +9,7 @@ export function answerThermal<T>(work: () => T, refusedCode = 'not_sizable'): T 
     return work();
   } catch (error) {
     if (error instanceof ThermalConvergenceError) {
-      throw new ApiError(422, 'not_converged', error.message, [{ path: 'maxOrbits', message: `${error.orbits} orbits done; last change ${error.residualK} K` }]);
+      throw new ApiError(422, 'not_converged', error.message, [{ path: 'maxOrbits', message: `${error.orbits} orbits done; still ${error.residualK} K from a periodic state` }]);
     }
     if (error instanceof ThermalModelError) throw new ApiError(422, refusedCode, error.message, [{ path: error.path, message: error.message }]);
     throw error;

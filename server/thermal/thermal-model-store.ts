@@ -2,7 +2,7 @@
 // messages as POST /thermal/solve, naming the field and the value) and against the mission's
 // surfaces; every change is audited in its own transaction, so nothing is ever half written.
 import { asc, desc, eq } from 'drizzle-orm';
-import { ZodError, type z } from 'zod';
+import type { z } from 'zod';
 import { thermalSolveRequest } from '../../shared/api/thermal';
 import type {
   ThermalModelContent, ThermalModelDetail, ThermalModelSummary, thermalModelCreate, thermalModelUpdate,
@@ -56,9 +56,7 @@ export function checkModel(db: DbLike, missionId: string, model: ThermalModelCon
   const probe = probeRequest(model);
   const solvable = thermalSolveRequest.safeParse(probe, { reportInput: true });
   if (!solvable.success) {
-    // A cross-field check reports the whole model as its input; the value at the path is the one to name.
-    const located = new ZodError(solvable.error.issues.map((issue) => (issue.code === 'custom' ? { ...issue, input: undefined } : issue)));
-    issues.push(...zodDetails(located, probe).map((d) => ({ ...d, path: d.path ? `model.${d.path}` : 'model' })));
+    issues.push(...zodDetails(solvable.error, probe).map((d) => ({ ...d, path: d.path ? `model.${d.path}` : 'model' })));
   }
   const first = issues[0];
   if (first) throw badRequest(`${first.path}: ${first.message}${issues.length > 1 ? ` (and ${issues.length - 1} more)` : ''}.`, issues);

@@ -1,8 +1,8 @@
-// The per-sample load profile the compute route answers (one object per surface per sample, as
-// API.md shapes it), with the orbit sums and peaks taken in the same pass. An orbit of 3600 samples
-// and 20 surfaces is 72,000 objects: they are built directly as plain literals of one shape, with no
-// intermediate per-sample arrays, closures or copies, because building them is most of the
-// computation's time.
+// The per-sample load profile of one orbit in columns: for every surface, the incident solar,
+// albedo and IR flux and the absorbed power at every sample in Float64Arrays, with the orbit sums
+// and peaks taken in the same pass. This is the physics the compute route answers; the API's shape
+// (one object per surface per sample, API.md) is built from these columns by profilePoints, apart,
+// because at 3600 samples x 20 surfaces building 72,000 objects costs several times the physics.
 // Leaves out: nothing of surface-grid.ts's loadAt; the formulas are the same (direct solar S
 // cos(incidence) times the sunlit share, albedo S a F cos(theta_subsolar) on the sunlit side, IR OLR F).
 import type { SurfaceLoad } from './heat-loads';
@@ -11,88 +11,155 @@ import type { PreparedSurface } from './surface-grid';
 import { DEG } from './vector3';
 import { plateToSphereViewFactor } from './view-factors';
 
-export interface ProfileSample {
+/** One load component per surface: `values[j]` holds surface j's value at every sample. */
+export interface LoadColumns {
+  solarWm2: Float64Array[];
+  albedoWm2: Float64Array[];
+  irWm2: Float64Array[];
+  absorbedW: Float64Array[];
+}
+
+/** One number per surface for each load component (orbit sums, averages or peaks). */
+export interface LoadTotals {
+  solarWm2: Float64Array;
+  albedoWm2: Float64Array;
+  irWm2: Float64Array;
+  absorbedW: Float64Array;
+}
+
+export interface ProfileColumns extends LoadColumns {
+  steps: number;
+  names: string[];
+  /** Orbit sums (divide by the steps for the average) and peaks, per surface. */
+  sums: LoadTotals;
+  peaks: LoadTotals;
+}
+
+const totals = (count: number): LoadTotals => ({
+  solarWm2: new Float64Array(count), albedoWm2: new Float64Array(count), irWm2: new Float64Array(count), absorbedW: new Float64Array(count),
+});
+
+/** Loads of every prepared surface at every sample; `sunW` is the Sun's orbit-normal component, constant over the orbit. */
+export function profileColumns(
+  prepared: readonly PreparedSurface[], grid: OrbitGrid, shade: GridShade, sunW: number,
+  bodyRadiusKm: number, solarFluxWm2: number, albedo: number, olrWm2: number,
+): ProfileColumns {
+  const steps = grid.steps;
+  const count = prepared.length;
+  // One buffer for all four components of all surfaces; each column is a view into it.
+  const buffer = new Float64Array(4 * count * steps);
+  const column = (c: number, j: number) => buffer.subarray((c * count + j) * steps, (c * count + j + 1) * steps);
+  const out: ProfileColumns = {
+    steps, names: prepared.map((p) => p.surface.name),
+    solarWm2: [], albedoWm2: [], irWm2: [], absorbedW: [], sums: totals(count), peaks: totals(count),
+  };
+  for (let j = 0; j < count; j++) {
+    const p = prepared[j];
+    out.solarWm2.push(column(0, j));
+    out.albedoWm2.push(column(1, j));
+    out.irWm2.push(column(2, j));
+    out.absorbedW.push(column(3, j));
+    // A Sun-pointed surface's tilt from nadir moves with the Sun: its cosine and view factor per sample first.
+    const [cosSun, viewFactor] = p.normal === null ? sunPointed(grid, shade, sunW, bodyRadiusKm) : [null, p.viewFactor];
+    const [nx, ny, nz] = p.normal ?? [0, 0, 0];
+    fillSurface(out, j, shade, cosSun, nx, nz, ny * sunW, viewFactor, p, solarFluxWm2, albedo, olrWm2);
+  }
+  return out;
+}
+
+function sunPointed(grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number): [Float64Array, Float64Array] {
+  const { cx, cz } = shade;
+  const cosSun = new Float64Array(grid.steps);
+  const viewFactor = new Float64Array(grid.steps);
+  for (let k = 0; k < grid.steps; k++) {
+    const z = cz[k];
+    cosSun[k] = cx[k] * cx[k] + sunW * sunW + z * z;
+    viewFactor[k] = plateToSphereViewFactor(grid.radiusKm[k], bodyRadiusKm, Math.acos(Math.max(-1, Math.min(1, -z))));
+  }
+  return [cosSun, viewFactor];
+}
+
+/**
+ * Surface j's columns, sums and peaks. The cosine of incidence is `cosSun` per sample where given
+ * (a Sun-pointed surface), else nx cx + nz cz + fromNormal (a fixed normal; its y part is constant).
+ */
+function fillSurface(
+  out: ProfileColumns, j: number, shade: GridShade, cosSun: Float64Array | null, nx: number, nz: number, fromNormal: number,
+  viewFactor: Float64Array, p: PreparedSurface, solarFluxWm2: number, albedo: number, olrWm2: number,
+): void {
+  const { cx, cz, sunlit } = shade;
+  const { areaM2, absorptivity, emissivity } = p.surface;
+  const solar = out.solarWm2[j];
+  const albedoColumn = out.albedoWm2[j];
+  const ir = out.irWm2[j];
+  const absorbed = out.absorbedW[j];
+  const solarAlbedo = solarFluxWm2 * albedo;
+  let sumSolar = 0;
+  let sumAlbedo = 0;
+  let sumIr = 0;
+  let sumAbsorbed = 0;
+  let peakSolar = 0;
+  let peakAlbedo = 0;
+  let peakIr = 0;
+  let peakAbsorbed = 0;
+  const steps = solar.length;
+  for (let k = 0; k < steps; k++) {
+    const z = cz[k];
+    const cosine = cosSun === null ? nx * cx[k] + nz * z + fromNormal : cosSun[k];
+    const f = viewFactor[k];
+    const solarWm2 = cosine > 0 ? solarFluxWm2 * sunlit[k] * cosine : 0;
+    const albedoWm2 = z > 0 ? solarAlbedo * f * z : 0;
+    const irWm2 = olrWm2 * f;
+    const absorbedW = areaM2 * (absorptivity * (solarWm2 + albedoWm2) + emissivity * irWm2);
+    solar[k] = solarWm2;
+    albedoColumn[k] = albedoWm2;
+    ir[k] = irWm2;
+    absorbed[k] = absorbedW;
+    sumSolar += solarWm2;
+    sumAlbedo += albedoWm2;
+    sumIr += irWm2;
+    sumAbsorbed += absorbedW;
+    if (solarWm2 > peakSolar) peakSolar = solarWm2;
+    if (albedoWm2 > peakAlbedo) peakAlbedo = albedoWm2;
+    if (irWm2 > peakIr) peakIr = irWm2;
+    if (absorbedW > peakAbsorbed) peakAbsorbed = absorbedW;
+  }
+  const { sums, peaks } = out;
+  sums.solarWm2[j] = sumSolar;
+  sums.albedoWm2[j] = sumAlbedo;
+  sums.irWm2[j] = sumIr;
+  sums.absorbedW[j] = sumAbsorbed;
+  peaks.solarWm2[j] = peakSolar;
+  peaks.albedoWm2[j] = peakAlbedo;
+  peaks.irWm2[j] = peakIr;
+  peaks.absorbedW[j] = peakAbsorbed;
+}
+
+/** Per-surface totals (averages, peaks) as the API's load objects. */
+export function surfaceLoads(names: readonly string[], values: LoadTotals): SurfaceLoad[] {
+  return names.map((name, j) => ({
+    name, solarWm2: values.solarWm2[j], albedoWm2: values.albedoWm2[j], irWm2: values.irWm2[j], absorbedW: values.absorbedW[j],
+  }));
+}
+
+export interface ProfilePoint {
   tS: number;
   trueAnomalyDeg: number;
   sunlit: number;
   surfaces: SurfaceLoad[];
 }
 
-export interface ProfileLoads {
-  points: ProfileSample[];
-  /** Orbit sums (divide by the steps for the average) and peaks, per surface. */
-  sums: SurfaceLoad[];
-  peaks: SurfaceLoad[];
-}
-
-/** Loads of every prepared surface at every sample; `sunW` is the Sun's orbit-normal component, constant over the orbit. */
-export function profileLoads(
-  prepared: readonly PreparedSurface[], grid: OrbitGrid, shade: GridShade, sunW: number,
-  bodyRadiusKm: number, solarFluxWm2: number, albedo: number, olrWm2: number,
-): ProfileLoads {
-  const steps = grid.steps;
-  const count = prepared.length;
-  const { cx, cz, sunlit } = shade;
-  // Per-surface constants, hoisted into flat arrays the inner loop reads by index.
-  const nx = new Float64Array(count);
-  const nz = new Float64Array(count);
-  const fromNormal = new Float64Array(count);
-  const area = new Float64Array(count);
-  const absorptivity = new Float64Array(count);
-  const emissivity = new Float64Array(count);
-  const names: string[] = new Array(count);
-  const sums = new Float64Array(4 * count);
-  const peaks = new Float64Array(4 * count);
-  for (let j = 0; j < count; j++) {
-    const p = prepared[j];
-    const n = p.normal;
-    if (n !== null) {
-      nx[j] = n[0];
-      nz[j] = n[2];
-      fromNormal[j] = n[1] * sunW;
-    }
-    area[j] = p.surface.areaM2;
-    absorptivity[j] = p.surface.absorptivity;
-    emissivity[j] = p.surface.emissivity;
-    names[j] = p.surface.name;
-  }
-  const solarAlbedo = solarFluxWm2 * albedo;
-  const points: ProfileSample[] = new Array(steps);
+/** The profile in the API's shape: one object per sample, one per surface in it, all plain literals of one shape. */
+export function profilePoints(columns: ProfileColumns, tS: Float64Array, trueAnomalyRad: Float64Array, sunlit: Float64Array): ProfilePoint[] {
+  const { steps, names, solarWm2, albedoWm2, irWm2, absorbedW } = columns;
+  const count = names.length;
+  const points: ProfilePoint[] = new Array(steps);
   for (let k = 0; k < steps; k++) {
-    const x = cx[k];
-    const z = cz[k];
-    const lit = sunlit[k];
     const surfaces: SurfaceLoad[] = new Array(count);
     for (let j = 0; j < count; j++) {
-      const p = prepared[j];
-      let cosSun: number;
-      let viewFactor: number;
-      if (p.normal === null) {
-        cosSun = x * x + sunW * sunW + z * z;
-        viewFactor = plateToSphereViewFactor(grid.radiusKm[k], bodyRadiusKm, Math.acos(Math.max(-1, Math.min(1, -z))));
-      } else {
-        cosSun = nx[j] * x + nz[j] * z + fromNormal[j];
-        viewFactor = p.viewFactor[k];
-      }
-      const solarWm2 = cosSun > 0 ? solarFluxWm2 * lit * cosSun : 0;
-      const albedoWm2 = z > 0 ? solarAlbedo * viewFactor * z : 0;
-      const irWm2 = olrWm2 * viewFactor;
-      const absorbedW = area[j] * (absorptivity[j] * (solarWm2 + albedoWm2) + emissivity[j] * irWm2);
-      surfaces[j] = { name: names[j], solarWm2, albedoWm2, irWm2, absorbedW };
-      const at = 4 * j;
-      sums[at] += solarWm2;
-      sums[at + 1] += albedoWm2;
-      sums[at + 2] += irWm2;
-      sums[at + 3] += absorbedW;
-      if (solarWm2 > peaks[at]) peaks[at] = solarWm2;
-      if (albedoWm2 > peaks[at + 1]) peaks[at + 1] = albedoWm2;
-      if (irWm2 > peaks[at + 2]) peaks[at + 2] = irWm2;
-      if (absorbedW > peaks[at + 3]) peaks[at + 3] = absorbedW;
+      surfaces[j] = { name: names[j], solarWm2: solarWm2[j][k], albedoWm2: albedoWm2[j][k], irWm2: irWm2[j][k], absorbedW: absorbedW[j][k] };
     }
-    points[k] = { tS: grid.tS[k], trueAnomalyDeg: grid.trueAnomalyRad[k] / DEG, sunlit: lit, surfaces };
+    points[k] = { tS: tS[k], trueAnomalyDeg: trueAnomalyRad[k] / DEG, sunlit: sunlit[k], surfaces };
   }
-  const asLoads = (values: Float64Array): SurfaceLoad[] => names.map((name, j) => ({
-    name, solarWm2: values[4 * j], albedoWm2: values[4 * j + 1], irWm2: values[4 * j + 2], absorbedW: values[4 * j + 3],
-  }));
-  return { points, sums: asLoads(sums), peaks: asLoads(peaks) };
+  return points;
 }

@@ -83,6 +83,12 @@ export class SparseCholesky {
     }
   }
 
+  /** A second factor of the same pattern, for another matrix on the same network. */
+  samePattern(): SparseCholesky {
+    const columns = Array.from({ length: this.n }, (_, k) => Array.from(this.rowIndex.subarray(this.colStart[k], this.colStart[k + 1])));
+    return new SparseCholesky(this.n, columns);
+  }
+
   /** The positions in L's pattern, to place a matrix's off-diagonal entries: entry(row, col) with row > col. */
   entry(row: number, col: number): number {
     for (let p = this.colStart[col]; p < this.colStart[col + 1]; p++) if (this.rowIndex[p] === row) return p;

@@ -131,10 +131,12 @@ export class ThermalControllers {
    * extraWK / extraSource. Answers true when a loop's flow moved enough that the factor should be rebuilt.
    */
   update(T: Float64Array, dtS: number): boolean {
-    const { extraWK, extraSource } = this;
-    extraWK.fill(0);
+    // Called every step: plain loops, no closures.
+    const { extraWK, extraSource, heaters, loops } = this;
+    if (loops.length) extraWK.fill(0);
     extraSource.fill(0);
-    this.heaters.forEach((h, k) => {
+    for (let k = 0; k < heaters.length; k++) {
+      const h = heaters[k];
       const t = T[h.free];
       let power: number;
       if (h.thermostat) {
@@ -151,9 +153,10 @@ export class ThermalControllers {
       }
       this.heaterPowerW[k] = power;
       extraSource[h.free] += power;
-    });
+    }
     let refactor = false;
-    this.loops.forEach((loop, k) => {
+    for (let k = 0; k < loops.length; k++) {
+      const loop = loops[k];
       const error = T[loop.control] - loop.setPointK;
       const lo = loop.minFlow - loop.nominalFlow;
       const hi = loop.maxFlow - loop.nominalFlow;
@@ -169,7 +172,7 @@ export class ThermalControllers {
         extraWK[free] += g;
         extraSource[free] += g * loop.inletK;
       }
-    });
+    }
     if (refactor) this.factoredFlow.set(this.flowKgS);
     return refactor;
   }

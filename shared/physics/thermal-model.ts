@@ -120,7 +120,10 @@ export interface ThermalModelInput {
 }
 
 export interface ThermalSolveOptions {
-  /** Periodic steady state: the largest change of any node over one orbit, K. */
+  /**
+   * Periodic steady state: the largest change of any node over one orbit, K, and also the largest
+   * estimated distance still to go (a slow node changes little per orbit however far it is).
+   */
   toleranceK?: number;
   maxOrbits?: number;
   /** Integration steps per sample; more for stiff or fast-switching models. */
@@ -130,7 +133,10 @@ export interface ThermalSolveOptions {
    * 'initial' starts every node at its initialC, as a test from cold would.
    */
   start?: 'orbit-average' | 'initial';
-  /** Extrapolate the orbit map (Anderson acceleration) to reach the periodic state in fewer orbits; on by default. */
+  /**
+   * Jump each orbit's end by the estimated distance to the periodic state, with Anderson acceleration
+   * over those jumps, to get there in fewer orbits; on by default. Off: plain orbit-after-orbit repetition.
+   */
   accelerate?: boolean;
 }
 
@@ -197,6 +203,7 @@ export interface ThermalSolveResult {
   periodOrbits: number;
   /** Orbits that minC, maxC, meanC, duty cycles and powers are taken over. */
   averagedOrbits: number;
+  /** The last orbit's largest change of any node (p orbits' for a p-orbit cycle), K. */
   residualK: number;
   tS: number[];
   nodes: NodeResult[];

@@ -172,6 +172,30 @@ describe('periodic steady state', () => {
     fast.nodes.forEach((node, i) => node.temperaturesC.forEach((t, k) => expect(Math.abs(t - plain.nodes[i].temperaturesC[k])).toBeLessThan(0.05)));
   });
 
+  // One node, C dT/dt = Q - eps sigma A T^4: the periodic state of a constant load is its steady state.
+  const slow = (capacitanceJK: number): ThermalSolveInput => ({
+    ...orbit,
+    nodes: [{ name: 'mass', capacitanceJK, initialC: 20, dissipationW: 60, radiatorAreaM2: 0.4, emissivity: 0.85 }],
+  });
+  const stefanBoltzmannC = (60 / (0.85 * SIGMA * 0.4)) ** 0.25 - K0;
+
+  for (const capacitanceJK of [1e9, 1e12]) {
+    it(`a slow node (C = ${capacitanceJK} J/K) on a constant load lands on Q = eps sigma A T^4 within 0.05 K from either start (Stefan-Boltzmann law)`, () => {
+      for (const start of ['orbit-average', 'initial'] as const) {
+        const r = solveThermal({ ...slow(capacitanceJK), start });
+        expect(Math.abs(r.nodes[0].meanC - stefanBoltzmannC)).toBeLessThan(0.05);
+        expect(Math.abs(r.nodes[0].minC - stefanBoltzmannC)).toBeLessThan(0.05);
+      }
+    });
+  }
+
+  it('a slow node changing by less than the tolerance per orbit is not taken as settled: plain repetition gives up instead (tau = C / (4 eps sigma A T^3), Stefan-Boltzmann law linearised)', () => {
+    // From 20 C the node cools by about 0.0005 K per orbit (82 W net over 1e9 J/K) and tau is near
+    // 140 000 orbits (4 eps sigma A T^3 = 1.26 W/K at 254 K): 0.01 K per orbit says nothing here.
+    const model: ThermalSolveInput = { ...slow(1e9), start: 'initial', accelerate: false, maxOrbits: 3 };
+    expect(() => solveThermal(model)).toThrow(ThermalConvergenceError);
+  });
+
   it('a model that cannot settle in the allowed orbits throws ThermalConvergenceError naming the orbits and the change', () => {
     const model: ThermalSolveInput = { ...orbit, maxOrbits: 2, start: 'initial', accelerate: false, nodes: [{ name: 'slab', capacitanceJK: 1e7, initialC: 80, radiatorAreaM2: 0.1, emissivity: 0.8 }] };
     expect(() => solveThermal(model)).toThrow(ThermalConvergenceError);

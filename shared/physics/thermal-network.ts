@@ -206,6 +206,33 @@ export function buildNetwork(model: ThermalModelInput, substeps = 1): ThermalNet
 }
 
 /**
+ * Fills the network's symmetric matrix, linearised at temperatures T, for the factor:
+ *   diag_i = capacitancePerS C_i + G_boundary + extraWK + 4 sigma eps A T_i^3 + sum_j h_ij,  lower_ij = -h_ij,
+ * with h_ij = G_ij + sigma R_ij (T_i^2 + T_j^2)(T_i + T_j) (the exact secant of the T^4 exchange).
+ * Answers the largest share of a diagonal taken by the couplings (how far from diagonal dominance).
+ */
+export function assembleNetworkMatrix(net: ThermalNetwork, T: Float64Array, capacitancePerS: number, extraWK: Float64Array, diag: Float64Array, lower: Float64Array): number {
+  lower.fill(0);
+  let dominance = 0;
+  for (let i = 0; i < net.n; i++) {
+    const ti = T[i];
+    let off = 0;
+    let d = capacitancePerS * net.capacitanceJK[i] + net.boundaryWK[i] + extraWK[i] + 4 * net.radiationWK4[i] * ti * ti * ti;
+    for (let p = net.adjStart[i]; p < net.adjStart[i + 1]; p++) {
+      const tj = T[net.adjIndex[p]];
+      const g = net.adjConductanceWK[p] + net.adjRadiationWK4[p] * (ti * ti + tj * tj) * (ti + tj);
+      d += g;
+      off += g;
+      const at = net.adjFactorEntry[p];
+      if (at >= 0) lower[at] = -g;
+    }
+    diag[i] = d;
+    dominance = Math.max(dominance, off / d);
+  }
+  return dominance;
+}
+
+/**
  * Solves one implicit step in place:  (C/dt) (alpha T - history) = source + extraSource
  *   - extraWK T - radiationWK4 T^4 - boundaryWK T - sum_j [G_ij (T_i - T_j) + sigma R_ij (T_i^4 - T_j^4)].
  * `extraWK`/`extraSource` carry the controllers (loop conductance to the inlet, heater power).
@@ -237,23 +264,7 @@ export class ImplicitStep {
 
   private refactor(T: Float64Array, alpha: number, dtS: number, extraWK: Float64Array): void {
     const { net, diag, lower } = this;
-    lower.fill(0);
-    let dominance = 0;
-    for (let i = 0; i < net.n; i++) {
-      const ti = T[i];
-      let off = 0;
-      let d = (alpha * net.capacitanceJK[i]) / dtS + net.boundaryWK[i] + extraWK[i] + 4 * net.radiationWK4[i] * ti * ti * ti;
-      for (let p = net.adjStart[i]; p < net.adjStart[i + 1]; p++) {
-        const tj = T[net.adjIndex[p]];
-        const g = net.adjConductanceWK[p] + net.adjRadiationWK4[p] * (ti * ti + tj * tj) * (ti + tj);
-        d += g;
-        off += g;
-        const at = net.adjFactorEntry[p];
-        if (at >= 0) lower[at] = -g;
-      }
-      diag[i] = d;
-      dominance = Math.max(dominance, off / d);
-    }
+    const dominance = assembleNetworkMatrix(net, T, alpha / dtS, extraWK, diag, lower);
     // Gauss-Seidel contracts by about the square of this ratio per sweep.
     this.sweeping = dominance < 0.3;
     if (!net.factor.factor(diag, lower)) {

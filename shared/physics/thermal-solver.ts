@@ -10,6 +10,12 @@ import { runPeriodic, type PeriodicRun } from './thermal-periodic';
 
 const toC = (k: number) => k - KELVIN_OFFSET;
 const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
+/** A series rounded to 1e-4 (of C when `offset` is the kelvin offset): a loop, as it runs per node and sample. */
+function roundedSeries(series: Float64Array, offset = 0, scale = 1e4): number[] {
+  const out = new Array<number>(series.length);
+  for (let s = 0; s < series.length; s++) out[s] = Math.round((series[s] - offset) * scale) / scale;
+  return out;
+}
 
 export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
   const net = buildNetwork(input, input.substeps ?? 1);
@@ -33,7 +39,7 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
       minC: round(toC(base.minK[free])),
       maxC: round(toC(base.maxK[free])),
       meanC: round(toC(base.meanK[free])),
-      temperaturesC: Array.from(base.samplesK[free], (k) => round(toC(k))),
+      temperaturesC: roundedSeries(base.samplesK[free], KELVIN_OFFSET),
       limits: checkLimits(node, minC, maxC, input.margins),
     };
   });
@@ -54,7 +60,7 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
       dutyCycle: round(base.heaterDuty[k]),
       orbitAverageW: round(base.heaterAverageW[k]),
       peakW: round(base.heaterPeakW[k]),
-      powerW: Array.from(base.heaterSamplesW[k], (w) => round(w)),
+      powerW: roundedSeries(base.heaterSamplesW[k]),
       ...(h.busVoltage && cold && hot
         ? { atMinVoltage: voltageResult(cold, k, h.busVoltage.minV, free), atMaxVoltage: voltageResult(hot, k, h.busVoltage.maxV, free) }
         : {}),
@@ -63,7 +69,7 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
 
   const loops = (input.loops ?? []).map((loop, k) => ({
     name: loop.name,
-    flowKgS: Array.from(base.loopSamplesKgS[k], (f) => round(f, 6)),
+    flowKgS: roundedSeries(base.loopSamplesKgS[k], 0, 1e6),
     averageFlowKgS: round(base.loopAverageKgS[k], 6),
     nominalFlowKgS: loop.nominalFlowKgS,
     averageToNominal: round(base.loopAverageKgS[k] / loop.nominalFlowKgS),
@@ -87,7 +93,7 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
 
 function assumptions(input: ThermalSolveInput, net: ThermalNetwork, withBus: boolean): string[] {
   const list = [
-    `Periodic steady state: orbits repeated until no node changes by more than ${input.toleranceK ?? 0.01} K over an orbit.`,
+    `Periodic steady state: orbits repeated until no node changes by more than ${input.toleranceK ?? 0.01} K over an orbit, and no node is estimated to be more than that from its periodic state (the orbit's net heat over the network's conductances and time constants).`,
     `Implicit BDF2 steps of ${round(net.dtS, 2)} s; loads between samples interpolated linearly; heaters and loop flows set at the start of each step.`,
     'Radiators see deep space at 0 K unless a sink temperature is given.',
   ];

@@ -75,6 +75,17 @@ describe('accepted ephemerides', () => {
     expect(res.body.rows).toBe(20);
   });
 
+  it('reads cells padded with spaces as the same values (csv-parse does not trim; the reader does)', async () => {
+    const text = readFileSync(fixture('leo-circular.csv'), 'utf8').trim();
+    const padded = text.split('\n').map((line) => line.split(',').map((cell) => ` ${cell}  `).join(',')).join('\n') + '\n';
+    const res = await analyst.post(`/api/v1/missions/${missionId}/ephemerides`).field('frame', 'EME2000').attach('file', Buffer.from(padded), 'padded.csv');
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body).toMatchObject({ rows: 241, stepS: 60, hasVelocity: true, startEpoch: '2027-03-20T12:00:00.000Z', endEpoch: '2027-03-20T16:00:00.000Z' });
+    const page = await analyst.get(`/api/v1/missions/${missionId}/ephemerides/${res.body.id}/points?offset=240&limit=1`);
+    const last = text.split('\n').at(-1)?.split(',') ?? [];
+    expect(page.body.items[0]).toMatchObject({ epoch: last[0], xKm: Number(last[1]), vzKmS: Number(last[6]) });
+  });
+
   it('lists, shows and deletes, taking the points with it', async () => {
     const created = await upload(analyst, fixture('leo-crlf.csv'), { frame: 'GCRF', name: 'to delete' });
     const before = trace(t);

@@ -60,7 +60,18 @@ describe('POST /api/v1/thermal/solve', () => {
     const res = await viewer.post('/api/v1/thermal/solve')
       .send({ ...model, couplings: [{ from: 'battery', to: 'radiator', conductanceWK: 0.8 }] }).expect(400);
     expect(res.body.error.details[0].path).toBe('couplings.0.to');
-    expect(res.body.error.details[0].message).toMatch(/radiator/);
+    expect(res.body.error.details[0].message).toBe('no node is named "radiator" (got "radiator")');
+  });
+
+  it('cross-field checks name the value at their own path, not the whole model or node', async () => {
+    const res = await viewer.post('/api/v1/thermal/solve')
+      .send({ ...model, nodes: [{ ...model.nodes[0], minC: 10, maxC: 5 }, model.nodes[1]], heaters: [{ node: 'battery', powerW: 10, onC: 6, offC: 3 }, { node: 'battery', powerW: 5 }] })
+      .expect(400);
+    const details = res.body.error.details as { path: string; message: string }[];
+    expect(details).toContainEqual({ path: 'nodes.0.maxC', message: 'maxC must be above minC (10 C) (got 5)' });
+    expect(details).toContainEqual({ path: 'heaters.0.offC', message: 'offC must be above onC (6 C) (got 3)' });
+    expect(details).toContainEqual({ path: 'heaters.1.onC', message: 'a thermostat needs onC (got nothing)' });
+    for (const d of details) expect(d.message).not.toMatch(/got \{/);
   });
 
   it('answers 400 for an absorbedW array that is not one value per step, and for a repeated node name', async () => {

@@ -1,0 +1,129 @@
+// The physics of POST /api/v1/environment/compute in columns: orbit, Sun, beta, shadow, and the heat
+// loads on each surface sampled evenly in time over one orbit, as Float64Arrays (profile-loads.ts),
+// with the orbit averages, peaks and eclipse. environment.ts shapes this into the API's answer; the
+// benchmark times this part against the numpy reference, which computes the same quantities.
+// Leaves out: everything the modules it calls leave out; the Sun is held fixed for the one orbit
+// computed. Source: API.md "Environment computation" for the contract.
+import { getBody, type BodyId } from './bodies';
+import { betaFromVectorsRad } from './beta-angle';
+import { AU_KM } from './constants';
+import type { EclipseSummary } from './eclipse';
+import type { Surface } from './heat-loads';
+import { defineOrbit, type Orbit, type OrbitInput } from './orbit-definition';
+import { eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, shadeGrid, type GridShade, type OrbitGrid, type PerifocalSun } from './orbit-grid';
+import { orbitBasis } from './orbit-position';
+import { PhysicsError } from './physics-error';
+import { profileColumns, type LoadTotals, type ProfileColumns } from './profile-loads';
+import { solarFluxWm2, sunFromBody } from './sun';
+import { prepareSurfaces } from './surface-grid';
+import { DEG, dot, norm, scale, subtract, type Vector3 } from './vector3';
+
+export interface EnvironmentRequest {
+  bodyId: BodyId | string;
+  orbit: OrbitInput;
+  /** ISO 8601 UTC; sets the Sun's direction and distance. Optional when betaDeg is given. */
+  epoch?: string;
+  betaDeg?: number;
+  solarDistanceAu?: number;
+  albedo?: number;
+  olrWm2?: number;
+  steps?: number;
+  surfaces: Surface[];
+}
+
+export interface EnvironmentColumns {
+  bodyId: string;
+  orbit: Orbit;
+  betaDeg: number;
+  /** The beta the epoch implies, before any override; null without an epoch. */
+  epochBetaDeg: number | null;
+  solarDistanceAu: number;
+  solarFluxWm2: number;
+  albedo: number;
+  olrWm2: number;
+  eclipse: EclipseSummary;
+  /** tS, true anomaly and radius at each sample. */
+  grid: OrbitGrid;
+  /** The Sun's share (sunlit) and direction at each sample. */
+  shade: GridShade;
+  /** Incident fluxes and absorbed power per surface per sample, their orbit sums and peaks. */
+  loads: ProfileColumns;
+  /** Orbit averages per surface (the sums over the steps). */
+  averages: LoadTotals;
+}
+
+export const DEFAULT_STEPS = 360;
+/** Samples of the shadow scan over one orbit (each crossing is then refined by bisection). */
+export const ECLIPSE_SCAN_STEPS = 2048;
+
+/** Turn the Sun direction about the orbit so its elevation above the plane is betaRad, keeping its azimuth in the plane. */
+function sunWithBeta(sun: Vector3 | null, orbitNormal: Vector3, nodeDirection: Vector3, betaRad: number): Vector3 {
+  let inPlane = sun ? subtract(sun, scale(orbitNormal, dot(sun, orbitNormal))) : nodeDirection;
+  // Without an epoch, or with the Sun on the orbit normal, the Sun's azimuth is put at the ascending node.
+  if (norm(inPlane) < 1e-9) inPlane = nodeDirection;
+  const u = scale(inPlane, 1 / norm(inPlane));
+  return [
+    u[0] * Math.cos(betaRad) + orbitNormal[0] * Math.sin(betaRad),
+    u[1] * Math.cos(betaRad) + orbitNormal[1] * Math.sin(betaRad),
+    u[2] * Math.cos(betaRad) + orbitNormal[2] * Math.sin(betaRad),
+  ];
+}
+
+function parseEpoch(epoch: string): Date {
+  const date = new Date(epoch);
+  if (!Number.isFinite(date.getTime())) {
+    throw new PhysicsError('missing_sun_geometry', `"${epoch}" is not an ISO 8601 date and time`, [{ path: 'epoch', message: `not a date: "${epoch}"` }]);
+  }
+  return date;
+}
+
+const averaged = (sums: LoadTotals, steps: number): LoadTotals => ({
+  solarWm2: sums.solarWm2.map((v) => v / steps), albedoWm2: sums.albedoWm2.map((v) => v / steps),
+  irWm2: sums.irWm2.map((v) => v / steps), absorbedW: sums.absorbedW.map((v) => v / steps),
+});
+
+/** The compute route's physics, from its request. Throws PhysicsError for the physically impossible. */
+export function computeEnvironmentColumns(request: EnvironmentRequest): EnvironmentColumns {
+  const body = getBody(request.bodyId);
+  const orbit = defineOrbit(request.orbit, body);
+  const steps = request.steps ?? DEFAULT_STEPS;
+  if (!Number.isInteger(steps) || steps < 12 || steps > 100000) {
+    throw new RangeError(`steps must be an integer from 12 to 100000, got ${steps}`);
+  }
+  const basis = orbitBasis(orbit.inclinationRad, orbit.raanRad, orbit.argPeriapsisRad);
+  const node = orbitBasis(orbit.inclinationRad, orbit.raanRad, 0).p;
+
+  if (request.epoch === undefined && request.betaDeg === undefined) {
+    const message = 'give an epoch (it sets the Sun) or a betaDeg';
+    throw new PhysicsError('missing_sun_geometry', message, [{ path: 'epoch', message }]);
+  }
+  const sunAtEpoch = request.epoch === undefined ? null : sunFromBody(body, parseEpoch(request.epoch));
+  const epochBetaRad = sunAtEpoch ? betaFromVectorsRad(basis.w, sunAtEpoch.direction) : null;
+  const sunDirection = request.betaDeg === undefined && sunAtEpoch
+    ? sunAtEpoch.direction
+    : sunWithBeta(sunAtEpoch?.direction ?? null, basis.w, node, (request.betaDeg ?? 0) * DEG);
+  const solarDistanceAu = request.solarDistanceAu ?? sunAtEpoch?.distanceAu ?? body.semiMajorAxisAu;
+  const solarFlux = solarFluxWm2(solarDistanceAu);
+  const albedo = request.albedo ?? body.albedo.nominal;
+  const olrWm2 = request.olrWm2 ?? body.olrWm2.nominal;
+
+  const grid = orbitGrid(orbit, body.radiusKm, steps);
+  const sun: PerifocalSun = {
+    sp: dot(sunDirection, basis.p), sq: dot(sunDirection, basis.q), sw: dot(sunDirection, basis.w), distanceKm: solarDistanceAu * AU_KM,
+  };
+  const prepared = prepareSurfaces(request.surfaces, grid, body.radiusKm);
+  const shade = gridShade(steps);
+  shadeGrid(grid, sun, shade);
+  const loads = profileColumns(prepared, grid, shade, sun.sw, body.radiusKm, solarFlux, albedo, olrWm2);
+  // The shadow scan needs a fine grid even when few load steps are asked for.
+  const eclipse = steps >= ECLIPSE_SCAN_STEPS
+    ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm)
+    : eclipseOnGrid(orbit, orbitGrid(orbit, body.radiusKm, ECLIPSE_SCAN_STEPS), sun, body.radiusKm);
+  return {
+    bodyId: body.id, orbit,
+    betaDeg: betaFromVectorsRad(basis.w, sunDirection) / DEG,
+    epochBetaDeg: epochBetaRad === null ? null : epochBetaRad / DEG,
+    solarDistanceAu, solarFluxWm2: solarFlux, albedo, olrWm2, eclipse, grid, shade, loads,
+    averages: averaged(loads.sums, steps),
+  };
+}
