@@ -38,12 +38,21 @@ function parseZuluCalendar(text: string): number | null | undefined {
   const [y1, y2] = [twoDigits(text, 0), twoDigits(text, 2)];
   const [month, day, hour, minute, whole] = [twoDigits(text, 5), twoDigits(text, 8), twoDigits(text, 11), twoDigits(text, 14), twoDigits(text, 17)];
   if (y1 < 0 || y2 < 0 || month < 0 || day < 0 || hour < 0 || minute < 0 || whole < 0) return undefined;
+  let seconds = whole;
   if (n > 20) {
     // a fraction: a point and at least one digit before the Z
     if (text.charCodeAt(19) !== 46 || n === 21) return undefined;
-    for (let k = 20; k < n - 1; k++) if (digit(text, k) < 0) return undefined;
+    let scaled = whole;
+    for (let k = 20; k < n - 1; k++) {
+      const d = digit(text, k);
+      if (d < 0) return undefined;
+      scaled = scaled * 10 + d;
+    }
+    const places = n - 21;
+    // Up to 13 places the digits make an exact integer and 10^places is exact, so the one division
+    // rounds as Number() would round the text; longer fractions go through Number().
+    seconds = places <= 13 ? scaled / 10 ** places : Number(text.slice(17, n - 1));
   }
-  const seconds = n === 20 ? whole : Number(text.slice(17, n - 1));
   if (month < 1 || month > 12 || day < 1 || hour > 23 || minute > 59 || seconds >= 61) return null;
   const year = 100 * y1 + y2;
   const key = (year * 100 + month) * 100 + day;
