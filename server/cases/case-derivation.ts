@@ -162,7 +162,8 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
   const pointed = list.map((s) => ({ ...s, normal: input.normals?.[s.name] ?? s.normal }));
   const body = getBody(mission.bodyId);
   const elements = canonicalOrbit(orbit);
-  const day = scanMission(body, defineOrbit(elements, body), new Date(orbit.epoch), input.date, input.date)[0]!;
+  const defined = defineOrbit(elements, body);
+  const day = scanMission(body, defined, new Date(orbit.epoch), input.date, input.date)[0]!;
   const pairs = designPairs(body, orbit.inclinationDeg);
   const margins = resolveMargins(input.margins);
   const conditions: StoredConditions = {
@@ -173,7 +174,7 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
   };
   const given = (v: unknown, what: string, fallback: string) => (v === undefined ? fallback : `${what} given by the user`);
   const rationale = [
-    `custom case on ${input.date}: ${given(input.betaDeg, `beta ${conditions.betaDeg.toFixed(1)} deg`, `beta ${conditions.betaDeg.toFixed(1)} deg from the date (node drifted under J2 to ${(raanOnDateRad(defineOrbit(elements, body), new Date(orbit.epoch), new Date(`${input.date}T12:00:00Z`)) / DEG).toFixed(1)} deg)`)}`,
+    `custom case on ${input.date}: ${given(input.betaDeg, `beta ${conditions.betaDeg.toFixed(1)} deg`, `beta ${conditions.betaDeg.toFixed(1)} deg from the date (node drifted under J2 to ${(raanOnDateRad(defined, new Date(orbit.epoch), new Date(`${input.date}T12:00:00Z`)) / DEG).toFixed(1)} deg)`)}`,
     `Sun distance ${conditions.solarDistanceAu.toFixed(4)} AU, ${given(input.solarDistanceAu, 'distance', 'from the date (VSOP87)')}`,
     `albedo ${conditions.albedo.toFixed(2)} with OLR ${conditions.olrWm2.toFixed(0)} W/m^2, ${input.albedo === undefined && input.olrWm2 === undefined ? `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}` : 'given by the user'}`,
     `${input.properties.toUpperCase()} optical properties`,
