@@ -8,6 +8,7 @@ import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import * as schema from './schema';
 import { ensureMaterialLibrary } from '../missions/material-library';
+import { packPointsAggregate } from '../ephemerides/point-blocks';
 
 export type Db = BetterSQLite3Database<typeof schema>;
 export type Sqlite = Database.Database;
@@ -32,6 +33,8 @@ export function openDatabase(file: string): OpenedDatabase {
   sqlite.pragma('synchronous = NORMAL');
   sqlite.pragma('foreign_keys = ON');
   sqlite.pragma('busy_timeout = 5000');
+  // Used by the migration that moved ephemeris points into blocks.
+  sqlite.aggregate('eclipta_pack_points', packPointsAggregate);
   return { db: drizzle(sqlite, { schema }), sqlite };
 }
 

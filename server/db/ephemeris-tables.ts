@@ -1,7 +1,7 @@
 // Uploaded ephemerides (trajectories from the analysts' own propagators) and their points.
-// Epochs are kept as ms since the Unix epoch (UTC, real so sub-millisecond OEM epochs survive);
+// Epochs are kept as ms since the Unix epoch (UTC, doubles so sub-millisecond OEM epochs survive);
 // positions in km and velocities in km/s in the declared inertial frame centred on the mission's body.
-import { index, integer, primaryKey, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
+import { blob, index, integer, primaryKey, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import { createdAt, id } from './columns';
 import { missions } from './mission-tables';
 import { users } from './schema';
@@ -36,24 +36,24 @@ export const ephemerides = sqliteTable(
   (t) => [index('ephemerides_mission').on(t.missionId)],
 );
 
-export const ephemerisPoints = sqliteTable(
-  'ephemeris_points',
+/**
+ * An ephemeris' points, BLOCK_POINTS consecutive points a row (server/ephemerides/point-blocks.ts
+ * has the layout of `data`): block k holds the points first_seq .. first_seq + points - 1.
+ */
+export const ephemerisPointBlocks = sqliteTable(
+  'ephemeris_point_blocks',
   {
     ephemerisId: text('ephemeris_id')
       .notNull()
       .references(() => ephemerides.id, { onDelete: 'cascade' }),
-    /** 0-based order in the file. */
-    seq: integer('seq').notNull(),
-    tMs: real('t_ms').notNull(),
-    xKm: real('x_km').notNull(),
-    yKm: real('y_km').notNull(),
-    zKm: real('z_km').notNull(),
-    vxKmS: real('vx_km_s'),
-    vyKmS: real('vy_km_s'),
-    vzKmS: real('vz_km_s'),
+    /** 0-based block number, in file order. */
+    block: integer('block').notNull(),
+    /** 0-based order in the file of the block's first point. */
+    firstSeq: integer('first_seq').notNull(),
+    points: integer('points').notNull(),
+    data: blob('data', { mode: 'buffer' }).notNull(),
   },
-  (t) => [primaryKey({ columns: [t.ephemerisId, t.seq] })],
+  (t) => [primaryKey({ columns: [t.ephemerisId, t.block] })],
 );
 
 export type EphemerisRow = typeof ephemerides.$inferSelect;
-export type EphemerisPointRow = typeof ephemerisPoints.$inferSelect;

@@ -1,5 +1,5 @@
-// The environment along a stored ephemeris: its rows streamed from SQLite (never all loaded at
-// once), the mission's surfaces with their materials' BOL or EOL properties, and
+// The environment along a stored ephemeris: its points streamed from SQLite a block at a time
+// (never all loaded at once), the mission's surfaces with their materials' BOL or EOL properties, and
 // shared/physics/trajectory-environment.ts. Exported for load cases that take an ephemeris as
 // their source.
 import { eq } from 'drizzle-orm';
@@ -10,7 +10,9 @@ import { trajectoryEnvironment, type TrajectorySample } from '../../shared/physi
 import type { AppContext } from '../app-context';
 import { materials, surfaces, type EphemerisRow, type MissionRow } from '../db/schema';
 import { unprocessable } from '../errors';
+import { storedBlocks } from './ephemeris-store';
 import { epochText } from './epoch-text';
+import { POINT_FIELDS } from './point-blocks';
 
 export interface EphemerisEnvironmentOptions {
   properties: 'bol' | 'eol';
@@ -52,23 +54,13 @@ export function missionSurfaces(ctx: AppContext, missionId: string, properties: 
     }));
 }
 
-interface Row {
-  t_ms: number;
-  x_km: number;
-  y_km: number;
-  z_km: number;
-  vx_km_s: number | null;
-  vy_km_s: number | null;
-  vz_km_s: number | null;
-}
-
 function* samples(ctx: AppContext, ephemerisId: string): Generator<TrajectorySample> {
-  const rows = ctx.sqlite
-    .prepare('SELECT t_ms, x_km, y_km, z_km, vx_km_s, vy_km_s, vz_km_s FROM ephemeris_points WHERE ephemeris_id = ? ORDER BY seq')
-    .iterate(ephemerisId) as IterableIterator<Row>;
-  for (const r of rows) {
-    const v = r.vx_km_s === null || r.vy_km_s === null || r.vz_km_s === null ? null : ([r.vx_km_s, r.vy_km_s, r.vz_km_s] as const);
-    yield { tMs: r.t_ms, positionKm: [r.x_km, r.y_km, r.z_km], velocityKmS: v };
+  for (const block of storedBlocks(ctx, ephemerisId)) {
+    const v = block.values;
+    for (let i = 0; i < block.points * POINT_FIELDS; i += POINT_FIELDS) {
+      const velocity = Number.isNaN(v[i + 4]) || Number.isNaN(v[i + 5]) || Number.isNaN(v[i + 6]) ? null : ([v[i + 4], v[i + 5], v[i + 6]] as const);
+      yield { tMs: v[i], positionKm: [v[i + 1], v[i + 2], v[i + 3]], velocityKmS: velocity };
+    }
   }
 }
 

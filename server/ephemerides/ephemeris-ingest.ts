@@ -1,31 +1,34 @@
-// An uploaded ephemeris from the stored temp file to the database: sniff, parse as a stream
-// (hashing the bytes on the way), check every row, then write the metadata and every point in one
-// transaction with a prepared statement. A refused file answers 400 invalid_ephemeris with its
-// first problems; the caller deletes the temp files whatever the outcome.
-import { createHash, randomUUID } from 'node:crypto';
-import { createReadStream } from 'node:fs';
+// An uploaded ephemeris to the database: received by multer onto disk and read as it arrives
+// (ephemeris-reader.ts: hash, sniff, parse as a stream, check every row, spool the points), then
+// the metadata and every point written in one transaction with prepared statements. A refused
+// file answers 400 invalid_ephemeris with its first problems; its temp files are deleted whatever
+// the outcome.
+import { randomUUID } from 'node:crypto';
+import { createReadStream, rmSync } from 'node:fs';
 import path from 'node:path';
-import type { EphemerisUploadFields } from '../../shared/api/ephemerides';
+import { pipeline } from 'node:stream/promises';
+import type { Request, Response } from 'express';
+import { ephemerisUploadFields, type EphemerisUploadFields } from '../../shared/api/ephemerides';
 import { getBody } from '../../shared/physics/bodies';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import { ephemerides, type EphemerisRow, type MissionRow } from '../db/schema';
-import { ApiError, badRequest } from '../errors';
-import { EphemerisChecker, MAX_PROBLEMS, type Problem } from './ephemeris-checker';
+import { ApiError, badRequest, parse } from '../errors';
+import { MAX_PROBLEMS, type Problem } from './ephemeris-checker';
 import { checkFrame } from './ephemeris-frames';
+import { EphemerisReader, sameSetup, type ReadOutcome, type ReadSetup } from './ephemeris-reader';
+import { receiveUpload, uploadsDir } from './ephemeris-upload';
 import { epochText, parseEpochMs } from './epoch-text';
-import { sniffFile } from './file-sniff';
-import { readCsvEphemeris } from './csv-ephemeris';
-import { readOemEphemeris } from './oem-ephemeris';
-import { PointSpool } from './point-spool';
+import { packPoints } from './point-blocks';
+import type { PointSpool } from './point-spool';
 
 export interface IngestRequest {
   mission: MissionRow;
   userId: string;
   file: { path: string; originalName: string };
   fields: EphemerisUploadFields;
-  /** Where the point spool may be written; the caller removes it. */
-  spoolPath: string;
+  /** What the reader made of the file's bytes. */
+  read: ReadOutcome;
 }
 
 /** The client's file name made safe to show: no folders, no control characters, bounded. */
@@ -44,109 +47,112 @@ function refusal(problems: Problem[]): ApiError {
 
 export const spoolPathFor = (uploadsDir: string): string => path.join(uploadsDir, `${randomUUID()}.points`);
 
-export async function ingestEphemeris(ctx: AppContext, request: IngestRequest): Promise<EphemerisRow> {
-  const { mission, file, fields } = request;
+/** How the file will be read, from the upload's fields; a frame the body cannot take is a 400. */
+export function readSetupFor(mission: MissionRow, fields: EphemerisUploadFields): ReadSetup {
   const body = getBody(mission.bodyId);
-  const sniffed = sniffFile(file.path);
-  if ('refused' in sniffed) throw refusal([{ row: 0, message: sniffed.refused }]);
-
   let declaredFrame: string | null = null;
   if (fields.frame) {
     const checked = checkFrame(body, fields.frame);
     if ('refused' in checked) throw badRequest(`frame: ${checked.refused}.`, [{ path: 'frame', message: checked.refused }]);
     declaredFrame = checked.frame;
-  } else if (sniffed.format === 'csv') {
+  }
+  return { body, declaredFrame, epochMs: fields.epoch ? parseEpochMs(fields.epoch) : null };
+}
+
+/**
+ * The setup from the fields that came before the file in the form, or null when they would not
+ * do (the file may then still be read from disk once every field is in).
+ */
+export function earlyReadSetup(mission: MissionRow, early: Record<string, unknown>): ReadSetup | null {
+  const fields = ephemerisUploadFields.safeParse(early);
+  if (!fields.success) return null;
+  try {
+    return readSetupFor(mission, fields.data);
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * Receives the upload and reads it. The file is read while it arrives when the fields it depends
+ * on (frame, epoch) came before it, as Eclipta's upload screen and the README's curl example send them;
+ * if they came after it, or differ from what the early read assumed, the stored file is read
+ * again from disk with the final fields. Either way the answer is the same.
+ */
+export async function receiveEphemeris(ctx: AppContext, req: Request, res: Response, mission: MissionRow, userId: string): Promise<EphemerisRow> {
+  const written: string[] = [];
+  const readers: EphemerisReader[] = [];
+  const newReader = (setup: ReadSetup): EphemerisReader => {
+    const spoolPath = spoolPathFor(uploadsDir(ctx.config));
+    written.push(spoolPath);
+    const reader = new EphemerisReader(setup, spoolPath);
+    readers.push(reader);
+    return reader;
+  };
+  try {
+    const upload = await receiveUpload(ctx.config, req, res, written, (early) => {
+      const setup = earlyReadSetup(mission, early);
+      return setup ? newReader(setup) : null;
+    });
+    if (!upload.file) throw badRequest('Send the ephemeris as multipart/form-data with the file in the field "file".', [{ path: 'file', message: 'no file' }]);
+    const fields = parse(ephemerisUploadFields, upload.fields);
+    const setup = readSetupFor(mission, fields);
+    let reader = readers.find((r) => sameSetup(r.setup, setup));
+    if (!reader) {
+      reader = newReader(setup);
+      // 256 KiB reads: a quarter as many chunks through the hash and csv-parse as the 64 KiB default.
+      await pipeline(createReadStream(upload.file.path, { highWaterMark: 256 * 1024 }), reader);
+    }
+    return storeRead(ctx, { mission, userId, file: upload.file, fields, read: await reader.result });
+  } finally {
+    // Accepted or refused, the uploaded bytes are never kept: the points are in the database.
+    for (const reader of readers) reader.close();
+    for (const file of written) rmSync(file, { force: true });
+  }
+}
+
+/** The read file to the database, or its refusal. */
+function storeRead(ctx: AppContext, request: IngestRequest): EphemerisRow {
+  const { mission, file, fields, read } = request;
+  if ('refused' in read.sniffed) throw refusal([{ row: 0, message: read.sniffed.refused }]);
+  if (!read.checker) {
     throw badRequest('frame: a CSV ephemeris needs its frame declared with the upload (EME2000, J2000, ICRF or GCRF).', [{ path: 'frame', message: 'give the inertial frame of the positions' }]);
   }
-  const epochMs = fields.epoch ? parseEpochMs(fields.epoch) : null;
-
-  const spool = new PointSpool(request.spoolPath);
-  try {
-    const checker = new EphemerisChecker(body, spool);
-    const hash = createHash('sha256');
-    // 256 KiB reads: a quarter as many chunks through the hash and csv-parse as the 64 KiB default.
-    const input = createReadStream(file.path, { highWaterMark: 256 * 1024 });
-    input.on('data', (chunk) => hash.update(chunk));
-    let objectName: string | null = null;
-    let frame = declaredFrame;
-    try {
-      if (sniffed.format === 'csv') {
-        await readCsvEphemeris(input, checker, epochMs);
-      } else {
-        const meta = await readOemEphemeris(input, checker, body, declaredFrame);
-        objectName = meta.objectName;
-        frame = meta.frame ?? declaredFrame;
-      }
-    } finally {
-      input.destroy();
-    }
-    const stats = checker.finish();
-    if (!stats || !checker.clean) throw refusal(checker.problems);
-    const fileName = displayFileName(file.originalName);
-    const name = fields.name || objectName || fileName.replace(/\.[^.]+$/, '') || 'ephemeris';
-    return storeEphemeris(ctx, request, spool, {
-      missionId: mission.id,
-      name: name.slice(0, 120),
-      frame: frame ?? 'ICRF',
-      format: sniffed.format,
-      rows: stats.rows,
-      startEpoch: epochText(stats.startMs),
-      endEpoch: epochText(stats.endMs),
-      stepS: stats.stepS,
-      minAltitudeKm: stats.minAltitudeKm,
-      maxAltitudeKm: stats.maxAltitudeKm,
-      hasVelocity: stats.hasVelocity,
-      sha256: hash.digest('hex'),
-      fileName,
-      createdBy: request.userId,
-    });
-  } finally {
-    spool.close();
-  }
+  const stats = read.checker.finish();
+  if (!stats || !read.checker.clean) throw refusal(read.checker.problems);
+  const fileName = displayFileName(file.originalName);
+  const name = fields.name || read.objectName || fileName.replace(/\.[^.]+$/, '') || 'ephemeris';
+  return storeEphemeris(ctx, request, read.spool, {
+    missionId: mission.id,
+    name: name.slice(0, 120),
+    frame: read.frame ?? 'ICRF',
+    format: read.sniffed.format,
+    rows: stats.rows,
+    startEpoch: epochText(stats.startMs),
+    endEpoch: epochText(stats.endMs),
+    stepS: stats.stepS,
+    minAltitudeKm: stats.minAltitudeKm,
+    maxAltitudeKm: stats.maxAltitudeKm,
+    hasVelocity: stats.hasVelocity,
+    sha256: read.sha256,
+    fileName,
+    createdBy: request.userId,
+  });
 }
 
 type NewEphemeris = typeof ephemerides.$inferInsert;
 
-/**
- * Points per INSERT statement: one statement execution per batch instead of per row. The
- * ephemeris id is bound once per statement (@id, named in every row) rather than once per row:
- * each string binding is a UTF-8 copy, a million of them otherwise. 1 + 8 x 500 = 4001 parameters,
- * well under SQLite's 32766.
- */
-const INSERT_BATCH_ROWS = 500;
-const ROW_PARAMS = 8;
-const insertPointsSql = (rows: number): string =>
-  'INSERT INTO ephemeris_points (ephemeris_id, seq, t_ms, x_km, y_km, z_km, vx_km_s, vy_km_s, vz_km_s) VALUES '
-  + Array.from({ length: rows }, () => '(@id, ?, ?, ?, ?, ?, ?, ?, ?)').join(', ');
-
+/** The metadata row and the spooled points, one block a statement, in one transaction. */
 function storeEphemeris(ctx: AppContext, request: IngestRequest, spool: PointSpool, values: NewEphemeris): EphemerisRow {
-  const insertBatch = ctx.sqlite.prepare(insertPointsSql(INSERT_BATCH_ROWS));
-  const insertOne = ctx.sqlite.prepare(insertPointsSql(1));
-  const orNull = (x: number): number | null => (Number.isNaN(x) ? null : x);
-  // One parameter array, refilled for each batch: no per-row objects. Numbers only after the id.
-  const params: (number | null)[] = new Array(INSERT_BATCH_ROWS * ROW_PARAMS).fill(null);
+  const insertBlock = ctx.sqlite.prepare('INSERT INTO ephemeris_point_blocks (ephemeris_id, block, first_seq, points, data) VALUES (?, ?, ?, ?, ?)');
   return ctx.db.transaction((tx) => {
     const row = tx.insert(ephemerides).values(values).returning().get();
-    const id = { id: row.id };
-    let seq = 0;
-    let filled = 0;
-    spool.forEach((b, i) => {
-      const at = filled * ROW_PARAMS;
-      params[at] = seq++;
-      params[at + 1] = b[i];
-      params[at + 2] = b[i + 1];
-      params[at + 3] = b[i + 2];
-      params[at + 4] = b[i + 3];
-      params[at + 5] = orNull(b[i + 4]);
-      params[at + 6] = orNull(b[i + 5]);
-      params[at + 7] = orNull(b[i + 6]);
-      if (++filled === INSERT_BATCH_ROWS) {
-        insertBatch.run(id, params);
-        filled = 0;
-      }
+    let block = 0;
+    let firstSeq = 0;
+    spool.forEachChunk((chunk, points) => {
+      insertBlock.run(row.id, block++, firstSeq, points, packPoints(chunk, points));
+      firstSeq += points;
     });
-    // The last partial batch row by row (at most INSERT_BATCH_ROWS - 1 of them).
-    for (let k = 0; k < filled; k++) insertOne.run(id, params.slice(k * ROW_PARAMS, (k + 1) * ROW_PARAMS));
     recordAudit(tx, {
       workspaceId: request.mission.workspaceId,
       actorUserId: request.userId,

@@ -9,6 +9,7 @@ import { memberRole, roleRefused } from '../auth/middleware';
 import { ephemerides, missions, type EphemerisRow, type MissionRow } from '../db/schema';
 import { notFound } from '../errors';
 import { epochText } from './epoch-text';
+import { POINT_FIELDS, unpackBlock } from './point-blocks';
 
 const editors: readonly Role[] = ['owner', 'analyst', 'thermal'];
 const shown = (id: string): string => JSON.stringify(id.slice(0, 80));
@@ -60,32 +61,41 @@ export function listEphemerides(ctx: AppContext, missionId: string): EphemerisSu
     .map(toEphemerisSummary);
 }
 
-interface PointRecord {
-  seq: number;
-  t_ms: number;
-  x_km: number;
-  y_km: number;
-  z_km: number;
-  vx_km_s: number | null;
-  vy_km_s: number | null;
-  vz_km_s: number | null;
+export interface StoredBlock {
+  /** 0-based order in the file of the block's first point. */
+  firstSeq: number;
+  points: number;
+  /** POINT_FIELDS values a point: t_ms, x, y, z, vx, vy, vz (NaN when there are no velocities). */
+  values: Float64Array;
 }
+
+/** The ephemeris' point blocks in file order, from the one holding point `fromSeq` on. */
+export function* storedBlocks(ctx: AppContext, ephemerisId: string, fromSeq = 0): Generator<StoredBlock> {
+  const rows = ctx.sqlite
+    .prepare('SELECT first_seq, points, data FROM ephemeris_point_blocks WHERE ephemeris_id = ? AND first_seq + points > ? ORDER BY block')
+    .iterate(ephemerisId, fromSeq) as IterableIterator<{ first_seq: number; points: number; data: Buffer }>;
+  for (const r of rows) yield { firstSeq: r.first_seq, points: r.points, values: unpackBlock(r.data) };
+}
+
+const orNull = (x: number): number | null => (Number.isNaN(x) ? null : x);
 
 export function pointsPage(ctx: AppContext, row: EphemerisRow, offset: number, limit: number): EphemerisPointsPage {
-  const records = ctx.sqlite
-    .prepare('SELECT seq, t_ms, x_km, y_km, z_km, vx_km_s, vy_km_s, vz_km_s FROM ephemeris_points WHERE ephemeris_id = ? AND seq >= ? ORDER BY seq LIMIT ?')
-    .all(row.id, offset, limit) as PointRecord[];
-  return {
-    items: records.map((p) => ({
-      seq: p.seq, epoch: epochText(p.t_ms), xKm: p.x_km, yKm: p.y_km, zKm: p.z_km, vxKmS: p.vx_km_s, vyKmS: p.vy_km_s, vzKmS: p.vz_km_s,
-    })),
-    offset,
-    limit,
-    total: row.rows,
-  };
+  const items: EphemerisPointsPage['items'] = [];
+  for (const block of storedBlocks(ctx, row.id, offset)) {
+    const v = block.values;
+    for (let k = Math.max(0, offset - block.firstSeq); k < block.points && items.length < limit; k++) {
+      const i = k * POINT_FIELDS;
+      items.push({
+        seq: block.firstSeq + k, epoch: epochText(v[i]), xKm: v[i + 1], yKm: v[i + 2], zKm: v[i + 3],
+        vxKmS: orNull(v[i + 4]), vyKmS: orNull(v[i + 5]), vzKmS: orNull(v[i + 6]),
+      });
+    }
+    if (items.length >= limit) break;
+  }
+  return { items, offset, limit, total: row.rows };
 }
 
-/** Removes the ephemeris and (by the cascade) its points, with the audit event, in one transaction. */
+/** Removes the ephemeris and (by the cascade) its point blocks, with the audit event, in one transaction. */
 export function deleteEphemeris(ctx: AppContext, mission: MissionRow, row: EphemerisRow, userId: string): void {
   ctx.db.transaction((tx) => {
     tx.delete(ephemerides).where(eq(ephemerides.id, row.id)).run();

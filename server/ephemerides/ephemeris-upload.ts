@@ -4,6 +4,7 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
 import path from 'node:path';
+import type { Writable } from 'node:stream';
 import type { Request, Response } from 'express';
 import multer, { MulterError } from 'multer';
 import type { Config } from '../config';
@@ -45,11 +46,18 @@ function uploadError(err: unknown, config: Config): ApiError | unknown {
   return err;
 }
 
-/** Runs multer for this request; `written` collects the generated paths as they are created. */
-export function receiveUpload(config: Config, req: Request, res: Response, written: string[]): Promise<ReceivedUpload> {
+/**
+ * Runs multer for this request; `written` collects the generated paths as they are created.
+ * `onFile` sees the fields that came before the file and may answer a stream to be written with
+ * the file's bytes as they arrive, beside the copy on disk (the slower of the two sets the pace).
+ */
+export function receiveUpload(
+  config: Config, req: Request, res: Response, written: string[],
+  onFile?: (early: Record<string, unknown>) => Writable | null,
+): Promise<ReceivedUpload> {
   const destination = uploadsDir(config);
   mkdirSync(destination, { recursive: true });
-  const storage = multer.diskStorage({
+  const disk = multer.diskStorage({
     destination,
     filename: (_req, _file, done) => {
       const name = `${randomUUID()}.upload`;
@@ -57,6 +65,15 @@ export function receiveUpload(config: Config, req: Request, res: Response, writt
       done(null, name);
     },
   });
+  const storage: multer.StorageEngine = {
+    _handleFile(request, file, done) {
+      disk._handleFile(request, file, done);
+      const early: unknown = request.body;
+      const tap = onFile?.(early !== null && typeof early === 'object' ? { ...(early as Record<string, unknown>) } : {});
+      if (tap) file.stream.pipe(tap);
+    },
+    _removeFile: (request, file, done) => disk._removeFile(request, file, done),
+  };
   const upload = multer({
     storage,
     limits: { fileSize: Math.floor(config.uploadLimitMb * 1024 * 1024), files: 1, fields: 10, fieldSize: 4096, parts: 12 },

@@ -1,8 +1,6 @@
 // A first look at the uploaded bytes, before any parsing: empty, compressed or binary files are
 // refused with a sentence that says what they look like; text is told apart as CCSDS OEM (its
 // first non-empty line is CCSDS_OEM_VERS) or CSV by content, never by the file's extension.
-import { closeSync, openSync, readSync } from 'node:fs';
-
 export type Sniffed = { format: 'csv' | 'oem' } | { refused: string };
 
 const SAMPLE_BYTES = 8192;
@@ -15,16 +13,13 @@ const signatures: { bytes: number[]; what: string }[] = [
   { bytes: [0x37, 0x7a, 0xbc, 0xaf, 0x27, 0x1c], what: '7-zip' },
 ];
 
-export function sniffFile(file: string): Sniffed {
-  const fd = openSync(file, 'r');
-  const sample = Buffer.alloc(SAMPLE_BYTES);
-  let length: number;
-  try {
-    length = readSync(fd, sample, 0, SAMPLE_BYTES, 0);
-  } finally {
-    closeSync(fd);
-  }
-  const bytes = sample.subarray(0, length);
+/** How many leading bytes `sniffBytes` wants to see (fewer only when the file is shorter). */
+export const SNIFF_BYTES = SAMPLE_BYTES;
+
+/** The verdict on a file from its first SNIFF_BYTES bytes (all of them for a shorter file). */
+export function sniffBytes(head: Uint8Array): Sniffed {
+  const bytes = head.subarray(0, SAMPLE_BYTES);
+  const length = bytes.length;
   if (length === 0) return { refused: 'the file is empty' };
   for (const s of signatures) {
     if (s.bytes.every((b, i) => bytes[i] === b)) return { refused: `looks like a compressed file (${s.what}); upload the uncompressed text` };

@@ -2,11 +2,11 @@
 // stream) writes it, and the insert (one synchronous SQLite transaction) reads it back in chunks.
 // This keeps memory flat however long the ephemeris is, without holding a transaction open across
 // awaits (which would let other requests' statements fall into it).
+// Its records are laid out as the stored blocks are (point-blocks.ts), a block per chunk.
 import { closeSync, openSync, readSync, writeSync } from 'node:fs';
+import { BLOCK_POINTS, POINT_FIELDS } from './point-blocks';
 
-/** t (ms), x, y, z (km), vx, vy, vz (km/s, NaN when absent). */
-export const POINT_FIELDS = 7;
-const CHUNK_POINTS = 4096;
+const CHUNK_POINTS = BLOCK_POINTS;
 
 export class PointSpool {
   private fd: number | null;
@@ -39,8 +39,11 @@ export class PointSpool {
     this.used = 0;
   }
 
-  /** Calls `each` with every point in order, from the file, a chunk at a time (synchronous). */
-  forEach(each: (values: Float64Array, offset: number) => void): void {
+  /**
+   * Calls `each` with every chunk of CHUNK_POINTS points in order (the last may hold fewer), read
+   * back from the file into one reused array (synchronous).
+   */
+  forEachChunk(each: (values: Float64Array, points: number) => void): void {
     this.flush();
     if (this.fd === null) throw new Error('the point spool is closed');
     const chunk = new Float64Array(CHUNK_POINTS * POINT_FIELDS);
@@ -54,7 +57,7 @@ export class PointSpool {
         got += n;
       }
       const points = Math.floor(got / (POINT_FIELDS * 8));
-      for (let k = 0; k < points; k++) each(chunk, k * POINT_FIELDS);
+      if (points > 0) each(chunk, points);
       if (got < bytes.length) return;
       position += got;
     }

@@ -1,16 +1,14 @@
 // ephemerides: trajectories uploaded to a mission and the environment along them
 // (shared/api/ephemerides.ts lists the routes and their shapes).
 import { Router } from 'express';
-import { rmSync } from 'node:fs';
-import { ephemerisPointsQuery, ephemerisUploadFields, trajectoryEnvironmentRequest } from '../../shared/api/ephemerides';
+import { ephemerisPointsQuery, trajectoryEnvironmentRequest } from '../../shared/api/ephemerides';
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
-import { badRequest, parse } from '../errors';
+import { parse } from '../errors';
 import { pathParam } from '../path-param';
 import { ephemerisEnvironment } from '../ephemerides/ephemeris-environment';
-import { ingestEphemeris, spoolPathFor } from '../ephemerides/ephemeris-ingest';
+import { receiveEphemeris } from '../ephemerides/ephemeris-ingest';
 import { deleteEphemeris, ephemerisMission, ephemerisOf, listEphemerides, pointsPage, toEphemerisSummary } from '../ephemerides/ephemeris-store';
-import { receiveUpload, uploadsDir } from '../ephemerides/ephemeris-upload';
 
 export function ephemerisRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -20,19 +18,8 @@ export function ephemerisRoutes(ctx: AppContext): Router {
     const user = signedIn(req).user;
     // Access first, so a viewer or a stranger is refused before a byte of the file is stored.
     const mission = ephemerisMission(ctx, user.id, pathParam(req, 'id'), 'edit');
-    const written: string[] = [];
-    try {
-      const upload = await receiveUpload(ctx.config, req, res, written);
-      if (!upload.file) throw badRequest('Send the ephemeris as multipart/form-data with the file in the field "file".', [{ path: 'file', message: 'no file' }]);
-      const fields = parse(ephemerisUploadFields, upload.fields);
-      const spoolPath = spoolPathFor(uploadsDir(ctx.config));
-      written.push(spoolPath);
-      const row = await ingestEphemeris(ctx, { mission, userId: user.id, file: upload.file, fields, spoolPath });
-      res.status(201).json(toEphemerisSummary(row));
-    } finally {
-      // Accepted or refused, the uploaded bytes are never kept: the points are in the database.
-      for (const file of written) rmSync(file, { force: true });
-    }
+    const row = await receiveEphemeris(ctx, req, res, mission, user.id);
+    res.status(201).json(toEphemerisSummary(row));
   });
 
   router.get(base, requireUser, (req, res) => {

@@ -82,7 +82,7 @@ async function checkRecovered(): Promise<void> {
       expect(db.pragma('integrity_check', { simple: true })).toBe('ok');
       expect(db.pragma('foreign_key_check')).toEqual([]);
       expect((db.prepare('SELECT count(*) AS n FROM ephemerides').get() as { n: number }).n).toBe(0);
-      expect((db.prepare('SELECT count(*) AS n FROM ephemeris_points').get() as { n: number }).n).toBe(0);
+      expect((db.prepare('SELECT count(*) AS n FROM ephemeris_point_blocks').get() as { n: number }).n).toBe(0);
     } finally {
       db.close();
     }

@@ -42,16 +42,19 @@ export function createTestMission(t: TestApp, bodyId: BodyId = 'earth', workspac
 export interface Trace {
   ephemerides: number;
   points: number;
+  blocks: number;
   uploads: string[];
 }
 
 /** What an upload could leave behind: rows in both tables, files in the uploads folder. */
 export function trace(t: TestApp): Trace {
   const count = (table: string) => (t.ctx.sqlite.prepare(`SELECT count(*) AS n FROM ${table}`).get() as { n: number }).n;
+  const points = (t.ctx.sqlite.prepare('SELECT coalesce(sum(points), 0) AS n FROM ephemeris_point_blocks').get() as { n: number }).n;
   const uploads = path.join(t.ctx.config.dataDir, 'uploads');
   return {
     ephemerides: count('ephemerides'),
-    points: count('ephemeris_points'),
+    points,
+    blocks: count('ephemeris_point_blocks'),
     uploads: existsSync(uploads) ? readdirSync(uploads).sort() : [],
   };
 }
