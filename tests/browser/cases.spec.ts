@@ -3,7 +3,7 @@
 // and a new revision with other margins is released and compared with the first.
 import { readFile } from 'node:fs/promises';
 import { expect, test, type Browser, type Page } from '@playwright/test';
-import { screenshot, signIn } from './session';
+import { dialogReady, screenshot, signIn } from './session';
 
 const mission = 'Kestrel-1 imaging smallsat';
 const orbit = 'Operational SSO 540 km';
@@ -46,6 +46,7 @@ test('derive, review, release, export and compare a load case', async ({ browser
   const thermal = await as(browser, 'thermal@kestrel.test');
   await openLibrary(thermal);
   await thermal.getByTestId('derive-cases').click();
+  await dialogReady(thermal);
   await choose(thermal, 'derive-mission', mission);
   await choose(thermal, 'derive-orbit', orbit);
   await thermal.getByTestId('derive-name').fill(prefix);
@@ -125,6 +126,7 @@ test('derive, review, release, export and compare a load case', async ({ browser
     await expect(thermal.getByTestId('case-status')).toHaveText('Draft');
     secondUrl = thermal.url();
     await thermal.getByTestId('case-edit').click();
+    await dialogReady(thermal);
     await thermal.getByTestId('edit-heat-margin').fill('30');
     await thermal.getByTestId('edit-save').click();
     await expect(thermal.getByTestId('case-heat-margin')).toContainText('30 %');
@@ -160,6 +162,7 @@ test('a thermal engineer adds a custom case with a fixed beta angle', async ({ p
   await signIn(page, 'thermal@kestrel.test');
   await openLibrary(page);
   await page.getByTestId('new-custom-case').click();
+  await dialogReady(page);
   await choose(page, 'custom-mission', mission);
   await choose(page, 'custom-orbit', orbit);
   await page.getByTestId('custom-name').fill('Browser beta zero');

@@ -2,7 +2,7 @@
 // surfaces, the environment with its plots and CSV, and the mission sweep streamed day by day.
 import { readFile } from 'node:fs/promises';
 import { expect, test, type Page } from '@playwright/test';
-import { screenshot, signIn } from './session';
+import { dialogReady, screenshot, signIn } from './session';
 
 async function chooseOption(page: Page, selectTestId: string, option: RegExp | string): Promise<void> {
   await page.getByTestId(selectTestId).click();
@@ -11,6 +11,7 @@ async function chooseOption(page: Page, selectTestId: string, option: RegExp | s
 
 async function addSurface(page: Page, name: string, area: string, faces: RegExp): Promise<void> {
   await page.getByTestId('surface-add').click();
+  await dialogReady(page);
   await page.getByTestId('surface-name').fill(name);
   await page.getByTestId('surface-area').fill(area);
   await chooseOption(page, 'surface-normal', faces);
@@ -33,6 +34,7 @@ test('the analyst creates a mission, an orbit and surfaces, and reads the enviro
 
   const name = `Heron test ${Date.now()}`;
   await page.getByTestId('mission-new').click();
+  await dialogReady(page);
   await page.getByTestId('mission-name').fill(name);
   await page.getByTestId('mission-start').fill('2027-03-20');
   await page.getByTestId('mission-end').fill('2027-05-20');
@@ -117,13 +119,20 @@ test('a viewer reads a mission but is offered no changes, and can run and cancel
   await expect(page.getByTestId('surface-add')).toHaveCount(0);
   await screenshot(page, 'mission-viewer-surfaces');
 
-  // A multi-year sweep streams long enough to show its progress and to be cancelled.
+  // A multi-year sweep streams long enough to show its progress and to be cancelled. The server
+  // computes it in a fraction of a second, so the network is slowed (Chromium's own throttling,
+  // about 100 kB/s) for the stream to take seconds, as over a slow link.
+  const network = await page.context().newCDPSession(page);
+  const throttle = (bytesPerSecond: number) =>
+    network.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: bytesPerSecond, uploadThroughput: -1 });
+  await throttle(100_000);
   await page.getByRole('tab', { name: 'Mission sweep' }).click();
   await page.getByTestId('sweep-run').click();
   await expect(page.getByTestId('sweep-progress')).toBeVisible();
   await page.getByTestId('sweep-cancel').click();
   await expect(page.getByText(/^Cancelled after \d+ of \d+ days/)).toBeVisible();
 
+  await throttle(400_000);
   await page.getByTestId('sweep-run').click();
   await expect(page.getByTestId('sweep-progress')).toContainText(/[1-9]\d* of \d+ days/);
   await screenshot(page, 'mission-sweep-progress');

@@ -14,3 +14,13 @@ export async function signIn(page: Page, email: string, password = demoPassword)
 export async function screenshot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: `tmp/screenshots/${name}.png`, fullPage: true });
 }
+
+/**
+ * Waits until a dialog that was just opened has taken the focus. Material moves the focus into a
+ * dialog once it has opened; a field filled before that can lose its text to the field the
+ * dialog focuses (Playwright inserts text where the focus is).
+ */
+export async function dialogReady(page: Page): Promise<void> {
+  await expect(page.locator('mat-dialog-container').last()).toBeVisible();
+  await page.waitForFunction(() => document.activeElement?.closest('mat-dialog-container') != null);
+}
