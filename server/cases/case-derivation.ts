@@ -38,6 +38,11 @@ interface MissionSnapshot {
 function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string): MissionSnapshot {
   const orbit = db.select().from(orbits).where(and(eq(orbits.id, orbitId), eq(orbits.missionId, mission.id))).get();
   if (!orbit) throw notFound(`The mission "${mission.name}" has no orbit with id ${JSON.stringify(orbitId.slice(0, 80))}.`);
+  return { orbit, surfaces: surfaceSnapshot(db, mission) };
+}
+
+/** The mission's surfaces with their materials, as a case keeps them; 422 when there are none. */
+export function surfaceSnapshot(db: Pick<Db, 'select'>, mission: MissionRow): CaseSurface[] {
   const rows = db
     .select({ surface: surfaces, material: materials })
     .from(surfaces)
@@ -50,26 +55,24 @@ function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string
       { path: 'missionId', message: 'no surfaces' },
     ]);
   }
-  return {
-    orbit,
-    surfaces: rows.map(({ surface, material }) => ({
-      name: surface.name,
-      // Stored as JSON text; checked against the contract's normals on the way out.
-      normal: surfaceNormal.parse(surface.normal),
-      areaM2: surface.areaM2,
-      material: {
-        name: material.name,
-        absorptivityBol: material.absorptivityBol,
-        emissivityBol: material.emissivityBol,
-        absorptivityEol: material.absorptivityEol,
-        emissivityEol: material.emissivityEol,
-        source: material.source,
-      },
-    })),
-  };
+  return rows.map(({ surface, material }) => ({
+    name: surface.name,
+    // Stored as JSON text; checked against the contract's normals on the way out.
+    normal: surfaceNormal.parse(surface.normal),
+    areaM2: surface.areaM2,
+    material: {
+      name: material.name,
+      absorptivityBol: material.absorptivityBol,
+      emissivityBol: material.emissivityBol,
+      absorptivityEol: material.absorptivityEol,
+      emissivityEol: material.emissivityEol,
+      source: material.source,
+    },
+  }));
 }
 
-function baseInputs(mission: MissionRow, orbit: OrbitRow): Pick<CaseInputs, 'mission' | 'body' | 'orbit'> {
+/** The mission and its body as a case records them. */
+export function missionInputs(mission: MissionRow): Pick<CaseInputs, 'mission' | 'body'> {
   const body = getBody(mission.bodyId);
   return {
     mission: { id: mission.id, name: mission.name, startDate: mission.startDate, endDate: mission.endDate, crewed: mission.crewed },
@@ -78,6 +81,12 @@ function baseInputs(mission: MissionRow, orbit: OrbitRow): Pick<CaseInputs, 'mis
       solarDistanceAu: solarDistanceRangeAu(body), albedo: { ...body.albedo }, olrWm2: { ...body.olrWm2 },
       provisional: body.provisional, sources: { ...body.sources },
     },
+  };
+}
+
+function baseInputs(mission: MissionRow, orbit: OrbitRow): Pick<CaseInputs, 'mission' | 'body' | 'orbit'> {
+  return {
+    ...missionInputs(mission),
     orbit: {
       id: orbit.id, name: orbit.name, epoch: orbit.epoch, periapsisAltitudeKm: orbit.periapsisAltitudeKm,
       apoapsisAltitudeKm: orbit.apoapsisAltitudeKm, semiMajorAxisKm: orbit.semiMajorAxisKm, eccentricity: orbit.eccentricity,
@@ -90,7 +99,7 @@ const canonicalOrbit = (o: OrbitRow): StoredConditions['orbit'] => ({
   semiMajorAxisKm: o.semiMajorAxisKm, eccentricity: o.eccentricity, inclinationDeg: o.inclinationDeg, raanDeg: o.raanDeg, argPeriapsisDeg: o.argPeriapsisDeg,
 });
 
-function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: UserRow, values: DraftValues): LoadCaseRow {
+export function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: UserRow, values: DraftValues): LoadCaseRow {
   return tx
     .insert(loadCases)
     .values({ ...values, missionId: mission.id, workspaceId: mission.workspaceId, seriesId: randomUUID(), revision: 1, status: 'draft', authorId: user.id })
@@ -98,7 +107,7 @@ function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: UserRow,
     .get();
 }
 
-type DraftValues = Pick<LoadCaseRow, 'name' | 'kind' | 'inputs' | 'results'>;
+export type DraftValues = Pick<LoadCaseRow, 'name' | 'kind' | 'inputs' | 'results'>;
 
 /** The hot and cold cases of a mission's orbit, ready to be saved (the seed saves them too). */
 export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {

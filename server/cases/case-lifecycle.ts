@@ -10,11 +10,12 @@ import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import type { Tx } from '../db/database';
 import { caseSubscriptions, loadCases, type LoadCaseRow, type UserRow } from '../db/schema';
-import { conflict, forbidden } from '../errors';
+import { conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
 import { attitudeText } from './case-derivation';
 import { caseReleasedMail } from './case-mail';
+import { withMargins } from './ephemeris-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
 
 
@@ -36,6 +37,7 @@ function audit(tx: Tx, row: LoadCaseRow, user: UserRow, action: string, summary:
 export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, change: CaseUpdateParsed): LoadCaseRow {
   requireStatus(row, ['draft'], 'changed');
   const before = row.inputs;
+  if (before.ephemeris) return updateEphemerisCase(ctx, user, row, change);
   const edits = change.inputs ?? {};
   const { attitude, ...conditionEdits } = edits;
   const conditions = { ...before.conditions, ...conditionEdits };
@@ -69,6 +71,40 @@ export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, cha
       .get();
     if (!updated) throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
     const what = [change.name ? 'name' : null, change.margins ? 'margins' : null, ...changedKeys].filter(Boolean).join(', ') || 'nothing';
+    audit(tx, updated, user, 'case.edited', `Edited ${label(updated)} (${what}).`);
+    return updated;
+  });
+}
+
+/**
+ * A case from an ephemeris: its loads come from the trajectory, so only the name and the margins
+ * change here; other inputs are a new case from the ephemeris (422 naming them).
+ */
+function updateEphemerisCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, change: CaseUpdateParsed): LoadCaseRow {
+  const before = row.inputs;
+  const edited = Object.keys(change.inputs ?? {});
+  if (edited.length > 0) {
+    throw unprocessable(
+      `The case ${label(row)} was computed along the ephemeris "${before.ephemeris?.name ?? ''}": its ${edited.join(', ')} cannot be changed by hand. Make a new case from the ephemeris with the window and properties you want.`,
+      edited.map((k) => ({ path: `inputs.${k}`, message: 'fixed by the ephemeris the case was computed along' })),
+    );
+  }
+  const margins = change.margins
+    ? resolveMargins({
+        heatLoadPercent: change.margins.heatLoadPercent ?? before.margins.heatLoadPercent,
+        temperatureMarginC: change.margins.temperatureMarginC ?? before.margins.temperatureMarginC,
+      })
+    : before.margins;
+  const results = withMargins(row.results, margins, before.conditions.marginDirection);
+  return ctx.db.transaction((tx) => {
+    const updated = tx
+      .update(loadCases)
+      .set({ name: change.name ?? row.name, inputs: { ...before, margins }, results, updatedAt: new Date().toISOString() })
+      .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'draft')))
+      .returning()
+      .get();
+    if (!updated) throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
+    const what = [change.name ? 'name' : null, change.margins ? 'margins' : null].filter(Boolean).join(', ') || 'nothing';
     audit(tx, updated, user, 'case.edited', `Edited ${label(updated)} (${what}).`);
     return updated;
   });

@@ -6,7 +6,7 @@ import { eq } from 'drizzle-orm';
 import type { TrajectoryEnvironmentResponse } from '../../shared/api/ephemerides';
 import { getBody } from '../../shared/physics/bodies';
 import { namedNormals, type Surface, type SurfaceNormal } from '../../shared/physics/heat-loads';
-import { trajectoryEnvironment, type TrajectorySample } from '../../shared/physics/trajectory-environment';
+import { trajectoryEnvironment, type TrajectoryEnvironment, type TrajectorySample } from '../../shared/physics/trajectory-environment';
 import type { AppContext } from '../app-context';
 import { materials, surfaces, type EphemerisRow, type MissionRow } from '../db/schema';
 import { unprocessable } from '../errors';
@@ -19,13 +19,15 @@ export interface EphemerisEnvironmentOptions {
   maxPoints: number;
   albedo?: number | undefined;
   olrWm2?: number | undefined;
+  from?: string | undefined;
+  to?: string | undefined;
 }
 
 const assumptions = [
   'the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations); conical shadow of the central body, no atmosphere',
   'albedo load = S * albedo * F * cos(solar zenith at the sub-spacecraft point): a common engineering approximation; planetary IR = OLR * F (Howell catalogue)',
   'local orbital frame from r and v (v by finite differences when the file has no velocities); surfaces fixed in it',
-  'averages are time-weighted (trapezoidal) over the whole span of the ephemeris, not per orbit',
+  'averages are time-weighted (trapezoidal) over the window (the whole ephemeris unless a window is given), not per orbit',
   'preliminary-design estimate from simplified models; verify with detailed analysis, a correlated model and thermal test',
 ];
 
@@ -54,14 +56,97 @@ export function missionSurfaces(ctx: AppContext, missionId: string, properties: 
     }));
 }
 
-function* samples(ctx: AppContext, ephemerisId: string): Generator<TrajectorySample> {
+/** The stored points with epochs in [fromMs, toMs], in order. */
+function* samples(ctx: AppContext, ephemerisId: string, fromMs: number, toMs: number): Generator<TrajectorySample> {
   for (const block of storedBlocks(ctx, ephemerisId)) {
     const v = block.values;
-    for (let i = 0; i < block.points * POINT_FIELDS; i += POINT_FIELDS) {
+    const n = block.points * POINT_FIELDS;
+    // whole blocks before the window are passed over; the first one after it ends the walk
+    if (v[n - POINT_FIELDS] < fromMs) continue;
+    if (v[0] > toMs) return;
+    for (let i = 0; i < n; i += POINT_FIELDS) {
+      const tMs = v[i];
+      if (tMs < fromMs) continue;
+      if (tMs > toMs) return;
       const velocity = Number.isNaN(v[i + 4]) || Number.isNaN(v[i + 5]) || Number.isNaN(v[i + 6]) ? null : ([v[i + 4], v[i + 5], v[i + 6]] as const);
-      yield { tMs: v[i], positionKm: [v[i + 1], v[i + 2], v[i + 3]], velocityKmS: velocity };
+      yield { tMs, positionKm: [v[i + 1], v[i + 2], v[i + 3]], velocityKmS: velocity };
     }
   }
+}
+
+export interface WindowRequest {
+  from?: string | undefined;
+  to?: string | undefined;
+}
+
+export interface EphemerisWindow {
+  fromMs: number;
+  toMs: number;
+  /** Rows with epochs in the window. */
+  rows: number;
+}
+
+/**
+ * The rows of the ephemeris inside the asked window (either end defaults to the ephemeris' own),
+ * with the epochs of the first and last of them; 422 when the window holds fewer than two rows.
+ */
+export function ephemerisWindow(ctx: AppContext, row: EphemerisRow, window: WindowRequest): EphemerisWindow {
+  const startMs = Date.parse(row.startEpoch);
+  const endMs = Date.parse(row.endEpoch);
+  const fromMs = window.from ? Date.parse(window.from) : startMs;
+  const toMs = window.to ? Date.parse(window.to) : endMs;
+  if (fromMs > endMs || toMs < startMs) {
+    const field = fromMs > endMs ? 'from' : 'to';
+    throw unprocessable(`The window ${epochText(fromMs)} – ${epochText(toMs)} lies outside the ephemeris, which runs ${row.startEpoch} – ${row.endEpoch}.`, [
+      { path: field, message: `${field} ${epochText(field === 'from' ? fromMs : toMs)} is outside ${row.startEpoch} – ${row.endEpoch}` },
+    ]);
+  }
+  if (!window.from && !window.to) return { fromMs: startMs, toMs: endMs, rows: row.rows };
+  let rows = 0;
+  let first = NaN;
+  let last = NaN;
+  for (const sample of samples(ctx, row.id, fromMs, toMs)) {
+    if (rows === 0) first = sample.tMs;
+    last = sample.tMs;
+    rows++;
+  }
+  if (rows < 2) {
+    throw unprocessable(`The window ${epochText(fromMs)} – ${epochText(toMs)} holds ${rows} row${rows === 1 ? '' : 's'} of the ephemeris; a window needs at least two (its rows are ${row.stepS} s apart).`, [
+      { path: 'to', message: `the window holds ${rows} row${rows === 1 ? '' : 's'}` },
+    ]);
+  }
+  return { fromMs: first, toMs: last, rows };
+}
+
+/** The window's first two rows (it holds at least two). */
+export function firstStates(ctx: AppContext, row: EphemerisRow, window: EphemerisWindow): [TrajectorySample, TrajectorySample] {
+  const found: TrajectorySample[] = [];
+  for (const sample of samples(ctx, row.id, window.fromMs, window.toMs)) {
+    found.push(sample);
+    if (found.length === 2) return [found[0]!, found[1]!];
+  }
+  throw new Error(`the window of ephemeris ${row.id} holds fewer than two rows`);
+}
+
+export interface WindowEnvironmentOptions {
+  albedo?: number | undefined;
+  olrWm2?: number | undefined;
+  /** Rows to keep as points, evenly thinned (the averages and peaks use every row). */
+  maxPoints: number;
+}
+
+/** The environment at every row of the window, for the given surfaces. */
+export function windowEnvironment(
+  ctx: AppContext, mission: MissionRow, row: EphemerisRow, window: EphemerisWindow, surfaceList: Surface[], options: WindowEnvironmentOptions,
+): TrajectoryEnvironment {
+  const stride = Math.max(1, Math.ceil(window.rows / options.maxPoints));
+  return trajectoryEnvironment(samples(ctx, row.id, window.fromMs, window.toMs), {
+    body: getBody(mission.bodyId),
+    surfaces: surfaceList,
+    albedo: options.albedo,
+    olrWm2: options.olrWm2,
+    keep: (i) => i % stride === 0 || i === window.rows - 1,
+  });
 }
 
 export function ephemerisEnvironment(ctx: AppContext, mission: MissionRow, row: EphemerisRow, options: EphemerisEnvironmentOptions): TrajectoryEnvironmentResponse {
@@ -72,14 +157,8 @@ export function ephemerisEnvironment(ctx: AppContext, mission: MissionRow, row: 
       { path: 'surfaces', message: 'no surfaces in this mission' },
     ]);
   }
-  const stride = Math.max(1, Math.ceil(row.rows / options.maxPoints));
-  const result = trajectoryEnvironment(samples(ctx, row.id), {
-    body,
-    surfaces: surfaceList,
-    albedo: options.albedo,
-    olrWm2: options.olrWm2,
-    keep: (i) => i % stride === 0 || i === row.rows - 1,
-  });
+  const window = ephemerisWindow(ctx, row, options);
+  const result = windowEnvironment(ctx, mission, row, window, surfaceList, options);
   return {
     ephemerisId: row.id,
     bodyId: body.id,
@@ -87,6 +166,7 @@ export function ephemerisEnvironment(ctx: AppContext, mission: MissionRow, row: 
     albedo: result.albedo,
     olrWm2: result.olrWm2,
     rows: result.rows,
+    window: { from: epochText(window.fromMs), to: epochText(window.toMs) },
     points: result.points.map((p) => ({ epoch: epochText(p.tMs), altitudeKm: p.altitudeKm, sunlit: p.sunlit, surfaces: p.surfaces })),
     averages: result.averages,
     peaks: result.peaks,

@@ -2,8 +2,9 @@
 // shared/api/ephemerides.ts).
 import { z } from 'zod';
 import {
-  ephemerisPointsPage, ephemerisPointsQuery, ephemerisSummary, ephemerisUploadFields, trajectoryEnvironmentRequest, trajectoryEnvironmentResponse,
+  ephemerisCaseCreate, ephemerisPointsPage, ephemerisPointsQuery, ephemerisSummary, ephemerisUploadFields, trajectoryEnvironmentRequest, trajectoryEnvironmentResponse,
 } from '../../shared/api/ephemerides';
+import { caseDetail } from '../../shared/api/cases';
 import { environmentResponse } from '../../shared/api/environment';
 import {
   material, materialCreate, materialUpdate, mission, missionCreate, missionDetail, missionUpdate, orbit, orbitCreate, orbitUpdate,
@@ -41,5 +42,6 @@ export const missionApiRoutes: ApiRoute[] = [
   { method: 'get', path: `${m}/ephemerides/:ephemerisId`, tag: 'ephemerides', summary: 'One ephemeris (summary)', response: ephemerisSummary },
   { method: 'get', path: `${m}/ephemerides/:ephemerisId/points`, tag: 'ephemerides', summary: 'A page of an ephemeris’ points', query: ephemerisPointsQuery, response: ephemerisPointsPage },
   { method: 'delete', path: `${m}/ephemerides/:ephemerisId`, tag: 'ephemerides', summary: 'Delete an ephemeris', status: 204 },
-  { method: 'post', path: `${m}/ephemerides/:ephemerisId/environment`, tag: 'ephemerides', summary: 'The environment along an uploaded trajectory', body: trajectoryEnvironmentRequest, response: trajectoryEnvironmentResponse },
+  { method: 'post', path: `${m}/ephemerides/:ephemerisId/environment`, tag: 'ephemerides', summary: 'The environment along an uploaded trajectory (optionally over a window)', body: trajectoryEnvironmentRequest, response: trajectoryEnvironmentResponse },
+  { method: 'post', path: `${m}/ephemerides/:ephemerisId/cases`, tag: 'ephemerides', summary: 'A load case (custom, draft) from a window of the trajectory', body: ephemerisCaseCreate, status: 201, response: caseDetail },
 ];

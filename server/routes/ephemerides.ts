@@ -1,9 +1,12 @@
 // ephemerides: trajectories uploaded to a mission and the environment along them
 // (shared/api/ephemerides.ts lists the routes and their shapes).
 import { Router } from 'express';
-import { ephemerisPointsQuery, trajectoryEnvironmentRequest } from '../../shared/api/ephemerides';
+import { ephemerisCaseCreate, ephemerisPointsQuery, trajectoryEnvironmentRequest } from '../../shared/api/ephemerides';
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
+import { missionForCases } from '../cases/case-access';
+import { createEphemerisCase } from '../cases/ephemeris-case';
+import { toDetail } from '../cases/case-views';
 import { parse } from '../errors';
 import { pathParam } from '../path-param';
 import { ephemerisEnvironment } from '../ephemerides/ephemeris-environment';
@@ -44,6 +47,15 @@ export function ephemerisRoutes(ctx: AppContext): Router {
     const row = ephemerisOf(ctx, mission.id, pathParam(req, 'ephemerisId'));
     const options = parse(trajectoryEnvironmentRequest, req.body ?? {});
     res.json(ephemerisEnvironment(ctx, mission, row, options));
+  });
+
+  router.post(`${base}/:ephemerisId/cases`, requireUser, (req, res) => {
+    const user = signedIn(req).user;
+    // Load cases are the thermal engineers' and owners' (403 for others, 404 for outsiders).
+    const { mission } = missionForCases(ctx, user.id, pathParam(req, 'id'));
+    const ephemeris = ephemerisOf(ctx, mission.id, pathParam(req, 'ephemerisId'));
+    const row = createEphemerisCase(ctx, user, mission, ephemeris, parse(ephemerisCaseCreate, req.body ?? {}));
+    res.status(201).json(toDetail(ctx.db, row, user.id));
   });
 
   router.delete(`${base}/:ephemerisId`, requireUser, (req, res) => {

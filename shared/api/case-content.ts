@@ -115,6 +115,19 @@ export const caseInputs = z.object({
   surfaceDrivers: z.array(surfaceDriver),
   scan: scanSummary.nullable(),
   assumptions: z.array(z.string()),
+  /** Set when the case was computed along a window of an uploaded ephemeris rather than a Keplerian orbit. */
+  ephemeris: z
+    .object({
+      id: z.string(),
+      name: z.string(),
+      fileName: z.string(),
+      sha256: z.string().describe('SHA-256 of the uploaded file'),
+      from: z.string().describe('ISO 8601 UTC epoch of the first row used'),
+      to: z.string().describe('ISO 8601 UTC epoch of the last row used'),
+      rows: z.number().int().describe('rows of the ephemeris in the window, every one counted in the averages and peaks'),
+    })
+    .optional()
+    .describe('the trajectory a case from an ephemeris was computed along; its orbit is the osculating one at the first row'),
 });
 
 const loadSummary = z.object({
@@ -142,7 +155,7 @@ export const caseResultsContent = z.object({
   eclipseDurationS: num,
   umbraDurationS: num,
   penumbraDurationS: num,
-  tS: z.array(num).describe('s from periapsis (from the ascending node for a circular orbit)'),
+  tS: z.array(num).describe('s from periapsis (from the ascending node for a circular orbit; from the first row for a case from an ephemeris)'),
   sunlit: z.array(num).describe('1 full sun, 0 umbra'),
   surfaces: z.array(caseSurfaceResult),
   total: z.object({ orbitAverageAbsorbedW: num, orbitAverageWithMarginW: num, peakAbsorbedW: num }),

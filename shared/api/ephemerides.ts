@@ -10,7 +10,10 @@
 //   GET    missions/:id/ephemerides/:ephemerisId/points?offset=0&limit=1000 -> ephemerisPointsPage
 //   DELETE missions/:id/ephemerides/:ephemerisId   -> 204 (its points go too)
 //   POST   missions/:id/ephemerides/:ephemerisId/environment  trajectoryEnvironmentRequest
-//            -> trajectoryEnvironmentResponse (the mission's surfaces with their materials)
+//            -> trajectoryEnvironmentResponse (the mission's surfaces with their materials; optionally
+//               over a window from..to of the ephemeris)
+//   POST   missions/:id/ephemerides/:ephemerisId/cases  ephemerisCaseCreate -> 201 caseDetail (a custom
+//            case, draft, from a window of the ephemeris; thermal engineers and owners)
 import { z } from 'zod';
 
 /** Inertial frames accepted, centred on the mission's body; GCRF only for the Earth. */
@@ -70,13 +73,49 @@ export const ephemerisPointsPage = z.object({
   total: z.number(),
 });
 
-export const trajectoryEnvironmentRequest = z.strictObject({
-  properties: z.enum(['bol', 'eol']).default('bol'),
-  /** Points returned (evenly thinned); the averages always use every row. */
-  maxPoints: z.number().int().min(2, 'maxPoints is 2..20000').max(20000, 'maxPoints is 2..20000').default(2000),
-  albedo: z.number().min(0, 'albedo is 0..1').max(1, 'albedo is 0..1').optional(),
-  olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000).optional(),
-});
+const windowEpoch = (field: string) =>
+  z.iso.datetime({ offset: true, message: `${field} is an ISO 8601 date and time in UTC, e.g. 2027-03-20T12:00:00Z` }).optional();
+
+/** A part of the ephemeris, from and to epochs included; either end defaults to the ephemeris' own. */
+const timeWindow = {
+  from: windowEpoch('from'),
+  to: windowEpoch('to'),
+};
+const windowOrder = (w: { from?: string | undefined; to?: string | undefined }) => !w.from || !w.to || Date.parse(w.from) < Date.parse(w.to);
+const windowOrderError = { message: 'from must be before to', path: ['to'] };
+
+export const trajectoryEnvironmentRequest = z
+  .strictObject({
+    properties: z.enum(['bol', 'eol']).default('bol'),
+    /** Points returned (evenly thinned); the averages always use every row of the window. */
+    maxPoints: z.number().int().min(2, 'maxPoints is 2..20000').max(20000, 'maxPoints is 2..20000').default(2000),
+    albedo: z.number().min(0, 'albedo is 0..1').max(1, 'albedo is 0..1').optional(),
+    olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000).optional(),
+    ...timeWindow,
+  })
+  .refine(windowOrder, windowOrderError);
+
+/**
+ * A load case from a window of the ephemeris (thermal engineers and owners): its loads at every
+ * row of the window, thinned to `steps` for the stored series; averages and peaks over every row.
+ */
+export const ephemerisCaseCreate = z
+  .strictObject({
+    name: z.string().trim().min(1, 'give the case a name').max(120, 'a case name has at most 120 characters'),
+    properties: z.enum(['bol', 'eol']).default('bol'),
+    marginDirection: z.enum(['increase', 'decrease']).default('increase'),
+    albedo: z.number().min(0, 'albedo is 0..1').max(1, 'albedo is 0..1').optional(),
+    olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000).optional(),
+    margins: z
+      .strictObject({
+        heatLoadPercent: z.number().min(0, 'heatLoadPercent is 0..200').max(200, 'heatLoadPercent is 0..200').optional(),
+        temperatureMarginC: z.number().min(0, 'temperatureMarginC is 0..100').max(100, 'temperatureMarginC is 0..100').optional(),
+      })
+      .optional(),
+    steps: z.number().int('steps is a whole number').min(12, 'steps is 12..2000').max(2000, 'steps is 12..2000').default(360),
+    ...timeWindow,
+  })
+  .refine(windowOrder, windowOrderError);
 
 const surfaceLoad = z.object({
   name: z.string(),
@@ -93,10 +132,12 @@ export const trajectoryEnvironmentResponse = z.object({
   albedo: z.number(),
   olrWm2: z.number(),
   rows: z.number(),
+  /** The first and last epochs of the rows used (the whole ephemeris unless a window was asked for). */
+  window: z.object({ from: z.string(), to: z.string() }),
   points: z.array(
     z.object({ epoch: z.string(), altitudeKm: z.number(), sunlit: z.number(), surfaces: z.array(surfaceLoad) }),
   ),
-  /** Time-weighted over the whole span (trapezoidal), every row. */
+  /** Time-weighted over the window (trapezoidal), every row. */
   averages: z.object({ sunlitFraction: z.number(), surfaces: z.array(surfaceLoad) }),
   peaks: z.object({ surfaces: z.array(surfaceLoad) }),
   assumptions: z.array(z.string()),
@@ -108,3 +149,5 @@ export type EphemerisPoint = z.infer<typeof ephemerisPoint>;
 export type EphemerisPointsPage = z.infer<typeof ephemerisPointsPage>;
 export type TrajectoryEnvironmentRequest = z.input<typeof trajectoryEnvironmentRequest>;
 export type TrajectoryEnvironmentResponse = z.infer<typeof trajectoryEnvironmentResponse>;
+export type EphemerisCaseCreate = z.input<typeof ephemerisCaseCreate>;
+export type EphemerisCaseCreateParsed = z.output<typeof ephemerisCaseCreate>;

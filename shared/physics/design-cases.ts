@@ -72,7 +72,8 @@ export interface CaseResults {
   total: { orbitAverageAbsorbedW: number; orbitAverageWithMarginW: number; peakAbsorbedW: number };
 }
 
-const round = (x: number, digits = 4): number => {
+/** Rounds as stored case results are rounded (never -0). */
+export const round = (x: number, digits = 4): number => {
   const k = 10 ** digits;
   const r = Math.round(x * k) / k;
   return Object.is(r, -0) ? 0 : r;

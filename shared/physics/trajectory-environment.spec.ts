@@ -5,7 +5,7 @@ import { orbitSampler } from './orbit-position';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2, sunFromBody } from './sun';
 import { trajectoryEnvironment, type TrajectorySample } from './trajectory-environment';
-import { scale, type Vector3 } from './vector3';
+import { DEG, scale, type Vector3 } from './vector3';
 import type { Surface } from './heat-loads';
 
 const earth = getBody('earth');
@@ -79,6 +79,25 @@ describe('trajectoryEnvironment', () => {
     const loads = result.points.map((p) => p.surfaces[2].absorbedW);
     const expected = (loads[0] * 30 + loads[1] * (30 + 49 * 30) + loads[2] * 49 * 30) / (50 * 60);
     expect(result.averages.surfaces[2].absorbedW).toBeCloseTo(expected, 9);
+  });
+
+  it('beta from r x v and the eclipse time over one orbit match the closed forms (DOMAIN.md: G Ch. 2)', () => {
+    const result = trajectoryEnvironment(circularSamples(5, true), { body: earth, surfaces: panels });
+    // sin beta = cos dec sin i sin(RAAN - RA) + sin dec cos i, with the Sun's RA and declination
+    const sun = sunFromBody(earth, new Date(t0 + 2900_000));
+    const [i, raan] = [51.6 * DEG, 40 * DEG];
+    const beta = Math.asin(Math.cos(sun.decRad) * Math.sin(i) * Math.sin(raan - sun.raRad) + Math.sin(sun.decRad) * Math.cos(i));
+    // the Sun moves about 0.04 deg over the orbit: means agree to 0.05 deg
+    expect(Math.abs(result.meanBetaDeg - beta / DEG)).toBeLessThan(0.05);
+    // cylindrical shadow: f = acos(sqrt(h^2 + 2Rh) / ((R+h) cos beta)) / pi; the conical umbra plus
+    // half the penumbra lands within 1 % of it at 700 km (the penumbra is seconds long)
+    const [R, h] = [earth.radiusKm, 700];
+    const f = Math.acos(Math.sqrt(h * h + 2 * R * h) / ((R + h) * Math.cos(beta))) / Math.PI;
+    expect(Math.abs((result.umbraS + result.penumbraS / 2) / result.spanS - f) / f).toBeLessThan(0.01);
+    expect(result.penumbraS).toBeGreaterThan(0);
+    expect(result.penumbraS).toBeLessThan(60);
+    // every surface's own peak is at most the peak of the sum
+    expect(result.peakTotalAbsorbedW).toBeGreaterThanOrEqual(Math.max(...result.peaks.surfaces.map((p) => p.absorbedW)));
   });
 
   it('refuses a trajectory of one point', () => {

@@ -13,7 +13,7 @@ import { localNormal, surfaceLoad, type Surface, type SurfaceLoad } from './heat
 import { AU_KM } from './constants';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2, sunFromBody } from './sun';
-import { cross, dot, norm, scale, subtract, type Vector3 } from './vector3';
+import { cross, DEG, dot, norm, scale, subtract, type Vector3 } from './vector3';
 
 export interface TrajectorySample {
   /** ms since the Unix epoch, UTC. */
@@ -48,6 +48,15 @@ export interface TrajectoryEnvironment {
   /** Time-weighted (trapezoidal) over the whole span. */
   averages: { sunlitFraction: number; surfaces: SurfaceLoad[] };
   peaks: { surfaces: SurfaceLoad[] };
+  /** The largest sum of every surface's absorbed power at one row, W. */
+  peakTotalAbsorbedW: number;
+  /** Time (trapezoidal weights, s) in umbra (sunlit 0) and in penumbra (between 0 and 1), and the whole span. */
+  umbraS: number;
+  penumbraS: number;
+  spanS: number;
+  /** Time-weighted means: beta (the Sun's angle above the orbit plane from r x v), deg, and the solar flux, W/m^2. */
+  meanBetaDeg: number;
+  meanSolarFluxWm2: number;
 }
 
 const SUN_NODE_MS = 3600_000;
@@ -107,6 +116,11 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
   const points: TrajectoryPointLoads[] = [];
   let sunlitSum = 0;
   let totalS = 0;
+  let umbraS = 0;
+  let penumbraS = 0;
+  let betaSum = 0;
+  let fluxSum = 0;
+  let peakTotalAbsorbedW = 0;
   let index = 0;
 
   const visit = (prev: TrajectorySample | null, cur: TrajectorySample, next: TrajectorySample | null): void => {
@@ -130,6 +144,10 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
     const weightS = ((next ? next.tMs - cur.tMs : 0) + (prev ? cur.tMs - prev.tMs : 0)) / 2000;
     totalS += weightS;
     sunlitSum += sunlit * weightS;
+    if (sunlit <= 0) umbraS += weightS;
+    else if (sunlit < 1) penumbraS += weightS;
+    betaSum += Math.asin(Math.max(-1, Math.min(1, sunLocal[1]))) * weightS;
+    fluxSum += point.solarFluxWm2 * weightS;
     const loads = surfaces.map((surface, i) => {
       const load = surfaceLoad(surface, fixed[i] ?? sunLocal, point);
       const [sum, peak] = [sums[i], peaks[i]];
@@ -139,6 +157,9 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
       peak.irWm2 = Math.max(peak.irWm2, load.irWm2); peak.absorbedW = Math.max(peak.absorbedW, load.absorbedW);
       return load;
     });
+    let totalW = 0;
+    for (const load of loads) totalW += load.absorbedW;
+    peakTotalAbsorbedW = Math.max(peakTotalAbsorbedW, totalW);
     if (keep(index)) points.push({ tMs: cur.tMs, altitudeKm: radiusKm - body.radiusKm, sunlit, surfaces: loads });
     index++;
   };
@@ -164,5 +185,11 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
     points,
     averages: { sunlitFraction: sunlitSum / totalS, surfaces: sums.map(average) },
     peaks: { surfaces: peaks },
+    peakTotalAbsorbedW,
+    umbraS,
+    penumbraS,
+    spanS: totalS,
+    meanBetaDeg: betaSum / totalS / DEG,
+    meanSolarFluxWm2: fluxSum / totalS,
   };
 }

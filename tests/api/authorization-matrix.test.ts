@@ -93,6 +93,7 @@ const rules: Record<string, string> = {
   // revisions only, so the scene's draft is 404 to a viewer, like to a non-member
   'POST /api/v1/missions/:id/cases/derive': '401 ok 403 ok 403 403 404',
   'POST /api/v1/missions/:id/cases': '401 ok 403 ok 403 403 404',
+  'POST /api/v1/missions/:id/ephemerides/:ephemerisId/cases': '401 ok 403 ok 403 403 404',
   'GET /api/v1/cases': '401 ok ok ok ok ok ok',
   'GET /api/v1/cases/:id': '401 ok ok ok 404 ok 404',
   'PATCH /api/v1/cases/:id': '401 ok 403 ok 404 403 404',

@@ -1,9 +1,11 @@
 // The environment along an uploaded ephemeris: the CSV and the OEM of one trajectory agree, and along
-// the circular-orbit fixture the loads match POST /environment/compute for the same orbit and epoch.
+// the circular-orbit fixture the loads match POST /environment/compute for the same orbit and epoch,
+// over the whole file, over a window of one orbit, and in a load case made from that window.
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import type { TrajectoryEnvironmentResponse } from '../../shared/api/ephemerides';
+import type { CaseDetail } from '../../shared/api/cases';
 import type { EnvironmentResponse } from '../../shared/api/environment';
 import { fixtureEpoch, leoOrbit } from '../../scripts/ephemeris-fixture-orbits';
 import { createTestApp, type TestApp } from './test-app';
@@ -123,5 +125,109 @@ describe('environment along an ephemeris', () => {
     const res = await analyst.post(`/api/v1/missions/${missionId}/ephemerides/${ids.csv}/environment`).send({ properties: 'mid-life' });
     expect(res.status).toBe(400);
     expect(res.body.error.details[0].path).toBe('properties');
+  });
+});
+
+describe('a window of the ephemeris', () => {
+  /** POST /environment/compute for the fixture's own orbit and epoch: the analytic reference. */
+  async function analyticOrbit(): Promise<EnvironmentResponse> {
+    const compute = await analyst.post('/api/v1/environment/compute').send({ bodyId: 'earth', orbit: leoOrbit, epoch: fixtureEpoch, steps: 3600, surfaces: testSurfaces });
+    expect(compute.status).toBe(200);
+    return compute.body as EnvironmentResponse;
+  }
+  const after = (s: number) => new Date(Date.parse(fixtureEpoch) + s * 1000).toISOString();
+
+  it('averages only its rows: one orbit of the file matches the analytic orbit (averages within 1.5 %, sunlit share within 0.01)', async () => {
+    const analytic = await analyticOrbit();
+    const whole = await environment(ids.csv);
+    const orbit = await environment(ids.csv, { from: fixtureEpoch, to: after(analytic.periodS) });
+    // rows every 60 s from 12:00:00: those up to the end of the first period
+    expect(orbit.rows).toBe(Math.floor(analytic.periodS / 60) + 1);
+    expect(orbit.window).toEqual({ from: fixtureEpoch, to: after(Math.floor(analytic.periodS / 60) * 60) });
+    expect(whole.window).toEqual({ from: fixtureEpoch, to: '2027-03-20T16:00:00.000Z' });
+    expect(orbit.points.at(-1)?.epoch).toBe(orbit.window.to);
+    expect(Math.abs(orbit.averages.sunlitFraction - (1 - analytic.eclipseFraction))).toBeLessThan(0.01);
+    testSurfaces.forEach((surface, i) => {
+      const [got, expected] = [orbit.averages.surfaces[i].absorbedW, analytic.orbitAverage.surfaces[i].absorbedW];
+      expect(Math.abs(got - expected) / expected, `${surface.name}: ${got} W over the window, ${expected} W analytic`).toBeLessThan(0.015);
+    });
+  });
+
+  it('refuses a window outside the ephemeris, reversed, or too short, naming the field', async () => {
+    const url = `/api/v1/missions/${missionId}/ephemerides/${ids.csv}/environment`;
+    const outside = await analyst.post(url).send({ from: '2027-03-21T00:00:00Z' });
+    expect(outside.status).toBe(422);
+    expect(outside.body.error.details[0].path).toBe('from');
+    expect(outside.body.error.message).toMatch(/lies outside the ephemeris, which runs 2027-03-20T12:00:00.000Z – 2027-03-20T16:00:00.000Z/);
+    const reversed = await analyst.post(url).send({ from: after(600), to: after(60) });
+    expect(reversed.status).toBe(400);
+    expect(reversed.body.error.details[0]).toMatchObject({ path: 'to', message: expect.stringMatching(/^from must be before to/) });
+    // 30 s inside a 60 s step: one row
+    const short = await analyst.post(url).send({ from: after(50), to: after(80) });
+    expect(short.status).toBe(422);
+    expect(short.body.error.message).toMatch(/holds 1 row of the ephemeris; a window needs at least two/);
+  });
+});
+
+describe('a load case from an ephemeris window', () => {
+  let thermal: request.Agent;
+  beforeAll(async () => {
+    thermal = await t.signIn('thermal@kestrel.test');
+  });
+  const casesUrl = () => `/api/v1/missions/${missionId}/ephemerides/${ids.csv}/cases`;
+
+  it('records the trajectory and the osculating orbit, and its loads match the analytic orbit (within 1.5 %; beta within 0.1 deg)', async () => {
+    const analytic = (await analyst.post('/api/v1/environment/compute').send({ bodyId: 'earth', orbit: leoOrbit, epoch: fixtureEpoch, steps: 3600, surfaces: testSurfaces })).body as EnvironmentResponse;
+    const to = new Date(Date.parse(fixtureEpoch) + analytic.periodS * 1000).toISOString();
+    const res = await thermal.post(casesUrl()).send({ name: 'Kestrel-1 one orbit from the file', from: fixtureEpoch, to, steps: 48 });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const c = res.body as CaseDetail;
+    expect(c).toMatchObject({ kind: 'custom', status: 'draft', revision: 1, name: 'Kestrel-1 one orbit from the file' });
+    const upload = (await analyst.get(`/api/v1/missions/${missionId}/ephemerides/${ids.csv}`)).body as { sha256: string; name: string };
+    expect(c.inputs.ephemeris).toEqual({ id: ids.csv, name: upload.name, fileName: 'leo-circular.csv', sha256: upload.sha256, from: fixtureEpoch, to: expect.any(String), rows: Math.floor(analytic.periodS / 60) + 1 });
+    // the osculating orbit at the first row is the fixture's 550 km, 97.6 deg, RAAN 30 deg circle (RV2COE)
+    expect(c.inputs.orbit.id).toBeNull();
+    expect(c.inputs.orbit.periapsisAltitudeKm).toBeCloseTo(550, 2);
+    expect(c.inputs.orbit.apoapsisAltitudeKm).toBeCloseTo(550, 2);
+    expect(c.inputs.orbit.inclinationDeg).toBeCloseTo(97.6, 4);
+    expect(c.inputs.orbit.raanDeg).toBeCloseTo(30, 4);
+    expect(Math.abs(c.results.betaDeg - analytic.betaDeg)).toBeLessThan(0.1);
+    expect(Math.abs(c.results.eclipseFraction - analytic.eclipseFraction)).toBeLessThan(0.01);
+    const analyticTotal = analytic.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0);
+    expect(Math.abs(c.results.total.orbitAverageAbsorbedW - analyticTotal) / analyticTotal).toBeLessThan(0.015);
+    // the series: 48 thinned steps from the window's start; the watts follow A alpha S for the solar part
+    expect(c.results.tS[0]).toBe(0);
+    expect(c.results.tS.length).toBeLessThanOrEqual(49);
+    const nadir = c.results.surfaces[0];
+    nadir.series.solarWm2.forEach((s, k) => expect(nadir.series.solarW[k]).toBeCloseTo(0.5 * 0.25 * s, 3));
+    // the default heat-load margin is added (increase): DOMAIN.md default margins
+    expect(c.results.total.orbitAverageWithMarginW).toBeGreaterThan(c.results.total.orbitAverageAbsorbedW);
+    expect(c.inputs.rationale[0]).toMatch(/^loads along the ephemeris/);
+    // the JSON export carries the trajectory it came from
+    const exported = await thermal.get(`/api/v1/cases/${c.id}/export?format=json`);
+    expect(exported.status).toBe(200);
+    expect(JSON.parse(exported.text).inputs.ephemeris.sha256).toBe(upload.sha256);
+  });
+
+  it('keeps its loads when renamed or given other margins, and refuses hand edits of its inputs', async () => {
+    const created = (await thermal.post(casesUrl()).send({ name: 'whole file', properties: 'eol', margins: { heatLoadPercent: 10 } })).body as CaseDetail;
+    const edited = await thermal.patch(`/api/v1/cases/${created.id}`).send({ name: 'whole file, 30 %', margins: { heatLoadPercent: 30 } });
+    expect(edited.status, JSON.stringify(edited.body)).toBe(200);
+    const after = edited.body as CaseDetail;
+    expect(after.results.total.orbitAverageAbsorbedW).toBe(created.results.total.orbitAverageAbsorbedW);
+    expect(after.results.surfaces[0].series).toEqual(created.results.surfaces[0].series);
+    expect(after.results.total.orbitAverageWithMarginW).toBeCloseTo(created.results.total.orbitAverageAbsorbedW * 1.3, 3);
+    const refused = await thermal.patch(`/api/v1/cases/${created.id}`).send({ inputs: { betaDeg: 10 } });
+    expect(refused.status).toBe(422);
+    expect(refused.body.error.details[0].path).toBe('inputs.betaDeg');
+    expect((await thermal.get(`/api/v1/cases/${created.id}`)).body.results).toEqual(after.results);
+  });
+
+  it('is for thermal engineers and owners: an analyst is refused (403), a bad body names its field (400)', async () => {
+    const byAnalyst = await analyst.post(casesUrl()).send({ name: 'not mine' });
+    expect(byAnalyst.status).toBe(403);
+    const bad = await thermal.post(casesUrl()).send({ name: 'x', steps: 5 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.details[0].path).toBe('steps');
   });
 });

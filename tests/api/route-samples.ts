@@ -215,6 +215,7 @@ export function sampleBody(key: string, ids: SceneIds): unknown {
     'POST /api/v1/missions/:id/ephemerides/:ephemerisId/environment': { properties: 'bol', maxPoints: 20 },
     'POST /api/v1/missions/:id/cases/derive': { orbitId: ids.orbitId, name: 'Hostile', steps: 12 },
     'POST /api/v1/missions/:id/cases': { orbitId: ids.orbitId, name: 'Hostile custom', date: '2027-06-01', betaDeg: 10, steps: 12 },
+    'POST /api/v1/missions/:id/ephemerides/:ephemerisId/cases': { name: 'Hostile from a trajectory', steps: 12, properties: 'eol' },
     'PATCH /api/v1/cases/:id': { name: 'Scene hot, renamed', margins: { heatLoadPercent: 20 } },
     'POST /api/v1/cases/:id/submit': {},
     'POST /api/v1/cases/:id/release': {},

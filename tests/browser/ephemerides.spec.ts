@@ -1,8 +1,10 @@
 // The analyst uploads the circular-orbit fixture to the demo Earth mission, sees the transfer and
-// processing progress, the summary and the plots; then a broken file explained row by row.
+// processing progress, the summary and the plots; then a broken file explained row by row. A
+// thermal engineer then narrows the plots to a window and saves it as a load case.
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { expect, test } from '@playwright/test';
-import { screenshot, signIn } from './session';
+import { dialogReady, screenshot, signIn } from './session';
 
 const fixtures = path.resolve(import.meta.dirname, '..', '..', 'fixtures', 'ephemerides');
 
@@ -58,4 +60,43 @@ test('an analyst uploads a trajectory, sees the plots, and a broken file is expl
   await page.getByTestId('ephemeris-send').click();
   await expect(problems).toContainText('looks like metres; Eclipta expects km');
   await expect(problems.locator('tbody tr')).toHaveCount(12);
+});
+
+test('a thermal engineer narrows the plots to one orbit by keyboard and saves that window as a load case', async ({ page }) => {
+  await signIn(page, 'thermal@kestrel.test');
+  const missions = (await (await page.request.get('/api/v1/missions')).json()) as { items: { id: string; workspaceId: string; bodyId: string }[] };
+  const mission = missions.items.find((m) => m.bodyId === 'earth');
+  if (!mission) throw new Error('the demo seed has no Earth mission');
+  // the 4 h circular-orbit fixture, uploaded through the API (the analyst's screen is the first test)
+  const uploaded = await page.request.post(`/api/v1/missions/${mission.id}/ephemerides`, {
+    multipart: { frame: 'EME2000', name: 'Kestrel-1 for a case', file: { name: 'leo-circular.csv', mimeType: 'text/csv', buffer: readFileSync(path.join(fixtures, 'leo-circular.csv')) } },
+  });
+  expect(uploaded.status()).toBe(201);
+  const ephemerisId = ((await uploaded.json()) as { id: string }).id;
+
+  await page.goto(`/w/${mission.workspaceId}/missions/${mission.id}/ephemerides`);
+  await page.getByRole('row', { name: /Kestrel-1 for a case/ }).getByRole('button', { name: 'Show' }).click();
+  await expect(page.getByTestId('ephemeris-window-shown')).toContainText('241 rows');
+  // one orbit of the 550 km circle (95.6 min): typed, then Enter
+  await page.getByTestId('ephemeris-window-from').fill('2027-03-20T12:00:00');
+  await page.getByTestId('ephemeris-window-to').fill('2027-03-20T13:36:00');
+  await page.getByTestId('ephemeris-window-to').press('Enter');
+  await expect(page.getByTestId('ephemeris-window-shown')).toContainText('97 rows, 12:00:00 – 13:36:00 UTC on 2027-03-20');
+  await expect(page.getByTestId('ephemeris-averages')).toBeVisible();
+  await screenshot(page, 'ephemerides-4-window');
+
+  await page.getByTestId('ephemeris-make-case').click();
+  await dialogReady(page);
+  await page.getByTestId('ephemeris-case-name').fill('Kestrel-1 one orbit from the file');
+  await page.getByTestId('ephemeris-case-submit').click();
+  await expect(page).toHaveURL(/\/cases\/[0-9a-f-]{36}$/);
+  await expect(page.getByRole('heading', { name: 'Kestrel-1 one orbit from the file', level: 1 })).toBeVisible();
+  await expect(page.getByTestId('case-trajectory')).toContainText('Kestrel-1 for a case');
+  await expect(page.getByTestId('case-trajectory')).toContainText('97');
+  await expect(page.getByText('Time from the first row of the ephemeris window')).toBeVisible();
+  await screenshot(page, 'ephemerides-5-case');
+  // the saved case names the ephemeris it came from
+  const caseId = page.url().split('/').at(-1);
+  const detail = (await (await page.request.get(`/api/v1/cases/${caseId}`)).json()) as { inputs: { ephemeris: { id: string; rows: number } } };
+  expect(detail.inputs.ephemeris).toMatchObject({ id: ephemerisId, rows: 97 });
 });

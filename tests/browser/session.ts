@@ -22,5 +22,5 @@ export async function screenshot(page: Page, name: string): Promise<void> {
  */
 export async function dialogReady(page: Page): Promise<void> {
   await expect(page.locator('mat-dialog-container').last()).toBeVisible();
-  await page.waitForFunction(() => document.activeElement?.closest('mat-dialog-container') != null);
+  await expect(page.locator('mat-dialog-container').last().locator(':focus')).toHaveCount(1);
 }

@@ -1,17 +1,16 @@
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
-import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
+import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatOption, MatSelect } from '@angular/material/select';
 import type { CaseDerive, CaseDetail } from '../../../shared/api/cases';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CaseApi } from './case-api';
-import { MARGIN_DEFAULTS, heatLoadMarginHint, temperatureMarginHint } from './case-margins';
+import { MarginFields, marginGroup } from './margin-fields';
 import { missionOrbitChoice } from './mission-orbit-choice';
 
 export interface CaseDeriveData {
@@ -24,7 +23,7 @@ export interface CaseDeriveData {
   selector: 'ecl-case-derive-dialog',
   imports: [
     ReactiveFormsModule, MatButton, MatButtonToggleGroup, MatButtonToggle, MatDialogTitle, MatDialogContent, MatDialogActions,
-    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatSelect, MatOption, MatProgressBar,
+    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatInput, MatSelect, MatOption, MatProgressBar, MarginFields,
   ],
   templateUrl: './case-derive-dialog.html',
   styleUrl: './case-dialog.css',
@@ -41,13 +40,9 @@ export class CaseDeriveDialog {
     name: ['', Validators.maxLength(120)],
     hot: ['eol' as 'bol' | 'eol'],
     cold: ['bol' as 'bol' | 'eol'],
-    heatLoadPercent: [MARGIN_DEFAULTS.heatLoadPercent as number, [Validators.required, Validators.min(0), Validators.max(200)]],
-    temperatureMarginC: [MARGIN_DEFAULTS.temperatureMarginC as number, [Validators.required, Validators.min(0), Validators.max(100)]],
+    margins: marginGroup(inject(NonNullableFormBuilder)),
   });
   protected readonly choice = missionOrbitChoice(this.api, this.data.workspaceId, this.form.controls.missionId, this.form.controls.orbitId);
-  private readonly values = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
-  protected readonly heatHint = computed(() => heatLoadMarginHint(this.values().heatLoadPercent ?? null));
-  protected readonly temperatureHint = computed(() => temperatureMarginHint(this.values().temperatureMarginC ?? null));
   protected readonly orbitHint = computed(() => {
     const m = this.choice.mission();
     if (m.status !== 'ready' || m.value === null) return '';
@@ -66,7 +61,7 @@ export class CaseDeriveDialog {
       orbitId: v.orbitId,
       ...(v.name.trim() ? { name: v.name.trim() } : {}),
       properties: { hot: v.hot, cold: v.cold },
-      margins: { heatLoadPercent: v.heatLoadPercent, temperatureMarginC: v.temperatureMarginC },
+      margins: v.margins,
     };
     this.busy.set(true);
     this.failure.set(null);

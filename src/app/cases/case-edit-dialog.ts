@@ -1,22 +1,21 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
-import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
+import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import type { CaseDetail, CaseUpdate } from '../../../shared/api/cases';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CaseApi } from './case-api';
-import { heatLoadMarginHint, temperatureMarginHint } from './case-margins';
+import { MarginFields, marginGroup } from './margin-fields';
 
 /** Renames a draft or changes its margins; the server recomputes. A released case answers 409, shown here. */
 @Component({
   selector: 'ecl-case-edit-dialog',
   imports: [
     ReactiveFormsModule, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatDialogClose,
-    MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatProgressBar,
+    MatFormField, MatLabel, MatError, MatInput, MatProgressBar, MarginFields,
   ],
   template: `
     <h2 mat-dialog-title>Edit {{ c.name }}</h2>
@@ -27,22 +26,7 @@ import { heatLoadMarginHint, temperatureMarginHint } from './case-margins';
           <input matInput formControlName="name" data-testid="edit-name" />
           <mat-error>Give the case a name (at most 120 characters).</mat-error>
         </mat-form-field>
-        <div class="row">
-          <mat-form-field appearance="outline" subscriptSizing="dynamic">
-            <mat-label>Heat-load margin</mat-label>
-            <input matInput type="number" min="0" max="200" formControlName="heatLoadPercent" data-testid="edit-heat-margin" />
-            <span matTextSuffix>%</span>
-            <mat-hint>{{ heatHint() }}</mat-hint>
-            <mat-error>0 to 200 %.</mat-error>
-          </mat-form-field>
-          <mat-form-field appearance="outline" subscriptSizing="dynamic">
-            <mat-label>Temperature margin</mat-label>
-            <input matInput type="number" min="0" max="100" formControlName="temperatureMarginC" data-testid="edit-temperature-margin" />
-            <span matTextSuffix>°C</span>
-            <mat-hint>{{ temperatureHint() }}</mat-hint>
-            <mat-error>0 to 100 °C.</mat-error>
-          </mat-form-field>
-        </div>
+        <ecl-margin-fields [group]="form.controls.margins" testIdPrefix="edit" />
       </form>
       @if (busy()) {
         <mat-progress-bar mode="indeterminate" aria-label="Saving and recomputing" />
@@ -66,12 +50,8 @@ export class CaseEditDialog {
 
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: [this.c.name, [Validators.required, Validators.maxLength(120)]],
-    heatLoadPercent: [this.c.inputs.margins.heatLoadPercent, [Validators.required, Validators.min(0), Validators.max(200)]],
-    temperatureMarginC: [this.c.inputs.margins.temperatureMarginC, [Validators.required, Validators.min(0), Validators.max(100)]],
+    margins: marginGroup(inject(NonNullableFormBuilder), this.c.inputs.margins),
   });
-  private readonly values = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
-  protected readonly heatHint = computed(() => heatLoadMarginHint(this.values().heatLoadPercent ?? null));
-  protected readonly temperatureHint = computed(() => temperatureMarginHint(this.values().temperatureMarginC ?? null));
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
 
@@ -83,7 +63,7 @@ export class CaseEditDialog {
     const v = this.form.getRawValue();
     const body: CaseUpdate = {
       ...(v.name.trim() !== this.c.name ? { name: v.name.trim() } : {}),
-      margins: { heatLoadPercent: v.heatLoadPercent, temperatureMarginC: v.temperatureMarginC },
+      margins: v.margins,
     };
     this.busy.set(true);
     this.failure.set(null);

@@ -18,6 +18,8 @@ export class CaseLoadsPanel {
   readonly results = input.required<CaseResultsContent>();
   /** Names the CSV files the plots offer. */
   readonly caseName = input('case');
+  /** True for a case computed along an ephemeris window: time then counts from the window's first row. */
+  readonly fromEphemeris = input(false);
 
   protected readonly whole = WHOLE_SPACECRAFT;
   protected readonly surface = signal(WHOLE_SPACECRAFT);

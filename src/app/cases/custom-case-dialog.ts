@@ -1,8 +1,6 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
-import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
@@ -12,15 +10,16 @@ import type { CaseCreate, CaseDetail } from '../../../shared/api/cases';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CaseApi } from './case-api';
 import type { CaseDeriveData } from './case-derive-dialog';
-import { MARGIN_DEFAULTS, heatLoadMarginHint, temperatureMarginHint } from './case-margins';
+import { CaseTreatmentToggles } from './case-treatment-toggles';
+import { MarginFields, marginGroup } from './margin-fields';
 import { missionOrbitChoice } from './mission-orbit-choice';
 
 /** A case the engineer defines: a date (and with it the Sun), or a fixed beta, an attitude, a property set. */
 @Component({
   selector: 'ecl-custom-case-dialog',
   imports: [
-    ReactiveFormsModule, MatButton, MatButtonToggleGroup, MatButtonToggle, MatDialogTitle, MatDialogContent, MatDialogActions,
-    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatSelect, MatOption, MatProgressBar,
+    ReactiveFormsModule, MatButton, CaseTreatmentToggles, MatDialogTitle, MatDialogContent, MatDialogActions,
+    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatSelect, MatOption, MatProgressBar, MarginFields,
   ],
   templateUrl: './custom-case-dialog.html',
   styleUrl: './case-dialog.css',
@@ -40,13 +39,9 @@ export class CustomCaseDialog {
     properties: ['bol' as 'bol' | 'eol'],
     marginDirection: ['increase' as 'increase' | 'decrease'],
     attitude: ['', Validators.maxLength(300)],
-    heatLoadPercent: [MARGIN_DEFAULTS.heatLoadPercent as number, [Validators.required, Validators.min(0), Validators.max(200)]],
-    temperatureMarginC: [MARGIN_DEFAULTS.temperatureMarginC as number, [Validators.required, Validators.min(0), Validators.max(100)]],
+    margins: marginGroup(inject(NonNullableFormBuilder)),
   });
   protected readonly choice = missionOrbitChoice(this.api, this.data.workspaceId, this.form.controls.missionId, this.form.controls.orbitId);
-  private readonly values = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
-  protected readonly heatHint = computed(() => heatLoadMarginHint(this.values().heatLoadPercent ?? null));
-  protected readonly temperatureHint = computed(() => temperatureMarginHint(this.values().temperatureMarginC ?? null));
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
 
@@ -71,7 +66,7 @@ export class CustomCaseDialog {
       properties: v.properties,
       marginDirection: v.marginDirection,
       ...(v.attitude.trim() ? { attitude: v.attitude.trim() } : {}),
-      margins: { heatLoadPercent: v.heatLoadPercent, temperatureMarginC: v.temperatureMarginC },
+      margins: v.margins,
     };
     this.busy.set(true);
     this.failure.set(null);

@@ -1,7 +1,9 @@
 import { HttpClient, HttpEventType, type HttpEvent } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
+import type { CaseDetail } from '../../../shared/api/cases';
 import type {
+  EphemerisCaseCreate,
   EphemerisSummary,
   TrajectoryEnvironmentRequest,
   TrajectoryEnvironmentResponse,
@@ -65,6 +67,11 @@ export class EphemerisApi {
 
   remove(missionId: string, ephemerisId: string): Observable<void> {
     return this.http.delete<void>(apiPath('missions', missionId, 'ephemerides', ephemerisId));
+  }
+
+  /** A load case (custom, draft) from a window of the ephemeris. */
+  createCase(missionId: string, ephemerisId: string, request: EphemerisCaseCreate): Observable<CaseDetail> {
+    return this.http.post<CaseDetail>(apiPath('missions', missionId, 'ephemerides', ephemerisId, 'cases'), request);
   }
 
   environment(missionId: string, ephemerisId: string, request: TrajectoryEnvironmentRequest): Observable<TrajectoryEnvironmentResponse> {

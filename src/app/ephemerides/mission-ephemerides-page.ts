@@ -23,7 +23,7 @@ import { MissionEphemerides } from './mission-ephemerides';
       @if (failure(); as message) {
         <p class="ecl-error" role="alert">{{ message }}</p>
       } @else {
-        <ecl-mission-ephemerides [missionId]="missionId()" [workspaceId]="workspaceId()" [canEdit]="canEdit()" [crewed]="crewed()" />
+        <ecl-mission-ephemerides [missionId]="missionId()" [workspaceId]="workspaceId()" [canEdit]="canEdit()" [canMakeCases]="canMakeCases()" [crewed]="crewed()" />
       }
     </section>
   `,
@@ -54,6 +54,10 @@ export class MissionEphemeridesPage {
   protected readonly failure = computed(() => {
     const state = this.mission();
     return state?.status === 'failed' ? state.message : null;
+  });
+  protected readonly canMakeCases = computed(() => {
+    const role = this.workspace.role();
+    return role === 'owner' || role === 'thermal';
   });
   protected readonly canEdit = computed(() => {
     const role = this.workspace.role();

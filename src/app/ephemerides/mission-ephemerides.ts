@@ -1,12 +1,14 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
+import { Router } from '@angular/router';
 import { BehaviorSubject, combineLatest, filter, of, switchMap } from 'rxjs';
 import type { EphemerisSummary } from '../../../shared/api/ephemerides';
 import { apiErrorMessage } from '../api/api-error-message';
@@ -15,6 +17,8 @@ import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { ConfirmDialog } from '../shell/confirm-dialog';
 import { DesignCaution } from '../shell/design-caution';
 import { EphemerisApi } from './ephemeris-api';
+import { EphemerisCaseDialog } from './ephemeris-case-dialog';
+import { isoFromUtcField, utcFieldValue, windowText } from './ephemeris-window';
 import { absorbedSeries, altitudeSeries, eclipseBands, fluxSeries, spanText, sunlitSeries } from './ephemeris-series';
 import { EphemerisUpload } from './ephemeris-upload';
 
@@ -22,7 +26,7 @@ import { EphemerisUpload } from './ephemeris-upload';
 @Component({
   selector: 'ecl-mission-ephemerides',
   imports: [
-    DatePipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption,
+    DatePipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatSelect, MatOption,
     TimeSeriesPlot, DesignCaution, EphemerisUpload,
   ],
   templateUrl: './mission-ephemerides.html',
@@ -33,12 +37,15 @@ export class MissionEphemerides {
   private readonly api = inject(EphemerisApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly router = inject(Router);
   private readonly refresh = new BehaviorSubject<void>(undefined);
 
   readonly missionId = input.required<string>();
   readonly workspaceId = input.required<string>();
   readonly canEdit = input(false);
   readonly crewed = input(false);
+  /** Thermal engineers and owners make load cases from a window. */
+  readonly canMakeCases = input(false);
 
   protected readonly spanText = spanText;
   protected readonly list = toSignal(
@@ -56,18 +63,29 @@ export class MissionEphemerides {
   });
   protected readonly properties = signal<'bol' | 'eol'>('bol');
   protected readonly surfaceIndex = signal(0);
+  /** The window asked for (ISO epochs; empty ends: the ephemeris' own); back to the whole span for another ephemeris. */
+  protected readonly window = linkedSignal<EphemerisSummary | null, { from?: string; to?: string }>({ source: this.selected, computation: () => ({}) });
 
   protected readonly environment = toSignal(
-    combineLatest([toObservable(this.selected), toObservable(this.properties)]).pipe(
+    combineLatest([toObservable(this.selected), toObservable(this.properties), toObservable(this.window)]).pipe(
       filter(([selected]) => selected !== undefined),
-      switchMap(([selected, properties]) =>
-        selected ? this.api.environment(this.missionId(), selected.id, { properties, maxPoints: 2000 }).pipe(loaded()) : of(null),
+      switchMap(([selected, properties, window]) =>
+        selected ? this.api.environment(this.missionId(), selected.id, { properties, maxPoints: 2000, ...window }).pipe(loaded()) : of(null),
       ),
     ),
   );
   protected readonly env = computed(() => {
     const state = this.environment();
     return state?.status === 'ready' ? state.value : null;
+  });
+  /** The window fields show the rows in use until the user types other epochs. */
+  protected readonly fromText = linkedSignal(() => utcFieldValue(this.env()?.window.from ?? ''));
+  protected readonly toText = linkedSignal(() => utcFieldValue(this.env()?.window.to ?? ''));
+  protected readonly windowProblem = signal<string | null>(null);
+  protected readonly windowed = computed(() => this.window().from !== undefined || this.window().to !== undefined);
+  protected readonly shownWindow = computed(() => {
+    const w = this.env()?.window;
+    return w ? windowText(w.from, w.to) : '';
   });
   protected readonly bands = computed(() => eclipseBands(this.env()?.points ?? []));
   protected readonly altitude = computed(() => altitudeSeries(this.env()?.points ?? []));
@@ -77,6 +95,36 @@ export class MissionEphemerides {
   protected readonly surfaceNames = computed(() => this.env()?.averages.surfaces.map((s) => s.name) ?? []);
   protected readonly surfaceName = computed(() => this.surfaceNames().at(this.surfaceIndex()) ?? '');
   protected readonly gutters = { left: 64, right: 16 };
+
+  protected showWindow(): void {
+    const [from, to] = [isoFromUtcField(this.fromText()), isoFromUtcField(this.toText())];
+    if (!from || !to) {
+      this.windowProblem.set(`Give both ends as a UTC date and time${!from ? ` (From: "${this.fromText()}")` : ` (To: "${this.toText()}")`}.`);
+      return;
+    }
+    if (Date.parse(from) >= Date.parse(to)) {
+      this.windowProblem.set('From must be before To.');
+      return;
+    }
+    this.windowProblem.set(null);
+    this.window.set({ from, to });
+  }
+
+  protected wholeSpan(): void {
+    this.windowProblem.set(null);
+    this.window.set({});
+  }
+
+  protected makeCase(e: EphemerisSummary): void {
+    const shown = this.env();
+    if (!shown) return;
+    EphemerisCaseDialog.open(this.dialog, { missionId: this.missionId(), ephemeris: e, from: shown.window.from, to: shown.window.to, properties: this.properties() })
+      .pipe(filter((made) => made !== undefined))
+      .subscribe((made) => {
+        this.snackBar.open(`Saved the draft case “${made.name}”.`, undefined, { duration: 3000 });
+        void this.router.navigate(['/w', this.workspaceId(), 'cases', made.id]);
+      });
+  }
 
   protected showEphemeris(e: EphemerisSummary): void {
     this.chosenId.set(e.id);

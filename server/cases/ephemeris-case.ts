@@ -1,0 +1,161 @@
+// A load case computed along a window of an uploaded ephemeris instead of a Keplerian orbit: the
+// loads at every row of the window (the averages and peaks count each one; the stored series keeps
+// `steps` of them, evenly thinned), with the osculating orbit at the first row recorded as the
+// case's orbit. Its results come from the trajectory, so its inputs cannot be edited by hand: a
+// different window or property set is a new case from the ephemeris page.
+import type { EphemerisCaseCreateParsed } from '../../shared/api/ephemerides';
+import type { CaseInputs, CaseResultsContent, StoredConditions } from '../../shared/api/case-content';
+import { getBody } from '../../shared/physics/bodies';
+import { round, type CaseSurfaceResult, type LoadSummary } from '../../shared/physics/design-cases';
+import { designPairs, opticalProperties, resolveMargins, type Margins } from '../../shared/physics/design-environment';
+import type { SurfaceLoad } from '../../shared/physics/heat-loads';
+import { elementsFromState } from '../../shared/physics/state-elements';
+import { sunFromBody } from '../../shared/physics/sun';
+import type { AppContext } from '../app-context';
+import { recordAudit } from '../audit/audit-log';
+import type { EphemerisRow, LoadCaseRow, MissionRow, UserRow } from '../db/schema';
+import { unprocessable } from '../errors';
+import { ephemerisWindow, firstStates, windowEnvironment } from '../ephemerides/ephemeris-environment';
+import { epochText } from '../ephemerides/epoch-text';
+import { attitudeText, insertDraft, missionInputs, surfaceSnapshot } from './case-derivation';
+
+export const ephemerisCaseAssumptions = [
+  'loads at every row of the ephemeris inside the window: the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations), conical shadow of the central body, no atmosphere',
+  'albedo load = S * albedo * F * cos(solar zenith at the sub-spacecraft point) on the sunlit side: a common engineering approximation; planetary IR = OLR * F (Howell catalogue)',
+  'surfaces are flat plates fixed in the local orbital frame from r and v (x ram, y orbit normal, z zenith) or pointed at the Sun; no shadowing between them',
+  '"orbit average" values are time-weighted (trapezoidal) over the whole window, every row; peaks over every row; the stored series keeps an evenly thinned subset of the rows',
+  'tS counts from the first row of the window and periodS is the window\'s length: a thermal model run on this case repeats the window as if it were periodic',
+  'eclipseFraction counts umbra plus half of penumbra over the window',
+];
+
+const f1 = (x: number) => x.toFixed(1);
+
+/** The margin columns of stored results for other margins (the loads themselves do not change). */
+export function withMargins(results: CaseResultsContent, margins: Margins, direction: 'increase' | 'decrease'): CaseResultsContent {
+  const factor = direction === 'increase' ? 1 + margins.heatLoadPercent / 100 : 1 - margins.heatLoadPercent / 100;
+  return {
+    ...results,
+    surfaces: results.surfaces.map((s) => ({ ...s, orbitAverage: { ...s.orbitAverage, absorbedWithMarginW: round(s.orbitAverage.absorbedW * factor) } })),
+    total: { ...results.total, orbitAverageWithMarginW: round(results.total.orbitAverageAbsorbedW * factor) },
+  };
+}
+
+/** Computes and saves the case as a draft (kind custom). */
+export function createEphemerisCase(
+  ctx: AppContext, user: UserRow, mission: MissionRow, ephemeris: EphemerisRow, input: EphemerisCaseCreateParsed,
+): LoadCaseRow {
+  const body = getBody(mission.bodyId);
+  const snapshot = surfaceSnapshot(ctx.db, mission);
+  const window = ephemerisWindow(ctx, ephemeris, input);
+  const optics = snapshot.map((s) => opticalProperties(s.material, input.properties));
+  const env = windowEnvironment(
+    ctx, mission, ephemeris, window,
+    snapshot.map((s, i) => ({ name: s.name, normal: s.normal, areaM2: s.areaM2, ...optics[i]! })),
+    { albedo: input.albedo, olrWm2: input.olrWm2, maxPoints: input.steps },
+  );
+
+  // The osculating orbit at the first row (velocity by a forward difference when the file has none).
+  const [first, second] = firstStates(ctx, ephemeris, window);
+  const velocity = first.velocityKmS ?? first.positionKm.map((x, k) => (second.positionKm[k]! - x) / ((second.tMs - first.tMs) / 1000));
+  const el = elementsFromState(first.positionKm, [velocity[0]!, velocity[1]!, velocity[2]!], body.gmKm3S2);
+  if (!(el.eccentricity < 1)) {
+    throw unprocessable(`At ${epochText(window.fromMs)} the trajectory is not a closed orbit about ${body.name} (eccentricity ${el.eccentricity.toFixed(3)}): a load case needs an orbit to record; choose a window where it is bound.`, [
+      { path: 'from', message: `eccentricity ${el.eccentricity.toFixed(3)} at the first row` },
+    ]);
+  }
+  const from = epochText(window.fromMs);
+  const to = epochText(window.toMs);
+  const spanS = (window.toMs - window.fromMs) / 1000;
+  const margins = resolveMargins(input.margins);
+  const factor = input.marginDirection === 'increase' ? 1 + margins.heatLoadPercent / 100 : 1 - margins.heatLoadPercent / 100;
+
+  const surfaces = snapshot.map((s, i): CaseSurfaceResult => {
+    const { absorptivity, emissivity } = optics[i]!;
+    const watts = (l: Pick<SurfaceLoad, 'solarWm2' | 'albedoWm2' | 'irWm2' | 'absorbedW'>): LoadSummary => ({
+      solarWm2: round(l.solarWm2), albedoWm2: round(l.albedoWm2), irWm2: round(l.irWm2),
+      solarW: round(s.areaM2 * absorptivity * l.solarWm2), albedoW: round(s.areaM2 * absorptivity * l.albedoWm2), irW: round(s.areaM2 * emissivity * l.irWm2),
+      absorbedW: round(l.absorbedW),
+    });
+    const perStep = env.points.map((p) => watts(p.surfaces[i]!));
+    const average = watts(env.averages.surfaces[i]!);
+    return {
+      name: s.name, areaM2: s.areaM2, absorptivity, emissivity,
+      series: {
+        solarWm2: perStep.map((x) => x.solarWm2), albedoWm2: perStep.map((x) => x.albedoWm2), irWm2: perStep.map((x) => x.irWm2),
+        solarW: perStep.map((x) => x.solarW), albedoW: perStep.map((x) => x.albedoW), irW: perStep.map((x) => x.irW),
+        absorbedW: perStep.map((x) => x.absorbedW),
+      },
+      orbitAverage: { ...average, absorbedWithMarginW: round(average.absorbedW * factor) },
+      peak: watts(env.peaks.surfaces[i]!),
+    };
+  });
+  const totalAverage = surfaces.reduce((sum, s) => sum + s.orbitAverage.absorbedW, 0);
+  const eclipseS = env.umbraS + env.penumbraS / 2;
+  const results: CaseResultsContent = {
+    periodS: round(spanS, 3),
+    betaDeg: round(env.meanBetaDeg, 4),
+    solarFluxWm2: round(env.meanSolarFluxWm2, 3),
+    eclipseFraction: round(eclipseS / env.spanS, 5),
+    eclipseDurationS: round(eclipseS, 1),
+    umbraDurationS: round(env.umbraS, 1),
+    penumbraDurationS: round(env.penumbraS, 1),
+    tS: env.points.map((p) => round((p.tMs - window.fromMs) / 1000, 3)),
+    sunlit: env.points.map((p) => round(p.sunlit, 5)),
+    surfaces,
+    total: { orbitAverageAbsorbedW: round(totalAverage), orbitAverageWithMarginW: round(totalAverage * factor), peakAbsorbedW: round(env.peakTotalAbsorbedW) },
+  };
+
+  const middle = new Date((window.fromMs + window.toMs) / 2);
+  const solarDistanceAu = sunFromBody(body, middle).distanceAu;
+  const elements: StoredConditions['orbit'] = {
+    semiMajorAxisKm: el.semiMajorAxisKm, eccentricity: el.eccentricity, inclinationDeg: el.inclinationDeg, raanDeg: el.raanDeg, argPeriapsisDeg: el.argPeriapsisDeg,
+  };
+  const userPair = input.albedo !== undefined || input.olrWm2 !== undefined;
+  const pairs = designPairs(body, el.inclinationDeg);
+  const conditions: StoredConditions = {
+    bodyId: mission.bodyId, orbit: elements, orbitEpoch: from, date: from.slice(0, 10),
+    betaDeg: results.betaDeg, solarDistanceAu: round(solarDistanceAu, 6), albedo: env.albedo, olrWm2: env.olrWm2,
+    properties: input.properties, marginDirection: input.marginDirection, steps: env.points.length, surfaces: snapshot,
+  };
+  const inputs: CaseInputs = {
+    ...missionInputs(mission),
+    orbit: {
+      id: null,
+      name: `osculating at ${from} (ephemeris "${ephemeris.name}")`,
+      epoch: from,
+      periapsisAltitudeKm: el.semiMajorAxisKm * (1 - el.eccentricity) - body.radiusKm,
+      apoapsisAltitudeKm: el.semiMajorAxisKm * (1 + el.eccentricity) - body.radiusKm,
+      semiMajorAxisKm: el.semiMajorAxisKm,
+      eccentricity: el.eccentricity,
+      periodS: 2 * Math.PI * Math.sqrt(el.semiMajorAxisKm ** 3 / body.gmKm3S2),
+      inclinationDeg: el.inclinationDeg,
+      raanDeg: el.raanDeg,
+      argPeriapsisDeg: el.argPeriapsisDeg,
+    },
+    attitude: attitudeText(snapshot),
+    conditions,
+    environmentSource: userPair ? 'entered by the user' : `${body.name} nominal: ${body.sources['albedo'] ?? ''}`,
+    provisional: body.provisional,
+    margins,
+    rationale: [
+      `loads along the ephemeris "${ephemeris.name}" (${ephemeris.fileName}, SHA-256 ${ephemeris.sha256.slice(0, 12)}…) from ${from} to ${to}: ${window.rows} rows, every one counted in the averages and peaks; the series keeps ${env.points.length} of them`,
+      `beta ${f1(results.betaDeg)} deg: the time-weighted mean over the window of the Sun's angle above the orbit plane (r x v at each row)`,
+      `Sun distance ${solarDistanceAu.toFixed(4)} AU at the middle of the window (VSOP87); mean solar flux ${f1(results.solarFluxWm2)} W/m^2`,
+      `albedo ${env.albedo.toFixed(2)} with OLR ${env.olrWm2.toFixed(0)} W/m^2, ${userPair ? 'given by the user' : `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}`}`,
+      `eclipse ${f1(eclipseS / 60)} min of the window's ${f1(spanS / 60)} min (umbra ${f1(env.umbraS / 60)} min, penumbra ${f1(env.penumbraS / 60)} min)`,
+      `${input.properties.toUpperCase()} optical properties; heat-load margin ${margins.heatLoadPercent} % ${input.marginDirection === 'increase' ? 'added' : 'taken off'}`,
+    ],
+    surfaceDrivers: [],
+    scan: null,
+    assumptions: ephemerisCaseAssumptions,
+    ephemeris: { id: ephemeris.id, name: ephemeris.name, fileName: ephemeris.fileName, sha256: ephemeris.sha256, from, to, rows: window.rows },
+  };
+  return ctx.db.transaction((tx) => {
+    const row = insertDraft(tx, mission, user, { name: input.name, kind: 'custom', inputs, results });
+    recordAudit(tx, {
+      workspaceId: mission.workspaceId, actorUserId: user.id, action: 'case.created', targetType: 'load_case', targetId: row.id,
+      summary: `Created custom case "${row.name}" (revision 1, draft) from ephemeris "${ephemeris.name}" (${from} – ${to}) for mission "${mission.name}".`,
+    });
+    return row;
+  });
+}

@@ -1,0 +1,106 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButton } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatInput } from '@angular/material/input';
+import { MatProgressBar } from '@angular/material/progress-bar';
+import type { Observable } from 'rxjs';
+import type { CaseDetail } from '../../../shared/api/cases';
+import type { EphemerisSummary } from '../../../shared/api/ephemerides';
+import { apiErrorMessage } from '../api/api-error-message';
+import { CaseTreatmentToggles } from '../cases/case-treatment-toggles';
+import { MarginFields, marginGroup } from '../cases/margin-fields';
+import { EphemerisApi } from './ephemeris-api';
+import { windowText } from './ephemeris-window';
+
+export interface EphemerisCaseData {
+  missionId: string;
+  ephemeris: EphemerisSummary;
+  /** The window shown on the page (ISO 8601 UTC), which the case takes. */
+  from: string;
+  to: string;
+  properties: 'bol' | 'eol';
+}
+
+/** Saves the loads along the shown window of an ephemeris as a draft load case. */
+@Component({
+  selector: 'ecl-ephemeris-case-dialog',
+  imports: [
+    ReactiveFormsModule, MatButton, CaseTreatmentToggles, MatDialogTitle, MatDialogContent, MatDialogActions,
+    MatDialogClose, MatFormField, MatLabel, MatError, MatInput, MatProgressBar, MarginFields,
+  ],
+  template: `
+    <h2 mat-dialog-title>Load case from this window</h2>
+    <mat-dialog-content>
+      <p class="ecl-muted intro">
+        The loads at every row of “{{ data.ephemeris.name }}” from {{ window }}, saved as a draft custom case for review.
+        Its orbit is recorded as the osculating one at the first row.
+      </p>
+      <form class="ecl-form" [formGroup]="form" (ngSubmit)="createCase()" id="ephemeris-case-form" novalidate>
+        <mat-form-field appearance="outline">
+          <mat-label>Name</mat-label>
+          <input matInput formControlName="name" data-testid="ephemeris-case-name" />
+          <mat-error>Give the case a name (at most 120 characters).</mat-error>
+        </mat-form-field>
+        <ecl-case-treatment-toggles [properties]="form.controls.properties" [marginDirection]="form.controls.marginDirection" />
+        <ecl-margin-fields [group]="form.controls.margins" testIdPrefix="ephemeris-case" />
+      </form>
+      @if (busy()) {
+        <mat-progress-bar mode="indeterminate" aria-label="Computing the case along the ephemeris" />
+        <p class="ecl-muted" role="status">Computing the loads at {{ data.ephemeris.rows > 100000 ? 'up to ' : '' }}every row of the window…</p>
+      }
+      @if (failure(); as message) {
+        <p class="ecl-error" role="alert" data-testid="ephemeris-case-error">{{ message }}</p>
+      }
+    </mat-dialog-content>
+    <mat-dialog-actions align="end">
+      <button mat-button type="button" mat-dialog-close [disabled]="busy()">Cancel</button>
+      <button mat-flat-button type="submit" form="ephemeris-case-form" [disabled]="busy()" data-testid="ephemeris-case-submit">Create case</button>
+    </mat-dialog-actions>
+  `,
+  styleUrl: '../cases/case-dialog.css',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class EphemerisCaseDialog {
+  private readonly api = inject(EphemerisApi);
+  private readonly dialogRef = inject<MatDialogRef<EphemerisCaseDialog, CaseDetail>>(MatDialogRef);
+  protected readonly data = inject<EphemerisCaseData>(MAT_DIALOG_DATA);
+  protected readonly window = windowText(this.data.from, this.data.to);
+
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    name: [`${this.data.ephemeris.name}, ${this.window}`.slice(0, 120), [Validators.required, Validators.maxLength(120)]],
+    properties: [this.data.properties],
+    marginDirection: ['increase' as 'increase' | 'decrease'],
+    margins: marginGroup(inject(NonNullableFormBuilder)),
+  });
+  protected readonly busy = signal(false);
+  protected readonly failure = signal<string | null>(null);
+
+  static open(dialog: MatDialog, data: EphemerisCaseData): Observable<CaseDetail | undefined> {
+    return dialog.open<EphemerisCaseDialog, EphemerisCaseData, CaseDetail>(EphemerisCaseDialog, { data, width: '640px' }).afterClosed();
+  }
+
+  protected createCase(): void {
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    const v = this.form.getRawValue();
+    this.busy.set(true);
+    this.failure.set(null);
+    this.form.disable();
+    this.api
+      .createCase(this.data.missionId, this.data.ephemeris.id, {
+        name: v.name.trim(), from: this.data.from, to: this.data.to, properties: v.properties, marginDirection: v.marginDirection, margins: v.margins,
+      })
+      .subscribe({
+        next: (made) => this.dialogRef.close(made),
+        error: (failure: unknown) => {
+          this.busy.set(false);
+          this.form.enable();
+          this.failure.set(apiErrorMessage(failure));
+        },
+      });
+  }
+}
