@@ -16,7 +16,6 @@ import { recordAudit } from '../audit/audit-log';
 import type { EphemerisRow, LoadCaseRow, MissionRow, UserRow } from '../db/schema';
 import { unprocessable } from '../errors';
 import { ephemerisWindow, firstStates, windowEnvironment } from '../ephemerides/ephemeris-environment';
-import { epochText } from '../ephemerides/epoch-text';
 import { attitudeText, insertDraft, missionInputs, surfaceSnapshot } from './case-derivation';
 
 export const ephemerisCaseAssumptions = [
@@ -59,13 +58,12 @@ export function createEphemerisCase(
   const velocity = first.velocityKmS ?? first.positionKm.map((x, k) => (second.positionKm[k]! - x) / ((second.tMs - first.tMs) / 1000));
   const el = elementsFromState(first.positionKm, [velocity[0]!, velocity[1]!, velocity[2]!], body.gmKm3S2);
   if (!(el.eccentricity < 1)) {
-    throw unprocessable(`At ${epochText(window.fromMs)} the trajectory is not a closed orbit about ${body.name} (eccentricity ${el.eccentricity.toFixed(3)}): a load case needs an orbit to record; choose a window where it is bound.`, [
+    throw unprocessable(`At ${window.from} the trajectory is not a closed orbit about ${body.name} (eccentricity ${el.eccentricity.toFixed(3)}): a load case needs an orbit to record; choose a window where it is bound.`, [
       { path: 'from', message: `eccentricity ${el.eccentricity.toFixed(3)} at the first row` },
     ]);
   }
-  const from = epochText(window.fromMs);
-  const to = epochText(window.toMs);
-  const spanS = (window.toMs - window.fromMs) / 1000;
+  const { from, to } = window;
+  const spanS = env.spanS;
   const margins = resolveMargins(input.margins);
   const factor = input.marginDirection === 'increase' ? 1 + margins.heatLoadPercent / 100 : 1 - margins.heatLoadPercent / 100;
 
@@ -99,13 +97,13 @@ export function createEphemerisCase(
     eclipseDurationS: round(eclipseS, 1),
     umbraDurationS: round(env.umbraS, 1),
     penumbraDurationS: round(env.penumbraS, 1),
-    tS: env.points.map((p) => round((p.tMs - window.fromMs) / 1000, 3)),
+    tS: env.points.map((p) => round((p.tMs - first.tMs) / 1000, 3)),
     sunlit: env.points.map((p) => round(p.sunlit, 5)),
     surfaces,
     total: { orbitAverageAbsorbedW: round(totalAverage), orbitAverageWithMarginW: round(totalAverage * factor), peakAbsorbedW: round(env.peakTotalAbsorbedW) },
   };
 
-  const middle = new Date((window.fromMs + window.toMs) / 2);
+  const middle = new Date(first.tMs + (spanS * 1000) / 2);
   const solarDistanceAu = sunFromBody(body, middle).distanceAu;
   const elements: StoredConditions['orbit'] = {
     semiMajorAxisKm: el.semiMajorAxisKm, eccentricity: el.eccentricity, inclinationDeg: el.inclinationDeg, raanDeg: el.raanDeg, argPeriapsisDeg: el.argPeriapsisDeg,

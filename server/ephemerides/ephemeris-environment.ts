@@ -80,10 +80,14 @@ export interface WindowRequest {
 }
 
 export interface EphemerisWindow {
+  /** Epochs kept: fromMs <= t <= toMs (unbounded for the whole ephemeris). */
   fromMs: number;
   toMs: number;
   /** Rows with epochs in the window. */
   rows: number;
+  /** The epochs of the first and last of those rows, as stored summaries write them. */
+  from: string;
+  to: string;
 }
 
 /**
@@ -101,7 +105,8 @@ export function ephemerisWindow(ctx: AppContext, row: EphemerisRow, window: Wind
       { path: field, message: `${field} ${epochText(field === 'from' ? fromMs : toMs)} is outside ${row.startEpoch} – ${row.endEpoch}` },
     ]);
   }
-  if (!window.from && !window.to) return { fromMs: startMs, toMs: endMs, rows: row.rows };
+  // The whole file: no bounds at all, so a sub-millisecond OEM epoch at either end stays in.
+  if (!window.from && !window.to) return { fromMs: -Infinity, toMs: Infinity, rows: row.rows, from: row.startEpoch, to: row.endEpoch };
   let rows = 0;
   let first = NaN;
   let last = NaN;
@@ -115,7 +120,7 @@ export function ephemerisWindow(ctx: AppContext, row: EphemerisRow, window: Wind
       { path: 'to', message: `the window holds ${rows} row${rows === 1 ? '' : 's'}` },
     ]);
   }
-  return { fromMs: first, toMs: last, rows };
+  return { fromMs: first, toMs: last, rows, from: epochText(first), to: epochText(last) };
 }
 
 /** The window's first two rows (it holds at least two). */
@@ -166,7 +171,7 @@ export function ephemerisEnvironment(ctx: AppContext, mission: MissionRow, row: 
     albedo: result.albedo,
     olrWm2: result.olrWm2,
     rows: result.rows,
-    window: { from: epochText(window.fromMs), to: epochText(window.toMs) },
+    window: { from: window.from, to: window.to },
     points: result.points.map((p) => ({ epoch: epochText(p.tMs), altitudeKm: p.altitudeKm, sunlit: p.sunlit, surfaces: p.surfaces })),
     averages: result.averages,
     peaks: result.peaks,

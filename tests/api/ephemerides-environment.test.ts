@@ -1,6 +1,7 @@
 // The environment along an uploaded ephemeris: the CSV and the OEM of one trajectory agree, and along
 // the circular-orbit fixture the loads match POST /environment/compute for the same orbit and epoch,
 // over the whole file, over a window of one orbit, and in a load case made from that window.
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
@@ -151,6 +152,18 @@ describe('a window of the ephemeris', () => {
       const [got, expected] = [orbit.averages.surfaces[i].absorbedW, analytic.orbitAverage.surfaces[i].absorbedW];
       expect(Math.abs(got - expected) / expected, `${surface.name}: ${got} W over the window, ${expected} W analytic`).toBeLessThan(0.015);
     });
+  });
+
+  it('counts every row of the whole file even when its epochs carry sub-millisecond digits (OEM)', async () => {
+    // the OEM fixture with every epoch 0.6 ms later: the stored summary writes epochs to the millisecond
+    const text = readFileSync(path.join(fixturesDir, 'leo-circular.oem'), 'utf8')
+      .replace(/^(\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2})\.000 /gm, '$1.0006 ')
+      .replace('STOP_TIME = 2027-03-20T16:00:00.000', 'STOP_TIME = 2027-03-20T16:00:00.001');
+    const res = await analyst.post(`/api/v1/missions/${missionId}/ephemerides`).attach('file', Buffer.from(text), 'sub-ms.oem');
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const whole = await environment(res.body.id as string);
+    expect(whole.rows).toBe(241);
+    expect(whole.rows).toBe(res.body.rows);
   });
 
   it('refuses a window outside the ephemeris, reversed, or too short, naming the field', async () => {
