@@ -25,8 +25,13 @@ test('the thermal engineer builds a small model, runs it on the hot and the cold
   await signIn(page, 'thermal@kestrel.test');
 
   await page.getByRole('link', { name: 'Thermal models' }).click();
+  // Without a mission in the address the page opens on the first mission that has a model (the
+  // Lunar pathfinder, first in the list, has none), with the demo model listed.
+  await expect(page.getByTestId('thermal-mission')).toContainText('Kestrel-1 imaging smallsat');
+  await expect(page.getByTestId('thermal-models')).toContainText('Kestrel-1 bus, 4 nodes');
+  await choose(page, 'thermal-mission', 'Kestrel Lunar pathfinder');
+  await expect(page.getByText('No thermal models for this mission yet.')).toBeVisible();
   await choose(page, 'thermal-mission', 'Kestrel-1 imaging smallsat');
-  // The demo model is listed for the mission.
   await expect(page.getByTestId('thermal-models')).toContainText('Kestrel-1 bus, 4 nodes');
   await screenshot(page, 'thermal-models-list');
 

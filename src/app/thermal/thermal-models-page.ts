@@ -9,12 +9,13 @@ import { MatIcon } from '@angular/material/icon';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
-import { combineLatest, of, switchMap } from 'rxjs';
+import { catchError, combineLatest, concat, map, of, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { CaseApi } from '../cases/case-api';
 import { DesignCaution } from '../shell/design-caution';
 import { CurrentWorkspace } from '../workspace/current-workspace';
+import { firstMissionWithModels } from './first-mission-with-models';
 import { ThermalModelApi } from './thermal-api';
 
 @Component({
@@ -100,7 +101,7 @@ import { ThermalModelApi } from './thermal-api';
 })
 export class ThermalModelsPage {
   readonly workspaceId = input.required<string>();
-  /** ?mission= chooses the mission; the workspace's first one otherwise. */
+  /** ?mission= chooses the mission; otherwise the first with a model, else the workspace's first. */
   readonly mission = input<string | undefined>(undefined);
 
   private readonly cases = inject(CaseApi);
@@ -117,11 +118,24 @@ export class ThermalModelsPage {
     initialValue: { status: 'loading' as const },
   });
   private readonly picked = linkedSignal(() => this.mission() ?? null);
+  /** Without ?mission=, the first mission that has a model (asked one at a time); 'asking' meanwhile. */
+  private readonly withModels = toSignal(
+    toObservable(this.missions).pipe(
+      switchMap((ms) => {
+        if (ms.status !== 'ready' || this.mission()) return of(null);
+        const count = (id: string) => this.api.list(id).pipe(map((items) => items.length), catchError(() => of(0)));
+        return concat(of('asking' as const), firstMissionWithModels(ms.value.map((m) => m.id), count));
+      }),
+    ),
+    { initialValue: null },
+  );
   protected readonly chosen = computed(() => {
     const ms = this.missions();
     const list = ms.status === 'ready' ? ms.value : [];
     const picked = this.picked();
-    return list.find((m) => m.id === picked)?.id ?? list[0]?.id ?? null;
+    const found = this.withModels();
+    if (!list.some((m) => m.id === picked) && found === 'asking') return null;
+    return list.find((m) => m.id === picked)?.id ?? list.find((m) => m.id === found)?.id ?? list[0]?.id ?? null;
   });
   private readonly reload = signal(0);
   protected readonly models = toSignal(
