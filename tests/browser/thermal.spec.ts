@@ -7,6 +7,8 @@ import { screenshot, signIn } from './session';
 async function choose(page: Page, selectTestId: string, option: RegExp | string): Promise<void> {
   await page.getByTestId(selectTestId).click();
   await page.getByRole('option', { name: option }).first().click();
+  // the panel closes with an animation; a click on the select before it is gone does not reopen it
+  await expect(page.getByRole('listbox')).toHaveCount(0);
 }
 
 async function runOn(page: Page, kind: RegExp): Promise<string> {
