@@ -18,7 +18,7 @@ let nextStripId = 0;
   selector: 'ecl-strip-plot',
   imports: [PlotXAxis, MatButton],
   templateUrl: './strip-plot.html',
-  styleUrls: ['./plot-axis.css', './strip-plot.css'],
+  styleUrls: ['./plot-axis.css', './plot-table.css', './strip-plot.css'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class StripPlot {

@@ -20,7 +20,7 @@ let nextPlotId = 0;
   selector: 'ecl-time-series-plot',
   imports: [PlotXAxis, MatButton],
   templateUrl: './time-series-plot.html',
-  styleUrls: ['./plot-axis.css', './time-series-plot.css'],
+  styleUrls: ['./plot-axis.css', './plot-table.css', './time-series-plot.css'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class TimeSeriesPlot {
