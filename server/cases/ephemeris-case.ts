@@ -1,8 +1,9 @@
 // A load case computed along a window of an uploaded ephemeris instead of a Keplerian orbit: the
 // loads at every row of the window (the averages and peaks count each one; the stored series keeps
-// `steps` of them, evenly thinned), with the osculating orbit at the first row recorded as the
-// case's orbit. Its results come from the trajectory, so its inputs cannot be edited by hand: a
-// different window or property set is a new case from the ephemeris page.
+// `steps` of them, evenly spaced in time, as the thermal model takes a case's series), with the
+// osculating orbit at the first row recorded as the case's orbit. Its results come from the
+// trajectory, so its inputs cannot be edited by hand: a different window or property set is a new
+// case from the ephemeris page.
 import type { EphemerisCaseCreateParsed } from '../../shared/api/ephemerides';
 import type { CaseInputs, CaseResultsContent, StoredConditions } from '../../shared/api/case-content';
 import { getBody } from '../../shared/physics/bodies';
@@ -22,7 +23,7 @@ export const ephemerisCaseAssumptions = [
   'loads at every row of the ephemeris inside the window: the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations), conical shadow of the central body, no atmosphere',
   'albedo load = S * albedo * F * cos(solar zenith at the sub-spacecraft point) on the sunlit side: a common engineering approximation; planetary IR = OLR * F (Howell catalogue)',
   'surfaces are flat plates fixed in the local orbital frame from r and v (x ram, y orbit normal, z zenith) or pointed at the Sun; no shadowing between them',
-  '"orbit average" values are time-weighted (trapezoidal) over the whole window, every row; peaks over every row; the stored series keeps an evenly thinned subset of the rows',
+  '"orbit average" values are time-weighted (trapezoidal) over the whole window, every row; peaks over every row; the stored series keeps `steps` rows evenly spaced in time (the first row at or after each step), whatever the file\'s own spacing',
   'tS counts from the first row of the window and periodS is the window\'s length: a thermal model run on this case repeats the window as if it were periodic',
   'eclipseFraction counts umbra plus half of penumbra over the window',
 ];
@@ -50,7 +51,7 @@ export function createEphemerisCase(
   const env = windowEnvironment(
     ctx, mission, ephemeris, window,
     snapshot.map((s, i) => ({ name: s.name, normal: s.normal, areaM2: s.areaM2, ...optics[i]! })),
-    { albedo: input.albedo, olrWm2: input.olrWm2, maxPoints: input.steps },
+    { albedo: input.albedo, olrWm2: input.olrWm2, maxPoints: input.steps, sampling: 'time' },
   );
 
   // The osculating orbit at the first row (velocity by a forward difference when the file has none).

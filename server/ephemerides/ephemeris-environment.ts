@@ -136,8 +136,26 @@ export function firstStates(ctx: AppContext, row: EphemerisRow, window: Ephemeri
 export interface WindowEnvironmentOptions {
   albedo?: number | undefined;
   olrWm2?: number | undefined;
-  /** Rows to keep as points, evenly thinned (the averages and peaks use every row). */
+  /** Rows to keep as points (the averages and peaks use every row). */
   maxPoints: number;
+  /**
+   * rows: every n-th row and the last, for plots; time: the first row at or after each of maxPoints
+   * evenly spaced times from the first row (the last row's time excluded), so the points are evenly
+   * spaced in time however unevenly the file is, as a load case's series must be.
+   */
+  sampling?: 'rows' | 'time';
+}
+
+/** Keeps the first row at or after each of `count` times evenly spaced over [firstMs, lastMs). */
+export function evenInTime(firstMs: number, lastMs: number, count: number): (index: number, tMs: number) => boolean {
+  const stepMs = (lastMs - firstMs) / count;
+  let k = 0;
+  return (_index, tMs) => {
+    if (k >= count || tMs < firstMs + k * stepMs) return false;
+    // one row stands for every grid time it reaches (a gap in the file longer than the grid step)
+    while (k < count && tMs >= firstMs + k * stepMs) k++;
+    return true;
+  };
 }
 
 /** The environment at every row of the window, for the given surfaces. */
@@ -145,12 +163,15 @@ export function windowEnvironment(
   ctx: AppContext, mission: MissionRow, row: EphemerisRow, window: EphemerisWindow, surfaceList: Surface[], options: WindowEnvironmentOptions,
 ): TrajectoryEnvironment {
   const stride = Math.max(1, Math.ceil(window.rows / options.maxPoints));
+  const keep = options.sampling === 'time'
+    ? evenInTime(firstStates(ctx, row, window)[0].tMs, Date.parse(window.to), options.maxPoints)
+    : (i: number) => i % stride === 0 || i === window.rows - 1;
   return trajectoryEnvironment(samples(ctx, row.id, window.fromMs, window.toMs), {
     body: getBody(mission.bodyId),
     surfaces: surfaceList,
     albedo: options.albedo,
     olrWm2: options.olrWm2,
-    keep: (i) => i % stride === 0 || i === window.rows - 1,
+    keep,
   });
 }
 

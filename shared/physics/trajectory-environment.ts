@@ -36,8 +36,8 @@ export interface TrajectoryEnvironmentOptions {
   /** Defaults to the body's nominal values. */
   albedo?: number;
   olrWm2?: number;
-  /** Which rows (0-based) to return as points; every row counts in the averages. Default: all. */
-  keep?: (index: number) => boolean;
+  /** Which rows (0-based, with their epochs) to return as points; every row counts in the averages. Default: all. */
+  keep?: (index: number, tMs: number) => boolean;
 }
 
 export interface TrajectoryEnvironment {
@@ -160,7 +160,7 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
     let totalW = 0;
     for (const load of loads) totalW += load.absorbedW;
     peakTotalAbsorbedW = Math.max(peakTotalAbsorbedW, totalW);
-    if (keep(index)) points.push({ tMs: cur.tMs, altitudeKm: radiusKm - body.radiusKm, sunlit, surfaces: loads });
+    if (keep(index, cur.tMs)) points.push({ tMs: cur.tMs, altitudeKm: radiusKm - body.radiusKm, sunlit, surfaces: loads });
     index++;
   };
 

@@ -222,6 +222,24 @@ describe('a load case from an ephemeris window', () => {
     expect(JSON.parse(exported.text).inputs.ephemeris.sha256).toBe(upload.sha256);
   });
 
+  it('spaces its series evenly in time however uneven the file is (every minute for an hour, then every five)', async () => {
+    const lines = readFileSync(path.join(fixturesDir, 'leo-circular.csv'), 'utf8').trim().split('\n');
+    // header, rows 0..60 (12:00-13:00 every 60 s), then every 5th row to 16:00 (300 s apart)
+    const uneven = [lines[0], ...lines.slice(1).filter((_, i) => i <= 60 || i % 5 === 0)].join('\n') + '\n';
+    const uploaded = await analyst.post(`/api/v1/missions/${missionId}/ephemerides`).field('frame', 'EME2000').attach('file', Buffer.from(uneven), 'uneven.csv');
+    expect(uploaded.status, JSON.stringify(uploaded.body)).toBe(201);
+    const res = await thermal.post(`/api/v1/missions/${missionId}/ephemerides/${uploaded.body.id}/cases`).send({ name: 'uneven file', steps: 24 });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const { tS, periodS } = (res.body as CaseDetail).results;
+    expect(periodS).toBe(4 * 3600);
+    // 24 steps of 600 s over [0, 4 h): each the first row at or after k * 600 s, so at most 300 s late
+    expect(tS).toHaveLength(24);
+    tS.forEach((t, k) => {
+      expect(t, `step ${k}`).toBeGreaterThanOrEqual(k * 600);
+      expect(t, `step ${k}`).toBeLessThanOrEqual(k * 600 + 300);
+    });
+  });
+
   it('keeps its loads when renamed or given other margins, and refuses hand edits of its inputs', async () => {
     const created = (await thermal.post(casesUrl()).send({ name: 'whole file', properties: 'eol', margins: { heatLoadPercent: 10 } })).body as CaseDetail;
     const edited = await thermal.patch(`/api/v1/cases/${created.id}`).send({ name: 'whole file, 30 %', margins: { heatLoadPercent: 30 } });
