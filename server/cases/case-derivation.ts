@@ -5,7 +5,7 @@ import { and, eq } from 'drizzle-orm';
 import type { CaseCreateParsed, CaseDeriveParsed } from '../../shared/api/cases';
 import type { CaseInputs, StoredConditions } from '../../shared/api/case-content';
 import { surfaceNormal } from '../../shared/api/missions';
-import { getBody, solarDistanceRangeAu } from '../../shared/physics/bodies';
+import { getBody, solarDistanceRangeAu, type Body } from '../../shared/physics/bodies';
 import { deriveDesignCases, evaluateCase, type CaseSurface } from '../../shared/physics/design-cases';
 import { designPairs, resolveMargins, type Margins } from '../../shared/physics/design-environment';
 import { raanOnDateRad, scanMission } from '../../shared/physics/design-scan';
@@ -99,6 +99,18 @@ const canonicalOrbit = (o: OrbitRow): StoredConditions['orbit'] => ({
   semiMajorAxisKm: o.semiMajorAxisKm, eccentricity: o.eccentricity, inclinationDeg: o.inclinationDeg, raanDeg: o.raanDeg, argPeriapsisDeg: o.argPeriapsisDeg,
 });
 
+/**
+ * A single case's albedo and OLR in words: where they come from (the body's nominal values unless
+ * the user gave either) and the rationale line, which names the body's design pairs beside them.
+ */
+export function pairWords(body: Body, inclinationDeg: number, albedo: number, olrWm2: number, userGiven: boolean): { source: string; rationale: string } {
+  const pairs = designPairs(body, inclinationDeg);
+  return {
+    source: userGiven ? 'entered by the user' : `${body.name} nominal: ${body.sources['albedo'] ?? ''}`,
+    rationale: `albedo ${albedo.toFixed(2)} with OLR ${olrWm2.toFixed(0)} W/m^2, ${userGiven ? 'given by the user' : `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}`}`,
+  };
+}
+
 export function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: UserRow, values: DraftValues): LoadCaseRow {
   return tx
     .insert(loadCases)
@@ -173,7 +185,6 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
   const elements = canonicalOrbit(orbit);
   const defined = defineOrbit(elements, body);
   const day = scanMission(body, defined, new Date(orbit.epoch), input.date, input.date)[0]!;
-  const pairs = designPairs(body, orbit.inclinationDeg);
   const margins = resolveMargins(input.margins);
   const conditions: StoredConditions = {
     bodyId: mission.bodyId, orbit: elements, orbitEpoch: orbit.epoch, date: input.date,
@@ -181,18 +192,19 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
     albedo: input.albedo ?? body.albedo.nominal, olrWm2: input.olrWm2 ?? body.olrWm2.nominal,
     properties: input.properties, marginDirection: input.marginDirection, steps: input.steps, surfaces: pointed,
   };
+  const pair = pairWords(body, orbit.inclinationDeg, conditions.albedo, conditions.olrWm2, input.albedo !== undefined || input.olrWm2 !== undefined);
   const given = (v: unknown, what: string, fallback: string) => (v === undefined ? fallback : `${what} given by the user`);
   const rationale = [
     `custom case on ${input.date}: ${given(input.betaDeg, `beta ${conditions.betaDeg.toFixed(1)} deg`, `beta ${conditions.betaDeg.toFixed(1)} deg from the date (node drifted under J2 to ${(raanOnDateRad(defined, new Date(orbit.epoch), new Date(`${input.date}T12:00:00Z`)) / DEG).toFixed(1)} deg)`)}`,
     `Sun distance ${conditions.solarDistanceAu.toFixed(4)} AU, ${given(input.solarDistanceAu, 'distance', 'from the date (VSOP87)')}`,
-    `albedo ${conditions.albedo.toFixed(2)} with OLR ${conditions.olrWm2.toFixed(0)} W/m^2, ${input.albedo === undefined && input.olrWm2 === undefined ? `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}` : 'given by the user'}`,
+    pair.rationale,
     `${input.properties.toUpperCase()} optical properties`,
   ];
   const inputs: CaseInputs = {
     ...baseInputs(mission, orbit),
     attitude: input.attitude ?? attitudeText(pointed),
     conditions,
-    environmentSource: input.albedo === undefined && input.olrWm2 === undefined ? `${body.name} nominal: ${body.sources['albedo'] ?? ''}` : 'entered by the user',
+    environmentSource: pair.source,
     provisional: body.provisional,
     margins,
     rationale,

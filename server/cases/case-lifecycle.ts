@@ -33,35 +33,27 @@ function audit(tx: Tx, row: LoadCaseRow, user: UserRow, action: string, summary:
   recordAudit(tx, { workspaceId: row.workspaceId, actorUserId: user.id, action, targetType: 'load_case', targetId: row.id, summary });
 }
 
-/** Changes a draft: its name, margins and inputs; the results are computed again from the new inputs. */
+interface Edited {
+  inputs: CaseInputs;
+  results: LoadCaseRow['results'];
+  /** The inputs that changed, for the audit line. */
+  changedKeys: string[];
+}
+
+/**
+ * Changes a draft: its name, margins and inputs. A case from an orbit is computed again from the
+ * new inputs; a case from an ephemeris keeps its loads (only its margin columns follow the margins).
+ */
 export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, change: CaseUpdateParsed): LoadCaseRow {
   requireStatus(row, ['draft'], 'changed');
   const before = row.inputs;
-  if (before.ephemeris) return updateEphemerisCase(ctx, user, row, change);
-  const edits = change.inputs ?? {};
-  const { attitude, ...conditionEdits } = edits;
-  const conditions = { ...before.conditions, ...conditionEdits };
   const margins = change.margins
     ? resolveMargins({
         heatLoadPercent: change.margins.heatLoadPercent ?? before.margins.heatLoadPercent,
         temperatureMarginC: change.margins.temperatureMarginC ?? before.margins.temperatureMarginC,
       })
     : before.margins;
-  const changedKeys = Object.keys(conditionEdits).filter(
-    (k) => canonicalJson(conditionEdits[k as keyof typeof conditionEdits]) !== canonicalJson(before.conditions[k as keyof typeof before.conditions]),
-  );
-  const noted = changedKeys.map((k) => {
-    const v = conditions[k as keyof typeof conditions];
-    return `${k} changed by hand to ${typeof v === 'object' ? 'the values given' : String(v)} by ${user.name}`;
-  });
-  const inputs: CaseInputs = {
-    ...before,
-    attitude: attitude ?? (conditionEdits.surfaces ? attitudeText(conditions.surfaces) : before.attitude),
-    conditions,
-    margins,
-    rationale: [...before.rationale, ...noted],
-  };
-  const results = evaluateCase(conditions, margins);
+  const { inputs, results, changedKeys } = before.ephemeris ? ephemerisCaseEdit(row, change, margins) : orbitCaseEdit(row, change, margins, user);
   return ctx.db.transaction((tx) => {
     const updated = tx
       .update(loadCases)
@@ -76,38 +68,41 @@ export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, cha
   });
 }
 
+function orbitCaseEdit(row: LoadCaseRow, change: CaseUpdateParsed, margins: CaseInputs['margins'], user: UserRow): Edited {
+  const before = row.inputs;
+  const { attitude, ...conditionEdits } = change.inputs ?? {};
+  const conditions = { ...before.conditions, ...conditionEdits };
+  const changedKeys = Object.keys(conditionEdits).filter(
+    (k) => canonicalJson(conditionEdits[k as keyof typeof conditionEdits]) !== canonicalJson(before.conditions[k as keyof typeof before.conditions]),
+  );
+  const noted = changedKeys.map((k) => {
+    const v = conditions[k as keyof typeof conditions];
+    return `${k} changed by hand to ${typeof v === 'object' ? 'the values given' : String(v)} by ${user.name}`;
+  });
+  const inputs: CaseInputs = {
+    ...before,
+    attitude: attitude ?? (conditionEdits.surfaces ? attitudeText(conditions.surfaces) : before.attitude),
+    conditions,
+    margins,
+    rationale: [...before.rationale, ...noted],
+  };
+  return { inputs, results: evaluateCase(conditions, margins), changedKeys };
+}
+
 /**
  * A case from an ephemeris: its loads come from the trajectory, so only the name and the margins
  * change here; other inputs are a new case from the ephemeris (422 naming them).
  */
-function updateEphemerisCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, change: CaseUpdateParsed): LoadCaseRow {
+function ephemerisCaseEdit(row: LoadCaseRow, change: CaseUpdateParsed, margins: CaseInputs['margins']): Edited {
   const before = row.inputs;
-  const edited = Object.keys(change.inputs ?? {});
+  const edited = Object.entries(change.inputs ?? {});
   if (edited.length > 0) {
     throw unprocessable(
-      `The case ${label(row)} was computed along the ephemeris "${before.ephemeris?.name ?? ''}": its ${edited.join(', ')} cannot be changed by hand. Make a new case from the ephemeris with the window and properties you want.`,
-      edited.map((k) => ({ path: `inputs.${k}`, message: 'fixed by the ephemeris the case was computed along' })),
+      `The case ${label(row)} was computed along the ephemeris "${before.ephemeris?.name ?? ''}": its ${edited.map(([k]) => k).join(', ')} cannot be changed by hand. Make a new case from the ephemeris with the window and properties you want.`,
+      edited.map(([k]) => ({ path: `inputs.${k}`, message: 'fixed by the ephemeris the case was computed along' })),
     );
   }
-  const margins = change.margins
-    ? resolveMargins({
-        heatLoadPercent: change.margins.heatLoadPercent ?? before.margins.heatLoadPercent,
-        temperatureMarginC: change.margins.temperatureMarginC ?? before.margins.temperatureMarginC,
-      })
-    : before.margins;
-  const results = withMargins(row.results, margins, before.conditions.marginDirection);
-  return ctx.db.transaction((tx) => {
-    const updated = tx
-      .update(loadCases)
-      .set({ name: change.name ?? row.name, inputs: { ...before, margins }, results, updatedAt: new Date().toISOString() })
-      .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'draft')))
-      .returning()
-      .get();
-    if (!updated) throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
-    const what = [change.name ? 'name' : null, change.margins ? 'margins' : null].filter(Boolean).join(', ') || 'nothing';
-    audit(tx, updated, user, 'case.edited', `Edited ${label(updated)} (${what}).`);
-    return updated;
-  });
+  return { inputs: { ...before, margins }, results: withMargins(row.results, margins, before.conditions.marginDirection), changedKeys: [] };
 }
 
 export function submitCase(ctx: AppContext, user: UserRow, row: LoadCaseRow): LoadCaseRow {

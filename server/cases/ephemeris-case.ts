@@ -8,7 +8,7 @@ import type { EphemerisCaseCreateParsed } from '../../shared/api/ephemerides';
 import type { CaseInputs, CaseResultsContent, StoredConditions } from '../../shared/api/case-content';
 import { getBody } from '../../shared/physics/bodies';
 import { round, type CaseSurfaceResult, type LoadSummary } from '../../shared/physics/design-cases';
-import { designPairs, opticalProperties, resolveMargins, type Margins } from '../../shared/physics/design-environment';
+import { opticalProperties, resolveMargins, type Margins } from '../../shared/physics/design-environment';
 import type { SurfaceLoad } from '../../shared/physics/heat-loads';
 import { elementsFromState } from '../../shared/physics/state-elements';
 import { sunFromBody } from '../../shared/physics/sun';
@@ -17,7 +17,7 @@ import { recordAudit } from '../audit/audit-log';
 import type { EphemerisRow, LoadCaseRow, MissionRow, UserRow } from '../db/schema';
 import { unprocessable } from '../errors';
 import { ephemerisWindow, firstStates, windowEnvironment } from '../ephemerides/ephemeris-environment';
-import { attitudeText, insertDraft, missionInputs, surfaceSnapshot } from './case-derivation';
+import { attitudeText, insertDraft, missionInputs, pairWords, surfaceSnapshot } from './case-derivation';
 
 export const ephemerisCaseAssumptions = [
   'loads at every row of the ephemeris inside the window: the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations), conical shadow of the central body, no atmosphere',
@@ -109,8 +109,7 @@ export function createEphemerisCase(
   const elements: StoredConditions['orbit'] = {
     semiMajorAxisKm: el.semiMajorAxisKm, eccentricity: el.eccentricity, inclinationDeg: el.inclinationDeg, raanDeg: el.raanDeg, argPeriapsisDeg: el.argPeriapsisDeg,
   };
-  const userPair = input.albedo !== undefined || input.olrWm2 !== undefined;
-  const pairs = designPairs(body, el.inclinationDeg);
+  const pair = pairWords(body, el.inclinationDeg, env.albedo, env.olrWm2, input.albedo !== undefined || input.olrWm2 !== undefined);
   const conditions: StoredConditions = {
     bodyId: mission.bodyId, orbit: elements, orbitEpoch: from, date: from.slice(0, 10),
     betaDeg: results.betaDeg, solarDistanceAu: round(solarDistanceAu, 6), albedo: env.albedo, olrWm2: env.olrWm2,
@@ -133,14 +132,14 @@ export function createEphemerisCase(
     },
     attitude: attitudeText(snapshot),
     conditions,
-    environmentSource: userPair ? 'entered by the user' : `${body.name} nominal: ${body.sources['albedo'] ?? ''}`,
+    environmentSource: pair.source,
     provisional: body.provisional,
     margins,
     rationale: [
       `loads along the ephemeris "${ephemeris.name}" (${ephemeris.fileName}, SHA-256 ${ephemeris.sha256.slice(0, 12)}…) from ${from} to ${to}: ${window.rows} rows, every one counted in the averages and peaks; the series keeps ${env.points.length} of them`,
       `beta ${f1(results.betaDeg)} deg: the time-weighted mean over the window of the Sun's angle above the orbit plane (r x v at each row)`,
       `Sun distance ${solarDistanceAu.toFixed(4)} AU at the middle of the window (VSOP87); mean solar flux ${f1(results.solarFluxWm2)} W/m^2`,
-      `albedo ${env.albedo.toFixed(2)} with OLR ${env.olrWm2.toFixed(0)} W/m^2, ${userPair ? 'given by the user' : `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}`}`,
+      pair.rationale,
       `eclipse ${f1(eclipseS / 60)} min of the window's ${f1(spanS / 60)} min (umbra ${f1(env.umbraS / 60)} min, penumbra ${f1(env.penumbraS / 60)} min)`,
       `${input.properties.toUpperCase()} optical properties; heat-load margin ${margins.heatLoadPercent} % ${input.marginDirection === 'increase' ? 'added' : 'taken off'}`,
     ],

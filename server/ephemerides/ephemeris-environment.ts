@@ -164,7 +164,7 @@ export function windowEnvironment(
 ): TrajectoryEnvironment {
   const stride = Math.max(1, Math.ceil(window.rows / options.maxPoints));
   const keep = options.sampling === 'time'
-    ? evenInTime(firstStates(ctx, row, window)[0].tMs, Date.parse(window.to), options.maxPoints)
+    ? evenInTime(Number.isFinite(window.fromMs) ? window.fromMs : Date.parse(window.from), Date.parse(window.to), options.maxPoints)
     : (i: number) => i % stride === 0 || i === window.rows - 1;
   return trajectoryEnvironment(samples(ctx, row.id, window.fromMs, window.toMs), {
     body: getBody(mission.bodyId),

@@ -23,7 +23,7 @@ describe('elementsFromState (RV2COE)', () => {
     expect(el.trueAnomalyDeg).toBeCloseTo(92.335, 1);
   });
 
-  it('recovers the elements an orbit was defined with, at points all round it (round trip with orbit-position.ts)', () => {
+  it('recovers the elements an orbit was defined with, at points all round it (round trip with orbit-position.ts; common practice, no source)', () => {
     const orbit = defineOrbit({ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 4000, inclinationDeg: 63.4, raanDeg: 300, argPeriapsisDeg: 270 }, earth);
     const at = orbitSampler(orbit);
     for (const fraction of [0, 0.13, 0.5, 0.77]) {
@@ -46,7 +46,7 @@ describe('elementsFromState (RV2COE)', () => {
     }
   });
 
-  it('takes a circular orbit as circular: argument of periapsis 0, anomaly from the ascending node', () => {
+  it('takes a circular orbit as circular: argument of periapsis 0, anomaly from the ascending node (the convention of orbit-definition.ts; common practice, no source)', () => {
     const orbit = defineOrbit({ periapsisAltitudeKm: 550, apoapsisAltitudeKm: 550, inclinationDeg: 97.6, raanDeg: 45 }, earth);
     const state = orbitSampler(orbit)(orbit.periodS / 4);
     const el = elementsFromState(state.positionKm, scale(state.ram, Math.sqrt(earth.gmKm3S2 / orbit.semiMajorAxisKm)), earth.gmKm3S2);

@@ -138,7 +138,7 @@ describe('a window of the ephemeris', () => {
   }
   const after = (s: number) => new Date(Date.parse(fixtureEpoch) + s * 1000).toISOString();
 
-  it('averages only its rows: one orbit of the file matches the analytic orbit (averages within 1.5 %, sunlit share within 0.01)', async () => {
+  it('averages only its rows: one orbit of the file matches the analytic orbit of /environment/compute (averages within 1.5 %, sunlit share within 0.01; tolerance common practice, no source)', async () => {
     const analytic = await analyticOrbit();
     const whole = await environment(ids.csv);
     const orbit = await environment(ids.csv, { from: fixtureEpoch, to: after(analytic.periodS) });
@@ -189,7 +189,7 @@ describe('a load case from an ephemeris window', () => {
   });
   const casesUrl = () => `/api/v1/missions/${missionId}/ephemerides/${ids.csv}/cases`;
 
-  it('records the trajectory and the osculating orbit, and its loads match the analytic orbit (within 1.5 %; beta within 0.1 deg)', async () => {
+  it('records the trajectory and the osculating orbit (RV2COE, Vallado), and its loads match the analytic orbit of /environment/compute (within 1.5 %; beta within 0.1 deg)', async () => {
     const analytic = (await analyst.post('/api/v1/environment/compute').send({ bodyId: 'earth', orbit: leoOrbit, epoch: fixtureEpoch, steps: 3600, surfaces: testSurfaces })).body as EnvironmentResponse;
     const to = new Date(Date.parse(fixtureEpoch) + analytic.periodS * 1000).toISOString();
     const res = await thermal.post(casesUrl()).send({ name: 'Kestrel-1 one orbit from the file', from: fixtureEpoch, to, steps: 48 });
