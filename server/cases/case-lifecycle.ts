@@ -99,7 +99,7 @@ function ephemerisCaseEdit(row: LoadCaseRow, change: CaseUpdateParsed, margins: 
   if (edited.length > 0) {
     throw unprocessable(
       `The case ${label(row)} was computed along the ephemeris "${before.ephemeris?.name ?? ''}": its ${edited.map(([k]) => k).join(', ')} cannot be changed by hand. Make a new case from the ephemeris with the window and properties you want.`,
-      edited.map(([k]) => ({ path: `inputs.${k}`, message: 'fixed by the ephemeris the case was computed along' })),
+      edited.map(([k, v]) => ({ path: `inputs.${k}`, message: `fixed by the ephemeris the case was computed along (got ${JSON.stringify(v)?.slice(0, 80) ?? 'nothing'})` })),
     );
   }
   return { inputs: { ...before, margins }, results: withMargins(row.results, margins, before.conditions.marginDirection), changedKeys: [] };
