@@ -13,6 +13,17 @@ import { STEFAN_BOLTZMANN } from './constants';
 import { minimumDegreeOrder, SparseCholesky } from './sparse-cholesky';
 import { KELVIN_OFFSET, ThermalConvergenceError, ThermalModelError, type DissipationSchedule, type OrbitSeries, type ThermalModelInput } from './thermal-model';
 
+/** An implicit step whose iteration did not settle: the free node that moved most, where it started and where it got to. */
+export class StepDivergence extends ThermalConvergenceError {
+  constructor(
+    readonly free: number,
+    readonly fromK: number,
+    readonly toK: number,
+  ) {
+    super('A time step did not converge.', 0, NaN);
+  }
+}
+
 export interface ThermalNetwork {
   /** Free (non-boundary) nodes, in the solver's order. */
   readonly n: number;
@@ -356,6 +367,7 @@ export class ImplicitStep {
         T[i] += r[i];
         const a = Math.abs(r[i]);
         if (a > change) change = a;
+        else if (Number.isNaN(a)) change = NaN;
       }
       this.iterations++;
       if (!Number.isFinite(change)) break;
@@ -365,6 +377,16 @@ export class ImplicitStep {
       if (it > 1 && ratio > 0.3) this.refactor(T, alpha, dtS, extraWK);
       previous = change;
     }
-    throw new ThermalConvergenceError('A time step did not converge: temperatures ran away (check for a node with no path to lose heat, or negative loads).', 0, NaN);
+    // The node to blame: the first that is no longer a number, else the one furthest from where the step began.
+    let worst = 0;
+    let worstMove = -1;
+    for (let i = 0; i < n; i++) {
+      const move = Number.isFinite(T[i]) ? Math.abs(T[i] - history[i] / alpha) : Infinity;
+      if (move > worstMove) {
+        worst = i;
+        worstMove = move;
+      }
+    }
+    throw new StepDivergence(worst, history[worst] / alpha, T[worst]);
   }
 }
