@@ -59,25 +59,33 @@ import { ThermalModelApi } from './thermal-api';
       <div class="cards" data-testid="sizing-results">
         <section class="card hot-card" aria-labelledby="size-radiator">
           <h4 id="size-radiator"><ecl-case-kind kind="hot" /> Radiator area</h4>
-          @if (a.radiator.sizing; as s) {
+          @if (a.radiator.sizing?.note; as note) {
+            <p class="big" data-testid="radiator-area">None needed</p>
+            <p data-testid="radiator-note">{{ note }}</p>
+          } @else if (a.radiator.sizing; as s) {
             <p class="big" data-testid="radiator-area">{{ s.areaM2 | number: '1.3-3' }} m²</p>
             <p>holds {{ s.node }} at or below {{ s.targetMaxC | number: '1.1-1' }} °C (maximum less {{ a.margins.hotK }} K) in “{{ a.radiator.case.name }}”; peak reached {{ s.achievedMaxC | number: '1.1-1' }} °C.</p>
             @if (s.equationAreaM2 !== null && s.equationAreaM2 > 0) {
               <p class="ecl-muted">Radiator equation with orbit-average loads: {{ s.equationAreaM2 | number: '1.3-3' }} m².</p>
             }
           } @else {
-            <p class="ecl-error">{{ a.radiator.refused }}</p>
+            <p class="big">Nothing fits</p>
+            <p class="ecl-error" data-testid="radiator-refused">{{ a.radiator.refused }}</p>
           }
         </section>
         <section class="card cold-card" aria-labelledby="size-heater">
           <h4 id="size-heater"><ecl-case-kind kind="cold" /> Heater power</h4>
-          @if (a.heater.sizing; as s) {
+          @if (a.heater.sizing?.note; as note) {
+            <p class="big" data-testid="heater-power">None needed</p>
+            <p data-testid="heater-note">{{ note }}</p>
+          } @else if (a.heater.sizing; as s) {
             <p class="big" data-testid="heater-power">{{ s.powerW | number: '1.2-2' }} W</p>
             <p>installed at nominal voltage; {{ s.powerAtMinVoltageW | number: '1.2-2' }} W at {{ s.minVoltageV ?? 'nominal' }}{{ s.minVoltageV ? ' V' : '' }},
               on {{ s.dutyCycleAtMinVoltage | percent: '1.1-1' }} of the orbit (limit {{ s.maxDutyCycle | percent: '1.0-0' }}), {{ s.orbitAverageAtMinVoltageW | number: '1.2-2' }} W orbit average.</p>
             <p class="ecl-muted">Holds {{ s.node }} at or above {{ s.targetMinC | number: '1.1-1' }} °C (minimum plus {{ a.margins.coldK }} K) in “{{ a.heater.case.name }}”; coldest {{ s.achievedMinC | number: '1.1-1' }} °C.</p>
           } @else {
-            <p class="ecl-error">{{ a.heater.refused }}</p>
+            <p class="big">Nothing fits</p>
+            <p class="ecl-error" data-testid="heater-refused">{{ a.heater.refused }}</p>
           }
         </section>
       </div>
