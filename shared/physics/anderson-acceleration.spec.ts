@@ -26,8 +26,8 @@ const error = (x: Float64Array) => Math.max(...xStar.map((v, i) => Math.abs(x[i]
 /** `steps` accelerated and plain iterations from 0. */
 function iterate(memory: number, steps: number): { x: Float64Array; plain: Float64Array } {
   const anderson = new AndersonAcceleration(4, memory);
-  let x = new Float64Array(4);
-  let plain = new Float64Array(4);
+  let x: Float64Array = new Float64Array(4);
+  let plain: Float64Array = new Float64Array(4);
   for (let k = 0; k < steps; k++) {
     x = anderson.next(x, g(x));
     plain = g(plain);

@@ -263,7 +263,7 @@ export function temperatureWords(k: number): string {
   if (Number.isNaN(k)) return 'no temperature at all (the solution broke down)';
   if (!Number.isFinite(k) || k > 1e6) return 'beyond a million degrees (without bound)';
   const c = k - KELVIN_OFFSET;
-  return `${Math.abs(c) >= 1000 ? Math.round(c) : c.toFixed(1)} C`;
+  return `${Math.abs(c) >= 1000 ? Math.round(c) : c.toFixed(1)} °C`;
 }
 
 /** The model cannot be what was asked: an unknown node, a radiator no area can make cool enough. */

@@ -51,7 +51,7 @@ describe('a run that does not settle', () => {
     expect(r.unsettled!.lastChangeK).toBeLessThan(0);
     expect(Math.abs(Math.abs(r.unsettled!.lastChangeK) - coolingK) / coolingK).toBeLessThan(0.05);
     expect(r.unsettled!.endC).toBeCloseTo(r.nodes[0].temperaturesC[119], 0);
-    expect(r.unsettled!.message).toMatch(/Not settled after 2 orbits: node "slab" still cooled by 0\.\d{3} K over the last orbit, ending it at 79\.\d C/);
+    expect(r.unsettled!.message).toMatch(/Not settled after 2 orbits: node "slab" still cooled by 0\.\d{3} K over the last orbit, ending it at 79\.\d °C/);
     expect(r.nodes[0].temperaturesC).toHaveLength(120);
     expect(r.nodes[0].temperaturesC.every(Number.isFinite)).toBe(true);
   });
@@ -107,8 +107,8 @@ describe('sizing never answers NaN or a silent zero', () => {
     const message = caught.message;
     expect(message).not.toMatch(/NaN|periodic state in \d+ orbits/);
     expect(message).toMatch(/battery/);
-    expect(message).toMatch(/switches on at 0 C/);
-    expect(message).toMatch(/above 0 C/);
+    expect(message).toMatch(/switches on at 0 °C/);
+    expect(message).toMatch(/above 0 °C/);
   });
 
   it('heater sizing with room between the thermostat and the minimum still sizes it (energy balance at 75 % duty)', () => {
@@ -122,7 +122,7 @@ describe('sizing never answers NaN or a silent zero', () => {
   it('radiator sizing on a node that stays cool without one answers 0 m^2 with the reason and its peak, not a bare zero', () => {
     const r = radiatorAreaFor(threeNodes(3), 'panel', 0);
     expect(r.areaM2).toBe(0);
-    expect(r.note).toMatch(/No radiator is needed: even with none, panel peaks at -?\d+\.\d C, within 60 C/);
+    expect(r.note).toMatch(/No radiator is needed: even with none, panel peaks at -?\d+\.\d °C, within 60 °C/);
     expect(r.achievedMaxC).toBeLessThan(60);
   });
 
@@ -130,7 +130,7 @@ describe('sizing never answers NaN or a silent zero', () => {
     const warm = threeNodes(3);
     const r = heaterPowerFor({ ...warm, nodes: warm.nodes.map((n) => (n.name === 'battery' ? { ...n, minC: -90 } : n)) }, 'battery', 0);
     expect(r.powerW).toBe(0);
-    expect(r.note).toMatch(/No heater is needed: even with it off, battery stays at or above -\d+\.\d C/);
+    expect(r.note).toMatch(/No heater is needed: even with it off, battery stays at or above -\d+\.\d °C/);
   });
 
   it('no radiator area fits: the answer says how hot the node still is at the largest area tried', () => {
@@ -139,6 +139,6 @@ describe('sizing never answers NaN or a silent zero', () => {
       periodS: 5739, steps: 120,
       nodes: [{ name: 'hot plate', capacitanceJK: 3000, initialC: 10, dissipationW: 5, absorbedW: 200, radiatorAreaM2: 0.1, emissivity: 0.1, maxC: 30 }],
     };
-    expect(() => radiatorAreaFor(model, 'hot plate', 0)).toThrow(/No radiator area up to 10000 m\^2 holds hot plate at or below 30 C: it still peaks at \d+\.\d C with/);
+    expect(() => radiatorAreaFor(model, 'hot plate', 0)).toThrow(/No radiator area up to 10000 m² holds hot plate at or below 30 °C: it still peaks at \d+\.\d °C with/);
   });
 });

@@ -94,12 +94,12 @@ export function radiatorAreaFor(input: ThermalSolveInput, node: string, marginK 
   const equationAreaM2 = typeof base.dissipationW === 'object' && !Array.isArray(base.dissipationW) ? null
     : denominator > 0 ? q / denominator : null;
 
-  const target = `${node} at or below ${targetMaxC} C${marginK ? ` (its maximum ${base.maxC} C less the ${marginK} K margin)` : ''}`;
+  const target = `${node} at or below ${targetMaxC} °C${marginK ? ` (its maximum ${base.maxC} °C less the ${marginK} K margin)` : ''}`;
   const none = maxAt(0);
   if (none <= targetMaxC) {
     return {
       node, areaM2: 0, equationAreaM2, targetMaxC, achievedMaxC: none, solves,
-      note: `No radiator is needed: even with none, ${node} peaks at ${none.toFixed(1)} C, within ${targetMaxC} C${marginK ? ` (its maximum less the ${marginK} K margin)` : ''}; its heat leaves through its couplings.`,
+      note: `No radiator is needed: even with none, ${node} peaks at ${none.toFixed(1)} °C, within ${targetMaxC} °C${marginK ? ` (its maximum less the ${marginK} K margin)` : ''}; its heat leaves through its couplings.`,
     };
   }
   let hi = Math.max(equationAreaM2 ?? 0.1, 1e-4) * 1.5;
@@ -107,8 +107,8 @@ export function radiatorAreaFor(input: ThermalSolveInput, node: string, marginK 
   for (let peak = maxAt(hi); peak > targetMaxC; peak = maxAt(hi)) {
     if (Number.isFinite(peak)) settledPeak = { peak, areaM2: hi };
     if (hi * 2 > MAX_AREA_M2) {
-      const reached = settledPeak ? `it still peaks at ${settledPeak.peak.toFixed(1)} C with ${settledPeak.areaM2.toPrecision(3)} m^2` : 'no area tried gave a run that settles';
-      throw new ThermalModelError(`No radiator area up to ${MAX_AREA_M2} m^2 holds ${target}: ${reached}. The absorbed load per m^2 is too high for the emissivity, or heat comes in from elsewhere.`, 'sizing.node');
+      const reached = settledPeak ? `it still peaks at ${settledPeak.peak.toFixed(1)} °C with ${settledPeak.areaM2.toPrecision(3)} m²` : 'no area tried gave a run that settles';
+      throw new ThermalModelError(`No radiator area up to ${MAX_AREA_M2} m² holds ${target}: ${reached}. The absorbed load per m² is too high for the emissivity, or heat comes in from elsewhere.`, 'sizing.node');
     }
     hi *= 2;
   }
@@ -133,7 +133,7 @@ export function heaterPowerFor(input: ThermalSolveInput, node: string, marginK =
   const targetMinC = target.minC + marginK;
   const setPoint = (heater.control ?? 'thermostat') === 'thermostat' ? heater.onC : heater.setPointC;
   if (setPoint !== undefined && setPoint < targetMinC) {
-    throw new ThermalModelError(`The heater on ${node} switches on at ${setPoint} C, below the ${targetMinC} C it must hold; raise its set point`, `heaters.${h}`);
+    throw new ThermalModelError(`The heater on ${node} switches on at ${setPoint} °C, below the ${targetMinC} °C it must hold; raise its set point`, `heaters.${h}`);
   }
   const scale = heater.busVoltage ? (heater.busVoltage.minV / heater.busVoltage.nominalV) ** 2 : 1;
   const net = buildNetwork(input, input.substeps ?? 1);
@@ -157,10 +157,10 @@ export function heaterPowerFor(input: ThermalSolveInput, node: string, marginK =
     node, powerW, minVoltageV: heater.busVoltage?.minV ?? null, powerAtMinVoltageW: powerW * scale,
     dutyCycleAtMinVoltage: r.duty, orbitAverageAtMinVoltageW: r.averageW, maxDutyCycle, targetMinC, achievedMinC: r.minC, solves, note,
   });
-  const holding = `${node} at or above ${targetMinC} C${marginK ? ` (its minimum ${target.minC} C plus the ${marginK} K margin)` : ''}`;
+  const holding = `${node} at or above ${targetMinC} °C${marginK ? ` (its minimum ${target.minC} °C plus the ${marginK} K margin)` : ''}`;
   const none = at(0);
   if (none.ok) {
-    return answer(0, none, `No heater is needed: even with it off, ${node} stays at or above ${none.minC.toFixed(1)} C in this case, within ${targetMinC} C${marginK ? ' (its minimum plus the margin)' : ''}.`);
+    return answer(0, none, `No heater is needed: even with it off, ${node} stays at or above ${none.minC.toFixed(1)} °C in this case, within ${targetMinC} °C${marginK ? ' (its minimum plus the margin)' : ''}.`);
   }
   let hi = Math.max(heater.powerW, 1);
   let hiResult = at(hi);
@@ -168,16 +168,16 @@ export function heaterPowerFor(input: ThermalSolveInput, node: string, marginK =
   let previousW = 0;
   while (!hiResult.ok) {
     if (hiResult.failure !== null && previous.failure === null && hi > 4 * Math.max(heater.powerW, 1)) {
-      throw new ThermalModelError(`No heater power holds ${holding}: a ${hi.toPrecision(3)} W heater is too strong for the model to settle (${hiResult.failure}), and weaker ones leave ${node} at ${previous.minC.toFixed(2)} C at coldest with the heater on ${(previous.duty * 100).toFixed(1)} % of the orbit.`, 'sizing.node');
+      throw new ThermalModelError(`No heater power holds ${holding}: a ${hi.toPrecision(3)} W heater is too strong for the model to settle (${hiResult.failure}), and weaker ones leave ${node} at ${previous.minC.toFixed(2)} °C at coldest with the heater on ${(previous.duty * 100).toFixed(1)} % of the orbit.`, 'sizing.node');
     }
     // More power no longer warms the node's coldest moment: the heater's set point, not its power, limits it.
     const stalled = hiResult.settled && previous.settled && hiResult.duty <= maxDutyCycle && previous.duty <= maxDutyCycle && hiResult.minC - previous.minC < 0.01;
     if (stalled) {
-      const controlWords = (heater.control ?? 'thermostat') === 'thermostat' ? `its thermostat switches on at ${heater.onC} C` : `its controller holds ${heater.setPointC} C`;
-      throw new ThermalModelError(`No heater power holds ${holding}: at ${previousW.toPrecision(3)} W and at ${hi.toPrecision(3)} W alike its coldest moment stays at ${hiResult.minC.toFixed(3)} C, because ${controlWords} and the node cools a little before the heater answers. Set the heater to switch on above ${targetMinC} C (for example ${(targetMinC + 1).toFixed(1)} C), or size with a smaller margin.`, `heaters.${h}`);
+      const controlWords = (heater.control ?? 'thermostat') === 'thermostat' ? `its thermostat switches on at ${heater.onC} °C` : `its controller holds ${heater.setPointC} °C`;
+      throw new ThermalModelError(`No heater power holds ${holding}: at ${previousW.toPrecision(3)} W and at ${hi.toPrecision(3)} W alike its coldest moment stays at ${hiResult.minC.toFixed(3)} °C, because ${controlWords} and the node cools a little before the heater answers. Set the heater to switch on above ${targetMinC} °C (for example ${(targetMinC + 1).toFixed(1)} °C), or size with a smaller margin.`, `heaters.${h}`);
     }
     if (hi * 2 > MAX_HEATER_W) {
-      const reached = hiResult.failure ?? `${node} is at ${hiResult.minC.toFixed(1)} C at coldest with the heater on ${(hiResult.duty * 100).toFixed(1)} % of the orbit`;
+      const reached = hiResult.failure ?? `${node} is at ${hiResult.minC.toFixed(1)} °C at coldest with the heater on ${(hiResult.duty * 100).toFixed(1)} % of the orbit`;
       throw new ThermalModelError(`No heater up to ${MAX_HEATER_W} W holds ${holding} within a duty cycle of ${maxDutyCycle}: at ${hi.toPrecision(3)} W ${reached}.`, 'sizing.node');
     }
     previous = hiResult;

@@ -258,7 +258,7 @@ describe('sizing', () => {
     const { radiator } = res.body;
     expect(radiator.sizing.areaM2).toBe(0);
     expect(radiator.sizing.achievedMaxC).toBeLessThan(55);
-    expect(radiator.sizing.note).toMatch(/^No radiator is needed: even with none, structure peaks at -?\d+\.\d C, within 55 C \(its maximum less the 5 K margin\)/);
+    expect(radiator.sizing.note).toMatch(/^No radiator is needed: even with none, structure peaks at -?\d+\.\d °C, within 55 °C \(its maximum less the 5 K margin\)/);
   });
 
   it('says why a node cannot be sized and names an unknown node', async () => {

@@ -130,6 +130,6 @@ describe('POST /api/v1/thermal/size', () => {
     const res = await viewer.post('/api/v1/thermal/size')
       .send({ ...model, sizing: { kind: 'heater', node: 'battery', marginK: 5 } }).expect(422);
     expect(res.body.error.code).toBe('not_sizable');
-    expect(res.body.error.message).toMatch(/3 C, below the 5 C/);
+    expect(res.body.error.message).toMatch(/3 °C, below the 5 °C/);
   });
 });
