@@ -128,11 +128,14 @@ describe('sparse Cholesky against a dense solve (Golub & Van Loan 4.2; dense Gau
     expectDenseAnswer(a, edges, b);
   });
 
-  it('answers false for a matrix that is not positive definite (a negative diagonal term, as a negative capacitance would give)', () => {
+  it('answers false for a matrix that is not positive definite (a negative diagonal term, as a negative capacitance would give), naming the failed pivot', () => {
     const edges: [number, number][] = [[0, 1], [1, 2]];
     const a = networkMatrix(3, edges, random(3));
     a[1][1] = -1;
-    expect(sparseSolve(a, edges, [1, 2, 3]).ok).toBe(false);
+    const { ok, factor, position } = sparseSolve(a, edges, [1, 2, 3]);
+    expect(ok).toBe(false);
+    // The leading minors before node 1's pivot are those of a positive definite matrix: node 1's is the first to fail.
+    expect(factor.failedColumn).toBe(position[1]);
   });
 
   it('a second factor of the same pattern factors another matrix on the same network: 2A gives half the answer', () => {

@@ -19,6 +19,8 @@ export class StepDivergence extends ThermalConvergenceError {
     readonly free: number,
     readonly fromK: number,
     readonly toK: number,
+    /** True when the step's matrix could not be factored at this node (a capacitance or conductance not positive). */
+    readonly singular = false,
   ) {
     super('A time step did not converge.', 0, NaN);
   }
@@ -279,7 +281,8 @@ export class ImplicitStep {
     // Gauss-Seidel contracts by about the square of this ratio per sweep.
     this.sweeping = dominance < 0.3;
     if (!net.factor.factor(diag, lower)) {
-      throw new ThermalConvergenceError('The network matrix is not positive definite: a capacitance or a conductance is not positive.', 0, NaN);
+      const free = Math.max(0, net.factor.failedColumn);
+      throw new StepDivergence(free, T[free], NaN, true);
     }
     this.factored = true;
     this.factorAlpha = alpha;

@@ -153,7 +153,9 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
   const step = new ImplicitStep(net);
   const nameOf = (free: number) => model.nodes[net.nodeOfFree[free]]?.name ?? `node ${free + 1}`;
   const stepFailure = (e: StepDivergence, when: string, orbit: number) => new ThermalConvergenceError(
-    `The temperature of node "${nameOf(e.free)}" did not settle ${when}: it started near ${temperatureWords(e.fromK)} and the step's iteration got to ${temperatureWords(e.toK)}. Check that "${nameOf(e.free)}" has a path to lose its heat and that its loads and heater power are right; more substeps shorten the step.`,
+    e.singular
+      ? `The network could not be solved at node "${nameOf(e.free)}" ${when} (at ${temperatureWords(e.fromK)}): its capacitance, a conductance or a loop's flow there is not positive. Check the values given for "${nameOf(e.free)}".`
+      : `The temperature of node "${nameOf(e.free)}" did not settle ${when}: it started near ${temperatureWords(e.fromK)} and the step's iteration got to ${temperatureWords(e.toK)}. Check that "${nameOf(e.free)}" has a path to lose its heat and that its loads and heater power are right; more substeps shorten the step.`,
     orbit, NaN, `nodes.${net.nodeOfFree[e.free]}`);
   const H = controllers.heaters.length;
   const L = controllers.loops.length;

@@ -96,6 +96,17 @@ describe('a run that does not settle', () => {
     expect(message).toMatch(/\d+\.\d s/);
     expect(message).not.toMatch(/NaN|Infinity|undefined/);
   });
+  it('a network that cannot be solved (a negative capacitance, which the API refuses but the solver may still meet) names the node', () => {
+    const model: ThermalSolveInput = {
+      periodS: 5739, steps: 120,
+      nodes: [{ name: 'good', capacitanceJK: 1000, initialC: 0 }, { name: 'bad bracket', capacitanceJK: -100, initialC: 0 }],
+      couplings: [{ from: 'good', to: 'bad bracket', conductanceWK: 0.5 }],
+    };
+    const caught = thrownBy(() => solveThermal(model));
+    expect(caught).toBeInstanceOf(ThermalConvergenceError);
+    expect(caught.message).toMatch(/could not be solved at node "bad bracket"/);
+    expect(caught.message).not.toMatch(/NaN|undefined/);
+  });
 });
 
 describe('sizing never answers NaN or a silent zero', () => {
