@@ -36,8 +36,8 @@ export function thermalModelRoutes(ctx: AppContext): Router {
   });
 
   router.post('/thermal-models/:id/run', requireUser, (req, res) => {
-    const { caseId } = parse(thermalRunRequest, req.body);
-    res.json(runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId));
+    const { caseId, maxOrbits } = parse(thermalRunRequest, req.body);
+    res.json(runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits));
   });
 
   router.get('/thermal-models/:id/runs/:caseId', requireUser, (req, res) => {

@@ -9,7 +9,12 @@ export function answerThermal<T>(work: () => T, refusedCode = 'not_sizable'): T 
     return work();
   } catch (error) {
     if (error instanceof ThermalConvergenceError) {
-      throw new ApiError(422, 'not_converged', error.message, [{ path: 'maxOrbits', message: `${error.orbits} orbits done; still ${error.residualK} K from a periodic state` }]);
+      // The message names the node, the time and the values; the detail points at the field to change.
+      const settling = Number.isFinite(error.residualK) && error.orbits > 0;
+      throw new ApiError(422, 'not_converged', error.message, [{
+        path: error.path ?? 'maxOrbits',
+        message: settling ? `${error.orbits} orbits run; a node is still ${error.residualK.toFixed(3)} K from its periodic state` : error.message,
+      }]);
     }
     if (error instanceof ThermalModelError) throw new ApiError(422, refusedCode, error.message, [{ path: error.path, message: error.message }]);
     throw error;

@@ -66,7 +66,11 @@ export const thermalModelUpdate = z.strictObject({
   model: thermalModelContent.optional(),
 });
 
-export const thermalRunRequest = z.strictObject({ caseId: z.string().min(1, 'choose a load case').max(64) });
+export const thermalRunRequest = z.strictObject({
+  caseId: z.string().min(1, 'choose a load case').max(64),
+  /** Orbits allowed for this run (else the model's maxOrbits, else 200); a run that does not settle answers its last orbit. */
+  maxOrbits: z.number({ message: 'maxOrbits must be a number' }).int('maxOrbits is a whole number').min(1, 'maxOrbits is 1..2000').max(2000, 'maxOrbits is 1..2000').optional(),
+});
 
 export const thermalModelSizeRequest = z.strictObject({
   caseHotId: z.string().min(1, 'choose the hot case').max(64),

@@ -144,6 +144,8 @@ const modelShape = {
   maxOrbits: z.number().int('maxOrbits is a whole number').min(1, 'maxOrbits is 1..2000').max(2000, 'maxOrbits is 1..2000').optional(),
   substeps: z.number().int('substeps is a whole number').min(1, 'substeps is 1..100').max(100, 'substeps is 1..100').optional(),
   start: z.enum(['orbit-average', 'initial'], { message: 'start is orbit-average or initial' }).optional(),
+  /** 'refuse' (the default, API.md): 422 when no periodic state is reached; 'last-orbit': 200 with the last orbit, converged false. */
+  whenUnsettled: z.enum(['refuse', 'last-orbit'], { message: 'whenUnsettled is refuse or last-orbit' }).optional(),
 };
 
 type ModelFields = z.infer<z.ZodObject<typeof modelShape>>;
@@ -224,7 +226,12 @@ const voltageResult = z.object({
 });
 
 export const thermalSolveResponse = z.object({
-  converged: z.literal(true),
+  /** False only when the request asked for the last orbit of a run that did not settle (`whenUnsettled`). */
+  converged: z.boolean(),
+  /** Why the answer is the last orbit and not the periodic state; null when it settled. */
+  unsettled: z.object({
+    node: z.string(), lastChangeK: z.number(), remainingK: z.number(), endC: z.number(), toleranceK: z.number(), message: z.string(),
+  }).nullable(),
   orbits: z.number().int(),
   periodOrbits: z.number().int(),
   averagedOrbits: z.number().int(),
@@ -246,10 +253,10 @@ export const thermalSolveResponse = z.object({
 
 export const thermalSizeResponse = z.object({
   sizing: z.union([
-    z.object({ kind: z.literal('radiator'), node: z.string(), areaM2: z.number(), equationAreaM2: z.number().nullable(), targetMaxC: z.number(), achievedMaxC: z.number(), solves: z.number() }),
+    z.object({ kind: z.literal('radiator'), node: z.string(), areaM2: z.number(), equationAreaM2: z.number().nullable(), targetMaxC: z.number(), achievedMaxC: z.number(), solves: z.number(), note: z.string().nullable() }),
     z.object({
       kind: z.literal('heater'), node: z.string(), powerW: z.number(), minVoltageV: z.number().nullable(), powerAtMinVoltageW: z.number(),
-      dutyCycleAtMinVoltage: z.number(), orbitAverageAtMinVoltageW: z.number(), maxDutyCycle: z.number(), targetMinC: z.number(), achievedMinC: z.number(), solves: z.number(),
+      dutyCycleAtMinVoltage: z.number(), orbitAverageAtMinVoltageW: z.number(), maxDutyCycle: z.number(), targetMinC: z.number(), achievedMinC: z.number(), solves: z.number(), note: z.string().nullable(),
     }),
   ]),
 });

@@ -138,6 +138,11 @@ export interface ThermalSolveOptions {
    * over those jumps, to get there in fewer orbits; on by default. Off: plain orbit-after-orbit repetition.
    */
   accelerate?: boolean;
+  /**
+   * A run that does not reach its periodic state in maxOrbits: 'refuse' (the default) throws
+   * ThermalConvergenceError; 'last-orbit' answers the last orbit, marked converged: false.
+   */
+  whenUnsettled?: 'refuse' | 'last-orbit';
 }
 
 export type ThermalSolveInput = ThermalModelInput & ThermalSolveOptions;
@@ -193,8 +198,24 @@ export interface LoopResult {
   heatRemovedW: number;
 }
 
+/** Why a run's answer is its last orbit rather than the periodic state, in user words and figures. */
+export interface UnsettledRun {
+  /** The node furthest from settling (its name in the model). */
+  node: string;
+  /** Its change over the last orbit, K (end minus start). */
+  lastChangeK: number;
+  /** Its estimated distance still to go to the periodic state, K (the larger of that and the change). */
+  remainingK: number;
+  /** Its temperature at the end of the last orbit, C. */
+  endC: number;
+  toleranceK: number;
+  message: string;
+}
+
 export interface ThermalSolveResult {
-  converged: true;
+  /** False when the run did not settle in the allowed orbits and the answer is its last orbit (`unsettled` says why). */
+  converged: boolean;
+  unsettled: UnsettledRun | null;
   orbits: number;
   /**
    * 1 when the answer repeats every orbit; p when a thermostat's cycle repeats only every p orbits;
@@ -230,9 +251,19 @@ export class ThermalConvergenceError extends Error {
     message: string,
     readonly orbits: number,
     readonly residualK: number,
+    /** The model field the failure is about (e.g. `nodes.2`), when one node is to blame. */
+    readonly path?: string,
   ) {
     super(message);
   }
+}
+
+/** A temperature in words for messages: "12.3 C", or what a non-number means. */
+export function temperatureWords(k: number): string {
+  if (Number.isNaN(k)) return 'no temperature at all (the solution broke down)';
+  if (!Number.isFinite(k) || k > 1e6) return 'beyond a million degrees (without bound)';
+  const c = k - KELVIN_OFFSET;
+  return `${Math.abs(c) >= 1000 ? Math.round(c) : c.toFixed(1)} °C`;
 }
 
 /** The model cannot be what was asked: an unknown node, a radiator no area can make cool enough. */

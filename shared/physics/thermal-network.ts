@@ -13,6 +13,19 @@ import { STEFAN_BOLTZMANN } from './constants';
 import { minimumDegreeOrder, SparseCholesky } from './sparse-cholesky';
 import { KELVIN_OFFSET, ThermalConvergenceError, ThermalModelError, type DissipationSchedule, type OrbitSeries, type ThermalModelInput } from './thermal-model';
 
+/** An implicit step whose iteration did not settle: the free node that moved most, where it started and where it got to. */
+export class StepDivergence extends ThermalConvergenceError {
+  constructor(
+    readonly free: number,
+    readonly fromK: number,
+    readonly toK: number,
+    /** True when the step's matrix could not be factored at this node (a capacitance or conductance not positive). */
+    readonly singular = false,
+  ) {
+    super('A time step did not converge.', 0, NaN);
+  }
+}
+
 export interface ThermalNetwork {
   /** Free (non-boundary) nodes, in the solver's order. */
   readonly n: number;
@@ -268,7 +281,8 @@ export class ImplicitStep {
     // Gauss-Seidel contracts by about the square of this ratio per sweep.
     this.sweeping = dominance < 0.3;
     if (!net.factor.factor(diag, lower)) {
-      throw new ThermalConvergenceError('The network matrix is not positive definite: a capacitance or a conductance is not positive.', 0, NaN);
+      const free = Math.max(0, net.factor.failedColumn);
+      throw new StepDivergence(free, T[free], NaN, true);
     }
     this.factored = true;
     this.factorAlpha = alpha;
@@ -356,6 +370,7 @@ export class ImplicitStep {
         T[i] += r[i];
         const a = Math.abs(r[i]);
         if (a > change) change = a;
+        else if (Number.isNaN(a)) change = NaN;
       }
       this.iterations++;
       if (!Number.isFinite(change)) break;
@@ -365,6 +380,16 @@ export class ImplicitStep {
       if (it > 1 && ratio > 0.3) this.refactor(T, alpha, dtS, extraWK);
       previous = change;
     }
-    throw new ThermalConvergenceError('A time step did not converge: temperatures ran away (check for a node with no path to lose heat, or negative loads).', 0, NaN);
+    // The node to blame: the first that is no longer a number, else the one furthest from where the step began.
+    let worst = 0;
+    let worstMove = -1;
+    for (let i = 0; i < n; i++) {
+      const move = Number.isFinite(T[i]) ? Math.abs(T[i] - history[i] / alpha) : Infinity;
+      if (move > worstMove) {
+        worst = i;
+        worstMove = move;
+      }
+    }
+    throw new StepDivergence(worst, history[worst] / alpha, T[worst]);
   }
 }

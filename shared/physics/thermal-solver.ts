@@ -4,9 +4,9 @@
 // Pass/fail takes the coldest prediction of all the runs against the minimum limits and the hottest
 // against the maximum limits.
 import { checkLimits } from './thermal-limits';
-import { KELVIN_OFFSET, type HeaterResult, type HeaterVoltageResult, type NodeResult, type ThermalSolveInput, type ThermalSolveResult } from './thermal-model';
+import { DEFAULT_MAX_ORBITS, DEFAULT_TOLERANCE_K, KELVIN_OFFSET, ThermalConvergenceError, type HeaterResult, type HeaterVoltageResult, type NodeResult, type ThermalSolveInput, type ThermalSolveResult, type UnsettledRun } from './thermal-model';
 import { buildNetwork, type ThermalNetwork } from './thermal-network';
-import { runPeriodic, type PeriodicRun } from './thermal-periodic';
+import { runPeriodic, unsettledMessage, type PeriodicRun } from './thermal-periodic';
 
 const toC = (k: number) => k - KELVIN_OFFSET;
 const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
@@ -25,6 +25,10 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
   const scaleAt = (pick: 'minV' | 'maxV') => heaters.map((h) => (h.busVoltage ? (h.busVoltage[pick] / h.busVoltage.nominalV) ** 2 : 1));
   const cold = withBus ? runPeriodic(input, net, scaleAt('minV'), input) : null;
   const hot = withBus ? runPeriodic(input, net, scaleAt('maxV'), input) : null;
+  const unsettled = unsettledOf(input, net, [[base, ''], [cold, ' (heaters at minimum bus voltage)'], [hot, ' (heaters at maximum bus voltage)']]);
+  if (unsettled && (input.whenUnsettled ?? 'refuse') === 'refuse') {
+    throw new ThermalConvergenceError(unsettled.message, input.maxOrbits ?? DEFAULT_MAX_ORBITS, unsettled.remainingK, `nodes.${input.nodes.findIndex((node) => node.name === unsettled.node)}`);
+  }
 
   const nodes = input.nodes.map((node, i): NodeResult => {
     const free = net.freeOfNode[i];
@@ -77,7 +81,8 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
   }));
 
   return {
-    converged: true,
+    converged: unsettled === null,
+    unsettled,
     orbits: Math.max(base.orbits, cold?.orbits ?? 0, hot?.orbits ?? 0),
     periodOrbits: base.periodOrbits,
     averagedOrbits: base.averagedOrbits,
@@ -86,9 +91,28 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
     nodes,
     heaters: heaterResults,
     loops,
-    pass: nodes.every((node) => node.limits.every((l) => l.pass)),
+    // A last orbit still drifting proves nothing: only a settled run can pass.
+    pass: unsettled === null && nodes.every((node) => node.limits.every((l) => l.pass)),
     assumptions: assumptions(input, net, withBus),
   };
+}
+
+/** The first of the runs that ran out of orbits, in the answer's words; null when all settled. */
+function unsettledOf(input: ThermalSolveInput, net: ThermalNetwork, runs: [PeriodicRun | null, string][]): UnsettledRun | null {
+  for (const [run, which] of runs) {
+    const u = run?.unsettled;
+    if (!run || !u) continue;
+    const toleranceK = input.toleranceK ?? DEFAULT_TOLERANCE_K;
+    return {
+      node: input.nodes[net.nodeOfFree[u.free]]?.name ?? '',
+      lastChangeK: round(u.lastChangeK, 6),
+      remainingK: round(u.remainingK, 6),
+      endC: round(toC(u.endK)),
+      toleranceK,
+      message: unsettledMessage(input, net, run, toleranceK, input.whenUnsettled === 'last-orbit').replace(/^Not settled/, `Not settled${which}`),
+    };
+  }
+  return null;
 }
 
 function assumptions(input: ThermalSolveInput, net: ThermalNetwork, withBus: boolean): string[] {

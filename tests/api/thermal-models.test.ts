@@ -196,6 +196,25 @@ describe('runs against a load case', () => {
     expect(plate.maxC - plate.minC).toBeLessThan(0.1);
   });
 
+  it('a run that does not settle in the orbits allowed answers its last orbit, marked, naming the node; the orbits are a setting of the run', async () => {
+    const run = await thermal.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: coldCaseId, maxOrbits: 1 }).expect(200);
+    expect(run.body.result.converged).toBe(false);
+    expect(run.body.result.pass).toBe(false);
+    expect(run.body.result.orbits).toBe(1);
+    const names = (run.body.result.nodes as NodeResult[]).map((n) => n.name);
+    expect(names).toContain(run.body.result.unsettled.node);
+    expect(run.body.result.unsettled.message).toMatch(/^Not settled after 1 orbit: node "[^"]+"/);
+    expect(run.body.result.nodes[0].temperaturesC).toHaveLength(run.body.case.steps);
+    expect(run.body.solveRequest.maxOrbits).toBe(1);
+    const kept = await thermal.get(`/api/v1/thermal-models/${demoModelId}/runs/${coldCaseId}`).expect(200);
+    expect(kept.body.result.converged).toBe(false);
+    const settled = await thermal.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: coldCaseId, maxOrbits: 400 }).expect(200);
+    expect(settled.body.result.converged).toBe(true);
+    expect(settled.body.result.unsettled).toBeNull();
+    const bad = await thermal.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: coldCaseId, maxOrbits: 0 }).expect(400);
+    expect(bad.body.error.details[0]).toEqual({ path: 'maxOrbits', message: expect.stringContaining('1..2000') });
+  });
+
   it('lets analysts run, not viewers; refuses a case of another mission; marks a run stale after a change', async () => {
     expect((await viewer.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: hotCaseId })).status).toBe(403);
     const otherMission = await thermal.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: 'not-a-case' });
@@ -226,6 +245,20 @@ describe('sizing', () => {
     expect(heater.sizing.achievedMinC).toBeGreaterThanOrEqual(5 - 1e-6);
     expect(heater.sizing.dutyCycleAtMinVoltage).toBeLessThanOrEqual(maxDutyCycle + 1e-9);
     expect(heater.sizing.powerAtMinVoltageW).toBeCloseTo(heater.sizing.powerW * (24 / 28) ** 2, 6);
+    expect(radiator.sizing.note).toBeNull();
+    expect(JSON.stringify(res.body)).not.toMatch(/NaN|null K|undefined/);
+  });
+
+  it('a node that needs no radiator is answered 0 m^2 with the reason, not a bare zero', async () => {
+    // The demo structure (maxC 60 C, 5 K margin) stays far below 55 C in the hot case with no radiator at all.
+    const res = await analyst
+      .post(`/api/v1/thermal-models/${demoModelId}/size`)
+      .send({ caseHotId: hotCaseId, caseColdId: coldCaseId, node: 'structure', heaterNode: 'battery' })
+      .expect(200);
+    const { radiator } = res.body;
+    expect(radiator.sizing.areaM2).toBe(0);
+    expect(radiator.sizing.achievedMaxC).toBeLessThan(55);
+    expect(radiator.sizing.note).toMatch(/^No radiator is needed: even with none, structure peaks at -?\d+\.\d °C, within 55 °C \(its maximum less the 5 K margin\)/);
   });
 
   it('says why a node cannot be sized and names an unknown node', async () => {

@@ -89,7 +89,22 @@ describe('POST /api/v1/thermal/solve', () => {
       .send({ ...model, maxOrbits: 1, start: 'initial', nodes: [{ ...model.nodes[0], capacitanceJK: 1e8, initialC: 60 }, model.nodes[1]] })
       .expect(422);
     expect(res.body.error.code).toBe('not_converged');
-    expect(res.body.error.message).toMatch(/1 orbits/);
+    expect(res.body.error.message).toMatch(/after 1 orbit: node "panel"/);
+    expect(JSON.stringify(res.body)).not.toMatch(/NaN|Infinity/);
+  });
+
+  it('answers the last orbit, marked converged false, when asked to with whenUnsettled "last-orbit" (an addition to API.md)', async () => {
+    const res = await viewer.post('/api/v1/thermal/solve')
+      .send({ ...model, maxOrbits: 1, start: 'initial', whenUnsettled: 'last-orbit', nodes: [{ ...model.nodes[0], capacitanceJK: 1e8, initialC: 60 }, model.nodes[1]] })
+      .expect(200);
+    expect(res.body.converged).toBe(false);
+    expect(res.body.pass).toBe(false);
+    expect(res.body.orbits).toBe(1);
+    expect(res.body.unsettled.node).toBe('panel');
+    expect(res.body.unsettled.message).toMatch(/The figures shown are the last orbit's/);
+    expect(res.body.nodes[0].temperaturesC).toHaveLength(360);
+    const bad = await viewer.post('/api/v1/thermal/solve').send({ ...model, whenUnsettled: 'sometimes' }).expect(400);
+    expect(bad.body.error.details[0].path).toBe('whenUnsettled');
   });
 
   it('answers 401 without a session', async () => {
@@ -115,6 +130,6 @@ describe('POST /api/v1/thermal/size', () => {
     const res = await viewer.post('/api/v1/thermal/size')
       .send({ ...model, sizing: { kind: 'heater', node: 'battery', marginK: 5 } }).expect(422);
     expect(res.body.error.code).toBe('not_sizable');
-    expect(res.body.error.message).toMatch(/3 C, below the 5 C/);
+    expect(res.body.error.message).toMatch(/3 °C, below the 5 °C/);
   });
 });
