@@ -46,9 +46,9 @@ const rules: Record<string, string> = {
   'DELETE /api/v1/workspaces/:workspaceId/invitations/:id': '401 ok 403 403 403 403 404',
   'GET /api/v1/invitations/:token': 'ok ok ok ok ok ok ok',
   'POST /api/v1/invitations/:token/accept': 'ok ok ok ok ok 403 ok',
-  // the instance administrator (owner@kestrel.test) only
-  'GET /api/v1/admin/mail': '401 ok 403 403 403 ok 403',
-  'GET /api/v1/admin/mail/:id': '401 ok 403 403 403 ok 403',
+  // the instance administrator (owner@kestrel.test) only, signed in: no API token reads other users' mail
+  'GET /api/v1/admin/mail': '401 ok 403 403 403 403 403',
+  'GET /api/v1/admin/mail/:id': '401 ok 403 403 403 403 403',
   // stateless physics: any signed-in user
   'GET /api/v1/bodies': '401 ok ok ok ok ok ok',
   'GET /api/v1/bodies/:bodyId': '401 ok ok ok ok ok ok',

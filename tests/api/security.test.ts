@@ -98,7 +98,7 @@ describe('the log file of a running server', () => {
   it('holds no password, session, API token, reset or invitation secret, nor the signing secret', async () => {
     const logFile = path.join(dir, 'eclipta.log');
     const jwtSecret = 'log-test-signing-secret-' + 'k'.repeat(24);
-    const server = await startChildServer(path.join(dir, 'data'), { ECLIPTA_LOG_FILE: logFile, ECLIPTA_JWT_SECRET: jwtSecret, ECLIPTA_LOG_LEVEL: 'debug' });
+    const server = await startChildServer(path.join(dir, 'data'), { ECLIPTA_LOG_FILE: logFile, ECLIPTA_JWT_SECRET: jwtSecret, ECLIPTA_LOG_LEVEL: 'debug', ECLIPTA_OUTBOX_LINKS: 'shown' });
     const secrets: string[] = [jwtSecret, 'eclipta-demo'];
     try {
       const post = (url: string, body: unknown, headers: Record<string, string> = {}) =>
