@@ -11,7 +11,7 @@ export const users = sqliteTable('users', {
   name: text('name').notNull(),
   passwordHash: text('password_hash').notNull(),
   isAdmin: integer('is_admin', { mode: 'boolean' }).notNull().default(false),
-  /** Sessions issued before this moment stop working (set by a password reset). */
+  /** When a reset last set the password (the sessions it ended are in the sessions table). */
   passwordChangedAt: text('password_changed_at'),
   createdAt: createdAt(),
 });
