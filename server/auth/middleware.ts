@@ -40,16 +40,20 @@ function foreignOrigin(ctx: AppContext, req: Request): boolean {
     const fetchSite = req.get('sec-fetch-site')?.trim().toLowerCase();
     return fetchSite === 'cross-site' || fetchSite === 'same-site';
   }
-  let claimed: string;
-  try {
-    claimed = new URL(origin).origin;
-  } catch {
-    return true;
-  }
-  if (claimed === 'null') return true;
-  if (claimed === new URL(ctx.config.publicUrl).origin) return false;
+  const claimed = originOf(origin);
+  if (claimed === null || claimed === 'null') return true;
+  if (claimed === originOf(ctx.config.publicUrl)) return false;
   const host = req.get('host');
-  return host === undefined || claimed !== `${req.protocol}://${host}`;
+  return host === undefined || claimed !== originOf(`${req.protocol}://${host}`);
+}
+
+/** The normalised origin of a URL (lower-case host, no default port), or null when it is none. */
+function originOf(url: string): string | null {
+  try {
+    return new URL(url).origin;
+  } catch {
+    return null;
+  }
 }
 
 /**
