@@ -104,9 +104,19 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
     }));
 }
 
-/** The subscribers' ids of a case series. */
+/**
+ * The subscribers' ids of a case series who are still members of its workspace: a subscription
+ * that outlived its membership (removal ends them, but this is the last line) mails nobody.
+ */
 export function subscribersOf(db: Db, seriesId: string): string[] {
-  return db.select({ userId: caseSubscriptions.userId }).from(caseSubscriptions).where(eq(caseSubscriptions.caseSeriesId, seriesId)).all().map((r) => r.userId);
+  const workspaceOfSeries = db.select({ id: loadCases.workspaceId }).from(loadCases).where(eq(loadCases.seriesId, seriesId)).limit(1);
+  return db
+    .select({ userId: caseSubscriptions.userId })
+    .from(caseSubscriptions)
+    .innerJoin(memberships, and(eq(memberships.userId, caseSubscriptions.userId), eq(memberships.workspaceId, workspaceOfSeries)))
+    .where(eq(caseSubscriptions.caseSeriesId, seriesId))
+    .all()
+    .map((r) => r.userId);
 }
 
 export function emailsOf(db: Db, ids: string[]): { id: string; email: string }[] {

@@ -77,7 +77,12 @@ export const mailSummary = z.object({
   subject: z.string(),
 });
 
-export const mailMessage = mailSummary.extend({ text: z.string(), html: z.string().nullable() });
+export const mailMessage = mailSummary.extend({
+  text: z.string(),
+  html: z.string().nullable(),
+  /** How many invitation or password reset links the server hid (they are their recipients' secrets). */
+  hiddenLinks: z.number().int().min(0),
+});
 
 export type Workspace = z.infer<typeof workspace>;
 export type Member = z.infer<typeof member>;

@@ -63,6 +63,10 @@ describe('every JSON route', () => {
       } catch (err) {
         failures.push(`${key}: ${err instanceof Error ? err.message.slice(0, 1500) : String(err)}`);
       }
+      // The owner's session must outlive every route but sign-out (last), or later routes would only hear 401.
+      if (key !== 'POST /api/v1/auth/sign-out' && (await client.send('GET', '/api/v1/auth/me', '', owner)).status !== 200) {
+        failures.push(`${key}: the owner's session ended, so the routes after it were not really tried`);
+      }
       if (process.env['ECLIPTA_HOSTILE_TIMES']) console.log(`${key}: ${Date.now() - started} ms`);
     }
     expect(failures).toEqual([]);
