@@ -8,6 +8,7 @@ import type { AppContext } from './app-context';
 import { authenticate } from './auth/middleware';
 import { apiNotFound, errorMiddleware } from './errors';
 import { jsonBody } from './json-body';
+import { bodyIdleTimeout } from './request-timeouts';
 import { adminRoutes } from './routes/admin';
 import { authRoutes } from './routes/auth';
 import { caseRoutes } from './routes/cases';
@@ -94,6 +95,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   });
 
   const api = Router();
+  api.use(bodyIdleTimeout(ctx.config));
   api.use(jsonBody());
   api.use(cookieParser());
   api.use(authenticate(ctx));

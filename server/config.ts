@@ -31,6 +31,10 @@ export interface Config {
   bcryptCost: number;
   /** Largest accepted upload (an ephemeris file), MB; beyond it 413. */
   uploadLimitMb: number;
+  /** Seconds of silence allowed while the headers or the body of a request arrive; then 408 and the connection closes. */
+  idleTimeoutS: number;
+  /** Seconds a whole request (an upload included) may take to arrive. */
+  requestTimeoutS: number;
 }
 
 export class ConfigError extends Error {
@@ -135,6 +139,8 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     migrationsDir: path.resolve(cwd, text(env, 'ECLIPTA_MIGRATIONS_DIR', 'migrations')),
     bcryptCost: env['NODE_ENV'] === 'test' ? 4 : 10,
     uploadLimitMb: positiveNumber(env, 'ECLIPTA_UPLOAD_LIMIT_MB', 50, 10000),
+    idleTimeoutS: wholeNumber(env, 'ECLIPTA_IDLE_TIMEOUT_S', 30, 1, 3600),
+    requestTimeoutS: wholeNumber(env, 'ECLIPTA_REQUEST_TIMEOUT_S', 300, 1, 86400),
   };
 }
 

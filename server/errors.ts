@@ -168,12 +168,15 @@ function knownError(err: unknown, req: Request): ApiError | null {
 }
 
 export function errorMiddleware(logger: Logger): ErrorRequestHandler {
-  return (err: unknown, req, res, next) => {
+  return (err: unknown, req, res, _next) => {
+    let apiError = knownError(err, req);
     if (res.headersSent) {
-      next(err);
+      // The answer has begun (a stream, or the 408 of a stalled body): nothing more can be said, so
+      // the connection is closed; a fault of the server is still logged.
+      if (!apiError) logger.error('error after the answer began', { method: req.method, path: req.path, error: err instanceof Error ? err : String(err) });
+      req.destroy();
       return;
     }
-    let apiError = knownError(err, req);
     if (!apiError) {
       logger.error('unhandled error', { method: req.method, path: req.path, error: err instanceof Error ? err : String(err) });
       apiError = new ApiError(500, 'internal', 'Something went wrong on the server. The error was logged.');

@@ -9,6 +9,7 @@ import { createLogger } from './logger';
 import { startMailer } from './mail/mailer';
 import { seedDatabase } from './seed/seed';
 import { clearLeftoverUploads } from './ephemerides/ephemeris-upload';
+import { createHttpServer } from './request-timeouts';
 
 let config: Config;
 try {
@@ -32,7 +33,7 @@ const ctx: AppContext = { config, jwtSecret: resolveJwtSecret(config), db, sqlit
 await seedDatabase(ctx);
 
 const app = createApp(ctx);
-const server = app.listen(config.port, () => {
+const server = createHttpServer(app, config).listen(config.port, () => {
   const { port } = server.address() as AddressInfo;
   logger.info('Eclipta is listening', { url: `http://localhost:${port}`, publicUrl: config.publicUrl });
 });

@@ -1,8 +1,17 @@
 // What the thermal physics refuses, as the API's answers: a model that never settles into a
 // periodic state is 422 "not_converged"; a sizing no design can meet is 422 "not_sizable".
 // The schema catches malformed models first, so these are the well-formed but impossible ones.
-import { ThermalConvergenceError, ThermalModelError } from '../../shared/physics/thermal-model';
+import { ThermalConvergenceError, ThermalModelError, type ThermalSolveInput } from '../../shared/physics/thermal-model';
 import { ApiError } from '../errors';
+import { limitWork } from '../work-limit';
+
+/** The model, once its steps × substeps × nodes are within the work one request may ask for (413 otherwise). */
+export function boundedModel<M extends Pick<ThermalSolveInput, 'steps' | 'nodes' | 'substeps'>>(model: M): M {
+  const substeps = model.substeps ?? 1;
+  const factors = [{ name: 'steps', count: model.steps }, ...(substeps > 1 ? [{ name: 'substeps', count: substeps }] : []), { name: 'nodes', count: model.nodes.length }];
+  limitWork(factors, 'steps', substeps > 1 ? 'use fewer steps, substeps or nodes' : 'use fewer steps or fewer nodes');
+  return model;
+}
 
 export function answerThermal<T>(work: () => T, refusedCode = 'not_sizable'): T {
   try {
