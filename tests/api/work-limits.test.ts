@@ -110,6 +110,8 @@ describe(`over ${MAX_SAMPLES.toLocaleString('en-US')} samples (${MAX_CASE_SAMPLE
     await expectRefused(() => thermal.post('/api/v1/thermal/solve').send(model), 'steps × nodes = 100,000 × 6', 'steps');
     await expectRefused(() => thermal.post('/api/v1/thermal/size').send({ ...model, sizing: { kind: 'radiator', node: 'n0' } }), 'steps × nodes = 100,000 × 6', 'steps');
     await expectRefused(() => thermal.post('/api/v1/thermal/solve').send({ ...model, steps: 10_000, substeps: 10 }), 'steps × substeps × nodes = 10,000 × 10 × 6', 'steps');
+    // Within the limit for one orbit, but 2,000 orbits of it are ten times what the default 200 allow.
+    await expectRefused(() => thermal.post('/api/v1/thermal/solve').send({ ...model, steps: 80_000, maxOrbits: 2000 }), 'steps × nodes × maxOrbits = 80,000 × 6 × 2,000', 'maxOrbits', MAX_SAMPLES * 200);
   });
 
   it('a saved thermal model run refuses the case\'s steps × the model\'s nodes', async () => {
