@@ -7,7 +7,8 @@
 // parsed), "NaN"/"Infinity" where a number was, or a body that is not an object at all) plus up to
 // three more hostile mutations of any kind (wrong types, huge and tiny numbers, deep nesting,
 // removed fields). Bodies are written as JSON text by hand so that "__proto__" keys and numbers
-// such as 1e400 reach the server exactly as an attacker would send them.
+// such as 1e400 reach the server exactly as an attacker would send them. hostileRequests() sends
+// some of them with a hostile Content-Encoding as well (real, declared only, cut short, unsupported).
 import fc from 'fast-check';
 import type { AddressInfo } from 'node:net';
 import { brotliCompressSync, constants as zlibConstants, deflateSync, gzipSync } from 'node:zlib';
