@@ -7,6 +7,8 @@ import path from 'node:path';
 import type { AppContext } from './app-context';
 import { authenticate } from './auth/middleware';
 import { apiNotFound, errorMiddleware } from './errors';
+import { jsonBody } from './json-body';
+import { bodyIdleTimeout } from './request-timeouts';
 import { adminRoutes } from './routes/admin';
 import { authRoutes } from './routes/auth';
 import { caseRoutes } from './routes/cases';
@@ -41,9 +43,6 @@ export const featureRoutes: FeatureRoutes[] = [
   caseRoutes,
   thermalModelRoutes,
 ];
-
-// Large enough for a thermal model with per-step loads; uploads go through multer, not this.
-const jsonLimit = '2mb';
 
 export interface AppOptions {
   /** Built client to serve; defaults to the config's clientDir. */
@@ -96,7 +95,8 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   });
 
   const api = Router();
-  api.use(express.json({ limit: jsonLimit }));
+  api.use(bodyIdleTimeout(ctx.config));
+  api.use(jsonBody());
   api.use(cookieParser());
   api.use(authenticate(ctx));
   for (const routes of featureRoutes) api.use(routes(ctx));

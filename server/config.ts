@@ -40,6 +40,10 @@ export interface Config {
    * development and demos) or hides them ("hidden"): they are their recipients' secrets.
    */
   outboxLinks: 'hidden' | 'shown';
+  /** Seconds of silence allowed while the headers or the body of a request arrive; then 408 and the connection closes. */
+  idleTimeoutS: number;
+  /** Seconds a whole request (an upload included) may take to arrive. */
+  requestTimeoutS: number;
 }
 
 export class ConfigError extends Error {
@@ -158,6 +162,8 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     bcryptCost: env['NODE_ENV'] === 'test' ? 4 : 10,
     uploadLimitMb: positiveNumber(env, 'ECLIPTA_UPLOAD_LIMIT_MB', 50, 10000),
     outboxLinks: oneOf(env, 'ECLIPTA_OUTBOX_LINKS', ['hidden', 'shown'] as const, 'hidden'),
+    idleTimeoutS: wholeNumber(env, 'ECLIPTA_IDLE_TIMEOUT_S', 30, 1, 3600),
+    requestTimeoutS: wholeNumber(env, 'ECLIPTA_REQUEST_TIMEOUT_S', 300, 1, 86400),
   };
 }
 

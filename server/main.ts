@@ -10,6 +10,7 @@ import { seedDatabase } from './seed/seed';
 import { createBackgroundWork } from './background-work';
 import { privateDir } from './private-files';
 import { clearLeftoverUploads } from './ephemerides/ephemeris-upload';
+import { createHttpServer } from './request-timeouts';
 
 // Every file the server makes (database, its -wal and -shm, mail, uploads, logs) is born private.
 process.umask(0o077);
@@ -37,7 +38,7 @@ const ctx: AppContext = { config, jwtSecret: resolveJwtSecret(config), db, sqlit
 await seedDatabase(ctx);
 
 const app = createApp(ctx);
-const server = app.listen(config.port, config.host, () => {
+const server = createHttpServer(app, config).listen(config.port, config.host, () => {
   const { port } = server.address() as AddressInfo;
   // Loopback and "every interface" are both reached at localhost; any other address by itself.
   const local = ['127.0.0.1', '::1', '0.0.0.0', '::', 'localhost'].includes(config.host);

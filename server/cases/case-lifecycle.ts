@@ -13,7 +13,7 @@ import { caseSubscriptions, loadCases, type LoadCaseRow, type UserRow } from '..
 import { conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
-import { attitudeText } from './case-derivation';
+import { attitudeText, limitCaseWork } from './case-derivation';
 import { caseReleasedMail } from './case-mail';
 import { withMargins } from './ephemeris-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
@@ -86,6 +86,7 @@ function orbitCaseEdit(row: LoadCaseRow, change: CaseUpdateParsed, margins: Case
     margins,
     rationale: [...before.rationale, ...noted],
   };
+  limitCaseWork(conditions.steps, conditions.surfaces.length);
   return { inputs, results: evaluateCase(conditions, margins), changedKeys };
 }
 

@@ -16,6 +16,8 @@ import { sunSynchronousOrbit } from '../../shared/physics/sun-synchronous';
 import type { AppContext } from '../app-context';
 import { requireUser } from '../auth/middleware';
 import { notFound, parse } from '../errors';
+import { sendJson } from '../json-stream';
+import { limitWork } from '../work-limit';
 import { loadUnits } from '../missions/quantity-reader';
 
 const DAY_MS = 86400e3;
@@ -59,9 +61,10 @@ export function environmentRoutes(_ctx: AppContext): Router {
     res.json(orbitFigures(getBody(request.bodyId), request.orbit));
   });
 
-  router.post('/environment/compute', requireUser, (req, res) => {
+  router.post('/environment/compute', requireUser, async (req, res) => {
     const request = parse(environmentRequest, req.body);
-    res.json(computeEnvironment(asEnvironmentRequest(request)));
+    limitWork([{ name: 'steps', count: request.steps }, { name: 'surfaces', count: request.surfaces.length }], 'steps', 'use fewer steps or fewer surfaces');
+    await sendJson(res, computeEnvironment(asEnvironmentRequest(request)));
   });
 
   router.post('/environment/beta-history', requireUser, (req, res) => {

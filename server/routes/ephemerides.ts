@@ -8,6 +8,7 @@ import { missionForCases } from '../cases/case-access';
 import { createEphemerisCase } from '../cases/ephemeris-case';
 import { toDetail } from '../cases/case-views';
 import { parse } from '../errors';
+import { sendJson } from '../json-stream';
 import { pathParam } from '../path-param';
 import { ephemerisEnvironment } from '../ephemerides/ephemeris-environment';
 import { receiveEphemeris } from '../ephemerides/ephemeris-ingest';
@@ -42,11 +43,11 @@ export function ephemerisRoutes(ctx: AppContext): Router {
     res.json(pointsPage(ctx, row, query.offset, query.limit));
   });
 
-  router.post(`${base}/:ephemerisId/environment`, requireUser, (req, res) => {
+  router.post(`${base}/:ephemerisId/environment`, requireUser, async (req, res) => {
     const mission = ephemerisMission(ctx, signedIn(req).user.id, pathParam(req, 'id'), 'read');
     const row = ephemerisOf(ctx, mission.id, pathParam(req, 'ephemerisId'));
     const options = parse(trajectoryEnvironmentRequest, req.body ?? {});
-    res.json(ephemerisEnvironment(ctx, mission, row, options));
+    await sendJson(res, ephemerisEnvironment(ctx, mission, row, options));
   });
 
   router.post(`${base}/:ephemerisId/cases`, requireUser, (req, res) => {

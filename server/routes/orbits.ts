@@ -4,6 +4,7 @@ import { orbitCreate, orbitUpdate, savedEnvironmentRequest, sweepQuery } from '.
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
+import { sendJson } from '../json-stream';
 import { missionFor, orbitOf } from '../missions/mission-access';
 import { toOrbit } from '../missions/mission-responses';
 import { createOrbit, deleteOrbit, listOrbits, updateOrbit } from '../missions/orbit-store';
@@ -45,11 +46,11 @@ export function orbitRoutes(ctx: AppContext): Router {
   });
 
   // A computation, not a change: every member may run it.
-  router.post('/missions/:id/orbits/:orbitId/environment', requireUser, (req, res) => {
+  router.post('/missions/:id/orbits/:orbitId/environment', requireUser, async (req, res) => {
     const { mission } = missionFor(ctx.db, userId(req), pathParam(req, 'id'), 'read');
     const orbit = orbitOf(ctx.db, mission.id, pathParam(req, 'orbitId'));
     const request = parse(savedEnvironmentRequest, req.body ?? {});
-    res.json(savedEnvironment(ctx.db, mission, orbit, request));
+    await sendJson(res, savedEnvironment(ctx.db, mission, orbit, request));
   });
 
   router.get('/missions/:id/orbits/:orbitId/sweep', requireUser, async (req, res) => {

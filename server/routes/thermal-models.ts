@@ -5,6 +5,7 @@ import { thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, therma
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
+import { sendJson } from '../json-stream';
 import { pathParam } from '../path-param';
 import { lastRun, runModel, sizeModel } from '../thermal/thermal-model-runs';
 import { createModel, deleteModel, getModel, listModels, updateModel } from '../thermal/thermal-model-store';
@@ -35,9 +36,9 @@ export function thermalModelRoutes(ctx: AppContext): Router {
     res.status(204).end();
   });
 
-  router.post('/thermal-models/:id/run', requireUser, (req, res) => {
+  router.post('/thermal-models/:id/run', requireUser, async (req, res) => {
     const { caseId, maxOrbits } = parse(thermalRunRequest, req.body);
-    res.json(runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits));
+    await sendJson(res, runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits));
   });
 
   router.get('/thermal-models/:id/runs/:caseId', requireUser, (req, res) => {

@@ -13,7 +13,7 @@ import type { Db } from '../db/database';
 import { surfaces, thermalRuns, type LoadCaseRow, type MissionRow, type ThermalModelRow } from '../db/schema';
 import { badRequest, notFound, parse } from '../errors';
 import { caseOfMission, modelFor } from './thermal-model-access';
-import { answerThermal } from './thermal-failures';
+import { answerThermal, boundedModel } from './thermal-failures';
 import { runInputs } from './thermal-run-inputs';
 
 type SizeRequest = z.output<typeof thermalModelSizeRequest>;
@@ -26,7 +26,7 @@ function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: Load
   const inputs = { ...base, request: { ...base.request, ...extra } };
   // The request is built from checked parts; parsing again fills the solver's defaults and keeps
   // the route honest should a case hold something the stateless route would refuse.
-  return { ...inputs, parsed: asThermalSolveInput(parse(thermalSolveRequest, inputs.request)) };
+  return { ...inputs, parsed: boundedModel(asThermalSolveInput(parse(thermalSolveRequest, inputs.request))) };
 }
 
 export function runModel(db: Db, userId: string, modelId: string, caseId: string, maxOrbits?: number): ThermalRunResponse {
