@@ -4,7 +4,8 @@
 //   POST   missions                               missionCreate -> 201 mission
 //   GET    missions/:id                           -> missionDetail (mission + orbits + surfaces)
 //   PATCH  missions/:id                           missionUpdate -> mission   ({archived: true} archives)
-//   DELETE missions/:id                           -> 204 (removes its orbits and surfaces too)
+//   DELETE missions/:id                           -> 204 (owner only; removes everything in it; 409 naming
+//                                                   its released or superseded cases, which are never deleted)
 //   GET    missions/:id/orbits                    -> {items: orbit[]}
 //   POST   missions/:id/orbits                    orbitCreate -> 201 orbit
 //   GET|PATCH|DELETE missions/:id/orbits/:orbitId  (PATCH orbitUpdate)
