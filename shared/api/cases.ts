@@ -5,10 +5,12 @@
 //   POST   missions/:id/cases               caseCreate -> 201 caseDetail (a custom case, draft)
 //   GET    cases?missionId=&status=&kind=   -> {items: caseSummary[]}
 //   GET    cases/:id                        -> caseDetail
-//   PATCH  cases/:id                        caseUpdate -> caseDetail (drafts only; else 409)
+//   PATCH  cases/:id                        caseUpdate -> caseDetail (drafts only; else 409; 409 too when its
+//                                            `version` is not the draft's: someone changed it meanwhile)
 //   POST   cases/:id/submit                 -> caseDetail (draft -> review)
 //   POST   cases/:id/release                -> caseDetail (review -> released; by a thermal engineer or
-//                                              owner other than the author; supersedes the previous release)
+//                                              owner other than the author; supersedes the previous release;
+//                                              409 when a newer revision of the series is released already)
 //   POST   cases/:id/revisions              -> 201 caseDetail (a new draft from a released or superseded one)
 //   GET    cases/:id/compare?with=otherId   -> caseComparison
 //   POST   cases/:id/subscription           -> {subscribed: true}    DELETE -> {subscribed: false}
@@ -80,6 +82,11 @@ export const caseSurfaceInput = z.strictObject({
 });
 
 export const caseUpdate = z.strictObject({
+  /**
+   * The `version` of the draft the edit was made on. When given and the draft has changed since
+   * (another edit, a submission), the PATCH is refused with 409 instead of overwriting that change.
+   */
+  version: z.number().int('version is a whole number').min(1, 'version counts from 1').optional(),
   name: name.optional(),
   margins: marginsInput.optional(),
   inputs: z
@@ -130,6 +137,8 @@ export const caseSummary = z.object({
   releasedAt: z.string().nullable(),
   orbitAverageAbsorbedW: z.number(),
   betaDeg: z.number(),
+  /** Counts the changes of this revision; a PATCH that names an older one is refused (409). */
+  version: z.number().int(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });
