@@ -5,6 +5,7 @@
 // Ranges here catch malformed input (400); physics/orbit-definition.ts refuses the impossible (422)
 // so its messages can say by how much.
 import { z } from 'zod';
+import { lineText } from './text';
 import { bodyIds } from '../physics/bodies';
 import type { EnvironmentRequest } from '../physics/environment';
 import { namedNormals } from '../physics/heat-loads';
@@ -50,7 +51,7 @@ export const localVector = z
   });
 
 export const surfaceInput = z.strictObject({
-  name: z.string().trim().min(1, 'give the surface a name').max(80, 'a surface name has at most 80 characters'),
+  name: lineText(80, 'a surface name has at most 80 characters').min(1, 'give the surface a name'),
   normal: z.union([z.enum(namedNormals), localVector], {
     message: `normal is one of ${namedNormals.join(', ')} or a unit vector {x, y, z}`,
   }),
@@ -254,8 +255,8 @@ export const bodyDetail = bodySummary.extend({
 });
 
 export const unitConvertRequest = z.strictObject({
-  value: z.union([z.string().max(100, 'value has at most 100 characters'), finite('value')], { message: 'value is a number or a text such as "341.8 mi"' }),
-  unit: z.string().trim().min(1, 'give the unit to convert to, e.g. "km"').max(40, 'unit has at most 40 characters'),
+  value: z.union([lineText(100, 'value has at most 100 characters'), finite('value')], { message: 'value is a number or a text such as "341.8 mi"' }),
+  unit: lineText(40, 'unit has at most 40 characters').min(1, 'give the unit to convert to, e.g. "km"'),
 });
 export const unitConvertResponse = z.object({ value: z.number(), unit: z.string() });
 

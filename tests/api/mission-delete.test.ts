@@ -4,23 +4,17 @@
 // them), the database refuses any cascade that reaches them, and a deletion that is allowed is
 // audited with everything it removed and leaves no subscription behind.
 import path from 'node:path';
-import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fixturesDir } from './ephemeris-test-mission';
-import { auditFor, kestrelOne, libraryMaterialIdOf, missionIdOf } from './mission-fixtures';
+import { auditFor, kestrelAgents, kestrelOne, type KestrelAgents, libraryMaterialIdOf, missionIdOf } from './mission-fixtures';
 import { createTestApp, type TestApp } from './test-app';
 
 let t: TestApp;
-let owner: request.Agent;
-let analyst: request.Agent;
-let thermal: request.Agent;
-let viewer: request.Agent;
+let { owner, analyst, thermal, viewer } = {} as KestrelAgents;
 
 beforeAll(async () => {
   t = await createTestApp();
-  [owner, analyst, thermal, viewer] = await Promise.all(
-    ['owner@kestrel.test', 'analyst@kestrel.test', 'thermal@kestrel.test', 'viewer@kestrel.test'].map((e) => t.signIn(e)),
-  );
+  ({ owner, analyst, thermal, viewer } = await kestrelAgents(t));
 });
 afterAll(() => t.close());
 
