@@ -12,16 +12,30 @@ import { namedNormals } from '../physics/heat-loads';
 
 const finite = (label: string) => z.number({ message: `${label} must be a number` });
 
+/**
+ * The largest size and period an orbit may be given with: beyond the sphere of influence of every
+ * body in the catalogue (Neptune's Hill sphere is about 1.2e8 km; an orbit at that distance takes
+ * about 3e9 s), and small enough that a^3 and the period stay finite numbers. From memory.
+ */
+export const MAX_ORBIT_KM = 1e9;
+export const MAX_PERIOD_S = 1e10;
+const distance = (label: string) => finite(label).max(MAX_ORBIT_KM, `${label} is at most ${MAX_ORBIT_KM.toExponential()} km`);
+const angle = (label: string) => finite(label).min(-360, `${label} is -360..360 deg`).max(360, `${label} is -360..360 deg`);
+
+/**
+ * An orbit in numbers (km, s, deg): the compute route's, and every saved orbit's once its typed
+ * values are converted (server/missions/orbit-values.ts), so both refuse the same values.
+ */
 export const orbitInput = z
   .strictObject({
-    periapsisAltitudeKm: finite('periapsis altitude').optional(),
-    apoapsisAltitudeKm: finite('apoapsis altitude').optional(),
-    semiMajorAxisKm: finite('semi-major axis').optional(),
+    periapsisAltitudeKm: distance('periapsis altitude').optional(),
+    apoapsisAltitudeKm: distance('apoapsis altitude').optional(),
+    semiMajorAxisKm: distance('semi-major axis').optional(),
     eccentricity: finite('eccentricity').optional(),
-    periodS: finite('period').optional(),
+    periodS: finite('period').max(MAX_PERIOD_S, `period is at most ${MAX_PERIOD_S.toExponential()} s`).optional(),
     inclinationDeg: finite('inclination').min(0, 'inclination is 0..180 deg').max(180, 'inclination is 0..180 deg').default(0),
-    raanDeg: finite('RAAN').min(-360).max(360).default(0),
-    argPeriapsisDeg: finite('argument of periapsis').min(-360).max(360).default(0),
+    raanDeg: angle('RAAN').default(0),
+    argPeriapsisDeg: angle('argument of periapsis').default(0),
   })
   .superRefine((o, ctx) => {
     const altitudes = o.periapsisAltitudeKm !== undefined || o.apoapsisAltitudeKm !== undefined;
