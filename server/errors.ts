@@ -85,11 +85,14 @@ function summary(details: ErrorDetail[]): string {
   return details.length > 1 ? `${lead} (and ${details.length - 1} more).` : `${lead}.`;
 }
 
-/** Parses a request part with a shared schema, or throws the 400 that names the fields. */
-export function parse<S extends ZodType>(schema: S, value: unknown): z.output<S> {
+/**
+ * Parses a request part with a shared schema, or throws the 400 that names the fields; `at` puts
+ * the part's own path in front of them (e.g. "orbit" for "orbit.raanDeg").
+ */
+export function parse<S extends ZodType>(schema: S, value: unknown, at?: string): z.output<S> {
   const result = schema.safeParse(value, { reportInput: true });
   if (result.success) return result.data;
-  const details = zodDetails(result.error, value);
+  const details = zodDetails(result.error, value).map((d) => (at ? { ...d, path: d.path ? `${at}.${d.path}` : at } : d));
   throw badRequest(summary(details), details);
 }
 

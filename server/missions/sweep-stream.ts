@@ -3,6 +3,7 @@
 // served meanwhile; stops computing when the client goes away.
 import type { Response } from 'express';
 import type { SweepDay, SweepLine } from '../../shared/api/missions';
+import { csvRecord } from '../../shared/csv/csv-cell';
 import type { Logger } from '../logger';
 import type { MissionSurface } from './saved-environment';
 import type { SweepPlan } from './sweep-days';
@@ -12,12 +13,9 @@ const DAYS_PER_CHUNK = 120;
 
 export type SweepFormat = 'ndjson' | 'csv';
 
-/** RFC 4180: a field with a comma, quote or line break is quoted, its quotes doubled. */
-const csvField = (value: string): string => (/[",\r\n]/.test(value) ? `"${value.replaceAll('"', '""')}"` : value);
-const csvRow = (fields: readonly string[]): string => fields.map(csvField).join(',') + '\r\n';
 
 export function csvHeader(surfaces: readonly MissionSurface[]): string {
-  return csvRow([
+  return csvRecord([
     'date (UTC, sampled 12:00)',
     'beta (deg)',
     'eclipse fraction (0-1)',
@@ -29,14 +27,14 @@ export function csvHeader(surfaces: readonly MissionSurface[]): string {
 }
 
 const csvDay = (day: SweepDay): string =>
-  csvRow([
+  csvRecord([
     day.date,
-    String(day.betaDeg),
-    String(day.eclipseFraction),
-    String(day.eclipseDurationS),
-    String(day.solarDistanceAu),
-    String(day.solarFluxWm2),
-    ...day.surfaces.map((s) => String(s.absorbedW)),
+    day.betaDeg,
+    day.eclipseFraction,
+    day.eclipseDurationS,
+    day.solarDistanceAu,
+    day.solarFluxWm2,
+    ...day.surfaces.map((s) => s.absorbedW),
   ]);
 
 const ndjson = (line: SweepLine): string => JSON.stringify(line) + '\n';

@@ -12,11 +12,12 @@
 // A model is the body of POST /thermal/solve (shared/api/thermal.ts) without the orbit: the period,
 // the steps and each node's absorbed load come from the case it is run against.
 import { z } from 'zod';
+import { lineText, multilineText } from './text';
 import { caseKinds, caseStatuses } from './case-content';
 import { conductiveCoupling, coolantLoop, dissipationSchedule, heater, radiativeCoupling, thermalNode, thermalSolveResponse, thermalSizeResponse } from './thermal';
 
 const num = (label: string) => z.number({ message: `${label} must be a number` });
-const modelName = z.string().trim().min(1, 'give the model a name').max(120, 'a model name has at most 120 characters');
+const modelName = lineText(120, 'a model name has at most 120 characters').min(1, 'give the model a name');
 /** A constant (W) or an on/off schedule; per-step arrays belong to a case, not to a saved model. */
 const savedDissipation = (label: string) =>
   z.union([num(label).min(0, `${label} cannot be negative`).max(1e7), dissipationSchedule], { message: `${label} is a number of W or an on/off schedule` });
@@ -55,13 +56,13 @@ export const thermalModelContent = z.strictObject({
 
 export const thermalModelCreate = z.strictObject({
   name: modelName,
-  description: z.string().trim().max(2000).default(''),
+  description: multilineText(2000).default(''),
   model: thermalModelContent,
 });
 
 export const thermalModelUpdate = z.strictObject({
   name: modelName.optional(),
-  description: z.string().trim().max(2000).optional(),
+  description: multilineText(2000).optional(),
   /** The whole model: tables are replaced together, so a reference never points at a removed node. */
   model: thermalModelContent.optional(),
 });
@@ -76,8 +77,8 @@ export const thermalModelSizeRequest = z.strictObject({
   caseHotId: z.string().min(1, 'choose the hot case').max(64),
   caseColdId: z.string().min(1, 'choose the cold case').max(64),
   /** The node whose radiator is sized in the hot case (and whose heater, unless heaterNode). */
-  node: z.string().trim().min(1, 'choose a node').max(80),
-  heaterNode: z.string().trim().min(1).max(80).optional(),
+  node: lineText(80).min(1, 'choose a node'),
+  heaterNode: lineText(80).min(1).optional(),
   /** Defaults: the model's operating margin, and its maxDutyCycle. */
   marginK: num('marginK').min(0, 'a margin cannot be negative').max(100).optional(),
   maxDutyCycle: num('maxDutyCycle').gt(0, 'maxDutyCycle is above 0, at most 1').max(1, 'maxDutyCycle is above 0, at most 1').optional(),

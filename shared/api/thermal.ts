@@ -6,11 +6,12 @@
 // API.md fixes the core fields; the rest (radiative couplings, bus voltage, PI control, loops,
 // margins, survival limits, solver options) are optional extensions.
 import { z } from 'zod';
+import { lineText } from './text';
 import type { ThermalSolveInput } from '../physics/thermal-model';
 
 const num = (label: string) => z.number({ message: `${label} must be a number` });
 const celsius = (label: string) => num(label).min(-273.15, `${label} cannot be below absolute zero (-273.15 C)`).max(5000, `${label} is at most 5000 C`);
-const name = z.string().trim().min(1, 'give a name').max(80, 'a name has at most 80 characters');
+const name = lineText(80, 'a name has at most 80 characters').min(1, 'give a name');
 const fraction = (label: string) => num(label).min(0, `${label} is 0..1`).max(1, `${label} is 0..1`);
 
 const load = (label: string) => num(label).min(0, `${label} cannot be negative`).max(1e7);

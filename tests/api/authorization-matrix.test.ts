@@ -64,7 +64,8 @@ const rules: Record<string, string> = {
   'POST /api/v1/missions': '401 ok ok ok 403 403 404',
   'GET /api/v1/missions/:id': '401 ok ok ok ok ok 404',
   'PATCH /api/v1/missions/:id': '401 ok ok ok 403 403 404',
-  'DELETE /api/v1/missions/:id': '401 ok ok ok 403 403 404',
+  // deleting a whole mission: the owner only (and never one with released cases: 409, still "ok")
+  'DELETE /api/v1/missions/:id': '401 ok 403 403 403 403 404',
   'GET /api/v1/missions/:id/orbits': '401 ok ok ok ok ok 404',
   'POST /api/v1/missions/:id/orbits': '401 ok ok ok 403 403 404',
   'GET /api/v1/missions/:id/orbits/:orbitId': '401 ok ok ok ok ok 404',
