@@ -3,7 +3,8 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { CaseCreateParsed, CaseDeriveParsed } from '../../shared/api/cases';
-import type { CaseInputs, StoredConditions } from '../../shared/api/case-content';
+import { whyRecordOf, type CaseInputs, type StoredConditions } from '../../shared/api/case-content';
+import { caseRationale } from '../../shared/physics/case-why';
 import { surfaceNormal } from '../../shared/api/missions';
 import { getBody, solarDistanceRangeAu, type Body } from '../../shared/physics/bodies';
 import { deriveDesignCases, evaluateCase, type CaseSurface } from '../../shared/physics/design-cases';
@@ -78,6 +79,11 @@ export function surfaceSnapshot(db: Pick<Db, 'select'>, mission: MissionRow): Ca
       source: material.source,
     },
   }));
+}
+
+/** A case's inputs with the rationale built again from them and its results (physics/case-why.ts). */
+export function withRationale(kind: LoadCaseRow['kind'], inputs: CaseInputs, results: LoadCaseRow['results']): CaseInputs {
+  return { ...inputs, rationale: caseRationale(whyRecordOf(kind, inputs, results)) };
 }
 
 /** The mission and its body as a case records them. */
@@ -158,6 +164,7 @@ export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, i
       environmentSource: c.environmentSource,
       provisional: c.provisional,
       margins,
+      decision: c.decision,
       rationale: c.rationale,
       surfaceDrivers: c.surfaceDrivers,
       scan: derivation.scan,
@@ -203,7 +210,7 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
   };
   const pair = pairWords(body, orbit.inclinationDeg, conditions.albedo, conditions.olrWm2, input.albedo !== undefined || input.olrWm2 !== undefined);
   const given = (v: unknown, what: string, fallback: string) => (v === undefined ? fallback : `${what} given by the user`);
-  const rationale = [
+  const facts = [
     `custom case on ${input.date}: ${given(input.betaDeg, `beta ${conditions.betaDeg.toFixed(1)} deg`, `beta ${conditions.betaDeg.toFixed(1)} deg from the date (node drifted under J2 to ${(raanOnDateRad(defined, new Date(orbit.epoch), new Date(`${input.date}T12:00:00Z`)) / DEG).toFixed(1)} deg)`)}`,
     `Sun distance ${conditions.solarDistanceAu.toFixed(4)} AU, ${given(input.solarDistanceAu, 'distance', 'from the date (VSOP87)')}`,
     pair.rationale,
@@ -216,14 +223,15 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
     environmentSource: pair.source,
     provisional: body.provisional,
     margins,
-    rationale,
+    facts,
+    rationale: [],
     surfaceDrivers: [],
     scan: null,
     assumptions: caseAssumptions,
   };
   const results = evaluateCase(conditions, margins);
   return ctx.db.transaction((tx) => {
-    const row = insertDraft(tx, mission, user, { name: input.name, kind: 'custom', inputs, results });
+    const row = insertDraft(tx, mission, user, { name: input.name, kind: 'custom', inputs: withRationale('custom', inputs, results), results });
     recordAudit(tx, {
       workspaceId: mission.workspaceId, actorUserId: user.id, action: 'case.created', targetType: 'load_case', targetId: row.id,
       summary: `Created custom case "${row.name}" (revision 1, draft) for mission "${mission.name}".`,

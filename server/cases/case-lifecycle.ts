@@ -4,6 +4,7 @@
 import { and, desc, eq, max, sql } from 'drizzle-orm';
 import type { CaseUpdateParsed } from '../../shared/api/cases';
 import type { CaseInputs } from '../../shared/api/case-content';
+import { withRationale } from './case-derivation';
 import { evaluateCase } from '../../shared/physics/design-cases';
 import { resolveMargins } from '../../shared/physics/design-environment';
 import type { AppContext } from '../app-context';
@@ -77,7 +78,7 @@ export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, cha
         temperatureMarginC: change.margins.temperatureMarginC ?? before.margins.temperatureMarginC,
       })
     : before.margins;
-  const { inputs, results, changedKeys } = before.ephemeris ? ephemerisCaseEdit(row, change, margins) : orbitCaseEdit(row, change, margins, user);
+  const { inputs, results, changedKeys } = before.ephemeris ? ephemerisCaseEdit(row, change, margins) : orbitCaseEdit(row, change, margins);
   return ctx.db.transaction((tx) => {
     const updated = tx
       .update(loadCases)
@@ -96,26 +97,24 @@ export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, cha
   });
 }
 
-function orbitCaseEdit(row: LoadCaseRow, change: CaseUpdateParsed, margins: CaseInputs['margins'], user: UserRow): Edited {
+function orbitCaseEdit(row: LoadCaseRow, change: CaseUpdateParsed, margins: CaseInputs['margins']): Edited {
   const before = row.inputs;
   const { attitude, ...conditionEdits } = change.inputs ?? {};
   const conditions = { ...before.conditions, ...conditionEdits };
   const changedKeys = Object.keys(conditionEdits).filter(
     (k) => canonicalJson(conditionEdits[k as keyof typeof conditionEdits]) !== canonicalJson(before.conditions[k as keyof typeof before.conditions]),
   );
-  const noted = changedKeys.map((k) => {
-    const v = conditions[k as keyof typeof conditions];
-    return `${k} changed by hand to ${typeof v === 'object' ? 'the values given' : String(v)} by ${user.name}`;
-  });
-  const inputs: CaseInputs = {
+  const handEdited = [...new Set([...(before.handEdited ?? []), ...changedKeys])];
+  limitCaseWork(conditions.steps, conditions.surfaces.length);
+  const results = evaluateCase(conditions, margins);
+  const inputs = withRationale(row.kind, {
     ...before,
     attitude: attitude ?? (conditionEdits.surfaces ? attitudeText(conditions.surfaces) : before.attitude),
     conditions,
     margins,
-    rationale: [...before.rationale, ...noted],
-  };
-  limitCaseWork(conditions.steps, conditions.surfaces.length);
-  return { inputs, results: evaluateCase(conditions, margins), changedKeys };
+    ...(handEdited.length > 0 ? { handEdited } : {}),
+  }, results);
+  return { inputs, results, changedKeys };
 }
 
 /**
@@ -131,7 +130,8 @@ function ephemerisCaseEdit(row: LoadCaseRow, change: CaseUpdateParsed, margins: 
       edited.map(([k, v]) => ({ path: `inputs.${k}`, message: `fixed by the ephemeris the case was computed along (got ${JSON.stringify(v)?.slice(0, 80) ?? 'nothing'})` })),
     );
   }
-  return { inputs: { ...before, margins }, results: withMargins(row.results, margins, before.conditions.marginDirection), changedKeys: [] };
+  const results = withMargins(row.results, margins, before.conditions.marginDirection);
+  return { inputs: withRationale(row.kind, { ...before, margins }, results), results, changedKeys: [] };
 }
 
 export function submitCase(ctx: AppContext, user: UserRow, row: LoadCaseRow): LoadCaseRow {

@@ -17,7 +17,7 @@ import { recordAudit } from '../audit/audit-log';
 import type { EphemerisRow, LoadCaseRow, MissionRow, UserRow } from '../db/schema';
 import { unprocessable } from '../errors';
 import { ephemerisWindow, firstStates, windowEnvironment } from '../ephemerides/ephemeris-environment';
-import { attitudeText, insertDraft, limitCaseWork, missionInputs, pairWords, surfaceSnapshot } from './case-derivation';
+import { attitudeText, insertDraft, withRationale, limitCaseWork, missionInputs, pairWords, surfaceSnapshot } from './case-derivation';
 
 export const ephemerisCaseAssumptions = [
   'loads at every row of the ephemeris inside the window: the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations), conical shadow of the central body, no atmosphere',
@@ -136,21 +136,22 @@ export function createEphemerisCase(
     environmentSource: pair.source,
     provisional: body.provisional,
     margins,
-    rationale: [
+    facts: [
       `loads along the ephemeris "${ephemeris.name}" (${ephemeris.fileName}, SHA-256 ${ephemeris.sha256.slice(0, 12)}…) from ${from} to ${to}: ${window.rows} rows, every one counted in the averages and peaks; the series keeps ${env.points.length} of them`,
       `beta ${f1(results.betaDeg)} deg: the time-weighted mean over the window of the Sun's angle above the orbit plane (r x v at each row)`,
       `Sun distance ${solarDistanceAu.toFixed(4)} AU at the middle of the window (VSOP87); mean solar flux ${f1(results.solarFluxWm2)} W/m^2`,
       pair.rationale,
       `eclipse ${f1(eclipseS / 60)} min of the window's ${f1(spanS / 60)} min (umbra ${f1(env.umbraS / 60)} min, penumbra ${f1(env.penumbraS / 60)} min)`,
-      `${input.properties.toUpperCase()} optical properties; heat-load margin ${margins.heatLoadPercent} % ${input.marginDirection === 'increase' ? 'added' : 'taken off'}`,
+      `${input.properties.toUpperCase()} optical properties`,
     ],
+    rationale: [],
     surfaceDrivers: [],
     scan: null,
     assumptions: ephemerisCaseAssumptions,
     ephemeris: { id: ephemeris.id, name: ephemeris.name, fileName: ephemeris.fileName, sha256: ephemeris.sha256, from, to, rows: window.rows },
   };
   return ctx.db.transaction((tx) => {
-    const row = insertDraft(tx, mission, user, { name: input.name, kind: 'custom', inputs, results });
+    const row = insertDraft(tx, mission, user, { name: input.name, kind: 'custom', inputs: withRationale('custom', inputs, results), results });
     recordAudit(tx, {
       workspaceId: mission.workspaceId, actorUserId: user.id, action: 'case.created', targetType: 'load_case', targetId: row.id,
       summary: `Created custom case "${row.name}" (revision 1, draft) from ephemeris "${ephemeris.name}" (${from} – ${to}) for mission "${mission.name}".`,

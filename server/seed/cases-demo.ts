@@ -6,7 +6,7 @@ import { and, eq } from 'drizzle-orm';
 import { resolveMargins } from '../../shared/physics/design-environment';
 import { evaluateCase } from '../../shared/physics/design-cases';
 import { recordAudit } from '../audit/audit-log';
-import { derivedCaseValues } from '../cases/case-derivation';
+import { derivedCaseValues, withRationale } from '../cases/case-derivation';
 import { caseChecksum } from '../cases/case-export';
 import { caseSubscriptions, loadCases, missions, orbits, type LoadCaseRow } from '../db/schema';
 import type { FeatureSeed } from './seed';
@@ -48,8 +48,9 @@ export const seedDemoCases: FeatureSeed = (tx, team) => {
 
   // Revision 2 of the hot case: the project raised the heat-load margin to 30 %.
   const margins = resolveMargins({ heatLoadPercent: 30, temperatureMarginC: hot.inputs.margins.temperatureMarginC });
-  const inputs = { ...hot.inputs, margins, rationale: [...hot.inputs.rationale, 'heat-load margin raised to 30 % by the project (revision 2)'] };
-  release({ ...hot, inputs, results: evaluateCase(inputs.conditions, margins) }, hotSeries, 2, '2026-06-03T14:00:00.000Z');
+  const results = evaluateCase(hot.inputs.conditions, margins);
+  const inputs = withRationale('hot', { ...hot.inputs, margins }, results);
+  release({ ...hot, inputs, results }, hotSeries, 2, '2026-06-03T14:00:00.000Z');
   tx.update(loadCases).set({ status: 'superseded' }).where(eq(loadCases.id, hot1.id)).run();
 
   tx.insert(caseSubscriptions).values({ caseSeriesId: hotSeries, userId: viewer.id }).run();

@@ -3,6 +3,7 @@
 // JSON Schema served at /api/v1/schemas/load-case.json is generated from them.
 import { z } from 'zod';
 import { bodyIds } from '../physics/bodies';
+import type { CaseDecision, CaseWhyRecord } from '../physics/case-why';
 import type { CaseConditions, CaseResults, SurfaceDriver, ScanSummary } from '../physics/design-cases';
 import type { Margins } from '../physics/design-environment';
 import { surfaceNormal } from './missions';
@@ -79,6 +80,15 @@ export const scanSummary = z.object({
   spansFullYear: z.boolean(),
 });
 
+const dayFigures = z.object({ date: z.string(), betaDeg: num });
+export const caseDecision = z.object({
+  sun: z.object({ basis: z.enum(['mission', 'perihelion', 'aphelion']), date: z.string().describe('YYYY-MM-DD the mission is closest to (hot) or farthest from (cold) the Sun'), distanceAu: num }),
+  day: dayFigures.describe('the day the derivation chose for beta'),
+  eclipseExtreme: dayFigures.extend({ eclipseDurationS: num, orbitAverageAbsorbedW: num }).nullable().describe('the day of the shortest (hot) or longest (cold) eclipse when it is another day'),
+  pair: z.object({ albedo: num, olrWm2: num, source: z.string() }),
+  properties: z.enum(propertySetValues),
+});
+
 export const caseInputs = z.object({
   mission: z.object({ id: z.string(), name: z.string(), startDate: z.string(), endDate: z.string(), crewed: z.boolean() }),
   body: z.object({
@@ -115,6 +125,9 @@ export const caseInputs = z.object({
   surfaceDrivers: z.array(surfaceDriver),
   scan: scanSummary.nullable(),
   assumptions: z.array(z.string()),
+  decision: caseDecision.optional().describe('hot and cold cases: what the derivation decided; the rationale lines are built from it, the conditions and the results'),
+  facts: z.array(z.string()).optional().describe('custom cases and cases from an ephemeris: how the case was set up, the rationale lines before the margins'),
+  handEdited: z.array(z.string()).optional().describe('condition keys changed by hand since the case was made'),
   /** Set when the case was computed along a window of an uploaded ephemeris rather than a Keplerian orbit. */
   ephemeris: z
     .object({
@@ -174,3 +187,14 @@ export const asStoredResults = (r: CaseResults): CaseResultsContent => r;
 export const asStoredMargins = (m: Margins): z.infer<typeof caseMargins> => m;
 export const asStoredDriver = (d: SurfaceDriver): z.infer<typeof surfaceDriver> => d;
 export const asStoredScan = (s: ScanSummary): z.infer<typeof scanSummary> => s;
+export const asStoredDecision = (d: CaseDecision): z.infer<typeof caseDecision> => d;
+
+/** The record a case's words are built from (physics/case-why.ts), read from a stored case. */
+export function whyRecordOf(kind: CaseKind, inputs: CaseInputs, results: CaseResultsContent): CaseWhyRecord {
+  // A case stored before its setup was kept apart: its lines without the margin one are its setup.
+  const facts = inputs.decision ? undefined : (inputs.facts ?? inputs.rationale.filter((line) => !/^heat loads |heat-load margin/.test(line)));
+  return {
+    kind, bodyName: inputs.body.name, conditions: inputs.conditions, results, margins: inputs.margins,
+    decision: inputs.decision, facts, handEdited: inputs.handEdited,
+  };
+}

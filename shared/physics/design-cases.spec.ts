@@ -99,7 +99,8 @@ describe('deriveDesignCases over part of a year', () => {
     expect(d.scan.spansFullYear).toBe(false);
     // Earth is 1.014 AU from the Sun on 1 June and 1.0167 AU at aphelion (early July) (astronomical almanac, from memory)
     expect(d.hot.conditions.solarDistanceAu).toBeCloseTo(1.014, 2);
-    expect(d.hot.rationale[0]).toMatch(/closest the mission comes to the Sun, 2028-06-01/);
+    expect(d.hot.rationale[0]).toMatch(/closest the mission comes to the Sun, reached 2028-06-01/);
+    expect(d.hot.decision.sun).toMatchObject({ basis: 'mission', date: '2028-06-01' });
     expect(d.hot.results.solarFluxWm2).toBeLessThan(1330);
   });
 });

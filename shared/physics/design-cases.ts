@@ -5,12 +5,12 @@
 // coupling between parameters: the worst Sun distance and the worst beta are combined even when
 // they fall on different days, the usual conservative practice (DOMAIN.md "Cases" [P, G]).
 import { getBody, solarDistanceRangeAu, type Body, type BodyId } from './bodies';
+import { caseRationale, fixed as f, type CaseDecision } from './case-why';
 import { designPairs, opticalProperties, type CaseMaterial, type EnvironmentPair, type Margins, type PropertySet } from './design-environment';
 import { candidateDays, maxBy, raanOnDateRad, scanMission, type ScanDay } from './design-scan';
 import { computeEnvironment, type EnvironmentResult } from './environment';
 import type { SurfaceNormal } from './heat-loads';
 import { defineOrbit, type OrbitInput } from './orbit-definition';
-import { solarFluxWm2 } from './sun';
 import { DEG } from './vector3';
 
 export interface CaseSurface {
@@ -177,6 +177,8 @@ export interface DerivedCase {
   conditions: CaseConditions;
   environmentSource: string;
   provisional: boolean;
+  /** What the derivation decided; the rationale is built from it and the results (case-why.ts). */
+  decision: CaseDecision;
   rationale: string[];
   surfaceDrivers: SurfaceDriver[];
   results: CaseResults;
@@ -201,12 +203,6 @@ export interface Derivation {
 }
 
 const SCAN_STEPS = 72;
-// Formats for the rationale; never "-0.0".
-const f = (x: number, digits = 1): string => {
-  const text = x.toFixed(digits);
-  return Number(text) === 0 ? (0).toFixed(digits) : text;
-};
-const minutes = (s: number) => `${f(s / 60)} min`;
 
 interface Evaluated {
   day: ScanDay;
@@ -246,9 +242,6 @@ function deriveOne(
   const sunDay = maxBy(scan, (d) => -sign * d.solarDistanceAu);
   const range = solarDistanceRangeAu(body);
   const distanceAu = spansFullYear ? (hot ? range.min : range.max) : sunDay.solarDistanceAu;
-  const where = spansFullYear
-    ? `${hot ? 'perihelion' : 'aphelion'} a(1 ${hot ? '-' : '+'} e) of ${body.name}'s orbit, reached near ${sunDay.date}`
-    : `the ${hot ? 'closest' : 'farthest'} the mission comes to the Sun, ${sunDay.date}`;
 
   const base = (day: ScanDay, steps: number): CaseConditions => ({
     bodyId: input.bodyId, orbit: input.orbit, orbitEpoch: input.orbitEpoch, date: day.date, betaDeg: day.betaDeg,
@@ -265,45 +258,29 @@ function deriveOne(
   const conditions = base(chosen.day, input.steps ?? 120);
   const results = evaluateCase(conditions, input.margins);
 
-  const rationale = [
-    `solar flux ${f(solarFluxWm2(distanceAu), 0)} W/m^2 at ${f(distanceAu, 4)} AU (${where}; TSI 1361 W/m^2 at 1 AU, inverse square)`,
-    betaReason(hot, chosen, eclipseExtreme),
-    `albedo ${f(pair.albedo, 2)} with OLR ${f(pair.olrWm2, 0)} W/m^2: the ${kind} pair (${pair.source})`,
-    ...materialReasons(input.surfaces, properties),
-    `heat loads ${hot ? '+' : '-'}${input.margins.heatLoadPercent} % (${input.margins.sources.heatLoadPercent}); temperature margin ${input.margins.temperatureMarginC} C (${input.margins.sources.temperatureMarginC})`,
-  ];
+  const extremeResults = chosen.day.date === eclipseExtreme.day.date || Math.abs(chosen.env.eclipseDurationS - eclipseExtreme.env.eclipseDurationS) < 1
+    ? null
+    : evaluateCase(base(eclipseExtreme.day, conditions.steps), input.margins);
+  const decision: CaseDecision = {
+    sun: { basis: spansFullYear ? (hot ? 'perihelion' : 'aphelion') : 'mission', date: sunDay.date, distanceAu: distanceAu },
+    day: { date: chosen.day.date, betaDeg: round(chosen.day.betaDeg, 4) },
+    eclipseExtreme: extremeResults
+      ? { date: eclipseExtreme.day.date, betaDeg: extremeResults.betaDeg, eclipseDurationS: extremeResults.eclipseDurationS, orbitAverageAbsorbedW: extremeResults.total.orbitAverageAbsorbedW }
+      : null,
+    pair: { albedo: pair.albedo, olrWm2: pair.olrWm2, source: pair.source },
+    properties,
+  };
+  const rationale = caseRationale({ kind, bodyName: body.name, conditions, results, margins: input.margins, decision });
   const surfaceDrivers = input.surfaces.map((s, i): SurfaceDriver => {
     const best = maxBy(evaluated, (e) => sign * e.env.orbitAverage.surfaces[i]!.absorbedW);
-    const w = best.env.orbitAverage.surfaces[i]!.absorbedW;
-    const caseW = chosen.env.orbitAverage.surfaces[i]!.absorbedW;
     const sameAsCase = best.day.date === chosen.day.date;
+    // The case's own figures come from its results (the record), the other day's from the scan.
+    const caseW = results.surfaces[i]!.orbitAverage.absorbedW;
+    const w = sameAsCase ? caseW : best.env.orbitAverage.surfaces[i]!.absorbedW;
     const text = sameAsCase
       ? `${s.name}: ${hot ? 'hottest' : 'coldest'} in the spacecraft's case (beta ${f(best.day.betaDeg)} deg, ${f(w)} W orbit-average absorbed)`
       : `${s.name}: ${hot ? 'hottest' : 'coldest'} at beta ${f(best.day.betaDeg)} deg on ${best.day.date} (${f(w)} W orbit-average absorbed; the spacecraft's case gives it ${f(caseW)} W)`;
     return { surface: s.name, date: best.day.date, betaDeg: round(best.day.betaDeg, 3), orbitAverageAbsorbedW: round(w), sameAsCase, text };
   });
-  return { kind, conditions, environmentSource: pair.source, provisional: pair.provisional, rationale, surfaceDrivers, results };
-}
-
-function betaReason(hot: boolean, chosen: Evaluated, extreme: Evaluated): string {
-  const eclipse = (e: Evaluated) => minutes(e.env.eclipseDurationS);
-  const load = `${hot ? 'largest' : 'smallest'} total orbit-average absorbed load (${f(chosen.total)} W)`;
-  const which = hot ? 'shortest' : 'longest';
-  if (chosen.day.date === extreme.day.date || Math.abs(chosen.env.eclipseDurationS - extreme.env.eclipseDurationS) < 1) {
-    return `beta ${f(chosen.day.betaDeg)} deg on ${chosen.day.date} gives the ${which} eclipse (${eclipse(chosen)}) and the ${load}`;
-  }
-  return (
-    `beta ${f(chosen.day.betaDeg)} deg on ${chosen.day.date} gives the ${load} with an eclipse of ${eclipse(chosen)}; ` +
-    `the ${which} eclipse (${eclipse(extreme)}, beta ${f(extreme.day.betaDeg)} deg on ${extreme.day.date}) gives ${f(extreme.total)} W`
-  );
-}
-
-function materialReasons(surfaces: CaseSurface[], set: PropertySet): string[] {
-  const seen = new Map<string, CaseMaterial>();
-  for (const s of surfaces) seen.set(s.material.name, s.material);
-  const label = set.toUpperCase();
-  return [...seen.values()].map((m) => {
-    const p = opticalProperties(m, set);
-    return `${label} absorptivity ${f(p.absorptivity, 2)} and emissivity ${f(p.emissivity, 2)} for ${m.name} (${m.source})`;
-  });
+  return { kind, conditions, environmentSource: pair.source, provisional: pair.provisional, decision, rationale, surfaceDrivers, results };
 }

@@ -93,7 +93,8 @@ describe('a case from draft to release', () => {
     const res = await thermal.patch(`/api/v1/cases/${hot.id}`).send({ name: 'Lifecycle hot (beta 30)', inputs: { betaDeg: 30 } }).expect(200);
     expect(res.body.name).toBe('Lifecycle hot (beta 30)');
     expect(res.body.results.betaDeg).toBeCloseTo(30, 3);
-    expect(res.body.inputs.rationale.at(-1)).toMatch(/betaDeg changed by hand to 30/);
+    expect(res.body.inputs.rationale.at(-1)).toMatch(/changed by hand after the case was made: beta$/);
+    expect(res.body.inputs.rationale.join('\n')).toMatch(/^beta 30\.0 deg on \d{4}-\d\d-\d\d with an eclipse [\d.]+ min, [\d.]+ W orbit-average absorbed: conditions changed by hand/m);
   });
 
   it('hides drafts from viewers and refuses their changes', async () => {

@@ -24,6 +24,14 @@ export class CaseInputsPanel {
   readonly loadCase = input.required<CaseDetail>();
   protected readonly inputs = computed(() => this.loadCase().inputs);
   protected readonly results = computed(() => this.loadCase().results);
+  /** Where the Sun distance comes from, with its own date (it may differ from the beta's day). */
+  protected readonly sunNote = computed(() => {
+    const i = this.inputs();
+    const sun = i.decision?.sun;
+    if (!sun || (i.handEdited ?? []).includes('solarDistanceAu')) return null;
+    if (sun.basis === 'mission') return `closest/farthest of the mission, ${sun.date}`.replace('closest/farthest', this.loadCase().kind === 'hot' ? 'closest' : 'farthest');
+    return `${sun.basis} of ${i.body.name}'s orbit; the mission comes nearest to it on ${sun.date}`;
+  });
   protected readonly propertyLabels = PROPERTY_SET_LABELS;
 
   /** The body's constants beside the source each was taken from; sources with no value shown come last. */

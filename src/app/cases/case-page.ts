@@ -8,6 +8,8 @@ import { MatSlideToggle } from '@angular/material/slide-toggle';
 import { Router, RouterLink } from '@angular/router';
 import { combineLatest, filter, switchMap } from 'rxjs';
 import type { CaseDetail } from '../../../shared/api/cases';
+import { whyRecordOf } from '../../../shared/api/case-content';
+import { caseFactors } from '../../../shared/physics/case-why';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { DesignCaution } from '../shell/design-caution';
@@ -55,6 +57,12 @@ export class CasePage {
     const c = this.current();
     return c ? caseActions(c.status, this.role()) : new Set<CaseAction>();
   });
+  /** The deciding factors, built from the case's own record (the same words as its exports). */
+  protected readonly factors = computed(() => {
+    const c = this.current();
+    return c ? caseFactors(whyRecordOf(c.kind, c.inputs, c.results)) : [];
+  });
+  protected readonly sources = computed(() => [...new Set(this.factors().flatMap((f) => f.sources))]);
   protected readonly subscribed = linkedSignal(() => this.current()?.subscribed ?? false);
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);

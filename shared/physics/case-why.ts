@@ -1,0 +1,154 @@
+// Why a case is what it is, in words built from the case's own record: its conditions, its results
+// and the facts of its derivation. The "why" panel, the stored rationale lines, the exports and the
+// mails all come from caseFactors, so no sentence can quote a number the record does not hold, and
+// an edit (margins, conditions) that recomputes the results recomputes the words with them.
+// A new deciding factor is one more builder in factorBuilders.
+import type { CaseConditions, CaseResults } from './design-cases';
+import { opticalProperties, type CaseMaterial, type Margins, type PropertySet } from './design-environment';
+
+/** What the derivation of a hot or cold case decided, kept with the case so its words can be rebuilt. */
+export interface CaseDecision {
+  /** Where the Sun distance comes from: the mission's own closest/farthest day, or the body's perihelion/aphelion. */
+  sun: { basis: 'mission' | 'perihelion' | 'aphelion'; date: string; distanceAu: number };
+  /** The day chosen for beta: the largest (hot) or smallest (cold) orbit-average absorbed load. */
+  day: { date: string; betaDeg: number };
+  /** The day of the shortest (hot) or longest (cold) eclipse when it is another day, evaluated as the case is. */
+  eclipseExtreme: { date: string; betaDeg: number; eclipseDurationS: number; orbitAverageAbsorbedW: number } | null;
+  pair: { albedo: number; olrWm2: number; source: string };
+  properties: PropertySet;
+}
+
+/** The part of a stored case its words are built from. */
+export interface CaseWhyRecord {
+  kind: 'hot' | 'cold' | 'custom';
+  bodyName: string;
+  conditions: CaseConditions;
+  results: CaseResults;
+  margins: Margins;
+  /** Hot and cold cases: what the derivation decided. */
+  decision?: CaseDecision | undefined;
+  /** Custom cases and cases from an ephemeris: the lines that say how they were set up (no margins in them). */
+  facts?: string[] | undefined;
+  /** Condition keys changed by hand since the case was derived or created. */
+  handEdited?: string[] | undefined;
+}
+
+export type CaseFactorKey = 'sun' | 'beta' | 'environment' | 'properties' | 'margins' | 'setup' | 'edited';
+
+/** One deciding factor: a short headline figure, the full sentence and where its values come from. */
+export interface CaseFactor {
+  key: CaseFactorKey;
+  title: string;
+  figure: string;
+  text: string;
+  sources: string[];
+}
+
+/** Fixed digits for words; never "-0.0". */
+export const fixed = (x: number, digits = 1): string => {
+  const text = x.toFixed(digits);
+  return Number(text) === 0 ? (0).toFixed(digits) : text;
+};
+const f = fixed;
+const minutes = (s: number) => `${f(s / 60)} min`;
+const edited = (r: CaseWhyRecord, key: keyof CaseConditions) => (r.handEdited ?? []).includes(key);
+
+function sunFactor(r: CaseWhyRecord): CaseFactor[] {
+  const c = r.conditions;
+  const flux = `solar flux ${f(r.results.solarFluxWm2, 0)} W/m^2 at ${f(c.solarDistanceAu, 4)} AU`;
+  const d = r.decision;
+  if (!d) return [];
+  if (edited(r, 'solarDistanceAu')) {
+    return [{ key: 'sun', title: 'Sun distance', figure: `${f(c.solarDistanceAu, 4)} AU`, text: `${flux}: set by hand (the derivation gave ${f(d.sun.distanceAu, 4)} AU on ${d.sun.date})`, sources: ['TSI 1361 W/m^2 at 1 AU, inverse square'] }];
+  }
+  const where =
+    d.sun.basis === 'mission'
+      ? `the ${r.kind === 'hot' ? 'closest' : 'farthest'} the mission comes to the Sun, reached ${d.sun.date}`
+      : `${d.sun.basis} of ${r.bodyName}'s orbit (a(1 ${d.sun.basis === 'perihelion' ? '-' : '+'} e)), the mission comes nearest to it on ${d.sun.date}`;
+  const combined = d.sun.date === c.date ? '' : `; combined with the beta of ${c.date} (worst distance and worst beta on different days, conservative)`;
+  return [{ key: 'sun', title: 'Sun distance', figure: `${f(c.solarDistanceAu, 4)} AU (${d.sun.date})`, text: `${flux} (${where}${combined})`, sources: ['TSI 1361 W/m^2 at 1 AU, inverse square', 'VSOP87 for the Sun distance by date'] }];
+}
+
+function betaFactor(r: CaseWhyRecord): CaseFactor[] {
+  const d = r.decision;
+  if (!d) return [];
+  const res = r.results;
+  const hot = r.kind === 'hot';
+  const eclipse = `eclipse ${minutes(res.eclipseDurationS)}`;
+  const figure = `beta ${f(res.betaDeg)} deg, ${eclipse}`;
+  if (['betaDeg', 'date', 'surfaces', 'orbit'].some((k) => edited(r, k as keyof CaseConditions))) {
+    return [{ key: 'beta', title: 'Beta and eclipse', figure, text: `beta ${f(res.betaDeg)} deg on ${r.conditions.date} with an ${eclipse}, ${f(res.total.orbitAverageAbsorbedW)} W orbit-average absorbed: conditions changed by hand since the derivation chose beta ${f(d.day.betaDeg)} deg on ${d.day.date}`, sources: [] }];
+  }
+  const load = `${hot ? 'largest' : 'smallest'} total orbit-average absorbed load of the mission's candidate orbits (${f(res.total.orbitAverageAbsorbedW)} W)`;
+  const which = hot ? 'shortest' : 'longest';
+  const x = d.eclipseExtreme;
+  const text = x
+    ? `beta ${f(res.betaDeg)} deg on ${r.conditions.date} gives the ${load} with an ${eclipse}; the ${which} eclipse (${minutes(x.eclipseDurationS)}, beta ${f(x.betaDeg)} deg on ${x.date}) gives ${f(x.orbitAverageAbsorbedW)} W`
+    : `beta ${f(res.betaDeg)} deg on ${r.conditions.date} gives the ${which} eclipse (${minutes(res.eclipseDurationS)}) and the ${load}`;
+  return [{ key: 'beta', title: 'Beta and eclipse', figure, text, sources: ['conical shadow, Sun as a uniform disk; node drift under J2'] }];
+}
+
+function environmentFactor(r: CaseWhyRecord): CaseFactor[] {
+  const d = r.decision;
+  if (!d) return [];
+  const c = r.conditions;
+  const figure = `albedo ${f(c.albedo, 2)}, OLR ${f(c.olrWm2, 0)} W/m^2`;
+  const byHand = edited(r, 'albedo') || edited(r, 'olrWm2');
+  const text = byHand
+    ? `${figure}: set by hand (the ${r.kind} pair was ${f(d.pair.albedo, 2)} with ${f(d.pair.olrWm2, 0)} W/m^2)`
+    : `albedo ${f(c.albedo, 2)} with OLR ${f(c.olrWm2, 0)} W/m^2: the ${r.kind} pair`;
+  return [{ key: 'environment', title: 'Albedo and OLR', figure, text: byHand ? text : `${text} (${d.pair.source})`, sources: byHand ? [] : [d.pair.source] }];
+}
+
+function propertyFactors(r: CaseWhyRecord): CaseFactor[] {
+  if (!r.decision) return [];
+  const set = r.conditions.properties;
+  const seen = new Map<string, CaseMaterial>();
+  for (const s of r.conditions.surfaces) seen.set(s.material.name, s.material);
+  const label = set.toUpperCase();
+  const note = edited(r, 'properties') ? ' (property set chosen by hand)' : '';
+  return [...seen.values()].map((m) => {
+    const p = opticalProperties(m, set);
+    return {
+      key: 'properties', title: `${label} properties`, figure: `${m.name}: a ${f(p.absorptivity, 2)}, e ${f(p.emissivity, 2)}`,
+      text: `${label} absorptivity ${f(p.absorptivity, 2)} and emissivity ${f(p.emissivity, 2)} for ${m.name}${note} (${m.source})`, sources: [m.source],
+    };
+  });
+}
+
+function setupFactors(r: CaseWhyRecord): CaseFactor[] {
+  return (r.facts ?? []).map((text) => ({ key: 'setup', title: 'Set up', figure: '', text, sources: [] }));
+}
+
+function marginFactor(r: CaseWhyRecord): CaseFactor[] {
+  const m = r.margins;
+  const sign = r.conditions.marginDirection === 'increase' ? '+' : '-';
+  return [{
+    key: 'margins', title: 'Margins',
+    figure: `${sign}${m.heatLoadPercent} %, ${m.temperatureMarginC} C`,
+    text: `heat loads ${sign}${m.heatLoadPercent} % (${m.sources.heatLoadPercent}): ${f(r.results.total.orbitAverageWithMarginW)} W orbit-average with margin; temperature margin ${m.temperatureMarginC} C (${m.sources.temperatureMarginC})`,
+    sources: [m.sources.heatLoadPercent, m.sources.temperatureMarginC],
+  }];
+}
+
+const conditionWords: Partial<Record<keyof CaseConditions, string>> = {
+  date: 'date', betaDeg: 'beta', solarDistanceAu: 'Sun distance', albedo: 'albedo', olrWm2: 'OLR', properties: 'property set',
+  steps: 'time steps', surfaces: 'surfaces', orbit: 'orbit', marginDirection: 'margin direction',
+};
+
+function editedFactor(r: CaseWhyRecord): CaseFactor[] {
+  const keys = r.handEdited ?? [];
+  if (keys.length === 0) return [];
+  const names = keys.map((k) => conditionWords[k as keyof CaseConditions] ?? k);
+  return [{ key: 'edited', title: 'Changed by hand', figure: names.join(', '), text: `changed by hand after the case was made: ${names.join(', ')}`, sources: [] }];
+}
+
+/** The builders, in the order the factors are shown; one more deciding factor is one more entry. */
+export const factorBuilders: ((r: CaseWhyRecord) => CaseFactor[])[] = [
+  sunFactor, betaFactor, environmentFactor, propertyFactors, setupFactors, marginFactor, editedFactor,
+];
+
+export const caseFactors = (r: CaseWhyRecord): CaseFactor[] => factorBuilders.flatMap((build) => build(r));
+
+/** The stored rationale: one line per factor. */
+export const caseRationale = (r: CaseWhyRecord): string[] => caseFactors(r).map((x) => x.text);
