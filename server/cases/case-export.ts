@@ -1,8 +1,9 @@
 // A case as a file for the teams that import it (DOMAIN.md "What importing teams need"): JSON that
-// follows the served JSON Schema, or CSV per RFC 4180 that a spreadsheet opens as it is. Both carry
-// the caution and the same checksum.
+// follows the served JSON Schema, or a tidy CSV per RFC 4180 that a spreadsheet or pandas opens as it
+// is. Both carry the caution and the same checksum.
 import type { CaseExport, CaseExportCase } from '../../shared/api/cases';
 import { csvRecord } from '../../shared/csv/csv-cell';
+import { round } from '../../shared/physics/design-cases';
 import type { AppContext } from '../app-context';
 import type { LoadCaseRow } from '../db/schema';
 import { canonicalJson, checksumMethod, sha256Hex } from './canonical-json';
@@ -40,82 +41,58 @@ export function caseExportJson(ctx: AppContext, row: LoadCaseRow): CaseExport {
 }
 
 const componentColumns = [
-  ['solarWm2', 'solar incident [W/m^2]'],
-  ['albedoWm2', 'albedo incident [W/m^2]'],
-  ['irWm2', 'IR incident [W/m^2]'],
-  ['solarW', 'solar absorbed [W]'],
-  ['albedoW', 'albedo absorbed [W]'],
-  ['irW', 'IR absorbed [W]'],
-  ['absorbedW', 'absorbed total [W]'],
+  ['solarWm2', 'solar incident (W/m^2)', 2],
+  ['albedoWm2', 'albedo incident (W/m^2)', 2],
+  ['irWm2', 'IR incident (W/m^2)', 2],
+  ['solarW', 'solar absorbed (W)', 3],
+  ['albedoW', 'albedo absorbed (W)', 3],
+  ['irW', 'IR absorbed (W)', 3],
+  ['absorbedW', 'absorbed total (W)', 3],
 ] as const;
 
+/** The metadata columns, repeated on every row so each row stands alone (DEVELOPERS.md "Case CSV"). */
+const metaColumns = [
+  'case', 'revision', 'status', 'checksum (sha256)', 'mission', 'body', 'orbit', 'case date (UTC)', 'beta (deg)', 'solar distance (AU)',
+  'property set', 'heat-load margin (%)',
+] as const;
+
+/** Every column of the case CSV, in order: what the export's documentation lists. */
+export const caseCsvColumns = [
+  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'surface',
+  ...componentColumns.map(([, header]) => header), 'absorbed total with margin (W)', 'caution',
+] as const;
+
+/** Rounded to what the quantity means (W/m^2 to 0.01, W to 0.001, s to 0.1): no floating-point noise. */
+const rounded = (x: number | null | undefined, digits: number): number | null => (x === null || x === undefined ? null : round(x, digits));
+
 /**
- * The CSV export: first a block of "field [unit]", value rows (the metadata), a blank record, then
- * one row per time step with a column per surface and load component, units in the header, and
- * the orbit-average and peak rows. Every record has the same number of fields (RFC 4180).
+ * The CSV export, tidy: one header row with units, then one row per time step and surface
+ * (row = "step"), per surface its "orbit average" and "peak", and the spacecraft's total as the
+ * surface "spacecraft total". The case's metadata and the caution are columns repeated on every
+ * row; the inputs in full, the "why" and the assumptions are in the JSON export.
  */
 export function caseExportCsv(ctx: AppContext, row: LoadCaseRow): { csv: string; checksum: string } {
   const doc = caseExportJson(ctx, row);
   const { inputs: i, results: r } = doc;
   const c = i.conditions;
-  const meta: [string, string | number | null][] = [
-    ['format', `${doc.format} version ${doc.formatVersion}`],
-    ['caution', doc.caution],
-    ['case id', doc.case.id],
-    ['case series id', doc.case.seriesId],
-    ['name', doc.case.name],
-    ['kind', doc.case.kind],
-    ['revision', doc.case.revision],
-    ['status', doc.status],
-    ['checksum (sha256)', doc.checksum],
-    ['checksum method', 'sha256 of the canonical JSON of case, inputs and results of the JSON export of this revision'],
-    ['released by', doc.releasedBy ? `${doc.releasedBy.name} <${doc.releasedBy.email}>` : null],
-    ['released at (UTC)', doc.case.releasedAt],
-    ['exported at (UTC)', doc.exportedAt],
-    ['mission', i.mission.name],
-    ['body', `${i.body.name} (${i.body.id})`],
-    ['body GM [km^3/s^2]', i.body.gmKm3S2],
-    ['body radius [km]', i.body.radiusKm],
-    ['body J2 [-]', i.body.j2],
-    ['body constants sources', Object.entries(i.body.sources).map(([k, v]) => `${k}: ${v}`).join('; ')],
-    ['orbit', i.orbit.name],
-    ['orbit epoch (UTC)', i.orbit.epoch],
-    ['semi-major axis [km]', i.orbit.semiMajorAxisKm],
-    ['eccentricity [-]', i.orbit.eccentricity],
-    ['inclination [deg]', i.orbit.inclinationDeg],
-    ['RAAN at epoch [deg]', i.orbit.raanDeg],
-    ['argument of periapsis [deg]', i.orbit.argPeriapsisDeg],
-    ['period [s]', r.periodS],
-    ['case date', c.date],
-    ['beta [deg]', r.betaDeg],
-    ['solar distance [AU]', c.solarDistanceAu],
-    ['solar flux [W/m^2]', r.solarFluxWm2],
-    ['albedo [-]', c.albedo],
-    ['OLR [W/m^2]', c.olrWm2],
-    ['albedo and OLR source', i.environmentSource],
-    ['provisional values', i.provisional ? 'yes' : 'no'],
-    ['property set', c.properties === 'eol' ? 'EOL (end of life)' : 'BOL (beginning of life)'],
-    ['eclipse duration [s]', r.eclipseDurationS],
-    ['eclipse fraction [-]', r.eclipseFraction],
-    ['attitude', i.attitude],
-    ['heat-load margin [%]', i.margins.heatLoadPercent],
-    ['heat-load margin source', i.margins.sources.heatLoadPercent],
-    ['temperature margin [C]', i.margins.temperatureMarginC],
-    ['temperature margin source', i.margins.sources.temperatureMarginC],
-    ...i.rationale.map((text, k): [string, string] => [`rationale ${k + 1}`, text]),
-    ...i.surfaceDrivers.map((d): [string, string] => [`surface driver ${d.surface}`, d.text]),
-    ...i.assumptions.map((text, k): [string, string] => [`assumption ${k + 1}`, text]),
+  const meta = [
+    doc.case.name, doc.case.revision, doc.status, doc.checksum, i.mission.name, i.body.name, i.orbit.name, c.date, rounded(r.betaDeg, 3),
+    rounded(c.solarDistanceAu, 6), c.properties.toUpperCase(), i.margins.heatLoadPercent,
   ];
-  const width = Math.max(2, 2 + r.surfaces.length * componentColumns.length);
-  const pad = (cells: (string | number | null)[]) => [...cells, ...new Array<null>(width - cells.length).fill(null)];
-  const records: (string | number | null)[][] = meta.map(([k, v]) => pad([k, v]));
-  records.push(pad([]));
-  records.push(['tS [s]', 'sunlit [0-1]', ...r.surfaces.flatMap((s) => componentColumns.map(([, unit]) => `${s.name} ${unit}`))]);
+  const line = (kind: string, step: number | null, t: number | null, sunlit: number | null, surface: string, loads: (number | null)[], withMargin: number | null) =>
+    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit, 4), surface, ...loads, rounded(withMargin, 3), doc.caution]);
+  const loadsOf = (pick: (key: (typeof componentColumns)[number][0]) => number | undefined) =>
+    componentColumns.map(([key, , digits]) => rounded(pick(key), digits));
+  const out = [csvRecord([...caseCsvColumns])];
   r.tS.forEach((t, k) => {
-    records.push([t, r.sunlit[k] ?? null, ...r.surfaces.flatMap((s) => componentColumns.map(([key]) => s.series[key][k] ?? null))]);
+    for (const s of r.surfaces) out.push(line('step', k + 1, t, r.sunlit[k] ?? null, s.name, loadsOf((key) => s.series[key][k]), null));
   });
-  records.push(['orbit average', null, ...r.surfaces.flatMap((s) => componentColumns.map(([key]) => s.orbitAverage[key]))]);
-  records.push(['peak', null, ...r.surfaces.flatMap((s) => componentColumns.map(([key]) => s.peak[key]))]);
-  records.push(pad([`orbit average with ${i.margins.heatLoadPercent} % margin, absorbed total [W]`, null, ...r.surfaces.flatMap((s) => componentColumns.map(([key]) => (key === 'absorbedW' ? s.orbitAverage.absorbedWithMarginW : null)))]));
-  return { csv: records.map(csvRecord).join(''), checksum: doc.checksum };
+  for (const s of r.surfaces) {
+    out.push(line('orbit average', null, null, null, s.name, loadsOf((key) => s.orbitAverage[key]), s.orbitAverage.absorbedWithMarginW));
+    out.push(line('peak', null, null, null, s.name, loadsOf((key) => s.peak[key]), null));
+  }
+  const totalOnly = (w: number) => componentColumns.map(([key]) => (key === 'absorbedW' ? rounded(w, 3) : null));
+  out.push(line('orbit average', null, null, null, 'spacecraft total', totalOnly(r.total.orbitAverageAbsorbedW), r.total.orbitAverageWithMarginW));
+  out.push(line('peak', null, null, null, 'spacecraft total', totalOnly(r.total.peakAbsorbedW), null));
+  return { csv: out.join(''), checksum: doc.checksum };
 }

@@ -26,18 +26,22 @@ export function caseReleasedMail(opts: {
     '',
   ];
   if (previous && differences) {
-    lines.push(`Orbit-average absorbed loads, revision ${previous.revision} -> ${row.revision}:`);
-    for (const d of differences) {
-      if (!d.absorbedW) {
-        lines.push(`  ${withoutControls(d.name)}: ${d.absorbedW === null ? 'surface added or removed' : ''}`);
-        continue;
-      }
-      lines.push(`  ${withoutControls(d.name)}: ${w(d.absorbedW.a)} -> ${w(d.absorbedW.b)} (${signed(d.absorbedW.difference)})`);
-    }
+    // Only what changed as the mail writes it (0.1 W, 0.1 deg): a difference that rounds to zero is no change.
+    const changed = (a: number, b: number) => a.toFixed(1) !== b.toFixed(1);
     const a = previous.results.total.orbitAverageAbsorbedW;
     const b = row.results.total.orbitAverageAbsorbedW;
-    lines.push(`  spacecraft total: ${w(a)} -> ${w(b)} (${signed(b - a)})`);
-    lines.push(`  beta: ${previous.results.betaDeg.toFixed(1)} deg -> ${row.results.betaDeg.toFixed(1)} deg`);
+    const changes: string[] = [];
+    for (const d of differences) {
+      if (!d.absorbedW) changes.push(`  ${withoutControls(d.name)}: surface added or removed`);
+      else if (changed(d.absorbedW.a, d.absorbedW.b)) changes.push(`  ${withoutControls(d.name)}: ${w(d.absorbedW.a)} -> ${w(d.absorbedW.b)} (${signed(d.absorbedW.difference)})`);
+    }
+    if (changed(a, b)) changes.push(`  spacecraft total: ${w(a)} -> ${w(b)} (${signed(b - a)})`);
+    const before = previous.inputs.margins.heatLoadPercent;
+    const now = row.inputs.margins.heatLoadPercent;
+    if (before !== now) changes.push(`  heat-load margin: ${before} % -> ${now} % (${now - before >= 0 ? '+' : '-'}${Math.abs(now - before)} percentage points)`);
+    if (changed(previous.results.betaDeg, row.results.betaDeg)) changes.push(`  beta: ${previous.results.betaDeg.toFixed(1)} deg -> ${row.results.betaDeg.toFixed(1)} deg`);
+    if (changes.length > 0) lines.push(`Changes from revision ${previous.revision} to ${row.revision} (orbit-average absorbed loads, new - old):`, ...changes);
+    else lines.push(`No orbit-average absorbed load, margin or beta changed from revision ${previous.revision} (to 0.1).`);
     lines.push('', `Revision ${previous.revision} is now superseded.`);
   } else {
     lines.push('This is the first released revision of the case.');

@@ -8,10 +8,8 @@ import type { Db } from '../db/database';
 import { caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
 import { visibleToViewer } from './case-access';
 
-export const cautionText =
-  'Preliminary-design estimate from simplified models. Verify with detailed analysis, a correlated model and thermal test under the project\'s standards and qualified practitioners.';
-export const crewedCaution = 'Habitability and touch-temperature limits are not checked.';
-export const cautionFor = (crewed: boolean): string => (crewed ? `${cautionText} ${crewedCaution}` : cautionText);
+export { cautionFor, cautionText, crewedCaution } from '../../shared/api/caution';
+import { cautionFor } from '../../shared/api/caution';
 
 type Person = CaseSummary['author'];
 

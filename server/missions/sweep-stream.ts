@@ -1,8 +1,9 @@
 // Writes a mission sweep as it is computed: NDJSON lines (start, one per day, end) or CSV rows, a
-// chunk of days at a time with a turn of the event loop between chunks, so other requests are
+// chunk of days at a time (every CSV row ends with the caution column) with a turn of the event loop between chunks, so other requests are
 // served meanwhile; stops computing when the client goes away.
 import type { Response } from 'express';
 import type { SweepDay, SweepLine } from '../../shared/api/missions';
+import { cautionFor } from '../../shared/api/caution';
 import { csvRecord } from '../../shared/csv/csv-cell';
 import type { Logger } from '../logger';
 import type { MissionSurface } from './saved-environment';
@@ -23,10 +24,11 @@ export function csvHeader(surfaces: readonly MissionSurface[]): string {
     'solar distance (AU)',
     'solar flux (W/m^2)',
     ...surfaces.map((s) => `${s.label.name} absorbed, orbit average (W)`),
+    'caution',
   ]);
 }
 
-const csvDay = (day: SweepDay): string =>
+const csvDay = (day: SweepDay, caution: string): string =>
   csvRecord([
     day.date,
     day.betaDeg,
@@ -35,6 +37,7 @@ const csvDay = (day: SweepDay): string =>
     day.solarDistanceAu,
     day.solarFluxWm2,
     ...day.surfaces.map((s) => s.absorbedW),
+    caution,
   ]);
 
 const ndjson = (line: SweepLine): string => JSON.stringify(line) + '\n';
@@ -55,6 +58,8 @@ export interface SweepStream {
   surfaces: readonly MissionSurface[];
   format: SweepFormat;
   fileName: string;
+  /** A crewed vehicle's CSV rows carry the crewed sentence of the caution too. */
+  crewed: boolean;
   computeDays: (first: number, count: number) => SweepDay[];
 }
 
@@ -73,10 +78,11 @@ function drained(res: Response): Promise<void> {
   });
 }
 
-export async function streamSweep({ res, logger, plan, surfaces, format, fileName, computeDays }: SweepStream): Promise<void> {
+export async function streamSweep({ res, logger, plan, surfaces, format, fileName, crewed, computeDays }: SweepStream): Promise<void> {
   // res 'close' fires when the connection ends, finished or not; req 'close' can fire as soon as
   // the (empty) request body has been read, so it would not tell a departed client apart.
   let gone = false;
+  const caution = cautionFor(crewed);
   res.on('close', () => {
     if (!res.writableFinished) gone = true;
   });
@@ -99,7 +105,7 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
     let chunk = '';
     try {
       for (const day of computeDays(start, Math.min(DAYS_PER_CHUNK, plan.days - start))) {
-        chunk += format === 'csv' ? csvDay(day) : ndjson(day);
+        chunk += format === 'csv' ? csvDay(day, caution) : ndjson(day);
       }
     } catch (error) {
       // The 200 and part of the answer are out; the failure can only be told in the stream.

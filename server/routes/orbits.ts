@@ -66,6 +66,7 @@ export function orbitRoutes(ctx: AppContext): Router {
       surfaces,
       format: query.format,
       fileName: csvFileName(mission.name, orbit.name, 'sweep', plan.from, plan.to, query.properties),
+      crewed: mission.crewed,
       computeDays: sweepChunkComputer(mission, orbit, plan, surfaces),
     });
   });

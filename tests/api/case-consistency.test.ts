@@ -2,6 +2,7 @@
 // to 30 %, submitted and released; every sentence of its "why" and every figure in its exports
 // must then agree with its own record (conditions, results, margins). Common practice, no source:
 // the check is that the words quote the record, not a second computation.
+import { parse as parseCsv } from 'csv-parse/sync';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { whyRecordOf, type CaseInputs, type CaseResultsContent } from '../../shared/api/case-content';
@@ -78,8 +79,10 @@ describe('a case derived, edited and released says the same everywhere', () => {
       expect(json.inputs.margins.heatLoadPercent).toBe(30);
       expectWordsMatchRecord({ kind: json.case.kind, inputs: json.inputs, results: json.results });
       const csv = (await owner.get(`/api/v1/cases/${c.id}/export?format=csv`).expect(200)).text;
-      for (const line of json.inputs.rationale) expect(csv).toContain(line.replace(/"/g, '""'));
-      expect(csv).not.toMatch(/heat loads [+-]25 %/);
+      const rows = parseCsv(csv, { columns: true }) as Record<string, string>[];
+      const total = rows.find((r) => r['row'] === 'orbit average' && r['surface'] === 'spacecraft total')!;
+      expect(Number(total['heat-load margin (%)'])).toBe(30);
+      expect(Number(total['absorbed total with margin (W)'])).toBeCloseTo(json.results.total.orbitAverageWithMarginW, 3);
     }
   });
 
@@ -92,5 +95,17 @@ describe('a case derived, edited and released says the same everywhere', () => {
     expect(text).toContain(`${edited.results.total.orbitAverageAbsorbedW.toFixed(1)} W orbit-average absorbed: conditions changed by hand`);
     expect(text).toMatch(/changed by hand after the case was made: beta$/);
     expect(edited.inputs.rationale).toEqual(caseRationale(whyRecordOf('hot', edited.inputs, edited.results)));
+  });
+
+  it('mails a revision that changed nothing as such, with no invented changes, and with the caution (issue 15 item 5)', async () => {
+    const hot = cases[0]!;
+    await owner.post(`/api/v1/cases/${hot.id}/subscription`).expect(200);
+    const rev2: Detail = (await thermal.post(`/api/v1/cases/${hot.id}/revisions`).expect(201)).body;
+    await thermal.post(`/api/v1/cases/${rev2.id}/submit`).expect(200);
+    await owner.post(`/api/v1/cases/${rev2.id}/release`).expect(200);
+    const mail = await t.waitForMail('owner@kestrel.test', 'revision 2 released');
+    expect(mail.text).toMatch(/No orbit-average absorbed load, margin or beta changed from revision 1/);
+    expect(mail.text).not.toMatch(/ -> /);
+    expect(mail.text).toMatch(/Preliminary-design estimate from simplified models/);
   });
 });

@@ -70,28 +70,59 @@ describe('GET /api/v1/cases/:id/export?format=json', () => {
   });
 });
 
+/** Equal to within the rounding to `digits` decimals (half a unit of the last digit). */
+const near = (value: unknown, expected: number, digits: number) => expect(Math.abs((value as number) - expected)).toBeLessThanOrEqual(0.5 * 10 ** -digits + 1e-9);
+
 describe('GET /api/v1/cases/:id/export?format=csv', () => {
-  it('is RFC 4180 with one field count throughout, units in the header, the caution and the same checksum', async () => {
+  it('is RFC 4180, one header row with units, one field count throughout, the caution and the checksum on every row', async () => {
     const c = released[0]!;
     const res = await viewer.get(`/api/v1/cases/${c.id}/export?format=csv`).expect(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv; charset=utf-8/);
     expect(res.headers['content-disposition']).toMatch(/\.csv"$/);
     expect(res.text.includes('\r\n')).toBe(true);
     // csv-parse refuses records of differing length unless told otherwise
-    const records = parseCsv(res.text) as string[][];
-    const meta = new Map(records.filter((r) => r[0] && r[1]).map((r) => [r[0], r[1]]));
-    expect(meta.get('checksum (sha256)')).toBe(c.checksum);
-    expect(meta.get('caution')).toMatch(/thermal test under the project's standards/);
-    expect(meta.get('status')).toBe('released');
-    const header = records.find((r) => r[0] === 'tS [s]')!;
-    expect(header[1]).toBe('sunlit [0-1]');
-    expect(header.slice(2).every((h) => /\[(W\/m\^2|W)\]$/.test(h))).toBe(true);
+    const rows = parseCsv(res.text, { columns: true }) as Record<string, string>[];
+    expect(rows.length).toBeGreaterThan(0);
+    for (const r of rows) {
+      expect(r['checksum (sha256)']).toBe(c.checksum);
+      expect(r['caution']).toMatch(/thermal test under the project's standards/);
+      expect(r['status']).toBe('released');
+    }
+    const header = Object.keys(rows[0]!);
+    // Every numeric column names its unit (RFC 4180 has no types; the unit travels in the header).
+    for (const h of ['time from periapsis (s)', 'sunlit (0-1)', 'solar incident (W/m^2)', 'absorbed total (W)', 'beta (deg)']) expect(header).toContain(h);
+  });
+
+  it('reads back with csv-parse into the numbers of the JSON export, rounded to meaningful digits (W to 0.001, W/m^2 to 0.01)', async () => {
+    const c = released[0]!;
+    const csv = (await viewer.get(`/api/v1/cases/${c.id}/export?format=csv`).expect(200)).text;
     const json = JSON.parse((await viewer.get(`/api/v1/cases/${c.id}/export?format=json`)).text);
-    const steps = records.indexOf(header);
-    expect(records.slice(steps + 1).filter((r) => /^\d/.test(r[0] ?? '')).length).toBe(json.results.tS.length);
-    const average = records.find((r) => r[0] === 'orbit average')!;
-    const totalColumn = header.indexOf(`${json.results.surfaces[0].name} absorbed total [W]`);
-    expect(Number(average[totalColumn])).toBe(json.results.surfaces[0].orbitAverage.absorbedW);
+    const rows = parseCsv(csv, { columns: true, cast: (value, ctx) => (ctx.header || value === '' || Number.isNaN(Number(value)) ? value : Number(value)) }) as Record<string, string | number>[];
+    const surfaces = json.results.surfaces as { name: string; series: Record<string, number[]>; orbitAverage: Record<string, number>; peak: Record<string, number> }[];
+    const steps = rows.filter((r) => r['row'] === 'step');
+    expect(steps.length).toBe(json.results.tS.length * surfaces.length);
+    for (const r of steps) {
+      const k = (r['step'] as number) - 1;
+      const s = surfaces.find((x) => x.name === r['surface'])!;
+      near(r['time from periapsis (s)'], json.results.tS[k], 1);
+      near(r['sunlit (0-1)'], json.results.sunlit[k], 4);
+      near(r['solar incident (W/m^2)'], s.series['solarWm2']![k]!, 2);
+      near(r['IR absorbed (W)'], s.series['irW']![k]!, 3);
+      near(r['absorbed total (W)'], s.series['absorbedW']![k]!, 3);
+    }
+    for (const s of surfaces) {
+      const avg = rows.find((r) => r['row'] === 'orbit average' && r['surface'] === s.name)!;
+      near(avg['absorbed total (W)'], s.orbitAverage['absorbedW']!, 3);
+      near(avg['absorbed total with margin (W)'], s.orbitAverage['absorbedWithMarginW']!, 3);
+      const peak = rows.find((r) => r['row'] === 'peak' && r['surface'] === s.name)!;
+      near(peak['solar absorbed (W)'], s.peak['solarW']!, 3);
+    }
+    const total = rows.find((r) => r['row'] === 'orbit average' && r['surface'] === 'spacecraft total')!;
+    near(total['absorbed total (W)'], json.results.total.orbitAverageAbsorbedW, 3);
+    expect(total['heat-load margin (%)']).toBe(json.inputs.margins.heatLoadPercent);
+    near(total['beta (deg)'], json.results.betaDeg, 3);
+    // No floating-point noise: no number carries more than 6 decimals.
+    expect(csv).not.toMatch(/\d\.\d{7,}/);
   });
 
   it('refuses an unknown format with 400 naming it', async () => {

@@ -10,7 +10,7 @@ import type { BodySummaryResponse, EnvironmentResponse } from '../../../shared/a
 import type { MissionDetail, Orbit } from '../../../shared/api/missions';
 import { loaded } from '../api/loaded';
 import { MissionApi, type PropertySet } from '../missions/mission-api';
-import { buildCsv, downloadCsv } from '../plots/csv-download';
+import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { absorbedSeries, eclipseBands, fluxSeries, profileCsvColumns } from './environment-plot-data';
 
@@ -82,6 +82,6 @@ export class EnvironmentResults {
   protected downloadProfile(): void {
     const a = this.answer();
     if (!a) return;
-    downloadCsv(`${this.fileStem()}-profile.csv`, buildCsv(profileCsvColumns(a.profile)), this.document);
+    downloadCsv(`${this.fileStem()}-profile.csv`, buildResultCsv(profileCsvColumns(a.profile)), this.document);
   }
 }

@@ -6,7 +6,7 @@ import { MatProgressBar } from '@angular/material/progress-bar';
 import { Subscription, bufferTime, filter } from 'rxjs';
 import type { MissionDetail, Orbit, SweepDay, SweepLine } from '../../../shared/api/missions';
 import { MissionApi, type PropertySet } from '../missions/mission-api';
-import { buildCsv, downloadCsv } from '../plots/csv-download';
+import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import type { PlotSeries } from '../plots/plot-series';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { sweepCsvColumns, sweepSeries } from './sweep-plot-data';
@@ -106,6 +106,6 @@ export class MissionSweep {
 
   protected downloadSweep(): void {
     const name = `${this.mission().name}-${this.orbit().name}-sweep-${this.properties()}`.replace(/[^A-Za-z0-9._-]+/g, '-');
-    downloadCsv(`${name}.csv`, buildCsv(sweepCsvColumns(this.days())), this.document);
+    downloadCsv(`${name}.csv`, buildResultCsv(sweepCsvColumns(this.days())), this.document);
   }
 }

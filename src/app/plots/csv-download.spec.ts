@@ -1,7 +1,7 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { parse } from 'csv-parse/browser/esm/sync';
 import { csvField } from '../../../shared/csv/csv-cell';
-import { buildCsv, csvHeader, downloadCsv } from './csv-download';
+import { buildCsv, buildResultCsv, csvHeader, downloadCsv } from './csv-download';
 
 describe('CSV quoting (RFC 4180 section 2)', () => {
   it('rule 1: records end with CRLF', () => {
@@ -53,6 +53,18 @@ describe('CSV quoting (RFC 4180 section 2)', () => {
     const csv = buildCsv([{ header: 'label', values: labels }]);
     const rows = parse(csv, { record_delimiter: '\r\n' }) as string[][];
     expect(rows.map((r) => r[0])).toEqual(['label', ...labels]);
+  });
+});
+
+describe('buildResultCsv', () => {
+  it('ends every row with the preliminary-design caution (DOMAIN.md "Where it can hurt"), the crewed sentence for a crewed vehicle', () => {
+    const rows = parse(buildResultCsv([{ header: 'x', values: [1, 2] }], true), { columns: true }) as Record<string, string>[];
+    expect(rows).toHaveLength(2);
+    for (const r of rows) {
+      expect(r['caution']).toMatch(/^Preliminary-design estimate from simplified models\./);
+      expect(r['caution']).toMatch(/Habitability and touch-temperature limits are not checked\.$/);
+    }
+    expect(parse(buildResultCsv([{ header: 'x', values: [1] }]), { columns: true })[0].caution).not.toMatch(/Habitability/);
   });
 });
 

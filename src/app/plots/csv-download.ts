@@ -3,6 +3,7 @@
 // when they hold a comma, a double quote or a line break, and quotes inside doubled. Cells go
 // through the one writer every Eclipta CSV uses (shared/csv/csv-cell.ts), which also keeps text
 // that starts like a formula (= + - @) from being evaluated by a spreadsheet.
+import { cautionFor } from '../../../shared/api/caution';
 import { csvRecord, type CsvCell } from '../../../shared/csv/csv-cell';
 
 export interface CsvColumn {
@@ -22,6 +23,15 @@ export function buildCsv(columns: readonly CsvColumn[]): string {
   let csv = csvRecord(columns.map(csvHeader));
   for (let r = 0; r < rowCount; r++) csv += csvRecord(columns.map((c) => c.values[r]));
   return csv;
+}
+
+/**
+ * A CSV of results: the columns and then a "caution" column holding the preliminary-design caution
+ * on every row (DOMAIN.md: every export carries it), the crewed sentence too for a crewed vehicle.
+ */
+export function buildResultCsv(columns: readonly CsvColumn[], crewed = false): string {
+  const rowCount = Math.max(1, ...columns.map((c) => c.values.length));
+  return buildCsv([...columns, { header: 'caution', values: new Array<string>(rowCount).fill(cautionFor(crewed)) }]);
 }
 
 /**

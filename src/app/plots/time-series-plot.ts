@@ -4,7 +4,7 @@
 import { DOCUMENT } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
-import { buildCsv, downloadCsv } from './csv-download';
+import { buildResultCsv, downloadCsv } from './csv-download';
 import { cssColor } from './plot-colors';
 import { axisTitle } from './plot-format';
 import { nearestIndex } from './plot-scales';
@@ -145,7 +145,7 @@ export class TimeSeriesPlot {
 
   protected downloadData(): void {
     const columns = seriesCsvColumns(this.series(), { label: this.xLabel(), unit: this.xUnit() }, this.xKind());
-    downloadCsv(this.csvFileName(), buildCsv(columns), this.document);
+    downloadCsv(this.csvFileName(), buildResultCsv(columns), this.document);
   }
 
   protected trackPointer(event: MouseEvent): void {

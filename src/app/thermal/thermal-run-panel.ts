@@ -14,7 +14,7 @@ import type { CaseSummary } from '../../../shared/api/cases';
 import type { ThermalRunResponse } from '../../../shared/api/thermal-models';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CaseKindLabel } from '../cases/case-kind-label';
-import { buildCsv, downloadCsv } from '../plots/csv-download';
+import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import { StripPlot } from '../plots/strip-plot';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { ThermalModelApi } from './thermal-api';
@@ -163,6 +163,6 @@ export class ThermalRunPanel {
     const r = this.run();
     if (!r) return;
     const stem = `${r.model.name}-${r.case.name}`.replace(/[^A-Za-z0-9._-]+/g, '-').toLowerCase();
-    downloadCsv(`${stem}-temperatures.csv`, buildCsv(temperatureColumns(r)), this.document);
+    downloadCsv(`${stem}-temperatures.csv`, buildResultCsv(temperatureColumns(r)), this.document);
   }
 }
