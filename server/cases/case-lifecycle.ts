@@ -10,7 +10,7 @@ import { resolveMargins } from '../../shared/physics/design-environment';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import type { Tx } from '../db/database';
-import { auditEvents, caseSubscriptions, loadCases, users, type LoadCaseRow, type UserRow } from '../db/schema';
+import { auditEvents, caseComments, caseSubscriptions, loadCases, users, type CaseCommentRow, type LoadCaseRow, type UserRow } from '../db/schema';
 import { ApiError, conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
@@ -230,5 +230,46 @@ export function setSubscription(ctx: AppContext, user: UserRow, row: LoadCaseRow
       tx.delete(caseSubscriptions).where(and(eq(caseSubscriptions.caseSeriesId, row.seriesId), eq(caseSubscriptions.userId, user.id))).run();
     }
     audit(tx, row, user, on ? 'case.subscribed' : 'case.unsubscribed', `${on ? 'Subscribed to' : 'Unsubscribed from'} "${row.name}".`);
+  });
+}
+
+/** 403 when the caller wrote the revision: only another engineer reviews it (four eyes). */
+export function requireReviewer(row: LoadCaseRow, user: UserRow): void {
+  if (row.authorId === user.id) {
+    throw forbidden(`You wrote ${label(row)}, so another thermal engineer or owner reviews and returns it (four-eyes rule).`, 'four_eyes');
+  }
+}
+
+const excerpt = (text: string) => (text.length > 80 ? `${text.slice(0, 79)}…` : text).replace(/\s+/g, ' ');
+
+/**
+ * Returns a revision in review to its author as a draft, with the reviewer's comment kept in the
+ * case's history; like a release, it is a reviewer's act, so not the author's (four eyes).
+ */
+export function returnCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, comment: string): LoadCaseRow {
+  requireReviewer(row, user);
+  requireStatus(row, ['review'], 'returned to its author');
+  return ctx.db.transaction((tx) => {
+    const now = new Date().toISOString();
+    const updated = tx
+      .update(loadCases)
+      .set({ status: 'draft', submittedBy: null, submittedAt: null, version: nextVersion, updatedAt: now })
+      .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'review')))
+      .returning()
+      .get();
+    if (!updated) throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
+    tx.insert(caseComments).values({ caseId: row.id, seriesId: row.seriesId, revision: row.revision, kind: 'returned', text: comment, authorId: user.id }).run();
+    audit(tx, updated, user, 'case.returned', `Returned ${label(updated)} to its author: "${excerpt(comment)}".`);
+    return updated;
+  });
+}
+
+/** A comment on a draft or a revision in review; a released one is closed (409). */
+export function commentOnCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, text: string): CaseCommentRow {
+  requireStatus(row, ['draft', 'review'], 'commented on');
+  return ctx.db.transaction((tx) => {
+    const made = tx.insert(caseComments).values({ caseId: row.id, seriesId: row.seriesId, revision: row.revision, kind: 'comment', text, authorId: user.id }).returning().get();
+    audit(tx, row, user, 'case.commented', `Commented on ${label(row)}: "${excerpt(text)}".`);
+    return made;
   });
 }

@@ -1,12 +1,14 @@
 // The answers of the case routes, built from rows: summaries for lists, the full case, and the
 // side-by-side comparison of two revisions.
 import { and, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
-import type { CaseComparison, CaseDetail, CaseSummary } from '../../shared/api/cases';
+import type { CaseActionName, CaseComment, CaseComparison, CaseDetail, CaseSummary } from '../../shared/api/cases';
+import type { Role } from '../../shared/api/workspaces';
+import { memberRole } from '../auth/middleware';
 import type { CaseResultsContent } from '../../shared/api/case-content';
 import type { AppContext } from '../app-context';
 import type { Db } from '../db/database';
-import { caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
-import { visibleToViewer } from './case-access';
+import { caseComments, caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
+import { caseEditors, visibleToViewer } from './case-access';
 
 export { cautionFor, cautionText, crewedCaution } from '../../shared/api/caution';
 import { cautionFor } from '../../shared/api/caution';
@@ -41,12 +43,47 @@ export function isSubscribed(db: Db, seriesId: string, userId: string): boolean 
     .get();
 }
 
+/**
+ * What a member may do with a revision now, by role, status and authorship: the same rules the
+ * routes enforce, so a page never offers an action the server refuses (four eyes: the author
+ * neither releases nor returns their own revision).
+ */
+export function caseActionsFor(row: LoadCaseRow, role: Role | null, userId: string): CaseActionName[] {
+  if (!role || !caseEditors.includes(role)) return [];
+  const reviewer = row.authorId !== userId;
+  switch (row.status) {
+    case 'draft':
+      return ['edit', 'submit', 'comment'];
+    case 'review':
+      return reviewer ? ['release', 'return', 'comment'] : ['comment'];
+    default:
+      return ['newRevision'];
+  }
+}
+
+/** The review conversation of a case series, oldest first. */
+export function commentsOf(db: Db, seriesId: string): CaseComment[] {
+  return db
+    .select({ c: caseComments, name: users.name, email: users.email })
+    .from(caseComments)
+    .leftJoin(users, eq(users.id, caseComments.authorId))
+    .where(eq(caseComments.seriesId, seriesId))
+    .orderBy(caseComments.createdAt, sql`"case_comments".rowid`)
+    .all()
+    .map(({ c, name, email }) => ({
+      id: c.id, revision: c.revision, kind: c.kind, text: c.text, createdAt: c.createdAt,
+      author: c.authorId && name !== null && email !== null ? { id: c.authorId, name, email } : null,
+    }));
+}
+
 export function toDetail(db: Db, row: LoadCaseRow, userId: string): CaseDetail {
   return {
     ...toSummary(db, row),
     submittedBy: personOf(db, row.submittedBy),
     submittedAt: row.submittedAt,
     subscribed: isSubscribed(db, row.seriesId, userId),
+    actions: caseActionsFor(row, memberRole(db, userId, row.workspaceId), userId),
+    comments: commentsOf(db, row.seriesId),
     caution: cautionFor(row.inputs.mission.crewed),
     inputs: row.inputs,
     results: row.results,

@@ -60,3 +60,26 @@ export const caseSubscriptions = sqliteTable(
 
 export type LoadCaseRow = typeof loadCases.$inferSelect;
 export type CaseSubscriptionRow = typeof caseSubscriptions.$inferSelect;
+
+/**
+ * The review conversation of a case series: comments on a revision, and the reviewer's reason when a
+ * revision in review was returned to its author. Kept with the revision it was written on.
+ */
+export const caseComments = sqliteTable(
+  'case_comments',
+  {
+    id: id(),
+    caseId: text('case_id')
+      .notNull()
+      .references(() => loadCases.id, { onDelete: 'cascade' }),
+    seriesId: text('series_id').notNull(),
+    revision: integer('revision').notNull(),
+    kind: text('kind', { enum: ['comment', 'returned'] }).notNull(),
+    text: text('text').notNull(),
+    authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('case_comments_series').on(t.seriesId)],
+);
+
+export type CaseCommentRow = typeof caseComments.$inferSelect;

@@ -1,15 +1,15 @@
 // cases: load cases of a mission (shared/api/cases.ts), and the documents that describe the API:
 // the JSON Schema of a case export and the OpenAPI description of every route.
 import { Router } from 'express';
-import { caseCompareQuery, caseCreate, caseDerive, caseExportQuery, caseListQuery, caseUpdate } from '../../shared/api/cases';
+import { caseCommentCreate, caseCompareQuery, caseCreate, caseDerive, caseExportQuery, caseListQuery, caseUpdate } from '../../shared/api/cases';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import { requireUser, signedIn } from '../auth/middleware';
 import { caseFor, missionForCases } from '../cases/case-access';
 import { createCustomCase, deriveCases } from '../cases/case-derivation';
 import { caseExportCsv, caseExportJson } from '../cases/case-export';
-import { newRevision, releaseCase, setSubscription, submitCase, updateCase } from '../cases/case-lifecycle';
-import { compareCases, listCases, toDetail } from '../cases/case-views';
+import { commentOnCase, newRevision, releaseCase, requireReviewer, returnCase, setSubscription, submitCase, updateCase } from '../cases/case-lifecycle';
+import { commentsOf, compareCases, listCases, toDetail } from '../cases/case-views';
 import { badRequest, parse } from '../errors';
 import { apiDocsRoutes } from '../openapi/api-docs-routes';
 import { pathParam } from '../path-param';
@@ -59,6 +59,20 @@ export function caseRoutes(ctx: AppContext): Router {
     const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
     const released = await releaseCase(ctx, me(req), row);
     res.json(toDetail(ctx.db, released, me(req).id));
+  });
+
+  router.post('/cases/:id/return', requireUser, (req, res) => {
+    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
+    requireReviewer(row, me(req));
+    const { text } = parse(caseCommentCreate, req.body);
+    res.json(toDetail(ctx.db, returnCase(ctx, me(req), row, text), me(req).id));
+  });
+
+  router.post('/cases/:id/comments', requireUser, (req, res) => {
+    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
+    const { text } = parse(caseCommentCreate, req.body);
+    const made = commentOnCase(ctx, me(req), row, text);
+    res.status(201).json(commentsOf(ctx.db, row.seriesId).find((c) => c.id === made.id));
   });
 
   router.post('/cases/:id/revisions', requireUser, (req, res) => {

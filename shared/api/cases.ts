@@ -11,6 +11,9 @@
 //   POST   cases/:id/release                -> caseDetail (review -> released; by a thermal engineer or
 //                                              owner other than the author; supersedes the previous release;
 //                                              409 when a newer revision of the series is released already)
+//   POST   cases/:id/return                 caseCommentCreate -> caseDetail (review -> draft, by a reviewer
+//                                            other than the author, the comment kept in the case's history)
+//   POST   cases/:id/comments               caseCommentCreate -> 201 caseComment (on a draft or a case in review)
 //   POST   cases/:id/revisions              -> 201 caseDetail (a new draft from a released or superseded one)
 //   GET    cases/:id/compare?with=otherId   -> caseComparison
 //   POST   cases/:id/subscription           -> {subscribed: true}    DELETE -> {subscribed: false}
@@ -18,7 +21,7 @@
 //   GET    schemas/load-case.json           -> the JSON Schema of caseExport
 //   GET    openapi.json                     -> the whole API in OpenAPI 3
 import { z } from 'zod';
-import { lineText } from './text';
+import { lineText, multilineText } from './text';
 import { caseInputs, caseKinds, caseResultsContent, caseStatuses, propertySetValues } from './case-content';
 import { surfaceNormal } from './missions';
 
@@ -144,10 +147,30 @@ export const caseSummary = z.object({
   updatedAt: z.string(),
 });
 
+export const caseActionNames = ['edit', 'submit', 'release', 'return', 'comment', 'newRevision'] as const;
+
+export const caseComment = z.object({
+  id: z.string(),
+  revision: z.number().int(),
+  kind: z.enum(['comment', 'returned']).describe('returned: the reviewer sent the revision back to its author with this comment'),
+  text: z.string(),
+  author: person,
+  createdAt: z.string(),
+});
+
+/** A comment on a case (draft or in review), and the reason a reviewer gives when returning one. */
+export const caseCommentCreate = z.strictObject({
+  text: multilineText(4000, 'a comment has at most 4000 characters').pipe(z.string().min(1, 'write the comment')),
+});
+
 export const caseDetail = caseSummary.extend({
   submittedBy: person,
   submittedAt: z.string().nullable(),
   subscribed: z.boolean(),
+  /** What the caller may do with this revision now: the server refuses the others. */
+  actions: z.array(z.enum(caseActionNames)),
+  /** The review conversation of every revision of the case, oldest first. */
+  comments: z.array(caseComment),
   caution: z.string(),
   inputs: caseInputs,
   results: caseResultsContent,
@@ -219,6 +242,8 @@ export type CaseUpdateParsed = z.output<typeof caseUpdate>;
 export type CaseUpdate = z.input<typeof caseUpdate>;
 export type CaseSummary = z.infer<typeof caseSummary>;
 export type CaseDetail = z.infer<typeof caseDetail>;
+export type CaseComment = z.infer<typeof caseComment>;
+export type CaseActionName = (typeof caseActionNames)[number];
 export type CaseComparison = z.infer<typeof caseComparison>;
 export type CaseExport = z.infer<typeof caseExport>;
 export type CaseExportCase = z.infer<typeof caseExportCase>;

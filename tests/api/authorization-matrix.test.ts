@@ -101,6 +101,9 @@ const rules: Record<string, string> = {
   'POST /api/v1/cases/:id/submit': '401 ok 403 ok 404 403 404',
   // the case in review was written by the thermal engineer: the four-eyes rule refuses them (403)
   'POST /api/v1/cases/:id/release': '401 ok 403 403 404 403 404',
+  // returning to the author is a reviewer's act too (four eyes); comments: thermal engineers and owners
+  'POST /api/v1/cases/:id/return': '401 ok 403 403 404 403 404',
+  'POST /api/v1/cases/:id/comments': '401 ok 403 ok 404 403 404',
   'POST /api/v1/cases/:id/revisions': '401 ok 403 ok 403 403 404',
   'GET /api/v1/cases/:id/compare': '401 ok ok ok 404 ok 404',
   'POST /api/v1/cases/:id/subscription': '401 ok ok ok 404 403 404',

@@ -1,20 +1,13 @@
-import type { CaseStatus } from '../../../shared/api/case-content';
+import type { CaseActionName, CaseDetail } from '../../../shared/api/cases';
 import type { Role } from '../../../shared/api/workspaces';
 
-/** What a case page may offer; the server checks again (and four-eyes release is its call alone). */
-export type CaseAction = 'edit' | 'submit' | 'release' | 'newRevision' | 'compare' | 'subscribe' | 'export';
+/** What a case page may offer: the changes the server says the caller may make now, and reading for every member. */
+export type CaseAction = CaseActionName | 'compare' | 'subscribe' | 'export';
 
 // PRODUCT.md: thermal engineers (and owners, who may do everything) derive, change and release
-// cases; analysts and viewers read them. The status decides the rest: a draft is edited and
-// submitted, a case in review is released, a released or superseded one starts a new revision.
+// cases; analysts and viewers read them. Which change is open now (status, four eyes) is the
+// server's answer (`actions` of the case), so the page never offers what the server refuses.
 const EDITORS: readonly Role[] = ['thermal', 'owner'];
-
-const BY_STATUS: Readonly<Record<CaseStatus, readonly CaseAction[]>> = {
-  draft: ['edit', 'submit'],
-  review: ['release'],
-  released: ['newRevision'],
-  superseded: ['newRevision'],
-};
 
 const FOR_EVERY_MEMBER: readonly CaseAction[] = ['compare', 'subscribe', 'export'];
 
@@ -22,7 +15,7 @@ export function mayChangeCases(role: Role | null): boolean {
   return role !== null && EDITORS.includes(role);
 }
 
-export function caseActions(status: CaseStatus, role: Role | null): ReadonlySet<CaseAction> {
+export function caseActions(loadCase: Pick<CaseDetail, 'actions'>, role: Role | null): ReadonlySet<CaseAction> {
   if (role === null) return new Set();
-  return new Set([...(mayChangeCases(role) ? BY_STATUS[status] : []), ...FOR_EVERY_MEMBER]);
+  return new Set([...loadCase.actions, ...FOR_EVERY_MEMBER]);
 }

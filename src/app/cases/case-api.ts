@@ -2,7 +2,7 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import type { CaseStatus } from '../../../shared/api/case-content';
-import type { CaseComparison, CaseCreate, CaseDerive, CaseDetail, CaseSummary, CaseUpdate } from '../../../shared/api/cases';
+import type { CaseComment, CaseComparison, CaseCreate, CaseDerive, CaseDetail, CaseSummary, CaseUpdate } from '../../../shared/api/cases';
 import type { Mission, MissionDetail } from '../../../shared/api/missions';
 import { apiPath } from '../api/api-path';
 
@@ -42,6 +42,15 @@ export class CaseApi {
 
   submit(caseId: string): Observable<CaseDetail> {
     return this.http.post<CaseDetail>(apiPath('cases', caseId, 'submit'), {});
+  }
+
+  /** Returns a case in review to its author with the comment (review -> draft). */
+  returnToAuthor(caseId: string, text: string): Observable<CaseDetail> {
+    return this.http.post<CaseDetail>(apiPath('cases', caseId, 'return'), { text });
+  }
+
+  comment(caseId: string, text: string): Observable<CaseComment> {
+    return this.http.post<CaseComment>(apiPath('cases', caseId, 'comments'), { text });
   }
 
   release(caseId: string): Observable<CaseDetail> {

@@ -4,12 +4,13 @@ import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import type { CaseStatus } from '../../../shared/api/case-content';
+import type { CaseActionName } from '../../../shared/api/cases';
 import type { Role } from '../../../shared/api/workspaces';
 import { CurrentWorkspace } from '../workspace/current-workspace';
 import { CasePage } from './case-page';
 import { sampleCase } from './sample-case';
 
-async function render(role: Role, status: CaseStatus) {
+async function render(role: Role, status: CaseStatus, actions: CaseActionName[] = []) {
   TestBed.configureTestingModule({
     imports: [CasePage],
     providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: CurrentWorkspace, useValue: { role: signal(role) } }],
@@ -19,7 +20,7 @@ async function render(role: Role, status: CaseStatus) {
   fixture.componentRef.setInput('caseId', 'case-1');
   await fixture.whenStable();
   const http = TestBed.inject(HttpTestingController);
-  http.expectOne('/api/v1/cases/case-1').flush(sampleCase({ status, checksum: status === 'draft' ? null : 'cd'.repeat(32) }));
+  http.expectOne('/api/v1/cases/case-1').flush(sampleCase({ status, actions, checksum: status === 'draft' ? null : 'cd'.repeat(32) }));
   await fixture.whenStable();
   const element: HTMLElement = fixture.nativeElement;
   const has = (testId: string) => element.querySelector(`[data-testid="${testId}"]`) !== null;
@@ -37,11 +38,18 @@ describe('CasePage', () => {
   });
 
   it('offers a thermal engineer edit and submit on a draft, and shows the rationale and the caution', async () => {
-    const page = await render('thermal', 'draft');
+    const page = await render('thermal', 'draft', ['edit', 'submit', 'comment']);
     expect(page.has('case-edit')).toBe(true);
     expect(page.has('case-submit')).toBe(true);
     expect(page.has('case-release')).toBe(false);
     expect(page.element.querySelector('[data-testid="case-rationale"]')?.textContent).toContain('Perihelion Sun drove it');
     expect(page.element.querySelector('ecl-design-caution')).not.toBeNull();
+  });
+
+  it('shows the author of a case in review no release and no return, only the comment box (four eyes)', async () => {
+    const page = await render('thermal', 'review', ['comment']);
+    expect(page.has('case-release')).toBe(false);
+    expect(page.has('case-return')).toBe(false);
+    expect(page.has('case-comment-text')).toBe(true);
   });
 });

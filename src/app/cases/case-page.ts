@@ -3,7 +3,9 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSign
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
+import { MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
+import { MatInput } from '@angular/material/input';
 import { MatSlideToggle } from '@angular/material/slide-toggle';
 import { Router, RouterLink } from '@angular/router';
 import { combineLatest, filter, switchMap } from 'rxjs';
@@ -29,7 +31,7 @@ import { CaseStatusChip } from './case-status-chip';
   selector: 'ecl-case-page',
   imports: [
     DatePipe, DecimalPipe, RouterLink, MatButton, MatIcon, MatSlideToggle, DesignCaution, CaseKindLabel, CaseStatusChip,
-    CaseInputsPanel, CaseLoadsPanel,
+    CaseInputsPanel, CaseLoadsPanel, MatFormField, MatLabel, MatInput,
   ],
   templateUrl: './case-page.html',
   styleUrl: './case-page.css',
@@ -55,7 +57,7 @@ export class CasePage {
   });
   protected readonly actions = computed(() => {
     const c = this.current();
-    return c ? caseActions(c.status, this.role()) : new Set<CaseAction>();
+    return c ? caseActions(c, this.role()) : new Set<CaseAction>();
   });
   /** The deciding factors, built from the case's own record (the same words as its exports). */
   protected readonly factors = computed(() => {
@@ -124,6 +126,32 @@ export class CasePage {
         this.failure.set(apiErrorMessage(failure));
       },
     });
+  }
+
+  protected readonly commentText = signal('');
+
+  /** Adds the comment, or with `returning` sends the case back to its author with it. */
+  protected sendComment(c: CaseDetail, returning: boolean): void {
+    const text = this.commentText().trim();
+    if (text === '') {
+      this.failure.set(returning ? 'Write what the author should change before returning the case.' : 'Write the comment first.');
+      return;
+    }
+    this.busy.set(true);
+    this.failure.set(null);
+    const done = {
+      next: () => {
+        this.busy.set(false);
+        this.commentText.set('');
+        this.reload.update((n) => n + 1);
+      },
+      error: (failure: unknown) => {
+        this.busy.set(false);
+        this.failure.set(apiErrorMessage(failure));
+      },
+    };
+    if (returning) this.api.returnToAuthor(c.id, text).subscribe(done);
+    else this.api.comment(c.id, text).subscribe(done);
   }
 
   private review(c: CaseDetail, step: 'submit' | 'release'): void {
