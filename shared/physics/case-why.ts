@@ -40,7 +40,10 @@ export interface CaseFactor {
   key: CaseFactorKey;
   title: string;
   figure: string;
+  /** The sentence as stored and exported, sources in parentheses. */
   text: string;
+  /** The sentence without its sources, for the page (the sources are one click away). */
+  short?: string;
   sources: string[];
 }
 
@@ -97,7 +100,7 @@ function environmentFactor(r: CaseWhyRecord): CaseFactor[] {
   const text = byHand
     ? `${figure}: set by hand (the ${r.kind} pair was ${f(d.pair.albedo, 2)} with ${f(d.pair.olrWm2, 0)} W/m^2)`
     : `albedo ${f(c.albedo, 2)} with OLR ${f(c.olrWm2, 0)} W/m^2: the ${r.kind} pair`;
-  return [{ key: 'environment', title: 'Albedo and OLR', figure, text: byHand ? text : `${text} (${d.pair.source})`, sources: byHand ? [] : [d.pair.source] }];
+  return [{ key: 'environment', title: 'Albedo and OLR', figure, text: byHand ? text : `${text} (${d.pair.source})`, short: text, sources: byHand ? [] : [d.pair.source] }];
 }
 
 function propertyFactors(r: CaseWhyRecord): CaseFactor[] {
@@ -111,7 +114,8 @@ function propertyFactors(r: CaseWhyRecord): CaseFactor[] {
     const p = opticalProperties(m, set);
     return {
       key: 'properties', title: `${label} properties`, figure: `${m.name}: a ${f(p.absorptivity, 2)}, e ${f(p.emissivity, 2)}`,
-      text: `${label} absorptivity ${f(p.absorptivity, 2)} and emissivity ${f(p.emissivity, 2)} for ${m.name}${note} (${m.source})`, sources: [m.source],
+      text: `${label} absorptivity ${f(p.absorptivity, 2)} and emissivity ${f(p.emissivity, 2)} for ${m.name}${note} (${m.source})`,
+      short: `${label} absorptivity ${f(p.absorptivity, 2)} and emissivity ${f(p.emissivity, 2)} for ${m.name}${note}`, sources: [m.source],
     };
   });
 }
@@ -127,6 +131,7 @@ function marginFactor(r: CaseWhyRecord): CaseFactor[] {
     key: 'margins', title: 'Margins',
     figure: `${sign}${m.heatLoadPercent} %, ${m.temperatureMarginC} C`,
     text: `heat loads ${sign}${m.heatLoadPercent} % (${m.sources.heatLoadPercent}): ${f(r.results.total.orbitAverageWithMarginW)} W orbit-average with margin; temperature margin ${m.temperatureMarginC} C (${m.sources.temperatureMarginC})`,
+    short: `heat loads ${sign}${m.heatLoadPercent} %: ${f(r.results.total.orbitAverageWithMarginW)} W orbit-average with margin; temperature margin ${m.temperatureMarginC} C`,
     sources: [m.sources.heatLoadPercent, m.sources.temperatureMarginC],
   }];
 }

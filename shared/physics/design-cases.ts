@@ -203,6 +203,8 @@ export interface Derivation {
 }
 
 const SCAN_STEPS = 72;
+/** Days of the scan evaluated again with the case's steps before one is chosen. */
+const FINALISTS = 5;
 
 interface Evaluated {
   day: ScanDay;
@@ -252,15 +254,21 @@ function deriveOne(
     const env = environmentFor(base(day, SCAN_STEPS), SCAN_STEPS);
     return { day, env, total: env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0) };
   });
-  const chosen = maxBy(evaluated, (e) => sign * e.total);
   // Hot: the least eclipse (ties to the largest |beta|); cold: the longest eclipse (smallest |beta|).
   const eclipseExtreme = maxBy(evaluated, (e) => -sign * e.env.eclipseDurationS * 1e3 + sign * Math.abs(e.day.betaDeg) * 1e-3);
-  const conditions = base(chosen.day, input.steps ?? 120);
-  const results = evaluateCase(conditions, input.margins);
-
-  const extremeResults = chosen.day.date === eclipseExtreme.day.date || Math.abs(chosen.env.eclipseDurationS - eclipseExtreme.env.eclipseDurationS) < 1
-    ? null
-    : evaluateCase(base(eclipseExtreme.day, conditions.steps), input.margins);
+  // The scan's coarse orbit ranks the days; the best few and the eclipse extreme are evaluated as the
+  // case is (its steps), and the case is the best of those, so its words never call a day the
+  // largest (smallest) while quoting another that beats it.
+  const steps = input.steps ?? 120;
+  const finalists = [...evaluated].sort((a, b) => sign * (b.total - a.total)).slice(0, FINALISTS);
+  if (!finalists.includes(eclipseExtreme)) finalists.push(eclipseExtreme);
+  const scored = finalists.map((e) => ({ e, results: evaluateCase(base(e.day, steps), input.margins) }));
+  const best = maxBy(scored, (x) => sign * x.results.total.orbitAverageAbsorbedW);
+  const chosen = best.e;
+  const conditions = base(chosen.day, steps);
+  const results = best.results;
+  const extremeScored = scored.find((x) => x.e === eclipseExtreme)!;
+  const extremeResults = chosen === eclipseExtreme || Math.abs(results.eclipseDurationS - extremeScored.results.eclipseDurationS) < 1 ? null : extremeScored.results;
   const decision: CaseDecision = {
     sun: { basis: spansFullYear ? (hot ? 'perihelion' : 'aphelion') : 'mission', date: sunDay.date, distanceAu: distanceAu },
     day: { date: chosen.day.date, betaDeg: round(chosen.day.betaDeg, 4) },

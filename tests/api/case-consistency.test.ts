@@ -45,6 +45,9 @@ function expectWordsMatchRecord(c: { kind: Detail['kind']; inputs: CaseInputs; r
   const sign = c.kind === 'hot' ? '+' : '-';
   expect(text).toContain(`heat loads ${sign}${c.inputs.margins.heatLoadPercent} %`);
   expect(text).toContain(`${r.total.orbitAverageWithMarginW.toFixed(1)} W orbit-average with margin`);
+  // The day quoted as the shortest (hot) or longest (cold) eclipse never beats the case it is set against.
+  const x = c.inputs.decision!.eclipseExtreme;
+  if (x) expect((c.kind === 'hot' ? 1 : -1) * (r.total.orbitAverageAbsorbedW - x.orbitAverageAbsorbedW)).toBeGreaterThanOrEqual(0);
   // The Sun distance is named with its own day, which the decision records.
   expect(text).toContain(c.inputs.decision!.sun.date);
   // The per-surface words of the case's own day quote the case's surface loads.
@@ -64,6 +67,13 @@ describe('a case derived, edited and released says the same everywhere', () => {
   it('derives hot and cold cases whose "why" quotes their own results', () => {
     expect(cases.map((c) => c.kind)).toEqual(['hot', 'cold']);
     for (const c of cases) expectWordsMatchRecord(c);
+  });
+
+  it('holds on the sun-synchronous orbit too, where the scan\'s coarse ranking and the case\'s own figures once disagreed', async () => {
+    const m = t.ctx.sqlite.prepare("SELECT id FROM missions WHERE name = 'Kestrel-1 imaging smallsat'").get() as { id: string };
+    const o = t.ctx.sqlite.prepare("SELECT id FROM orbits WHERE mission_id = ? AND name = 'Operational SSO 540 km'").get(m.id) as { id: string };
+    const sso: Detail[] = (await thermal.post(`/api/v1/missions/${m.id}/cases/derive`).send({ orbitId: o.id, name: 'Consistency SSO' }).expect(201)).body.items;
+    for (const c of sso) expectWordsMatchRecord(c);
   });
 
   it('changes every sentence with the margin (25 % -> 30 %), and the released exports carry the same words and figures', async () => {
