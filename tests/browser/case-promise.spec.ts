@@ -3,29 +3,10 @@
 // revision, compare and the exports — with the "why" quoting the case's own figures throughout.
 import { readFile } from 'node:fs/promises';
 import { parse as parseCsv } from 'csv-parse/sync';
-import { expect, test, type Browser, type Page } from '@playwright/test';
-import { dialogReady, screenshot, signIn } from './session';
+import { expect, test } from '@playwright/test';
+import { api, as, dialogReady, screenshot } from './session';
 
 const mission = 'Kestrel-1 imaging smallsat';
-
-async function as(browser: Browser, email: string): Promise<Page> {
-  const page = await browser.newPage();
-  await signIn(page, email);
-  return page;
-}
-
-function api(page: Page) {
-  const origin = new URL(page.url()).origin;
-  const headers = { Origin: origin };
-  return {
-    get: async (path: string) => (await page.request.get(`${origin}/api/v1${path}`, { headers })).json() as Promise<Record<string, unknown>>,
-    send: async (method: 'post' | 'patch', path: string, data: object = {}) => {
-      const res = await page.request[method](`${origin}/api/v1${path}`, { headers, data });
-      expect(res.ok(), await res.text()).toBe(true);
-      return (await res.json()) as Record<string, unknown>;
-    },
-  };
-}
 
 test('derive, edit the margin, review with a comment, return, fix, release, revise, compare and export', async ({ browser }) => {
   test.setTimeout(120_000);

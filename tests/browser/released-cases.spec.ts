@@ -2,30 +2,10 @@
 // which cases keep it (and offered to archive it), other roles see no Delete; and a thermal
 // engineer whose draft was changed by someone else while he edited it gets a readable conflict and
 // can load the latest.
-import { expect, test, type Browser, type Page } from '@playwright/test';
-import { dialogReady, screenshot, signIn } from './session';
+import { expect, test, type Page } from '@playwright/test';
+import { api, as, dialogReady, screenshot } from './session';
 
 const mission = 'Kestrel-1 imaging smallsat';
-
-async function as(browser: Browser, email: string): Promise<Page> {
-  const page = await browser.newPage();
-  await signIn(page, email);
-  return page;
-}
-
-/** Same-origin API calls with the page's session (the Origin header as the app's own pages send it). */
-function api(page: Page) {
-  const origin = new URL(page.url()).origin;
-  const headers = { Origin: origin };
-  return {
-    get: async (path: string) => (await page.request.get(`${origin}/api/v1${path}`, { headers })).json() as Promise<Record<string, unknown>>,
-    send: async (method: 'post' | 'patch', path: string, data: object = {}) => {
-      const res = await page.request[method](`${origin}/api/v1${path}`, { headers, data });
-      expect(res.ok(), await res.text()).toBe(true);
-      return (await res.json()) as Record<string, unknown>;
-    },
-  };
-}
 
 async function openMission(page: Page): Promise<void> {
   await page.getByRole('link', { name: mission, exact: true }).click();

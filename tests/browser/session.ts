@@ -1,5 +1,5 @@
 // Shared steps of the browser tests: signing in through the real sign-in page.
-import { expect, type Page } from '@playwright/test';
+import { expect, type Browser, type Page } from '@playwright/test';
 
 export const demoPassword = process.env['ECLIPTA_DEMO_PASSWORD'] ?? 'eclipta-demo';
 
@@ -23,4 +23,25 @@ export async function screenshot(page: Page, name: string): Promise<void> {
 export async function dialogReady(page: Page): Promise<void> {
   await expect(page.locator('mat-dialog-container').last()).toBeVisible();
   await expect(page.locator('mat-dialog-container').last().locator(':focus')).toHaveCount(1);
+}
+
+/** A new page signed in as `email`. */
+export async function as(browser: Browser, email: string): Promise<Page> {
+  const page = await browser.newPage();
+  await signIn(page, email);
+  return page;
+}
+
+/** Same-origin API calls with the page's session (the Origin header as the app's own pages send it). */
+export function api(page: Page) {
+  const origin = new URL(page.url()).origin;
+  const headers = { Origin: origin };
+  return {
+    get: async (path: string) => (await page.request.get(`${origin}/api/v1${path}`, { headers })).json() as Promise<Record<string, unknown>>,
+    send: async (method: 'post' | 'patch', path: string, data: object = {}) => {
+      const res = await page.request[method](`${origin}/api/v1${path}`, { headers, data });
+      expect(res.ok(), await res.text()).toBe(true);
+      return (await res.json()) as Record<string, unknown>;
+    },
+  };
 }
