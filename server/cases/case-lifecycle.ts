@@ -2,15 +2,15 @@
 // new revisions, and the subscribers' e-mail when a release supersedes the one they use.
 // Every change and its audit event share one transaction; a released revision never changes.
 import { and, desc, eq, max, sql } from 'drizzle-orm';
-import type { CaseUpdateParsed } from '../../shared/api/cases';
+import type { CaseRevisionParsed, CaseUpdateParsed } from '../../shared/api/cases';
 import type { CaseInputs } from '../../shared/api/case-content';
-import { withRationale } from './case-derivation';
+import { derivedCaseValues, withRationale } from './case-derivation';
 import { evaluateCase } from '../../shared/physics/design-cases';
 import { resolveMargins } from '../../shared/physics/design-environment';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import type { Tx } from '../db/database';
-import { auditEvents, caseComments, caseSubscriptions, loadCases, users, type CaseCommentRow, type LoadCaseRow, type UserRow } from '../db/schema';
+import { auditEvents, caseComments, caseSubscriptions, loadCases, missions, users, type CaseCommentRow, type LoadCaseRow, type UserRow } from '../db/schema';
 import { ApiError, conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
@@ -204,22 +204,48 @@ async function notifySubscribers(ctx: AppContext, released: LoadCaseRow, previou
   }
 }
 
-/** Starts a new draft revision from a released (or superseded) one, with the same inputs. */
-export function newRevision(ctx: AppContext, user: UserRow, row: LoadCaseRow): LoadCaseRow {
+/**
+ * Starts a new draft revision from a released (or superseded) one: the same inputs, or with
+ * `fromCurrentInputs` a hot or cold case derived again from the mission as it is now (same orbit,
+ * steps and margins); the reason is kept in its inputs (history, compare, exports, mail).
+ */
+export function newRevision(ctx: AppContext, user: UserRow, row: LoadCaseRow, request: CaseRevisionParsed = { fromCurrentInputs: false }): LoadCaseRow {
   requireStatus(row, ['released', 'superseded'], 'revised');
+  const fresh = request.fromCurrentInputs ? derivedAgain(ctx, row) : { inputs: row.inputs, results: row.results };
+  const { revisionReason: _previousReason, ...kept } = fresh.inputs;
+  const inputs: CaseInputs = request.reason ? { ...kept, revisionReason: request.reason } : kept;
   return ctx.db.transaction((tx) => {
     const top = tx.select({ n: max(loadCases.revision) }).from(loadCases).where(eq(loadCases.seriesId, row.seriesId)).get();
     const created = tx
       .insert(loadCases)
       .values({
         missionId: row.missionId, workspaceId: row.workspaceId, seriesId: row.seriesId, revision: (top?.n ?? row.revision) + 1,
-        name: row.name, kind: row.kind, status: 'draft', inputs: row.inputs, results: row.results, authorId: user.id,
+        name: row.name, kind: row.kind, status: 'draft', inputs, results: fresh.results, authorId: user.id,
       })
       .returning()
       .get();
-    audit(tx, created, user, 'case.revised', `Started ${label(created)} from revision ${row.revision}.`);
+    const how = request.fromCurrentInputs ? ', derived again from the current mission inputs' : '';
+    audit(tx, created, user, 'case.revised', `Started ${label(created)} from revision ${row.revision}${how}${request.reason ? `: "${excerpt(request.reason)}"` : ''}.`);
     return created;
   });
+}
+
+/** The hot or cold case of the revision's orbit, derived from the mission's current inputs with its steps and margins. */
+function derivedAgain(ctx: AppContext, row: LoadCaseRow): Pick<LoadCaseRow, 'inputs' | 'results'> {
+  const i = row.inputs;
+  const mission = ctx.db.select().from(missions).where(eq(missions.id, row.missionId)).get();
+  if (row.kind === 'custom' || !i.orbit.id || i.ephemeris || !mission) {
+    throw unprocessable(`The case ${label(row)} is a custom case or was computed along an ephemeris: make a new one from the current inputs instead.`, [
+      { path: 'fromCurrentInputs', message: `only a derived hot or cold case is derived again (this one is ${row.kind})` },
+    ]);
+  }
+  const values = derivedCaseValues(ctx.db, mission, {
+    orbitId: i.orbit.id, steps: i.conditions.steps,
+    margins: { heatLoadPercent: i.margins.heatLoadPercent, temperatureMarginC: i.margins.temperatureMarginC },
+    properties: { hot: i.conditions.properties, cold: i.conditions.properties },
+  });
+  const again = values.find((v) => v.kind === row.kind)!;
+  return { inputs: again.inputs, results: again.results };
 }
 
 export function setSubscription(ctx: AppContext, user: UserRow, row: LoadCaseRow, on: boolean): void {

@@ -23,6 +23,7 @@ export function caseReleasedMail(opts: {
   const lines = [
     `Revision ${row.revision} of the ${row.kind} load case "${name}" (mission "${withoutControls(row.inputs.mission.name)}") was released at ${row.releasedAt ?? ''}.`,
     `Checksum (sha256): ${row.checksum ?? ''}`,
+    ...(row.inputs.revisionReason ? [`Reason for this revision: ${withoutControls(row.inputs.revisionReason)}`] : []),
     '',
   ];
   if (previous && differences) {

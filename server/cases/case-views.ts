@@ -9,6 +9,7 @@ import type { AppContext } from '../app-context';
 import type { Db } from '../db/database';
 import { caseComments, caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
 import { caseEditors, visibleToViewer } from './case-access';
+import { inputChanges } from './case-currency';
 
 export { cautionFor, cautionText, crewedCaution } from '../../shared/api/caution';
 import { cautionFor } from '../../shared/api/caution';
@@ -32,6 +33,7 @@ export function toSummary(db: Db, row: LoadCaseRow): CaseSummary {
     author: personOf(db, row.authorId), releasedBy: personOf(db, row.releasedBy), releasedAt: row.releasedAt,
     orbitAverageAbsorbedW: row.results.total.orbitAverageAbsorbedW, betaDeg: row.results.betaDeg,
     version: row.version, createdAt: row.createdAt, updatedAt: row.updatedAt,
+    inputsChanged: row.status !== 'superseded' && inputChanges(db, row).length > 0,
   };
 }
 
@@ -84,6 +86,7 @@ export function toDetail(db: Db, row: LoadCaseRow, userId: string): CaseDetail {
     subscribed: isSubscribed(db, row.seriesId, userId),
     actions: caseActionsFor(row, memberRole(db, userId, row.workspaceId), userId),
     comments: commentsOf(db, row.seriesId),
+    inputChanges: inputChanges(db, row),
     caution: cautionFor(row.inputs.mission.crewed),
     inputs: row.inputs,
     results: row.results,
@@ -109,6 +112,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
         name: loadCases.name, kind: loadCases.kind, status: loadCases.status, revision: loadCases.revision, checksum: loadCases.checksum,
         authorId: loadCases.authorId, releasedBy: loadCases.releasedBy, releasedAt: loadCases.releasedAt,
         version: loadCases.version, createdAt: loadCases.createdAt, updatedAt: loadCases.updatedAt,
+        inputs: loadCases.inputs,
       },
       // Read out of the JSON in SQL so a list does not parse every case's time series.
       orbitAverageAbsorbedW: sql<number>`json_extract(${loadCases.results}, '$.total.orbitAverageAbsorbedW')`,
@@ -135,6 +139,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
       name: r.c.name, kind: r.c.kind, status: r.c.status, revision: r.c.revision, checksum: r.c.checksum,
       author: person(r.c.authorId), releasedBy: person(r.c.releasedBy), releasedAt: r.c.releasedAt,
       orbitAverageAbsorbedW: Number(r.orbitAverageAbsorbedW), betaDeg: Number(r.betaDeg),
+      inputsChanged: r.c.status !== 'superseded' && inputChanges(ctx.db, r.c).length > 0,
       version: r.c.version, createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
     }));
 }

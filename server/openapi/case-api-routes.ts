@@ -1,7 +1,7 @@
 // Load cases and the documents that describe the API (shared/api/cases.ts).
 import { z } from 'zod';
 import {
-  caseComment, caseCommentCreate, caseCompareQuery, caseComparison, caseCreate, caseDerive, caseDetail, caseExport, caseExportQuery, caseList, caseListQuery, caseUpdate,
+  caseComment, caseCommentCreate, caseCompareQuery, caseComparison, caseRevisionCreate, caseCreate, caseDerive, caseDetail, caseExport, caseExportQuery, caseList, caseListQuery, caseUpdate,
   derivedCases, subscriptionState,
 } from '../../shared/api/cases';
 import type { ApiRoute } from './api-route';
@@ -20,7 +20,7 @@ export const caseApiRoutes: ApiRoute[] = [
   { method: 'post', path: `${c}/release`, tag: 'cases', summary: 'Release a case in review: a thermal engineer or owner other than its author', response: caseDetail },
   { method: 'post', path: `${c}/return`, tag: 'cases', summary: 'Return a case in review to its author as a draft, with a comment kept in its history: a thermal engineer or owner other than its author', body: caseCommentCreate, response: caseDetail },
   { method: 'post', path: `${c}/comments`, tag: 'cases', summary: `Comment on a draft or a case in review ${editors}`, body: caseCommentCreate, status: 201, response: caseComment },
-  { method: 'post', path: `${c}/revisions`, tag: 'cases', summary: `Start a new draft revision from a released one ${editors}`, status: 201, response: caseDetail },
+  { method: 'post', path: `${c}/revisions`, tag: 'cases', summary: `Start a new draft revision from a released one, with its reason; fromCurrentInputs derives a hot or cold case again from the mission as it is now ${editors}`, body: caseRevisionCreate, status: 201, response: caseDetail },
   { method: 'get', path: `${c}/compare`, tag: 'cases', summary: 'Two revisions side by side: inputs and per-surface orbit averages', query: caseCompareQuery, response: caseComparison },
   { method: 'post', path: `${c}/subscription`, tag: 'cases', summary: 'Follow the case: mail on every new release', response: subscriptionState },
   { method: 'delete', path: `${c}/subscription`, tag: 'cases', summary: 'Stop following the case', response: subscriptionState },

@@ -1,7 +1,7 @@
 // cases: load cases of a mission (shared/api/cases.ts), and the documents that describe the API:
 // the JSON Schema of a case export and the OpenAPI description of every route.
 import { Router } from 'express';
-import { caseCommentCreate, caseCompareQuery, caseCreate, caseDerive, caseExportQuery, caseListQuery, caseUpdate } from '../../shared/api/cases';
+import { caseCommentCreate, caseCompareQuery, caseCreate, caseRevisionCreate, caseDerive, caseExportQuery, caseListQuery, caseUpdate } from '../../shared/api/cases';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import { requireUser, signedIn } from '../auth/middleware';
@@ -77,7 +77,8 @@ export function caseRoutes(ctx: AppContext): Router {
 
   router.post('/cases/:id/revisions', requireUser, (req, res) => {
     const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
-    res.status(201).json(toDetail(ctx.db, newRevision(ctx, me(req), row), me(req).id));
+    const request = parse(caseRevisionCreate, req.body ?? {});
+    res.status(201).json(toDetail(ctx.db, newRevision(ctx, me(req), row, request), me(req).id));
   });
 
   router.get('/cases/:id/compare', requireUser, (req, res) => {

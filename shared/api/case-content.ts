@@ -128,6 +128,7 @@ export const caseInputs = z.object({
   decision: caseDecision.optional().describe('hot and cold cases: what the derivation decided; the rationale lines are built from it, the conditions and the results'),
   facts: z.array(z.string()).optional().describe('custom cases and cases from an ephemeris: how the case was set up, the rationale lines before the margins'),
   handEdited: z.array(z.string()).optional().describe('condition keys changed by hand since the case was made'),
+  revisionReason: z.string().optional().describe('why this revision was made, as its author gave it'),
   /** Set when the case was computed along a window of an uploaded ephemeris rather than a Keplerian orbit. */
   ephemeris: z
     .object({

@@ -51,6 +51,12 @@ export const caseDerive = z.strictObject({
   steps: steps.default(120),
 });
 
+/** A new revision: why it is made (shown in history, compare, exports and mail), and whether it is derived again from the mission's current inputs. */
+export const caseRevisionCreate = z.strictObject({
+  reason: lineText(500, 'a reason has at most 500 characters').min(1, 'say why this revision is made').optional(),
+  fromCurrentInputs: z.boolean().default(false),
+});
+
 export const caseCreate = z.strictObject({
   orbitId: z.string().min(1, 'choose an orbit').max(64),
   name,
@@ -145,6 +151,8 @@ export const caseSummary = z.object({
   version: z.number().int(),
   createdAt: z.string(),
   updatedAt: z.string(),
+  /** True when the mission's inputs (surfaces, materials, orbit, body, dates) changed since this revision was made (not said of superseded revisions). */
+  inputsChanged: z.boolean(),
 });
 
 export const caseActionNames = ['edit', 'submit', 'release', 'return', 'comment', 'newRevision'] as const;
@@ -171,6 +179,8 @@ export const caseDetail = caseSummary.extend({
   actions: z.array(z.enum(caseActionNames)),
   /** The review conversation of every revision of the case, oldest first. */
   comments: z.array(caseComment),
+  /** What changed in the mission (surfaces, materials, orbit, body constants, dates) since this revision was made; empty when current. */
+  inputChanges: z.array(z.string()),
   caution: z.string(),
   inputs: caseInputs,
   results: caseResultsContent,
@@ -239,6 +249,7 @@ export type CaseCreate = z.input<typeof caseCreate>;
 export type CaseDeriveParsed = z.output<typeof caseDerive>;
 export type CaseCreateParsed = z.output<typeof caseCreate>;
 export type CaseUpdateParsed = z.output<typeof caseUpdate>;
+export type CaseRevisionParsed = z.output<typeof caseRevisionCreate>;
 export type CaseUpdate = z.input<typeof caseUpdate>;
 export type CaseSummary = z.infer<typeof caseSummary>;
 export type CaseDetail = z.infer<typeof caseDetail>;

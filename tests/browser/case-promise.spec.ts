@@ -78,8 +78,17 @@ test('derive, edit the margin, review with a comment, return, fix, release, revi
   await expect(owner.getByTestId('case-status')).toContainText(/released/i);
   await screenshot(owner, 'case-promise-reviewer-released');
 
-  // A new revision, released, then compared with the first.
-  const rev2 = await api(thermal).send('post', `/cases/${hotId}/revisions`);
+  // The author starts a new revision with its reason, on the page; it is released, then compared with the first.
+  await thermal.reload();
+  await thermal.getByTestId('case-new-revision').click();
+  await thermal.getByTestId('case-revision-start').click();
+  await expect(thermal.getByTestId('case-error')).toContainText('Say why this revision is made');
+  await thermal.getByTestId('case-revision-reason').fill('Systems asked for a 40 % heat-load margin');
+  await thermal.getByTestId('case-revision-start').click();
+  await expect(thermal.getByTestId('case-revision')).toContainText('Revision 2');
+  await expect(thermal.getByTestId('case-revision-reason-shown')).toContainText('Systems asked for a 40 % heat-load margin');
+  await screenshot(thermal, 'case-promise-author-new-revision');
+  const rev2 = await api(thermal).get(`/cases/${thermal.url().split('/').pop()!}`);
   await api(thermal).send('patch', `/cases/${String(rev2.id)}`, { version: rev2.version, margins: { heatLoadPercent: 40 } });
   await api(thermal).send('post', `/cases/${String(rev2.id)}/submit`);
   await api(owner).send('post', `/cases/${String(rev2.id)}/release`);

@@ -57,8 +57,9 @@ export class CaseApi {
     return this.http.post<CaseDetail>(apiPath('cases', caseId, 'release'), {});
   }
 
-  newRevision(caseId: string): Observable<CaseDetail> {
-    return this.http.post<CaseDetail>(apiPath('cases', caseId, 'revisions'), {});
+  /** A new draft revision with its reason; `fromCurrentInputs` derives it again from the mission as it is now. */
+  newRevision(caseId: string, reason: string, fromCurrentInputs = false): Observable<CaseDetail> {
+    return this.http.post<CaseDetail>(apiPath('cases', caseId, 'revisions'), { reason, fromCurrentInputs });
   }
 
   compare(caseId: string, otherId: string): Observable<CaseComparison> {

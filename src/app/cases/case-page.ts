@@ -4,6 +4,7 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatCheckbox } from '@angular/material/checkbox';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatSlideToggle } from '@angular/material/slide-toggle';
@@ -31,7 +32,7 @@ import { CaseStatusChip } from './case-status-chip';
   selector: 'ecl-case-page',
   imports: [
     DatePipe, DecimalPipe, RouterLink, MatButton, MatIcon, MatSlideToggle, DesignCaution, CaseKindLabel, CaseStatusChip,
-    CaseInputsPanel, CaseLoadsPanel, MatFormField, MatLabel, MatInput,
+    CaseInputsPanel, CaseLoadsPanel, MatFormField, MatLabel, MatInput, MatCheckbox,
   ],
   templateUrl: './case-page.html',
   styleUrl: './case-page.css',
@@ -93,12 +94,24 @@ export class CasePage {
     this.review(c, 'release');
   }
 
+  /** The new-revision form: open, its reason, and whether to derive from the current inputs. */
+  protected readonly revising = signal(false);
+  protected readonly revisionReason = signal('');
+  protected readonly fromCurrent = linkedSignal(() => (this.current()?.inputChanges.length ?? 0) > 0 && this.current()?.kind !== 'custom');
+
   protected startRevision(c: CaseDetail): void {
+    const reason = this.revisionReason().trim();
+    if (reason === '') {
+      this.failure.set('Say why this revision is made: it is shown in the history, the comparison, the exports and the mail.');
+      return;
+    }
     this.busy.set(true);
     this.failure.set(null);
-    this.api.newRevision(c.id).subscribe({
+    this.api.newRevision(c.id, reason, this.fromCurrent()).subscribe({
       next: (draft) => {
         this.busy.set(false);
+        this.revising.set(false);
+        this.revisionReason.set('');
         void this.router.navigate(['/w', this.workspaceId(), 'cases', draft.id]);
       },
       error: (failure: unknown) => {
