@@ -203,7 +203,10 @@ export function surfaceDifferences(a: CaseResultsContent, b: CaseResultsContent)
   });
 }
 
-export function compareCases(db: Db, a: LoadCaseRow, b: LoadCaseRow): CaseComparison {
+/** Two cases side by side, the older as A and the newer as B, so every difference is new − old. */
+export function compareCases(db: Db, first: LoadCaseRow, second: LoadCaseRow): CaseComparison {
+  const newer = (x: LoadCaseRow, y: LoadCaseRow) => (x.seriesId === y.seriesId ? x.revision > y.revision : x.createdAt > y.createdAt);
+  const [a, b] = newer(first, second) ? [second, first] : [first, second];
   const fa = new Map<string, Scalar>();
   const fb = new Map<string, Scalar>();
   flatten(a.inputs, '', fa);

@@ -163,6 +163,9 @@ describe('a case from draft to release', () => {
     const res = await viewer.get(`/api/v1/cases/${hot.id}/compare?with=${rev2.id}`).expect(200);
     const beta = (res.body.inputs as { path: string; a: unknown; b: unknown; changed: boolean }[]).find((i) => i.path === 'conditions.betaDeg');
     expect(beta).toEqual({ path: 'conditions.betaDeg', a: 30, b: 60, changed: true });
+    // Asked the other way round, A is still the older revision: differences are new - old.
+    const reversed = await viewer.get(`/api/v1/cases/${rev2.id}/compare?with=${hot.id}`).expect(200);
+    expect([reversed.body.a.revision, reversed.body.b.revision]).toEqual([1, 2]);
     const s = res.body.surfaces[0];
     expect(s.absorbedW.difference).toBeCloseTo(s.absorbedW.b - s.absorbedW.a, 3);
   });

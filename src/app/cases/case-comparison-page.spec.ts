@@ -21,9 +21,10 @@ describe('comparisonRows', () => {
   it('splits the inputs into changed and unchanged, with the difference in the unit', () => {
     const rows = comparisonRows(comparison);
     expect(rows.changedInputs.map((r) => [r.label, r.a, r.b, r.difference?.absolute, r.difference?.percent])).toEqual([
-      ['margins.heatLoadPercent', '25.0 %', '30.0 %', '+5.0 %', '+20.0 %'],
+      // a percentage differs in percentage points (common practice, no source)
+      ['Heat-load margin', '25.0 %', '30.0 %', '+5.0 percentage points', ''],
     ]);
-    expect(rows.sameInputs.map((r) => r.label)).toEqual(['conditions.properties']);
+    expect(rows.sameInputs.map((r) => r.label)).toEqual(['Property set']);
   });
 
   it('marks a fall in a surface load as changed and a surface missing from one case as such', () => {

@@ -9,7 +9,7 @@ import type { CaseComparison } from '../../../shared/api/cases';
 import { loaded } from '../api/loaded';
 import { DesignCaution } from '../shell/design-caution';
 import { CaseApi } from './case-api';
-import { formatDifference, formatInputValue, formatQuantity, inputDifference, type Compared, type DifferenceText } from './case-differences';
+import { formatDifference, formatInputValue, formatQuantity, inputDifference, type Compared, type DifferenceText, derivedPath, labelOfPath } from './case-differences';
 import { CaseKindLabel } from './case-kind-label';
 import { CaseStatusChip } from './case-status-chip';
 
@@ -51,10 +51,10 @@ const diff = (a: number | undefined, b: number | undefined): Compared | null =>
   a === undefined || b === undefined ? null : { a, b, difference: b - a };
 
 export function comparisonRows(c: CaseComparison, margined: MarginedResults | null = null): { changedInputs: Row[]; sameInputs: Row[]; surfaces: { name: string; rows: Row[] }[]; totals: Row[] } {
-  const inputs = c.inputs.map((i): Row => {
+  const inputs = c.inputs.filter((i) => !derivedPath(i.path)).map((i): Row => {
     const difference = inputDifference(i.path, i.a, i.b);
     const numeric = typeof i.a === 'number' || typeof i.b === 'number';
-    return { label: i.path, a: formatInputValue(i.path, i.a), b: formatInputValue(i.path, i.b), difference, changed: i.changed, numeric };
+    return { label: labelOfPath(i.path), a: formatInputValue(i.path, i.a), b: formatInputValue(i.path, i.b), difference, changed: i.changed, numeric };
   });
   const withMargin = (name: string): Row[] => {
     if (margined === null) return [];

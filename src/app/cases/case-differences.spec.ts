@@ -1,4 +1,4 @@
-import { formatDifference, formatInputValue, inputDifference, unitOfPath } from './case-differences';
+import { formatDifference, formatInputValue, inputDifference, labelOfPath, unitOfPath } from './case-differences';
 
 describe('formatDifference', () => {
   it('signs a rise with + and a fall with a true minus, in the unit and in percent of A', () => {
@@ -42,7 +42,16 @@ describe('input values', () => {
   it('writes numbers with their unit and differences only between numbers', () => {
     expect(formatInputValue('conditions.betaDeg', 21.456)).toBe('21.46 deg');
     expect(formatInputValue('conditions.properties', 'eol')).toBe('eol');
-    expect(inputDifference('margins.heatLoadPercent', 25, 30)?.absolute).toBe('+5.0 %');
+    expect(inputDifference('margins.heatLoadPercent', 25, 30)?.absolute).toBe('+5.0 percentage points');
     expect(inputDifference('conditions.properties', 'bol', 'eol')).toBeNull();
+  });
+});
+
+describe('labelOfPath', () => {
+  it('names inputs in words, never as field paths (issue 15 item 4)', () => {
+    expect(labelOfPath('margins.heatLoadPercent')).toBe('Heat-load margin');
+    expect(labelOfPath('conditions.surfaces[1].areaM2')).toBe('Surface 2 area');
+    expect(labelOfPath('conditions.surfaces[0].material.absorptivityEol')).toBe('Surface 1 material EOL absorptivity');
+    expect(labelOfPath('body.gmKm3S2')).not.toMatch(/\./);
   });
 });

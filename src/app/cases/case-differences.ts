@@ -69,11 +69,15 @@ export function formatQuantity(value: number, unit: string): string {
   return withUnit(formatNumber(value, decimalsFor(unit)), unit);
 }
 
-/** A difference in its unit and in percent of case A; percent is "n/a" when A is zero. */
+/**
+ * A difference in its unit and in percent of case A; percent is "n/a" when A is zero. A quantity
+ * that is itself a percentage differs in percentage points ("+5.0 pp"), never in "%".
+ */
 export function formatDifference(compared: Compared, unit: string, decimals = decimalsFor(unit)): DifferenceText {
   const { a, b, difference } = compared;
   const changed = Math.abs(difference) > 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
   const d = changed ? difference : 0;
+  if (unit === '%') return { absolute: `${formatSigned(d, decimals)} percentage points`, percent: '', changed };
   const percent = a === 0 ? (changed ? 'n/a (A is 0)' : '0.0 %') : `${formatSigned((d / Math.abs(a)) * 100, 1)} %`;
   return { absolute: withUnit(formatSigned(d, decimals), unit), percent, changed };
 }
@@ -92,3 +96,64 @@ export function inputDifference(path: string, a: unknown, b: unknown): Differenc
   if (typeof a !== 'number' || typeof b !== 'number') return null;
   return formatDifference({ a, b, difference: b - a }, unitOfPath(path));
 }
+
+// Input paths in words (the comparison never shows a field path). Exact paths first, then the
+// last field's name for paths under a list (a surface's area, a material's absorptivity).
+const PATH_LABELS: Readonly<Record<string, string>> = {
+  'margins.heatLoadPercent': 'Heat-load margin',
+  'margins.temperatureMarginC': 'Temperature margin',
+  'margins.sources.heatLoadPercent': 'Heat-load margin source',
+  'margins.sources.temperatureMarginC': 'Temperature margin source',
+  'conditions.date': 'Date of the beta angle',
+  'conditions.betaDeg': 'Beta angle',
+  'conditions.solarDistanceAu': 'Distance from the Sun',
+  'conditions.albedo': 'Albedo',
+  'conditions.olrWm2': 'OLR',
+  'conditions.properties': 'Property set',
+  'conditions.steps': 'Time steps per orbit',
+  'conditions.marginDirection': 'Margin direction',
+  'conditions.orbitEpoch': 'Orbit epoch',
+  revisionReason: 'Reason for the revision',
+  attitude: 'Attitude',
+  environmentSource: 'Albedo and OLR source',
+  provisional: 'Provisional values',
+  'orbit.name': 'Orbit',
+  'orbit.epoch': 'Orbit epoch',
+  'orbit.periapsisAltitudeKm': 'Periapsis altitude',
+  'orbit.apoapsisAltitudeKm': 'Apoapsis altitude',
+  'orbit.semiMajorAxisKm': 'Semi-major axis',
+  'orbit.eccentricity': 'Eccentricity',
+  'orbit.periodS': 'Orbital period',
+  'orbit.inclinationDeg': 'Inclination',
+  'orbit.raanDeg': 'RAAN',
+  'orbit.argPeriapsisDeg': 'Argument of periapsis',
+  'mission.name': 'Mission',
+  'mission.startDate': 'Mission start',
+  'mission.endDate': 'Mission end',
+};
+
+const FIELD_WORDS: Readonly<Record<string, string>> = {
+  areaM2: 'area', name: 'name', absorptivityBol: 'BOL absorptivity', emissivityBol: 'BOL emissivity',
+  absorptivityEol: 'EOL absorptivity', emissivityEol: 'EOL emissivity', source: 'source', x: 'normal x', y: 'normal y', z: 'normal z',
+  normal: 'pointing', semiMajorAxisKm: 'semi-major axis', eccentricity: 'eccentricity', inclinationDeg: 'inclination',
+  raanDeg: 'RAAN', argPeriapsisDeg: 'argument of periapsis',
+};
+
+/** A comparison row's label in words: "Heat-load margin", "Surface 2 area", "Surface 1 material BOL absorptivity". */
+export function labelOfPath(path: string): string {
+  const exact = PATH_LABELS[path];
+  if (exact) return exact;
+  const surface = /^conditions\.surfaces\[(\d+)\]\.(material\.)?(\w+)(?:\.(\w+))?$/.exec(path);
+  if (surface) {
+    const [, index, material, field, sub] = surface;
+    const words = FIELD_WORDS[sub ?? field!] ?? (sub ?? field!);
+    return `Surface ${Number(index) + 1}${material ? ' material' : ''} ${words}`;
+  }
+  const last = path.split(/[.[\]]/).filter((p) => p !== '');
+  const field = last.at(-1) ?? path;
+  const words = FIELD_WORDS[field] ?? field.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
+  return `${last[0] === 'body' ? 'Body ' : last[0] === 'conditions' && last[1] === 'orbit' ? 'Orbit ' : ''}${words}`.replace(/^./, (c) => c.toUpperCase());
+}
+
+/** Inputs a comparison leaves out: the "why" sentences are built from the other inputs and the results, so they differ when those do. */
+export const derivedPath = (path: string): boolean => /^(rationale|surfaceDrivers|decision|facts|handEdited|assumptions)\b/.test(path);
