@@ -68,7 +68,7 @@ function sunFactor(r: CaseWhyRecord): CaseFactor[] {
     d.sun.basis === 'mission'
       ? `the ${r.kind === 'hot' ? 'closest' : 'farthest'} the mission comes to the Sun, reached ${d.sun.date}`
       : `${d.sun.basis} of ${r.bodyName}'s orbit (a(1 ${d.sun.basis === 'perihelion' ? '-' : '+'} e)), the mission comes nearest to it on ${d.sun.date}`;
-  const combined = d.sun.date === c.date ? '' : `; combined with the beta of ${c.date} (worst distance and worst beta on different days, conservative)`;
+  const combined = d.sun.date === c.date ? '' : `; combined with the beta of ${c.date}: worst distance and worst beta on different days, conservative`;
   return [{ key: 'sun', title: 'Sun distance', figure: `${f(c.solarDistanceAu, 4)} AU (${d.sun.date})`, text: `${flux} (${where}${combined})`, sources: ['TSI 1361 W/m^2 at 1 AU, inverse square', 'VSOP87 for the Sun distance by date'] }];
 }
 

@@ -106,6 +106,10 @@ test('derive, edit the margin, review with a comment, return, fix, release, revi
   await viewer.getByRole('option').filter({ hasText: /Promise walk hot .*revision 1\b/ }).first().click();
   await viewer.getByTestId('compare-go').click();
   await expect(viewer).toHaveURL(/compare/);
+  // Revision 1 (35 %) is A, revision 2 (40 %) is B: new − old, in percentage points, labelled in words.
+  const marginRow = viewer.getByRole('row').filter({ hasText: 'Heat-load margin' }).first();
+  await expect(marginRow).toContainText('+5.0 percentage points');
+  await expect(viewer.getByText('margins.heatLoadPercent')).toHaveCount(0);
   await screenshot(viewer, 'case-promise-compare');
 
   await viewer.goto(`/w/${workspaceId}/cases/${String(rev2.id)}`);
