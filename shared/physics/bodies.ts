@@ -4,7 +4,7 @@
 // Leaves out: higher zonal harmonics, prime meridians (no body-fixed frames are needed), rings, and
 // any spatial map of albedo or IR. Sources are named per value in `sources`; "from memory" marks a
 // value recalled from the named publication and not re-read here.
-import { SOLAR_CONSTANT_WM2, STEFAN_BOLTZMANN } from './constants';
+import { AU_KM, SOLAR_CONSTANT_WM2, STEFAN_BOLTZMANN } from './constants';
 import { PhysicsError } from './physics-error';
 
 export const bodyIds = [
@@ -37,12 +37,31 @@ export interface PoleModel {
   terms: readonly PoleTerm[];
 }
 
+/** Which published theory places a moon about its planet (moon-ephemeris.ts). */
+export type MoonTheory = 'meeus-moon' | 'meeus-galilean' | 'meeus-saturnian' | 'mean-elements';
+
+/** A moon's orbit about its planet: the theory that places it and the mean elements checks and warnings use. */
+export interface ParentOrbit {
+  theory: MoonTheory;
+  semiMajorAxisKm: number;
+  eccentricity: number;
+  periodDays: number;
+  /** The plane the orbit keeps near: the ecliptic (Earth's Moon) or the planet's equator. */
+  meanPlane: 'ecliptic' | 'parent-equator';
+  /** Only for 'mean-elements': the mean longitude at J2000, measured in the mean plane from its node on the ICRF equator. */
+  meanLongitudeJ2000Deg?: number;
+  source: string;
+}
+
 export interface Body {
   id: BodyId;
   name: string;
   kind: 'planet' | 'moon';
-  /** The planet whose heliocentric position stands in for a moon's. */
+  /** The planet whose heliocentric position, plus the moon's own offset, places a moon. */
   planetId: PlanetId;
+  /** The body a moon orbits (its shadow is added to the moon's); null for a planet. */
+  parentId: PlanetId | null;
+  parentOrbit: ParentOrbit | null;
   gmKm3S2: number;
   radiusKm: number;
   j2: number;
@@ -113,8 +132,20 @@ interface BodyData {
   albedo: Range;
   olrWm2: Range;
   provisional?: boolean;
+  parentOrbit?: ParentOrbit;
   sources: Record<string, string>;
 }
+
+const SSD_MEAN = 'JPL SSD planetary satellite mean elements (from memory)';
+const moonOrbit = (
+  theory: MoonTheory, semiMajorAxisKm: number, eccentricity: number, periodDays: number, source: string,
+): ParentOrbit => ({
+  theory, semiMajorAxisKm, eccentricity, periodDays, meanPlane: theory === 'meeus-moon' ? 'ecliptic' : 'parent-equator',
+  source: `position: ${source}; mean a, e, period: ${SSD_MEAN}`,
+});
+const MEEUS_MOON = 'Meeus, Astronomical Algorithms ch. 47 (ELP-2000/82 main terms), as in astronomia moonposition';
+const MEEUS_GALILEAN = 'Meeus, Astronomical Algorithms ch. 44 high-accuracy theory (Lieske E5), as in astronomia jupitermoons';
+const MEEUS_SATURNIAN = 'Meeus, Astronomical Algorithms ch. 46 (Harper & Taylor), as in astronomia saturnmoons';
 
 const data: BodyData[] = [
   {
@@ -162,6 +193,7 @@ const data: BodyData[] = [
     ]),
     albedo: flat(0.11),
     olrWm2: { min: emittedWm2(95), nominal: equilibriumOlrWm2(0.11, orbits.earth.a), max: emittedWm2(390) },
+    parentOrbit: moonOrbit('meeus-moon', 384400, 0.0549, 27.321661, MEEUS_MOON),
     sources: {
       gmKm3S2: FACT_SHEET, radiusKm: `${FACT_SHEET}, equatorial radius`, j2: FACT_SHEET,
       pole: `${IAU_2015}, terms E1..E4 only`,
@@ -231,6 +263,7 @@ const data: BodyData[] = [
     pole: fixedPole(268.05, 64.5, -0.009, 0.003, [jTerm(0.094, 0.04, J3), jTerm(0.024, 0.011, J4)]),
     albedo: flat(0.63),
     olrWm2: flat(equilibriumOlrWm2(0.63, orbits.jupiter.a)),
+    parentOrbit: moonOrbit('meeus-galilean', 421800, 0.004, 1.769138, MEEUS_GALILEAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Anderson et al. 2001, Galileo gravity (from memory)', pole: IAU_2015,
@@ -245,6 +278,7 @@ const data: BodyData[] = [
     ]),
     albedo: flat(0.68),
     olrWm2: flat(equilibriumOlrWm2(0.68, orbits.jupiter.a)),
+    parentOrbit: moonOrbit('meeus-galilean', 671100, 0.009, 3.551181, MEEUS_GALILEAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Anderson et al. 1998, Galileo gravity (from memory)', pole: IAU_2015,
@@ -256,6 +290,7 @@ const data: BodyData[] = [
     pole: fixedPole(268.2, 64.57, -0.009, 0.003, [jTerm(-0.037, -0.016, J4), jTerm(0.431, 0.186, J5), jTerm(0.091, 0.039, J6)]),
     albedo: flat(0.43),
     olrWm2: flat(equilibriumOlrWm2(0.43, orbits.jupiter.a)),
+    parentOrbit: moonOrbit('meeus-galilean', 1070400, 0.001, 7.154553, MEEUS_GALILEAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Anderson et al. 1996, Galileo gravity (from memory)', pole: IAU_2015,
@@ -267,6 +302,7 @@ const data: BodyData[] = [
     pole: fixedPole(268.72, 64.83, -0.009, 0.003, [jTerm(-0.068, -0.029, J5), jTerm(0.59, 0.254, J6), jTerm(0.01, -0.004, J8)]),
     albedo: flat(0.13),
     olrWm2: flat(equilibriumOlrWm2(0.13, orbits.jupiter.a)),
+    parentOrbit: moonOrbit('meeus-galilean', 1882700, 0.007, 16.689018, MEEUS_GALILEAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Anderson et al. 2001, Galileo gravity (from memory)', pole: IAU_2015,
@@ -278,6 +314,7 @@ const data: BodyData[] = [
     pole: fixedPole(39.4827, 83.4279),
     albedo: flat(0.265),
     olrWm2: flat(equilibriumOlrWm2(0.265, orbits.saturn.a)),
+    parentOrbit: moonOrbit('meeus-saturnian', 1221870, 0.0288, 15.945421, MEEUS_SATURNIAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Iess et al. 2012, Cassini gravity (from memory)', pole: IAU_2015,
@@ -289,6 +326,7 @@ const data: BodyData[] = [
     pole: fixedPole(40.66, 83.52, -0.036, -0.004),
     albedo: flat(0.81),
     olrWm2: flat(equilibriumOlrWm2(0.81, orbits.saturn.a)),
+    parentOrbit: moonOrbit('meeus-saturnian', 238040, 0.0047, 1.370218, MEEUS_SATURNIAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Iess et al. 2014, Cassini gravity (from memory)', pole: IAU_2015,
@@ -304,13 +342,15 @@ const bodies: ReadonlyMap<BodyId, Body> = new Map(
     const body: Body = {
       ...d,
       kind: d.id === d.planetId ? 'planet' : 'moon',
+      parentId: d.id === d.planetId ? null : d.planetId,
+      parentOrbit: d.parentOrbit ?? null,
       semiMajorAxisAu: orbit.a,
       eccentricity: orbit.e,
       solarYearDays: orbit.yearDays,
       provisional: d.provisional ?? false,
       sources: {
         ...d.sources,
-        solarDistanceAu: d.id === d.planetId ? ORBIT_SOURCE : `${ORBIT_SOURCE}, of ${d.planetId} (the moon's own orbit is left out)`,
+        solarDistanceAu: d.id === d.planetId ? ORBIT_SOURCE : `${ORBIT_SOURCE}, of ${d.planetId}, plus the moon's own offset (${d.parentOrbit?.source ?? 'no theory'})`,
       },
     };
     return [d.id, body];
@@ -331,12 +371,18 @@ export function getBody(id: string): Body {
 
 export const allBodies = (): Body[] => bodyIds.map((id) => getBody(id));
 
-/** Perihelion and aphelion distances a(1 - e), a(1 + e), in AU. */
-export const solarDistanceRangeAu = (body: Body) => ({
-  mean: body.semiMajorAxisAu,
-  min: body.semiMajorAxisAu * (1 - body.eccentricity),
-  max: body.semiMajorAxisAu * (1 + body.eccentricity),
-});
+/**
+ * Perihelion and aphelion distances a(1 - e), a(1 + e), in AU; a moon adds its own apoapsis about
+ * its planet on either side (it can sit on the Sun's side or beyond the planet).
+ */
+export const solarDistanceRangeAu = (body: Body) => {
+  const moonAu = body.parentOrbit ? (body.parentOrbit.semiMajorAxisKm * (1 + body.parentOrbit.eccentricity)) / AU_KM : 0;
+  return {
+    mean: body.semiMajorAxisAu,
+    min: body.semiMajorAxisAu * (1 - body.eccentricity) - moonAu,
+    max: body.semiMajorAxisAu * (1 + body.eccentricity) + moonAu,
+  };
+};
 
 /** One body as GET /api/v1/bodies answers it (API.md "Other fixed routes"). */
 export interface BodySummary {

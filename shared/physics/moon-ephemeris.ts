@@ -1,0 +1,183 @@
+// Where a moon is about its planet: the moon's planetocentric position (km, ICRF axes) at a date from
+// a published theory, and a track that evaluates it cheaply over a span for sweeps.
+// Theories: Earth's Moon from Meeus ch. 47 (ELP-2000/82 main terms, astronomia moonposition), turned
+// from the ecliptic of date to J2000 by the general precession in longitude (Lieske et al. 1977,
+// Meeus ch. 21, from memory; the ecliptic's own tilt, under 15 arcsec over this century, is left out);
+// the Galilean moons from Meeus ch. 44's high-accuracy theory (Lieske E5, astronomia jupitermoons)
+// and Titan and Enceladus from Meeus ch. 46 (astronomia saturnmoons). Those two give a moon as seen
+// by an observer; here the observer is put at the planet's distance looking along the J2000
+// equinox, so the answer's line of sight is the ICRF x axis, its y axis the planet's pole projected
+// on the sky (IAU pole here; Meeus's differs by hundredths of a degree), and the observer's light
+// time and perspective are taken back out. A moon with neither keeps a circular orbit at its mean
+// elements in its planet's equator (mean-elements; its source is named in bodies.ts).
+// Leaves out: light time between the planet and the Sun (the geometry is taken at one instant), and
+// the theories' own errors (Meeus: about 10 arcsec for the Moon, under 0.001 planet radii for E5).
+import jupiterMoons from 'astronomia/jupitermoons';
+import moonPosition from 'astronomia/moonposition';
+import saturnMoons from 'astronomia/saturnmoons';
+import { getBody, type Body } from './bodies';
+import { DAYS_PER_JULIAN_CENTURY, J2000_JD, SECONDS_PER_DAY, TT_MINUS_UTC_S } from './constants';
+import { PhysicsError } from './physics-error';
+import { bodyFrameAxes, eclipticToEquatorial, poleRaDecRad } from './sun';
+import { cross, DEG, dot, fromSpherical, scale, unit, type Vector3 } from './vector3';
+
+const ARCSEC = DEG / 3600;
+/** Light time per AU, days (Meeus 33.3). */
+const LIGHT_DAYS_PER_AU = 0.0057755183;
+const GALILEAN_INDEX: Record<string, number> = { io: 0, europa: 1, ganymede: 2, callisto: 3 };
+const SATURNIAN_INDEX: Record<string, number> = { enceladus: 1, titan: 5 };
+// Meeus's differential light-time constants (ch. 44 and 46), undone below.
+const GALILEAN_K = [17295, 21819, 27558, 36548];
+const SATURNIAN_K = [20947, 23715, 26382, 29876, 35313, 53800, 59222, 91820];
+// Planet radii per AU in Meeus's perspective factor.
+const RADII_PER_AU: Record<string, number> = { jupiter: 2095, saturn: 2475 };
+const OBSERVER_AU = 5;
+
+/** General precession in longitude from J2000 to the date, radians (Lieske et al. 1977). */
+const precessionInLongitudeRad = (jde: number): number => {
+  const t = (jde - J2000_JD) / DAYS_PER_JULIAN_CENTURY;
+  return (5029.0966 * t + 1.11113 * t * t) * ARCSEC;
+};
+
+const noPlanet = { position: () => ({ lon: 0, lat: 0, range: 0 }) };
+
+/** An observer OBSERVER_AU from the planet whose line of sight, of date, is the J2000 equinox. */
+const sightAlongEquinox = (jde: number) => ({ position: () => ({ lon: precessionInLongitudeRad(jde), lat: 0, range: OBSERVER_AU }) });
+
+/** Sky coordinates (planet radii) back to ICRF km: z along the line of sight (+x), y toward the planet's projected pole. */
+function skyToIcrfKm(planet: Body, jde: number, x: number, y: number, z: number, k: number, radiiPerAu: number): Vector3 {
+  // perspective W = D / (D + z / radiiPerAu) and the differential light time dx = |z| / k sqrt(1 - (x/r)^2)
+  const w = OBSERVER_AU / (OBSERVER_AU + z / radiiPerAu);
+  const sy = y / w;
+  const r = Math.hypot(x / w, sy, z);
+  const sx = x / w - (Math.abs(z) / k) * Math.sqrt(Math.max(0, 1 - (x / w / r) ** 2));
+  const { raRad, decRad } = poleRaDecRad(planet, jde);
+  const pole = fromSpherical(raRad, decRad);
+  const ez: Vector3 = [1, 0, 0];
+  const ey = unit([0, pole[1], pole[2]]);
+  // Meeus's X grows westward on the sky: ez x ey for an observer looking along ez with ey up.
+  const ex = cross(ez, ey);
+  const km = planet.radiusKm;
+  return [
+    km * (sx * ex[0] + sy * ey[0] + z * ez[0]),
+    km * (sx * ex[1] + sy * ey[1] + z * ez[1]),
+    km * (sx * ex[2] + sy * ey[2] + z * ez[2]),
+  ];
+}
+
+/** Circular orbit at the mean elements in the planet's equator, mean longitude from the node on the ICRF equator. */
+function meanElementsKm(body: Body, jde: number): Vector3 {
+  const orbit = body.parentOrbit!;
+  const planet = getBody(body.planetId);
+  const axes = bodyFrameAxes(planet, jde);
+  const lonRad = ((orbit.meanLongitudeJ2000Deg ?? 0) + (360 / orbit.periodDays) * (jde - J2000_JD)) * DEG;
+  const [c, s] = [Math.cos(lonRad) * orbit.semiMajorAxisKm, Math.sin(lonRad) * orbit.semiMajorAxisKm];
+  return [c * axes.x[0] + s * axes.y[0], c * axes.x[1] + s * axes.y[1], c * axes.x[2] + s * axes.y[2]];
+}
+
+/** The moon's position relative to its planet, km, ICRF axes, at a Julian ephemeris date. A planet answers [0, 0, 0]. */
+export function moonOffsetKm(body: Body, jde: number): Vector3 {
+  const orbit = body.parentOrbit;
+  if (!orbit) return [0, 0, 0];
+  switch (orbit.theory) {
+    case 'meeus-moon': {
+      const p = moonPosition.position(jde) as { lon: number; lat: number; range: number };
+      return eclipticToEquatorial(scale(fromSpherical(p.lon - precessionInLongitudeRad(jde), p.lat), p.range));
+    }
+    case 'meeus-galilean': {
+      const i = GALILEAN_INDEX[body.id];
+      const tau = LIGHT_DAYS_PER_AU * OBSERVER_AU;
+      const p = (jupiterMoons.e5(jde + tau, noPlanet, sightAlongEquinox(jde)) as { x: number; y: number; z: number }[])[i];
+      return skyToIcrfKm(getBody('jupiter'), jde, p.x, p.y, p.z, GALILEAN_K[i], RADII_PER_AU['jupiter']);
+    }
+    case 'meeus-saturnian': {
+      const i = SATURNIAN_INDEX[body.id];
+      const tau = LIGHT_DAYS_PER_AU * OBSERVER_AU;
+      const p = (saturnMoons.positions(jde + tau, noPlanet, sightAlongEquinox(jde)) as { x: number; y: number; z: number }[])[i];
+      return skyToIcrfKm(getBody('saturn'), jde, p.x, p.y, p.z, SATURNIAN_K[i], RADII_PER_AU['saturn']);
+    }
+    case 'mean-elements':
+      return meanElementsKm(body, jde);
+  }
+}
+
+/** Julian ephemeris date of a UTC instant in ms (the same as sun.ts julianDateTT, without a Date). */
+export const jdeOfMs = (ms: number): number => 2440587.5 + (ms / 1000 + TT_MINUS_UTC_S) / SECONDS_PER_DAY;
+
+export interface MoonTrack {
+  /** The moon's planetocentric position (km, ICRF) at a UTC instant in ms, written into out. */
+  at(ms: number, out: Float64Array): void;
+  /** Node spacing, days. */
+  readonly nodeDays: number;
+  /** Theory evaluations so far (for the bench and tests). */
+  readonly evaluations: number;
+}
+
+/**
+ * The moon's position over any span, its theory evaluated at nodes `nodeDays` apart (computed when
+ * first needed, kept) and interpolated between by four-point Lagrange (Abramowitz & Stegun 25.2.13)
+ * in a frame turning with the moon's mean motion about its mean plane's pole, where a near-circular
+ * orbit is nearly still: with 16 nodes a revolution the error is about 6e-4 of the orbit's
+ * departures from a circle (a few km for the Galilean moons, tens of km for the Moon).
+ */
+export function moonTrack(body: Body, nodeDays = defaultMoonNodeDays(body)): MoonTrack {
+  const orbit = body.parentOrbit;
+  if (!orbit) throw new PhysicsError('unknown_body', `${body.name} is not a moon`);
+  const jde0 = J2000_JD;
+  const pole = orbit.meanPlane === 'ecliptic'
+    ? eclipticToEquatorial([0, 0, 1])
+    : (() => {
+      const { raRad, decRad } = poleRaDecRad(getBody(body.planetId), jde0);
+      return fromSpherical(raRad, decRad);
+    })();
+  const rate = (2 * Math.PI) / orbit.periodDays;
+  const nodes = new Map<number, Vector3>();
+  let evaluations = 0;
+  // Rodrigues' rotation about the pole by angle (rad)
+  const turn = (v: Vector3, angle: number): Vector3 => {
+    const [c, s] = [Math.cos(angle), Math.sin(angle)];
+    const kxv = cross(pole, v);
+    const kv = dot(pole, v) * (1 - c);
+    return [v[0] * c + kxv[0] * s + pole[0] * kv, v[1] * c + kxv[1] * s + pole[1] * kv, v[2] * c + kxv[2] * s + pole[2] * kv];
+  };
+  const node = (k: number): Vector3 => {
+    let q = nodes.get(k);
+    if (!q) {
+      if (nodes.size > 4096) nodes.clear();
+      const days = k * nodeDays;
+      evaluations++;
+      q = turn(moonOffsetKm(body, jde0 + days), -rate * days);
+      nodes.set(k, q);
+    }
+    return q;
+  };
+  return {
+    nodeDays,
+    get evaluations() {
+      return evaluations;
+    },
+    at(ms: number, out: Float64Array): void {
+      const days = jdeOfMs(ms) - jde0;
+      const s = days / nodeDays;
+      const j = Math.floor(s);
+      const u = s - j;
+      const wm = (-u * (u - 1) * (u - 2)) / 6;
+      const w0 = ((u + 1) * (u - 1) * (u - 2)) / 2;
+      const w1 = (-(u + 1) * u * (u - 2)) / 2;
+      const w2 = ((u + 1) * u * (u - 1)) / 6;
+      const [a, b, c, d] = [node(j - 1), node(j), node(j + 1), node(j + 2)];
+      const q: Vector3 = [
+        wm * a[0] + w0 * b[0] + w1 * c[0] + w2 * d[0],
+        wm * a[1] + w0 * b[1] + w1 * c[1] + w2 * d[1],
+        wm * a[2] + w0 * b[2] + w1 * c[2] + w2 * d[2],
+      ];
+      const p = turn(q, rate * days);
+      out[0] = p[0];
+      out[1] = p[1];
+      out[2] = p[2];
+    },
+  };
+}
+
+/** 16 nodes a revolution: the accuracy shadows need. */
+export const defaultMoonNodeDays = (body: Body): number => (body.parentOrbit ? body.parentOrbit.periodDays / 16 : 1);
