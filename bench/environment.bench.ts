@@ -4,7 +4,9 @@
 // their averages and peaks, the eclipse: what the numpy side computes - and (a') the same orbit
 // through computeEnvironment, the API's answer, which adds building 72,000 per-step objects that the
 // numpy side does not do; (b) a ten-year mission, one orbit a day (3653 orbits x 360 steps x 6
-// surfaces) with beta, eclipse and orbit-average loads through sweepMission. Each side is timed
+// surfaces) with beta, eclipse and orbit-average loads through sweepMission; (c), (d) the same about
+// Europa and the Moon with the planet's shadow, timed beside (b) and beside (b)'s figure before the
+// planet's shadow was added (no numpy side for those). Each side is timed
 // inside its own process (median of several runs after warm-up); the answers are compared so the
 // two cannot drift.
 import { spawnSync } from 'node:child_process';
@@ -47,6 +49,19 @@ const caseB: MissionSweepRequest = {
   bodyId: 'earth', orbit: missionOrbit, epochStart: '2027-01-01T12:00:00Z', days: 3652, stepDays: 1, steps: 360,
   surfaces: six, albedo: 0.3, olrWm2: 237,
 };
+// (c) and (d): the same ten years about a moon, with the planet's shadow (parent-shadow.ts) searched every day.
+const caseC: MissionSweepRequest = {
+  ...caseB, bodyId: 'europa', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 85, raanDeg: 40 }, albedo: 0.68, olrWm2: 7,
+};
+const caseD: MissionSweepRequest = {
+  ...caseB, bodyId: 'moon', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 90, raanDeg: 40 }, albedo: 0.11, olrWm2: 300,
+};
+/**
+ * (b) before the planet's shadow and the moon's own position were added (commit dd2c64e), measured
+ * 2026-12-04 on the shared 2-core development machine, load average 4.1: the reference the moon
+ * sweeps (c), (d) must stay under twice of (issue 13).
+ */
+const SWEEP_BEFORE_MS = 109.2;
 
 /** Median and best wall-clock time of `repeats` runs after `warmUp` runs. */
 function timeRuns(run: () => unknown, warmUp: number, repeats: number): { median: number; best: number } {
@@ -105,14 +120,23 @@ export default async function environmentBench(): Promise<BenchRow[]> {
   let resultB = sweepMission(caseB);
   const timeB = timeRuns(() => (resultB = sweepMission(caseB)), 2, repeats);
 
+  const timeC = timeRuns(() => sweepMission(caseC), 1, repeats);
+  const timeD = timeRuns(() => sweepMission(caseD), 1, repeats);
   const row = (name: string, time: { median: number; best: number }): BenchRow => ({ case: name, 'eclipta ms': time.median, 'eclipta best ms': time.best });
+  const moonRow = (name: string, time: { median: number; best: number }): BenchRow => ({
+    ...row(name, time),
+    'largest difference': `${(time.median / timeB.median).toFixed(2)}x (b) of this run; ${(time.median / SWEEP_BEFORE_MS).toFixed(2)}x (b) before the planet's shadow (${SWEEP_BEFORE_MS} ms)`,
+    'under 1 s': time.median < 2 * timeB.median ? 'yes, under 2x (b)' : 'NO: over 2x (b)',
+  });
+  const rowC = moonRow('(c) 10 years about Europa, as (b), with Jupiter\'s shadow', timeC);
+  const rowD = moonRow('(d) 10 years about the Moon, as (b), with Earth\'s shadow (lunar eclipses)', timeD);
   const rowA = row('(a) one orbit, 3600 steps x 20 surfaces: loads in arrays, averages, peaks, eclipse', timeA);
   const rowAnswer = row("(a') the same, as the API answer: (a) plus building 72,000 per-step objects (numpy builds none)", timeAnswer);
   const rowB = row('(b) 10 years, 3653 orbits x 360 steps x 6 surfaces', timeB);
   const python = findNumpy();
   if (!python) {
     rowA['numpy ms'] = rowAnswer['numpy ms'] = rowB['numpy ms'] = 'skipped: no python3 with numpy on PATH or at /usr/bin/python3';
-    return [rowA, rowAnswer, rowB];
+    return [rowA, rowAnswer, rowB, rowC, rowD];
   }
   const job = {
     repeats,
@@ -163,5 +187,5 @@ export default async function environmentBench(): Promise<BenchRow[]> {
   rowB['under 1 s'] = timeB.median < 1000 ? 'yes' : 'NO';
   const note = `numpy ${answer.numpy} (${python}), node ${process.version}, median and best of ${repeats} runs (a and a': ${repeatsA} on each side), ` +
     `ms of wall clock, load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores`;
-  return [rowA, rowAnswer, rowB, { case: note }];
+  return [rowA, rowAnswer, rowB, rowC, rowD, { case: note }];
 }

@@ -68,7 +68,7 @@ export function missionDays(body: Body, orbit: Orbit, orbitEpochMs: number, star
       return { ms, raanRad: raan, argPeriapsisRad: argp, sun, betaDeg, solarDistanceAu: distanceAu };
     },
     parentSpans(fromMs: number, toMs: number): ShadowSpan[] {
-      if (shadow === undefined) shadow = parentShadow(body, orbit, orbitEpochMs);
+      if (shadow === undefined) shadow = parentShadow(body, orbit, orbitEpochMs, (ms, out) => track.planetAtIcrf(ms, out), track.moon);
       return shadow ? shadow.spans(fromMs, toMs) : [];
     },
   };

@@ -117,8 +117,8 @@ export interface MoonTrack {
  * The moon's position over any span, its theory evaluated at nodes `nodeDays` apart (computed when
  * first needed, kept) and interpolated between by four-point Lagrange (Abramowitz & Stegun 25.2.13)
  * in a frame turning with the moon's mean motion about its mean plane's pole, where a near-circular
- * orbit is nearly still: with 16 nodes a revolution the error is about 6e-4 of the orbit's
- * departures from a circle (a few km for the Galilean moons, tens of km for the Moon).
+ * orbit is nearly still: the error is about (3/128) (2 pi / nodes a revolution)^4 of the orbit's
+ * departures from a circle (checked against the theory in parent-shadow.spec.ts).
  */
 export function moonTrack(body: Body, nodeDays = defaultMoonNodeDays(body)): MoonTrack {
   const orbit = body.parentOrbit;
@@ -165,19 +165,31 @@ export function moonTrack(body: Body, nodeDays = defaultMoonNodeDays(body)): Moo
       const w0 = ((u + 1) * (u - 1) * (u - 2)) / 2;
       const w1 = (-(u + 1) * u * (u - 2)) / 2;
       const w2 = ((u + 1) * u * (u - 1)) / 6;
-      const [a, b, c, d] = [node(j - 1), node(j), node(j + 1), node(j + 2)];
-      const q: Vector3 = [
-        wm * a[0] + w0 * b[0] + w1 * c[0] + w2 * d[0],
-        wm * a[1] + w0 * b[1] + w1 * c[1] + w2 * d[1],
-        wm * a[2] + w0 * b[2] + w1 * c[2] + w2 * d[2],
-      ];
-      const p = turn(q, rate * days);
-      out[0] = p[0];
-      out[1] = p[1];
-      out[2] = p[2];
+      const a = node(j - 1);
+      const b = node(j);
+      const c = node(j + 1);
+      const d = node(j + 2);
+      const qx = wm * a[0] + w0 * b[0] + w1 * c[0] + w2 * d[0];
+      const qy = wm * a[1] + w0 * b[1] + w1 * c[1] + w2 * d[1];
+      const qz = wm * a[2] + w0 * b[2] + w1 * c[2] + w2 * d[2];
+      // Rodrigues' rotation by rate * days about the pole, without allocating
+      const angle = rate * days;
+      const [cs, sn] = [Math.cos(angle), Math.sin(angle)];
+      const [kx, ky, kz] = pole;
+      const kv = (kx * qx + ky * qy + kz * qz) * (1 - cs);
+      out[0] = qx * cs + (ky * qz - kz * qy) * sn + kx * kv;
+      out[1] = qy * cs + (kz * qx - kx * qz) * sn + ky * kv;
+      out[2] = qz * cs + (kx * qy - ky * qx) * sn + kz * kv;
     },
   };
 }
 
-/** 16 nodes a revolution: the accuracy shadows need. */
-export const defaultMoonNodeDays = (body: Body): number => (body.parentOrbit ? body.parentOrbit.periodDays / 16 : 1);
+/**
+ * Nodes for the accuracy shadows need: 16 a revolution for the Moon (its departures from a circle
+ * reach 30,000 km: about 20 km off), 8 for the near-circular moons of the giant planets (under
+ * 10,000 km: under 100 km off, a few seconds of a shadow's edge).
+ */
+export const defaultMoonNodeDays = (body: Body): number => {
+  if (!body.parentOrbit) return 1;
+  return body.parentOrbit.periodDays / (body.parentOrbit.eccentricity > 0.02 || body.parentOrbit.theory === 'meeus-moon' ? 16 : 8);
+};

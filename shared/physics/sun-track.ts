@@ -30,6 +30,10 @@ export interface SunTrack {
   at(ms: number, out: Float64Array): number;
   /** The same in ICRF axes (the frame of a trajectory's positions). */
   atIcrf(ms: number, out: Float64Array): number;
+  /** For a moon, its planet's Sun (the moon's offset left out) in ICRF; for a planet the same as atIcrf. */
+  planetAtIcrf(ms: number, out: Float64Array): number;
+  /** A moon's own coarse track (its offset for the Sun), null for a planet. */
+  readonly moon: MoonTrack | null;
   /** Instants (ms) of the nodes, for tests. */
   readonly firstNodeMs: number;
   readonly nodeMs: number;
@@ -116,7 +120,15 @@ export function sunTrack(body: Body, startMs: number, endMs: number, nodeDays = 
     interpolated[1] -= offset[1] / AU_KM;
     interpolated[2] -= offset[2] / AU_KM;
   };
+  /** A planet's Sun in ICRF, AU, into `interpolated`. */
+  const planetSunIcrf = (ms: number): void => {
+    planetSun(ms, interpolated);
+    const axes = bodyFrameAxes(body, julianDateTT(new Date(ms)));
+    const v: Vector3 = [interpolated[0], interpolated[1], interpolated[2]];
+    for (let i = 0; i < 3; i++) interpolated[i] = axes.x[i] * v[0] + axes.y[i] * v[1] + axes.z[i] * v[2];
+  };
   return {
+    moon,
     firstNodeMs: first,
     nodeMs: h,
     at(ms: number, out: Float64Array): number {
@@ -132,12 +144,12 @@ export function sunTrack(body: Body, startMs: number, endMs: number, nodeDays = 
     },
     atIcrf(ms: number, out: Float64Array): number {
       if (moon) moonSunIcrf(ms, moon);
-      else {
-        planetSun(ms, interpolated);
-        const axes = bodyFrameAxes(body, julianDateTT(new Date(ms)));
-        const v: Vector3 = [interpolated[0], interpolated[1], interpolated[2]];
-        for (let i = 0; i < 3; i++) interpolated[i] = axes.x[i] * v[0] + axes.y[i] * v[1] + axes.z[i] * v[2];
-      }
+      else planetSunIcrf(ms);
+      return normalise(interpolated[0], interpolated[1], interpolated[2], out);
+    },
+    planetAtIcrf(ms: number, out: Float64Array): number {
+      if (moon) planetSun(ms, interpolated);
+      else planetSunIcrf(ms);
       return normalise(interpolated[0], interpolated[1], interpolated[2], out);
     },
   };
