@@ -25,6 +25,8 @@ export function csvHeader(surfaces: readonly MissionSurface[]): string {
     'solar distance (AU)',
     'solar flux (W/m^2)',
     ...surfaces.map((s) => `${s.label.name} absorbed, orbit average (W)`),
+    'longest shadow (s)',
+    'longest shadow cast by',
   ]);
 }
 
@@ -37,6 +39,8 @@ const csvDay = (day: SweepDay): string =>
     String(day.solarDistanceAu),
     String(day.solarFluxWm2),
     ...day.surfaces.map((s) => String(s.absorbedW)),
+    String(day.longestShadowS),
+    day.longestShadowCastBy.join(' and '),
   ]);
 
 const ndjson = (line: SweepLine): string => JSON.stringify(line) + '\n';

@@ -107,7 +107,18 @@ export const environmentResponse = z.object({
   umbraDurationS: z.number(),
   penumbraDurationS: z.number(),
   nodalRateDegPerDay: z.number(),
-  profile: z.array(z.object({ tS: z.number(), trueAnomalyDeg: z.number(), sunlit: z.number(), surfaces: z.array(surfaceLoad) })),
+  /** The planet a moon orbits; null for a planet. */
+  parentBodyId: z.string().nullable(),
+  /** Time of the orbit in the planet's shadow, penumbra included (a moon with an epoch). */
+  parentShadowDurationS: z.number(),
+  /** An orbit that makes little sense (beyond the sphere of influence, across moons' orbits, inside a Roche limit), in words. */
+  warnings: z.array(z.string()),
+  profile: z.array(z.object({
+    tS: z.number(), trueAnomalyDeg: z.number(), sunlit: z.number(),
+    /** About a moon: the share of the Sun the planet leaves (sunlit already counts it). */
+    parentSunlit: z.number().optional(),
+    surfaces: z.array(surfaceLoad),
+  })),
   orbitAverage: z.object({ surfaces: z.array(surfaceLoad) }),
   peak: z.object({ surfaces: z.array(surfaceLoad) }),
   assumptions: z.array(z.string()),

@@ -198,6 +198,12 @@ export const sweepDay = z.object({
   solarDistanceAu: z.number(),
   solarFluxWm2: z.number(),
   surfaces: z.array(z.object({ surfaceId: z.string(), name: z.string(), absorbedW: z.number() })),
+  /** The day's longest continuous shadow, penumbra included, s: the body's own, or about a moon a passage through its planet's shadow. */
+  longestShadowS: z.number(),
+  /** The bodies that cast it (body ids); empty without shadow. */
+  longestShadowCastBy: z.array(z.string()),
+  /** Its start (ISO 8601 UTC) when the planet takes part; null for the body's own shadow. */
+  longestShadowStart: z.string().nullable(),
 });
 
 export const sweepLine = z.discriminatedUnion('type', [

@@ -3,7 +3,8 @@
 // with the orbit averages, peaks and eclipse. environment.ts shapes this into the API's answer; the
 // benchmark times this part against the numpy reference, which computes the same quantities.
 // Leaves out: everything the modules it calls leave out; the Sun is held fixed for the one orbit
-// computed. Source: API.md "Environment computation" for the contract.
+// computed. About a moon with an epoch, the planet's shadow (parent-shadow.ts) darkens the samples
+// it covers and the eclipse is counted from both bodies. Source: API.md "Environment computation".
 import { getBody, type BodyId } from './bodies';
 import { betaFromVectorsRad } from './beta-angle';
 import { AU_KM } from './constants';
@@ -15,6 +16,8 @@ import { orbitBasis } from './orbit-position';
 import { PhysicsError } from './physics-error';
 import { profileColumns, type LoadTotals, type ProfileColumns } from './profile-loads';
 import { solarFluxWm2, sunFromBody } from './sun';
+import { orbitWarnings } from './orbit-warnings';
+import { combinedSunlit, parentShadow, type ParentShadow } from './parent-shadow';
 import { prepareSurfaces } from './surface-grid';
 import { DEG, dot, norm, scale, subtract, type Vector3 } from './vector3';
 
@@ -50,6 +53,14 @@ export interface EnvironmentColumns {
   loads: ProfileColumns;
   /** Orbit averages per surface (the sums over the steps). */
   averages: LoadTotals;
+  /** About a moon with an epoch: the share of the Sun seen past the planet at each sample (already in shade.sunlit), else null. */
+  parentSunlit: Float64Array | null;
+  /** The planet a moon orbits, null for a planet. */
+  parentBodyId: string | null;
+  /** Time of this orbit in the planet's shadow (penumbra included), s; 0 without an epoch or for a planet. */
+  parentShadowS: number;
+  /** Plain-words warnings about the orbit (orbit-warnings.ts). */
+  warnings: string[];
 }
 
 export const DEFAULT_STEPS = 360;
@@ -114,16 +125,54 @@ export function computeEnvironmentColumns(request: EnvironmentRequest): Environm
   const prepared = prepareSurfaces(request.surfaces, grid, body.radiusKm);
   const shade = gridShade(steps);
   shadeGrid(grid, sun, shade);
+  // About a moon, the planet's shadow at the epoch's orbit (the ephemeris Sun, whatever beta is asked).
+  const epochMs = request.epoch === undefined ? null : parseEpoch(request.epoch).getTime();
+  const planetShadow = epochMs === null ? null : parentShadow(body, orbit, epochMs);
+  const parentSunlit = planetShadow && epochMs !== null ? parentSunlitOnGrid(planetShadow, grid, epochMs) : null;
+  if (parentSunlit) for (let k = 0; k < steps; k++) shade.sunlit[k] = combinedSunlit(shade.sunlit[k], parentSunlit[k]);
   const loads = profileColumns(prepared, grid, shade, sun.sw, body.radiusKm, solarFlux, albedo, olrWm2);
   // The shadow scan needs a fine grid even when few load steps are asked for.
-  const eclipse = steps >= ECLIPSE_SCAN_STEPS
-    ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm)
-    : eclipseOnGrid(orbit, orbitGrid(orbit, body.radiusKm, ECLIPSE_SCAN_STEPS), sun, body.radiusKm);
+  const scanGrid = steps >= ECLIPSE_SCAN_STEPS ? grid : orbitGrid(orbit, body.radiusKm, ECLIPSE_SCAN_STEPS);
+  let eclipse = scanGrid === grid ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm) : eclipseOnGrid(orbit, scanGrid, sun, body.radiusKm);
+  let parentShadowS = 0;
+  if (planetShadow && parentSunlit && epochMs !== null && parentSunlit.some((f) => f < 1)) {
+    // The planet's shadow touches this orbit: the eclipse is counted on the scan grid from both bodies' shade.
+    const both = combinedEclipseOnGrid(planetShadow, orbit, scanGrid, sun, body.radiusKm, epochMs);
+    eclipse = both.eclipse;
+    parentShadowS = both.parentShadowS;
+  }
   return {
     bodyId: body.id, orbit,
     betaDeg: betaFromVectorsRad(basis.w, sunDirection) / DEG,
     epochBetaDeg: epochBetaRad === null ? null : epochBetaRad / DEG,
     solarDistanceAu, solarFluxWm2: solarFlux, albedo, olrWm2, eclipse, grid, shade, loads,
     averages: averaged(loads.sums, steps),
+    parentSunlit, parentBodyId: body.parentId, parentShadowS, warnings: orbitWarnings(body, orbit),
   };
+}
+
+/** The planet's share of the Sun at each sample of the grid, the orbit starting at the epoch. */
+function parentSunlitOnGrid(planetShadow: ParentShadow, grid: OrbitGrid, epochMs: number): Float64Array {
+  const out = new Float64Array(grid.steps);
+  for (let k = 0; k < grid.steps; k++) out[k] = planetShadow.at(epochMs + grid.tS[k] * 1000).parent;
+  return out;
+}
+
+/** Umbra, penumbra and eclipse of one orbit in both bodies' shadows, counted on the grid's samples (each worth T / steps). */
+function combinedEclipseOnGrid(
+  planetShadow: ParentShadow, orbit: Orbit, grid: OrbitGrid, sun: PerifocalSun, bodyRadiusKm: number, epochMs: number,
+): { eclipse: EclipseSummary; parentShadowS: number } {
+  const shade: GridShade = gridShade(grid.steps);
+  shadeGrid(grid, sun, shade);
+  const dt = orbit.periodS / grid.steps;
+  let [umbraS, penumbraS, parentShadowS] = [0, 0, 0];
+  for (let k = 0; k < grid.steps; k++) {
+    const parent = planetShadow.at(epochMs + grid.tS[k] * 1000).parent;
+    const sunlit = combinedSunlit(shade.sunlit[k], parent);
+    if (sunlit <= 0) umbraS += dt;
+    else if (sunlit < 1) penumbraS += dt;
+    if (parent < 1) parentShadowS += dt;
+  }
+  const eclipseDurationS = umbraS + penumbraS / 2;
+  return { eclipse: { eclipseFraction: eclipseDurationS / orbit.periodS, eclipseDurationS, umbraS, penumbraS }, parentShadowS };
 }

@@ -30,7 +30,13 @@ export interface EnvironmentResult {
   umbraDurationS: number;
   penumbraDurationS: number;
   nodalRateDegPerDay: number;
-  profile: ProfilePoint[];
+  /** The planet a moon orbits, null for a planet. */
+  parentBodyId: string | null;
+  /** Time of this orbit in the planet's shadow (penumbra included), s: 0 for a planet or without an epoch. */
+  parentShadowDurationS: number;
+  /** Plain-words warnings: an orbit beyond the sphere of influence, across moons' orbits, inside a Roche limit. */
+  warnings: string[];
+  profile: (ProfilePoint & { parentSunlit?: number })[];
   orbitAverage: { surfaces: SurfaceLoad[] };
   peak: { surfaces: SurfaceLoad[] };
   assumptions: string[];
@@ -38,6 +44,7 @@ export interface EnvironmentResult {
 
 export const ASSUMPTIONS = [
   'eclipseFraction counts umbra plus half of penumbra (conical shadow, Sun as a uniform disk, no atmosphere)',
+  "about a moon with an epoch, the planet's shadow is added (the moon placed by its published theory, the ephemeris Sun, the spacecraft at periapsis at the epoch); where both disks cover the Sun their covered shares add; albedo from the moon is not dimmed in the planet's shadow",
   'albedo load = S * albedo * F * cos(solar zenith at the sub-spacecraft point) on the sunlit side: a common engineering approximation',
   'planetary IR = OLR * F, with F the plate-to-sphere view factor (Howell catalogue)',
   'the Sun is held fixed over the orbit; tS counts from periapsis (from the ascending node for a circular orbit)',
@@ -45,7 +52,7 @@ export const ASSUMPTIONS = [
 ];
 
 /** Every field of the answer but the profile, in the answer's key order (environment-json.ts writes the same order). */
-export function environmentHeader(c: EnvironmentColumns): Omit<EnvironmentResult, 'profile' | 'orbitAverage' | 'peak' | 'assumptions'> {
+export function environmentHeader(c: EnvironmentColumns): Omit<EnvironmentResult, 'profile' | 'orbitAverage' | 'peak' | 'assumptions' | 'warnings'> {
   const { orbit, eclipse } = c;
   return {
     bodyId: c.bodyId,
@@ -65,6 +72,8 @@ export function environmentHeader(c: EnvironmentColumns): Omit<EnvironmentResult
     umbraDurationS: eclipse.umbraS,
     penumbraDurationS: eclipse.penumbraS,
     nodalRateDegPerDay: (orbit.nodalRateRadS / DEG) * 86400,
+    parentBodyId: c.parentBodyId,
+    parentShadowDurationS: c.parentShadowS,
   };
 }
 
@@ -73,12 +82,17 @@ export function environmentResult(c: EnvironmentColumns): EnvironmentResult {
   const names = c.loads.names;
   return {
     ...environmentHeader(c),
-    profile: profilePoints(c.loads, c.grid.tS, c.grid.trueAnomalyRad, c.shade.sunlit),
+    warnings: c.warnings,
+    profile: withParentSunlit(profilePoints(c.loads, c.grid.tS, c.grid.trueAnomalyRad, c.shade.sunlit), c.parentSunlit),
     orbitAverage: { surfaces: surfaceLoads(names, c.averages) },
     peak: { surfaces: surfaceLoads(names, c.loads.peaks) },
-    assumptions: ASSUMPTIONS,
+    assumptions: c.warnings.length > 0 ? [...ASSUMPTIONS, ...c.warnings.map((w) => `warning: ${w}`)] : ASSUMPTIONS,
   };
 }
+
+/** About a moon, each point also says how much of the Sun its planet leaves (its `sunlit` already counts it). */
+const withParentSunlit = (points: ProfilePoint[], parentSunlit: Float64Array | null): EnvironmentResult['profile'] =>
+  parentSunlit ? points.map((p, k) => ({ ...p, parentSunlit: parentSunlit[k] })) : points;
 
 /** Everything the compute route answers, from its request. Throws PhysicsError for the physically impossible. */
 export function computeEnvironment(request: EnvironmentRequest): EnvironmentResult {

@@ -7,6 +7,7 @@ import { combinedSunlit, parentShadow } from './parent-shadow';
 import { eclipticToEquatorial, heliocentricEclipticAu, poleRaDecRad, solarFluxWm2, sunFromBody } from './sun';
 import { cross, DEG, dot, fromSpherical, norm } from './vector3';
 import { sweepMission } from './mission-sweep';
+import { computeEnvironment } from './environment';
 
 /** A moon's centre against its planet's conical shadow: distance off the axis and the umbra and penumbra radii there, km. */
 function moonAgainstShadow(moonId: string, ms: number) {
@@ -179,5 +180,30 @@ describe('the moon where it is', () => {
       const exact = sunFromBody(getBody('europa'), new Date(row.date));
       expect(Math.abs(row.solarFluxWm2 / solarFluxWm2(exact.distanceAu) - 1)).toBeLessThan(1e-4);
     }
+  });
+});
+
+describe('the compute route about a moon at an epoch', () => {
+  it('darkens a low Europa orbit wholly while Europa is in Jupiter\'s umbra (same source as above, from memory)', () => {
+    const body = getBody('europa');
+    const orbitInput = { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 85 };
+    const start = Date.parse('2030-01-01T00:00:00Z');
+    const [span] = parentShadow(body, defineOrbit(orbitInput, body), start)!.spans(start, start + 4 * 86400e3);
+    // the middle of Europa's own passage through the umbra (its centre's entry and exit)
+    const inUmbra = (ms: number) => { const g = moonAgainstShadow('europa', ms); return g.behind > 0 ? g.off - g.umbra : 1; };
+    const [entry, exit] = crossings(span.startMs - 3600e3, span.endMs + 3600e3, 60e3, inUmbra);
+    // the orbit (from the epoch) centred on it
+    const middle = new Date((entry + exit) / 2 - defineOrbit(orbitInput, body).periodS * 500).toISOString();
+    const surfaces = [{ name: 'zenith', normal: 'zenith' as const, areaM2: 1, absorptivity: 0.5, emissivity: 0.8 }];
+    const dark = computeEnvironment({ bodyId: 'europa', orbit: orbitInput, epoch: middle, steps: 72, surfaces });
+    expect(dark.parentBodyId).toBe('jupiter');
+    expect(dark.eclipseFraction).toBeCloseTo(1, 9);
+    expect(dark.parentShadowDurationS).toBeCloseTo(dark.periodS, 6);
+    expect(dark.orbitAverage.surfaces[0].solarWm2).toBe(0);
+    expect(dark.profile.every((p) => p.parentSunlit === 0 && p.sunlit === 0)).toBe(true);
+    // A day later Europa is clear of Jupiter's shadow: only its own.
+    const clear = computeEnvironment({ bodyId: 'europa', orbit: orbitInput, epoch: new Date(Date.parse(middle) + 86400e3).toISOString(), steps: 72, surfaces });
+    expect(clear.parentShadowDurationS).toBe(0);
+    expect(clear.eclipseFraction).toBeLessThan(0.6);
   });
 });
