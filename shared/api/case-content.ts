@@ -42,6 +42,7 @@ export const caseConditions = z.object({
   }),
   orbitEpoch: z.string().describe('ISO 8601 UTC epoch of the orbit elements'),
   date: z.string().describe('YYYY-MM-DD: the day the node and the Sun azimuth are taken from'),
+  orbitStart: z.string().optional().describe("ISO 8601 UTC: where the case's orbit starts when not at 12:00 UTC of date (a moon's orbiter in its planet's shadow)"),
   betaDeg: num,
   solarDistanceAu: num,
   albedo: num,

@@ -27,6 +27,8 @@ export interface CaseConditions {
   orbitEpoch: string;
   /** YYYY-MM-DD: sets the node (J2 drift) and the Sun's azimuth; beta and distance are given below. */
   date: string;
+  /** ISO 8601 UTC: where the orbit starts when not at 12:00 UTC of date (an orbit in the planet's shadow). */
+  orbitStart?: string;
   betaDeg: number;
   solarDistanceAu: number;
   albedo: number;
@@ -84,7 +86,7 @@ const noonOf = (date: string): Date => new Date(`${date}T12:00:00Z`);
 function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
   const body = getBody(c.bodyId);
   const orbit = defineOrbit(c.orbit, body);
-  const at = noonOf(c.date);
+  const at = c.orbitStart === undefined ? noonOf(c.date) : new Date(c.orbitStart);
   const raanDeg = raanOnDateRad(orbit, new Date(c.orbitEpoch), at) / DEG;
   return computeEnvironment({
     bodyId: c.bodyId,
@@ -212,6 +214,41 @@ interface Evaluated {
   day: ScanDay;
   env: EnvironmentResult;
   total: number;
+  /** Set when the orbit is not the one from 12:00 UTC (the cold case in the planet's shadow). */
+  orbitStart?: string;
+}
+
+interface DarkestDay {
+  day: ScanDay;
+  durationS: number;
+  castBy: string[];
+  startMs: number;
+  /** The orbit centred on the shadow's middle, ISO 8601 UTC. */
+  orbitStart: string;
+}
+
+/** The scan day with the longest shadow the planet takes part in, and the orbit centred on it; null for a planet's orbiter or none. */
+function longestParentShadow(scan: readonly ScanDay[], input: DerivationInput): DarkestDay | null {
+  const days = scan.filter((d) => d.parentShadow !== null);
+  if (days.length === 0) return null;
+  const day = maxBy(days, (d) => d.parentShadow!.durationS);
+  const shadow = day.parentShadow!;
+  const periodS = defineOrbit(input.orbit, getBody(input.bodyId)).periodS;
+  // The orbit is centred on the planet's part of the shadow when that outlasts an orbit (dark
+  // wherever the spacecraft is on it), else on the whole shadow.
+  const middleMs = shadow.parentS >= periodS ? shadow.parentMiddleMs : shadow.startMs + (shadow.durationS * 1000) / 2;
+  const startMs = middleMs - periodS * 500;
+  return { day, durationS: shadow.durationS, castBy: shadow.castBy, startMs: shadow.startMs, orbitStart: new Date(Math.round(startMs)).toISOString() };
+}
+
+function shadowReason(darkest: DarkestDay, chosen: Evaluated): string {
+  const names = darkest.castBy.map((id) => getBody(id).name);
+  const hhmm = (ms: number) => new Date(ms).toISOString().slice(11, 16);
+  return (
+    `the mission's longest shadow, ${f(darkest.durationS / 3600, 2)} h from ${darkest.day.date} ${hhmm(darkest.startMs)} UTC, cast by ${names.join(' and ')}` +
+    ` (${names.length > 1 ? `${names[0]}'s own shadow joined to its planet's` : `${names[0]}'s shadow over the moon`}): the orbit from ${hhmm(Date.parse(chosen.orbitStart ?? ''))} UTC` +
+    ` is the case, beta ${f(chosen.day.betaDeg)} deg, eclipse ${minutes(chosen.env.eclipseDurationS)} of the orbit, ${f(chosen.total)} W orbit-average absorbed`
+  );
 }
 
 /** The hot and the cold case of a mission (DOMAIN.md "Cases"). */
@@ -259,15 +296,25 @@ function deriveOne(
     const env = environmentFor(base(day, SCAN_STEPS), SCAN_STEPS);
     return { day, env, total: env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0) };
   });
-  const chosen = maxBy(evaluated, (e) => sign * e.total);
+  // About a moon, the cold case is the orbit amid the mission's longest shadow its planet takes part in.
+  const darkest = hot ? null : longestParentShadow(scan, input);
+  let chosen = maxBy(evaluated, (e) => sign * e.total);
+  if (darkest) {
+    const conditions = { ...base(darkest.day, SCAN_STEPS), orbitStart: darkest.orbitStart };
+    const env = environmentFor(conditions, SCAN_STEPS);
+    chosen = { day: darkest.day, env, total: env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0), orbitStart: darkest.orbitStart };
+    evaluated.push(chosen);
+  }
   // Hot: the least eclipse (ties to the largest |beta|); cold: the longest eclipse (smallest |beta|).
   const eclipseExtreme = maxBy(evaluated, (e) => -sign * e.env.eclipseDurationS * 1e3 + sign * Math.abs(e.day.betaDeg) * 1e-3);
-  const conditions = base(chosen.day, input.steps ?? 120);
+  const conditions: CaseConditions = chosen.orbitStart === undefined
+    ? base(chosen.day, input.steps ?? 120)
+    : { ...base(chosen.day, input.steps ?? 120), orbitStart: chosen.orbitStart };
   const results = evaluateCase(conditions, input.margins);
 
   const rationale = [
     `solar flux ${f(solarFluxWm2(distanceAu), 0)} W/m^2 at ${f(distanceAu, 4)} AU (${where}; TSI 1361 W/m^2 at 1 AU, inverse square)`,
-    betaReason(hot, chosen, eclipseExtreme),
+    darkest ? shadowReason(darkest, chosen) : betaReason(hot, chosen, eclipseExtreme),
     `albedo ${f(pair.albedo, 2)} with OLR ${f(pair.olrWm2, 0)} W/m^2: the ${kind} pair (${pair.source})`,
     ...materialReasons(input.surfaces, properties),
     `heat loads ${hot ? '+' : '-'}${input.margins.heatLoadPercent} % (${input.margins.sources.heatLoadPercent}); temperature margin ${input.margins.temperatureMarginC} C (${input.margins.sources.temperatureMarginC})`,

@@ -15,7 +15,7 @@ export interface ScanDay {
   raanDeg: number;
   solarDistanceAu: number;
   /** About a moon: the longest shadow its planet takes part in that day (mission-days.ts), or null. */
-  parentShadow: { durationS: number; startMs: number; castBy: BodyId[] } | null;
+  parentShadow: { durationS: number; startMs: number; castBy: BodyId[]; parentS: number; parentMiddleMs: number } | null;
 }
 
 const DAY_MS = 86_400_000;
@@ -60,7 +60,9 @@ function sample(scan: MissionDays, ms: number, stepDays: number): ScanDay {
   const halfWindowMs = (stepDays * DAY_MS) / 2;
   let parentShadow: ScanDay['parentShadow'] = null;
   for (const span of scan.parentSpans(ms - halfWindowMs, ms + halfWindowMs)) {
-    if (!parentShadow || span.durationS > parentShadow.durationS) parentShadow = { durationS: span.durationS, startMs: span.startMs, castBy: span.castBy };
+    if (!parentShadow || span.durationS > parentShadow.durationS) parentShadow = {
+      durationS: span.durationS, startMs: span.startMs, castBy: span.castBy, parentS: span.parentS, parentMiddleMs: span.parentMiddleMs,
+    };
   }
   return {
     date: new Date(ms).toISOString().slice(0, 10),

@@ -8,6 +8,8 @@ import { eclipticToEquatorial, heliocentricEclipticAu, poleRaDecRad, solarFluxWm
 import { cross, DEG, dot, fromSpherical, norm } from './vector3';
 import { sweepMission } from './mission-sweep';
 import { computeEnvironment } from './environment';
+import { deriveDesignCases } from './design-cases';
+import { defaultMargins } from './design-environment';
 
 /** A moon's centre against its planet's conical shadow: distance off the axis and the umbra and penumbra radii there, km. */
 function moonAgainstShadow(moonId: string, ms: number) {
@@ -205,5 +207,22 @@ describe('the compute route about a moon at an epoch', () => {
     const clear = computeEnvironment({ bodyId: 'europa', orbit: orbitInput, epoch: new Date(Date.parse(middle) + 86400e3).toISOString(), steps: 72, surfaces });
     expect(clear.parentShadowDurationS).toBe(0);
     expect(clear.eclipseFraction).toBeLessThan(0.6);
+  });
+});
+
+describe('the cold case about a moon', () => {
+  it('takes the orbit amid the mission\'s longest shadow, saying when and who cast it (Europa in Jupiter\'s shadow, source above)', () => {
+    const europa = getBody('europa');
+    const paint = { name: 'white paint', absorptivityBol: 0.26, emissivityBol: 0.83, absorptivityEol: 0.5, emissivityEol: 0.83, source: 'test' };
+    const d = deriveDesignCases({
+      bodyId: 'europa', orbit: { semiMajorAxisKm: europa.radiusKm + 100, eccentricity: 0, inclinationDeg: 85, raanDeg: 0, argPeriapsisDeg: 0 },
+      orbitEpoch: '2030-01-01T00:00:00Z', startDate: '2030-01-01', endDate: '2030-01-10',
+      surfaces: [{ name: 'zenith radiator', normal: 'zenith', areaM2: 0.5, material: paint }], margins: defaultMargins(),
+    });
+    expect(d.cold.conditions.orbitStart).toBeDefined();
+    expect(d.cold.rationale[1]).toMatch(/longest shadow, [23]\.\d\d h from 2030-01-\d\d \d\d:\d\d UTC, cast by (Europa and )?Jupiter/);
+    expect(d.cold.results.eclipseFraction).toBeGreaterThan(0.99);
+    expect(d.cold.results.total.orbitAverageAbsorbedW).toBeLessThan(d.hot.results.total.orbitAverageAbsorbedW);
+    expect(d.hot.conditions.orbitStart).toBeUndefined();
   });
 });

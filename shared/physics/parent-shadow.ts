@@ -30,8 +30,9 @@ export interface ShadowSpan {
   startMs: number;
   endMs: number;
   durationS: number;
-  /** Time of the span in the planet's shadow (penumbra included), s. */
+  /** Time of the span in the planet's shadow (penumbra included), s, and the middle of that part (ms). */
   parentS: number;
+  parentMiddleMs: number;
   /** The bodies whose shadow makes up the span: the planet, and the moon where its own shadow joins on. */
   castBy: BodyId[];
 }
@@ -231,7 +232,7 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     const to = lastIn + coarseMs + periodMs / 2;
     const axes = perifocalAt(centreMs, frame);
     const spans: ShadowSpan[] = [];
-    let run: { startMs: number; parentS: number; moon: boolean } | null = null;
+    let run: { startMs: number; parentS: number; moon: boolean; parentFirstMs: number; parentLastMs: number } | null = null;
     let prev = shadeAt(from, frame, axes);
     let prevT = from;
     for (let t = from + stepMs; t <= to + stepMs / 2; t += stepMs) {
@@ -239,9 +240,13 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
       const cur: Shade = deep ? { moonTest: -1, parentTest: -1, moon: 1, parent: 0, sunlit: 0 } : shadeAt(t, frame, axes);
       const wasDark = prev.sunlit < 1;
       const isDark = cur.sunlit < 1;
-      if (!wasDark && isDark) run = { startMs: edgeMs(prevT, prev, t, cur), parentS: 0, moon: cur.moon < 1 };
+      if (!wasDark && isDark) run = { startMs: edgeMs(prevT, prev, t, cur), parentS: 0, moon: cur.moon < 1, parentFirstMs: Infinity, parentLastMs: -Infinity };
       if (run && isDark) {
-        if (cur.parent < 1 || prev.parent < 1) run.parentS += (t - prevT) / 1000;
+        if (cur.parent < 1 || prev.parent < 1) {
+          run.parentS += (t - prevT) / 1000;
+          run.parentFirstMs = Math.min(run.parentFirstMs, prevT);
+          run.parentLastMs = t;
+        }
         if (cur.moon < 1) run.moon = true;
       }
       if (run && wasDark && !isDark) {
@@ -250,6 +255,7 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
         if (run.parentS > 0 && run.startMs > from) {
           spans.push({
             startMs: run.startMs, endMs, durationS: (endMs - run.startMs) / 1000, parentS: run.parentS,
+            parentMiddleMs: (run.parentFirstMs + run.parentLastMs) / 2,
             castBy: run.moon ? [body.id, parent.id] : [parent.id],
           });
         }
