@@ -74,7 +74,9 @@ const kestrelEuropa: DemoMission = {
   startDate: '2034-03-01',
   endDate: '2034-08-31',
   orbits: [
-    { name: 'Polar mapping orbit 200 km', epoch: '2034-03-01T00:00:00Z', input: { periapsisAltitudeKm: '200 km', apoapsisAltitudeKm: '200 km', inclinationDeg: '88 deg', raanDeg: 60 } },
+    // The epoch falls an hour before Europa leaves Jupiter's shadow (15:15-18:03 UTC that day), so the
+    // orbit's plots show the planet's shadow and Europa's own.
+    { name: 'Polar mapping orbit 200 km', epoch: '2034-03-03T17:00:00Z', input: { periapsisAltitudeKm: '200 km', apoapsisAltitudeKm: '200 km', inclinationDeg: '88 deg', raanDeg: 60 } },
   ],
   surfaces: [
     { name: 'Solar array', areaM2: 6, normal: 'sun', material: 'silicon solar cells' },
