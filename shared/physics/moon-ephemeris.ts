@@ -19,7 +19,7 @@ import { getBody, type Body } from './bodies';
 import { DAYS_PER_JULIAN_CENTURY, J2000_JD, SECONDS_PER_DAY, TT_MINUS_UTC_S } from './constants';
 import { PhysicsError } from './physics-error';
 import { bodyFrameAxes, eclipticToEquatorial, poleRaDecRad } from './sun';
-import { cross, DEG, dot, fromSpherical, scale, unit, type Vector3 } from './vector3';
+import { cross, DEG, fromSpherical, scale, unit, type Vector3 } from './vector3';
 
 const ARCSEC = DEG / 3600;
 /** Light time per AU, days (Meeus 33.3). */
@@ -113,40 +113,54 @@ export interface MoonTrack {
   readonly evaluations: number;
 }
 
-/**
- * The moon's position over any span, its theory evaluated at nodes `nodeDays` apart (computed when
- * first needed, kept) and interpolated between by four-point Lagrange (Abramowitz & Stegun 25.2.13)
- * in a frame turning with the moon's mean motion about its mean plane's pole, where a near-circular
- * orbit is nearly still: the error is about (3/128) (2 pi / nodes a revolution)^4 of the orbit's
- * departures from a circle (checked against the theory in parent-shadow.spec.ts).
- */
-export function moonTrack(body: Body, nodeDays = defaultMoonNodeDays(body)): MoonTrack {
+/** The frame turning with the moon's mean motion about its mean plane's pole, in which a near-circular orbit is nearly still. */
+function coRotation(body: Body) {
   const orbit = body.parentOrbit;
   if (!orbit) throw new PhysicsError('unknown_body', `${body.name} is not a moon`);
-  const jde0 = J2000_JD;
   const pole = orbit.meanPlane === 'ecliptic'
     ? eclipticToEquatorial([0, 0, 1])
     : (() => {
-      const { raRad, decRad } = poleRaDecRad(getBody(body.planetId), jde0);
+      const { raRad, decRad } = poleRaDecRad(getBody(body.planetId), J2000_JD);
       return fromSpherical(raRad, decRad);
     })();
   const rate = (2 * Math.PI) / orbit.periodDays;
+  const [kx, ky, kz] = pole;
+  /** Rodrigues' rotation of (x, y, z) about the pole by rate * days, into out, without allocating. */
+  const turn = (x: number, y: number, z: number, days: number, out: Float64Array): void => {
+    const angle = rate * days;
+    const [cs, sn] = [Math.cos(angle), Math.sin(angle)];
+    const kv = (kx * x + ky * y + kz * z) * (1 - cs);
+    out[0] = x * cs + (ky * z - kz * y) * sn + kx * kv;
+    out[1] = y * cs + (kz * x - kx * z) * sn + ky * kv;
+    out[2] = z * cs + (kx * y - ky * x) * sn + kz * kv;
+  };
+  /** The theory's position at J2000 + days, turned back into the rotating frame. */
+  const still = (days: number): Vector3 => {
+    const p = moonOffsetKm(body, J2000_JD + days);
+    const q = new Float64Array(3);
+    turn(p[0], p[1], p[2], -days, q);
+    return [q[0], q[1], q[2]];
+  };
+  return { turn, still };
+}
+
+/**
+ * The moon's position over any span, its theory evaluated at nodes `nodeDays` apart (computed when
+ * first needed, kept) and interpolated between by four-point Lagrange (Abramowitz & Stegun 25.2.13)
+ * in the frame turning with the moon (coRotation): the error is about (3/128) (2 pi / nodes a
+ * revolution)^4 of the orbit's departures from a circle (checked against the theory in
+ * parent-shadow.spec.ts).
+ */
+export function moonTrack(body: Body, nodeDays = defaultMoonNodeDays(body)): MoonTrack {
+  const { turn, still } = coRotation(body);
   const nodes = new Map<number, Vector3>();
   let evaluations = 0;
-  // Rodrigues' rotation about the pole by angle (rad)
-  const turn = (v: Vector3, angle: number): Vector3 => {
-    const [c, s] = [Math.cos(angle), Math.sin(angle)];
-    const kxv = cross(pole, v);
-    const kv = dot(pole, v) * (1 - c);
-    return [v[0] * c + kxv[0] * s + pole[0] * kv, v[1] * c + kxv[1] * s + pole[1] * kv, v[2] * c + kxv[2] * s + pole[2] * kv];
-  };
   const node = (k: number): Vector3 => {
     let q = nodes.get(k);
     if (!q) {
       if (nodes.size > 4096) nodes.clear();
-      const days = k * nodeDays;
       evaluations++;
-      q = turn(moonOffsetKm(body, jde0 + days), -rate * days);
+      q = still(k * nodeDays);
       nodes.set(k, q);
     }
     return q;
@@ -157,7 +171,7 @@ export function moonTrack(body: Body, nodeDays = defaultMoonNodeDays(body)): Moo
       return evaluations;
     },
     at(ms: number, out: Float64Array): void {
-      const days = jdeOfMs(ms) - jde0;
+      const days = jdeOfMs(ms) - J2000_JD;
       const s = days / nodeDays;
       const j = Math.floor(s);
       const u = s - j;
@@ -169,18 +183,33 @@ export function moonTrack(body: Body, nodeDays = defaultMoonNodeDays(body)): Moo
       const b = node(j);
       const c = node(j + 1);
       const d = node(j + 2);
-      const qx = wm * a[0] + w0 * b[0] + w1 * c[0] + w2 * d[0];
-      const qy = wm * a[1] + w0 * b[1] + w1 * c[1] + w2 * d[1];
-      const qz = wm * a[2] + w0 * b[2] + w1 * c[2] + w2 * d[2];
-      // Rodrigues' rotation by rate * days about the pole, without allocating
-      const angle = rate * days;
-      const [cs, sn] = [Math.cos(angle), Math.sin(angle)];
-      const [kx, ky, kz] = pole;
-      const kv = (kx * qx + ky * qy + kz * qz) * (1 - cs);
-      out[0] = qx * cs + (ky * qz - kz * qy) * sn + kx * kv;
-      out[1] = qy * cs + (kz * qx - kx * qz) * sn + ky * kv;
-      out[2] = qz * cs + (kx * qy - ky * qx) * sn + kz * kv;
+      turn(
+        wm * a[0] + w0 * b[0] + w1 * c[0] + w2 * d[0],
+        wm * a[1] + w0 * b[1] + w1 * c[1] + w2 * d[1],
+        wm * a[2] + w0 * b[2] + w1 * c[2] + w2 * d[2],
+        days, out,
+      );
     },
+  };
+}
+
+/**
+ * The moon over a short span (a passage behind its planet, hours): the theory at the span's two
+ * ends and middle, a parabola between in the frame turning with the moon. Over a tenth of a
+ * revolution its error is under about (1/16) (2 pi x span / period)^3 of the orbit's departures from
+ * a circle: a few km for the Galilean moons (checked in parent-shadow.spec.ts). Three evaluations.
+ */
+export function localMoonTrack(body: Body, fromMs: number, toMs: number): (ms: number, out: Float64Array) => void {
+  const { turn, still } = coRotation(body);
+  const d0 = jdeOfMs(fromMs) - J2000_JD;
+  const h = (jdeOfMs(toMs) - J2000_JD - d0) / 2;
+  const [a, b, c] = [still(d0), still(d0 + h), still(d0 + 2 * h)];
+  return (ms, out) => {
+    const days = jdeOfMs(ms) - J2000_JD;
+    const u = h > 0 ? (days - d0) / h : 0;
+    // three-point Lagrange weights for nodes 0, 1, 2 (Abramowitz & Stegun 25.2.11)
+    const [wa, wb, wc] = [((u - 1) * (u - 2)) / 2, -u * (u - 2), (u * (u - 1)) / 2];
+    turn(wa * a[0] + wb * b[0] + wc * c[0], wa * a[1] + wb * b[1] + wc * c[1], wa * a[2] + wb * b[2] + wc * c[2], days, out);
   };
 }
 

@@ -18,7 +18,7 @@ import { getBody, type Body, type BodyId } from './bodies';
 import { AU_KM, SUN_RADIUS_KM } from './constants';
 import { shadowGeometry, sunlitFraction, type ShadowGeometry } from './eclipse';
 import { apsidalRateRadS } from './kepler';
-import { moonTrack, jdeOfMs, type MoonTrack } from './moon-ephemeris';
+import { jdeOfMs, localMoonTrack, moonTrack, type MoonTrack } from './moon-ephemeris';
 import type { Orbit } from './orbit-definition';
 import { trueAnomalyAt } from './orbit-grid';
 import { orbitBasis } from './orbit-position';
@@ -140,8 +140,8 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     return { p: icrf(basis.p), q: icrf(basis.q) };
   };
   /** Both shadow tests and sunlit shares at ms, the orbit's plane held as `axes` gives it. */
-  const shadeAt = (ms: number, frame: Frame, axes: { p: Vector3; q: Vector3 }): Shade => {
-    const m = moonKm(ms);
+  const shadeAt = (ms: number, frame: Frame, axes: { p: Vector3; q: Vector3 }, moonAt: (ms: number) => Vector3 = moonKm): Shade => {
+    const m = moonAt(ms);
     const elapsedS = (ms - orbitEpochMs) / 1000;
     const nu = trueAnomalyAt(orbit, ((elapsedS % orbit.periodS) + orbit.periodS) % orbit.periodS);
     const r = (a * (1 - e * e)) / (1 + e * Math.cos(nu));
@@ -231,13 +231,20 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     const from = firstIn - coarseMs - periodMs / 2;
     const to = lastIn + coarseMs + periodMs / 2;
     const axes = perifocalAt(centreMs, frame);
+    // The moon over this window from three evaluations of its theory.
+    const local = localMoonTrack(body, from, to + stepMs);
+    const localKm = (ms: number): Vector3 => {
+      local(ms, buffer);
+      return [buffer[0], buffer[1], buffer[2]];
+    };
+    const shade = (ms: number): Shade => shadeAt(ms, frame, axes, localKm);
     const spans: ShadowSpan[] = [];
     let run: { startMs: number; parentS: number; moon: boolean; parentFirstMs: number; parentLastMs: number } | null = null;
-    let prev = shadeAt(from, frame, axes);
+    let prev = shade(from);
     let prevT = from;
     for (let t = from + stepMs; t <= to + stepMs / 2; t += stepMs) {
       const deep = t > firstDeep && t < lastDeep;
-      const cur: Shade = deep ? { moonTest: -1, parentTest: -1, moon: 1, parent: 0, sunlit: 0 } : shadeAt(t, frame, axes);
+      const cur: Shade = deep ? { moonTest: -1, parentTest: -1, moon: 1, parent: 0, sunlit: 0 } : shade(t);
       const wasDark = prev.sunlit < 1;
       const isDark = cur.sunlit < 1;
       if (!wasDark && isDark) run = { startMs: edgeMs(prevT, prev, t, cur), parentS: 0, moon: cur.moon < 1, parentFirstMs: Infinity, parentLastMs: -Infinity };
@@ -263,7 +270,7 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
       }
       if (deep && t + stepMs >= lastDeep) {
         // leaving the deep stretch: sample properly again from here
-        prev = shadeAt(t, frame, axes);
+        prev = shade(t);
       } else prev = cur;
       prevT = t;
     }
