@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { getBody, solarDistanceRangeAu } from './bodies';
 import { AU_KM, SUN_RADIUS_KM } from './constants';
-import { jdeOfMs, moonOffsetKm } from './moon-ephemeris';
+import { jdeOfMs, localMoonTrack, moonOffsetKm, moonTrack } from './moon-ephemeris';
 import { defineOrbit } from './orbit-definition';
 import { combinedSunlit, parentShadow } from './parent-shadow';
 import { eclipticToEquatorial, heliocentricEclipticAu, poleRaDecRad, solarFluxWm2, sunFromBody } from './sun';
@@ -224,5 +224,31 @@ describe('the cold case about a moon', () => {
     expect(d.cold.results.eclipseFraction).toBeGreaterThan(0.99);
     expect(d.cold.results.total.orbitAverageAbsorbedW).toBeLessThan(d.hot.results.total.orbitAverageAbsorbedW);
     expect(d.hot.conditions.orbitStart).toBeUndefined();
+  });
+});
+
+describe('moon tracks against the theory they interpolate (closed form: the theory itself)', () => {
+  const worst = (id: string, at: (ms: number, out: Float64Array) => void, fromMs: number, toMs: number) => {
+    const out = new Float64Array(3);
+    let max = 0;
+    for (let ms = fromMs; ms <= toMs; ms += (toMs - fromMs) / 97) {
+      at(ms, out);
+      const exact = moonOffsetKm(getBody(id), jdeOfMs(ms));
+      max = Math.max(max, Math.hypot(out[0] - exact[0], out[1] - exact[1], out[2] - exact[2]));
+    }
+    return max;
+  };
+  it('keeps the global track within 150 km for Europa and 80 km for the Moon over a month', () => {
+    const from = Date.parse('2031-03-01T00:00:00Z');
+    const to = from + 30 * 86400e3;
+    const europa = moonTrack(getBody('europa'));
+    const moon = moonTrack(getBody('moon'));
+    expect(worst('europa', (ms, out) => europa.at(ms, out), from, to)).toBeLessThan(150);
+    expect(worst('moon', (ms, out) => moon.at(ms, out), from, to)).toBeLessThan(80);
+  });
+  it('keeps a passage\'s three-point track within 20 km over 6 h for Europa and 50 km over 12 h for the Moon', () => {
+    const from = Date.parse('2031-03-01T00:00:00Z');
+    expect(worst('europa', localMoonTrack(getBody('europa'), from, from + 6 * 3600e3), from, from + 6 * 3600e3)).toBeLessThan(20);
+    expect(worst('moon', localMoonTrack(getBody('moon'), from, from + 12 * 3600e3), from, from + 12 * 3600e3)).toBeLessThan(50);
   });
 });
