@@ -136,7 +136,7 @@ describe('heaters and loops against energy balances', () => {
     const r = solveThermal({
       ...orbit,
       nodes: [{ name: 'amplifier', capacitanceJK: 5000, initialC: 20, dissipationW: 80 }],
-      loops: [{ name: 'loop A', nodes: ['amplifier'], inletC: 10, specificHeatJKgK: 3500, effectiveness: 0.8, setPointC: 25, minFlowKgS: 0.0005, maxFlowKgS: 0.01, nominalFlowKgS: 0.002 }],
+      loops: [{ name: 'loop A', nodes: ['amplifier'], inletC: 10, specificHeatJKgK: 3500, effectiveness: 0.8, setPointC: 25, controlNode: 'amplifier', minFlowKgS: 0.0005, maxFlowKgS: 0.01, nominalFlowKgS: 0.002 }],
     });
     const loop = r.loops[0];
     expect(r.nodes[0].meanC).toBeCloseTo(25, 1);

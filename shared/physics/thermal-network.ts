@@ -11,6 +11,7 @@
 // contracts quickly and rebuilt when it does not.
 import { STEFAN_BOLTZMANN } from './constants';
 import { minimumDegreeOrder, SparseCholesky } from './sparse-cholesky';
+import { ClosedLoops, withCoolantLumps } from './thermal-loops';
 import { KELVIN_OFFSET, ThermalConvergenceError, ThermalModelError, type DissipationSchedule, type OrbitSeries, type ThermalModelInput } from './thermal-model';
 
 export interface ThermalNetwork {
@@ -39,6 +40,8 @@ export interface ThermalNetwork {
   readonly sourceW: Float64Array;
   readonly initialK: Float64Array;
   readonly fixedK: Float64Array;
+  /** Closed coolant loops (their lumps are free unknowns after the model's nodes), or null. */
+  readonly loops: ClosedLoops | null;
 }
 
 const radiatingArea = (area: number | undefined, eps: number | undefined) => (area ?? 0) * (eps ?? 0);
@@ -81,7 +84,8 @@ export function nodeIndexOf(model: ThermalModelInput): Map<string, number> {
   return index;
 }
 
-export function buildNetwork(model: ThermalModelInput, substeps = 1): ThermalNetwork {
+export function buildNetwork(userModel: ThermalModelInput, substeps = 1): ThermalNetwork {
+  const model = withCoolantLumps(userModel);
   const index = nodeIndexOf(model);
   const find = (name: string, path: string) => {
     const i = index.get(name);
@@ -202,6 +206,7 @@ export function buildNetwork(model: ThermalModelInput, substeps = 1): ThermalNet
     n, nodeOfFree, freeOfNode, capacitanceJK, radiationWK4, boundaryWK: boundaryFree,
     adjStart, adjIndex, adjConductanceWK, adjRadiationWK4, adjFactorEntry, factor,
     steps, substeps, dtS, sourceW, initialK, fixedK,
+    loops: model === userModel ? null : new ClosedLoops(model, userModel.nodes.length, freeOfNode, factor),
   };
 }
 
@@ -229,6 +234,7 @@ export function assembleNetworkMatrix(net: ThermalNetwork, T: Float64Array, capa
     diag[i] = d;
     dominance = Math.max(dominance, off / d);
   }
+  net.loops?.addSymmetric(diag, lower);
   return dominance;
 }
 
@@ -266,10 +272,12 @@ export class ImplicitStep {
     const { net, diag, lower } = this;
     const dominance = assembleNetworkMatrix(net, T, alpha / dtS, extraWK, diag, lower);
     // Gauss-Seidel contracts by about the square of this ratio per sweep.
-    this.sweeping = dominance < 0.3;
+    // A closed loop's advection is not in the sweep: those networks always take the factor.
+    this.sweeping = dominance < 0.3 && !net.loops;
     if (!net.factor.factor(diag, lower)) {
       throw new ThermalConvergenceError('The network matrix is not positive definite: a capacitance or a conductance is not positive.', 0, NaN);
     }
+    net.loops?.prepare(net.factor);
     this.factored = true;
     this.factorAlpha = alpha;
     this.factorDtS = dtS;
@@ -350,7 +358,9 @@ export class ImplicitStep {
         }
         r[i] = -out;
       }
+      if (net.loops) net.loops.subtractHeatOut(T, r);
       net.factor.solve(r);
+      net.loops?.correct(r);
       let change = 0;
       for (let i = 0; i < n; i++) {
         T[i] += r[i];

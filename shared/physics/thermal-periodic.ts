@@ -47,6 +47,8 @@ export interface PeriodicRun {
   loopSamplesKgS: Float64Array[];
   loopAverageKgS: number[];
   loopHeatW: number[];
+  /** Per closed-loop path element (net.loops order): the heat the coolant took from it, orbit average, W. */
+  elementHeatW: number[];
   iterations: number;
   factorizations: number;
 }
@@ -283,6 +285,7 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
         loopSamplesKgS: OrbitStepper.bySeries(stepper.loopSamplesKgS, L, steps),
         loopAverageKgS: controllers.loops.map((_, k) => sum((o) => o.loopFlowSum, k) / (total * averagedOrbits)),
         loopHeatW: controllers.loops.map((_, k) => sum((o) => o.loopHeatJ, k) / span),
+        elementHeatW: Array.from(stepper.elementJ, (j) => j / model.periodS),
         iterations: step.iterations,
         factorizations: step.factorizations,
       };

@@ -103,7 +103,7 @@ describe('validation', () => {
       ...base(),
       couplings: [{ from: 'box', to: 'pannel', conductanceWK: 1 }],
       heaters: [{ node: 'batery', powerW: 5, onC: 0, offC: 3 }],
-      loops: [{ name: 'loop', nodes: ['pump plate'], inletC: 10, specificHeatJKgK: 3500, setPointC: 20, minFlowKgS: 0, maxFlowKgS: 0.1, nominalFlowKgS: 0.05 }],
+      loops: [{ name: 'loop', nodes: ['pump plate'], inletC: 10, specificHeatJKgK: 3500, setPointC: 20, controlNode: 'pump plate', minFlowKgS: 0, maxFlowKgS: 0.1, nominalFlowKgS: 0.05 }],
     });
     expect(res.status).toBe(400);
     const details = res.body.error.details as { path: string; message: string }[];
