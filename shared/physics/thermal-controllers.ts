@@ -213,15 +213,9 @@ export class ThermalControllers {
     return refactor;
   }
 
-  /** Heat the loop takes from its nodes at temperatures T with its current flow, W (closed: what it takes up, its heat moved). */
+  /** Heat an open loop takes from its nodes at temperatures T with its current flow, W (a closed loop's is per element, in the orbit stepper). */
   loopHeatW(k: number, T: Float64Array): number {
     const loop = this.loops[k];
-    const closed = this.net.loops;
-    if (loop.closed >= 0 && closed) {
-      let taken = 0;
-      for (let e = closed.start[loop.closed]; e < closed.start[loop.closed] + closed.count[loop.closed]; e++) taken += Math.max(closed.elementHeatW(e, T), 0);
-      return taken;
-    }
     const g = loop.conductancePerFlow * this.flowKgS[k];
     return loop.frees.reduce((sum, free) => sum + g * (T[free] - loop.inletK), 0);
   }

@@ -81,7 +81,7 @@ export function loopResults(model: ThermalModelInput, net: ThermalNetwork, run: 
       averageFlowKgS: round(run.loopAverageKgS[k], 6),
       nominalFlowKgS: loop.nominalFlowKgS,
       averageToNominal: round(run.loopAverageKgS[k] / loop.nominalFlowKgS),
-      heatRemovedW: round(run.loopHeatW[k]),
+      heatRemovedW: round(c >= 0 ? elements.reduce((a, e) => a + Math.max(run.elementHeatW[e], 0), 0) : run.loopHeatW[k]),
       coolantC: elements.map((e, j) => ({ node: path[j].node, temperaturesC: series(run.samplesK[closed!.lumpFree[e]], KELVIN_OFFSET) })),
       heatW: elements.map((e, j) => ({ node: path[j].node, averageW: round(run.elementHeatW[e]) })),
       saturatedFraction: round(saturated / flow.length),

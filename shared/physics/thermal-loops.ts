@@ -21,8 +21,8 @@
 import type { SparseCholesky } from './sparse-cholesky';
 import type { CoolantLoopInput, ThermalModelInput } from './thermal-model';
 
-/** Past this NTU the element has reached its plate (e^-20 = 2e-9): g stops growing. */
-const MAX_NTU = 20;
+/** Past this NTU the element has reached its plate (e^-12 = 6e-6): g stops growing, which keeps the matrix well conditioned. */
+const MAX_NTU = 12;
 /** Lump names cannot clash with a user's node names (those are trimmed printable text). */
 const LUMP_PREFIX = '\u0000coolant';
 
@@ -131,6 +131,17 @@ export class ClosedLoops {
   /** Heat the coolant takes from element e's node at temperatures T, W (negative where it gives heat up). */
   elementHeatW(e: number, T: Float64Array): number {
     return this.g[e] * (T[this.nodeFree[e]] - T[this.lumpFree[e]]);
+  }
+
+  /**
+   * The same heat from the coolant's side of a solved implicit step: what lump e stored,
+   * (C/dt)(alpha T - history), plus what it carried on, m_dot c_p (Tc_e - Tc_prev). Equal to
+   * elementHeatW at the step's solution, but without g's large factor on the step's tolerance (at
+   * high NTU g is huge and T_node - Tc tiny).
+   */
+  coolantSideHeatW(e: number, T: Float64Array, history: Float64Array, alpha: number, dtS: number, capacitanceJK: Float64Array): number {
+    const lump = this.lumpFree[e];
+    return (capacitanceJK[lump] / dtS) * (alpha * T[lump] - history[lump]) + this.flowCp[this.loopOf[e]] * (T[lump] - T[this.prevLump[e]]);
   }
 
   /** Takes each unknown's loop heat out of `r` (r holds minus the heat out of each unknown). */

@@ -168,7 +168,7 @@ export class OrbitStepper {
         loopHeatJ[k] += controllers.loopHeatW(k, Tnext) * dtS;
         loopSamplesKgS[sample * L + k] += flow / substeps;
       }
-      for (let e = 0; e < elementJ.length; e++) elementJ[e] += closed!.elementHeatW(e, Tnext) * dtS;
+      for (let e = 0; e < elementJ.length; e++) elementJ[e] += closed!.coolantSideHeatW(e, Tnext, history, alpha, dtS, net.capacitanceJK) * dtS;
       for (let i = 0; i < n; i++) {
         const t = Tnext[i];
         if (t < minK[i]) minK[i] = t;
