@@ -1,6 +1,7 @@
 // Closed coolant loops against closed forms and textbook relations (issue 14, item 6).
 import { describe, expect, it } from 'vitest';
 import { STEFAN_BOLTZMANN as SIGMA } from './constants';
+import { periodicFirstOrderLag } from './thermal-closed-forms';
 import { recoveries } from './thermal-loop-results';
 import type { CoolantLoopInput, ThermalSolveInput } from './thermal-model';
 import { solveThermal } from './thermal-solver';
@@ -107,7 +108,6 @@ describe('closed coolant loops', () => {
     const flow = 0.002;
     const w = flow * cp;
     const G = w * (1 - Math.exp(-5 / w));
-    const tau = C / G;
     const periodS = 6000;
     const onS = 2000;
     const q = 30;
@@ -123,12 +123,7 @@ describe('closed coolant loops', () => {
       loops: [{ name: 'loop', path: [{ node: 'unit', conductanceWK: 5 }, { node: 'sink', conductanceWK: 1e5 }], fluidMassKg: 0.005, specificHeatJKgK: cp, minFlowKgS: flow, maxFlowKgS: flow, nominalFlowKgS: flow }],
       start: 'initial',
     });
-    const tInf = q / G;
-    const a = Math.exp(-onS / tau);
-    const b = Math.exp(-(periodS - onS) / tau);
-    const low = (tInf * (1 - a) * b) / (1 - a * b);
-    const high = tInf + (low - tInf) * a;
-    const exact = (t: number) => (t <= onS ? tInf + (low - tInf) * Math.exp(-t / tau) : high * Math.exp(-(t - onS) / tau));
+    const { at: exact } = periodicFirstOrderLag(q, G, C, onS, periodS);
     r.tS.forEach((t, k) => expect(Math.abs(r.nodes[0].temperaturesC[k] - exact(t))).toBeLessThan(0.05));
   });
 
