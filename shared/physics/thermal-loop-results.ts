@@ -3,7 +3,7 @@
 // sits at a limit, and how well the controller holds its node (largest deviation from the set
 // point, time outside the band, and, given the orbit's eclipse entries and exits, how long the node
 // takes to come back within the band after each).
-import { KELVIN_OFFSET, type ControlFigures, type LoopResult, type ThermalModelInput } from './thermal-model';
+import { KELVIN_OFFSET, type ControlFigures, type LoopResult, type ThermalModelInput, type ThermalSolveResult } from './thermal-model';
 import type { ThermalNetwork } from './thermal-network';
 import type { PeriodicRun } from './thermal-periodic';
 
@@ -54,6 +54,16 @@ export function recoveries(temperaturesC: readonly number[], sunlit: readonly nu
     for (let s = e.s; s < next; s++) if (outside(s)) last = s;
     const returnS = last < 0 ? 0 : last + 1 >= next ? null : round((last + 1 - e.s) * dt, 1);
     return { event: e.event, atS: round(e.s * dt, 1), returnS };
+  });
+}
+
+/** For every controlled loop of a run: the return within its band after each eclipse entry and exit. */
+export function controlRecoveries(result: Pick<ThermalSolveResult, 'nodes' | 'loops'>, sunlit: readonly number[], periodS: number): ({ loop: string; node: string } & Recovery)[] {
+  return result.loops.flatMap((loop) => {
+    const control = loop.control;
+    const node = control ? result.nodes.find((n) => n.name === control.node) : undefined;
+    if (!control || !node) return [];
+    return recoveries(node.temperaturesC, sunlit, control.setPointC, control.bandK, periodS).map((r) => ({ loop: loop.name, node: control.node, ...r }));
   });
 }
 
