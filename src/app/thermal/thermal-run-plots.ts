@@ -1,5 +1,6 @@
 // Plot and file inputs from a run's answer: a node's temperature over the orbit with its limits,
-// the heaters' on/off strips, the loops' flows, and the CSV of every node's temperature. Minutes.
+// the heaters' on/off strips, and the CSV of every node's temperature (the loops' are in
+// thermal-loop-plots.ts). Minutes.
 import type { ThermalRunResponse } from '../../../shared/api/thermal-models';
 import type { CsvColumn } from '../plots/csv-download';
 import type { LimitLine, PlotBand, PlotSeries, StripRow } from '../plots/plot-series';
@@ -67,13 +68,6 @@ export function heaterRows(run: Run): StripRow[] {
     });
     return { label: h.name, segments, colorVar: '--ecl-hot' };
   });
-}
-
-export function loopSeries(run: Run): PlotSeries[] {
-  const x = minutes(run);
-  return run.result.loops.map((l, k) => ({
-    id: `flow-${k}`, label: l.name, unit: 'kg/s', colorVar: k % 2 === 0 ? '--ecl-cold' : '--ecl-albedo', points: l.flowKgS.map((y, i) => ({ x: x[i] ?? 0, y })),
-  }));
 }
 
 export function temperatureColumns(run: Run): CsvColumn[] {
