@@ -116,7 +116,8 @@ function twoLoopModel(surfaceId: (name: string) => string): ThermalModelContent 
         name: 'hull loop', specificHeatJKgK: coolantJKgK, densityKgM3: coolantKgM3, fluidMassKg: 1.5,
         path: [{ node: 'heat exchanger', conductanceWK: 40 }, { node: 'hull', conductanceWK: 3 }, { node: 'hull radiator', conductanceWK: 30 }],
         minFlowKgS: 0.00001, nominalFlowKgS: 0.004, maxFlowKgS: 0.03,
-        controlNode: 'heat exchanger', setPointC: 12, proportionalKgSK: 0.001, integralKgSKs: 0.000002, bandK: 0.5,
+        // Gains kept low: the exchanger is light (about 1 kJ/K) and the coolant returns some 100 K colder in the cold case.
+        controlNode: 'heat exchanger', setPointC: 12, proportionalKgSK: 0.0002, integralKgSKs: 0.000001, bandK: 0.5,
       },
       {
         name: 'equipment loop', specificHeatJKgK: coolantJKgK, densityKgM3: coolantKgM3, fluidMassKg: 0.8,

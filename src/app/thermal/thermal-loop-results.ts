@@ -25,9 +25,8 @@ import { controlLines, controlRows, controlSeries, coolantSeries, flowSeries, re
           }
         </h4>
         <p class="small">
-          Flow {{ l.averageFlowKgS | number: '1.4-5' }} kg/s on average
-          @if (row.averageLMin !== null) { ({{ row.averageLMin | number: '1.2-3' }} L/min) }
-          , {{ l.averageToNominal | percent: '1.0-0' }} of the nominal; at its minimum or maximum {{ l.saturatedFraction | percent: '1.0-1' }} of the orbit;
+          Flow {{ l.averageFlowKgS | number: '1.4-5' }} kg/s on average@if (row.averageLMin !== null) { ({{ row.averageLMin | number: '1.2-3' }} L/min)},
+          {{ l.averageToNominal | percent: '1.0-0' }} of the nominal; at its minimum or maximum {{ l.saturatedFraction | percent: '1.0-1' }} of the orbit;
           {{ l.heatRemovedW | number: '1.1-1' }} W moved.
         </p>
         @if (l.control; as c) {
