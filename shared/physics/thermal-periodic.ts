@@ -16,6 +16,7 @@
 import { DEFAULT_MAX_ORBITS, DEFAULT_TOLERANCE_K, KELVIN_OFFSET, ThermalConvergenceError, type ThermalModelInput, type ThermalSolveOptions } from './thermal-model';
 import { AndersonAcceleration } from './anderson-acceleration';
 import { ThermalControllers } from './thermal-controllers';
+import { LoopIntegrals } from './thermal-loop-integrals';
 import { OrbitCorrection } from './thermal-orbit-correction';
 import { newSummary, OrbitStepper, type OrbitSummary, type SwitchOn } from './thermal-orbit-stepper';
 import { buildNetwork, ImplicitStep, type ThermalNetwork } from './thermal-network';
@@ -158,7 +159,11 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
   // The larger of the last change and the estimated distance still to go: what a failure reports.
   let remainingK = Infinity;
   // Orbit-map acceleration; switched off for good once it stops helping (a thermostat limit cycle).
-  const anderson = options.accelerate === false ? null : new AndersonAcceleration(n);
+  // The loops' PI integrals ride along with the temperatures in the extrapolated orbit map.
+  const integrals = new LoopIntegrals(controllers);
+  const mapStart = new Float64Array(n + integrals.size);
+  const mapEnd = new Float64Array(n + integrals.size);
+  const anderson = options.accelerate === false ? null : new AndersonAcceleration(n + integrals.size);
   let accelerating = anderson !== null;
   const correction = new OrbitCorrection(net);
   const driftK = new Float64Array(n);
@@ -177,6 +182,7 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
   for (let orbit = 1; orbit <= maxOrbits; orbit++) {
     const summary = summaries.length >= 2 * MAX_PERIOD_ORBITS ? summaries.shift()! : newSummary(n, H, L);
     orbitStartK.set(stepper.T);
+    integrals.read(mapStart, n);
     startOn.set(controllers.on);
     const switchesBefore = controllers.switches;
     stepper.orbit(summary);
@@ -248,7 +254,12 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
         // orbit-averaged estimate misses (radiation, thermostat switching).
         if (Number.isNaN(distanceK)) correction.distance(orbitMeanK, driftK, model.periodS, controllers, summary.heaterOnS, distance);
         for (let i = 0; i < n; i++) corrected[i] = T[i] + distance[i];
-        stepper.jumpTo(anderson.next(orbitStartK, corrected));
+        mapStart.set(orbitStartK);
+        mapEnd.set(corrected);
+        integrals.read(mapEnd, n);
+        const next = anderson.next(mapStart, mapEnd);
+        stepper.jumpTo(next.subarray(0, n));
+        integrals.write(next, n);
         lastJumpOrbit = orbit;
       }
     }
