@@ -66,6 +66,9 @@ export class ClosedLoops {
   readonly flowCp: Float64Array;
   readonly specificHeat: Float64Array;
   private readonly nodeLumpEntry: Int32Array;
+  /** Per unknown, the elements whose node or lump it is (CSR). */
+  private readonly touchStart: Int32Array;
+  private readonly touchElement: Int32Array;
   private readonly ringEntry: Int32Array;
   /** Elements in rings of three or more (the skew half is theirs), and the Woodbury pieces. */
   private readonly skew: number[];
@@ -106,6 +109,14 @@ export class ClosedLoops {
     this.nodeLumpEntry = Int32Array.from(elements, (e) => entry(e.node, e.lump));
     this.ringEntry = Int32Array.from(elements, (e) => (e.prev === e.lump ? -1 : entry(e.lump, e.prev)));
     this.skew = elements.map((_, e) => e).filter((e) => this.count[this.loopOf[e]] >= 3);
+    const touching: number[][] = Array.from({ length: factor.n }, () => []);
+    elements.forEach((el, e) => {
+      touching[el.node]?.push(e);
+      touching[el.lump]?.push(e);
+    });
+    this.touchStart = new Int32Array(factor.n + 1);
+    touching.forEach((list, i) => (this.touchStart[i + 1] = this.touchStart[i] + list.length));
+    this.touchElement = Int32Array.from(touching.flat());
     const s = this.skew.length;
     this.z = this.skew.map(() => new Float64Array(factor.n));
     this.k = new Float64Array(s * s);
@@ -156,9 +167,14 @@ export class ClosedLoops {
     }
   }
 
-  /** Adds the symmetric part of the loop terms to a network matrix laid out as the factor's pattern. */
-  addSymmetric(diag: Float64Array, lower: Float64Array): void {
+  /**
+   * Adds the symmetric part of the loop terms to a network matrix laid out as the factor's pattern.
+   * Answers the largest share of a lump's or a path node's diagonal its loop couplings take (the
+   * Gauss-Seidel sweep needs it well below 1: a fast loop ties its ring tightly).
+   */
+  addSymmetric(diag: Float64Array, lower: Float64Array): number {
     const { nodeFree, lumpFree, prevLump, loopOf, g, flowCp, nodeLumpEntry, ringEntry } = this;
+    let dominance = 0;
     for (let e = 0; e < g.length; e++) {
       diag[nodeFree[e]] += g[e];
       diag[lumpFree[e]] += g[e];
@@ -170,6 +186,24 @@ export class ClosedLoops {
         lower[ringEntry[e]] -= half;
       }
     }
+    for (let e = 0; e < g.length; e++) {
+      const w = ringEntry[e] >= 0 ? flowCp[loopOf[e]] : 0;
+      dominance = Math.max(dominance, (g[e] + w) / diag[lumpFree[e]], g[e] / diag[nodeFree[e]]);
+    }
+    return dominance;
+  }
+
+  /** The loop heat out of unknown i at temperatures T, W (for the sweep, one unknown at a time). */
+  heatOut(i: number, T: Float64Array): number {
+    let out = 0;
+    for (let p = this.touchStart[i]; p < this.touchStart[i + 1]; p++) {
+      const e = this.touchElement[p];
+      const lump = this.lumpFree[e];
+      const q = this.g[e] * (T[this.nodeFree[e]] - T[lump]);
+      if (lump === i) out -= q - this.flowCp[this.loopOf[e]] * (T[lump] - T[this.prevLump[e]]);
+      else out += q;
+    }
+    return out;
   }
 
   /** The skew half of lump e's advection applied to x, with m_dot c_p per loop from `flowCp`. */

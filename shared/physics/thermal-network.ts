@@ -234,8 +234,8 @@ export function assembleNetworkMatrix(net: ThermalNetwork, T: Float64Array, capa
     diag[i] = d;
     dominance = Math.max(dominance, off / d);
   }
-  net.loops?.addSymmetric(diag, lower);
-  return dominance;
+  // Closed loops: their terms, and how much of a diagonal their couplings take.
+  return net.loops ? Math.max(dominance, net.loops.addSymmetric(diag, lower)) : dominance;
 }
 
 /**
@@ -272,8 +272,7 @@ export class ImplicitStep {
     const { net, diag, lower } = this;
     const dominance = assembleNetworkMatrix(net, T, alpha / dtS, extraWK, diag, lower);
     // Gauss-Seidel contracts by about the square of this ratio per sweep.
-    // A closed loop's advection is not in the sweep: those networks always take the factor.
-    this.sweeping = dominance < 0.3 && !net.loops;
+    this.sweeping = dominance < (net.loops ? 0.7 : 0.3);
     if (!net.factor.factor(diag, lower)) {
       throw new ThermalConvergenceError('The network matrix is not positive definite: a capacitance or a conductance is not positive.', 0, NaN);
     }
@@ -293,7 +292,7 @@ export class ImplicitStep {
     extraWK: Float64Array, extraSource: Float64Array, toleranceK: number): number {
     const { net, t4, diag } = this;
     const n = net.n;
-    const { capacitanceJK, radiationWK4, boundaryWK, adjStart, adjIndex, adjConductanceWK, adjRadiationWK4 } = net;
+    const { capacitanceJK, radiationWK4, boundaryWK, adjStart, adjIndex, adjConductanceWK, adjRadiationWK4, loops } = net;
     for (let i = 0; i < n; i++) {
       const sq = T[i] * T[i];
       t4[i] = sq * sq;
@@ -310,6 +309,7 @@ export class ImplicitStep {
           const j = adjIndex[p];
           out += adjConductanceWK[p] * (ti - T[j]) + adjRadiationWK4[p] * (t4i - t4[j]);
         }
+        if (loops) out += loops.heatOut(i, T);
         const d = -out / diag[i];
         const t = ti + d;
         T[i] = t;
