@@ -168,3 +168,11 @@ describe('closed coolant loops', () => {
     ]);
   });
 });
+
+describe('closed loops refused', () => {
+  it('names the path element that is a boundary node', () => {
+    const model = oneRadiator(0.02);
+    const nodes = model.nodes.map((n) => (n.name === 'radiator' ? { name: 'radiator', initialC: 0, fixedC: -20 } : n));
+    expect(() => solveThermal({ ...model, nodes })).toThrow(/loops\.0\.path\.1\.node: "radiator" is not a node the coolant can exchange heat with/);
+  });
+});

@@ -19,7 +19,7 @@
 // solve per lump when the matrix is refactored, a small dense solve per iteration. A ring of one or
 // two lumps has no skew half.
 import type { SparseCholesky } from './sparse-cholesky';
-import type { CoolantLoopInput, ThermalModelInput } from './thermal-model';
+import { ThermalModelError, type CoolantLoopInput, type ThermalModelInput } from './thermal-model';
 
 /** Past this NTU the element has reached its plate (e^-12 = 6e-6): g stops growing, which keeps the matrix well conditioned. */
 const MAX_NTU = 12;
@@ -91,7 +91,11 @@ export class ClosedLoops {
       this.count.push(path.length);
       path.forEach((element, j) => {
         const at = (i: number) => freeOfNode[lump + ((i + path.length) % path.length)];
-        elements.push({ node: freeOfNode[index.get(element.node) ?? -1] ?? -1, lump: at(j), prev: at(j - 1), next: at(j + 1), loop: c, ua: element.conductanceWK });
+        const node = freeOfNode[index.get(element.node) ?? -1] ?? -1;
+        if (node < 0) {
+          throw new ThermalModelError(`loops.${k}.path.${j}.node: ${JSON.stringify(element.node)} is not a node the coolant can exchange heat with (unknown, or a boundary at a fixed temperature)`, `loops.${k}.path.${j}.node`);
+        }
+        elements.push({ node, lump: at(j), prev: at(j - 1), next: at(j + 1), loop: c, ua: element.conductanceWK });
       });
       lump += path.length;
     });
