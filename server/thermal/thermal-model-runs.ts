@@ -5,6 +5,7 @@ import { and, eq } from 'drizzle-orm';
 import { asThermalSolveInput, thermalSolveRequest, type ThermalSolveRequestInput } from '../../shared/api/thermal';
 import type { ThermalModelSizeResponse, ThermalRunResponse, thermalModelSizeRequest } from '../../shared/api/thermal-models';
 import { ThermalConvergenceError, ThermalModelError } from '../../shared/physics/thermal-model';
+import { controlRecoveries } from '../../shared/physics/thermal-loop-results';
 import { heaterPowerFor, radiatorAreaFor } from '../../shared/physics/thermal-sizing';
 import { solveThermal } from '../../shared/physics/thermal-solver';
 import type { z } from 'zod';
@@ -44,6 +45,7 @@ export function runModel(db: Db, userId: string, modelId: string, caseId: string
     inputs: nodes,
     solveRequest: { ...request },
     result,
+    recoveries: controlRecoveries(result, kase.results.sunlit, parsed.periodS),
     assumptions: [...assumptions, ...result.assumptions],
   };
   db.transaction((tx) => {

@@ -142,6 +142,10 @@ export const thermalRunResponse = z.object({
   /** Exactly what went to the solver: POST it to /thermal/solve to repeat the run. */
   solveRequest: z.record(z.string(), z.unknown()),
   result: thermalSolveResponse,
+  /** Per controlled loop: the time its node takes to return within the band after each eclipse entry and exit (null: it does not before the next). Runs kept from before loops were judged have none. */
+  recoveries: z.array(z.object({
+    loop: z.string(), node: z.string(), event: z.enum(['eclipse entry', 'eclipse exit']), atS: z.number(), returnS: z.number().nullable(),
+  })).optional(),
   assumptions: z.array(z.string()),
 });
 
