@@ -249,6 +249,28 @@ describe('the other per-step answers', () => {
   });
 });
 
+describe('GET /api/v1/openapi.json', () => {
+  it('documents the columnar layout and the Arrow stream on every per-step route', async () => {
+    type Operation = { parameters?: { name: string; in: string }[]; responses: Record<string, { description: string; content?: Record<string, unknown> }> };
+    const doc = (await analyst.get('/api/v1/openapi.json').expect(200)).body as { paths: Record<string, Record<string, Operation>> };
+    const perStep: [string, string][] = [
+      ['/api/v1/environment/compute', 'post'],
+      ['/api/v1/missions/{id}/orbits/{orbitId}/sweep', 'get'],
+      ['/api/v1/missions/{id}/ephemerides/{ephemerisId}/environment', 'post'],
+      ['/api/v1/cases/{id}/export', 'get'],
+      ['/api/v1/thermal-models/{id}/run', 'post'],
+      ['/api/v1/thermal-models/{id}/runs/{caseId}', 'get'],
+    ];
+    for (const [route, method] of perStep) {
+      const operation = doc.paths[route]?.[method];
+      expect(operation, `${method} ${route}`).toBeDefined();
+      expect(operation!.parameters?.some((p) => p.in === 'query' && p.name === 'layout'), route).toBe(true);
+      expect(Object.keys(operation!.responses['200']!.content ?? {}), route).toContain(ARROW);
+      expect(operation!.responses['200']!.description).toMatch(/layout=columns/);
+    }
+  });
+});
+
 async function cookieOf(email: string): Promise<string> {
   const res = await fetch(`${base}/api/v1/auth/sign-in`, {
     method: 'POST', headers: { 'content-type': 'application/json', origin: base }, body: JSON.stringify({ email, password: 'eclipta-demo' }),
