@@ -85,7 +85,9 @@ export async function ingest(session: Session, file: string): Promise<number> {
   form.append('frame', 'EME2000');
   form.append('file', await openAsBlob(file), path.basename(file));
   const started = performance.now();
-  const res = await fetch(`${server.url}/api/v1/missions/${missionId}/ephemerides`, { method: 'POST', headers: { cookie, origin: server.url }, body: form });
+  const res = await fetch(`${server.url}/api/v1/missions/${missionId}/ephemerides`, { method: 'POST', headers: { cookie, origin: server.url }, body: form }).catch((error: unknown) => {
+    throw new Error(`the upload of ${path.basename(file)} failed: ${String((error as { cause?: unknown }).cause ?? error)}`);
+  });
   await res.arrayBuffer();
   if (res.status !== 201) throw new Error(`the upload of ${path.basename(file)} answered ${res.status}`);
   return (performance.now() - started) / 1000;

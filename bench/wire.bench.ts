@@ -9,11 +9,12 @@
 // (c) a 1,000,000-row ephemeris CSV uploaded and stored, against Python's csv module reading the
 //     same file into floats and epochs (bench/reference/csv_floats.py; target: at least 1.0x), with
 //     the peak resident memory of a fresh server while ingesting (target: under 300 MB).
-import { spawnSync } from 'node:child_process';
+import { execFile } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync, statSync } from 'node:fs';
 import http from 'node:http';
 import { cpus, loadavg, tmpdir } from 'node:os';
 import path from 'node:path';
+import { promisify } from 'node:util';
 import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import { tableFromIPC } from 'apache-arrow';
 import { ingest, median, openSession, resetPeak, root, startServer, statusMb, writeCsv, type Session } from './bench-server';
@@ -25,6 +26,7 @@ const INGEST_ROWS = 1_000_000;
 const INGEST_RUNS = Number(process.env['BENCH_RUNS'] ?? 3);
 const ARROW = 'application/vnd.apache.arrow.stream';
 const agent = new http.Agent({ keepAlive: true });
+const execFileAsync = promisify(execFile);
 
 interface Raw {
   status: number;
@@ -169,9 +171,10 @@ async function ingestRuns(session: Session, file: string): Promise<BenchRow> {
   const python: number[] = [];
   const ours: number[] = [];
   for (let run = 0; run < INGEST_RUNS; run++) {
-    const py = spawnSync('python3', [script, file], { encoding: 'utf8' });
-    if (py.status !== 0) throw new Error(`csv_floats.py failed: ${py.stderr}`);
-    python.push((JSON.parse(py.stdout) as { seconds: number }).seconds);
+    // Not spawnSync: a blocked event loop would miss the server closing the idle kept-alive socket,
+    // and the upload right after would be written into it (EPIPE).
+    const { stdout } = await execFileAsync('python3', [script, file], { encoding: 'utf8' });
+    python.push((JSON.parse(stdout) as { seconds: number }).seconds);
     ours.push(await ingest(session, file));
   }
   const peakMb = statusMb(pid, 'VmHWM');
@@ -197,8 +200,8 @@ export default async function wireBench(): Promise<BenchRow[]> {
     rows.push(existsSync(path.join(clientDir, 'index.html'))
       ? await firstLoadRow(session)
       : { measure: '(b) first load: skipped, no built client (npm run build:client)' });
-    server.child.removeAllListeners('exit');
-    server.child.kill('SIGTERM');
+    // The compute server stays up (idle) meanwhile: a new one could otherwise get its port, and
+    // fetch a kept-alive socket to the old one.
     if (!process.env['ECLIPTA_BENCH_NO_INGEST']) rows.push(await ingestRow(dir));
     rows.push({ measure: `    node ${process.version}, load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores` });
     return rows;
