@@ -13,7 +13,7 @@
 //   GET    admin/mail/:id                               -> mailMessage                   (instance administrator)
 // A workspace the caller is not a member of answers 404, never 403.
 import { z } from 'zod';
-import { roles, type Role } from './roles';
+import { roles, type Role } from './plain-lists';
 
 export { roles, type Role };
 export const role = z.enum(roles);
