@@ -166,5 +166,6 @@ export function sendPerStep<T extends object>(res: Response, form: AnswerForm, s
     res.json(plainArrays(columnar));
     return;
   }
-  res.type(ARROW_STREAM).send(Buffer.from(arrowAnswer(columnar, spec.key, spec.stepKey)));
+  const stream = arrowAnswer(columnar, spec.key, spec.stepKey);
+  res.type(ARROW_STREAM).send(Buffer.from(stream.buffer, stream.byteOffset, stream.byteLength));
 }
