@@ -19,6 +19,7 @@
 //   GET    openapi.json                     -> the whole API in OpenAPI 3
 import { z } from 'zod';
 import { lineText } from './text';
+import { answerLayout } from './answer-formats';
 import { caseInputs, caseKinds, caseResultsContent, caseStatuses, propertySetValues } from './case-content';
 import { surfaceNormal } from './missions';
 
@@ -118,7 +119,11 @@ export const caseListQuery = z.strictObject({
 });
 
 export const caseCompareQuery = z.strictObject({ with: z.string().min(1, 'give the id of the case to compare with').max(64) });
-export const caseExportQuery = z.strictObject({ format: z.enum(['json', 'csv'], { message: 'format is json or csv' }).default('json') });
+export const caseExportQuery = z.strictObject({
+  format: z.enum(['json', 'csv'], { message: 'format is json or csv' }).default('json'),
+  /** The JSON export is in columns already: the columnar layout answers it as it is (API.md "Answer formats"). */
+  layout: answerLayout,
+});
 
 const person = z.object({ id: z.string(), name: z.string(), email: z.string() }).nullable();
 

@@ -22,6 +22,7 @@
 //   PATCH|DELETE workspaces/:workspaceId/materials/:materialId   (only a workspace's own materials)
 import { z } from 'zod';
 import { lineText, multilineText } from './text';
+import { answerLayout } from './answer-formats';
 import { bodyIds } from '../physics/bodies';
 import { namedNormals } from '../physics/heat-loads';
 import { localVector } from './environment';
@@ -187,6 +188,8 @@ export const sweepQuery = z.strictObject({
   stepDays: z.coerce.number().int().min(1, 'stepDays is 1..365').max(365, 'stepDays is 1..365').default(1),
   properties: z.enum(propertySets).default('bol'),
   format: z.enum(['ndjson', 'csv']).default('ndjson'),
+  /** Columnar JSON of the whole sweep at once instead of the stream (API.md "Answer formats"). */
+  layout: answerLayout,
 });
 
 export const sweepDay = z.object({
