@@ -40,7 +40,7 @@ const twenty: Surface[] = [
 ];
 const six = named.map((n, i) => panel(n, n, i));
 
-const caseA: EnvironmentRequest = {
+export const caseA: EnvironmentRequest = {
   bodyId: 'earth', orbit: { periapsisAltitudeKm: 550, apoapsisAltitudeKm: 550, inclinationDeg: 97.6, raanDeg: 30 },
   epoch: '2027-03-20T12:00:00Z', albedo: 0.3, olrWm2: 237, steps: 3600, surfaces: twenty,
 };
@@ -90,7 +90,7 @@ const surfaceJob = (surfaces: Surface[]) => ({
   areaM2: surfaces.map((s) => s.areaM2), absorptivity: surfaces.map((s) => s.absorptivity), emissivity: surfaces.map((s) => s.emissivity),
 });
 
-function findNumpy(): string | null {
+export function findNumpy(): string | null {
   for (const python of ['python3', '/usr/bin/python3']) {
     const probe = spawnSync(python, ['-c', 'import numpy'], { encoding: 'utf8' });
     if (probe.status === 0) return python;
@@ -98,11 +98,32 @@ function findNumpy(): string | null {
   return null;
 }
 
-interface NumpyCase {
+export interface NumpyCase {
   name: string;
   medianMs: number;
   bestMs: number;
   result: Record<string, number[] | number[][]>;
+}
+
+/** Case (a) as a job for the numpy reference, run `repeats` times there. */
+export const orbitCaseJob = (repeats: number) => ({
+  name: 'a', kind: 'orbit', repeats, orbit: orbitJob(caseA.orbit), epochMs: Date.parse(caseA.epoch ?? ''), steps: caseA.steps,
+  albedo: 0.3, olrWm2: 237, ...surfaceJob(twenty),
+});
+
+/** Runs bench/reference/environment.py on the given cases; its medians, bests and results. */
+export function runNumpy(python: string, repeats: number, cases: object[]): { numpy: string; cases: NumpyCase[] } {
+  const job = {
+    repeats,
+    vsop: unwrapVsopModule(earthData),
+    obliquityDeg: OBLIQUITY_J2000_DEG, ttMinusUtcS: TT_MINUS_UTC_S, solarConstantWm2: SOLAR_CONSTANT_WM2, auKm: AU_KM, sunRadiusKm: SUN_RADIUS_KM,
+    body: { radiusKm: earth.radiusKm },
+    cases,
+  };
+  const script = path.join(path.dirname(fileURLToPath(import.meta.url)), 'reference', 'environment.py');
+  const run = spawnSync(python, [script], { input: JSON.stringify(job), encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
+  if (run.status !== 0) throw new Error(`the numpy reference failed: ${run.stderr}`);
+  return JSON.parse(run.stdout) as { numpy: string; cases: NumpyCase[] };
 }
 
 const maxRelative = (ours: number[], theirs: number[]): number =>
@@ -138,26 +159,13 @@ export default async function environmentBench(): Promise<BenchRow[]> {
     rowA['numpy ms'] = rowAnswer['numpy ms'] = rowB['numpy ms'] = 'skipped: no python3 with numpy on PATH or at /usr/bin/python3';
     return [rowA, rowAnswer, rowB, rowC, rowD];
   }
-  const job = {
-    repeats,
-    vsop: unwrapVsopModule(earthData),
-    obliquityDeg: OBLIQUITY_J2000_DEG, ttMinusUtcS: TT_MINUS_UTC_S, solarConstantWm2: SOLAR_CONSTANT_WM2, auKm: AU_KM, sunRadiusKm: SUN_RADIUS_KM,
-    body: { radiusKm: earth.radiusKm },
-    cases: [
-      {
-        name: 'a', kind: 'orbit', repeats: repeatsA, orbit: orbitJob(caseA.orbit), epochMs: Date.parse(caseA.epoch ?? ''), steps: caseA.steps,
-        albedo: 0.3, olrWm2: 237, ...surfaceJob(twenty),
-      },
-      {
-        name: 'b', kind: 'sweep', orbit: orbitJob(missionOrbit), startMs: Date.parse(String(caseB.epochStart)), orbitEpochMs: Date.parse(String(caseB.epochStart)),
-        rows: resultB.rows.length, stepDays: 1, nodeDays: sunTrackNodeDays(earth), steps: 360, albedo: 0.3, olrWm2: 237, ...surfaceJob(six),
-      },
-    ],
-  };
-  const script = path.join(path.dirname(fileURLToPath(import.meta.url)), 'reference', 'environment.py');
-  const run = spawnSync(python, [script], { input: JSON.stringify(job), encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
-  if (run.status !== 0) throw new Error(`the numpy reference failed: ${run.stderr}`);
-  const answer = JSON.parse(run.stdout) as { numpy: string; cases: NumpyCase[] };
+  const answer = runNumpy(python, repeats, [
+    orbitCaseJob(repeatsA),
+    {
+      name: 'b', kind: 'sweep', orbit: orbitJob(missionOrbit), startMs: Date.parse(String(caseB.epochStart)), orbitEpochMs: Date.parse(String(caseB.epochStart)),
+      rows: resultB.rows.length, stepDays: 1, nodeDays: sunTrackNodeDays(earth), steps: 360, albedo: 0.3, olrWm2: 237, ...surfaceJob(six),
+    },
+  ]);
   const [a, b] = answer.cases;
 
   // Every average and peak of every surface, and the eclipse, against numpy's.

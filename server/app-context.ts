@@ -1,4 +1,5 @@
 // What every router and middleware is built from: one object, made by main.ts or a test.
+import type { BackgroundWork } from './background-work';
 import type { Config } from './config';
 import type { Db, Sqlite } from './db/database';
 import type { Logger } from './logger';
@@ -12,4 +13,6 @@ export interface AppContext {
   sqlite: Sqlite;
   mailer: Mailer;
   logger: Logger;
+  /** Jobs run after the answer (server/background-work.ts). */
+  background: BackgroundWork;
 }

@@ -2,11 +2,13 @@
 import express, { Router, type Express } from 'express';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
-import { existsSync } from 'node:fs';
-import path from 'node:path';
 import type { AppContext } from './app-context';
 import { authenticate } from './auth/middleware';
 import { apiNotFound, errorMiddleware } from './errors';
+import { jsonBody } from './json-body';
+import { bodyIdleTimeout } from './request-timeouts';
+import { compressAnswers } from './http/answer-compression';
+import { clientFiles, hasClient } from './http/client-files';
 import { adminRoutes } from './routes/admin';
 import { authRoutes } from './routes/auth';
 import { caseRoutes } from './routes/cases';
@@ -41,9 +43,6 @@ export const featureRoutes: FeatureRoutes[] = [
   caseRoutes,
   thermalModelRoutes,
 ];
-
-// Large enough for a thermal model with per-step loads; uploads go through multer, not this.
-const jsonLimit = '2mb';
 
 export interface AppOptions {
   /** Built client to serve; defaults to the config's clientDir. */
@@ -95,8 +94,10 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
     res.json({ status: 'ok' });
   });
 
+  app.use('/api', compressAnswers);
   const api = Router();
-  api.use(express.json({ limit: jsonLimit }));
+  api.use(bodyIdleTimeout(ctx.config));
+  api.use(jsonBody());
   api.use(cookieParser());
   api.use(authenticate(ctx));
   for (const routes of featureRoutes) api.use(routes(ctx));
@@ -104,15 +105,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use('/api', apiNotFound);
 
   const clientDir = options.clientDir ?? ctx.config.clientDir;
-  const indexHtml = path.join(clientDir, 'index.html');
-  if (existsSync(indexHtml)) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    // The client's own routes (/missions/…, /invite/<token>) all load the same page.
-    app.get('/{*splat}', (_req, res) => {
-      res.set('Cache-Control', 'no-cache');
-      res.sendFile(indexHtml);
-    });
-  }
+  if (hasClient(clientDir)) app.use(clientFiles(clientDir));
 
   app.use(errorMiddleware(ctx.logger));
   return app;

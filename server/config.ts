@@ -1,14 +1,18 @@
 // The server's settings, read from the environment once at start-up (API.md, "Running").
 // A bad value stops the server with a sentence that names the variable and the value.
 import { randomBytes } from 'node:crypto';
-import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { isIP } from 'node:net';
+import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
+import { makePrivate, privateDir, writePrivateFile } from './private-files';
 
 export type LogLevel = 'debug' | 'info' | 'warn' | 'error';
 const logLevels: readonly LogLevel[] = ['debug', 'info', 'warn', 'error'];
 
 export interface Config {
   port: number;
+  /** Interface the HTTP server listens on; loopback unless HOST says otherwise. */
+  host: string;
   dbPath: string;
   dataDir: string;
   seed: 'demo' | 'none';
@@ -31,6 +35,15 @@ export interface Config {
   bcryptCost: number;
   /** Largest accepted upload (an ephemeris file), MB; beyond it 413. */
   uploadLimitMb: number;
+  /**
+   * Whether the mail outbox shows invitation and password reset links as sent ("shown", for
+   * development and demos) or hides them ("hidden"): they are their recipients' secrets.
+   */
+  outboxLinks: 'hidden' | 'shown';
+  /** Seconds of silence allowed while the headers or the body of a request arrive; then 408 and the connection closes. */
+  idleTimeoutS: number;
+  /** Seconds a whole request (an upload included) may take to arrive. */
+  requestTimeoutS: number;
 }
 
 export class ConfigError extends Error {
@@ -101,6 +114,18 @@ function smtpUrl(env: Env): string | null {
   return raw.trim();
 }
 
+/** An IP address or a DNS host name (RFC 1123 letters, digits, hyphens and dots). */
+function listenHost(env: Env): string {
+  const raw = env['HOST'];
+  if (raw === undefined || raw.trim() === '') return '127.0.0.1';
+  const value = raw.trim();
+  const hostName = /^(?=.{1,253}$)[a-z0-9](?:[a-z0-9-]{0,61}[a-z0-9])?(?:\.[a-z0-9](?:[a-z0-9-]{0,61}[a-z0-9])?)*$/i;
+  if (isIP(value) === 0 && !hostName.test(value)) {
+    throw new ConfigError(`HOST must be an IP address or a host name to listen on, such as 127.0.0.1 or 0.0.0.0, not ${JSON.stringify(raw)}.`);
+  }
+  return value;
+}
+
 function text(env: Env, name: string, fallback: string): string {
   const raw = env[name];
   return raw === undefined || raw === '' ? fallback : raw;
@@ -120,6 +145,7 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
   const logFile = env['ECLIPTA_LOG_FILE'];
   return {
     port,
+    host: listenHost(env),
     dbPath: path.resolve(cwd, text(env, 'ECLIPTA_DB_PATH', 'data/eclipta.db')),
     dataDir,
     seed: oneOf(env, 'ECLIPTA_SEED', ['demo', 'none'] as const, 'demo'),
@@ -135,6 +161,9 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
     migrationsDir: path.resolve(cwd, text(env, 'ECLIPTA_MIGRATIONS_DIR', 'migrations')),
     bcryptCost: env['NODE_ENV'] === 'test' ? 4 : 10,
     uploadLimitMb: positiveNumber(env, 'ECLIPTA_UPLOAD_LIMIT_MB', 50, 10000),
+    outboxLinks: oneOf(env, 'ECLIPTA_OUTBOX_LINKS', ['hidden', 'shown'] as const, 'hidden'),
+    idleTimeoutS: wholeNumber(env, 'ECLIPTA_IDLE_TIMEOUT_S', 30, 1, 3600),
+    requestTimeoutS: wholeNumber(env, 'ECLIPTA_REQUEST_TIMEOUT_S', 300, 1, 86400),
   };
 }
 
@@ -145,13 +174,13 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
 export function resolveJwtSecret(config: Config): string {
   if (config.jwtSecret) return config.jwtSecret;
   const file = path.join(config.dataDir, 'jwt-secret');
+  privateDir(config.dataDir);
   if (existsSync(file)) {
+    makePrivate(file);
     const kept = readFileSync(file, 'utf8').trim();
     if (kept.length >= 32) return kept;
   }
-  mkdirSync(config.dataDir, { recursive: true });
   const secret = randomBytes(48).toString('base64url');
-  writeFileSync(file, secret + '\n', { mode: 0o600 });
-  chmodSync(file, 0o600);
+  writePrivateFile(file, secret + '\n');
   return secret;
 }

@@ -1,6 +1,6 @@
 // The one error type of the API and the middleware that turns every failure into API.md's shape:
 // {"error": {"code", "message", "details"?}}. No stack trace ever reaches a client.
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
 import { ZodError, type ZodType, type z } from 'zod';
 import type { ErrorBody, ErrorDetail } from '../shared/api/errors';
 import { PhysicsError } from '../shared/physics/physics-error';
@@ -44,7 +44,8 @@ function describeValue(value: unknown): string {
   try {
     shown = JSON.stringify(value) ?? String(value);
   } catch {
-    shown = String(value);
+    // Not serialisable (too deep for the stack, a cycle): say what it is, never String() it, which recurses too.
+    shown = Array.isArray(value) ? 'an array' : typeof value === 'object' && value !== null ? 'an object' : typeof value;
   }
   return shown.length > 60 ? shown.slice(0, 57) + '…' : shown;
 }
@@ -84,11 +85,14 @@ function summary(details: ErrorDetail[]): string {
   return details.length > 1 ? `${lead} (and ${details.length - 1} more).` : `${lead}.`;
 }
 
-/** Parses a request part with a shared schema, or throws the 400 that names the fields. */
-export function parse<S extends ZodType>(schema: S, value: unknown): z.output<S> {
+/**
+ * Parses a request part with a shared schema, or throws the 400 that names the fields; `at` puts
+ * the part's own path in front of them (e.g. "orbit" for "orbit.raanDeg").
+ */
+export function parse<S extends ZodType>(schema: S, value: unknown, at?: string): z.output<S> {
   const result = schema.safeParse(value, { reportInput: true });
   if (result.success) return result.data;
-  const details = zodDetails(result.error, value);
+  const details = zodDetails(result.error, value).map((d) => (at ? { ...d, path: d.path ? `${at}.${d.path}` : at } : d));
   throw badRequest(summary(details), details);
 }
 
@@ -100,39 +104,83 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
 interface BodyParserError {
   type?: unknown;
   status?: unknown;
-  expose?: unknown;
+  statusCode?: unknown;
 }
 
-function isBodyParserError(err: unknown): err is Error & BodyParserError {
-  return err instanceof Error && typeof (err as BodyParserError).type === 'string' && typeof (err as BodyParserError).status === 'number';
+/** A 4xx status carried by an error of body-parser, raw-body, zlib under body-parser, or multer's busboy. */
+function clientStatus(err: Error): number | null {
+  const { status, statusCode } = err as BodyParserError;
+  const code = typeof status === 'number' ? status : statusCode;
+  return typeof code === 'number' && code >= 400 && code < 500 ? code : null;
+}
+
+const encodingOf = (req: Request): string => JSON.stringify(String(req.headers['content-encoding'] ?? 'identity'));
+
+/**
+ * Every error of reading a request body as a 4xx: body-parser's by its `type` (every type, even the
+ * two it marks 500, stream.encoding.set and stream.not.readable: whatever a client can provoke is
+ * answered as the client's), a compressed body that does not decompress (zlib's error, which
+ * body-parser marks 400 without a type), and anything else with a 4xx status. Null for an error
+ * that is not about the request.
+ */
+function bodyError(err: unknown, req: Request): ApiError | null {
+  if (!(err instanceof Error)) return null;
+  const type = (err as BodyParserError).type;
+  switch (type) {
+    case 'entity.parse.failed':
+      return badRequest('The request body is not valid JSON.', undefined, 'invalid_json');
+    case 'entity.too.large':
+    case 'parameters.too.many':
+      return tooLarge('The request body is too large.');
+    case 'entity.too.deep':
+      return badRequest(err.message, undefined, 'too_deep');
+    case 'encoding.unsupported':
+      return new ApiError(415, 'unsupported_encoding', `Content-Encoding ${encodingOf(req)} is not supported; send the body as it is, or compressed with gzip, deflate or br.`);
+    case 'charset.unsupported':
+      return new ApiError(415, 'unsupported_charset', 'The request body must be JSON in UTF-8 (Content-Type: application/json; charset=utf-8).');
+    case 'request.aborted':
+    case 'request.size.invalid':
+      return badRequest('The request body did not arrive whole (it is shorter than its Content-Length).', undefined, 'incomplete_body');
+    case 'entity.verify.failed':
+    case 'stream.encoding.set':
+    case 'stream.not.readable':
+      return badRequest('The request body could not be read.', undefined, 'bad_request');
+  }
+  const status = clientStatus(err);
+  if (status === null) return null;
+  if (type === undefined && status === 400 && req.headers['content-encoding'] !== undefined) {
+    return badRequest(`The request body could not be decompressed as Content-Encoding ${encodingOf(req)} says.`, undefined, 'invalid_encoding');
+  }
+  return new ApiError(status, 'bad_request', 'The request could not be read.');
+}
+
+/** Any failure as API.md's error; null for one that is the server's fault. */
+function knownError(err: unknown, req: Request): ApiError | null {
+  if (err instanceof ApiError) return err;
+  if (err instanceof PhysicsError) {
+    // Units that cannot be read and half-given orbit definitions are malformed input (400);
+    // everything else the physics refuses is well formed but impossible (422).
+    const malformed = err.code === 'invalid_quantity' || err.code === 'invalid_orbit_definition';
+    return new ApiError(malformed ? 400 : 422, err.code, err.message, err.details);
+  }
+  if (err instanceof ZodError) {
+    const details = zodDetails(err, req.body);
+    return badRequest(summary(details), details);
+  }
+  return bodyError(err, req);
 }
 
 export function errorMiddleware(logger: Logger): ErrorRequestHandler {
-  return (err: unknown, req, res, next) => {
+  return (err: unknown, req, res, _next) => {
+    let apiError = knownError(err, req);
     if (res.headersSent) {
-      next(err);
+      // The answer has begun (a stream, or the 408 of a stalled body): nothing more can be said, so
+      // the connection is closed; a fault of the server is still logged.
+      if (!apiError) logger.error('error after the answer began', { method: req.method, path: req.path, error: err instanceof Error ? err : String(err) });
+      req.destroy();
       return;
     }
-    let apiError: ApiError;
-    if (err instanceof ApiError) {
-      apiError = err;
-    } else if (err instanceof PhysicsError) {
-      // Units that cannot be read and half-given orbit definitions are malformed input (400);
-      // everything else the physics refuses is well formed but impossible (422).
-      const malformed = err.code === 'invalid_quantity' || err.code === 'invalid_orbit_definition';
-      apiError = new ApiError(malformed ? 400 : 422, err.code, err.message, err.details);
-    } else if (err instanceof ZodError) {
-      const details = zodDetails(err, req.body);
-      apiError = badRequest(summary(details), details);
-    } else if (isBodyParserError(err) && err.type === 'entity.parse.failed') {
-      apiError = badRequest('The request body is not valid JSON.', undefined, 'invalid_json');
-    } else if (isBodyParserError(err) && err.type === 'entity.too.large') {
-      apiError = tooLarge('The request body is too large.');
-    } else if (isBodyParserError(err) && err.status === 415) {
-      apiError = new ApiError(415, 'unsupported_media_type', 'The request body must be JSON (Content-Type: application/json).');
-    } else if (isBodyParserError(err) && typeof err.status === 'number' && err.status >= 400 && err.status < 500) {
-      apiError = badRequest(err.expose === true ? err.message : 'The request could not be read.', undefined, 'bad_request');
-    } else {
+    if (!apiError) {
       logger.error('unhandled error', { method: req.method, path: req.path, error: err instanceof Error ? err : String(err) });
       apiError = new ApiError(500, 'internal', 'Something went wrong on the server. The error was logged.');
     }

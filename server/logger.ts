@@ -3,6 +3,7 @@
 // behind the rule that callers never log secrets in the first place.
 import { appendFileSync } from 'node:fs';
 import type { LogLevel } from './config';
+import { secretLinkRoutes } from './mail/secret-links';
 
 export type LogFields = Record<string, unknown>;
 
@@ -21,7 +22,8 @@ const secretPatterns: [RegExp, string][] = [
   [/eyJ[A-Za-z0-9_-]+\.[A-Za-z0-9_-]+\.[A-Za-z0-9_-]+/g, '[redacted]'], // JWTs
   [/(bearer\s+)[^\s"']+/gi, '$1[redacted]'],
   [/(smtps?:\/\/[^:/\s]+:)[^@\s]+@/gi, '$1[redacted]@'], // password inside an SMTP URL
-  [/((?:invite|invitations|reset-password)\/)[A-Za-z0-9_-]{16,}/g, '$1[redacted]'], // single-use links
+  // single-use links, and the API path that takes an invitation's secret
+  [new RegExp(`((?:${[...Object.keys(secretLinkRoutes), 'invitations'].join('|')})\\/)[A-Za-z0-9_-]{16,}`, 'g'), '$1[redacted]'],
 ];
 
 export function redactText(text: string): string {

@@ -1,5 +1,4 @@
 // Starts Eclipta: configuration, database and migrations, demo seed, mail, then the HTTP server.
-import { mkdirSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import type { AppContext } from './app-context';
 import { createApp } from './app';
@@ -8,7 +7,13 @@ import { migrateDatabase, openDatabase } from './db/database';
 import { createLogger } from './logger';
 import { startMailer } from './mail/mailer';
 import { seedDatabase } from './seed/seed';
+import { createBackgroundWork } from './background-work';
+import { privateDir } from './private-files';
 import { clearLeftoverUploads } from './ephemerides/ephemeris-upload';
+import { createHttpServer } from './request-timeouts';
+
+// Every file the server makes (database, its -wal and -shm, mail, uploads, logs) is born private.
+process.umask(0o077);
 
 let config: Config;
 try {
@@ -22,19 +27,23 @@ try {
 }
 
 const logger = createLogger({ level: config.logLevel, file: config.logFile });
-mkdirSync(config.dataDir, { recursive: true });
+privateDir(config.dataDir);
 const leftovers = clearLeftoverUploads(config);
 if (leftovers > 0) logger.warn('removed files of uploads interrupted by the last stop', { files: leftovers });
 const { db, sqlite } = openDatabase(config.dbPath);
 migrateDatabase(db, config.migrationsDir);
 const mailer = await startMailer(config, logger);
-const ctx: AppContext = { config, jwtSecret: resolveJwtSecret(config), db, sqlite, mailer, logger };
+const background = createBackgroundWork(logger);
+const ctx: AppContext = { config, jwtSecret: resolveJwtSecret(config), db, sqlite, mailer, logger, background };
 await seedDatabase(ctx);
 
 const app = createApp(ctx);
-const server = app.listen(config.port, () => {
+const server = createHttpServer(app, config).listen(config.port, config.host, () => {
   const { port } = server.address() as AddressInfo;
-  logger.info('Eclipta is listening', { url: `http://localhost:${port}`, publicUrl: config.publicUrl });
+  // Loopback and "every interface" are both reached at localhost; any other address by itself.
+  const local = ['127.0.0.1', '::1', '0.0.0.0', '::', 'localhost'].includes(config.host);
+  const shownHost = local ? 'localhost' : config.host.includes(':') ? `[${config.host}]` : config.host;
+  logger.info('Eclipta is listening', { url: `http://${shownHost}:${port}`, host: config.host, publicUrl: config.publicUrl });
 });
 server.on('error', (err) => {
   logger.error('HTTP server failed', { error: err });
@@ -50,10 +59,13 @@ function shutdown(signal: string): void {
   const force = setTimeout(() => process.exit(0), 5000);
   force.unref();
   server.close(() => {
-    void mailer.close().finally(() => {
-      sqlite.close();
-      process.exit(0);
-    });
+    void background
+      .idle()
+      .then(() => mailer.close())
+      .finally(() => {
+        sqlite.close();
+        process.exit(0);
+      });
   });
   server.closeIdleConnections();
 }

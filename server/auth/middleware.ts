@@ -10,7 +10,7 @@ import { memberships, users } from '../db/schema';
 import { ApiError, forbidden, notFound, unauthorized } from '../errors';
 import { findApiToken, tokenPrefix, touchApiToken } from './api-tokens';
 import type { RequestAuth } from './request-auth';
-import { endSession, readSession, sessionCookie, sessionStillValid } from './session';
+import { clearSessionCookie, readSession, sessionCookie, sessionUser } from './session';
 
 const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -28,17 +28,32 @@ function bearerSecret(req: Request): string | null {
   return match[1];
 }
 
-/** True when an Origin header names a site other than this server (a cross-site form or script). */
+/**
+ * True when a change could come from another site: an Origin that is not this server's full origin
+ * (scheme, host and port) -- the public URL's, or the one the request itself was addressed to, as
+ * behind the development proxy -- or, without an Origin, a browser's Sec-Fetch-Site saying the
+ * request was started by another site.
+ */
 function foreignOrigin(ctx: AppContext, req: Request): boolean {
   const origin = req.get('origin');
-  if (origin === undefined) return false;
-  let host: string;
-  try {
-    host = new URL(origin).host;
-  } catch {
-    return true;
+  if (origin === undefined) {
+    const fetchSite = req.get('sec-fetch-site')?.trim().toLowerCase();
+    return fetchSite === 'cross-site' || fetchSite === 'same-site';
   }
-  return host !== new URL(ctx.config.publicUrl).host && host !== req.get('host');
+  const claimed = originOf(origin);
+  if (claimed === null || claimed === 'null') return true;
+  if (claimed === originOf(ctx.config.publicUrl)) return false;
+  const host = req.get('host');
+  return host === undefined || claimed !== originOf(`${req.protocol}://${host}`);
+}
+
+/** The normalised origin of a URL (lower-case host, no default port), or null when it is none. */
+function originOf(url: string): string | null {
+  try {
+    return new URL(url).origin;
+  } catch {
+    return null;
+  }
 }
 
 /**
@@ -73,12 +88,12 @@ export function authenticate(ctx: AppContext): RequestHandler {
       cookies !== null && typeof cookies === 'object' ? (cookies as Record<string, unknown>)[sessionCookie] : undefined;
     if (typeof cookie === 'string' && cookie !== '') {
       const claims = readSession(ctx, cookie);
-      const user = claims ? ctx.db.select().from(users).where(eq(users.id, claims.userId)).get() : undefined;
-      if (claims && user && sessionStillValid(user, claims)) {
-        req.auth = { user, kind: 'session', readOnly: false };
+      const user = claims ? sessionUser(ctx.db, claims) : undefined;
+      if (claims && user) {
+        req.auth = { user, kind: 'session', readOnly: false, sessionId: claims.sessionId };
       } else {
-        // A stale cookie would otherwise be sent (and refused) on every request.
-        endSession(ctx, res);
+        // A stale cookie (signed out, password reset, expired) would otherwise be sent, and refused, on every request.
+        clearSessionCookie(ctx, res);
       }
     }
     next();
@@ -100,6 +115,17 @@ export const requireAdmin: RequestHandler = (req, _res, next) => {
   if (!req.auth) throw unauthorized();
   if (!req.auth.user.isAdmin) throw forbidden('Only an instance administrator may do this.');
   next();
+};
+
+/**
+ * The instance administrator signed in with a password, not an API token: for what holds other
+ * users' mail, which no script (and no leaked token, read-only or not) may read.
+ */
+export const requireAdminSession: RequestHandler = (req, res, next) => {
+  if (req.auth?.kind === 'token') {
+    throw forbidden('API tokens cannot open the mail outbox; sign in as the instance administrator.', 'session_required');
+  }
+  requireAdmin(req, res, next);
 };
 
 /** The user's role in a workspace, or null when they are not a member (inside a transaction too). */

@@ -2,18 +2,23 @@
 import { and, eq, isNull } from 'drizzle-orm';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
-import { passwordResets, users } from '../db/schema';
+import { apiTokens, passwordResets, users } from '../db/schema';
 import { badRequest } from '../errors';
 import { passwordResetMail } from '../mail/messages';
 import { hashPassword } from './passwords';
 import { newSecret, sha256Hex } from './secret-tokens';
+import { endSessions } from './session';
 
 const resetValidMs = 60 * 60 * 1000;
 
 export const resetRequestedMessage =
   'If an account with this e-mail address exists, a message with a link to choose a new password is on its way.';
 
-/** Creates a reset for a known address and mails it; does nothing for an unknown one. */
+/**
+ * Creates a reset for a known address and mails it; does nothing for an unknown one. Run it as
+ * background work (ctx.background), never inside the request: the request's answer and its time
+ * must not depend on whether the address exists.
+ */
 export async function requestPasswordReset(ctx: AppContext, email: string): Promise<void> {
   const user = ctx.db.select().from(users).where(eq(users.email, email)).get();
   if (!user) return;
@@ -35,7 +40,16 @@ export async function requestPasswordReset(ctx: AppContext, email: string): Prom
   );
 }
 
-export async function confirmPasswordReset(ctx: AppContext, token: string, password: string): Promise<void> {
+export interface ResetOutcome {
+  sessionsEnded: number;
+  tokensRevoked: number;
+}
+
+/**
+ * Sets the new password; every session of the account ends and every personal API token it had
+ * is revoked (whoever asked for the reset may be the one holding them), all in one transaction.
+ */
+export async function confirmPasswordReset(ctx: AppContext, token: string, password: string): Promise<ResetOutcome> {
   const reset = ctx.db.select().from(passwordResets).where(eq(passwordResets.tokenHash, sha256Hex(token))).get();
   if (!reset || reset.usedAt || Date.parse(reset.expiresAt) <= Date.now()) {
     throw badRequest('This password reset link is not valid any more: it was used or has expired. Ask for a new one.', [
@@ -44,7 +58,7 @@ export async function confirmPasswordReset(ctx: AppContext, token: string, passw
   }
   const passwordHash = await hashPassword(password, ctx.config.bcryptCost);
   const now = new Date().toISOString();
-  ctx.db.transaction((tx) => {
+  return ctx.db.transaction((tx) => {
     // Marking it used only if still unused closes the race of two confirmations at once.
     const claimed = tx
       .update(passwordResets)
@@ -68,5 +82,23 @@ export async function confirmPasswordReset(ctx: AppContext, token: string, passw
       targetId: reset.userId,
       summary: 'Password changed through a reset link.',
     });
+    const sessionsEnded = endSessions(tx, { userId: reset.userId });
+    const revoked = tx
+      .update(apiTokens)
+      .set({ revokedAt: now })
+      .where(and(eq(apiTokens.userId, reset.userId), isNull(apiTokens.revokedAt)))
+      .returning({ name: apiTokens.name })
+      .all();
+    if (revoked.length > 0) {
+      recordAudit(tx, {
+        workspaceId: null,
+        actorUserId: reset.userId,
+        action: 'token.revoked',
+        targetType: 'user',
+        targetId: reset.userId,
+        summary: `Password reset: ${revoked.length} personal API token${revoked.length === 1 ? '' : 's'} revoked (${revoked.map((r) => JSON.stringify(r.name)).join(', ')}).`,
+      });
+    }
+    return { sessionsEnded, tokensRevoked: revoked.length };
   });
 }

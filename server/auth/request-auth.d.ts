@@ -7,6 +7,8 @@ export interface RequestAuth {
   kind: 'session' | 'token';
   readOnly: boolean;
   tokenId?: string;
+  /** The sessions row of a cookie-borne request. */
+  sessionId?: string;
 }
 
 declare global {

@@ -1,10 +1,13 @@
-// Session cookies: a signed JWT (HS256, sub = user id) in an httpOnly, SameSite=Strict cookie.
-// Sessions are stateless so that a second server process accepts them too; a password reset
-// ends older sessions through users.passwordChangedAt.
+// Session cookies: a signed JWT (HS256, sub = user id, sid = a row of the sessions table) in an
+// httpOnly, SameSite=Strict cookie. The signature proves the cookie is ours; the row says whether
+// the session is still open, so sign-out and a password reset end it on the server, for every
+// server process that shares the database.
 import type { CookieOptions, Response } from 'express';
+import { and, eq, isNull, lt } from 'drizzle-orm';
 import jwt from 'jsonwebtoken';
 import type { AppContext } from '../app-context';
-import type { UserRow } from '../db/schema';
+import type { Db, DbOrTx } from '../db/database';
+import { sessions, users, type UserRow } from '../db/schema';
 
 export const sessionCookie = 'eclipta_session';
 
@@ -17,9 +20,18 @@ function cookieOptions(ctx: AppContext): CookieOptions {
   };
 }
 
+/** Opens a session row for the user and sets its cookie. */
 export function startSession(ctx: AppContext, res: Response, user: UserRow): void {
   const hours = ctx.config.sessionHours;
-  const token = jwt.sign({}, ctx.jwtSecret, {
+  const now = Date.now();
+  // Rows of sessions long over are of no use to anyone; each sign-in tidies its own user's.
+  ctx.db.delete(sessions).where(and(eq(sessions.userId, user.id), lt(sessions.expiresAt, new Date(now).toISOString()))).run();
+  const row = ctx.db
+    .insert(sessions)
+    .values({ userId: user.id, expiresAt: new Date(now + hours * 3600 * 1000).toISOString() })
+    .returning()
+    .get();
+  const token = jwt.sign({ sid: row.id }, ctx.jwtSecret, {
     algorithm: 'HS256',
     subject: user.id,
     expiresIn: Math.round(hours * 3600),
@@ -27,28 +39,41 @@ export function startSession(ctx: AppContext, res: Response, user: UserRow): voi
   res.cookie(sessionCookie, token, { ...cookieOptions(ctx), maxAge: hours * 3600 * 1000 });
 }
 
-export function endSession(ctx: AppContext, res: Response): void {
+/** Tells the browser to drop the cookie (the row, if any, is ended by endSessions). */
+export function clearSessionCookie(ctx: AppContext, res: Response): void {
   res.clearCookie(sessionCookie, cookieOptions(ctx));
+}
+
+/** Ends open sessions on the server: one (sign-out) or all of a user's (a new password). Answers how many. */
+export function endSessions(db: DbOrTx, which: { sessionId: string } | { userId: string }): number {
+  const whose = 'sessionId' in which ? eq(sessions.id, which.sessionId) : eq(sessions.userId, which.userId);
+  return db.update(sessions).set({ endedAt: new Date().toISOString() }).where(and(whose, isNull(sessions.endedAt))).run().changes;
 }
 
 export interface SessionClaims {
   userId: string;
-  issuedAtS: number;
+  sessionId: string;
 }
 
-/** The claims of a valid session token, or null for a forged, expired or malformed one. */
+/** The claims of a well-signed, unexpired session token, or null for a forged, expired or malformed one. */
 export function readSession(ctx: AppContext, token: string): SessionClaims | null {
   try {
     const payload = jwt.verify(token, ctx.jwtSecret, { algorithms: ['HS256'] });
-    if (typeof payload === 'string' || typeof payload.sub !== 'string' || typeof payload.iat !== 'number') return null;
-    return { userId: payload.sub, issuedAtS: payload.iat };
+    if (typeof payload === 'string' || typeof payload.sub !== 'string' || typeof payload['sid'] !== 'string') return null;
+    return { userId: payload.sub, sessionId: payload['sid'] };
   } catch {
     return null;
   }
 }
 
-/** False when the password changed after the session began (iat has whole seconds only). */
-export function sessionStillValid(user: UserRow, claims: SessionClaims): boolean {
-  if (!user.passwordChangedAt) return true;
-  return claims.issuedAtS >= Math.floor(Date.parse(user.passwordChangedAt) / 1000);
+/** The user of an open, unexpired session row matching the claims; undefined otherwise. */
+export function sessionUser(db: Db, claims: SessionClaims, now = new Date()): UserRow | undefined {
+  const found = db
+    .select({ user: users, expiresAt: sessions.expiresAt })
+    .from(sessions)
+    .innerJoin(users, eq(users.id, sessions.userId))
+    .where(and(eq(sessions.id, claims.sessionId), eq(sessions.userId, claims.userId), isNull(sessions.endedAt)))
+    .get();
+  if (!found || Date.parse(found.expiresAt) <= now.getTime()) return undefined;
+  return found.user;
 }

@@ -16,6 +16,7 @@ import type { Db } from '../db/database';
 import { recordAudit } from '../audit/audit-log';
 import { loadCases, materials, orbits, surfaces, type LoadCaseRow, type MissionRow, type OrbitRow, type UserRow } from '../db/schema';
 import { notFound, unprocessable } from '../errors';
+import { limitWork, MAX_CASE_SAMPLES } from '../work-limit';
 
 export const caseAssumptions = [
   'eclipseFraction counts umbra plus half of penumbra (conical shadow, Sun as a uniform disk, no atmosphere)',
@@ -35,10 +36,18 @@ interface MissionSnapshot {
   surfaces: CaseSurface[];
 }
 
-function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string): MissionSnapshot {
+/** A case's series hold steps × surfaces samples of each quantity: within what a load case may hold, or 413. */
+export function limitCaseWork(steps: number, surfaceCount: number): void {
+  limitWork([{ name: 'steps', count: steps }, { name: 'surfaces', count: surfaceCount }], 'steps', 'use fewer steps', MAX_CASE_SAMPLES);
+}
+
+/** The orbit and the surfaces a case is computed from, once steps × surfaces is within the limit. */
+function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string, steps: number): MissionSnapshot {
   const orbit = db.select().from(orbits).where(and(eq(orbits.id, orbitId), eq(orbits.missionId, mission.id))).get();
   if (!orbit) throw notFound(`The mission "${mission.name}" has no orbit with id ${JSON.stringify(orbitId.slice(0, 80))}.`);
-  return { orbit, surfaces: surfaceSnapshot(db, mission) };
+  const surfaces = surfaceSnapshot(db, mission);
+  limitCaseWork(steps, surfaces.length);
+  return { orbit, surfaces };
 }
 
 /** The mission's surfaces with their materials, as a case keeps them; 422 when there are none. */
@@ -123,7 +132,7 @@ export type DraftValues = Pick<LoadCaseRow, 'name' | 'kind' | 'inputs' | 'result
 
 /** The hot and cold cases of a mission's orbit, ready to be saved (the seed saves them too). */
 export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {
-  const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId);
+  const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId, input.steps);
   const margins: Margins = resolveMargins(input.margins);
   const pair = (p: { albedo: number; olrWm2: number; source: string } | undefined) => (p ? { ...p, provisional: false } : undefined);
   const derivation = deriveDesignCases({
@@ -175,7 +184,7 @@ export function deriveCases(ctx: AppContext, user: UserRow, mission: MissionRow,
 
 /** Saves a user-defined case: a fixed date (and beta, if given), property set and attitude. */
 export function createCustomCase(ctx: AppContext, user: UserRow, mission: MissionRow, input: CaseCreateParsed): LoadCaseRow {
-  const { orbit, surfaces: list } = snapshotOf(ctx.db, mission, input.orbitId);
+  const { orbit, surfaces: list } = snapshotOf(ctx.db, mission, input.orbitId, input.steps);
   const unknown = Object.keys(input.normals ?? {}).filter((n) => !list.some((s) => s.name === n));
   if (unknown.length > 0) {
     throw unprocessable(`The mission has no surface named ${unknown.map((n) => JSON.stringify(n)).join(', ')}.`, unknown.map((n) => ({ path: `normals.${n}`, message: 'no such surface' })));

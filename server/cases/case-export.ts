@@ -2,6 +2,7 @@
 // follows the served JSON Schema, or CSV per RFC 4180 that a spreadsheet opens as it is. Both carry
 // the caution and the same checksum.
 import type { CaseExport, CaseExportCase } from '../../shared/api/cases';
+import { csvRecord } from '../../shared/csv/csv-cell';
 import type { AppContext } from '../app-context';
 import type { LoadCaseRow } from '../db/schema';
 import { canonicalJson, checksumMethod, sha256Hex } from './canonical-json';
@@ -36,12 +37,6 @@ export function caseExportJson(ctx: AppContext, row: LoadCaseRow): CaseExport {
   const content = exportedCase(ctx, row);
   const checksum = row.checksum ?? caseChecksum(row);
   return { ...content, checksum, exportedAt: new Date().toISOString() };
-}
-
-// RFC 4180: fields with a comma, a quote or a line break are quoted, quotes doubled; CRLF between records.
-function field(value: string | number | null): string {
-  const text = value === null ? '' : String(value);
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
 const componentColumns = [
@@ -122,5 +117,5 @@ export function caseExportCsv(ctx: AppContext, row: LoadCaseRow): { csv: string;
   records.push(['orbit average', null, ...r.surfaces.flatMap((s) => componentColumns.map(([key]) => s.orbitAverage[key]))]);
   records.push(['peak', null, ...r.surfaces.flatMap((s) => componentColumns.map(([key]) => s.peak[key]))]);
   records.push(pad([`orbit average with ${i.margins.heatLoadPercent} % margin, absorbed total [W]`, null, ...r.surfaces.flatMap((s) => componentColumns.map(([key]) => (key === 'absorbedW' ? s.orbitAverage.absorbedWithMarginW : null)))]));
-  return { csv: records.map((rec) => rec.map(field).join(',')).join('\r\n') + '\r\n', checksum: doc.checksum };
+  return { csv: records.map(csvRecord).join(''), checksum: doc.checksum };
 }

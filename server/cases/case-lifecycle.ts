@@ -1,7 +1,7 @@
 // A case's life: edits to a draft, submission for review, release by a second engineer (four eyes),
 // new revisions, and the subscribers' e-mail when a release supersedes the one they use.
 // Every change and its audit event share one transaction; a released revision never changes.
-import { and, desc, eq, max } from 'drizzle-orm';
+import { and, desc, eq, max, sql } from 'drizzle-orm';
 import type { CaseUpdateParsed } from '../../shared/api/cases';
 import type { CaseInputs } from '../../shared/api/case-content';
 import { evaluateCase } from '../../shared/physics/design-cases';
@@ -9,11 +9,11 @@ import { resolveMargins } from '../../shared/physics/design-environment';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import type { Tx } from '../db/database';
-import { caseSubscriptions, loadCases, type LoadCaseRow, type UserRow } from '../db/schema';
-import { conflict, forbidden, unprocessable } from '../errors';
+import { auditEvents, caseSubscriptions, loadCases, users, type LoadCaseRow, type UserRow } from '../db/schema';
+import { ApiError, conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
-import { attitudeText } from './case-derivation';
+import { attitudeText, limitCaseWork } from './case-derivation';
 import { caseReleasedMail } from './case-mail';
 import { withMargins } from './ephemeris-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
@@ -27,6 +27,29 @@ function requireStatus(row: LoadCaseRow, allowed: LoadCaseRow['status'][], doing
     ? `it is ${row.status} and cannot change; start a new revision instead`
     : `it is in ${row.status}, and only a case in ${allowed.join(' or ')} can be ${doing}`;
   throw conflict(`The load case ${label(row)} cannot be ${doing}: ${why}.`, `case_${row.status}`);
+}
+
+/** Every write to a revision counts one more version (what an edit names to detect a lost update). */
+const nextVersion = sql`${loadCases.version} + 1`;
+
+/** Who changed the revision last and when, from its audit trail, for a conflict message. */
+function lastChange(db: AppContext['db'] | Tx, row: LoadCaseRow): string {
+  const last = db
+    .select({ at: auditEvents.at, name: users.name })
+    .from(auditEvents)
+    .leftJoin(users, eq(users.id, auditEvents.actorUserId))
+    .where(and(eq(auditEvents.targetType, 'load_case'), eq(auditEvents.targetId, row.id)))
+    .orderBy(desc(auditEvents.at), desc(sql`"audit_events".rowid`))
+    .get();
+  return last ? ` (last by ${last.name ?? 'a former member'} at ${last.at.slice(0, 16).replace('T', ' ')} UTC)` : '';
+}
+
+/** 409 when the edit was made on another version of the revision than the stored one. */
+function editConflict(db: AppContext['db'] | Tx, current: LoadCaseRow, edited: number): ApiError {
+  const message =
+    `The load case ${label(current)} was changed by someone else while you edited it${lastChange(db, current)}: ` +
+    `your edit was made on version ${edited}, it is now at version ${current.version}. Reload it to see the change, then make yours again.`;
+  return new ApiError(409, 'case_edit_conflict', message);
 }
 
 function audit(tx: Tx, row: LoadCaseRow, user: UserRow, action: string, summary: string): void {
@@ -46,6 +69,7 @@ interface Edited {
  */
 export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, change: CaseUpdateParsed): LoadCaseRow {
   requireStatus(row, ['draft'], 'changed');
+  if (change.version !== undefined && change.version !== row.version) throw editConflict(ctx.db, row, change.version);
   const before = row.inputs;
   const margins = change.margins
     ? resolveMargins({
@@ -57,11 +81,15 @@ export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, cha
   return ctx.db.transaction((tx) => {
     const updated = tx
       .update(loadCases)
-      .set({ name: change.name ?? row.name, inputs, results, updatedAt: new Date().toISOString() })
-      .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'draft')))
+      .set({ name: change.name ?? row.name, inputs, results, version: nextVersion, updatedAt: new Date().toISOString() })
+      .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'draft'), eq(loadCases.version, row.version)))
       .returning()
       .get();
-    if (!updated) throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
+    if (!updated) {
+      const current = tx.select().from(loadCases).where(eq(loadCases.id, row.id)).get();
+      if (current?.status === 'draft') throw editConflict(tx, current, change.version ?? row.version);
+      throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
+    }
     const what = [change.name ? 'name' : null, change.margins ? 'margins' : null, ...changedKeys].filter(Boolean).join(', ') || 'nothing';
     audit(tx, updated, user, 'case.edited', `Edited ${label(updated)} (${what}).`);
     return updated;
@@ -86,6 +114,7 @@ function orbitCaseEdit(row: LoadCaseRow, change: CaseUpdateParsed, margins: Case
     margins,
     rationale: [...before.rationale, ...noted],
   };
+  limitCaseWork(conditions.steps, conditions.surfaces.length);
   return { inputs, results: evaluateCase(conditions, margins), changedKeys };
 }
 
@@ -109,7 +138,7 @@ export function submitCase(ctx: AppContext, user: UserRow, row: LoadCaseRow): Lo
   requireStatus(row, ['draft'], 'submitted for review');
   return ctx.db.transaction((tx) => {
     const now = new Date().toISOString();
-    const updated = tx.update(loadCases).set({ status: 'review', submittedBy: user.id, submittedAt: now, updatedAt: now }).where(eq(loadCases.id, row.id)).returning().get();
+    const updated = tx.update(loadCases).set({ status: 'review', submittedBy: user.id, submittedAt: now, version: nextVersion, updatedAt: now }).where(eq(loadCases.id, row.id)).returning().get();
     if (!updated) throw conflict(`The load case ${label(row)} is gone.`);
     audit(tx, updated, user, 'case.submitted', `Submitted ${label(updated)} for review.`);
     return updated;
@@ -133,17 +162,25 @@ export async function releaseCase(ctx: AppContext, user: UserRow, row: LoadCaseR
       .where(and(eq(loadCases.seriesId, row.seriesId), eq(loadCases.status, 'released')))
       .orderBy(desc(loadCases.revision))
       .get();
+    // Revisions are released in order: once revision n is out, an older one in review never replaces it.
+    if (previousRow && previousRow.revision > row.revision) {
+      throw conflict(
+        `The load case ${label(row)} cannot be released: revision ${previousRow.revision} is released already and is newer. ` +
+          `A release never goes back to an older revision; start a new revision from revision ${previousRow.revision} and carry this one's changes over.`,
+        'case_revision_out_of_order',
+      );
+    }
     const withRelease: LoadCaseRow = { ...row, status: 'released', releasedBy: user.id, releasedAt: now };
     const checksum = caseChecksum(withRelease);
     const updated = tx
       .update(loadCases)
-      .set({ status: 'released', releasedBy: user.id, releasedAt: now, checksum, updatedAt: now })
+      .set({ status: 'released', releasedBy: user.id, releasedAt: now, checksum, version: nextVersion, updatedAt: now })
       .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'review')))
       .returning()
       .get();
     if (!updated) throw conflict(`The load case ${label(row)} changed status meanwhile; reload it.`);
     if (previousRow) {
-      tx.update(loadCases).set({ status: 'superseded', updatedAt: now }).where(eq(loadCases.id, previousRow.id)).run();
+      tx.update(loadCases).set({ status: 'superseded', version: nextVersion, updatedAt: now }).where(eq(loadCases.id, previousRow.id)).run();
       audit(tx, previousRow, user, 'case.superseded', `${label(previousRow)} superseded by revision ${updated.revision}.`);
     }
     audit(tx, updated, user, 'case.released', `Released ${label(updated)} (sha256 ${checksum.slice(0, 12)}…).`);

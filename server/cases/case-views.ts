@@ -31,7 +31,7 @@ export function toSummary(db: Db, row: LoadCaseRow): CaseSummary {
     name: row.name, kind: row.kind, status: row.status, revision: row.revision, checksum: row.checksum,
     author: personOf(db, row.authorId), releasedBy: personOf(db, row.releasedBy), releasedAt: row.releasedAt,
     orbitAverageAbsorbedW: row.results.total.orbitAverageAbsorbedW, betaDeg: row.results.betaDeg,
-    createdAt: row.createdAt, updatedAt: row.updatedAt,
+    version: row.version, createdAt: row.createdAt, updatedAt: row.updatedAt,
   };
 }
 
@@ -73,7 +73,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
         id: loadCases.id, missionId: loadCases.missionId, workspaceId: loadCases.workspaceId, seriesId: loadCases.seriesId,
         name: loadCases.name, kind: loadCases.kind, status: loadCases.status, revision: loadCases.revision, checksum: loadCases.checksum,
         authorId: loadCases.authorId, releasedBy: loadCases.releasedBy, releasedAt: loadCases.releasedAt,
-        createdAt: loadCases.createdAt, updatedAt: loadCases.updatedAt,
+        version: loadCases.version, createdAt: loadCases.createdAt, updatedAt: loadCases.updatedAt,
       },
       // Read out of the JSON in SQL so a list does not parse every case's time series.
       orbitAverageAbsorbedW: sql<number>`json_extract(${loadCases.results}, '$.total.orbitAverageAbsorbedW')`,
@@ -100,13 +100,23 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
       name: r.c.name, kind: r.c.kind, status: r.c.status, revision: r.c.revision, checksum: r.c.checksum,
       author: person(r.c.authorId), releasedBy: person(r.c.releasedBy), releasedAt: r.c.releasedAt,
       orbitAverageAbsorbedW: Number(r.orbitAverageAbsorbedW), betaDeg: Number(r.betaDeg),
-      createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
+      version: r.c.version, createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
     }));
 }
 
-/** The subscribers' ids of a case series. */
+/**
+ * The subscribers' ids of a case series who are still members of its workspace: a subscription
+ * that outlived its membership (removal ends them, but this is the last line) mails nobody.
+ */
 export function subscribersOf(db: Db, seriesId: string): string[] {
-  return db.select({ userId: caseSubscriptions.userId }).from(caseSubscriptions).where(eq(caseSubscriptions.caseSeriesId, seriesId)).all().map((r) => r.userId);
+  const workspaceOfSeries = db.select({ id: loadCases.workspaceId }).from(loadCases).where(eq(loadCases.seriesId, seriesId)).limit(1);
+  return db
+    .select({ userId: caseSubscriptions.userId })
+    .from(caseSubscriptions)
+    .innerJoin(memberships, and(eq(memberships.userId, caseSubscriptions.userId), eq(memberships.workspaceId, workspaceOfSeries)))
+    .where(eq(caseSubscriptions.caseSeriesId, seriesId))
+    .all()
+    .map((r) => r.userId);
 }
 
 export function emailsOf(db: Db, ids: string[]): { id: string; email: string }[] {

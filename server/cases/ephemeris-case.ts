@@ -17,7 +17,7 @@ import { recordAudit } from '../audit/audit-log';
 import type { EphemerisRow, LoadCaseRow, MissionRow, UserRow } from '../db/schema';
 import { unprocessable } from '../errors';
 import { ephemerisWindow, firstStates, windowEnvironment } from '../ephemerides/ephemeris-environment';
-import { attitudeText, insertDraft, missionInputs, pairWords, surfaceSnapshot } from './case-derivation';
+import { attitudeText, insertDraft, limitCaseWork, missionInputs, pairWords, surfaceSnapshot } from './case-derivation';
 
 export const ephemerisCaseAssumptions = [
   'loads at every row of the ephemeris inside the window: the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations), conical shadow of the central body, no atmosphere',
@@ -46,6 +46,7 @@ export function createEphemerisCase(
 ): LoadCaseRow {
   const body = getBody(mission.bodyId);
   const snapshot = surfaceSnapshot(ctx.db, mission);
+  limitCaseWork(input.steps, snapshot.length);
   const window = ephemerisWindow(ctx, ephemeris, input);
   const optics = snapshot.map((s) => opticalProperties(s.material, input.properties));
   const env = windowEnvironment(

@@ -5,6 +5,7 @@
 import Database from 'better-sqlite3';
 import { copyFileSync, existsSync, mkdirSync, renameSync, rmSync } from 'node:fs';
 import path from 'node:path';
+import { makePrivate } from '../private-files';
 
 /** "2026-12-01T20-15-03-123Z": a timestamp that sorts and is safe in a file name. */
 export function backupStamp(at = new Date()): string {
@@ -21,6 +22,8 @@ export async function backupDatabase(dbPath: string, backupDir: string, at = new
   } finally {
     source.close();
   }
+  // A copy of every account and case: for the server's user only, like the database itself.
+  makePrivate(target);
   return target;
 }
 
@@ -47,6 +50,7 @@ export function restoreDatabase(backupFile: string, dbPath: string): string {
   for (const suffix of ['-wal', '-shm']) rmSync(dbPath + suffix, { force: true });
   const staged = `${dbPath}.restoring`;
   copyFileSync(backupFile, staged);
+  makePrivate(staged);
   renameSync(staged, dbPath);
   return kept;
 }

@@ -24,6 +24,8 @@ export const loadCases = sqliteTable(
     name: text('name').notNull(),
     kind: text('kind', { enum: caseKinds }).notNull(),
     status: text('status', { enum: caseStatuses }).notNull().default('draft'),
+    /** Counts every change of the row: an edit names the version it started from (If-Match) and a stale one is refused. */
+    version: integer('version').notNull().default(1),
     inputs: text('inputs', { mode: 'json' }).$type<CaseInputs>().notNull(),
     results: text('results', { mode: 'json' }).$type<CaseResultsContent>().notNull(),
     /** SHA-256 hex of the canonical content, set at release. */

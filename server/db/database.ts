@@ -7,6 +7,7 @@ import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import * as schema from './schema';
+import { makePrivate } from '../private-files';
 import { ensureMaterialLibrary } from '../missions/material-library';
 import { packPointsAggregate } from '../ephemerides/point-blocks';
 
@@ -35,6 +36,8 @@ export function openDatabase(file: string): OpenedDatabase {
   sqlite.pragma('busy_timeout = 5000');
   // Used by the migration that moved ephemeris points into blocks.
   sqlite.aggregate('eclipta_pack_points', packPointsAggregate);
+  // The database holds every account and case: the server's user only (see private-files.ts).
+  if (file !== ':memory:') makePrivate(file, `${file}-wal`, `${file}-shm`);
   return { db: drizzle(sqlite, { schema }), sqlite };
 }
 

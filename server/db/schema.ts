@@ -11,7 +11,7 @@ export const users = sqliteTable('users', {
   name: text('name').notNull(),
   passwordHash: text('password_hash').notNull(),
   isAdmin: integer('is_admin', { mode: 'boolean' }).notNull().default(false),
-  /** Sessions issued before this moment stop working (set by a password reset). */
+  /** When a reset last set the password (the sessions it ended are in the sessions table). */
   passwordChangedAt: text('password_changed_at'),
   createdAt: createdAt(),
 });
@@ -88,6 +88,40 @@ export const passwordResets = sqliteTable('password_resets', {
   usedAt: text('used_at'),
 });
 
+/**
+ * One row per sign-in: the session cookie (a signed JWT) names its row, and a request is let in
+ * only while the row is open. Sign-out ends one row; a password reset ends all of a user's rows.
+ */
+export const sessions = sqliteTable(
+  'sessions',
+  {
+    id: id(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: createdAt(),
+    expiresAt: text('expires_at').notNull(),
+    endedAt: text('ended_at'),
+  },
+  (t) => [index('sessions_user').on(t.userId)],
+);
+
+/**
+ * Attempts counted by the rate limits (server/auth/rate-limiter.ts), kept in the database so that a
+ * restart does not forget them. `bucket` names the limit, `key` what it counts by (an e-mail, a
+ * client address, or "*" for all), `atMs` is milliseconds since 1970.
+ */
+export const rateLimitHits = sqliteTable(
+  'rate_limit_hits',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    bucket: text('bucket').notNull(),
+    key: text('key').notNull(),
+    atMs: integer('at_ms').notNull(),
+  },
+  (t) => [index('rate_limit_hits_bucket_key_at').on(t.bucket, t.key, t.atMs)],
+);
+
 export const auditEvents = sqliteTable(
   'audit_events',
   {
@@ -113,6 +147,7 @@ export type MembershipRow = typeof memberships.$inferSelect;
 export type ApiTokenRow = typeof apiTokens.$inferSelect;
 export type InvitationRow = typeof invitations.$inferSelect;
 export type PasswordResetRow = typeof passwordResets.$inferSelect;
+export type SessionRow = typeof sessions.$inferSelect;
 export type AuditEventRow = typeof auditEvents.$inferSelect;
 
 // Feature tables live in files of their own, re-exported here so that drizzle-kit and the code

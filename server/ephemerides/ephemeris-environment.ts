@@ -10,6 +10,7 @@ import { trajectoryEnvironment, type TrajectoryEnvironment, type TrajectorySampl
 import type { AppContext } from '../app-context';
 import { materials, surfaces, type EphemerisRow, type MissionRow } from '../db/schema';
 import { unprocessable } from '../errors';
+import { limitWork } from '../work-limit';
 import { storedBlocks } from './ephemeris-store';
 import { epochText } from './epoch-text';
 import { POINT_FIELDS } from './point-blocks';
@@ -162,6 +163,7 @@ export function evenInTime(firstMs: number, lastMs: number, count: number): (ind
 export function windowEnvironment(
   ctx: AppContext, mission: MissionRow, row: EphemerisRow, window: EphemerisWindow, surfaceList: Surface[], options: WindowEnvironmentOptions,
 ): TrajectoryEnvironment {
+  limitWork([{ name: 'rows of the window', count: window.rows }, { name: 'surfaces', count: surfaceList.length }], 'to', 'choose a shorter window (from, to)');
   const stride = Math.max(1, Math.ceil(window.rows / options.maxPoints));
   const keep = options.sampling === 'time'
     ? evenInTime(Number.isFinite(window.fromMs) ? window.fromMs : Date.parse(window.from), Date.parse(window.to), options.maxPoints)

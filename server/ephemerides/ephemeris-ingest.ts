@@ -9,6 +9,7 @@ import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import type { Request, Response } from 'express';
 import { ephemerisUploadFields, type EphemerisUploadFields } from '../../shared/api/ephemerides';
+import { withoutControls } from '../../shared/api/text';
 import { getBody } from '../../shared/physics/bodies';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
@@ -33,8 +34,7 @@ export interface IngestRequest {
 
 /** The client's file name made safe to show: no folders, no control characters, bounded. */
 export function displayFileName(original: string): string {
-  // eslint-disable-next-line no-control-regex
-  const base = path.basename(original.replaceAll('\\', '/')).replace(/[\u0000-\u001f\u007f<>"]/g, '').trim();
+  const base = withoutControls(path.basename(original.replaceAll('\\', '/'))).replace(/[<>"]/g, '').trim();
   return (base || 'ephemeris').slice(0, 120);
 }
 

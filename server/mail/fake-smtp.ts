@@ -2,18 +2,22 @@
 // Each message is written to <dataDir>/mail/<id>.eml with a small JSON index beside it, so the
 // admin mail page (and a test) can read what the product sent without a real mail server.
 import { randomUUID } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { simpleParser, type AddressObject } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 import type { MailMessage, MailSummary } from '../../shared/api/workspaces';
+import { makePrivate, privateDir, writePrivateFile } from '../private-files';
+
+/** A message as received, every link in it intact. */
+export type ReceivedMail = Omit<MailMessage, 'hiddenLinks'>;
 
 export interface FakeSmtp {
   port: number;
   /** Newest first. */
   list(): MailSummary[];
-  get(id: string): Promise<MailMessage | null>;
+  get(id: string): Promise<ReceivedMail | null>;
   close(): Promise<void>;
 }
 
@@ -27,9 +31,11 @@ function addresses(field: AddressObject | AddressObject[] | undefined): string[]
 }
 
 export async function startFakeSmtp(dataDir: string, port = 0): Promise<FakeSmtp> {
+  // Messages hold single-use links: the folder and its files are the server user's only.
   const mailDir = path.join(dataDir, 'mail');
-  mkdirSync(mailDir, { recursive: true });
+  privateDir(mailDir);
   const indexFile = path.join(mailDir, 'index.json');
+  makePrivate(...readdirSync(mailDir).map((name) => path.join(mailDir, name)));
   const index: MailSummary[] = existsSync(indexFile) ? (JSON.parse(readFileSync(indexFile, 'utf8')) as MailSummary[]) : [];
 
   const server = new SMTPServer({
@@ -49,7 +55,7 @@ export async function startFakeSmtp(dataDir: string, port = 0): Promise<FakeSmtp
         const id = randomUUID();
         simpleParser(raw)
           .then((parsed) => {
-            writeFileSync(path.join(mailDir, `${id}.eml`), raw);
+            writePrivateFile(path.join(mailDir, `${id}.eml`), raw);
             const envelopeTo = session.envelope.rcptTo.map((r) => r.address);
             index.unshift({
               id,
@@ -58,7 +64,7 @@ export async function startFakeSmtp(dataDir: string, port = 0): Promise<FakeSmtp
               to: envelopeTo.length > 0 ? envelopeTo : addresses(parsed.to),
               subject: parsed.subject ?? '',
             });
-            writeFileSync(indexFile, JSON.stringify(index, null, 1));
+            writePrivateFile(indexFile, JSON.stringify(index, null, 1));
             // Answering only after the write means a sender that awaited sendMail finds the message.
             callback();
           })

@@ -2,12 +2,16 @@
 // each change with its audit event in the same transaction.
 import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { MissionDetail, Mission, missionCreate, missionUpdate } from '../../shared/api/missions';
+import type { Role } from '../../shared/api/workspaces';
 import type { z } from 'zod';
 import { getBody } from '../../shared/physics/bodies';
 import { recordAudit } from '../audit/audit-log';
 import { noWorkspace, roleRefused } from '../auth/middleware';
 import type { Db } from '../db/database';
-import { memberships, missions, orbits, surfaces, workspaces, type MissionRow } from '../db/schema';
+import {
+  caseSubscriptions, ephemerides, loadCases, memberships, missions, orbits, surfaces, thermalModels, thermalRuns, workspaces,
+  type LoadCaseRow, type MissionRow,
+} from '../db/schema';
 import { ApiError, badRequest } from '../errors';
 import { memberRole } from '../auth/middleware';
 import { editorRoles, missionFor, type Tx } from './mission-access';
@@ -139,20 +143,68 @@ export function updateMission(db: Db, userId: string, missionId: string, input: 
   });
 }
 
+/** Roles that may delete a whole mission (with everything in it that is not released). */
+export const missionDeleteRoles: readonly Role[] = ['owner'];
+
+const counted = (n: number, one: string, many = `${one}s`): string => `${n} ${n === 1 ? one : many}`;
+
+/**
+ * Deletes a mission: only an owner may, and never one that holds released or superseded load
+ * cases (409 naming them; archive it instead), because other teams import those. Everything else
+ * goes with it, listed in the audit event: orbits, surfaces, ephemerides, thermal models and their
+ * runs, draft and in-review cases and the subscriptions to their series.
+ */
 export function deleteMission(db: Db, userId: string, missionId: string): void {
   db.transaction((tx) => {
-    const { mission } = missionFor(tx, userId, missionId, 'edit');
+    const { mission, role } = missionFor(tx, userId, missionId, 'read');
+    if (!missionDeleteRoles.includes(role)) throw roleRefused(role, missionDeleteRoles);
+    const cases = tx
+      .select({ id: loadCases.id, seriesId: loadCases.seriesId, name: loadCases.name, revision: loadCases.revision, status: loadCases.status })
+      .from(loadCases)
+      .where(eq(loadCases.missionId, mission.id))
+      .orderBy(asc(loadCases.name), asc(loadCases.revision))
+      .all();
+    const kept = cases.filter((c) => keptStatuses.includes(c.status));
+    if (kept.length > 0) throw releasedCasesKept(mission, kept);
+
+    const ids = (rows: { id: string }[]) => rows.map((r) => r.id);
     const orbitCount = tx.select({ id: orbits.id }).from(orbits).where(eq(orbits.missionId, mission.id)).all().length;
     const surfaceCount = tx.select({ id: surfaces.id }).from(surfaces).where(eq(surfaces.missionId, mission.id)).all().length;
-    // Orbits and surfaces go with it (ON DELETE CASCADE).
+    const ephemerisRows = tx.select({ rows: ephemerides.rows }).from(ephemerides).where(eq(ephemerides.missionId, mission.id)).all();
+    const modelIds = ids(tx.select({ id: thermalModels.id }).from(thermalModels).where(eq(thermalModels.missionId, mission.id)).all());
+    const runCount = modelIds.length === 0 ? 0 : tx.select({ id: thermalRuns.id }).from(thermalRuns).where(inArray(thermalRuns.modelId, modelIds)).all().length;
+    // Subscriptions follow a series, not a row, so no foreign key removes them: a series that had
+    // no release lives only in this mission and goes with it.
+    const series = [...new Set(cases.map((c) => c.seriesId))];
+    const subscriptionCount = series.length === 0 ? 0 : tx.delete(caseSubscriptions).where(inArray(caseSubscriptions.caseSeriesId, series)).run().changes;
+    // The rest goes with it by ON DELETE CASCADE (a database trigger refuses any released case).
     tx.delete(missions).where(eq(missions.id, mission.id)).run();
+    const removed = [
+      counted(orbitCount, 'orbit'),
+      counted(surfaceCount, 'surface'),
+      `${counted(ephemerisRows.length, 'ephemeris', 'ephemerides')} (${ephemerisRows.reduce((n, e) => n + e.rows, 0)} rows)`,
+      `${counted(modelIds.length, 'thermal model')} with ${counted(runCount, 'stored run')}`,
+      `${counted(cases.length, 'unreleased load case')}${cases.length > 0 ? ` (${cases.map((c) => `"${c.name}" revision ${c.revision}, ${c.status}`).join('; ')})` : ''}`,
+      counted(subscriptionCount, 'subscription'),
+    ];
     recordAudit(tx, {
       workspaceId: mission.workspaceId,
       actorUserId: userId,
       action: 'mission.deleted',
       targetType: 'mission',
       targetId: mission.id,
-      summary: `Mission "${mission.name}" deleted with its ${orbitCount} orbit(s) and ${surfaceCount} surface(s).`,
+      summary: `Mission "${mission.name}" deleted with ${removed.join(', ')}.`,
     });
   });
+}
+
+/** Statuses whose cases other teams may have imported: they are never deleted. */
+const keptStatuses: readonly LoadCaseRow['status'][] = ['released', 'superseded'];
+
+function releasedCasesKept(mission: MissionRow, kept: Pick<LoadCaseRow, 'name' | 'revision' | 'status'>[]): ApiError {
+  const listed = kept.map((c) => `"${c.name}" revision ${c.revision} (${c.status})`);
+  const message =
+    `The mission "${mission.name}" holds ${counted(kept.length, 'load case')} that ${kept.length === 1 ? 'was' : 'were'} released: ${listed.join(', ')}. ` +
+    'Released cases stay for the teams that import them, so the mission cannot be deleted; archive it instead.';
+  return new ApiError(409, 'mission_has_released_cases', message, listed.map((text) => ({ message: text })));
 }

@@ -1,11 +1,12 @@
 // An orbit as typed ("550 km", "341.8 mi", 97.6, "95 min") read into canonical values (km, s, deg):
 // each quantity through quantity-reader.ts (shared/physics/units.ts when a unit needs converting), then the body's defineOrbit, which refuses the
 // impossible (a 422 saying by how much). Unit errors are 400s naming the field and the value.
+import { orbitInput } from '../../shared/api/environment';
 import type { orbitDefinitions } from '../../shared/api/missions';
 import type { Body } from '../../shared/physics/bodies';
 import { defineOrbit, type OrbitInput } from '../../shared/physics/orbit-definition';
 import { PhysicsError } from '../../shared/physics/physics-error';
-import { ApiError } from '../errors';
+import { ApiError, parse } from '../errors';
 import { readQuantityIn } from './quantity-reader';
 
 export type OrbitFields = Record<string, number | string>;
@@ -69,9 +70,11 @@ export function canonicalOrbit(fields: OrbitFields, body: Body): CanonicalOrbit 
   const e = fields.eccentricity;
   // The contract types eccentricity as a plain number; defineOrbit refuses anything not finite.
   if (e !== undefined) input.eccentricity = typeof e === 'number' ? e : Number(e);
+  // The same schema, and so the same limits, as the compute route's orbit (400 naming the field).
+  const checked = parse(orbitInput, input, 'orbit');
   let orbit;
   try {
-    orbit = defineOrbit(input, body);
+    orbit = defineOrbit(checked, body);
   } catch (error) {
     if (error instanceof PhysicsError) {
       const malformed = error.code === 'invalid_quantity' || error.code === 'invalid_orbit_definition';

@@ -9,6 +9,7 @@ import type { OrbitInput } from '../../shared/physics/orbit-definition';
 import type { Db } from '../db/database';
 import { materials, surfaces, type MissionRow, type OrbitRow } from '../db/schema';
 import { toSurface } from './mission-responses';
+import { limitWork } from '../work-limit';
 
 export type PropertySet = 'bol' | 'eol';
 type SavedEnvironmentRequest = z.output<typeof savedEnvironmentRequest>;
@@ -63,6 +64,7 @@ export function savedOrbitInput(orbit: OrbitRow, raanDeg = orbit.raanDeg): Orbit
 
 export function savedEnvironment(db: Db, mission: MissionRow, orbit: OrbitRow, request: SavedEnvironmentRequest): SavedEnvironmentResponse {
   const list = missionSurfaces(db, mission.id, request.properties);
+  limitWork([{ name: 'steps', count: request.steps }, { name: 'surfaces of the mission', count: list.length }], 'steps', 'use fewer steps');
   const result = computeEnvironment({
     bodyId: mission.bodyId,
     orbit: savedOrbitInput(orbit),

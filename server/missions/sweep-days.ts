@@ -8,6 +8,7 @@ import type { SweepDay, sweepQuery } from '../../shared/api/missions';
 import { DEFAULT_SWEEP_STEPS, sweepMission } from '../../shared/physics/mission-sweep';
 import type { MissionRow, OrbitRow } from '../db/schema';
 import { badRequest } from '../errors';
+import { limitWork } from '../work-limit';
 import { savedOrbitInput, type MissionSurface } from './saved-environment';
 
 type SweepQuery = z.output<typeof sweepQuery>;
@@ -52,6 +53,7 @@ export function planSweep(mission: MissionRow, query: SweepQuery): SweepPlan {
 
 /** Computes days [first, first + count) of the plan; the caller decides how many to do between yields. */
 export function sweepChunkComputer(mission: MissionRow, orbit: OrbitRow, plan: SweepPlan, surfaces: readonly MissionSurface[]): (first: number, count: number) => SweepDay[] {
+  limitWork([{ name: 'days', count: plan.days }, { name: 'surfaces of the mission', count: surfaces.length }], 'stepDays', 'use a larger stepDays or a shorter range (from, to)');
   const physicsSurfaces = surfaces.map((s) => s.physics);
   return (first, count) => {
     const startDate = isoDay(dayMs(plan.from) + first * plan.stepDays * DAY_MS);

@@ -3,6 +3,7 @@
 // served meanwhile; stops computing when the client goes away.
 import type { Response } from 'express';
 import type { SweepDay, SweepLine } from '../../shared/api/missions';
+import { csvRecord } from '../../shared/csv/csv-cell';
 import type { Logger } from '../logger';
 import type { MissionSurface } from './saved-environment';
 import type { SweepPlan } from './sweep-days';
@@ -12,12 +13,9 @@ const DAYS_PER_CHUNK = 120;
 
 export type SweepFormat = 'ndjson' | 'csv';
 
-/** RFC 4180: a field with a comma, quote or line break is quoted, its quotes doubled. */
-const csvField = (value: string): string => (/[",\r\n]/.test(value) ? `"${value.replaceAll('"', '""')}"` : value);
-const csvRow = (fields: readonly string[]): string => fields.map(csvField).join(',') + '\r\n';
 
 export function csvHeader(surfaces: readonly MissionSurface[]): string {
-  return csvRow([
+  return csvRecord([
     'date (UTC, sampled 12:00)',
     'beta (deg)',
     'eclipse fraction (0-1)',
@@ -31,15 +29,15 @@ export function csvHeader(surfaces: readonly MissionSurface[]): string {
 }
 
 const csvDay = (day: SweepDay): string =>
-  csvRow([
+  csvRecord([
     day.date,
-    String(day.betaDeg),
-    String(day.eclipseFraction),
-    String(day.eclipseDurationS),
-    String(day.solarDistanceAu),
-    String(day.solarFluxWm2),
-    ...day.surfaces.map((s) => String(s.absorbedW)),
-    String(day.longestShadowS),
+    day.betaDeg,
+    day.eclipseFraction,
+    day.eclipseDurationS,
+    day.solarDistanceAu,
+    day.solarFluxWm2,
+    ...day.surfaces.map((s) => s.absorbedW),
+    day.longestShadowS,
     day.longestShadowCastBy.join(' and '),
   ]);
 
@@ -96,6 +94,7 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
     res.type('application/x-ndjson; charset=utf-8');
     res.write(ndjson({ type: 'start', days: plan.days, from: plan.from, to: plan.to, stepDays: plan.stepDays }));
   }
+  res.flush?.();
 
   for (let start = 0; start < plan.days; start += DAYS_PER_CHUNK) {
     if (gone) {
@@ -114,9 +113,22 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
       else res.destroy();
       return;
     }
-    if (!res.write(chunk)) await drained(res);
+    const more = res.write(chunk);
+    // Under compression (server/http/answer-compression.ts) the chunk leaves now, not when the compressor's buffer fills.
+    res.flush?.();
+    if (!more) await drained(res);
     await nextTurn();
   }
   if (gone) return;
   res.end(format === 'ndjson' ? ndjson({ type: 'end', days: plan.days }) : undefined);
+}
+
+/** Every day of a sweep in one list, computed a chunk at a time with a turn of the event loop between chunks. */
+export async function collectSweep(plan: SweepPlan, computeDays: (first: number, count: number) => SweepDay[]): Promise<Omit<SweepDay, 'type'>[]> {
+  const days: Omit<SweepDay, 'type'>[] = [];
+  for (let start = 0; start < plan.days; start += DAYS_PER_CHUNK) {
+    for (const { type: _line, ...day } of computeDays(start, Math.min(DAYS_PER_CHUNK, plan.days - start))) days.push(day);
+    await nextTurn();
+  }
+  return days;
 }

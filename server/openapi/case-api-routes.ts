@@ -22,7 +22,7 @@ export const caseApiRoutes: ApiRoute[] = [
   { method: 'get', path: `${c}/compare`, tag: 'cases', summary: 'Two revisions side by side: inputs and per-surface orbit averages', query: caseCompareQuery, response: caseComparison },
   { method: 'post', path: `${c}/subscription`, tag: 'cases', summary: 'Follow the case: mail on every new release', response: subscriptionState },
   { method: 'delete', path: `${c}/subscription`, tag: 'cases', summary: 'Stop following the case', response: subscriptionState },
-  { method: 'get', path: `${c}/export`, tag: 'cases', summary: 'The case as a file: JSON (load-case.json schema) or CSV (RFC 4180)', query: caseExportQuery, response: caseExport, produces: ['application/json', 'text/csv'] },
+  { method: 'get', path: `${c}/export`, tag: 'cases', summary: 'The case as a file: JSON (load-case.json schema) or CSV (RFC 4180)', query: caseExportQuery, response: caseExport, produces: ['application/json', 'text/csv'], perStep: true },
   { method: 'get', path: `${v1}/schemas/load-case.json`, tag: 'documents', summary: 'JSON Schema (draft 2020-12) of a case’s JSON export', response: z.record(z.string(), z.unknown()) },
   { method: 'get', path: `${v1}/openapi.json`, tag: 'documents', summary: 'This document: the whole API in OpenAPI 3', response: z.record(z.string(), z.unknown()) },
 ];

@@ -32,8 +32,8 @@ export const foundationApiRoutes: ApiRoute[] = [
   { method: 'post', path: `${v1}/workspaces/:workspaceId/invitations`, tag: 'workspaces', summary: 'Invite by e-mail (owner)', body: invitationCreate, status: 201, response: invitation },
   { method: 'delete', path: `${v1}/workspaces/:workspaceId/invitations/:id`, tag: 'workspaces', summary: 'Withdraw an invitation (owner)', status: 204 },
   { method: 'get', path: `${v1}/workspaces/:workspaceId/audit`, tag: 'workspaces', summary: 'The audit log, filtered (owner)', query: auditQuery, response: z.object({ items: z.array(auditEvent), total: z.number() }) },
-  { method: 'get', path: `${v1}/admin/mail`, tag: 'admin', summary: 'Mail received by the fake SMTP server (instance administrator)', response: items(mailSummary) },
-  { method: 'get', path: `${v1}/admin/mail/:id`, tag: 'admin', summary: 'One received mail (instance administrator)', response: mailMessage },
+  { method: 'get', path: `${v1}/admin/mail`, tag: 'admin', summary: 'Mail received by the fake SMTP server (instance administrator, signed in; no API token)', response: items(mailSummary) },
+  { method: 'get', path: `${v1}/admin/mail/:id`, tag: 'admin', summary: 'One received mail, invitation and reset links hidden unless ECLIPTA_OUTBOX_LINKS=shown (instance administrator, signed in; no API token)', response: mailMessage },
   { method: 'get', path: `${v1}/bodies`, tag: 'environment', summary: 'The body catalogue with sources', response: bodiesResponse },
-  { method: 'post', path: `${v1}/environment/compute`, tag: 'environment', summary: 'One orbit’s thermal environment (stateless)', body: environmentRequest, response: environmentResponse },
+  { method: 'post', path: `${v1}/environment/compute`, tag: 'environment', summary: 'One orbit’s thermal environment (stateless)', body: environmentRequest, response: environmentResponse, perStep: true },
 ];

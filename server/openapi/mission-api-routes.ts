@@ -28,7 +28,7 @@ export const missionApiRoutes: ApiRoute[] = [
   { method: 'patch', path: `${m}/orbits/:orbitId`, tag: 'orbits', summary: 'Change an orbit', body: orbitUpdate, response: orbit },
   { method: 'delete', path: `${m}/orbits/:orbitId`, tag: 'orbits', summary: 'Delete an orbit', status: 204 },
   { method: 'post', path: `${m}/orbits/:orbitId/environment`, tag: 'orbits', summary: 'The environment of a saved orbit on the mission’s surfaces', body: savedEnvironmentRequest, response: environmentResponse },
-  { method: 'get', path: `${m}/orbits/:orbitId/sweep`, tag: 'orbits', summary: 'Beta, eclipse, Sun distance and loads day by day (NDJSON, or CSV)', query: sweepQuery, produces: ['application/x-ndjson', 'text/csv'] },
+  { method: 'get', path: `${m}/orbits/:orbitId/sweep`, tag: 'orbits', summary: 'Beta, eclipse, Sun distance and loads day by day (NDJSON, or CSV; columnar JSON or Arrow all at once)', query: sweepQuery, produces: ['application/x-ndjson', 'text/csv'], perStep: true },
   { method: 'get', path: `${m}/surfaces`, tag: 'surfaces', summary: 'A mission’s spacecraft surfaces', response: items(surface) },
   { method: 'post', path: `${m}/surfaces`, tag: 'surfaces', summary: 'Add a surface', body: surfaceCreate, status: 201, response: surface },
   { method: 'patch', path: `${m}/surfaces/:surfaceId`, tag: 'surfaces', summary: 'Change a surface', body: surfaceUpdate, response: surface },
@@ -42,6 +42,6 @@ export const missionApiRoutes: ApiRoute[] = [
   { method: 'get', path: `${m}/ephemerides/:ephemerisId`, tag: 'ephemerides', summary: 'One ephemeris (summary)', response: ephemerisSummary },
   { method: 'get', path: `${m}/ephemerides/:ephemerisId/points`, tag: 'ephemerides', summary: 'A page of an ephemeris’ points', query: ephemerisPointsQuery, response: ephemerisPointsPage },
   { method: 'delete', path: `${m}/ephemerides/:ephemerisId`, tag: 'ephemerides', summary: 'Delete an ephemeris', status: 204 },
-  { method: 'post', path: `${m}/ephemerides/:ephemerisId/environment`, tag: 'ephemerides', summary: 'The environment along an uploaded trajectory (optionally over a window)', body: trajectoryEnvironmentRequest, response: trajectoryEnvironmentResponse },
+  { method: 'post', path: `${m}/ephemerides/:ephemerisId/environment`, tag: 'ephemerides', summary: 'The environment along an uploaded trajectory (optionally over a window)', body: trajectoryEnvironmentRequest, response: trajectoryEnvironmentResponse, perStep: true },
   { method: 'post', path: `${m}/ephemerides/:ephemerisId/cases`, tag: 'ephemerides', summary: 'A load case (custom, draft) from a window of the trajectory', body: ephemerisCaseCreate, status: 201, response: caseDetail },
 ];

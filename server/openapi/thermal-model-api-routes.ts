@@ -15,7 +15,7 @@ export const thermalModelApiRoutes: ApiRoute[] = [
   { method: 'get', path: m, tag: 'thermal', summary: 'A saved thermal model with its last runs (any member)', response: thermalModelDetail },
   { method: 'patch', path: m, tag: 'thermal', summary: 'Change a thermal model (thermal engineer or owner)', body: thermalModelUpdate, response: thermalModelDetail },
   { method: 'delete', path: m, tag: 'thermal', summary: 'Delete a thermal model (thermal engineer or owner)', status: 204 },
-  { method: 'post', path: `${m}/run`, tag: 'thermal', summary: 'Run the model on a load case of its mission (analyst, thermal engineer, owner); 422 when it does not converge', body: thermalRunRequest, response: thermalRunResponse },
-  { method: 'get', path: `${m}/runs/:caseId`, tag: 'thermal', summary: 'The last run of the model on a load case (any member)', response: thermalRunResponse },
+  { method: 'post', path: `${m}/run`, tag: 'thermal', summary: 'Run the model on a load case of its mission (analyst, thermal engineer, owner); 422 when it does not converge', body: thermalRunRequest, response: thermalRunResponse, perStep: true },
+  { method: 'get', path: `${m}/runs/:caseId`, tag: 'thermal', summary: 'The last run of the model on a load case (any member)', response: thermalRunResponse, perStep: true },
   { method: 'post', path: `${m}/size`, tag: 'thermal', summary: 'Radiator area in the hot case and heater power in the cold case (analyst, thermal engineer, owner)', body: thermalModelSizeRequest, response: thermalModelSizeResponse },
 ];

@@ -8,26 +8,27 @@ import { meResponse } from '../auth/me-response';
 import { requireUser, signedIn } from '../auth/middleware';
 import { confirmPasswordReset, requestPasswordReset, resetRequestedMessage } from '../auth/password-reset';
 import { burnPasswordCheck, verifyPassword } from '../auth/passwords';
-import { endSession, startSession } from '../auth/session';
-import { SignInLimiter } from '../auth/sign-in-limiter';
+import { clientAddress, passwordCheckLimits, RateLimiter, resetLimits } from '../auth/rate-limiter';
+import { clearSessionCookie, endSessions, startSession } from '../auth/session';
 import { users } from '../db/schema';
 import { ApiError, parse } from '../errors';
 
 const wrongCredentials = 'The e-mail address or password is not right.';
 
-export function authRoutes(ctx: AppContext, limiter = new SignInLimiter()): Router {
+export function authRoutes(ctx: AppContext): Router {
   const router = Router();
+  const limiter = new RateLimiter(ctx.db);
 
   router.post('/auth/sign-in', async (req, res) => {
     const input = parse(signIn, req.body);
-    const ip = req.ip ?? 'unknown';
-    limiter.check(input.email, ip);
+    const limits = passwordCheckLimits(limiter, input.email, clientAddress(req));
+    limits.check();
     const user = ctx.db.select().from(users).where(eq(users.email, input.email)).get();
     const ok = user
       ? await verifyPassword(input.password, user.passwordHash)
       : await burnPasswordCheck(input.password, ctx.config.bcryptCost);
     if (!user || !ok) {
-      limiter.recordFailure(input.email, ip);
+      limits.failed();
       recordAudit(ctx.db, {
         workspaceId: null,
         actorUserId: user?.id ?? null,
@@ -38,7 +39,7 @@ export function authRoutes(ctx: AppContext, limiter = new SignInLimiter()): Rout
       });
       throw new ApiError(401, 'invalid_credentials', wrongCredentials);
     }
-    limiter.recordSuccess(input.email, ip);
+    limits.succeeded();
     recordAudit(ctx.db, {
       workspaceId: null,
       actorUserId: user.id,
@@ -51,8 +52,23 @@ export function authRoutes(ctx: AppContext, limiter = new SignInLimiter()): Rout
     res.json(meResponse(ctx.db, user, { kind: 'session', readOnly: false }));
   });
 
-  router.post('/auth/sign-out', requireUser, (_req, res) => {
-    endSession(ctx, res);
+  router.post('/auth/sign-out', requireUser, (req, res) => {
+    const auth = signedIn(req);
+    if (auth.sessionId) {
+      const sessionId = auth.sessionId;
+      ctx.db.transaction((tx) => {
+        endSessions(tx, { sessionId });
+        recordAudit(tx, {
+          workspaceId: null,
+          actorUserId: auth.user.id,
+          action: 'auth.signed_out',
+          targetType: 'user',
+          targetId: auth.user.id,
+          summary: `${auth.user.email} signed out.`,
+        });
+      });
+    }
+    clearSessionCookie(ctx, res);
     res.status(204).end();
   });
 
@@ -63,18 +79,27 @@ export function authRoutes(ctx: AppContext, limiter = new SignInLimiter()): Rout
 
   router.post('/auth/password-reset', (req, res) => {
     const input = parse(passwordResetRequest, req.body);
-    // Not awaited: answering before the mail goes out keeps known and unknown addresses
-    // indistinguishable by timing as well as by the answer.
-    requestPasswordReset(ctx, input.email).catch((err: unknown) => {
-      ctx.logger.error('password reset mail failed', { error: err instanceof Error ? err : String(err) });
-    });
+    // The same limits, the same writes and the same answer whether or not the address has an
+    // account; looking it up, writing the reset and mailing it happen after the answer.
+    const keys = [
+      [resetLimits.address, input.email.toLowerCase()],
+      [resetLimits.client, clientAddress(req)],
+      [resetLimits.everyone, '*'],
+    ] as const;
+    limiter.check(keys);
+    limiter.record(keys);
+    ctx.background.run('password reset mail', () => requestPasswordReset(ctx, input.email));
     res.status(202).json({ message: resetRequestedMessage });
   });
 
   router.post('/auth/password-reset/confirm', async (req, res) => {
     const input = parse(passwordResetConfirm, req.body);
-    await confirmPasswordReset(ctx, input.token, input.password);
-    res.json({ message: 'Your password was changed. Sign in with the new one.' });
+    const outcome = await confirmPasswordReset(ctx, input.token, input.password);
+    const tokens =
+      outcome.tokensRevoked === 0
+        ? ''
+        : ` Your ${outcome.tokensRevoked} personal API token${outcome.tokensRevoked === 1 ? ' was' : 's were'} revoked; make new ones after signing in.`;
+    res.json({ message: `Your password was changed and every session of your account was ended.${tokens} Sign in with the new password.` });
   });
 
   return router;

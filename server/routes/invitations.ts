@@ -7,6 +7,7 @@ import type { AppContext } from '../app-context';
 import { pathParam } from '../path-param';
 import { meResponse } from '../auth/me-response';
 import { signedIn, workspaceAccess } from '../auth/middleware';
+import { clientAddress } from '../auth/rate-limiter';
 import { startSession } from '../auth/session';
 import { parse } from '../errors';
 import {
@@ -43,7 +44,7 @@ export function invitationRoutes(ctx: AppContext): Router {
 
   router.post('/invitations/:token/accept', async (req, res) => {
     const input = parse(invitationAccept, req.body);
-    const user = await acceptInvitation(ctx, pathParam(req, 'token'), input);
+    const user = await acceptInvitation(ctx, pathParam(req, 'token'), input, clientAddress(req));
     startSession(ctx, res, user);
     res.json(meResponse(ctx.db, user, { kind: 'session', readOnly: false }));
   });

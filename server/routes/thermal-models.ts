@@ -5,6 +5,7 @@ import { thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, therma
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
+import { answerForm, sendPerStep } from '../http/answer-formats';
 import { pathParam } from '../path-param';
 import { lastRun, runModel, sizeModel } from '../thermal/thermal-model-runs';
 import { createModel, deleteModel, getModel, listModels, updateModel } from '../thermal/thermal-model-store';
@@ -35,13 +36,17 @@ export function thermalModelRoutes(ctx: AppContext): Router {
     res.status(204).end();
   });
 
-  router.post('/thermal-models/:id/run', requireUser, (req, res) => {
-    const { caseId } = parse(thermalRunRequest, req.body);
-    res.json(runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId));
+  router.post('/thermal-models/:id/run', requireUser, async (req, res) => {
+    const { caseId, maxOrbits } = parse(thermalRunRequest, req.body);
+    const form = answerForm(req);
+    const run = runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits);
+    await sendPerStep(res, form, { answer: () => run, key: 'result', stepKey: 'tS' });
   });
 
-  router.get('/thermal-models/:id/runs/:caseId', requireUser, (req, res) => {
-    res.json(lastRun(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), pathParam(req, 'caseId')));
+  router.get('/thermal-models/:id/runs/:caseId', requireUser, async (req, res) => {
+    const form = answerForm(req);
+    const run = lastRun(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), pathParam(req, 'caseId'));
+    await sendPerStep(res, form, { answer: () => run, key: 'result', stepKey: 'tS' });
   });
 
   router.post('/thermal-models/:id/size', requireUser, (req, res) => {

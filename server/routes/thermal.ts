@@ -7,19 +7,20 @@ import { solveThermal } from '../../shared/physics/thermal-solver';
 import type { AppContext } from '../app-context';
 import { requireUser } from '../auth/middleware';
 import { parse } from '../errors';
-import { answerThermal } from '../thermal/thermal-failures';
+import { sendJson } from '../json-stream';
+import { answerThermal, boundedModel } from '../thermal/thermal-failures';
 
 export function thermalRoutes(_ctx: AppContext): Router {
   const router = Router();
 
-  router.post('/thermal/solve', requireUser, (req, res) => {
-    const model = asThermalSolveInput(parse(thermalSolveRequest, req.body));
-    res.json(answerThermal(() => solveThermal(model), 'impossible_model'));
+  router.post('/thermal/solve', requireUser, async (req, res) => {
+    const model = boundedModel(asThermalSolveInput(parse(thermalSolveRequest, req.body)));
+    await sendJson(res, answerThermal(() => solveThermal(model), 'impossible_model'));
   });
 
   router.post('/thermal/size', requireUser, (req, res) => {
     const request = parse(thermalSizeRequest, req.body);
-    const model = asThermalSolveInput(request);
+    const model = boundedModel(asThermalSolveInput(request));
     const { sizing } = request;
     const answer: ThermalSizeResponse = answerThermal(() => ({
       sizing: sizing.kind === 'radiator'

@@ -2,9 +2,10 @@
 // run for that case) and sizing its radiator in the hot case and its heater in the cold case, with
 // the stateless solver and sizing of shared/physics.
 import { and, eq } from 'drizzle-orm';
-import { asThermalSolveInput, thermalSolveRequest } from '../../shared/api/thermal';
+import { asThermalSolveInput, thermalSolveRequest, type ThermalSolveRequestInput } from '../../shared/api/thermal';
 import type { ThermalModelSizeResponse, ThermalRunResponse, thermalModelSizeRequest } from '../../shared/api/thermal-models';
 import { ThermalConvergenceError, ThermalModelError } from '../../shared/physics/thermal-model';
+import { controlRecoveries } from '../../shared/physics/thermal-loop-results';
 import { heaterPowerFor, radiatorAreaFor } from '../../shared/physics/thermal-sizing';
 import { solveThermal } from '../../shared/physics/thermal-solver';
 import type { z } from 'zod';
@@ -13,25 +14,27 @@ import type { Db } from '../db/database';
 import { surfaces, thermalRuns, type LoadCaseRow, type MissionRow, type ThermalModelRow } from '../db/schema';
 import { badRequest, notFound, parse } from '../errors';
 import { caseOfMission, modelFor } from './thermal-model-access';
-import { answerThermal } from './thermal-failures';
+import { answerThermal, boundedModel } from './thermal-failures';
 import { runInputs } from './thermal-run-inputs';
 
 type SizeRequest = z.output<typeof thermalModelSizeRequest>;
 
 const caseRef = (c: LoadCaseRow) => ({ id: c.id, name: c.name, kind: c.kind, status: c.status, revision: c.revision });
 
-function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: LoadCaseRow) {
+function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: LoadCaseRow, extra: Partial<ThermalSolveRequestInput> = {}) {
   const names = new Map(db.select({ id: surfaces.id, name: surfaces.name }).from(surfaces).where(eq(surfaces.missionId, mission.id)).all().map((s) => [s.id, s.name]));
-  const inputs = runInputs(row.model, names, kase);
+  const base = runInputs(row.model, names, kase);
+  const inputs = { ...base, request: { ...base.request, ...extra } };
   // The request is built from checked parts; parsing again fills the solver's defaults and keeps
   // the route honest should a case hold something the stateless route would refuse.
-  return { ...inputs, parsed: asThermalSolveInput(parse(thermalSolveRequest, inputs.request)) };
+  return { ...inputs, parsed: boundedModel(asThermalSolveInput(parse(thermalSolveRequest, inputs.request))) };
 }
 
-export function runModel(db: Db, userId: string, modelId: string, caseId: string): ThermalRunResponse {
+export function runModel(db: Db, userId: string, modelId: string, caseId: string, maxOrbits?: number): ThermalRunResponse {
   const { row, mission, role } = modelFor(db, userId, modelId, 'run');
   const kase = caseOfMission(db, mission, caseId, role, 'caseId');
-  const { request, nodes, assumptions, parsed } = inputsFor(db, row, mission, kase);
+  // A run that does not settle still answers: its last orbit, marked (result.converged false, result.unsettled).
+  const { request, nodes, assumptions, parsed } = inputsFor(db, row, mission, kase, { whenUnsettled: 'last-orbit', ...(maxOrbits !== undefined ? { maxOrbits } : {}) });
   const result = answerThermal(() => solveThermal(parsed), 'impossible_model');
   const ranAt = new Date().toISOString();
   const answer: Omit<ThermalRunResponse, 'stale'> = {
@@ -42,6 +45,7 @@ export function runModel(db: Db, userId: string, modelId: string, caseId: string
     inputs: nodes,
     solveRequest: { ...request },
     result,
+    recoveries: controlRecoveries(result, kase.results.sunlit, parsed.periodS),
     assumptions: [...assumptions, ...result.assumptions],
   };
   db.transaction((tx) => {
@@ -49,7 +53,7 @@ export function runModel(db: Db, userId: string, modelId: string, caseId: string
     tx.insert(thermalRuns).values({ modelId: row.id, caseId: kase.id, pass: result.pass, modelUpdatedAt: row.updatedAt, result: answer, ranBy: userId, ranAt }).run();
     recordAudit(tx, {
       workspaceId: mission.workspaceId, actorUserId: userId, action: 'thermal_model.run', targetType: 'thermal_model', targetId: row.id,
-      summary: `Ran thermal model "${row.name}" on case "${kase.name}" (${kase.kind}): ${result.pass ? 'pass' : 'fail'}.`,
+      summary: `Ran thermal model "${row.name}" on case "${kase.name}" (${kase.kind}): ${result.converged ? (result.pass ? 'pass' : 'fail') : `not settled after ${result.orbits} orbits`}.`,
     });
   });
   return { ...answer, stale: false };
@@ -60,7 +64,8 @@ export function lastRun(db: Db, userId: string, modelId: string, caseId: string)
   const kase = caseOfMission(db, mission, caseId, role, 'caseId');
   const run = db.select().from(thermalRuns).where(and(eq(thermalRuns.modelId, row.id), eq(thermalRuns.caseId, kase.id))).get();
   if (!run) throw notFound(`Thermal model "${row.name}" has not been run on case "${kase.name}" yet.`, 'no_run');
-  return { ...run.result, stale: run.modelUpdatedAt !== row.updatedAt };
+  // Runs kept before unsettled runs were answered have no `unsettled`: they all settled.
+  return { ...run.result, result: { ...run.result.result, unsettled: run.result.result.unsettled ?? null }, stale: run.modelUpdatedAt !== row.updatedAt };
 }
 
 /** The sizing's answer, or the sentence saying why this model cannot be sized so. */

@@ -7,6 +7,7 @@ import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import { hashPassword, verifyPassword } from '../auth/passwords';
 import { newSecret, sha256Hex } from '../auth/secret-tokens';
+import { passwordCheckLimits, RateLimiter } from '../auth/rate-limiter';
 import { invitations, memberships, users, workspaces, type InvitationRow, type UserRow } from '../db/schema';
 import { ApiError, badRequest, conflict, notFound } from '../errors';
 import { invitationMail } from '../mail/messages';
@@ -142,15 +143,23 @@ export function previewInvitation(ctx: AppContext, token: string): InvitationPre
   };
 }
 
-/** Accepts an invitation and answers the user to sign in as. */
-export async function acceptInvitation(ctx: AppContext, token: string, input: InvitationAccept): Promise<UserRow> {
+/**
+ * Accepts an invitation and answers the user to sign in as. For an existing account the password
+ * check counts against the sign-in limits of that account and of the client (`client`), so an
+ * invitation link is no way around them.
+ */
+export async function acceptInvitation(ctx: AppContext, token: string, input: InvitationAccept, client: string): Promise<UserRow> {
   const invitation = openInvitation(ctx, token);
   const existing = ctx.db.select().from(users).where(eq(users.email, invitation.email)).get();
   let newPasswordHash: string | null = null;
   if (existing) {
+    const limits = passwordCheckLimits(new RateLimiter(ctx.db), existing.email, client);
+    limits.check();
     if (!(await verifyPassword(input.password, existing.passwordHash))) {
+      limits.failed();
       throw new ApiError(401, 'invalid_credentials', `The password is not right for ${existing.email}.`);
     }
+    limits.succeeded();
   } else {
     if (!input.name) throw badRequest('Enter your name to create your account.', [{ path: 'name', message: 'enter your name (got nothing)' }]);
     newPasswordHash = await hashPassword(input.password, ctx.config.bcryptCost);

@@ -1,9 +1,9 @@
 // Members of a workspace: listing, role changes and removal, never leaving a workspace without an owner.
-import { and, asc, count, eq } from 'drizzle-orm';
+import { and, asc, count, eq, inArray } from 'drizzle-orm';
 import type { Member, Role } from '../../shared/api/workspaces';
 import { recordAudit } from '../audit/audit-log';
 import type { Db, Tx } from '../db/database';
-import { memberships, users } from '../db/schema';
+import { caseSubscriptions, loadCases, memberships, users } from '../db/schema';
 import { conflict, notFound } from '../errors';
 
 const memberColumns = {
@@ -75,13 +75,20 @@ export function removeMember(db: Db, workspaceId: string, userId: string, actorU
     tx.delete(memberships)
       .where(and(eq(memberships.workspaceId, workspaceId), eq(memberships.userId, userId)))
       .run();
+    // Leaving a workspace ends its mail: no more release notices of its cases.
+    const workspaceSeries = tx.selectDistinct({ seriesId: loadCases.seriesId }).from(loadCases).where(eq(loadCases.workspaceId, workspaceId));
+    const ended = tx
+      .delete(caseSubscriptions)
+      .where(and(eq(caseSubscriptions.userId, userId), inArray(caseSubscriptions.caseSeriesId, workspaceSeries)))
+      .run().changes;
+    const subscriptions = ended === 0 ? '' : ` Their ${ended} case subscription${ended === 1 ? '' : 's'} ended with it.`;
     recordAudit(tx, {
       workspaceId,
       actorUserId,
       action: 'member.removed',
       targetType: 'user',
       targetId: userId,
-      summary: `${member.email} (${member.role}) was removed from the workspace.`,
+      summary: `${member.email} (${member.role}) was removed from the workspace.${subscriptions}`,
     });
   });
 }

@@ -11,6 +11,7 @@
 //   POST tokens                            tokenCreate       -> 201 tokenCreated (the secret is shown this once)
 //   DELETE tokens/:id                                       -> 204
 import { z } from 'zod';
+import { lineText } from './text';
 import { role } from './workspaces';
 
 export const email = z
@@ -67,12 +68,12 @@ export const invitationPreview = z.object({
 });
 
 export const invitationAccept = z.strictObject({
-  name: z.string().trim().min(1, 'enter your name').max(120).optional(),
+  name: lineText(120).min(1, 'enter your name').optional(),
   password,
 });
 
 export const tokenCreate = z.strictObject({
-  name: z.string().trim().min(1, 'give the token a name').max(80, 'a token name has at most 80 characters'),
+  name: lineText(80, 'a token name has at most 80 characters').min(1, 'give the token a name'),
   readOnly: z.boolean().default(false),
   /** Days until the token stops working; absent means it never expires. */
   expiresInDays: z.number().int().min(1).max(3650).optional(),

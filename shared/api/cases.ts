@@ -5,10 +5,12 @@
 //   POST   missions/:id/cases               caseCreate -> 201 caseDetail (a custom case, draft)
 //   GET    cases?missionId=&status=&kind=   -> {items: caseSummary[]}
 //   GET    cases/:id                        -> caseDetail
-//   PATCH  cases/:id                        caseUpdate -> caseDetail (drafts only; else 409)
+//   PATCH  cases/:id                        caseUpdate -> caseDetail (drafts only; else 409; 409 too when its
+//                                            `version` is not the draft's: someone changed it meanwhile)
 //   POST   cases/:id/submit                 -> caseDetail (draft -> review)
 //   POST   cases/:id/release                -> caseDetail (review -> released; by a thermal engineer or
-//                                              owner other than the author; supersedes the previous release)
+//                                              owner other than the author; supersedes the previous release;
+//                                              409 when a newer revision of the series is released already)
 //   POST   cases/:id/revisions              -> 201 caseDetail (a new draft from a released or superseded one)
 //   GET    cases/:id/compare?with=otherId   -> caseComparison
 //   POST   cases/:id/subscription           -> {subscribed: true}    DELETE -> {subscribed: false}
@@ -16,12 +18,14 @@
 //   GET    schemas/load-case.json           -> the JSON Schema of caseExport
 //   GET    openapi.json                     -> the whole API in OpenAPI 3
 import { z } from 'zod';
+import { lineText } from './text';
+import { answerLayout } from './answer-formats';
 import { caseInputs, caseKinds, caseResultsContent, caseStatuses, propertySetValues } from './case-content';
 import { surfaceNormal } from './missions';
 
 const isoDate = z.iso.date({ message: 'is a date like 2028-03-20' });
 const fraction = (label: string) => z.number({ message: `${label} must be a number` }).min(0, `${label} is 0..1`).max(1, `${label} is 0..1`);
-const name = z.string().trim().min(1, 'give the case a name').max(120, 'a case name has at most 120 characters');
+const name = lineText(120, 'a case name has at most 120 characters').min(1, 'give the case a name');
 const steps = z.number().int('steps is a whole number').min(12, 'steps is 12..2000').max(2000, 'steps is 12..2000');
 
 export const marginsInput = z.strictObject({
@@ -32,7 +36,7 @@ export const marginsInput = z.strictObject({
 export const pairInput = z.strictObject({
   albedo: fraction('albedo'),
   olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000),
-  source: z.string().trim().min(1).max(300).default('entered by the user, no source given'),
+  source: lineText(300).min(1).default('entered by the user, no source given'),
 });
 
 export const caseDerive = z.strictObject({
@@ -57,29 +61,34 @@ export const caseCreate = z.strictObject({
   properties: z.enum(propertySetValues).default('bol'),
   marginDirection: z.enum(['increase', 'decrease']).default('increase'),
   /** Attitude: surface name -> normal, over the mission's own normals. */
-  normals: z.record(z.string(), surfaceNormal).optional(),
-  attitude: z.string().trim().max(300).optional(),
+  normals: z.record(lineText(80), surfaceNormal).optional(),
+  attitude: lineText(300).optional(),
   margins: marginsInput.optional(),
   steps: steps.default(120),
 });
 
 const materialInput = z.strictObject({
-  name: z.string().trim().min(1).max(120),
+  name: lineText(120).min(1),
   absorptivityBol: fraction('absorptivityBol'),
   emissivityBol: fraction('emissivityBol'),
   absorptivityEol: fraction('absorptivityEol'),
   emissivityEol: fraction('emissivityEol'),
-  source: z.string().trim().max(300).default('entered by the user, no source given'),
+  source: lineText(300).default('entered by the user, no source given'),
 });
 
 export const caseSurfaceInput = z.strictObject({
-  name: z.string().trim().min(1, 'give the surface a name').max(80),
+  name: lineText(80).min(1, 'give the surface a name'),
   normal: surfaceNormal,
   areaM2: z.number().positive('area must be above 0 m^2').max(10000),
   material: materialInput,
 });
 
 export const caseUpdate = z.strictObject({
+  /**
+   * The `version` of the draft the edit was made on. When given and the draft has changed since
+   * (another edit, a submission), the PATCH is refused with 409 instead of overwriting that change.
+   */
+  version: z.number().int('version is a whole number').min(1, 'version counts from 1').optional(),
   name: name.optional(),
   margins: marginsInput.optional(),
   inputs: z
@@ -92,7 +101,7 @@ export const caseUpdate = z.strictObject({
       properties: z.enum(propertySetValues).optional(),
       marginDirection: z.enum(['increase', 'decrease']).optional(),
       steps: steps.optional(),
-      attitude: z.string().trim().max(300).optional(),
+      attitude: lineText(300).optional(),
       surfaces: z
         .array(caseSurfaceInput)
         .min(1, 'give at least one surface')
@@ -110,7 +119,11 @@ export const caseListQuery = z.strictObject({
 });
 
 export const caseCompareQuery = z.strictObject({ with: z.string().min(1, 'give the id of the case to compare with').max(64) });
-export const caseExportQuery = z.strictObject({ format: z.enum(['json', 'csv'], { message: 'format is json or csv' }).default('json') });
+export const caseExportQuery = z.strictObject({
+  format: z.enum(['json', 'csv'], { message: 'format is json or csv' }).default('json'),
+  /** The JSON export is in columns already: the columnar layout answers it as it is (API.md "Answer formats"). */
+  layout: answerLayout,
+});
 
 const person = z.object({ id: z.string(), name: z.string(), email: z.string() }).nullable();
 
@@ -130,6 +143,8 @@ export const caseSummary = z.object({
   releasedAt: z.string().nullable(),
   orbitAverageAbsorbedW: z.number(),
   betaDeg: z.number(),
+  /** Counts the changes of this revision; a PATCH that names an older one is refused (409). */
+  version: z.number().int(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });

@@ -5,22 +5,37 @@
 // Ranges here catch malformed input (400); physics/orbit-definition.ts refuses the impossible (422)
 // so its messages can say by how much.
 import { z } from 'zod';
+import { lineText } from './text';
 import { bodyIds } from '../physics/bodies';
 import type { EnvironmentRequest } from '../physics/environment';
 import { namedNormals } from '../physics/heat-loads';
 
 const finite = (label: string) => z.number({ message: `${label} must be a number` });
 
+/**
+ * The largest size and period an orbit may be given with: beyond the sphere of influence of every
+ * body in the catalogue (Neptune's Hill sphere is about 1.2e8 km; an orbit at that distance takes
+ * about 3e9 s), and small enough that a^3 and the period stay finite numbers. From memory.
+ */
+export const MAX_ORBIT_KM = 1e9;
+export const MAX_PERIOD_S = 1e10;
+const distance = (label: string) => finite(label).max(MAX_ORBIT_KM, `${label} is at most ${MAX_ORBIT_KM.toExponential()} km`);
+const angle = (label: string) => finite(label).min(-360, `${label} is -360..360 deg`).max(360, `${label} is -360..360 deg`);
+
+/**
+ * An orbit in numbers (km, s, deg): the compute route's, and every saved orbit's once its typed
+ * values are converted (server/missions/orbit-values.ts), so both refuse the same values.
+ */
 export const orbitInput = z
   .strictObject({
-    periapsisAltitudeKm: finite('periapsis altitude').optional(),
-    apoapsisAltitudeKm: finite('apoapsis altitude').optional(),
-    semiMajorAxisKm: finite('semi-major axis').optional(),
+    periapsisAltitudeKm: distance('periapsis altitude').optional(),
+    apoapsisAltitudeKm: distance('apoapsis altitude').optional(),
+    semiMajorAxisKm: distance('semi-major axis').optional(),
     eccentricity: finite('eccentricity').optional(),
-    periodS: finite('period').optional(),
+    periodS: finite('period').max(MAX_PERIOD_S, `period is at most ${MAX_PERIOD_S.toExponential()} s`).optional(),
     inclinationDeg: finite('inclination').min(0, 'inclination is 0..180 deg').max(180, 'inclination is 0..180 deg').default(0),
-    raanDeg: finite('RAAN').min(-360).max(360).default(0),
-    argPeriapsisDeg: finite('argument of periapsis').min(-360).max(360).default(0),
+    raanDeg: angle('RAAN').default(0),
+    argPeriapsisDeg: angle('argument of periapsis').default(0),
   })
   .superRefine((o, ctx) => {
     const altitudes = o.periapsisAltitudeKm !== undefined || o.apoapsisAltitudeKm !== undefined;
@@ -50,7 +65,7 @@ export const localVector = z
   });
 
 export const surfaceInput = z.strictObject({
-  name: z.string().trim().min(1, 'give the surface a name').max(80, 'a surface name has at most 80 characters'),
+  name: lineText(80, 'a surface name has at most 80 characters').min(1, 'give the surface a name'),
   normal: z.union([z.enum(namedNormals), localVector], {
     message: `normal is one of ${namedNormals.join(', ')} or a unit vector {x, y, z}`,
   }),
@@ -265,8 +280,8 @@ export const bodyDetail = bodySummary.extend({
 });
 
 export const unitConvertRequest = z.strictObject({
-  value: z.union([z.string().max(100, 'value has at most 100 characters'), finite('value')], { message: 'value is a number or a text such as "341.8 mi"' }),
-  unit: z.string().trim().min(1, 'give the unit to convert to, e.g. "km"').max(40, 'unit has at most 40 characters'),
+  value: z.union([lineText(100, 'value has at most 100 characters'), finite('value')], { message: 'value is a number or a text such as "341.8 mi"' }),
+  unit: lineText(40, 'unit has at most 40 characters').min(1, 'give the unit to convert to, e.g. "km"'),
 });
 export const unitConvertResponse = z.object({ value: z.number(), unit: z.string() });
 

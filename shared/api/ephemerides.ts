@@ -15,15 +15,16 @@
 //   POST   missions/:id/ephemerides/:ephemerisId/cases  ephemerisCaseCreate -> 201 caseDetail (a custom
 //            case, draft, from a window of the ephemeris; thermal engineers and owners)
 import { z } from 'zod';
+import { lineText } from './text';
+import { ephemerisFrames, type EphemerisFrame } from './plain-lists';
 
 /** Inertial frames accepted, centred on the mission's body; GCRF only for the Earth. */
-export const ephemerisFrames = ['EME2000', 'J2000', 'ICRF', 'GCRF'] as const;
-export type EphemerisFrame = (typeof ephemerisFrames)[number];
+export { ephemerisFrames, type EphemerisFrame };
 
 export const ephemerisUploadFields = z.strictObject({
-  name: z.string().trim().max(120, 'the name has at most 120 characters').optional(),
+  name: lineText(120, 'the name has at most 120 characters').optional(),
   /** Required for CSV; an OEM file names its own REF_FRAME, which must agree when both are given. */
-  frame: z.string().trim().max(40).optional(),
+  frame: lineText(40).optional(),
   /** The origin of a CSV's `t` column (seconds), ISO 8601 UTC. */
   epoch: z.iso
     .datetime({ offset: true, message: 'epoch is an ISO 8601 date and time in UTC, e.g. 2027-03-20T12:00:00Z' })
@@ -101,7 +102,7 @@ export const trajectoryEnvironmentRequest = z
  */
 export const ephemerisCaseCreate = z
   .strictObject({
-    name: z.string().trim().min(1, 'give the case a name').max(120, 'a case name has at most 120 characters'),
+    name: lineText(120, 'a case name has at most 120 characters').min(1, 'give the case a name'),
     properties: z.enum(['bol', 'eol']).default('bol'),
     marginDirection: z.enum(['increase', 'decrease']).default('increase'),
     albedo: z.number().min(0, 'albedo is 0..1').max(1, 'albedo is 0..1').optional(),

@@ -4,7 +4,8 @@
 //   POST   missions                               missionCreate -> 201 mission
 //   GET    missions/:id                           -> missionDetail (mission + orbits + surfaces)
 //   PATCH  missions/:id                           missionUpdate -> mission   ({archived: true} archives)
-//   DELETE missions/:id                           -> 204 (removes its orbits and surfaces too)
+//   DELETE missions/:id                           -> 204 (owner only; removes everything in it; 409 naming
+//                                                   its released or superseded cases, which are never deleted)
 //   GET    missions/:id/orbits                    -> {items: orbit[]}
 //   POST   missions/:id/orbits                    orbitCreate -> 201 orbit
 //   GET|PATCH|DELETE missions/:id/orbits/:orbitId  (PATCH orbitUpdate)
@@ -20,16 +21,17 @@
 //   POST   workspaces/:workspaceId/materials      materialCreate -> 201 material
 //   PATCH|DELETE workspaces/:workspaceId/materials/:materialId   (only a workspace's own materials)
 import { z } from 'zod';
+import { lineText, multilineText } from './text';
+import { answerLayout } from './answer-formats';
 import { bodyIds } from '../physics/bodies';
 import { namedNormals } from '../physics/heat-loads';
 import { localVector } from './environment';
 
 const isoDate = z.iso.date({ message: 'is a date like 2027-03-20' });
-const text = (label: string, max: number) =>
-  z.string().trim().min(1, `give the ${label}`).max(max, `the ${label} has at most ${max} characters`);
+const text = (label: string, max: number) => lineText(max, `the ${label} has at most ${max} characters`).min(1, `give the ${label}`);
 
 /** A number in the field's own unit, or text with a unit ("550 km", "341.8 mi", "95 min"). */
-export const quantity = z.union([z.number(), z.string().trim().min(1).max(60)], {
+export const quantity = z.union([z.number(), lineText(60).min(1)], {
   message: 'is a number or a value with its unit, e.g. "550 km"',
 });
 
@@ -51,7 +53,7 @@ export const mission = z.object({
 const missionFields = {
   name: text('mission name', 120),
   bodyId: z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` }),
-  description: z.string().trim().max(4000).default(''),
+  description: multilineText(4000).default(''),
   startDate: isoDate,
   endDate: isoDate,
   crewed: z.boolean().default(false),
@@ -69,7 +71,7 @@ export const missionUpdate = z
   .strictObject({
     name: missionFields.name.optional(),
     bodyId: missionFields.bodyId.optional(),
-    description: z.string().trim().max(4000).optional(),
+    description: multilineText(4000).optional(),
     startDate: isoDate.optional(),
     endDate: isoDate.optional(),
     crewed: z.boolean().optional(),
@@ -139,7 +141,7 @@ export const materialCreate = z.strictObject({
   emissivityBol: fraction('emissivityBol'),
   absorptivityEol: fraction('absorptivityEol'),
   emissivityEol: fraction('emissivityEol'),
-  source: z.string().trim().max(300).default('workspace entry, no source given'),
+  source: lineText(300).default('workspace entry, no source given'),
 });
 export const materialUpdate = materialCreate.partial();
 
@@ -186,6 +188,8 @@ export const sweepQuery = z.strictObject({
   stepDays: z.coerce.number().int().min(1, 'stepDays is 1..365').max(365, 'stepDays is 1..365').default(1),
   properties: z.enum(propertySets).default('bol'),
   format: z.enum(['ndjson', 'csv']).default('ndjson'),
+  /** Columnar JSON of the whole sweep at once instead of the stream (API.md "Answer formats"). */
+  layout: answerLayout,
 });
 
 export const sweepDay = z.object({

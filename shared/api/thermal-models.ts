@@ -12,11 +12,12 @@
 // A model is the body of POST /thermal/solve (shared/api/thermal.ts) without the orbit: the period,
 // the steps and each node's absorbed load come from the case it is run against.
 import { z } from 'zod';
+import { lineText, multilineText } from './text';
 import { caseKinds, caseStatuses } from './case-content';
 import { conductiveCoupling, coolantLoop, dissipationSchedule, heater, radiativeCoupling, thermalNode, thermalSolveResponse, thermalSizeResponse } from './thermal';
 
 const num = (label: string) => z.number({ message: `${label} must be a number` });
-const modelName = z.string().trim().min(1, 'give the model a name').max(120, 'a model name has at most 120 characters');
+const modelName = lineText(120, 'a model name has at most 120 characters').min(1, 'give the model a name');
 /** A constant (W) or an on/off schedule; per-step arrays belong to a case, not to a saved model. */
 const savedDissipation = (label: string) =>
   z.union([num(label).min(0, `${label} cannot be negative`).max(1e7), dissipationSchedule], { message: `${label} is a number of W or an on/off schedule` });
@@ -55,25 +56,29 @@ export const thermalModelContent = z.strictObject({
 
 export const thermalModelCreate = z.strictObject({
   name: modelName,
-  description: z.string().trim().max(2000).default(''),
+  description: multilineText(2000).default(''),
   model: thermalModelContent,
 });
 
 export const thermalModelUpdate = z.strictObject({
   name: modelName.optional(),
-  description: z.string().trim().max(2000).optional(),
+  description: multilineText(2000).optional(),
   /** The whole model: tables are replaced together, so a reference never points at a removed node. */
   model: thermalModelContent.optional(),
 });
 
-export const thermalRunRequest = z.strictObject({ caseId: z.string().min(1, 'choose a load case').max(64) });
+export const thermalRunRequest = z.strictObject({
+  caseId: z.string().min(1, 'choose a load case').max(64),
+  /** Orbits allowed for this run (else the model's maxOrbits, else 200); a run that does not settle answers its last orbit. */
+  maxOrbits: z.number({ message: 'maxOrbits must be a number' }).int('maxOrbits is a whole number').min(1, 'maxOrbits is 1..2000').max(2000, 'maxOrbits is 1..2000').optional(),
+});
 
 export const thermalModelSizeRequest = z.strictObject({
   caseHotId: z.string().min(1, 'choose the hot case').max(64),
   caseColdId: z.string().min(1, 'choose the cold case').max(64),
   /** The node whose radiator is sized in the hot case (and whose heater, unless heaterNode). */
-  node: z.string().trim().min(1, 'choose a node').max(80),
-  heaterNode: z.string().trim().min(1).max(80).optional(),
+  node: lineText(80).min(1, 'choose a node'),
+  heaterNode: lineText(80).min(1).optional(),
   /** Defaults: the model's operating margin, and its maxDutyCycle. */
   marginK: num('marginK').min(0, 'a margin cannot be negative').max(100).optional(),
   maxDutyCycle: num('maxDutyCycle').gt(0, 'maxDutyCycle is above 0, at most 1').max(1, 'maxDutyCycle is above 0, at most 1').optional(),
@@ -137,6 +142,10 @@ export const thermalRunResponse = z.object({
   /** Exactly what went to the solver: POST it to /thermal/solve to repeat the run. */
   solveRequest: z.record(z.string(), z.unknown()),
   result: thermalSolveResponse,
+  /** Per controlled loop: the time its node takes to return within the band after each eclipse entry and exit (null: it does not before the next). Runs kept from before loops were judged have none. */
+  recoveries: z.array(z.object({
+    loop: z.string(), node: z.string(), event: z.enum(['eclipse entry', 'eclipse exit']), atS: z.number(), returnS: z.number().nullable(),
+  })).optional(),
   assumptions: z.array(z.string()),
 });
 

@@ -83,6 +83,9 @@ export class SparseCholesky {
     }
   }
 
+  /** The column (permuted numbering) whose pivot was not positive in the last failed factorisation; -1 if none failed. */
+  failedColumn = -1;
+
   /** A second factor of the same pattern, for another matrix on the same network. */
   samePattern(): SparseCholesky {
     const columns = Array.from({ length: this.n }, (_, k) => Array.from(this.rowIndex.subarray(this.colStart[k], this.colStart[k + 1])));
@@ -115,7 +118,10 @@ export class SparseCholesky {
         for (let q = p; q < jEnd; q++) work[rowIndex[q]] -= values[q] * lkj;
       }
       const d = work[k];
-      if (!(d > 0)) return false;
+      if (!(d > 0)) {
+        this.failedColumn = k;
+        return false;
+      }
       const lkk = Math.sqrt(d);
       diagonal[k] = lkk;
       work[k] = 0;

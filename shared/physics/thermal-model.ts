@@ -81,25 +81,46 @@ export interface HeaterInput {
   busVoltage?: BusVoltage;
 }
 
+/** One element of a closed loop's path: the coolant passes its node's cold plate (or panel) with this UA. */
+export interface CoolantPathElement {
+  node: string;
+  conductanceWK: number;
+}
+
 /**
- * A pumped loop: each of its nodes gives the coolant effectiveness * flow * c_p * (T_node - T_inlet)
- * (each node's cold plate sees the loop's flow at the inlet temperature). The flow is set by a
- * proportional-integral controller holding the control node at the set point.
+ * A pumped loop (API.md "Coolant loops"). Closed: a `path` and no `inletC`; the coolant passes the
+ * path's nodes in order and returns to the first, its temperature computed (thermal-loops.ts).
+ * Open: `nodes` + `inletC`; each node gives the coolant effectiveness * flow * c_p * (T_node - T_inlet).
+ * With minFlowKgS < maxFlowKgS the flow is set by a proportional-integral controller (with
+ * anti-windup) holding `controlNode` at the set point; with them equal the flow is constant.
  */
 export interface CoolantLoopInput {
   name: string;
-  nodes: readonly string[];
-  inletC: number;
-  specificHeatJKgK: number;
+  /** Open form. */
+  nodes?: readonly string[];
+  inletC?: number;
   effectiveness?: number;
-  setPointC: number;
-  /** The node whose temperature the flow controller holds; the loop's first node when not given. */
+  /** Closed form. */
+  path?: readonly CoolantPathElement[];
+  fluidMassKg?: number;
+  densityKgM3?: number;
+  specificHeatJKgK: number;
+  setPointC?: number;
+  /** The node whose temperature the flow controller holds; required when the flow can vary. */
   controlNode?: string;
   minFlowKgS: number;
   maxFlowKgS: number;
   nominalFlowKgS: number;
   proportionalKgSK?: number;
   integralKgSKs?: number;
+  /** The control requirement: the controlled node within +/- bandK of the set point. */
+  bandK?: number;
+  /**
+   * Feedforward from the case's known loads: flow += feedforwardKgSW * (Q(t + lead) - mean Q), Q the
+   * absorbed and dissipated load on the loop's nodes (W).
+   */
+  feedforwardKgSW?: number;
+  feedforwardLeadS?: number;
 }
 
 export interface ThermalMargins {
@@ -138,6 +159,11 @@ export interface ThermalSolveOptions {
    * over those jumps, to get there in fewer orbits; on by default. Off: plain orbit-after-orbit repetition.
    */
   accelerate?: boolean;
+  /**
+   * A run that does not reach its periodic state in maxOrbits: 'refuse' (the default) throws
+   * ThermalConvergenceError; 'last-orbit' answers the last orbit, marked converged: false.
+   */
+  whenUnsettled?: 'refuse' | 'last-orbit';
 }
 
 export type ThermalSolveInput = ThermalModelInput & ThermalSolveOptions;
@@ -184,17 +210,56 @@ export interface HeaterResult {
   atMaxVoltage?: HeaterVoltageResult;
 }
 
+/** How well a loop's controller holds its node (API.md "Coolant loops": control). */
+export interface ControlFigures {
+  node: string;
+  setPointC: number;
+  bandK: number;
+  /** Largest |T - set point| over the periodic orbit, K. */
+  maxDeviationK: number;
+  /** Time per orbit outside +/- bandK, s. */
+  outsideBandS: number;
+  /** maxDeviationK within bandK. */
+  pass: boolean;
+}
+
 export interface LoopResult {
   name: string;
+  closed: boolean;
   flowKgS: number[];
   averageFlowKgS: number;
   nominalFlowKgS: number;
   averageToNominal: number;
+  /** Closed: the heat the coolant moves (the sum of what it takes up); open: what it removes. */
   heatRemovedW: number;
+  /** The coolant leaving each path element over the orbit (closed loops). */
+  coolantC: { node: string; temperaturesC: number[] }[];
+  /** Orbit-average heat the coolant takes from each element (negative where it gives heat up). */
+  heatW: { node: string; averageW: number }[];
+  /** Share of the orbit the flow sits at its minimum or maximum (0 without a controller). */
+  saturatedFraction: number;
+  densityKgM3: number | null;
+  control: ControlFigures | null;
+}
+
+/** Why a run's answer is its last orbit rather than the periodic state, in user words and figures. */
+export interface UnsettledRun {
+  /** The node furthest from settling (its name in the model). */
+  node: string;
+  /** Its change over the last orbit, K (end minus start). */
+  lastChangeK: number;
+  /** Its estimated distance still to go to the periodic state, K (the larger of that and the change). */
+  remainingK: number;
+  /** Its temperature at the end of the last orbit, C. */
+  endC: number;
+  toleranceK: number;
+  message: string;
 }
 
 export interface ThermalSolveResult {
-  converged: true;
+  /** False when the run did not settle in the allowed orbits and the answer is its last orbit (`unsettled` says why). */
+  converged: boolean;
+  unsettled: UnsettledRun | null;
   orbits: number;
   /**
    * 1 when the answer repeats every orbit; p when a thermostat's cycle repeats only every p orbits;
@@ -230,9 +295,19 @@ export class ThermalConvergenceError extends Error {
     message: string,
     readonly orbits: number,
     readonly residualK: number,
+    /** The model field the failure is about (e.g. `nodes.2`), when one node is to blame. */
+    readonly path?: string,
   ) {
     super(message);
   }
+}
+
+/** A temperature in words for messages: "12.3 C", or what a non-number means. */
+export function temperatureWords(k: number): string {
+  if (Number.isNaN(k)) return 'no temperature at all (the solution broke down)';
+  if (!Number.isFinite(k) || k > 1e6) return 'beyond a million degrees (without bound)';
+  const c = k - KELVIN_OFFSET;
+  return `${Math.abs(c) >= 1000 ? Math.round(c) : c.toFixed(1)} °C`;
 }
 
 /** The model cannot be what was asked: an unknown node, a radiator no area can make cool enough. */

@@ -6,13 +6,15 @@
 // periodic state: about F tau / P for a slow node, next to nothing for a fast one. So a change of
 // 0.01 K over an orbit is 10 K still to go for a node with tau = 1000 P.
 // We evaluate 1/(e^x - 1) = 1/x - 1/2 + x/12 - ... with the rational form 1/x - (1/2)/(1 + x/6),
-// right to second order at small x and tending to 0 at large x, as two sparse solves:
+// right to second order at small x (the slow modes, where it matters), as two sparse solves:
 //   distance = K^-1 (C F) / P  -  (1/2) (C + P K / 6)^-1 (C F).
 // The first term is the orbit's net energy balance (C F / P, the mean heat each node gained) spread
-// over the network's conductances: the temperature shift that would lose that heat. Mode by mode
-// the estimate is within 9 % of the exact distance (x = 3: 0.90 of it, x = 10: 0.91), so taking
-// the step shrinks a linear network's distance about tenfold per orbit where repetition alone
-// shrinks a slow mode only by e^-x.
+// over the network's conductances: the temperature shift that would lose that heat. From x = 3 on
+// the form is no estimate of the distance (zero at x = 3, then slightly negative, tending to 0),
+// but there the orbit itself has closed all but e^-x of the gap: taking the step leaves
+// e^-x - f(x) (1 - e^-x) of the error, under 0.09 of it for every x (largest near x = 10), so it
+// shrinks a linear network's distance about tenfold per orbit where repetition alone shrinks a
+// slow mode only by e^-x (thermal-orbit-correction.spec.ts checks both).
 // Controllers: a thermostat cycling within the orbit works like a conductance of its power over its
 // band (the duty moves across the band as the load moves); a PI heater like its proportional gain;
 // a loop like its present flow's conductance. Both solves are on the network's own sparse pattern.

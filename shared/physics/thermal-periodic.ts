@@ -13,12 +13,13 @@
 // (within 0.05 K) and every heater's duty cycle (within 0.02), the averages over the last window are
 // the answer (periodOrbits 0, averagedOrbits the window). The cycle beats against the orbit, so
 // those window averages wander by about one on-time over the window; the limits say how much.
-import { DEFAULT_MAX_ORBITS, DEFAULT_TOLERANCE_K, KELVIN_OFFSET, ThermalConvergenceError, type ThermalModelInput, type ThermalSolveOptions } from './thermal-model';
+import { DEFAULT_MAX_ORBITS, DEFAULT_TOLERANCE_K, KELVIN_OFFSET, temperatureWords, ThermalConvergenceError, type ThermalModelInput, type ThermalSolveOptions } from './thermal-model';
 import { AndersonAcceleration } from './anderson-acceleration';
 import { ThermalControllers } from './thermal-controllers';
+import { LoopIntegrals } from './thermal-loop-integrals';
 import { OrbitCorrection } from './thermal-orbit-correction';
 import { newSummary, OrbitStepper, type OrbitSummary, type SwitchOn } from './thermal-orbit-stepper';
-import { buildNetwork, ImplicitStep, type ThermalNetwork } from './thermal-network';
+import { buildNetwork, ImplicitStep, StepDivergence, type ThermalNetwork } from './thermal-network';
 
 export const MAX_PERIOD_ORBITS = 24;
 const UNLOCKED_MEAN_CHANGE_K = 0.05;
@@ -29,7 +30,18 @@ const MAX_ACCELERATED_ORBITS = 12;
 const HOLD_WK = 1e6;
 const PSEUDO_STEPS_ORBITS = [1, 10, 100, 1e3, 1e4, 1e5, 1e6];
 
+/** The node furthest from its periodic state when the allowed orbits ran out. */
+export interface UnsettledNode {
+  free: number;
+  lastChangeK: number;
+  remainingK: number;
+  endK: number;
+}
+
 export interface PeriodicRun {
+  /** False when maxOrbits ran out: then every figure is the last orbit's, and `unsettled` names the node. */
+  settled: boolean;
+  unsettled: UnsettledNode | null;
   orbits: number;
   periodOrbits: number;
   averagedOrbits: number;
@@ -47,6 +59,8 @@ export interface PeriodicRun {
   loopSamplesKgS: Float64Array[];
   loopAverageKgS: number[];
   loopHeatW: number[];
+  /** Per closed-loop path element (net.loops order): the heat the coolant took from it, orbit average, W. */
+  elementHeatW: number[];
   iterations: number;
   factorizations: number;
 }
@@ -140,12 +154,24 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
   const total = steps * substeps;
   const controllers = new ThermalControllers(model, net, heaterScale);
   const step = new ImplicitStep(net);
+  const nameOf = (free: number) => model.nodes[net.nodeOfFree[free]]?.name ?? `node ${free + 1}`;
+  const stepFailure = (e: StepDivergence, when: string, orbit: number) => new ThermalConvergenceError(
+    e.singular
+      ? `The network could not be solved at node "${nameOf(e.free)}" ${when} (at ${temperatureWords(e.fromK)}): its capacitance, a conductance or a loop's flow there is not positive. Check the values given for "${nameOf(e.free)}".`
+      : `The temperature of node "${nameOf(e.free)}" did not settle ${when}: it started near ${temperatureWords(e.fromK)} and the step's iteration got to ${temperatureWords(e.toK)}. Check that "${nameOf(e.free)}" has a path to lose its heat and that its loads and heater power are right; more substeps shorten the step.`,
+    orbit, NaN, `nodes.${net.nodeOfFree[e.free]}`);
   const H = controllers.heaters.length;
   const L = controllers.loops.length;
 
   let startK: Float64Array = new Float64Array(net.initialK);
   if ((options.start ?? 'orbit-average') === 'orbit-average') {
-    const warm = warmStart(net, controllers, step, model.periodS);
+    let warm: ReturnType<typeof warmStart>;
+    try {
+      warm = warmStart(net, controllers, step, model.periodS);
+    } catch (error) {
+      if (!(error instanceof StepDivergence)) throw error;
+      throw stepFailure(error, 'while finding the steady state of the orbit-averaged loads to start from', 0);
+    }
     if (warm) {
       startK = warm.T;
       controllers.prime(warm.heaterW, controllers.loops.map((l) => l.nominalFlow));
@@ -153,10 +179,12 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
   }
   const stepper = new OrbitStepper(net, controllers, step, startK);
   const summaries: OrbitSummary[] = [];
-  // The larger of the last change and the estimated distance still to go: what a failure reports.
-  let remainingK = Infinity;
   // Orbit-map acceleration; switched off for good once it stops helping (a thermostat limit cycle).
-  const anderson = options.accelerate === false ? null : new AndersonAcceleration(n);
+  // The loops' PI integrals ride along with the temperatures in the extrapolated orbit map.
+  const integrals = new LoopIntegrals(controllers);
+  const mapStart = new Float64Array(n + integrals.size);
+  const mapEnd = new Float64Array(n + integrals.size);
+  const anderson = options.accelerate === false ? null : new AndersonAcceleration(n + integrals.size);
   let accelerating = anderson !== null;
   const correction = new OrbitCorrection(net);
   const driftK = new Float64Array(n);
@@ -175,9 +203,15 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
   for (let orbit = 1; orbit <= maxOrbits; orbit++) {
     const summary = summaries.length >= 2 * MAX_PERIOD_ORBITS ? summaries.shift()! : newSummary(n, H, L);
     orbitStartK.set(stepper.T);
+    integrals.read(mapStart, n);
     startOn.set(controllers.on);
     const switchesBefore = controllers.switches;
-    stepper.orbit(summary);
+    try {
+      stepper.orbit(summary);
+    } catch (error) {
+      if (!(error instanceof StepDivergence)) throw error;
+      throw stepFailure(error, `in orbit ${orbit}, the step from ${timeWords(stepper.elapsedS)} to ${timeWords(stepper.elapsedS + net.dtS)} after the start`, orbit);
+    }
     summaries.push(summary);
     const T = stepper.T;
     let residualK = 0;
@@ -185,7 +219,9 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
       const t = T[i];
       // A run with no way to lose its heat climbs without end; say so rather than answer nonsense.
       if (!(t > 0 && t < 1e5)) {
-        throw new ThermalConvergenceError(`Temperatures ran away in orbit ${orbit} (a node reached ${Number.isFinite(t) ? Math.round(t - KELVIN_OFFSET) + ' C' : String(t)}): check that every node has a path to lose its heat.`, orbit, Infinity);
+        throw new ThermalConvergenceError(
+          `Node "${nameOf(i)}" ran away: it went from ${temperatureWords(orbitStartK[i])} to ${temperatureWords(t)} over orbit ${orbit} (${timeWords(stepper.elapsedS - model.periodS)} to ${timeWords(stepper.elapsedS)} after the start). Check that "${nameOf(i)}" has a path to lose its heat (a coupling or a radiator) and that its loads are right.`,
+          orbit, Infinity, `nodes.${net.nodeOfFree[i]}`);
       }
       driftK[i] = t - orbitStartK[i];
       orbitMeanK[i] = summary.sumK[i] / total;
@@ -200,7 +236,8 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
       distanceK = correction.distance(orbitMeanK, driftK, model.periodS, controllers, summary.heaterOnS, distance);
       if (!(distanceK >= toleranceK)) periodOrbits = 1;
     }
-    remainingK = distanceK > residualK ? distanceK : residualK;
+    // The larger of the last change and the estimated distance still to go.
+    const remainingK = distanceK > residualK ? distanceK : residualK;
     // A repeat p orbits apart proves a period only if no extrapolated jump came in between.
     if (!periodOrbits && controllers.hasThermostats && controllers.switches > switchesBefore && orbit - lastJumpOrbit > MAX_PERIOD_ORBITS) {
       for (let p = 2; p <= Math.min(MAX_PERIOD_ORBITS, summaries.length - 1); p++) {
@@ -234,6 +271,21 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
         residualK = d;
       }
     }
+    // Out of orbits: the last orbit is the answer, marked as such, with the node furthest from settling.
+    let unsettled: UnsettledNode | null = null;
+    if (!averagedOrbits && orbit === maxOrbits) {
+      averagedOrbits = 1;
+      let worst = 0;
+      let worstK = -1;
+      for (let i = 0; i < n; i++) {
+        const far = Math.max(Math.abs(driftK[i]), Number.isNaN(distanceK) ? 0 : Math.abs(distance[i]));
+        if (far > worstK) {
+          worst = i;
+          worstK = far;
+        }
+      }
+      unsettled = { free: worst, lastChangeK: driftK[worst], remainingK: Math.max(worstK, remainingK), endK: T[worst] };
+    }
     if (!averagedOrbits && anderson && accelerating) {
       if (remainingK < 0.7 * bestResidualK) {
         bestResidualK = remainingK;
@@ -246,8 +298,17 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
         // orbit-averaged estimate misses (radiation, thermostat switching).
         if (Number.isNaN(distanceK)) correction.distance(orbitMeanK, driftK, model.periodS, controllers, summary.heaterOnS, distance);
         for (let i = 0; i < n; i++) corrected[i] = T[i] + distance[i];
-        stepper.jumpTo(anderson.next(orbitStartK, corrected));
-        lastJumpOrbit = orbit;
+        mapStart.set(orbitStartK);
+        mapEnd.set(corrected);
+        integrals.read(mapEnd, n);
+        const next = anderson.next(mapStart, mapEnd);
+        const nextK = next.subarray(0, n);
+        // A node with nowhere to lose its heat has no periodic state to jump to: step on and let the climb show.
+        if (nextK.every((t) => t > 1 && t < 1e5)) {
+          stepper.jumpTo(nextK);
+          integrals.write(next, n);
+          lastJumpOrbit = orbit;
+        } else accelerating = false;
       }
     }
     if (averagedOrbits) {
@@ -266,6 +327,7 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
       const sum = (pick: (o: OrbitSummary) => Float64Array, k: number) => last.reduce((acc, o) => acc + pick(o)[k], 0);
       const sinceS = stepper.elapsedS - span;
       return {
+        settled: unsettled === null, unsettled,
         orbits: orbit, periodOrbits, averagedOrbits, residualK, minK, maxK, meanK,
         samplesK: OrbitStepper.bySeries(stepper.samplesK, n, steps),
         heaterSamplesW: OrbitStepper.bySeries(stepper.heaterSamplesW, H, steps),
@@ -283,14 +345,27 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
         loopSamplesKgS: OrbitStepper.bySeries(stepper.loopSamplesKgS, L, steps),
         loopAverageKgS: controllers.loops.map((_, k) => sum((o) => o.loopFlowSum, k) / (total * averagedOrbits)),
         loopHeatW: controllers.loops.map((_, k) => sum((o) => o.loopHeatJ, k) / span),
+        elementHeatW: Array.from(stepper.elementJ, (j) => j / model.periodS),
         iterations: step.iterations,
         factorizations: step.factorizations,
       };
     }
   }
-  throw new ThermalConvergenceError(
-    `The model did not reach a periodic state in ${maxOrbits} orbits: the last orbit left a node ${remainingK.toFixed(3)} K from it (its change over the orbit, or the estimated distance still to go where larger; the tolerance is ${toleranceK} K). Allow more orbits, or look for a node with no path to lose heat.`,
-    maxOrbits,
-    remainingK,
-  );
+  throw new ThermalConvergenceError(`The model was given no orbits to run (maxOrbits ${maxOrbits}); allow at least one.`, 0, NaN, 'maxOrbits');
+}
+
+/** A time since the run's start in words: seconds, and orbits-and-minutes where long. */
+function timeWords(s: number): string {
+  return s < 600 ? `${s.toFixed(1)} s` : `${Math.round(s)} s (${(s / 60).toFixed(1)} min)`;
+}
+
+/** Why a run that ran out of orbits is not settled, in words, naming the node and its figures. */
+export function unsettledMessage(model: ThermalModelInput, net: ThermalNetwork, run: PeriodicRun, toleranceK = DEFAULT_TOLERANCE_K, answered = true): string {
+  const u = run.unsettled;
+  if (!u) return '';
+  const name = model.nodes[net.nodeOfFree[u.free]]?.name ?? `node ${u.free + 1}`;
+  const change = u.lastChangeK;
+  const trend = Math.abs(change) < toleranceK ? `changed by only ${Math.abs(change).toFixed(4)} K over the last orbit but is still an estimated ${u.remainingK.toFixed(3)} K from its periodic state (it is slow to settle)`
+    : `still ${change > 0 ? 'warmed' : 'cooled'} by ${Math.abs(change).toFixed(3)} K over the last orbit`;
+  return `Not settled after ${run.orbits} orbit${run.orbits === 1 ? '' : 's'}: node "${name}" ${trend}, ending it at ${temperatureWords(u.endK)}; a periodic state needs every node within ${toleranceK} K.${answered ? " The figures shown are the last orbit's." : ''} Allow more orbits, or check that "${name}" has a path to lose its heat.`;
 }

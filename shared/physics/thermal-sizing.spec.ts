@@ -54,6 +54,6 @@ describe('heater sizing', () => {
 
   it('refuses a thermostat that switches on below the minimum plus margin', () => {
     expect(() => heaterPowerFor(cold(2), 'battery', 5)).toThrow(ThermalModelError);
-    expect(() => heaterPowerFor(cold(2), 'battery', 5)).toThrow(/switches on at 2 C, below the 5 C/);
+    expect(() => heaterPowerFor(cold(2), 'battery', 5)).toThrow(/switches on at 2 °C, below the 5 °C/);
   });
 });

@@ -26,6 +26,8 @@ export interface RadiatorSizing {
   targetMaxC: number;
   achievedMaxC: number;
   solves: number;
+  /** Why the answer is what it is when it is no radiator at all; null otherwise. */
+  note: string | null;
 }
 
 export interface HeaterSizing {
@@ -40,6 +42,8 @@ export interface HeaterSizing {
   targetMinC: number;
   achievedMinC: number;
   solves: number;
+  /** Why the answer is what it is when it is no heater at all; null otherwise. */
+  note: string | null;
 }
 
 function nodeAt(input: ThermalSolveInput, name: string, path: string): number {
@@ -72,7 +76,9 @@ export function radiatorAreaFor(input: ThermalSolveInput, node: string, marginK 
     const model = withArea(areaM2);
     try {
       const net = buildNetwork(model, input.substeps ?? 1);
-      return runPeriodic(model, net, (input.heaters ?? []).map(() => 1), input).maxK[net.freeOfNode[i]] - KELVIN_OFFSET;
+      const run = runPeriodic(model, net, (input.heaters ?? []).map(() => 1), input);
+      // A run still warming when its orbits ran out says nothing about its peak: as good as too hot.
+      return run.settled ? run.maxK[net.freeOfNode[i]] - KELVIN_OFFSET : Infinity;
     } catch (e) {
       // Too small a radiator can leave the heat nowhere to go: as good as too hot.
       if (e instanceof ThermalConvergenceError) return Infinity;
@@ -88,21 +94,31 @@ export function radiatorAreaFor(input: ThermalSolveInput, node: string, marginK 
   const equationAreaM2 = typeof base.dissipationW === 'object' && !Array.isArray(base.dissipationW) ? null
     : denominator > 0 ? q / denominator : null;
 
+  const target = `${node} at or below ${targetMaxC} °C${marginK ? ` (its maximum ${base.maxC} °C less the ${marginK} K margin)` : ''}`;
+  const none = maxAt(0);
+  if (none <= targetMaxC) {
+    return {
+      node, areaM2: 0, equationAreaM2, targetMaxC, achievedMaxC: none, solves,
+      note: `No radiator is needed: even with none, ${node} peaks at ${none.toFixed(1)} °C, within ${targetMaxC} °C${marginK ? ` (its maximum less the ${marginK} K margin)` : ''}; its heat leaves through its couplings.`,
+    };
+  }
   let hi = Math.max(equationAreaM2 ?? 0.1, 1e-4) * 1.5;
-  while (maxAt(hi) > targetMaxC) {
-    hi *= 2;
-    if (hi > MAX_AREA_M2) {
-      throw new ThermalModelError(`No radiator area up to ${MAX_AREA_M2} m^2 keeps ${node} at or below ${targetMaxC} C: the absorbed load per m^2 is too high for the emissivity, or heat comes in from elsewhere`, 'sizing.node');
+  let settledPeak: { peak: number; areaM2: number } | null = null;
+  for (let peak = maxAt(hi); peak > targetMaxC; peak = maxAt(hi)) {
+    if (Number.isFinite(peak)) settledPeak = { peak, areaM2: hi };
+    if (hi * 2 > MAX_AREA_M2) {
+      const reached = settledPeak ? `it still peaks at ${settledPeak.peak.toFixed(1)} °C with ${settledPeak.areaM2.toPrecision(3)} m²` : 'no area tried gave a run that settles';
+      throw new ThermalModelError(`No radiator area up to ${MAX_AREA_M2} m² holds ${target}: ${reached}. The absorbed load per m² is too high for the emissivity, or heat comes in from elsewhere.`, 'sizing.node');
     }
+    hi *= 2;
   }
   let lo = 0;
-  if (maxAt(lo) <= targetMaxC) return { node, areaM2: 0, equationAreaM2, targetMaxC, achievedMaxC: maxAt(0), solves };
   for (let k = 0; k < MAX_BISECTIONS && hi - lo > RELATIVE_TOLERANCE * hi; k++) {
     const mid = (lo + hi) / 2;
     if (maxAt(mid) > targetMaxC) lo = mid;
     else hi = mid;
   }
-  return { node, areaM2: hi, equationAreaM2, targetMaxC, achievedMaxC: maxAt(hi), solves };
+  return { node, areaM2: hi, equationAreaM2, targetMaxC, achievedMaxC: maxAt(hi), solves, note: null };
 }
 
 /** Installed heater power (nominal voltage) holding the node at or above minC + margin at minimum voltage. */
@@ -117,7 +133,7 @@ export function heaterPowerFor(input: ThermalSolveInput, node: string, marginK =
   const targetMinC = target.minC + marginK;
   const setPoint = (heater.control ?? 'thermostat') === 'thermostat' ? heater.onC : heater.setPointC;
   if (setPoint !== undefined && setPoint < targetMinC) {
-    throw new ThermalModelError(`The heater on ${node} switches on at ${setPoint} C, below the ${targetMinC} C it must hold; raise its set point`, `heaters.${h}`);
+    throw new ThermalModelError(`The heater on ${node} switches on at ${setPoint} °C, below the ${targetMinC} °C it must hold; raise its set point`, `heaters.${h}`);
   }
   const scale = heater.busVoltage ? (heater.busVoltage.minV / heater.busVoltage.nominalV) ** 2 : 1;
   const net = buildNetwork(input, input.substeps ?? 1);
@@ -127,21 +143,46 @@ export function heaterPowerFor(input: ThermalSolveInput, node: string, marginK =
     solves++;
     const model = { ...input, heaters: heaters.map((x, k) => (k === h ? { ...x, powerW } : x)) };
     // Every heater at the bottom of its bus range: the cold case's worst.
-    const run = runPeriodic(model, net, heaters.map((x) => (x.busVoltage ? (x.busVoltage.minV / x.busVoltage.nominalV) ** 2 : 1)), input);
-    const minC = run.minK[free] - KELVIN_OFFSET;
-    return { ok: minC >= targetMinC - 1e-9 && run.heaterDuty[h] <= maxDutyCycle, minC, duty: run.heaterDuty[h], averageW: run.heaterAverageW[h] };
+    try {
+      const run = runPeriodic(model, net, heaters.map((x) => (x.busVoltage ? (x.busVoltage.minV / x.busVoltage.nominalV) ** 2 : 1)), input);
+      const minC = run.minK[free] - KELVIN_OFFSET;
+      return { ok: run.settled && minC >= targetMinC - 1e-9 && run.heaterDuty[h] <= maxDutyCycle, settled: run.settled, minC, duty: run.heaterDuty[h], averageW: run.heaterAverageW[h], failure: null };
+    } catch (e) {
+      // A trial power that makes the run break down is one that does not fit; say why if none does.
+      if (!(e instanceof ThermalConvergenceError)) throw e;
+      return { ok: false, settled: false, minC: NaN, duty: NaN, averageW: NaN, failure: e.message };
+    }
   };
-  const answer = (powerW: number, r: ReturnType<typeof at>): HeaterSizing => ({
+  const answer = (powerW: number, r: ReturnType<typeof at>, note: string | null = null): HeaterSizing => ({
     node, powerW, minVoltageV: heater.busVoltage?.minV ?? null, powerAtMinVoltageW: powerW * scale,
-    dutyCycleAtMinVoltage: r.duty, orbitAverageAtMinVoltageW: r.averageW, maxDutyCycle, targetMinC, achievedMinC: r.minC, solves,
+    dutyCycleAtMinVoltage: r.duty, orbitAverageAtMinVoltageW: r.averageW, maxDutyCycle, targetMinC, achievedMinC: r.minC, solves, note,
   });
+  const holding = `${node} at or above ${targetMinC} °C${marginK ? ` (its minimum ${target.minC} °C plus the ${marginK} K margin)` : ''}`;
   const none = at(0);
-  if (none.ok) return answer(0, none);
+  if (none.ok) {
+    return answer(0, none, `No heater is needed: even with it off, ${node} stays at or above ${none.minC.toFixed(1)} °C in this case, within ${targetMinC} °C${marginK ? ' (its minimum plus the margin)' : ''}.`);
+  }
   let hi = Math.max(heater.powerW, 1);
   let hiResult = at(hi);
+  let previous = none;
+  let previousW = 0;
   while (!hiResult.ok) {
+    if (hiResult.failure !== null && previous.failure === null && hi > 4 * Math.max(heater.powerW, 1)) {
+      throw new ThermalModelError(`No heater power holds ${holding}: a ${hi.toPrecision(3)} W heater is too strong for the model to settle (${hiResult.failure}), and weaker ones leave ${node} at ${previous.minC.toFixed(2)} °C at coldest with the heater on ${(previous.duty * 100).toFixed(1)} % of the orbit.`, 'sizing.node');
+    }
+    // More power no longer warms the node's coldest moment: the heater's set point, not its power, limits it.
+    const stalled = hiResult.settled && previous.settled && hiResult.duty <= maxDutyCycle && previous.duty <= maxDutyCycle && hiResult.minC - previous.minC < 0.01;
+    if (stalled) {
+      const controlWords = (heater.control ?? 'thermostat') === 'thermostat' ? `its thermostat switches on at ${heater.onC} °C` : `its controller holds ${heater.setPointC} °C`;
+      throw new ThermalModelError(`No heater power holds ${holding}: at ${previousW.toPrecision(3)} W and at ${hi.toPrecision(3)} W alike its coldest moment stays at ${hiResult.minC.toFixed(3)} °C, because ${controlWords} and the node cools a little before the heater answers. Set the heater to switch on above ${targetMinC} °C (for example ${(targetMinC + 1).toFixed(1)} °C), or size with a smaller margin.`, `heaters.${h}`);
+    }
+    if (hi * 2 > MAX_HEATER_W) {
+      const reached = hiResult.failure ?? `${node} is at ${hiResult.minC.toFixed(1)} °C at coldest with the heater on ${(hiResult.duty * 100).toFixed(1)} % of the orbit`;
+      throw new ThermalModelError(`No heater up to ${MAX_HEATER_W} W holds ${holding} within a duty cycle of ${maxDutyCycle}: at ${hi.toPrecision(3)} W ${reached}.`, 'sizing.node');
+    }
+    previous = hiResult;
+    previousW = hi;
     hi *= 2;
-    if (hi > MAX_HEATER_W) throw new ThermalModelError(`No heater up to ${MAX_HEATER_W} W holds ${node} at or above ${targetMinC} C within a duty cycle of ${maxDutyCycle}`, 'sizing.node');
     hiResult = at(hi);
   }
   let lo = 0;

@@ -4,9 +4,10 @@
 // Pass/fail takes the coldest prediction of all the runs against the minimum limits and the hottest
 // against the maximum limits.
 import { checkLimits } from './thermal-limits';
-import { KELVIN_OFFSET, type HeaterResult, type HeaterVoltageResult, type NodeResult, type ThermalSolveInput, type ThermalSolveResult } from './thermal-model';
+import { loopResults } from './thermal-loop-results';
+import { DEFAULT_MAX_ORBITS, DEFAULT_TOLERANCE_K, KELVIN_OFFSET, ThermalConvergenceError, type HeaterResult, type HeaterVoltageResult, type NodeResult, type ThermalSolveInput, type ThermalSolveResult, type UnsettledRun } from './thermal-model';
 import { buildNetwork, type ThermalNetwork } from './thermal-network';
-import { runPeriodic, type PeriodicRun } from './thermal-periodic';
+import { runPeriodic, unsettledMessage, type PeriodicRun } from './thermal-periodic';
 
 const toC = (k: number) => k - KELVIN_OFFSET;
 const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
@@ -25,6 +26,10 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
   const scaleAt = (pick: 'minV' | 'maxV') => heaters.map((h) => (h.busVoltage ? (h.busVoltage[pick] / h.busVoltage.nominalV) ** 2 : 1));
   const cold = withBus ? runPeriodic(input, net, scaleAt('minV'), input) : null;
   const hot = withBus ? runPeriodic(input, net, scaleAt('maxV'), input) : null;
+  const unsettled = unsettledOf(input, net, [[base, ''], [cold, ' (heaters at minimum bus voltage)'], [hot, ' (heaters at maximum bus voltage)']]);
+  if (unsettled && (input.whenUnsettled ?? 'refuse') === 'refuse') {
+    throw new ThermalConvergenceError(unsettled.message, input.maxOrbits ?? DEFAULT_MAX_ORBITS, unsettled.remainingK, `nodes.${input.nodes.findIndex((node) => node.name === unsettled.node)}`);
+  }
 
   const nodes = input.nodes.map((node, i): NodeResult => {
     const free = net.freeOfNode[i];
@@ -67,17 +72,11 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
     };
   });
 
-  const loops = (input.loops ?? []).map((loop, k) => ({
-    name: loop.name,
-    flowKgS: roundedSeries(base.loopSamplesKgS[k], 0, 1e6),
-    averageFlowKgS: round(base.loopAverageKgS[k], 6),
-    nominalFlowKgS: loop.nominalFlowKgS,
-    averageToNominal: round(base.loopAverageKgS[k] / loop.nominalFlowKgS),
-    heatRemovedW: round(base.loopHeatW[k]),
-  }));
+  const loops = loopResults(input, net, base);
 
   return {
-    converged: true,
+    converged: unsettled === null,
+    unsettled,
     orbits: Math.max(base.orbits, cold?.orbits ?? 0, hot?.orbits ?? 0),
     periodOrbits: base.periodOrbits,
     averagedOrbits: base.averagedOrbits,
@@ -86,9 +85,28 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
     nodes,
     heaters: heaterResults,
     loops,
-    pass: nodes.every((node) => node.limits.every((l) => l.pass)),
+    // A last orbit still drifting proves nothing: only a settled run can pass.
+    pass: unsettled === null && nodes.every((node) => node.limits.every((l) => l.pass)),
     assumptions: assumptions(input, net, withBus),
   };
+}
+
+/** The first of the runs that ran out of orbits, in the answer's words; null when all settled. */
+function unsettledOf(input: ThermalSolveInput, net: ThermalNetwork, runs: [PeriodicRun | null, string][]): UnsettledRun | null {
+  for (const [run, which] of runs) {
+    const u = run?.unsettled;
+    if (!run || !u) continue;
+    const toleranceK = input.toleranceK ?? DEFAULT_TOLERANCE_K;
+    return {
+      node: input.nodes[net.nodeOfFree[u.free]]?.name ?? '',
+      lastChangeK: round(u.lastChangeK, 6),
+      remainingK: round(u.remainingK, 6),
+      endC: round(toC(u.endK)),
+      toleranceK,
+      message: unsettledMessage(input, net, run, toleranceK, input.whenUnsettled === 'last-orbit').replace(/^Not settled/, `Not settled${which}`),
+    };
+  }
+  return null;
 }
 
 function assumptions(input: ThermalSolveInput, net: ThermalNetwork, withBus: boolean): string[] {
@@ -101,7 +119,8 @@ function assumptions(input: ThermalSolveInput, net: ThermalNetwork, withBus: boo
     list.push('Thermostat cycles that do not repeat with the orbit are judged by their averages over 24 orbits.');
   }
   if (withBus) list.push('Heater power scales with the square of the bus voltage; pass/fail uses the coldest and hottest of the nominal, minimum and maximum voltage runs.');
-  if ((input.loops ?? []).length) list.push("Each loop node's cold plate sees the loop's flow at the inlet temperature: effectiveness x flow x c_p x (T_node - T_inlet).");
+  if ((input.loops ?? []).some((l) => l.inletC !== undefined)) list.push("Each node of an open loop sees the loop's flow at its fixed inlet temperature: effectiveness x flow x c_p x (T_node - T_inlet).");
+  if (net.loops) list.push('A closed loop carries its coolant as one lump per path element (its share of the fluid mass); each element takes effectiveness x flow x c_p x (T_node - T_coolant in) with effectiveness 1 - exp(-UA/(flow c_p)); flow held over each step, set from the controlled node at its start.');
   const m = input.margins;
   list.push(m && (m.operatingK || m.survivalK)
     ? `Limits checked with margins of ${m.operatingK ?? 0} K (operating) and ${m.survivalK ?? 0} K (survival).`

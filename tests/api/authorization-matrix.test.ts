@@ -46,9 +46,9 @@ const rules: Record<string, string> = {
   'DELETE /api/v1/workspaces/:workspaceId/invitations/:id': '401 ok 403 403 403 403 404',
   'GET /api/v1/invitations/:token': 'ok ok ok ok ok ok ok',
   'POST /api/v1/invitations/:token/accept': 'ok ok ok ok ok 403 ok',
-  // the instance administrator (owner@kestrel.test) only
-  'GET /api/v1/admin/mail': '401 ok 403 403 403 ok 403',
-  'GET /api/v1/admin/mail/:id': '401 ok 403 403 403 ok 403',
+  // the instance administrator (owner@kestrel.test) only, signed in: no API token reads other users' mail
+  'GET /api/v1/admin/mail': '401 ok 403 403 403 403 403',
+  'GET /api/v1/admin/mail/:id': '401 ok 403 403 403 403 403',
   // stateless physics: any signed-in user
   'GET /api/v1/bodies': '401 ok ok ok ok ok ok',
   'GET /api/v1/bodies/:bodyId': '401 ok ok ok ok ok ok',
@@ -64,7 +64,8 @@ const rules: Record<string, string> = {
   'POST /api/v1/missions': '401 ok ok ok 403 403 404',
   'GET /api/v1/missions/:id': '401 ok ok ok ok ok 404',
   'PATCH /api/v1/missions/:id': '401 ok ok ok 403 403 404',
-  'DELETE /api/v1/missions/:id': '401 ok ok ok 403 403 404',
+  // deleting a whole mission: the owner only (and never one with released cases: 409, still "ok")
+  'DELETE /api/v1/missions/:id': '401 ok 403 403 403 403 404',
   'GET /api/v1/missions/:id/orbits': '401 ok ok ok ok ok 404',
   'POST /api/v1/missions/:id/orbits': '401 ok ok ok 403 403 404',
   'GET /api/v1/missions/:id/orbits/:orbitId': '401 ok ok ok ok ok 404',
@@ -141,9 +142,11 @@ function expected(key: string, caller: Caller): string | undefined {
 // with it) at the very end, so that a caller's own deletions never hide what it calls next.
 function callOrder(routes: RouteInfo[]): RouteInfo[] {
   const depth = (r: RouteInfo) => (r.path === '/api/v1/missions/:id' ? 0 : r.path.split('/').length);
-  const keep = routes.filter((r) => r.method !== 'DELETE');
+  // Signing out ends the caller's session on the server, so it comes after everything else.
+  const signOut = (r: RouteInfo) => r.path === '/api/v1/auth/sign-out';
+  const keep = routes.filter((r) => r.method !== 'DELETE' && !signOut(r));
   const deletions = routes.filter((r) => r.method === 'DELETE').sort((a, b) => depth(b) - depth(a));
-  return [...keep, ...deletions];
+  return [...keep, ...deletions, ...routes.filter(signOut)];
 }
 
 // Where the hostile tests' sample is refused on purpose, the matrix sends what a real caller would.

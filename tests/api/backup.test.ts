@@ -1,5 +1,5 @@
 // Online backup while the server is writing, and a restore that brings exactly that state back.
-import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import Database from 'better-sqlite3';
@@ -35,6 +35,8 @@ describe('backup and restore', () => {
 
     const backup = await backupDatabase(t.ctx.config.dbPath, path.join(dir, 'backups'), new Date('2027-01-02T03:04:05.678Z'));
     expect(path.basename(backup)).toBe('eclipta-2027-01-02T03-04-05-678Z.db');
+    // a copy of every account: private to the server's user, like the database (issue 12, item 10)
+    expect(statSync(backup).mode & 0o777).toBe(0o600);
 
     await owner.post('/api/v1/tokens').send({ name: 'after the backup' }).expect(201);
 

@@ -7,13 +7,17 @@
 // parsed), "NaN"/"Infinity" where a number was, or a body that is not an object at all) plus up to
 // three more hostile mutations of any kind (wrong types, huge and tiny numbers, deep nesting,
 // removed fields). Bodies are written as JSON text by hand so that "__proto__" keys and numbers
-// such as 1e400 reach the server exactly as an attacker would send them.
+// such as 1e400 reach the server exactly as an attacker would send them. hostileRequests() sends
+// some of them with a hostile Content-Encoding as well (real, declared only, cut short, unsupported).
 import fc from 'fast-check';
 import type { AddressInfo } from 'node:net';
+import { brotliCompressSync, constants as zlibConstants, deflateSync, gzipSync } from 'node:zlib';
 import { Agent, request as httpRequest, type Server } from 'node:http';
 import type { Express } from 'express';
 import { errorBody } from '../../shared/api/errors';
 import type { Sqlite } from '../../server/db/database';
+import { buildScene, type Scene } from './route-samples';
+import { createTestApp, type TestApp } from './test-app';
 
 type Json = { raw: string } | { items: Json[] } | { pairs: [string, Json][] };
 
@@ -49,7 +53,12 @@ function places(root: { body: Json }): Place[] {
   return out;
 }
 
-const deep = (open: string, inner: string, close: string) => fc.integer({ min: 10, max: 2000 }).map((d) => open.repeat(d) + inner + close.repeat(d));
+/**
+ * Nesting under the server's depth limit (64, reaches the schemas) and far over it (up to 50,000
+ * levels, where recursive code would overflow the stack: refused before parsing).
+ */
+const depth = fc.oneof(fc.integer({ min: 10, max: 60 }), fc.integer({ min: 65, max: 2000 }), fc.integer({ min: 5000, max: 50_000 }));
+const deep = (open: string, inner: string, close: string) => depth.map((d) => open.repeat(d) + inner + close.repeat(d));
 
 /** Strings over every length limit of the API (the longest text field allows 4000 characters). */
 const overlongString = fc.oneof({ weight: 9, arbitrary: fc.integer({ min: 4001, max: 20_000 }) }, { weight: 1, arbitrary: fc.integer({ min: 20_000, max: 1_000_000 }) }).map((n) => JSON.stringify('x'.repeat(n)));
@@ -148,9 +157,54 @@ export function hostileBodies(sample: unknown): fc.Arbitrary<string> {
   });
 }
 
+/** A hostile body as sent: maybe compressed, maybe only said to be, with its headers. */
+export interface HostileRequest {
+  body: string | Buffer;
+  headers: Record<string, string>;
+}
+
+// Brotli at its fastest: its default (11) takes seconds on the megabyte-long strings.
+const brotliFast = (body: string) => brotliCompressSync(body, { params: { [zlibConstants.BROTLI_PARAM_QUALITY]: 1 } });
+const compressors = { gzip: (body: string) => gzipSync(body, { level: 1 }), deflate: (body: string) => deflateSync(body, { level: 1 }), br: brotliFast } as const;
+type Compressed = keyof typeof compressors;
+const compressed = fc.constantFrom<Compressed>('gzip', 'deflate', 'br');
+
+/**
+ * What the Content-Encoding says and what the bytes are: mostly plain JSON; else the body truly
+ * compressed (still invalid inside), a compression declared but not applied, a compressed body cut
+ * short, or an encoding the server does not take (several at once, compress, zstd, made up).
+ */
+const encoding = fc.oneof(
+  { weight: 12, arbitrary: fc.constant({ kind: 'plain' as const }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('compressed' as const), name: compressed }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('declared' as const), name: compressed }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('truncated' as const), name: compressed, keep: fc.double({ min: 0, max: 0.95, noNaN: true }) }) },
+  { weight: 1, arbitrary: fc.record({ kind: fc.constant('unsupported' as const), header: fc.constantFrom('gzip, br', 'compress', 'zstd', 'x-gzip2', 'identity, gzip', '*') }) },
+);
+
+/** Hostile bodies of hostileBodies(), some of them with a hostile Content-Encoding as well. */
+export function hostileRequests(sample: unknown): fc.Arbitrary<HostileRequest> {
+  return fc.tuple(hostileBodies(sample), encoding).map(([body, enc]): HostileRequest => {
+    switch (enc.kind) {
+      case 'plain':
+        return { body, headers: {} };
+      case 'compressed':
+        return { body: compressors[enc.name](body), headers: { 'content-encoding': enc.name } };
+      case 'declared':
+        return { body, headers: { 'content-encoding': enc.name } };
+      case 'truncated': {
+        const whole = compressors[enc.name](body);
+        return { body: whole.subarray(0, Math.floor(whole.length * enc.keep)), headers: { 'content-encoding': enc.name } };
+      }
+      case 'unsupported':
+        return { body, headers: { 'content-encoding': enc.header } };
+    }
+  });
+}
+
 /** A light in-process client: the app on a random port, node:http with one kept-alive socket. */
 export interface Client {
-  send(method: string, path: string, body: string, headers: Record<string, string>): Promise<{ status: number; text: string }>;
+  send(method: string, path: string, body: string | Buffer, headers: Record<string, string>): Promise<{ status: number; text: string }>;
   close(): Promise<void>;
 }
 
@@ -184,6 +238,29 @@ export async function startClient(app: Express): Promise<Client> {
   };
 }
 
+/** The app with its scene of Kestrel objects and a client on a random port: what every probing run starts from. */
+export interface ProbeScene {
+  t: TestApp;
+  scene: Scene;
+  client: Client;
+  close(): Promise<void>;
+}
+
+export async function startProbeScene(env: Record<string, string> = {}): Promise<ProbeScene> {
+  const t = await createTestApp(env);
+  const scene = await buildScene(t);
+  const client = await startClient(t.app);
+  return {
+    t,
+    scene,
+    client,
+    close: async () => {
+      await client.close();
+      await t.close();
+    },
+  };
+}
+
 const prototypeNames = (): string => Object.getOwnPropertyNames(Object.prototype).sort().join(',');
 
 export interface ProbeTarget {
@@ -194,14 +271,15 @@ export interface ProbeTarget {
   validatesBody: boolean;
 }
 
-/** Sends one hostile body and answers what is wrong with the answer, or null when all is well. */
-export async function probe(client: Client, sqlite: Sqlite, target: ProbeTarget, body: string): Promise<string | null> {
+/** Sends one hostile request and answers what is wrong with the answer, or null when all is well. */
+export async function probe(client: Client, sqlite: Sqlite, target: ProbeTarget, hostile: HostileRequest): Promise<string | null> {
   const changes = () => (sqlite.prepare('SELECT total_changes() AS n').get() as { n: number }).n;
   const before = changes();
   const proto = prototypeNames();
-  const res = await client.send(target.method, target.path, body, target.headers);
+  const res = await client.send(target.method, target.path, hostile.body, { ...target.headers, ...hostile.headers });
   const wrote = changes() !== before;
-  const where = `${target.method} ${target.path} answered ${res.status}`;
+  const encoded = hostile.headers['content-encoding'];
+  const where = `${target.method} ${target.path}${encoded ? ` (Content-Encoding: ${encoded})` : ''} answered ${res.status}`;
   if (prototypeNames() !== proto || (Object.prototype as Record<string, unknown>)['polluted'] !== undefined) return `${where} and Object.prototype changed`;
   if (res.status >= 500) return `${where}: ${res.text.slice(0, 300)}`;
   if (res.status < 400) {

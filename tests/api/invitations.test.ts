@@ -102,7 +102,10 @@ describe('admin mail view', () => {
     const first = list.body.items[0];
     const one = await owner.get(`/api/v1/admin/mail/${first.id}`);
     expect(one.body.subject).toBe(first.subject);
-    expect(one.body.text).toContain('/invite/');
+    // the link is the invitee's secret: hidden here (ECLIPTA_OUTBOX_LINKS=shown shows it)
+    expect(one.body.text).toContain('[invitation link hidden: only its recipient may use it]');
+    expect(one.body.text).not.toContain('/invite/');
+    expect(one.body.hiddenLinks).toBe(1);
     const analyst = await t.signIn('analyst@kestrel.test');
     expect((await analyst.get('/api/v1/admin/mail')).status).toBe(403);
     expect((await owner.get('/api/v1/admin/mail/nope')).status).toBe(404);

@@ -59,3 +59,18 @@ export function addTwoWorkspaceUser(t: TestApp, email: string): void {
   add.run(crypto.randomUUID(), id, 'Kestrel', 'analyst', now);
   add.run(crypto.randomUUID(), id, 'Plover', 'viewer', now);
 }
+
+export interface KestrelAgents {
+  owner: request.Agent;
+  analyst: request.Agent;
+  thermal: request.Agent;
+  viewer: request.Agent;
+}
+
+/** A signed-in agent for each demo role of the Kestrel workspace. */
+export async function kestrelAgents(t: TestApp): Promise<KestrelAgents> {
+  const [owner, analyst, thermal, viewer] = await Promise.all(
+    ['owner@kestrel.test', 'analyst@kestrel.test', 'thermal@kestrel.test', 'viewer@kestrel.test'].map((e) => t.signIn(e)),
+  );
+  return { owner: owner!, analyst: analyst!, thermal: thermal!, viewer: viewer! };
+}

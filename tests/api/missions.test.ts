@@ -10,10 +10,13 @@ let t: TestApp;
 let analyst: request.Agent;
 let viewer: request.Agent;
 let plover: request.Agent;
+let owner: request.Agent;
 
 beforeAll(async () => {
   t = await createTestApp();
-  [analyst, viewer, plover] = await Promise.all([t.signIn('analyst@kestrel.test'), t.signIn('viewer@kestrel.test'), t.signIn('owner@plover.test')]);
+  [analyst, viewer, plover, owner] = await Promise.all(
+    ['analyst@kestrel.test', 'viewer@kestrel.test', 'owner@plover.test', 'owner@kestrel.test'].map((e) => t.signIn(e)),
+  );
 });
 afterAll(() => t.close());
 
@@ -169,16 +172,17 @@ describe('PATCH /api/v1/missions/:id', () => {
 });
 
 describe('DELETE /api/v1/missions/:id', () => {
-  it('removes the mission with its orbits and surfaces, audited', async () => {
+  it('removes the mission with its orbits and surfaces, audited; only the owner may (mission-delete.test.ts has released cases)', async () => {
     const id = missionIdOf(t, kestrelLunar);
     expect(countRows(t, 'orbits', 'mission_id = ?', id)).toBeGreaterThan(0);
     await viewer.delete(`/api/v1/missions/${id}`).expect(403);
-    await analyst.delete(`/api/v1/missions/${id}`).expect(204);
+    await analyst.delete(`/api/v1/missions/${id}`).expect(403);
+    await owner.delete(`/api/v1/missions/${id}`).expect(204);
     expect(countRows(t, 'orbits', 'mission_id = ?', id)).toBe(0);
     expect(countRows(t, 'surfaces', 'mission_id = ?', id)).toBe(0);
     await analyst.get(`/api/v1/missions/${id}`).expect(404);
     const event = auditFor(t, id).at(-1);
     expect(event?.action).toBe('mission.deleted');
-    expect(event?.summary).toMatch(/Kestrel Lunar pathfinder.*1 orbit\(s\) and 5 surface\(s\)/);
+    expect(event?.summary).toMatch(/Kestrel Lunar pathfinder.* 1 orbit, 5 surfaces,/);
   });
 });

@@ -70,7 +70,8 @@ describe('POST /api/v1/missions/:id/orbits', () => {
     [{ periapsisAltitudeKm: '5 kg', apoapsisAltitudeKm: 500 }, 400, 'orbit.periapsisAltitudeKm: "5 kg" is a mass, not a length'],
     [{ periodS: '95 km', eccentricity: 0 }, 400, 'orbit.periodS: "95 km" is a length, not a time'],
     [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, inclinationDeg: '12 parsnips' }, 400, 'orbit.inclinationDeg: "12 parsnips" is not a quantity'],
-    [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, inclinationDeg: 200 }, 400, 'orbit.inclinationDeg: inclination must be 0..180 deg, got 200'],
+    // the compute route's own words: saved orbits and compute share one schema
+    [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, inclinationDeg: 200 }, 400, 'orbit.inclinationDeg: inclination is 0..180 deg (got 200)'],
     [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, periodS: 5700 }, 400, 'define the orbit one way only'],
     [{ periapsisAltitudeKm: -312, apoapsisAltitudeKm: 500 }, 422, '312 km below the surface of Earth'],
     [{ semiMajorAxisKm: 7000, eccentricity: 1.2 }, 422, 'eccentricity 1.2 is not a closed orbit'],
@@ -88,6 +89,30 @@ describe('POST /api/v1/missions/:id/orbits', () => {
     expect(res.body.error.message).toContain('"20 March"');
     const unknown = await post({ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, altitude: 3 }).expect(400);
     expect(unknown.body.error.message).toContain('"altitude"');
+  });
+
+  it('refuses what the compute route refuses, with the same schema and limits (issue 12): huge altitudes, angles and periods, typed or not', async () => {
+    const surfaces = [{ name: 'n', normal: 'nadir', areaM2: 1, absorptivity: 0.2, emissivity: 0.8 }];
+    const cases: [object, string][] = [
+      [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 1e308 }, 'apoapsisAltitudeKm'],
+      [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 600, raanDeg: 1e308 }, 'raanDeg'],
+      [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 600, argPeriapsisDeg: -1e308 }, 'argPeriapsisDeg'],
+      [{ semiMajorAxisKm: 1e308, eccentricity: 0 }, 'semiMajorAxisKm'],
+      [{ periodS: 1e308, eccentricity: 0 }, 'periodS'],
+    ];
+    for (const [fields, field] of cases) {
+      const before = countRows(t, 'orbits', 'mission_id = ?', missionId);
+      const saved = await post(fields);
+      expect(saved.status, JSON.stringify(saved.body)).toBe(400);
+      expect(saved.body.error.details[0].path).toBe(`orbit.${field}`);
+      expect(countRows(t, 'orbits', 'mission_id = ?', missionId)).toBe(before);
+      const computed = await analyst.post('/api/v1/environment/compute').send({ bodyId: 'earth', betaDeg: 0, orbit: fields, surfaces });
+      expect(computed.status, JSON.stringify(computed.body)).toBe(400);
+      expect(computed.body.error.details[0]).toEqual(saved.body.error.details[0]);
+    }
+    // typed with a unit, the converted value meets the same limit
+    const typed = await post({ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 600, raanDeg: '1e308 deg' }).expect(400);
+    expect(typed.body.error.details[0]).toMatchObject({ path: 'orbit.raanDeg', message: expect.stringContaining('RAAN is -360..360 deg') });
   });
 
   it('is 403 for a viewer and 404 for another workspace', async () => {

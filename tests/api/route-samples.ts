@@ -233,7 +233,10 @@ const multipartRoutes = new Set(allApiRoutes().filter((r) => r.bodyKind === 'mul
 
 /** Every route of the app that takes a JSON body: POST, PATCH and PUT, except multipart uploads. */
 export function jsonRoutes(app: Parameters<typeof listRoutes>[0]): { method: string; path: string }[] {
-  return listRoutes(app).filter((r) => ['POST', 'PATCH', 'PUT'].includes(r.method) && !multipartRoutes.has(routeKey(r)));
+  const routes = listRoutes(app).filter((r) => ['POST', 'PATCH', 'PUT'].includes(r.method) && !multipartRoutes.has(routeKey(r)));
+  // Signing out ends the caller's session on the server: last, or every later route would only hear 401.
+  const signOut = (r: { path: string }) => r.path === '/api/v1/auth/sign-out';
+  return [...routes.filter((r) => !signOut(r)), ...routes.filter(signOut)];
 }
 
 const bodyRoutes = new Set(allApiRoutes().filter((r) => r.body).map((r) => `${r.method.toUpperCase()} ${r.path}`));

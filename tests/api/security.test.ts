@@ -52,13 +52,18 @@ describe('sessions', () => {
 
   it('refuses a session token past its expiry, one signed with another secret, and an unsigned one', async () => {
     const sub = userIdOf(t, 'owner@kestrel.test');
+    // a real sign-in's token, and forgeries naming the same open session
+    const signedIn = await request(t.app).post('/api/v1/auth/sign-in').send({ email: 'owner@kestrel.test', password: 'eclipta-demo' });
+    const valid = (signedIn.headers['set-cookie'] as unknown as string[]).find((c) => c.startsWith('eclipta_session='))?.split(';')[0]?.slice('eclipta_session='.length) ?? '';
+    const { sid } = jwt.decode(valid) as { sid: string };
     const nowS = Math.floor(Date.now() / 1000);
-    const expired = jwt.sign({ iat: nowS - 7200, exp: nowS - 60 }, t.ctx.jwtSecret, { algorithm: 'HS256', subject: sub });
-    const otherSecret = jwt.sign({}, 'x'.repeat(48), { algorithm: 'HS256', subject: sub, expiresIn: 3600 });
-    const unsigned = `${Buffer.from('{"alg":"none","typ":"JWT"}').toString('base64url')}.${Buffer.from(JSON.stringify({ sub, iat: nowS, exp: nowS + 3600 })).toString('base64url')}.`;
-    const valid = jwt.sign({}, t.ctx.jwtSecret, { algorithm: 'HS256', subject: sub, expiresIn: 3600 });
+    const expired = jwt.sign({ sid, iat: nowS - 7200, exp: nowS - 60 }, t.ctx.jwtSecret, { algorithm: 'HS256', subject: sub });
+    const otherSecret = jwt.sign({ sid }, 'x'.repeat(48), { algorithm: 'HS256', subject: sub, expiresIn: 3600 });
+    const unsigned = `${Buffer.from('{"alg":"none","typ":"JWT"}').toString('base64url')}.${Buffer.from(JSON.stringify({ sub, sid, iat: nowS, exp: nowS + 3600 })).toString('base64url')}.`;
+    // well signed, but for no session row (as a token from before sessions were kept)
+    const noSession = jwt.sign({}, t.ctx.jwtSecret, { algorithm: 'HS256', subject: sub, expiresIn: 3600 });
     expect((await request(t.app).get('/api/v1/auth/me').set('cookie', `eclipta_session=${valid}`)).status).toBe(200);
-    for (const token of [expired, otherSecret, unsigned]) {
+    for (const token of [expired, otherSecret, unsigned, noSession]) {
       const res = await request(t.app).get('/api/v1/auth/me').set('cookie', `eclipta_session=${token}`);
       expect(res.status).toBe(401);
       // the stale cookie is cleared rather than sent again on every request
@@ -98,7 +103,7 @@ describe('the log file of a running server', () => {
   it('holds no password, session, API token, reset or invitation secret, nor the signing secret', async () => {
     const logFile = path.join(dir, 'eclipta.log');
     const jwtSecret = 'log-test-signing-secret-' + 'k'.repeat(24);
-    const server = await startChildServer(path.join(dir, 'data'), { ECLIPTA_LOG_FILE: logFile, ECLIPTA_JWT_SECRET: jwtSecret, ECLIPTA_LOG_LEVEL: 'debug' });
+    const server = await startChildServer(path.join(dir, 'data'), { ECLIPTA_LOG_FILE: logFile, ECLIPTA_JWT_SECRET: jwtSecret, ECLIPTA_LOG_LEVEL: 'debug', ECLIPTA_OUTBOX_LINKS: 'shown' });
     const secrets: string[] = [jwtSecret, 'eclipta-demo'];
     try {
       const post = (url: string, body: unknown, headers: Record<string, string> = {}) =>

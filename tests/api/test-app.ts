@@ -6,12 +6,13 @@ import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
 import request from 'supertest';
-import type { MailMessage } from '../../shared/api/workspaces';
 import type { AppContext } from '../../server/app-context';
 import { createApp } from '../../server/app';
+import { createBackgroundWork } from '../../server/background-work';
 import { loadConfig } from '../../server/config';
 import { migrateDatabase, openDatabase } from '../../server/db/database';
 import { createLogger } from '../../server/logger';
+import type { ReceivedMail } from '../../server/mail/fake-smtp';
 import { startMailer } from '../../server/mail/mailer';
 import { seedDatabase } from '../../server/seed/seed';
 
@@ -26,7 +27,7 @@ export interface TestApp {
   /** An agent holding the session cookie of a demo (or any) user. */
   signIn(email: string, password?: string): Promise<request.Agent>;
   /** Waits for a mail to this address whose subject contains the text, and answers it parsed. */
-  waitForMail(to: string, subjectPart: string): Promise<MailMessage>;
+  waitForMail(to: string, subjectPart: string): Promise<ReceivedMail>;
   close(): Promise<void>;
 }
 
@@ -45,7 +46,8 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
   const { db, sqlite } = openDatabase(config.dbPath);
   migrateDatabase(db, config.migrationsDir);
   const mailer = await startMailer(config, logger);
-  const ctx: AppContext = { config, jwtSecret: randomBytes(32).toString('hex'), db, sqlite, mailer, logger };
+  const background = createBackgroundWork(logger);
+  const ctx: AppContext = { config, jwtSecret: randomBytes(32).toString('hex'), db, sqlite, mailer, logger, background };
   await seedDatabase(ctx);
   const app = createApp(ctx);
 
@@ -73,6 +75,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
       throw new Error(`no mail to ${to} with "${subjectPart}" arrived within 5 s`);
     },
     async close() {
+      await ctx.background.idle();
       await mailer.close();
       sqlite.close();
       rmSync(dir, { recursive: true, force: true });

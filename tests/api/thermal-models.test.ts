@@ -45,7 +45,7 @@ beforeAll(async () => {
   );
   missionId = missionIdOf(t, kestrelOne);
   const list = await thermal.get(`/api/v1/missions/${missionId}/thermal-models`).expect(200);
-  demoModelId = (list.body.items as { id: string }[])[0]!.id;
+  demoModelId = (list.body.items as { id: string; name: string }[]).find((m) => m.name === 'Kestrel-1 bus, 4 nodes')!.id;
   const cases = (await thermal.get(`/api/v1/cases?missionId=${missionId}&status=released`).expect(200)).body.items as { id: string; kind: string }[];
   hotCaseId = cases.find((c) => c.kind === 'hot')!.id;
   coldCaseId = cases.find((c) => c.kind === 'cold')!.id;
@@ -56,7 +56,7 @@ describe('saved models', () => {
   it('lists the demo model to every member and hides it from another workspace', async () => {
     for (const agent of [viewer, analyst]) {
       const res = await agent.get(`/api/v1/missions/${missionId}/thermal-models`).expect(200);
-      expect((res.body.items as { name: string; nodeCount: number }[]).map((m) => [m.name, m.nodeCount])).toEqual([['Kestrel-1 bus, 4 nodes', 4]]);
+      expect((res.body.items as { name: string; nodeCount: number }[]).map((m) => [m.name, m.nodeCount]).sort()).toEqual([['Kestrel-1 bus, 4 nodes', 4], ['Kestrel-1 pumped loops, 2 loops', 4]]);
     }
     expect((await plover.get(`/api/v1/missions/${missionId}/thermal-models`)).status).toBe(404);
     const hidden = await plover.get(`/api/v1/thermal-models/${demoModelId}`);
@@ -103,7 +103,7 @@ describe('validation', () => {
       ...base(),
       couplings: [{ from: 'box', to: 'pannel', conductanceWK: 1 }],
       heaters: [{ node: 'batery', powerW: 5, onC: 0, offC: 3 }],
-      loops: [{ name: 'loop', nodes: ['pump plate'], inletC: 10, specificHeatJKgK: 3500, setPointC: 20, minFlowKgS: 0, maxFlowKgS: 0.1, nominalFlowKgS: 0.05 }],
+      loops: [{ name: 'loop', nodes: ['pump plate'], inletC: 10, specificHeatJKgK: 3500, setPointC: 20, controlNode: 'pump plate', minFlowKgS: 0, maxFlowKgS: 0.1, nominalFlowKgS: 0.05 }],
     });
     expect(res.status).toBe(400);
     const details = res.body.error.details as { path: string; message: string }[];
@@ -196,6 +196,25 @@ describe('runs against a load case', () => {
     expect(plate.maxC - plate.minC).toBeLessThan(0.1);
   });
 
+  it('a run that does not settle in the orbits allowed answers its last orbit, marked, naming the node; the orbits are a setting of the run', async () => {
+    const run = await thermal.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: coldCaseId, maxOrbits: 1 }).expect(200);
+    expect(run.body.result.converged).toBe(false);
+    expect(run.body.result.pass).toBe(false);
+    expect(run.body.result.orbits).toBe(1);
+    const names = (run.body.result.nodes as NodeResult[]).map((n) => n.name);
+    expect(names).toContain(run.body.result.unsettled.node);
+    expect(run.body.result.unsettled.message).toMatch(/^Not settled after 1 orbit: node "[^"]+"/);
+    expect(run.body.result.nodes[0].temperaturesC).toHaveLength(run.body.case.steps);
+    expect(run.body.solveRequest.maxOrbits).toBe(1);
+    const kept = await thermal.get(`/api/v1/thermal-models/${demoModelId}/runs/${coldCaseId}`).expect(200);
+    expect(kept.body.result.converged).toBe(false);
+    const settled = await thermal.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: coldCaseId, maxOrbits: 400 }).expect(200);
+    expect(settled.body.result.converged).toBe(true);
+    expect(settled.body.result.unsettled).toBeNull();
+    const bad = await thermal.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: coldCaseId, maxOrbits: 0 }).expect(400);
+    expect(bad.body.error.details[0]).toEqual({ path: 'maxOrbits', message: expect.stringContaining('1..2000') });
+  });
+
   it('lets analysts run, not viewers; refuses a case of another mission; marks a run stale after a change', async () => {
     expect((await viewer.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: hotCaseId })).status).toBe(403);
     const otherMission = await thermal.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: 'not-a-case' });
@@ -226,6 +245,20 @@ describe('sizing', () => {
     expect(heater.sizing.achievedMinC).toBeGreaterThanOrEqual(5 - 1e-6);
     expect(heater.sizing.dutyCycleAtMinVoltage).toBeLessThanOrEqual(maxDutyCycle + 1e-9);
     expect(heater.sizing.powerAtMinVoltageW).toBeCloseTo(heater.sizing.powerW * (24 / 28) ** 2, 6);
+    expect(radiator.sizing.note).toBeNull();
+    expect(JSON.stringify(res.body)).not.toMatch(/NaN|null K|undefined/);
+  });
+
+  it('a node that needs no radiator is answered 0 m^2 with the reason, not a bare zero', async () => {
+    // The demo structure (maxC 60 C, 5 K margin) stays far below 55 C in the hot case with no radiator at all.
+    const res = await analyst
+      .post(`/api/v1/thermal-models/${demoModelId}/size`)
+      .send({ caseHotId: hotCaseId, caseColdId: coldCaseId, node: 'structure', heaterNode: 'battery' })
+      .expect(200);
+    const { radiator } = res.body;
+    expect(radiator.sizing.areaM2).toBe(0);
+    expect(radiator.sizing.achievedMaxC).toBeLessThan(55);
+    expect(radiator.sizing.note).toMatch(/^No radiator is needed: even with none, structure peaks at -?\d+\.\d °C, within 55 °C \(its maximum less the 5 K margin\)/);
   });
 
   it('says why a node cannot be sized and names an unknown node', async () => {
@@ -239,5 +272,24 @@ describe('sizing', () => {
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.details).toEqual([{ path: 'node', message: expect.stringContaining('no node is named "antenna"') }]);
     expect((await viewer.post(`/api/v1/thermal-models/${demoModelId}/size`).send({ caseHotId: hotCaseId, caseColdId: coldCaseId, node: 'battery' })).status).toBe(403);
+  });
+});
+
+describe('the two-loop demo model (issue 14)', () => {
+  it('holds both set points within their bands on the released hot and cold cases; each loop closes its energy within 0.5 % (API.md "Coolant loops")', async () => {
+    const list = await thermal.get(`/api/v1/missions/${missionId}/thermal-models`).expect(200);
+    const loopsModel = (list.body.items as { id: string; name: string }[]).find((m) => m.name === 'Kestrel-1 pumped loops, 2 loops')!;
+    for (const caseId of [hotCaseId, coldCaseId]) {
+      const run = (await thermal.post(`/api/v1/thermal-models/${loopsModel.id}/run`).send({ caseId }).expect(200)).body;
+      for (const loop of run.result.loops as { closed: boolean; heatW: { averageW: number }[]; control: { pass: boolean; maxDeviationK: number } }[]) {
+        expect(loop.closed).toBe(true);
+        expect(loop.control.pass).toBe(true);
+        const sum = loop.heatW.reduce((a, h) => a + h.averageW, 0);
+        const abs = loop.heatW.reduce((a, h) => a + Math.abs(h.averageW), 0);
+        expect(Math.abs(sum)).toBeLessThanOrEqual(0.005 * abs);
+      }
+      // The case has one eclipse: an entry and an exit for each of the two controlled nodes.
+      expect((run.recoveries as { event: string }[]).map((r) => r.event).sort()).toEqual(['eclipse entry', 'eclipse entry', 'eclipse exit', 'eclipse exit']);
+    }
   });
 });

@@ -11,6 +11,8 @@ Object.assign(process.env, {
   ECLIPTA_LOG_FILE: resolve(dataDir, 'server.log'),
   ECLIPTA_PUBLIC_URL: `http://127.0.0.1:${process.env.PORT}`,
   ECLIPTA_SEED: 'demo',
+  // The password reset test follows the link it reads in the Mail outbox, as a developer would.
+  ECLIPTA_OUTBOX_LINKS: 'shown',
 });
 delete process.env.SMTP_URL;
 await import('../../dist/server/main.mjs');

@@ -98,7 +98,7 @@ test('the thermal engineer builds a small model, runs it on the hot and the cold
   await page.getByTestId('size-model').click();
   await expect(page.getByTestId('radiator-area')).toHaveText(/^\d+\.\d{3} m²$/, { timeout: 60_000 });
   await expect(page.getByTestId('heater-power')).toHaveText(/^[\d,]+\.\d{2} W$/);
-  await expect(page.getByTestId('sizing-results')).toContainText('limit 75%');
+  await expect(page.getByTestId('sizing-results')).toContainText('limit 75 %');
   await screenshot(page, 'thermal-sizing');
   await expect(page.getByLabel('Design caution')).toContainText('Habitability and touch-temperature limits are not checked.');
 });

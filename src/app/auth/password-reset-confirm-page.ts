@@ -18,7 +18,7 @@ import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, matchingPasswords } from './m
         <p class="brand">Eclipta</p>
         <h1 id="new-password-title">Choose a new password</h1>
         @if (done()) {
-          <p role="status">Your password is changed.</p>
+          <p role="status">{{ done() }}</p>
           <p><a routerLink="/sign-in" data-testid="reset-done-sign-in">Sign in with the new password</a></p>
         } @else {
           <form class="ecl-form" [formGroup]="form" (ngSubmit)="setPassword()" novalidate>
@@ -64,7 +64,8 @@ export class PasswordResetConfirmPage {
     },
     { validators: matchingPasswords },
   );
-  protected readonly done = signal(false);
+  /** The server's confirmation (which sessions ended, which API tokens were revoked), once done. */
+  protected readonly done = signal<string | null>(null);
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
 
@@ -76,8 +77,8 @@ export class PasswordResetConfirmPage {
     this.busy.set(true);
     this.failure.set(null);
     const body = { token: this.token(), password: this.form.controls.password.value };
-    this.http.post(apiPath('auth', 'password-reset', 'confirm'), body).subscribe({
-      next: () => this.done.set(true),
+    this.http.post<{ message: string }>(apiPath('auth', 'password-reset', 'confirm'), body).subscribe({
+      next: (answer) => this.done.set(answer.message),
       error: (failure: unknown) => {
         this.failure.set(apiErrorMessage(failure));
         this.busy.set(false);

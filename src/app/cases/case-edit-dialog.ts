@@ -1,3 +1,4 @@
+import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -10,7 +11,10 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { CaseApi } from './case-api';
 import { MarginFields, marginGroup } from './margin-fields';
 
-/** Renames a draft or changes its margins; the server recomputes. A released case answers 409, shown here. */
+/**
+ * Renames a draft or changes its margins; the server recomputes. A released case answers 409, shown
+ * here, and so does a draft someone else changed since it was opened (the edit names its version).
+ */
 @Component({
   selector: 'ecl-case-edit-dialog',
   imports: [
@@ -37,6 +41,9 @@ import { MarginFields, marginGroup } from './margin-fields';
     </mat-dialog-content>
     <mat-dialog-actions align="end">
       <button mat-button type="button" mat-dialog-close [disabled]="busy()">Cancel</button>
+      @if (stale()) {
+        <button mat-stroked-button type="button" (click)="loadLatest()" [disabled]="busy()" data-testid="edit-reload">Load the latest</button>
+      }
       <button mat-flat-button type="submit" form="edit-form" [disabled]="busy()" data-testid="edit-save">Save</button>
     </mat-dialog-actions>
   `,
@@ -54,6 +61,8 @@ export class CaseEditDialog {
   });
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
+  /** Someone changed the draft since this dialog opened: the server kept their change (409). */
+  protected readonly stale = signal(false);
 
   protected saveCase(): void {
     if (this.form.invalid) {
@@ -62,6 +71,8 @@ export class CaseEditDialog {
     }
     const v = this.form.getRawValue();
     const body: CaseUpdate = {
+      // The version this edit was made on: if the draft changed meanwhile the server answers 409.
+      version: this.c.version,
       ...(v.name.trim() !== this.c.name ? { name: v.name.trim() } : {}),
       margins: v.margins,
     };
@@ -69,6 +80,19 @@ export class CaseEditDialog {
     this.failure.set(null);
     this.api.update(this.c.id, body).subscribe({
       next: (saved) => this.dialogRef.close(saved),
+      error: (failure: unknown) => {
+        this.busy.set(false);
+        this.stale.set(failure instanceof HttpErrorResponse && failure.status === 409 && this.c.status === 'draft');
+        this.failure.set(apiErrorMessage(failure));
+      },
+    });
+  }
+
+  /** Closes with the stored draft, so the page shows the other change; the user edits again from there. */
+  protected loadLatest(): void {
+    this.busy.set(true);
+    this.api.get(this.c.id).subscribe({
+      next: (latest) => this.dialogRef.close(latest),
       error: (failure: unknown) => {
         this.busy.set(false);
         this.failure.set(apiErrorMessage(failure));

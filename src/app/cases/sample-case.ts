@@ -31,6 +31,7 @@ export function sampleCase(overrides: Partial<CaseDetail> = {}): CaseDetail {
     releasedAt: null,
     orbitAverageAbsorbedW: 68,
     betaDeg: 12.5,
+    version: 1,
     createdAt: '2027-05-01T10:00:00.000Z',
     updatedAt: '2027-05-01T10:00:00.000Z',
     submittedBy: null,

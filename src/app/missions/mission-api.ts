@@ -55,6 +55,11 @@ export class MissionApi {
     return this.http.patch<Mission>(apiPath('missions', missionId), body);
   }
 
+  /** Owners only; 409 when the mission holds released cases (the message names them). */
+  deleteMission(missionId: string): Observable<unknown> {
+    return this.http.delete(apiPath('missions', missionId));
+  }
+
   createOrbit(missionId: string, body: OrbitCreate): Observable<Orbit> {
     return this.http.post<Orbit>(apiPath('missions', missionId, 'orbits'), body);
   }

@@ -8,7 +8,7 @@ import { MatOption, MatSelect } from '@angular/material/select';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTab, MatTabContent, MatTabGroup } from '@angular/material/tabs';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { BehaviorSubject, combineLatest, filter, switchMap } from 'rxjs';
 import type { MissionDetail, Orbit } from '../../../shared/api/missions';
 import { apiErrorMessage } from '../api/api-error-message';
@@ -40,6 +40,7 @@ export class MissionPage {
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
   private readonly workspace = inject(CurrentWorkspace);
+  private readonly router = inject(Router);
   private readonly refresh = new BehaviorSubject<void>(undefined);
 
   /** From the route /w/:workspaceId/missions/:missionId. */
@@ -47,6 +48,10 @@ export class MissionPage {
   readonly missionId = input.required<string>();
 
   protected readonly canEdit = computed(() => this.workspace.role() !== 'viewer' && this.workspace.role() !== null);
+  /** Deleting a whole mission is the owner's (the server says so too). */
+  protected readonly canDelete = computed(() => this.workspace.role() === 'owner');
+  /** Why the server kept the mission (it holds released cases), shown until the next try. */
+  protected readonly deleteRefusal = signal<string | null>(null);
   protected readonly mayModelThermal = computed(() => {
     const role = this.workspace.role();
     return role !== null && roleMayOpen(role, 'thermal');
@@ -104,10 +109,31 @@ export class MissionPage {
   }
 
   protected setArchived(archived: boolean): void {
+    this.deleteRefusal.set(null);
     this.api.updateMission(this.missionId(), { archived }).subscribe({
       next: () => this.refresh.next(),
       error: (failure: unknown) => this.snackBar.open(apiErrorMessage(failure), 'Close'),
     });
+  }
+
+  protected deleteMission(mission: MissionDetail): void {
+    this.deleteRefusal.set(null);
+    ConfirmDialog.ask(this.dialog, {
+      title: `Delete the mission ${mission.name}?`,
+      message: 'Its orbits, surfaces, ephemerides, thermal models and unreleased load cases go with it. A mission with released load cases is kept; archive it instead.',
+      confirmLabel: 'Delete',
+    })
+      .pipe(
+        filter((yes) => yes),
+        switchMap(() => this.api.deleteMission(mission.id)),
+      )
+      .subscribe({
+        next: () => {
+          this.snackBar.open(`${mission.name} deleted.`, undefined, { duration: 3000 });
+          void this.router.navigate(['/w', this.workspaceId(), 'missions']);
+        },
+        error: (failure: unknown) => this.deleteRefusal.set(apiErrorMessage(failure)),
+      });
   }
 
   protected orbitSaved(orbit: Orbit): void {

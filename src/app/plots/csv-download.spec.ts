@@ -1,6 +1,7 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { parse } from 'csv-parse/browser/esm/sync';
-import { buildCsv, csvField, csvHeader, downloadCsv } from './csv-download';
+import { csvField } from '../../../shared/csv/csv-cell';
+import { buildCsv, csvHeader, downloadCsv } from './csv-download';
 
 describe('CSV quoting (RFC 4180 section 2)', () => {
   it('rule 1: records end with CRLF', () => {
@@ -32,6 +33,11 @@ describe('CSV quoting (RFC 4180 section 2)', () => {
   it('rule 7: a double quote inside is doubled (the RFC example "b""bb")', () => {
     expect(csvField('b"bb')).toBe('"b""bb"');
     expect(csvField('say "hot"')).toBe('"say ""hot"""');
+  });
+
+  it('keeps a node or surface named like a formula as text and negative numbers as numbers (OWASP CSV Injection)', () => {
+    const csv = buildCsv([{ header: '=HYPERLINK("http://evil.test")', unit: '°C', values: [-12.5, 3] }]);
+    expect(csv).toBe(`"'=HYPERLINK(""http://evil.test"") (°C)"\r\n-12.5\r\n3\r\n`);
   });
 
   it('writes missing values as empty fields and pads short columns', () => {

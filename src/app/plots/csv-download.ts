@@ -1,23 +1,15 @@
 // CSV files for plot data and tables, written to RFC 4180 (section 2) so spreadsheets and
 // propagator-side scripts read them the same way: CRLF line ends, a header row, fields quoted
-// when they hold a comma, a double quote or a line break, and quotes inside doubled.
-
-export type CsvCell = string | number | null | undefined;
+// when they hold a comma, a double quote or a line break, and quotes inside doubled. Cells go
+// through the one writer every Eclipta CSV uses (shared/csv/csv-cell.ts), which also keeps text
+// that starts like a formula (= + - @) from being evaluated by a spreadsheet.
+import { csvRecord, type CsvCell } from '../../../shared/csv/csv-cell';
 
 export interface CsvColumn {
   readonly header: string;
   /** Written into the header as "Time (min)" so the unit travels with the numbers. */
   readonly unit?: string;
   readonly values: readonly CsvCell[];
-}
-
-const CRLF = '\r\n';
-
-/** One field; empty for null, undefined and non-finite numbers (a missing value, not "NaN"). */
-export function csvField(cell: CsvCell): string {
-  if (cell === null || cell === undefined) return '';
-  if (typeof cell === 'number') return Number.isFinite(cell) ? String(cell) : '';
-  return /[",\r\n]/.test(cell) ? `"${cell.replaceAll('"', '""')}"` : cell;
 }
 
 export function csvHeader(column: CsvColumn): string {
@@ -27,11 +19,9 @@ export function csvHeader(column: CsvColumn): string {
 /** The whole file; columns of unequal length are padded with empty fields. */
 export function buildCsv(columns: readonly CsvColumn[]): string {
   const rowCount = Math.max(0, ...columns.map((c) => c.values.length));
-  const lines = [columns.map((c) => csvField(csvHeader(c))).join(',')];
-  for (let r = 0; r < rowCount; r++) {
-    lines.push(columns.map((c) => csvField(c.values[r])).join(','));
-  }
-  return lines.join(CRLF) + CRLF;
+  let csv = csvRecord(columns.map(csvHeader));
+  for (let r = 0; r < rowCount; r++) csv += csvRecord(columns.map((c) => c.values[r]));
+  return csv;
 }
 
 /**

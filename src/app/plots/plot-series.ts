@@ -44,6 +44,12 @@ export interface StripRow {
   readonly segments: readonly { readonly from: number; readonly to: number }[];
   /** Defaults to the theme's primary colour. */
   readonly colorVar?: string;
+  /**
+   * The on fraction (0..1) shown beside the row when the caller computed it over more than is drawn
+   * (a duty cycle over a thermostat's several-orbit cycle), so plot and table show one figure;
+   * otherwise the drawn segments' share of the x range.
+   */
+  readonly duty?: number;
 }
 
 /** Minimum plot margins in px, so plots stacked one above the other share their x positions. */

@@ -95,6 +95,16 @@ describe('StripPlot', () => {
     expect(el.querySelector('.ecl-strip-tooltip')).toBeNull();
   });
 
+  it("shows the caller's duty figure when it gives one (a cycle longer than the drawn orbit), beside the row, in the summary and in the table", async () => {
+    // Issue 14: the strip said 57.5 % (the drawn last orbit) where the heater table said 52.1 % (the 14-orbit cycle).
+    const { fixture, el } = await render({ rows: [{ ...heaters[0], duty: 0.5214 }], xDomain: [0, 100], xUnit: 'min' });
+    expect(el.querySelector('.ecl-strip-duty')?.textContent?.trim()).toBe('52.1 %');
+    expect(el.querySelector('svg')?.getAttribute('aria-label')).toContain('Battery heater on 52.1 % of the time');
+    (el.querySelector('.ecl-strip-table-toggle') as HTMLButtonElement).click();
+    await fixture.whenStable();
+    expect(el.querySelectorAll('tbody tr')[0].children[1]?.textContent?.trim()).toBe('52.1');
+  });
+
   it('summarises duty cycles for screen readers and offers a table', async () => {
     const { fixture, el } = await render({ rows: heaters, xDomain: [0, 100], xUnit: 'min', title: 'Heaters, cold case' });
     const label = el.querySelector('svg')?.getAttribute('aria-label') ?? '';

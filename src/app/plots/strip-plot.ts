@@ -9,6 +9,9 @@ import type { PlotBand, PlotGutters, StripRow, XKind } from './plot-series';
 import { observePlotWidth } from './plot-width';
 import { PlotXAxis } from './plot-x-axis';
 import { clipSegments, isOnAt, onFraction } from './strip-segments';
+
+/** A row's on fraction as shown: the caller's figure when it gave one, else the drawn segments' share. */
+const dutyOf = (r: StripRow, domain: readonly [number, number]): number => r.duty ?? onFraction(r.segments, domain);
 import { bandStyle } from './time-series-layout';
 
 const TICK_CHAR_PX = 6.5;
@@ -89,7 +92,7 @@ export class StripPlot {
           y: i * rowHeight,
           height: rowHeight,
           fill: cssColor(r.colorVar ?? '--mat-sys-primary'),
-          duty: `${formatValue(onFraction(r.segments, domain) * 100)} %`,
+          duty: `${formatValue(dutyOf(r, domain) * 100)} %`,
           segments: on.map((s) => ({ x: x.toPx(s.from), width: x.toPx(s.to) - x.toPx(s.from) })),
         };
       }),
@@ -103,7 +106,7 @@ export class StripPlot {
     const parts = [this.title() ? `${this.title()}: ${head}` : head];
     for (const r of this.rows()) {
       const periods = clipSegments(r.segments, domain).length;
-      parts.push(`${r.label} on ${formatValue(onFraction(r.segments, domain) * 100)} % of the time in ${periods} period${periods === 1 ? '' : 's'}`);
+      parts.push(`${r.label} on ${formatValue(dutyOf(r, domain) * 100)} % of the time in ${periods} period${periods === 1 ? '' : 's'}`);
     }
     return parts.join('. ') + '.';
   });
@@ -124,7 +127,7 @@ export class StripPlot {
     const [kind, unit] = [this.xKind(), this.xUnit()];
     return this.rows().map((r) => ({
       label: r.label,
-      duty: formatValue(onFraction(r.segments, domain) * 100),
+      duty: formatValue(dutyOf(r, domain) * 100),
       periods: clipSegments(r.segments, domain)
         .map((s) => `${formatX(s.from, kind, unit)} – ${formatX(s.to, kind, unit)}`)
         .join('; '),

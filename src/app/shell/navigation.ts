@@ -1,5 +1,5 @@
 import type { MembershipSummary } from '../../../shared/api/auth';
-import { roles, type Role } from '../../../shared/api/workspaces';
+import { roles, type Role } from '../../../shared/api/plain-lists';
 
 export type SectionId = 'missions' | 'overview' | 'cases' | 'thermal' | 'members' | 'audit' | 'tokens' | 'mail';
 

@@ -32,8 +32,9 @@ export class ThermalModelApi {
     return this.http.delete(apiPath('thermal-models', modelId));
   }
 
-  run(modelId: string, caseId: string): Observable<ThermalRunResponse> {
-    return this.http.post<ThermalRunResponse>(apiPath('thermal-models', modelId, 'run'), { caseId });
+  /** `maxOrbits`: the orbits allowed for this run; a run that does not settle in them answers its last orbit. */
+  run(modelId: string, caseId: string, maxOrbits?: number): Observable<ThermalRunResponse> {
+    return this.http.post<ThermalRunResponse>(apiPath('thermal-models', modelId, 'run'), { caseId, ...(maxOrbits !== undefined ? { maxOrbits } : {}) });
   }
 
   lastRun(modelId: string, caseId: string): Observable<ThermalRunResponse> {

@@ -5,7 +5,9 @@ import { DOCUMENT, DecimalPipe, PercentPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatHint } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
+import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatOption, MatSelect, MatSelectTrigger } from '@angular/material/select';
 import type { CaseSummary } from '../../../shared/api/cases';
@@ -14,15 +16,22 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { CaseKindLabel } from '../cases/case-kind-label';
 import { buildCsv, downloadCsv } from '../plots/csv-download';
 import { StripPlot } from '../plots/strip-plot';
+import { DESIGN_CAUTION_TEXT } from '../shell/design-caution';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { ThermalModelApi } from './thermal-api';
-import { heaterRows, limitLines, loopSeries, shadowBands, temperatureColumns, temperatureSeries, worstMarginK } from './thermal-run-plots';
+import { loopColumns, loopSummaryColumns } from './thermal-loop-plots';
+import { ThermalLoopResults } from './thermal-loop-results';
+import { dutyPercent, heaterCycleNote, heaterRows, limitLines, shadowBands, temperatureColumns, temperatureSeries, worstMarginK } from './thermal-run-plots';
+
+/** The solver's default when neither the run nor the model sets the orbits (shared/physics/thermal-model.ts). */
+const DEFAULT_MAX_ORBITS = 200;
+const MAX_ORBITS = 2000;
 
 const GUTTERS = { left: 150, right: 56 } as const;
 
 @Component({
   selector: 'ecl-thermal-run-panel',
-  imports: [DecimalPipe, PercentPipe, MatButton, MatFormField, MatLabel, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, StripPlot],
+  imports: [DecimalPipe, PercentPipe, MatButton, MatFormField, MatLabel, MatHint, MatInput, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, StripPlot, ThermalLoopResults],
   templateUrl: './thermal-run-panel.html',
   styleUrl: './thermal-run-panel.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -33,6 +42,8 @@ export class ThermalRunPanel {
   readonly canRun = input(false);
   /** True when the form has changes not saved: the run uses the saved model. */
   readonly unsaved = input(false);
+  /** The model's own orbit allowance, if it sets one. */
+  readonly modelMaxOrbits = input<number | undefined>(undefined);
 
   private readonly api = inject(ThermalModelApi);
   private readonly document = inject(DOCUMENT);
@@ -43,6 +54,24 @@ export class ThermalRunPanel {
   protected readonly run = signal<ThermalRunResponse | null>(null);
   protected readonly node = signal<string | null>(null);
   protected readonly gutters = GUTTERS;
+  protected readonly maxOrbitsLimit = MAX_ORBITS;
+  /** Orbits allowed for the next run; null: the model's setting, else the solver's default. */
+  protected readonly orbits = signal<number | null>(null);
+  protected readonly defaultOrbits = computed(() => this.modelMaxOrbits() ?? DEFAULT_MAX_ORBITS);
+  protected readonly orbitsValid = computed(() => {
+    const n = this.orbits();
+    return n === null || (Number.isInteger(n) && n >= 1 && n <= MAX_ORBITS);
+  });
+  protected readonly dutyPercent = dutyPercent;
+  protected readonly cycleNote = computed(() => {
+    const r = this.run();
+    return r ? heaterCycleNote(r) : null;
+  });
+  /** What "run again" offers after a run that did not settle: four times its orbits, within the limit. */
+  protected readonly moreOrbits = computed(() => {
+    const r = this.run();
+    return r && !r.result.converged && r.result.orbits < MAX_ORBITS ? Math.min(MAX_ORBITS, r.result.orbits * 4) : null;
+  });
   protected readonly selectedCase = computed(() => this.cases().find((c) => c.id === this.caseId()) ?? null);
 
   protected readonly bands = computed(() => {
@@ -67,10 +96,6 @@ export class ThermalRunPanel {
   protected readonly strips = computed(() => {
     const r = this.run();
     return r ? heaterRows(r) : [];
-  });
-  protected readonly flows = computed(() => {
-    const r = this.run();
-    return r ? loopSeries(r) : [];
   });
   protected readonly nodeRows = computed(() => {
     const r = this.run();
@@ -105,12 +130,22 @@ export class ThermalRunPanel {
     });
   }
 
+  protected setOrbits(event: Event): void {
+    const value = (event.target as HTMLInputElement).value.trim();
+    this.orbits.set(value === '' ? null : Number(value));
+  }
+
+  protected runAgainWith(orbits: number): void {
+    this.orbits.set(orbits);
+    this.runCase();
+  }
+
   protected runCase(): void {
     const caseId = this.caseId();
-    if (!caseId) return;
+    if (!caseId || !this.orbitsValid()) return;
     this.running.set(true);
     this.failure.set(null);
-    this.api.run(this.modelId(), caseId).subscribe({
+    this.api.run(this.modelId(), caseId, this.orbits() ?? undefined).subscribe({
       next: (r) => {
         this.running.set(false);
         this.run.set(r);
@@ -127,6 +162,6 @@ export class ThermalRunPanel {
     const r = this.run();
     if (!r) return;
     const stem = `${r.model.name}-${r.case.name}`.replace(/[^A-Za-z0-9._-]+/g, '-').toLowerCase();
-    downloadCsv(`${stem}-temperatures.csv`, buildCsv(temperatureColumns(r)), this.document);
+    downloadCsv(`${stem}-temperatures.csv`, buildCsv([...temperatureColumns(r), ...loopColumns(r), ...loopSummaryColumns(r), { header: 'Note', values: [DESIGN_CAUTION_TEXT] }]), this.document);
   }
 }

@@ -1,7 +1,9 @@
 // Plot and file inputs from a run's answer: a node's temperature over the orbit with its limits,
-// the heaters' on/off strips, the loops' flows, and the CSV of every node's temperature. Minutes.
+// the heaters' on/off strips, and the CSV of every node's temperature (the loops' are in
+// thermal-loop-plots.ts). Minutes.
 import type { ThermalRunResponse } from '../../../shared/api/thermal-models';
 import type { CsvColumn } from '../plots/csv-download';
+import { formatWithUnit } from '../plots/plot-format';
 import type { LimitLine, PlotBand, PlotSeries, StripRow } from '../plots/plot-series';
 
 type Run = ThermalRunResponse;
@@ -65,15 +67,27 @@ export function heaterRows(run: Run): StripRow[] {
       if (last && Math.abs(last.to - from) < 1e-9) last.to = to;
       else segments.push({ from, to });
     });
-    return { label: h.name, segments, colorVar: '--ecl-hot' };
+    // The figure beside the strip is the table's: over the whole cycle, which may span several orbits.
+    return { label: h.name, segments, colorVar: '--ecl-hot', duty: h.dutyCycle };
   });
 }
 
-export function loopSeries(run: Run): PlotSeries[] {
-  const x = minutes(run);
-  return run.result.loops.map((l, k) => ({
-    id: `flow-${k}`, label: l.name, unit: 'kg/s', colorVar: k % 2 === 0 ? '--ecl-cold' : '--ecl-albedo', points: l.flowKgS.map((y, i) => ({ x: x[i] ?? 0, y })),
-  }));
+/** A duty cycle as the strip and the table both show it, e.g. "52.1 %". */
+export function dutyPercent(fraction: number): string {
+  return formatWithUnit(fraction * 100, '%');
+}
+
+/** What the strip draws against what its duty figures cover, when the two differ; null when they do not. */
+export function heaterCycleNote(run: Run): string | null {
+  const r = run.result;
+  if (!r.converged) return 'The strip draws the last orbit of a run that did not settle; the duty cycles are that orbit\'s.';
+  if (r.periodOrbits > 1) {
+    return `The strip draws the last orbit; the thermostats' cycle repeats every ${r.periodOrbits} orbits, so the duty cycles beside it and in the table are over those ${r.periodOrbits} orbits.`;
+  }
+  if (r.periodOrbits === 0 && r.averagedOrbits > 1) {
+    return `The strip draws the last orbit; the thermostats' cycle never locks to the orbit, so the duty cycles beside it and in the table are averages over the last ${r.averagedOrbits} orbits.`;
+  }
+  return null;
 }
 
 export function temperatureColumns(run: Run): CsvColumn[] {

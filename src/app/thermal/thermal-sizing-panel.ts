@@ -1,7 +1,7 @@
 // Sizing with the saved model: the radiator area that holds a node at its maximum less the margin
 // in the hot case, and the heater power that holds a node at its minimum plus the margin in the
 // cold case at minimum bus voltage with the duty cycle within the model's limit.
-import { DecimalPipe, PercentPipe } from '@angular/common';
+import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
@@ -13,10 +13,11 @@ import type { ThermalModelSizeResponse } from '../../../shared/api/thermal-model
 import { apiErrorMessage } from '../api/api-error-message';
 import { CaseKindLabel } from '../cases/case-kind-label';
 import { ThermalModelApi } from './thermal-api';
+import { dutyPercent } from './thermal-run-plots';
 
 @Component({
   selector: 'ecl-thermal-sizing-panel',
-  imports: [DecimalPipe, PercentPipe, MatButton, MatFormField, MatLabel, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel],
+  imports: [DecimalPipe, MatButton, MatFormField, MatLabel, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel],
   template: `
     <div class="pick-row">
       <mat-form-field appearance="outline">
@@ -59,25 +60,33 @@ import { ThermalModelApi } from './thermal-api';
       <div class="cards" data-testid="sizing-results">
         <section class="card hot-card" aria-labelledby="size-radiator">
           <h4 id="size-radiator"><ecl-case-kind kind="hot" /> Radiator area</h4>
-          @if (a.radiator.sizing; as s) {
+          @if (a.radiator.sizing?.note; as note) {
+            <p class="big" data-testid="radiator-area">None needed</p>
+            <p data-testid="radiator-note">{{ note }}</p>
+          } @else if (a.radiator.sizing; as s) {
             <p class="big" data-testid="radiator-area">{{ s.areaM2 | number: '1.3-3' }} m²</p>
             <p>holds {{ s.node }} at or below {{ s.targetMaxC | number: '1.1-1' }} °C (maximum less {{ a.margins.hotK }} K) in “{{ a.radiator.case.name }}”; peak reached {{ s.achievedMaxC | number: '1.1-1' }} °C.</p>
             @if (s.equationAreaM2 !== null && s.equationAreaM2 > 0) {
               <p class="ecl-muted">Radiator equation with orbit-average loads: {{ s.equationAreaM2 | number: '1.3-3' }} m².</p>
             }
           } @else {
-            <p class="ecl-error">{{ a.radiator.refused }}</p>
+            <p class="big">Nothing fits</p>
+            <p class="ecl-error" data-testid="radiator-refused">{{ a.radiator.refused }}</p>
           }
         </section>
         <section class="card cold-card" aria-labelledby="size-heater">
           <h4 id="size-heater"><ecl-case-kind kind="cold" /> Heater power</h4>
-          @if (a.heater.sizing; as s) {
+          @if (a.heater.sizing?.note; as note) {
+            <p class="big" data-testid="heater-power">None needed</p>
+            <p data-testid="heater-note">{{ note }}</p>
+          } @else if (a.heater.sizing; as s) {
             <p class="big" data-testid="heater-power">{{ s.powerW | number: '1.2-2' }} W</p>
             <p>installed at nominal voltage; {{ s.powerAtMinVoltageW | number: '1.2-2' }} W at {{ s.minVoltageV ?? 'nominal' }}{{ s.minVoltageV ? ' V' : '' }},
-              on {{ s.dutyCycleAtMinVoltage | percent: '1.1-1' }} of the orbit (limit {{ s.maxDutyCycle | percent: '1.0-0' }}), {{ s.orbitAverageAtMinVoltageW | number: '1.2-2' }} W orbit average.</p>
+              on {{ dutyPercent(s.dutyCycleAtMinVoltage) }} of the orbit (limit {{ dutyPercent(s.maxDutyCycle) }}), {{ s.orbitAverageAtMinVoltageW | number: '1.2-2' }} W orbit average.</p>
             <p class="ecl-muted">Holds {{ s.node }} at or above {{ s.targetMinC | number: '1.1-1' }} °C (minimum plus {{ a.margins.coldK }} K) in “{{ a.heater.case.name }}”; coldest {{ s.achievedMinC | number: '1.1-1' }} °C.</p>
           } @else {
-            <p class="ecl-error">{{ a.heater.refused }}</p>
+            <p class="big">Nothing fits</p>
+            <p class="ecl-error" data-testid="heater-refused">{{ a.heater.refused }}</p>
           }
         </section>
       </div>
@@ -109,6 +118,7 @@ export class ThermalSizingPanel {
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly answer = signal<ThermalModelSizeResponse | null>(null);
+  protected readonly dutyPercent = dutyPercent;
 
   private readonly ofKind = (kind: 'hot' | 'cold') => {
     const list = this.cases();
