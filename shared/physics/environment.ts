@@ -86,8 +86,13 @@ export function environmentResult(c: EnvironmentColumns): EnvironmentResult {
     profile: withParentSunlit(profilePoints(c.loads, c.grid.tS, c.grid.trueAnomalyRad, c.shade.sunlit), c.parentSunlit),
     orbitAverage: { surfaces: surfaceLoads(names, c.averages) },
     peak: { surfaces: surfaceLoads(names, c.loads.peaks) },
-    assumptions: c.warnings.length > 0 ? [...ASSUMPTIONS, ...c.warnings.map((w) => `warning: ${w}`)] : ASSUMPTIONS,
+    assumptions: environmentAssumptions(c),
   };
+}
+
+/** The answer's assumptions: the fixed list, then the orbit's warnings. */
+export function environmentAssumptions(c: EnvironmentColumns): string[] {
+  return c.warnings.length > 0 ? [...ASSUMPTIONS, ...c.warnings.map((w) => `warning: ${w}`)] : ASSUMPTIONS;
 }
 
 /** About a moon, each point also says how much of the Sun its planet leaves (its `sunlit` already counts it). */
