@@ -119,6 +119,8 @@ export const environmentResponse = z.object({
   penumbraDurationS: z.number(),
   nodalRateDegPerDay: z.number(),
   profile: z.array(z.object({ tS: z.number(), trueAnomalyDeg: z.number(), sunlit: z.number(), surfaces: z.array(surfaceLoad) })),
+  /** Each sample's share of the period (s) when sampled evenly in eccentric anomaly; null evenly in time. */
+  sampleWeightsS: z.array(z.number()).nullable(),
   orbitAverage: z.object({ surfaces: z.array(surfaceLoad) }),
   peak: z.object({ surfaces: z.array(surfaceLoad) }),
   assumptions: z.array(z.string()),

@@ -40,6 +40,8 @@ export interface EnvironmentResult {
   penumbraDurationS: number;
   nodalRateDegPerDay: number;
   profile: ProfilePoint[];
+  /** Each profile sample's share of the period in seconds when sampled evenly in eccentric anomaly; null when evenly in time. */
+  sampleWeightsS: number[] | null;
   orbitAverage: { surfaces: SurfaceLoad[] };
   peak: { surfaces: SurfaceLoad[] };
   assumptions: string[];
@@ -58,7 +60,7 @@ export const environmentAssumptions = (c: EnvironmentColumns): string[] =>
   [ECLIPSE_ASSUMPTION, ...capAssumptions(c.models, c.solarFluxWm2), SUN_FIXED, SAMPLING[c.sampling], CAUTION];
 
 /** Every field of the answer but the profile, in the answer's key order (environment-json.ts writes the same order). */
-export function environmentHeader(c: EnvironmentColumns): Omit<EnvironmentResult, 'profile' | 'orbitAverage' | 'peak' | 'assumptions'> {
+export function environmentHeader(c: EnvironmentColumns): Omit<EnvironmentResult, 'profile' | 'sampleWeightsS' | 'orbitAverage' | 'peak' | 'assumptions'> {
   const { orbit, eclipse } = c;
   return {
     bodyId: c.bodyId,
@@ -91,6 +93,7 @@ export function environmentResult(c: EnvironmentColumns): EnvironmentResult {
   return {
     ...environmentHeader(c),
     profile: profilePoints(c.loads, c.grid.tS, c.grid.trueAnomalyRad, c.shade.sunlit),
+    sampleWeightsS: c.weightS ? [...c.weightS] : null,
     orbitAverage: { surfaces: surfaceLoads(names, c.averages) },
     peak: { surfaces: surfaceLoads(names, c.loads.peaks) },
     assumptions: environmentAssumptions(c),
