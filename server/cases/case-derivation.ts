@@ -10,10 +10,12 @@ import { ECCENTRIC_SAMPLING_FROM, caseModelAssumptions, deriveDesignCases, evalu
 import { designPairs, resolveMargins, type Margins } from '../../shared/physics/design-environment';
 import { raanOnDateRad, scanMission } from '../../shared/physics/design-scan';
 import { defineOrbit } from '../../shared/physics/orbit-definition';
+import { pairsFromTable } from '../../shared/physics/environment-table';
 import { DEG } from '../../shared/physics/vector3';
 import type { AppContext } from '../app-context';
 import type { Db } from '../db/database';
 import { recordAudit } from '../audit/audit-log';
+import { environmentTableRowsOf } from '../environment/environment-table-store';
 import { loadCases, materials, orbits, surfaces, type LoadCaseRow, type MissionRow, type OrbitRow, type UserRow } from '../db/schema';
 import { notFound, unprocessable } from '../errors';
 
@@ -126,6 +128,8 @@ export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, i
   const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId);
   const margins: Margins = resolveMargins(input.margins);
   const pair = (p: { albedo: number; olrWm2: number; source: string } | undefined) => (p ? { ...p, provisional: false } : undefined);
+  // the workspace's own table, where a row holds for the body and the orbit's inclination, over the built-in pairs
+  const table = pairsFromTable(environmentTableRowsOf(db, mission.workspaceId), getBody(mission.bodyId), orbit.inclinationDeg, input.averagingTimeS);
   const derivation = deriveDesignCases({
     bodyId: mission.bodyId,
     orbit: canonicalOrbit(orbit),
@@ -135,7 +139,7 @@ export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, i
     surfaces: list,
     margins,
     properties: input.properties,
-    environment: { hot: pair(input.environment?.hot), cold: pair(input.environment?.cold) },
+    environment: { hot: pair(input.environment?.hot) ?? table?.hot, cold: pair(input.environment?.cold) ?? table?.cold },
     steps: input.steps,
   });
   const prefix = input.name ?? `${mission.name} ${orbit.name}`;
