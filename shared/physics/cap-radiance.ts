@@ -46,8 +46,8 @@ export interface SurfaceField {
   nightFloorK: number;
 }
 
-export const RADIAL_NODES = 24;
-export const AZIMUTH_NODES = 64;
+export const RADIAL_NODES = 20;
+export const AZIMUTH_NODES = 48;
 
 /** Gauss-Legendre nodes and weights on [0, 1] (Newton on P_n; Press et al., Numerical Recipes sect. 4.5). */
 export function gaussLegendre01(n: number): { x: Float64Array; w: Float64Array } {
