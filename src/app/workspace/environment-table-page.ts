@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { FormArray, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormArray, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
@@ -55,6 +55,14 @@ export class EnvironmentTablePage {
   });
   protected readonly table = toSignal(toObservable(this.workspaceId).pipe(switchMap((id) => this.api.environmentTable(id).pipe(loaded()))));
   protected readonly rows = new FormArray<ReturnType<EnvironmentTablePage['rowGroup']>>([]);
+  /** The form element's group, so submitting it stays in the page. */
+  protected readonly form = new FormGroup({ rows: this.rows });
+  /** Bumped whenever rows are added or removed: the form array itself is not a signal (zoneless, OnPush). */
+  private readonly version = signal(0);
+  protected readonly controls = computed(() => {
+    this.version();
+    return [...this.rows.controls];
+  });
   protected readonly failure = signal<string | null>(null);
   protected readonly busy = signal(false);
 
@@ -65,6 +73,7 @@ export class EnvironmentTablePage {
       this.rows.clear();
       for (const row of state.value.rows) this.rows.push(this.rowGroup(row));
       if (!this.canEdit()) this.rows.disable();
+      this.version.update((v) => v + 1);
     });
   }
 
@@ -85,10 +94,12 @@ export class EnvironmentTablePage {
 
   protected add(): void {
     this.rows.push(this.rowGroup());
+    this.version.update((v) => v + 1);
   }
 
   protected remove(index: number): void {
     this.rows.removeAt(index);
+    this.version.update((v) => v + 1);
   }
 
   protected save(): void {
