@@ -13,6 +13,7 @@ import { adminRoutes } from './routes/admin';
 import { authRoutes } from './routes/auth';
 import { caseRoutes } from './routes/cases';
 import { environmentRoutes } from './routes/environment';
+import { environmentTableRoutes } from './routes/environment-table';
 import { ephemerisRoutes } from './routes/ephemerides';
 import { invitationRoutes } from './routes/invitations';
 import { materialRoutes } from './routes/materials';
@@ -39,6 +40,7 @@ export const featureRoutes: FeatureRoutes[] = [
   orbitRoutes,
   surfaceRoutes,
   materialRoutes,
+  environmentTableRoutes,
   ephemerisRoutes,
   caseRoutes,
   thermalModelRoutes,

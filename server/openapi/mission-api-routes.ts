@@ -6,6 +6,7 @@ import {
 } from '../../shared/api/ephemerides';
 import { caseDetail } from '../../shared/api/cases';
 import { environmentResponse } from '../../shared/api/environment';
+import { environmentTable, environmentTablePut } from '../../shared/api/environment-table';
 import {
   material, materialCreate, materialUpdate, mission, missionCreate, missionDetail, missionUpdate, orbit, orbitCreate, orbitUpdate,
   savedEnvironmentRequest, surface, surfaceCreate, surfaceUpdate, sweepQuery,
@@ -37,6 +38,8 @@ export const missionApiRoutes: ApiRoute[] = [
   { method: 'post', path: `${v1}/workspaces/:workspaceId/materials`, tag: 'materials', summary: 'Add a workspace material', body: materialCreate, status: 201, response: material },
   { method: 'patch', path: `${v1}/workspaces/:workspaceId/materials/:materialId`, tag: 'materials', summary: 'Change a workspace material', body: materialUpdate, response: material },
   { method: 'delete', path: `${v1}/workspaces/:workspaceId/materials/:materialId`, tag: 'materials', summary: 'Delete a workspace material', status: 204 },
+  { method: 'get', path: `${v1}/workspaces/:workspaceId/environment-table`, tag: 'environment table', summary: 'The workspace’s own paired hot/cold albedo and OLR by inclination band and averaging time (any member)', response: environmentTable },
+  { method: 'put', path: `${v1}/workspaces/:workspaceId/environment-table`, tag: 'environment table', summary: 'Replace the workspace’s environment table (owner, thermal)', body: environmentTablePut, response: environmentTable },
   { method: 'post', path: `${m}/ephemerides`, tag: 'ephemerides', summary: 'Upload an ephemeris (multipart: file, frame, name)', body: ephemerisUploadFields, bodyKind: 'multipart', status: 201, response: ephemerisSummary },
   { method: 'get', path: `${m}/ephemerides`, tag: 'ephemerides', summary: 'A mission’s ephemerides', response: items(ephemerisSummary) },
   { method: 'get', path: `${m}/ephemerides/:ephemerisId`, tag: 'ephemerides', summary: 'One ephemeris (summary)', response: ephemerisSummary },

@@ -5,6 +5,7 @@ import { z } from 'zod';
 import { bodyIds } from '../physics/bodies';
 import type { CaseConditions, CaseResults, SurfaceDriver, ScanSummary } from '../physics/design-cases';
 import type { Margins } from '../physics/design-environment';
+import { samplings } from '../physics/orbit-sampling';
 import { surfaceNormal } from './missions';
 
 export const caseKinds = ['hot', 'cold', 'custom'] as const;
@@ -51,6 +52,11 @@ export const caseConditions = z.object({
   marginDirection: z.enum(['increase', 'decrease']),
   steps: z.number().int(),
   surfaces: z.array(caseSurface),
+  surfaceField: z
+    .object({ emissivity: num, nightFloorK: num.describe('K') })
+    .optional()
+    .describe("an airless body's surface temperature field (its Bond albedo is `albedo`); absent: uniform OLR"),
+  sampling: z.enum(samplings).optional().describe('time (default): series evenly spaced in time; eccentric-anomaly: evenly in eccentric anomaly, dense at periapsis'),
 });
 
 export const caseMargins = z.object({
@@ -157,6 +163,7 @@ export const caseResultsContent = z.object({
   umbraDurationS: num,
   penumbraDurationS: num,
   tS: z.array(num).describe('s from periapsis (from the ascending node for a circular orbit; from the first row for a case from an ephemeris)'),
+  weightS: z.array(num).optional().describe("each sample's share of the period in s, when the series are not evenly spaced in time"),
   sunlit: z.array(num).describe('1 full sun, 0 umbra'),
   surfaces: z.array(caseSurfaceResult),
   total: z.object({ orbitAverageAbsorbedW: num, orbitAverageWithMarginW: num, peakAbsorbedW: num }),

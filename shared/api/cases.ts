@@ -46,6 +46,8 @@ export const caseDerive = z.strictObject({
   properties: z.strictObject({ hot: z.enum(propertySetValues).default('eol'), cold: z.enum(propertySetValues).default('bol') }).optional(),
   margins: marginsInput.optional(),
   environment: z.strictObject({ hot: pairInput.optional(), cold: pairInput.optional() }).optional(),
+  /** The item's thermal time constant: picks the averaging time of the workspace's environment table. */
+  averagingTimeS: z.number({ message: 'averagingTimeS must be a number' }).positive('averagingTimeS must be above 0 s').max(1e7).optional(),
   steps: steps.default(120),
 });
 

@@ -25,6 +25,7 @@ import { lineText, multilineText } from './text';
 import { answerLayout } from './answer-formats';
 import { bodyIds } from '../physics/bodies';
 import { namedNormals } from '../physics/heat-loads';
+import { samplings } from '../physics/orbit-sampling';
 import { localVector } from './environment';
 
 const isoDate = z.iso.date({ message: 'is a date like 2027-03-20' });
@@ -180,6 +181,8 @@ export const savedEnvironmentRequest = z.strictObject({
   albedo: z.number().min(0).max(1).optional(),
   olrWm2: z.number().min(0).max(20000).optional(),
   solarDistanceAu: z.number().positive().max(100).optional(),
+  /** Default: evenly in eccentric anomaly for an orbit of e >= 0.1 (the periapsis pass in the plots), else evenly in time. */
+  sampling: z.enum(samplings, { message: `sampling is one of ${samplings.join(', ')}` }).optional(),
 });
 
 export const sweepQuery = z.strictObject({

@@ -8,6 +8,9 @@ import { getBody, solarDistanceRangeAu, type Body, type BodyId } from './bodies'
 import { designPairs, opticalProperties, type CaseMaterial, type EnvironmentPair, type Margins, type PropertySet } from './design-environment';
 import { candidateDays, maxBy, raanOnDateRad, scanMission, type ScanDay } from './design-scan';
 import { computeEnvironment, type EnvironmentResult } from './environment';
+import { capAssumptions, chooseCapModels } from './cap-loads';
+import { surfaceTemperatureK } from './cap-radiance';
+import type { Sampling } from './orbit-sampling';
 import type { SurfaceNormal } from './heat-loads';
 import { defineOrbit, type OrbitInput } from './orbit-definition';
 import { solarFluxWm2 } from './sun';
@@ -38,7 +41,14 @@ export interface CaseConditions {
   marginDirection: 'increase' | 'decrease';
   steps: number;
   surfaces: CaseSurface[];
+  /** An airless body's surface temperature field (its Bond albedo is `albedo`); absent: the uniform `olrWm2`. */
+  surfaceField?: { emissivity: number; nightFloorK: number } | undefined;
+  /** Where the series' samples fall; absent: evenly in time. */
+  sampling?: Sampling | undefined;
 }
+
+/** From this eccentricity on, a derived case's series are sampled evenly in eccentric anomaly. */
+export const ECCENTRIC_SAMPLING_FROM = 0.1;
 
 export interface LoadSummary {
   solarWm2: number;
@@ -69,6 +79,8 @@ export interface CaseResults {
   umbraDurationS: number;
   penumbraDurationS: number;
   tS: number[];
+  /** Each sample's share of the period, s, when the series are not evenly spaced in time. */
+  weightS?: number[];
   sunlit: number[];
   surfaces: CaseSurfaceResult[];
   total: { orbitAverageAbsorbedW: number; orbitAverageWithMarginW: number; peakAbsorbedW: number };
@@ -95,7 +107,10 @@ function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
     betaDeg: c.betaDeg,
     solarDistanceAu: c.solarDistanceAu,
     albedo: c.albedo,
-    olrWm2: c.olrWm2,
+    ...(c.surfaceField
+      ? { irModel: 'surface-temperature' as const, surfaceEmissivity: c.surfaceField.emissivity, nightFloorK: c.surfaceField.nightFloorK }
+      : { irModel: 'uniform' as const, olrWm2: c.olrWm2 }),
+    sampling: c.sampling ?? 'time',
     steps,
     surfaces: c.surfaces.map((s) => ({ name: s.name, normal: s.normal, areaM2: s.areaM2, ...opticalProperties(s.material, c.properties) })),
   });
@@ -105,6 +120,8 @@ function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
 export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
   const env = environmentFor(c, c.steps);
   const factor = c.marginDirection === 'increase' ? 1 + margins.heatLoadPercent / 100 : 1 - margins.heatLoadPercent / 100;
+  // time weights per sample (equal when evenly spaced in time): averages stay time averages
+  const weights = env.sampleWeightsS ?? env.profile.map(() => env.periodS / env.profile.length);
   const surfaces = c.surfaces.map((s, i): CaseSurfaceResult => {
     const { absorptivity, emissivity } = opticalProperties(s.material, c.properties);
     const loads = env.profile.map((p) => p.surfaces[i]!);
@@ -114,14 +131,16 @@ export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
       irW: s.areaM2 * emissivity * w.irWm2,
     });
     const perStep = loads.map((l) => ({ ...l, ...watts(l) }));
-    const mean = (pick: (x: (typeof perStep)[number]) => number) => perStep.reduce((sum, x) => sum + pick(x), 0) / perStep.length;
-    const peakOf = (pick: (x: (typeof perStep)[number]) => number) => Math.max(...perStep.map(pick));
-    const summary = (f: typeof mean): LoadSummary => ({
+    const mean = (pick: (x: (typeof perStep)[number]) => number) => perStep.reduce((sum, x, k) => sum + pick(x) * weights[k]!, 0) / env.periodS;
+    const summary = (f: (pick: (x: (typeof perStep)[number]) => number) => number): LoadSummary => ({
       solarWm2: round(f((x) => x.solarWm2)), albedoWm2: round(f((x) => x.albedoWm2)), irWm2: round(f((x) => x.irWm2)),
       solarW: round(f((x) => x.solarW)), albedoW: round(f((x) => x.albedoW)), irW: round(f((x) => x.irW)),
       absorbedW: round(f((x) => x.absorbedW)),
     });
     const orbitAverage = summary(mean);
+    // the peaks the environment searched for between samples too (orbit-sampling.ts)
+    const peakLoad = env.peak.surfaces[i]!;
+    const peak = summary((pick) => pick({ ...peakLoad, ...watts(peakLoad) }));
     return {
       name: s.name, areaM2: s.areaM2, absorptivity, emissivity,
       series: {
@@ -130,7 +149,7 @@ export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
         absorbedW: perStep.map((x) => round(x.absorbedW)),
       },
       orbitAverage: { ...orbitAverage, absorbedWithMarginW: round(orbitAverage.absorbedW * factor) },
-      peak: summary(peakOf),
+      peak,
     };
   });
   const totalSeries = env.profile.map((p) => p.surfaces.reduce((sum, l) => sum + l.absorbedW, 0));
@@ -144,6 +163,7 @@ export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
     umbraDurationS: round(env.umbraDurationS, 1),
     penumbraDurationS: round(env.penumbraDurationS, 1),
     tS: env.profile.map((p) => round(p.tS, 3)),
+    ...(env.sampleWeightsS ? { weightS: env.sampleWeightsS.map((w) => round(w, 3)) } : {}),
     sunlit: env.profile.map((p) => round(p.sunlit, 5)),
     surfaces,
     total: { orbitAverageAbsorbedW: round(totalAverage), orbitAverageWithMarginW: round(totalAverage * factor), peakAbsorbedW: round(Math.max(...totalSeries)) },
@@ -287,14 +307,17 @@ function deriveOne(
     ? `${hot ? 'perihelion' : 'aphelion'} a(1 ${hot ? '-' : '+'} e) of ${body.name}'s orbit, reached near ${sunDay.date}`
     : `the ${hot ? 'closest' : 'farthest'} the mission comes to the Sun, ${sunDay.date}`;
 
-  const base = (day: ScanDay, steps: number): CaseConditions => ({
+  const sampling = orbitSampling(input.orbit);
+  const base = (day: ScanDay, steps: number, albedo = pair.albedo): CaseConditions => ({
     bodyId: input.bodyId, orbit: input.orbit, orbitEpoch: input.orbitEpoch, date: day.date, betaDeg: day.betaDeg,
-    solarDistanceAu: distanceAu, albedo: pair.albedo, olrWm2: pair.olrWm2, properties,
+    solarDistanceAu: distanceAu, albedo, olrWm2: pair.olrWm2, properties,
     marginDirection: hot ? 'increase' : 'decrease', steps, surfaces: input.surfaces,
+    ...(pair.surfaceField ? { surfaceField: pair.surfaceField } : {}),
+    ...(sampling ? { sampling } : {}),
   });
   const evaluated: Evaluated[] = candidates.map((day) => {
     const env = environmentFor(base(day, SCAN_STEPS), SCAN_STEPS);
-    return { day, env, total: env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0) };
+    return { day, env, total: totalOf(env) };
   });
   // About a moon, the cold case is the orbit amid the mission's longest shadow its planet takes part in.
   const darkest = hot ? null : longestParentShadow(scan, input);
@@ -307,15 +330,19 @@ function deriveOne(
   }
   // Hot: the least eclipse (ties to the largest |beta|); cold: the longest eclipse (smallest |beta|).
   const eclipseExtreme = maxBy(evaluated, (e) => -sign * e.env.eclipseDurationS * 1e3 + sign * Math.abs(e.day.betaDeg) * 1e-3);
-  const conditions: CaseConditions = chosen.orbitStart === undefined
-    ? base(chosen.day, input.steps ?? 120)
-    : { ...base(chosen.day, input.steps ?? 120), orbitStart: chosen.orbitStart };
+  // About a moon the case's orbit starts amid the planet's shadow (conditions.orbitStart).
+  const startingAt = (c: CaseConditions): CaseConditions => (chosen.orbitStart === undefined ? c : { ...c, orbitStart: chosen.orbitStart });
+  // An airless body: the end of the albedo range that makes the chosen day hotter (or colder).
+  const albedo = pair.albedoChoices
+    ? maxBy(pair.albedoChoices, (a) => sign * totalOf(environmentFor(startingAt(base(chosen.day, SCAN_STEPS, a)), SCAN_STEPS)))
+    : pair.albedo;
+  const conditions = startingAt(base(chosen.day, input.steps ?? 120, albedo));
   const results = evaluateCase(conditions, input.margins);
 
   const rationale = [
     `solar flux ${f(solarFluxWm2(distanceAu), 0)} W/m^2 at ${f(distanceAu, 4)} AU (${where}; TSI 1361 W/m^2 at 1 AU, inverse square)`,
     darkest ? shadowReason(darkest, chosen) : betaReason(hot, chosen, eclipseExtreme),
-    `albedo ${f(pair.albedo, 2)} with OLR ${f(pair.olrWm2, 0)} W/m^2: the ${kind} pair (${pair.source})`,
+    pairReason(kind, pair, albedo, solarFluxWm2(distanceAu)),
     ...materialReasons(input.surfaces, properties),
     `heat loads ${hot ? '+' : '-'}${input.margins.heatLoadPercent} % (${input.margins.sources.heatLoadPercent}); temperature margin ${input.margins.temperatureMarginC} C (${input.margins.sources.temperatureMarginC})`,
   ];
@@ -330,6 +357,35 @@ function deriveOne(
     return { surface: s.name, date: best.day.date, betaDeg: round(best.day.betaDeg, 3), orbitAverageAbsorbedW: round(w), sameAsCase, text };
   });
   return { kind, conditions, environmentSource: pair.source, provisional: pair.provisional, rationale, surfaceDrivers, results };
+}
+
+/** The albedo, IR and sampling models a case's loads use, in words (cap-loads.ts chooses them as for the compute route). */
+export function caseModelAssumptions(c: CaseConditions): string[] {
+  const body = getBody(c.bodyId);
+  const orbit = defineOrbit(c.orbit, body);
+  const request = c.surfaceField
+    ? { irModel: 'surface-temperature' as const, surfaceEmissivity: c.surfaceField.emissivity, nightFloorK: c.surfaceField.nightFloorK }
+    : { irModel: 'uniform' as const, olrWm2: c.olrWm2 };
+  const models = chooseCapModels(body, request, c.albedo, orbit.apoapsisAltitudeKm);
+  const sampling = c.sampling === 'eccentric-anomaly'
+    ? ['series sampled evenly in eccentric anomaly (dense at periapsis); averages weight each sample by its share of the period (weightS)']
+    : ['series sampled evenly in time; the peaks of an eccentric orbit are searched between samples too'];
+  return [...capAssumptions(models, solarFluxWm2(c.solarDistanceAu)), ...sampling];
+}
+
+const totalOf = (env: EnvironmentResult): number => env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0);
+
+/** Eccentric orbits' series are sampled evenly in eccentric anomaly so the periapsis pass is in them. */
+const orbitSampling = (orbit: OrbitInput): Sampling | undefined =>
+  orbit.eccentricity !== undefined && orbit.eccentricity >= ECCENTRIC_SAMPLING_FROM ? 'eccentric-anomaly' : undefined;
+
+function pairReason(kind: 'hot' | 'cold', pair: EnvironmentPair, albedo: number, fluxWm2: number): string {
+  const field = pair.surfaceField;
+  if (!field) return `albedo ${f(pair.albedo, 2)} with OLR ${f(pair.olrWm2, 0)} W/m^2: the ${kind} pair (${pair.source})`;
+  const subsolarK = surfaceTemperatureK({ bondAlbedo: albedo, ...field }, fluxWm2, 1);
+  const albedoWhy = pair.albedoChoices ? `, the end of the range that makes the case ${kind === 'hot' ? 'hotter' : 'colder'}` : '';
+  return `planetary IR from the surface temperature field: Bond albedo ${f(albedo, 3)}${albedoWhy}, emissivity ${f(field.emissivity, 2)}, ` +
+    `subsolar ${f(subsolarK, 0)} K in radiative equilibrium, night floor ${f(field.nightFloorK, 0)} K (${pair.source})`;
 }
 
 function betaReason(hot: boolean, chosen: Evaluated, extreme: Evaluated): string {

@@ -7,11 +7,13 @@
 // it covers and the eclipse is counted from both bodies. Source: API.md "Environment computation".
 import { getBody, type BodyId } from './bodies';
 import { betaFromVectorsRad } from './beta-angle';
+import { capColumns, chooseCapModels, reportedOlrWm2, type AlbedoModel, type CapModelChoice, type IrModel } from './cap-loads';
 import { AU_KM } from './constants';
 import type { EclipseSummary } from './eclipse';
 import type { Surface } from './heat-loads';
 import { defineOrbit, type Orbit, type OrbitInput } from './orbit-definition';
-import { eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, shadeGrid, type GridShade, type OrbitGrid, type PerifocalSun } from './orbit-grid';
+import { eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, orbitGridAt, shadeGrid, type GridShade, type OrbitGrid, type PerifocalSun } from './orbit-grid';
+import { eccentricAnomalyTimes, refinedPeaks, weightedAverages, type Sampling } from './orbit-sampling';
 import { orbitBasis } from './orbit-position';
 import { PhysicsError } from './physics-error';
 import { profileColumns, type LoadTotals, type ProfileColumns } from './profile-loads';
@@ -32,6 +34,15 @@ export interface EnvironmentRequest {
   olrWm2?: number;
   steps?: number;
   surfaces: Surface[];
+  /** Albedo as the Lambertian integral over the cap or the engineering S a F cos(theta); default in cap-loads.ts. */
+  albedoModel?: AlbedoModel | undefined;
+  /** An airless body's surface temperature field or a uniform OLR; default by body (cap-loads.ts). */
+  irModel?: IrModel | undefined;
+  /** The airless field's emissivity and night floor, over the body's nominal values. */
+  surfaceEmissivity?: number | undefined;
+  nightFloorK?: number | undefined;
+  /** Profile samples evenly in time (the default, API.md) or evenly in eccentric anomaly with time weights. */
+  sampling?: Sampling | undefined;
 }
 
 export interface EnvironmentColumns {
@@ -43,10 +54,16 @@ export interface EnvironmentColumns {
   solarDistanceAu: number;
   solarFluxWm2: number;
   albedo: number;
+  /** The uniform OLR, or the whole-body mean exitance of an airless body's field. */
   olrWm2: number;
+  /** The albedo and IR models used. */
+  models: CapModelChoice;
   eclipse: EclipseSummary;
+  sampling: Sampling;
   /** tS, true anomaly and radius at each sample. */
   grid: OrbitGrid;
+  /** Each sample's share of the period in seconds; null when evenly spaced in time. */
+  weightS: Float64Array | null;
   /** The Sun's share (sunlit) and direction at each sample. */
   shade: GridShade;
   /** Incident fluxes and absorbed power per surface per sample, their orbit sums and peaks. */
@@ -117,22 +134,32 @@ export function computeEnvironmentColumns(request: EnvironmentRequest): Environm
   const solarFlux = solarFluxWm2(solarDistanceAu);
   const albedo = request.albedo ?? body.albedo.nominal;
   const olrWm2 = request.olrWm2 ?? body.olrWm2.nominal;
+  const models = chooseCapModels(body, request, albedo, orbit.apoapsisAltitudeKm);
 
-  const grid = orbitGrid(orbit, body.radiusKm, steps);
+  const sampling = request.sampling ?? 'time';
+  const onE = sampling === 'eccentric-anomaly' ? eccentricAnomalyTimes(orbit, steps) : null;
+  const grid = onE ? orbitGridAt(orbit, body.radiusKm, onE.times) : orbitGrid(orbit, body.radiusKm, steps);
   const sun: PerifocalSun = {
     sp: dot(sunDirection, basis.p), sq: dot(sunDirection, basis.q), sw: dot(sunDirection, basis.w), distanceKm: solarDistanceAu * AU_KM,
   };
-  const prepared = prepareSurfaces(request.surfaces, grid, body.radiusKm);
-  const shade = gridShade(steps);
-  shadeGrid(grid, sun, shade);
   // About a moon, the planet's shadow at the epoch's orbit (the ephemeris Sun, whatever beta is asked).
   const epochMs = request.epoch === undefined ? null : parseEpoch(request.epoch).getTime();
   const planetShadow = epochMs === null ? null : parentShadow(body, orbit, epochMs);
-  const parentSunlit = planetShadow && epochMs !== null ? parentSunlitOnGrid(planetShadow, grid, epochMs) : null;
-  if (parentSunlit) for (let k = 0; k < steps; k++) shade.sunlit[k] = combinedSunlit(shade.sunlit[k], parentSunlit[k]);
-  const loads = profileColumns(prepared, grid, shade, sun.sw, body.radiusKm, solarFlux, albedo, olrWm2);
-  // The shadow scan needs a fine grid even when few load steps are asked for.
-  const scanGrid = steps >= ECLIPSE_SCAN_STEPS ? grid : orbitGrid(orbit, body.radiusKm, ECLIPSE_SCAN_STEPS);
+  const parentOn = (g: OrbitGrid): Float64Array | null => (planetShadow && epochMs !== null ? parentSunlitOnGrid(planetShadow, g, epochMs) : null);
+  const loadsOn = (g: OrbitGrid, shade: GridShade, parent = parentOn(g)): ProfileColumns => {
+    shadeGrid(g, sun, shade);
+    if (parent) for (let k = 0; k < g.steps; k++) shade.sunlit[k] = combinedSunlit(shade.sunlit[k], parent[k]);
+    const prepared = prepareSurfaces(request.surfaces, g, body.radiusKm);
+    const cap = capColumns(models, prepared, g, shade, sun.sw, body.radiusKm, solarFlux, albedo);
+    return profileColumns(prepared, g, shade, sun.sw, body.radiusKm, solarFlux, albedo, olrWm2, cap);
+  };
+  const shade = gridShade(steps);
+  const parentSunlit = parentOn(grid);
+  const loads = loadsOn(grid, shade, parentSunlit);
+  // An eccentric orbit's peaks are searched where its periapsis pass is resolved (orbit-sampling.ts).
+  loads.peaks = refinedPeaks(orbit, steps, loads.peaks, (times) => loadsOn(orbitGridAt(orbit, body.radiusKm, times), gridShade(times.length)), onE ? loads : null);
+  // The shadow scan needs a fine grid, evenly in time, even when few load steps are asked for.
+  const scanGrid = !onE && steps >= ECLIPSE_SCAN_STEPS ? grid : orbitGrid(orbit, body.radiusKm, ECLIPSE_SCAN_STEPS);
   let eclipse = scanGrid === grid ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm) : eclipseOnGrid(orbit, scanGrid, sun, body.radiusKm);
   let parentShadowS = 0;
   if (planetShadow && parentSunlit && epochMs !== null && parentSunlit.some((f) => f < 1)) {
@@ -145,8 +172,9 @@ export function computeEnvironmentColumns(request: EnvironmentRequest): Environm
     bodyId: body.id, orbit,
     betaDeg: betaFromVectorsRad(basis.w, sunDirection) / DEG,
     epochBetaDeg: epochBetaRad === null ? null : epochBetaRad / DEG,
-    solarDistanceAu, solarFluxWm2: solarFlux, albedo, olrWm2, eclipse, grid, shade, loads,
-    averages: averaged(loads.sums, steps),
+    solarDistanceAu, solarFluxWm2: solarFlux, albedo, olrWm2: reportedOlrWm2(models, solarFlux, olrWm2), models, eclipse,
+    sampling, grid, weightS: onE?.weightS ?? null, shade, loads,
+    averages: onE ? weightedAverages(loads, onE.weightS, orbit.periodS) : averaged(loads.sums, steps),
     parentSunlit, parentBodyId: body.parentId, parentShadowS, warnings: orbitWarnings(body, orbit),
   };
 }

@@ -66,10 +66,12 @@ export function absorbedSeries(profile: Profile, surfaceIndex: number): PlotSeri
 }
 
 /** Every sample of the profile, every surface: one row a sample, units in the header. */
-export function profileCsvColumns(profile: Profile): CsvColumn[] {
+export function profileCsvColumns(profile: Profile, weightsS: readonly number[] | null = null): CsvColumn[] {
   const names = profile[0]?.surfaces.map((s) => s.name) ?? [];
   const columns: CsvColumn[] = [
     { header: 'Time from periapsis', unit: 'min', values: profile.map((p) => minutes(p.tS)) },
+    // samples not evenly spaced in time (dense at periapsis): each one's share of the period
+    ...(weightsS ? [{ header: 'Share of the period', unit: 's', values: [...weightsS] }] : []),
     { header: 'True anomaly', unit: 'deg', values: profile.map((p) => p.trueAnomalyDeg) },
     { header: 'Sunlit fraction', values: profile.map((p) => p.sunlit) },
   ];

@@ -83,6 +83,6 @@ export class EnvironmentResults {
   protected downloadProfile(): void {
     const a = this.answer();
     if (!a) return;
-    downloadCsv(`${this.fileStem()}-profile.csv`, buildCsv(profileCsvColumns(a.profile)), this.document);
+    downloadCsv(`${this.fileStem()}-profile.csv`, buildCsv(profileCsvColumns(a.profile, a.sampleWeightsS)), this.document);
   }
 }
