@@ -1,0 +1,90 @@
+// What signing every request costs: autocannon (100 connections) against Eclipta in its own process
+// (seeded demo, fresh data dir, request log at info level) on an authenticated GET /api/v1/cases
+// with a session cookie and with a personal API token, and GET /api/v1/auth/me, each beside its
+// anchor measured in the same run: a bare Express app in a process of its own answering the very
+// same JSON bytes the case list answered. The ratio is requests/s over the bare route's.
+// BENCH_AUTH_DURATION_S (default 8) and BENCH_CONNECTIONS (default 100) change the run.
+import autocannon from 'autocannon';
+import { spawn } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { childSignIn, repoRoot, startChildServer } from '../tests/api/child-server';
+import type { BenchRow } from './bench-table';
+
+const connections = Number(process.env['BENCH_CONNECTIONS'] ?? 100);
+const durationS = Number(process.env['BENCH_AUTH_DURATION_S'] ?? 8);
+
+// The anchor: Express with nothing but one route sending a fixed JSON body, as res.json would.
+const bareServer = `
+const express = require('express');
+const body = process.env.BARE_BODY;
+const app = express();
+app.get('/cases', (_req, res) => { res.type('application/json').send(body); });
+const server = app.listen(0, () => console.log('listening ' + server.address().port));
+`;
+
+function startBare(body: string): Promise<{ url: string; stop: () => Promise<void> }> {
+  const child = spawn(process.execPath, ['-e', bareServer], { cwd: repoRoot, env: { ...process.env, BARE_BODY: body }, stdio: ['ignore', 'pipe', 'inherit'] });
+  const exited = new Promise<void>((resolve) => child.on('exit', () => resolve()));
+  const stop = async () => {
+    child.kill('SIGTERM');
+    await exited;
+  };
+  return new Promise((resolve, reject) => {
+    child.stdout.on('data', (chunk: Buffer) => {
+      const port = /listening (\d+)/.exec(chunk.toString('utf8'))?.[1];
+      if (port) resolve({ url: `http://localhost:${port}`, stop });
+    });
+    void exited.then(() => reject(new Error('the bare Express server exited before listening')));
+  });
+}
+
+async function rate(url: string, headers: Record<string, string>): Promise<{ perS: number; p99: number }> {
+  // A short warm-up first so the JIT has seen the path before it is measured.
+  await autocannon({ url, connections, duration: 1, headers });
+  const result = await autocannon({ url, connections, duration: durationS, headers, timeout: 30 });
+  const failures = result.errors + result.timeouts + result.non2xx;
+  if (failures > 0 || result['2xx'] === 0) throw new Error(`${url}: ${failures} failed answers of ${result.requests.total}`);
+  return { perS: result.requests.average, p99: result.latency.p99 };
+}
+
+export default async function authBench(): Promise<BenchRow[]> {
+  const dir = mkdtempSync(path.join(tmpdir(), 'eclipta-auth-bench-'));
+  const server = await startChildServer(dir);
+  let bare: Awaited<ReturnType<typeof startBare>> | undefined;
+  try {
+    const cookie = await childSignIn(server.url, 'owner@kestrel.test');
+    const made = await fetch(`${server.url}/api/v1/tokens`, {
+      method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ name: 'auth bench', readOnly: true }),
+    });
+    if (made.status !== 201) throw new Error(`creating an API token answered ${made.status}`);
+    const { secret } = (await made.json()) as { secret: string };
+    const listed = await fetch(`${server.url}/api/v1/cases`, { headers: { cookie } });
+    const body = await listed.text();
+    const cases = (JSON.parse(body) as { items: unknown[] }).items.length;
+    bare = await startBare(body);
+
+    const runs: { route: string; url: string; headers: Record<string, string> }[] = [
+      { route: `bare Express, same JSON (${cases} cases, ${(body.length / 1024).toFixed(1)} kB)`, url: `${bare.url}/cases`, headers: {} },
+      { route: 'GET /api/v1/cases, session cookie', url: `${server.url}/api/v1/cases`, headers: { cookie } },
+      { route: 'GET /api/v1/cases, API token', url: `${server.url}/api/v1/cases`, headers: { authorization: `Bearer ${secret}` } },
+      { route: 'GET /api/v1/auth/me, session cookie', url: `${server.url}/api/v1/auth/me`, headers: { cookie } },
+      { route: 'GET /api/health (no authentication)', url: `${server.url}/api/health`, headers: {} },
+    ];
+    const rows: BenchRow[] = [];
+    let anchor = NaN;
+    for (const run of runs) {
+      const { perS, p99 } = await rate(run.url, run.headers);
+      if (rows.length === 0) anchor = perS;
+      rows.push({ route: run.route, 'req/s': Math.round(perS), 'p99 ms': p99, 'x bare Express': perS / anchor });
+    }
+    rows.push({ route: `(${connections} connections, ${durationS} s each, target: authenticated GET >= 0.5x bare Express)` });
+    return rows;
+  } finally {
+    await bare?.stop();
+    server.child.kill('SIGTERM');
+    await server.exited;
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
