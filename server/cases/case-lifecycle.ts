@@ -13,7 +13,7 @@ import { caseSubscriptions, loadCases, type LoadCaseRow, type UserRow } from '..
 import { conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
-import { attitudeText, limitCaseWork } from './case-derivation';
+import { attitudeText, limitCaseWork, resultSummary } from './case-derivation';
 import { caseReleasedMail } from './case-mail';
 import { withMargins } from './ephemeris-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
@@ -57,7 +57,7 @@ export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, cha
   return ctx.db.transaction((tx) => {
     const updated = tx
       .update(loadCases)
-      .set({ name: change.name ?? row.name, inputs, results, updatedAt: new Date().toISOString() })
+      .set({ name: change.name ?? row.name, inputs, results, ...resultSummary(results), updatedAt: new Date().toISOString() })
       .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'draft')))
       .returning()
       .get();
@@ -177,7 +177,7 @@ export function newRevision(ctx: AppContext, user: UserRow, row: LoadCaseRow): L
       .insert(loadCases)
       .values({
         missionId: row.missionId, workspaceId: row.workspaceId, seriesId: row.seriesId, revision: (top?.n ?? row.revision) + 1,
-        name: row.name, kind: row.kind, status: 'draft', inputs: row.inputs, results: row.results, authorId: user.id,
+        name: row.name, kind: row.kind, status: 'draft', inputs: row.inputs, results: row.results, ...resultSummary(row.results), authorId: user.id,
       })
       .returning()
       .get();

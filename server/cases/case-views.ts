@@ -76,8 +76,10 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
         createdAt: loadCases.createdAt, updatedAt: loadCases.updatedAt,
       },
       // Read out of the JSON in SQL so a list does not parse every case's time series.
-      orbitAverageAbsorbedW: sql<number>`json_extract(${loadCases.results}, '$.total.orbitAverageAbsorbedW')`,
-      betaDeg: sql<number>`json_extract(${loadCases.results}, '$.betaDeg')`,
+      // Copied out of the results when they are written (resultSummary); read out of the JSON only
+      // for a row written without them, as parsing each case's results costs ~0.3 ms a case.
+      orbitAverageAbsorbedW: sql<number>`coalesce(${loadCases.orbitAverageAbsorbedW}, json_extract(${loadCases.results}, '$.total.orbitAverageAbsorbedW'))`,
+      betaDeg: sql<number>`coalesce(${loadCases.betaDeg}, json_extract(${loadCases.results}, '$.betaDeg'))`,
       missionName: missions.name,
       role: memberships.role,
     })
