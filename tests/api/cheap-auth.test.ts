@@ -4,6 +4,7 @@
 // membership on the very next request. Common practice, no source.
 import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
+import { readSession } from '../../server/auth/session';
 import { createTestApp, demoPassword, userIdOf, workspaceIdOf, type TestApp } from './test-app';
 
 let t: TestApp;
@@ -110,3 +111,22 @@ describe('revocation is immediate despite statements prepared once and reused', 
     await request(t.app).get(`/api/v1/workspaces/${kestrel}/members`).set('cookie', viewer).expect(404);
   });
 });
+
+describe('session signatures checked once', () => {
+  it('a token checked before is still refused once expired, and a forged one never passes', async () => {
+    const cookie = await signInCookie('thermal@kestrel.test');
+    const token = decodeURIComponent(cookie.slice('eclipta_session='.length));
+    const claims = readSession(t.ctx, token);
+    expect(claims?.userId).toBe(userIdOf(t, 'thermal@kestrel.test'));
+    expect(readSession(t.ctx, token)).toEqual(claims);
+    const expiresAtMs = (JSON.parse(Buffer.from(token.split('.')[1]!, 'base64url').toString('utf8')) as { exp: number }).exp * 1000;
+    expect(readSession(t.ctx, token, expiresAtMs - 1)).toEqual(claims);
+    expect(readSession(t.ctx, token, expiresAtMs)).toBeNull();
+    const [header, payload, signature] = token.split('.') as [string, string, string];
+    const otherSignature = signature.slice(0, -2) + (signature.endsWith('AA') ? 'BB' : 'AA');
+    expect(readSession(t.ctx, `${header}.${payload}.${otherSignature}`)).toBeNull();
+    const otherPayload = Buffer.from(JSON.stringify({ sid: claims?.sessionId, sub: userIdOf(t, 'owner@kestrel.test'), exp: expiresAtMs / 1000 })).toString('base64url');
+    expect(readSession(t.ctx, `${header}.${otherPayload}.${signature}`)).toBeNull();
+  });
+});
+
