@@ -122,10 +122,15 @@ export function pairWords(body: Body, inclinationDeg: number, albedo: number, ol
   };
 }
 
+/** The columns copied out of a case's results, to be written with the results every time. */
+export function resultSummary(results: LoadCaseRow['results']): Pick<LoadCaseRow, 'orbitAverageAbsorbedW' | 'betaDeg'> {
+  return { orbitAverageAbsorbedW: results.total.orbitAverageAbsorbedW, betaDeg: results.betaDeg };
+}
+
 export function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: UserRow, values: DraftValues): LoadCaseRow {
   return tx
     .insert(loadCases)
-    .values({ ...values, missionId: mission.id, workspaceId: mission.workspaceId, seriesId: randomUUID(), revision: 1, status: 'draft', authorId: user.id })
+    .values({ ...values, ...resultSummary(values.results), missionId: mission.id, workspaceId: mission.workspaceId, seriesId: randomUUID(), revision: 1, status: 'draft', authorId: user.id })
     .returning()
     .get();
 }
