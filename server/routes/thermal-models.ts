@@ -8,6 +8,7 @@ import { parse } from '../errors';
 import { answerForm, sendPerStep } from '../http/answer-formats';
 import { pathParam } from '../path-param';
 import { lastRun, runModel, sizeModel } from '../thermal/thermal-model-runs';
+import { whileClientWaits } from '../thermal/thermal-pool';
 import { createModel, deleteModel, getModel, listModels, updateModel } from '../thermal/thermal-model-store';
 
 export function thermalModelRoutes(ctx: AppContext): Router {
@@ -39,7 +40,7 @@ export function thermalModelRoutes(ctx: AppContext): Router {
   router.post('/thermal-models/:id/run', requireUser, async (req, res) => {
     const { caseId, maxOrbits } = parse(thermalRunRequest, req.body);
     const form = answerForm(req);
-    const run = runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits);
+    const run = await runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits, whileClientWaits(res));
     await sendPerStep(res, form, { answer: () => run, key: 'result', stepKey: 'tS' });
   });
 
@@ -49,9 +50,9 @@ export function thermalModelRoutes(ctx: AppContext): Router {
     await sendPerStep(res, form, { answer: () => run, key: 'result', stepKey: 'tS' });
   });
 
-  router.post('/thermal-models/:id/size', requireUser, (req, res) => {
+  router.post('/thermal-models/:id/size', requireUser, async (req, res) => {
     const body = parse(thermalModelSizeRequest, req.body);
-    res.json(sizeModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), body));
+    res.json(await sizeModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), body, whileClientWaits(res)));
   });
 
   return router;
