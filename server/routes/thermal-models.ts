@@ -1,12 +1,13 @@
 // Saved thermal models of a mission, their runs against load cases and their sizing
 // (shared/api/thermal-models.ts). The work and the role checks are in server/thermal/.
 import { Router } from 'express';
-import { thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, thermalRunRequest } from '../../shared/api/thermal-models';
+import { thermalDistanceStudyRequest, thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, thermalRunRequest } from '../../shared/api/thermal-models';
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
 import { answerForm, sendPerStep } from '../http/answer-formats';
 import { pathParam } from '../path-param';
+import { streamDistanceStudy } from '../thermal/thermal-distance-study';
 import { lastRun, runModel, sizeModel } from '../thermal/thermal-model-runs';
 import { whileClientWaits } from '../thermal/thermal-pool';
 import { createModel, deleteModel, getModel, listModels, updateModel } from '../thermal/thermal-model-store';
@@ -53,6 +54,11 @@ export function thermalModelRoutes(ctx: AppContext): Router {
   router.post('/thermal-models/:id/size', requireUser, async (req, res) => {
     const body = parse(thermalModelSizeRequest, req.body);
     res.json(await sizeModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), body, whileClientWaits(res)));
+  });
+
+  router.post('/thermal-models/:id/distance-study', requireUser, async (req, res) => {
+    const body = parse(thermalDistanceStudyRequest, req.body);
+    await streamDistanceStudy(ctx.db, ctx.logger, signedIn(req).user.id, pathParam(req, 'id'), body, res);
   });
 
   return router;

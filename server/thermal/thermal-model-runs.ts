@@ -18,11 +18,11 @@ import { runInputs } from './thermal-run-inputs';
 
 type SizeRequest = z.output<typeof thermalModelSizeRequest>;
 
-const caseRef = (c: LoadCaseRow) => ({ id: c.id, name: c.name, kind: c.kind, status: c.status, revision: c.revision });
+export const caseRef = (c: LoadCaseRow) => ({ id: c.id, name: c.name, kind: c.kind, status: c.status, revision: c.revision });
 
-function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: LoadCaseRow, extra: Partial<ThermalSolveRequestInput> = {}) {
+export function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: LoadCaseRow, extra: Partial<ThermalSolveRequestInput> = {}, solarScale = 1) {
   const names = new Map(db.select({ id: surfaces.id, name: surfaces.name }).from(surfaces).where(eq(surfaces.missionId, mission.id)).all().map((s) => [s.id, s.name]));
-  const base = runInputs(row.model, names, kase);
+  const base = runInputs(row.model, names, kase, solarScale);
   const inputs = { ...base, request: { ...base.request, ...extra } };
   // The request is built from checked parts; parsing again fills the solver's defaults and keeps
   // the route honest should a case hold something the stateless route would refuse.

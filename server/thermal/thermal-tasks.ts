@@ -4,6 +4,7 @@
 // routes' mapping to 4xx answers (thermal-failures.ts, errors.ts) is the one it was on the main thread.
 import { ConvergenceError, PhysicsError } from '../../shared/physics/physics-error';
 import { ThermalConvergenceError, ThermalModelError, type ThermalSolveInput } from '../../shared/physics/thermal-model';
+import { distancePoint } from '../../shared/physics/thermal-distance-study';
 import { heaterPowerFor, radiatorAreaFor } from '../../shared/physics/thermal-sizing';
 import { solveThermal } from '../../shared/physics/thermal-solver';
 
@@ -12,6 +13,7 @@ export const thermalTasks = {
   radiator: ({ model, node, marginK }: { model: ThermalSolveInput; node: string; marginK: number }) => radiatorAreaFor(model, node, marginK),
   heater: ({ model, node, marginK, maxDutyCycle }: { model: ThermalSolveInput; node: string; marginK: number; maxDutyCycle?: number }) =>
     heaterPowerFor(model, node, marginK, maxDutyCycle),
+  distancePoint: ({ model, node, marginK }: { model: ThermalSolveInput; node: string; marginK: number }) => distancePoint(model, node, marginK),
 };
 
 export type ThermalTasks = typeof thermalTasks;
