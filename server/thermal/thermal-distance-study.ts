@@ -56,9 +56,10 @@ export async function streamDistanceStudy(db: Db, logger: Logger, userId: string
     ],
   }));
   res.flush?.();
+  const stopped = (done: number) => logger.info('distance study stopped: the client left', { done, distances: plans.length });
   for (const [index, plan] of plans.entries()) {
     if (signal.aborted) {
-      logger.debug('distance study stopped: the client left', { done: index, distances: plans.length });
+      stopped(index);
       return;
     }
     try {
@@ -66,7 +67,10 @@ export async function streamDistanceStudy(db: Db, logger: Logger, userId: string
       res.write(ndjson({ type: 'point', index, label: plan.label, distanceAu: round(plan.distanceAu, 6), solarFluxWm2: round(solarFluxWm2(plan.distanceAu), 3), solarScale: round(plan.solarScale, 6), ...point }));
       res.flush?.();
     } catch (error) {
-      if (signal.aborted) return;
+      if (signal.aborted) {
+        stopped(index);
+        return;
+      }
       // The 200 and part of the answer are out; the failure can only be told in the stream.
       logger.error('distance study failed', { error: error instanceof Error ? error : String(error), distanceAu: plan.distanceAu });
       res.end(ndjson({ type: 'error', message: `The study failed on the server at ${plan.label}; the error was logged.` }));

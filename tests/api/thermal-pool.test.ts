@@ -3,6 +3,7 @@
 // client that leaves ends its solve, and the pool answers the next one. Before the pool, the solve
 // held the event loop and health waited for it (docs/RELIABILITY.md). Common practice, no source.
 import { describe, expect, it } from 'vitest';
+import { childSignIn } from './child-server';
 import { childServerForSuite } from './child-server-suite';
 
 const suite = childServerForSuite('eclipta-pool-', 'viewer@kestrel.test');
@@ -52,4 +53,30 @@ describe('thermal solves off the request thread', () => {
     // The error's own field crossed the thread: the node that did not settle.
     expect(body.error.details[0]?.path).toBe('nodes.0');
   }, 30_000);
+
+  it('stops a distance study when its client leaves after the first distance: no further distance is computed', async () => {
+    const { url } = suite.server;
+    const thermal = await childSignIn(url, 'thermal@kestrel.test');
+    const get = async <T>(p: string): Promise<T> => (await (await fetch(`${url}/api/v1/${p}`, { headers: { cookie: thermal } })).json()) as T;
+    const missions = await get<{ items: { id: string; name: string }[] }>('missions');
+    const mission = missions.items.find((m) => m.name.startsWith('Kestrel-1'))!;
+    const models = await get<{ items: { id: string; name: string }[] }>(`missions/${mission.id}/thermal-models`);
+    const model = models.items.find((m) => m.name === 'Kestrel-1 pumped loops, 2 loops')!;
+    const cases = await get<{ items: { id: string; kind: string }[] }>(`cases?missionId=${mission.id}&status=released`);
+    const leave = new AbortController();
+    const res = await fetch(`${url}/api/v1/thermal-models/${model.id}/distance-study`, {
+      method: 'POST', signal: leave.signal, headers: { cookie: thermal, 'content-type': 'application/json' },
+      body: JSON.stringify({ caseId: cases.items.find((c) => c.kind === 'hot')!.id, node: 'hull radiator', distancesAu: Array.from({ length: 12 }, (_, i) => 0.7 + i * 0.1) }),
+    });
+    expect(res.status).toBe(200);
+    const reader = res.body!.getReader();
+    let text = '';
+    while (!text.includes('"type":"point"')) text += new TextDecoder().decode((await reader.read()).value);
+    leave.abort();
+    const deadline = Date.now() + 20_000;
+    let line: string | undefined;
+    while (!(line = suite.server.output.find((l) => l.includes('distance study stopped'))) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 200));
+    expect(line).toBeDefined();
+    expect(Number(/"done":(\d+)/.exec(line ?? '')?.[1])).toBeLessThan(12);
+  }, 60_000);
 });
