@@ -1,13 +1,15 @@
 // Saved thermal models of a mission, their runs against load cases and their sizing
 // (shared/api/thermal-models.ts). The work and the role checks are in server/thermal/.
 import { Router } from 'express';
-import { thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, thermalRunRequest } from '../../shared/api/thermal-models';
+import { thermalDistanceStudyRequest, thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, thermalRunRequest } from '../../shared/api/thermal-models';
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
 import { answerForm, sendPerStep } from '../http/answer-formats';
 import { pathParam } from '../path-param';
+import { streamDistanceStudy } from '../thermal/thermal-distance-study';
 import { lastRun, runModel, sizeModel } from '../thermal/thermal-model-runs';
+import { whileClientWaits } from '../thermal/thermal-pool';
 import { createModel, deleteModel, getModel, listModels, updateModel } from '../thermal/thermal-model-store';
 
 export function thermalModelRoutes(ctx: AppContext): Router {
@@ -39,7 +41,7 @@ export function thermalModelRoutes(ctx: AppContext): Router {
   router.post('/thermal-models/:id/run', requireUser, async (req, res) => {
     const { caseId, maxOrbits } = parse(thermalRunRequest, req.body);
     const form = answerForm(req);
-    const run = runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits);
+    const run = await runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits, whileClientWaits(res));
     await sendPerStep(res, form, { answer: () => run, key: 'result', stepKey: 'tS' });
   });
 
@@ -49,9 +51,14 @@ export function thermalModelRoutes(ctx: AppContext): Router {
     await sendPerStep(res, form, { answer: () => run, key: 'result', stepKey: 'tS' });
   });
 
-  router.post('/thermal-models/:id/size', requireUser, (req, res) => {
+  router.post('/thermal-models/:id/size', requireUser, async (req, res) => {
     const body = parse(thermalModelSizeRequest, req.body);
-    res.json(sizeModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), body));
+    res.json(await sizeModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), body, whileClientWaits(res)));
+  });
+
+  router.post('/thermal-models/:id/distance-study', requireUser, async (req, res) => {
+    const body = parse(thermalDistanceStudyRequest, req.body);
+    await streamDistanceStudy(ctx.db, ctx.logger, signedIn(req).user.id, pathParam(req, 'id'), body, res);
   });
 
   return router;

@@ -5,6 +5,7 @@
 import type { ThermalSolveRequestInput } from '../../shared/api/thermal';
 import type { SavedThermalNode, ThermalModelContent, ThermalRunNodeInput } from '../../shared/api/thermal-models';
 import type { LoadCaseRow } from '../db/schema';
+import { absorbedAtScale } from '../../shared/physics/thermal-distance-study';
 import { unprocessable } from '../errors';
 
 export interface RunInputs {
@@ -66,7 +67,11 @@ function describeDissipation(d: SavedThermalNode['dissipationW']): string {
   return `${d.onW} W for ${d.onS} s every ${d.periodS} s${d.offW ? `, ${d.offW} W otherwise` : ''}`;
 }
 
-export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<string, string>, kase: LoadCaseRow): RunInputs {
+/**
+ * The solve request of `model` on `kase`. `solarScale` multiplies the case's solar and albedo loads
+ * (the distance study's Sun at another distance); planetary IR is kept as it is.
+ */
+export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<string, string>, kase: LoadCaseRow, solarScale = 1): RunInputs {
   const results = kase.results;
   const steps = results.tS.length;
   const byName = new Map(results.surfaces.map((s) => [s.name, s]));
@@ -92,7 +97,7 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
     const absorbed = new Array<number>(steps).fill(0);
     // an eccentric orbit's case is sampled unevenly in time (weightS): its loads are averaged into even steps
     const even = (series: number[]) => results.weightS ? resampleByTime(series, results.tS, results.periodS, steps) : resamplePeriodic(series, steps);
-    for (const s of owned) even(s.series.absorbedW).forEach((w, k) => (absorbed[k] = (absorbed[k] ?? 0) + w * factor));
+    for (const s of owned) even(solarScale === 1 ? s.series.absorbedW : absorbedAtScale(s.series, solarScale)).forEach((w, k) => (absorbed[k] = (absorbed[k] ?? 0) + w * factor));
     const areaM2 = owned.reduce((sum, s) => sum + s.areaM2, 0);
     // An explicit radiator replaces the surfaces' own; otherwise they radiate with their area-weighted emissivity.
     const explicit = node.radiatorAreaM2 !== undefined;

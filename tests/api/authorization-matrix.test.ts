@@ -120,6 +120,7 @@ const rules: Record<string, string> = {
   'POST /api/v1/thermal-models/:id/run': '401 ok ok ok 403 403 404',
   'GET /api/v1/thermal-models/:id/runs/:caseId': '401 ok ok ok ok ok 404',
   'POST /api/v1/thermal-models/:id/size': '401 ok ok ok 403 403 404',
+  'POST /api/v1/thermal-models/:id/distance-study': '401 ok ok ok 403 403 404',
   // the client's own pages: the same index.html for everyone (only when the client is built)
   'GET /{*splat}': 'ok ok ok ok ok ok ok',
 };

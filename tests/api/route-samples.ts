@@ -228,6 +228,7 @@ export function sampleBody(key: string, ids: SceneIds): unknown {
     'PATCH /api/v1/thermal-models/:id': { description: 'edited by the scene' },
     'POST /api/v1/thermal-models/:id/run': { caseId: ids.releasedCaseId },
     'POST /api/v1/thermal-models/:id/size': { caseHotId: ids.releasedCaseId, caseColdId: ids.releasedCaseId, node: 'bus' },
+    'POST /api/v1/thermal-models/:id/distance-study': { caseId: ids.releasedCaseId, node: 'bus', distancesAu: [1] },
   };
   return samples[key];
 }
