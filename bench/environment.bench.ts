@@ -4,7 +4,9 @@
 // their averages and peaks, the eclipse: what the numpy side computes - and (a') the same orbit
 // through computeEnvironment, the API's answer, which adds building 72,000 per-step objects that the
 // numpy side does not do; (b) a ten-year mission, one orbit a day (3653 orbits x 360 steps x 6
-// surfaces) with beta, eclipse and orbit-average loads through sweepMission. Each side is timed
+// surfaces) with beta, eclipse and orbit-average loads through sweepMission; (c), (d) the same about
+// Europa and the Moon with the planet's shadow, timed beside (b) and beside (b)'s figure before the
+// planet's shadow was added (no numpy side for those). Each side is timed
 // inside its own process (median of several runs after warm-up); the answers are compared so the
 // two cannot drift.
 import { spawnSync } from 'node:child_process';
@@ -38,7 +40,7 @@ const twenty: Surface[] = [
 ];
 const six = named.map((n, i) => panel(n, n, i));
 
-const caseA: EnvironmentRequest = {
+export const caseA: EnvironmentRequest = {
   bodyId: 'earth', orbit: { periapsisAltitudeKm: 550, apoapsisAltitudeKm: 550, inclinationDeg: 97.6, raanDeg: 30 },
   epoch: '2027-03-20T12:00:00Z', albedo: 0.3, olrWm2: 237, steps: 3600, surfaces: twenty,
 };
@@ -47,6 +49,19 @@ const caseB: MissionSweepRequest = {
   bodyId: 'earth', orbit: missionOrbit, epochStart: '2027-01-01T12:00:00Z', days: 3652, stepDays: 1, steps: 360,
   surfaces: six, albedo: 0.3, olrWm2: 237,
 };
+// (c) and (d): the same ten years about a moon, with the planet's shadow (parent-shadow.ts) searched every day.
+const caseC: MissionSweepRequest = {
+  ...caseB, bodyId: 'europa', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 85, raanDeg: 40 }, albedo: 0.68, olrWm2: 7,
+};
+const caseD: MissionSweepRequest = {
+  ...caseB, bodyId: 'moon', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 90, raanDeg: 40 }, albedo: 0.11, olrWm2: 300,
+};
+/**
+ * (b) before the planet's shadow and the moon's own position were added (commit dd2c64e), measured
+ * 2026-12-04 on the shared 2-core development machine, load average 4.1: the reference the moon
+ * sweeps (c), (d) must stay under twice of (issue 13).
+ */
+const SWEEP_BEFORE_MS = 109.2;
 
 /** Median and best wall-clock time of `repeats` runs after `warmUp` runs. */
 function timeRuns(run: () => unknown, warmUp: number, repeats: number): { median: number; best: number } {
@@ -75,7 +90,7 @@ const surfaceJob = (surfaces: Surface[]) => ({
   areaM2: surfaces.map((s) => s.areaM2), absorptivity: surfaces.map((s) => s.absorptivity), emissivity: surfaces.map((s) => s.emissivity),
 });
 
-function findNumpy(): string | null {
+export function findNumpy(): string | null {
   for (const python of ['python3', '/usr/bin/python3']) {
     const probe = spawnSync(python, ['-c', 'import numpy'], { encoding: 'utf8' });
     if (probe.status === 0) return python;
@@ -83,11 +98,32 @@ function findNumpy(): string | null {
   return null;
 }
 
-interface NumpyCase {
+export interface NumpyCase {
   name: string;
   medianMs: number;
   bestMs: number;
   result: Record<string, number[] | number[][]>;
+}
+
+/** Case (a) as a job for the numpy reference, run `repeats` times there. */
+export const orbitCaseJob = (repeats: number) => ({
+  name: 'a', kind: 'orbit', repeats, orbit: orbitJob(caseA.orbit), epochMs: Date.parse(caseA.epoch ?? ''), steps: caseA.steps,
+  albedo: 0.3, olrWm2: 237, ...surfaceJob(twenty),
+});
+
+/** Runs bench/reference/environment.py on the given cases; its medians, bests and results. */
+export function runNumpy(python: string, repeats: number, cases: object[]): { numpy: string; cases: NumpyCase[] } {
+  const job = {
+    repeats,
+    vsop: unwrapVsopModule(earthData),
+    obliquityDeg: OBLIQUITY_J2000_DEG, ttMinusUtcS: TT_MINUS_UTC_S, solarConstantWm2: SOLAR_CONSTANT_WM2, auKm: AU_KM, sunRadiusKm: SUN_RADIUS_KM,
+    body: { radiusKm: earth.radiusKm },
+    cases,
+  };
+  const script = path.join(path.dirname(fileURLToPath(import.meta.url)), 'reference', 'environment.py');
+  const run = spawnSync(python, [script], { input: JSON.stringify(job), encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
+  if (run.status !== 0) throw new Error(`the numpy reference failed: ${run.stderr}`);
+  return JSON.parse(run.stdout) as { numpy: string; cases: NumpyCase[] };
 }
 
 const maxRelative = (ours: number[], theirs: number[]): number =>
@@ -105,35 +141,31 @@ export default async function environmentBench(): Promise<BenchRow[]> {
   let resultB = sweepMission(caseB);
   const timeB = timeRuns(() => (resultB = sweepMission(caseB)), 2, repeats);
 
+  const timeC = timeRuns(() => sweepMission(caseC), 1, repeats);
+  const timeD = timeRuns(() => sweepMission(caseD), 1, repeats);
   const row = (name: string, time: { median: number; best: number }): BenchRow => ({ case: name, 'eclipta ms': time.median, 'eclipta best ms': time.best });
+  const moonRow = (name: string, time: { median: number; best: number }): BenchRow => ({
+    ...row(name, time),
+    'largest difference': `${(time.median / timeB.median).toFixed(2)}x (b) of this run; ${(time.median / SWEEP_BEFORE_MS).toFixed(2)}x (b) before the planet's shadow (${SWEEP_BEFORE_MS} ms)`,
+    'under 2x (b)': time.median < 2 * timeB.median ? 'yes' : 'NO',
+  });
+  const rowC = moonRow('(c) 10 years about Europa, as (b), with Jupiter\'s shadow', timeC);
+  const rowD = moonRow('(d) 10 years about the Moon, as (b), with Earth\'s shadow (lunar eclipses)', timeD);
   const rowA = row('(a) one orbit, 3600 steps x 20 surfaces: loads in arrays, averages, peaks, eclipse', timeA);
   const rowAnswer = row("(a') the same, as the API answer: (a) plus building 72,000 per-step objects (numpy builds none)", timeAnswer);
   const rowB = row('(b) 10 years, 3653 orbits x 360 steps x 6 surfaces', timeB);
   const python = findNumpy();
   if (!python) {
     rowA['numpy ms'] = rowAnswer['numpy ms'] = rowB['numpy ms'] = 'skipped: no python3 with numpy on PATH or at /usr/bin/python3';
-    return [rowA, rowAnswer, rowB];
+    return [rowA, rowAnswer, rowB, rowC, rowD];
   }
-  const job = {
-    repeats,
-    vsop: unwrapVsopModule(earthData),
-    obliquityDeg: OBLIQUITY_J2000_DEG, ttMinusUtcS: TT_MINUS_UTC_S, solarConstantWm2: SOLAR_CONSTANT_WM2, auKm: AU_KM, sunRadiusKm: SUN_RADIUS_KM,
-    body: { radiusKm: earth.radiusKm },
-    cases: [
-      {
-        name: 'a', kind: 'orbit', repeats: repeatsA, orbit: orbitJob(caseA.orbit), epochMs: Date.parse(caseA.epoch ?? ''), steps: caseA.steps,
-        albedo: 0.3, olrWm2: 237, ...surfaceJob(twenty),
-      },
-      {
-        name: 'b', kind: 'sweep', orbit: orbitJob(missionOrbit), startMs: Date.parse(String(caseB.epochStart)), orbitEpochMs: Date.parse(String(caseB.epochStart)),
-        rows: resultB.rows.length, stepDays: 1, nodeDays: sunTrackNodeDays(earth), steps: 360, albedo: 0.3, olrWm2: 237, ...surfaceJob(six),
-      },
-    ],
-  };
-  const script = path.join(path.dirname(fileURLToPath(import.meta.url)), 'reference', 'environment.py');
-  const run = spawnSync(python, [script], { input: JSON.stringify(job), encoding: 'utf8', maxBuffer: 256 * 1024 * 1024 });
-  if (run.status !== 0) throw new Error(`the numpy reference failed: ${run.stderr}`);
-  const answer = JSON.parse(run.stdout) as { numpy: string; cases: NumpyCase[] };
+  const answer = runNumpy(python, repeats, [
+    orbitCaseJob(repeatsA),
+    {
+      name: 'b', kind: 'sweep', orbit: orbitJob(missionOrbit), startMs: Date.parse(String(caseB.epochStart)), orbitEpochMs: Date.parse(String(caseB.epochStart)),
+      rows: resultB.rows.length, stepDays: 1, nodeDays: sunTrackNodeDays(earth), steps: 360, albedo: 0.3, olrWm2: 237, ...surfaceJob(six),
+    },
+  ]);
   const [a, b] = answer.cases;
 
   // Every average and peak of every surface, and the eclipse, against numpy's.
@@ -163,5 +195,5 @@ export default async function environmentBench(): Promise<BenchRow[]> {
   rowB['under 1 s'] = timeB.median < 1000 ? 'yes' : 'NO';
   const note = `numpy ${answer.numpy} (${python}), node ${process.version}, median and best of ${repeats} runs (a and a': ${repeatsA} on each side), ` +
     `ms of wall clock, load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores`;
-  return [rowA, rowAnswer, rowB, { case: note }];
+  return [rowA, rowAnswer, rowB, rowC, rowD, { case: note }];
 }

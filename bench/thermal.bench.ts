@@ -19,7 +19,7 @@ const TOLERANCE_K = 0.01;
 const RTOL = 1e-5;
 const ATOL_K = 1e-3;
 
-function scipyAvailable(): string | null {
+export function scipyAvailable(): string | null {
   const probe = spawnSync('python3', ['-c', 'import scipy, numpy'], { encoding: 'utf8' });
   if (probe.error) return 'python3 is not installed';
   if (probe.status !== 0) return 'python3 has no scipy/numpy';

@@ -1,6 +1,7 @@
-// Builds the Angular client into dist/client/browser unless the build is newer than every source file.
+// Builds the Angular client into dist/client/browser (and its .br/.gz copies) unless the build is newer than every source file.
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
+import { compressClient } from './compress-client.mjs';
 import { run } from './run.mjs';
 
 const output = 'dist/client/browser/index.html';
@@ -27,4 +28,5 @@ export async function buildClientIfStale() {
   }
   console.log('building the client (about a minute)');
   await run('npx', ['ng', 'build'], { env: { ...process.env, NG_CLI_ANALYTICS: 'false' } });
+  compressClient();
 }

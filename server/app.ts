@@ -2,17 +2,18 @@
 import express, { Router, type Express } from 'express';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
-import { existsSync } from 'node:fs';
-import path from 'node:path';
 import type { AppContext } from './app-context';
 import { authenticate } from './auth/middleware';
 import { apiNotFound, errorMiddleware } from './errors';
 import { jsonBody } from './json-body';
 import { bodyIdleTimeout } from './request-timeouts';
+import { compressAnswers } from './http/answer-compression';
+import { clientFiles, hasClient } from './http/client-files';
 import { adminRoutes } from './routes/admin';
 import { authRoutes } from './routes/auth';
 import { caseRoutes } from './routes/cases';
 import { environmentRoutes } from './routes/environment';
+import { environmentTableRoutes } from './routes/environment-table';
 import { ephemerisRoutes } from './routes/ephemerides';
 import { invitationRoutes } from './routes/invitations';
 import { materialRoutes } from './routes/materials';
@@ -39,6 +40,7 @@ export const featureRoutes: FeatureRoutes[] = [
   orbitRoutes,
   surfaceRoutes,
   materialRoutes,
+  environmentTableRoutes,
   ephemerisRoutes,
   caseRoutes,
   thermalModelRoutes,
@@ -94,6 +96,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
     res.json({ status: 'ok' });
   });
 
+  app.use('/api', compressAnswers);
   const api = Router();
   api.use(bodyIdleTimeout(ctx.config));
   api.use(jsonBody());
@@ -104,15 +107,7 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   app.use('/api', apiNotFound);
 
   const clientDir = options.clientDir ?? ctx.config.clientDir;
-  const indexHtml = path.join(clientDir, 'index.html');
-  if (existsSync(indexHtml)) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    // The client's own routes (/missions/…, /invite/<token>) all load the same page.
-    app.get('/{*splat}', (_req, res) => {
-      res.set('Cache-Control', 'no-cache');
-      res.sendFile(indexHtml);
-    });
-  }
+  if (hasClient(clientDir)) app.use(clientFiles(clientDir));
 
   app.use(errorMiddleware(ctx.logger));
   return app;

@@ -25,8 +25,7 @@ from scipy.integrate import solve_ivp
 from scipy.sparse import csc_matrix
 from scipy.sparse.linalg import splu
 
-SIGMA = 5.670374419e-8  # Stefan-Boltzmann, CODATA 2018
-K0 = 273.15
+from network import K0, network
 
 
 def main(path):
@@ -36,25 +35,10 @@ def main(path):
     atol = model.get('atolK', 1e-3)
     tol = model.get('toleranceK', 0.01)
     max_orbits = model.get('maxOrbits', 200)
-    nodes = model['nodes']
-    n = len(nodes)
-    index = {node['name']: i for i, node in enumerate(nodes)}
-    steps = model['steps']
-    period = model['periodS']
-    cap = np.array([node['capacitanceJK'] for node in nodes], float)
-    rad = np.array([SIGMA * node.get('radiatorAreaM2', 0) * node.get('emissivity', 0) for node in nodes])
-    diss = np.array([float(node.get('dissipationW', 0)) for node in nodes])
-    absorbed = np.zeros((n, steps))
-    for i, node in enumerate(nodes):
-        a = node.get('absorbedW', 0)
-        absorbed[i, :] = a if isinstance(a, (int, float)) else np.array(a, float)
-    ea, eb, eg, er = [], [], [], []
-    for c in model.get('couplings', []):
-        ea.append(index[c['from']]); eb.append(index[c['to']]); eg.append(c['conductanceWK']); er.append(0.0)
-    for c in model.get('radiativeCouplings', []):
-        ea.append(index[c['from']]); eb.append(index[c['to']]); eg.append(0.0)
-        er.append(SIGMA * c['areaM2'] * c['effectiveEmissivity'] * c['viewFactor'])
-    ea, eb, eg, er = np.array(ea), np.array(eb), np.array(eg), np.array(er)
+    net = network(model)
+    nodes, n, index, steps, period = net.nodes, net.n, net.index, net.steps, net.period
+    cap, rad, diss, absorbed = net.cap, net.rad, net.diss, net.absorbed
+    ea, eb, eg, er = net.ea, net.eb, net.eg, net.er
     heaters = model.get('heaters', [])
     hn = np.array([index[h['node']] for h in heaters], int)
     hp = np.array([h['powerW'] for h in heaters], float)

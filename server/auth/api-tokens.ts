@@ -1,8 +1,9 @@
 // Personal API tokens: "ecl_" + 32 random bytes (base64url), stored as SHA-256 hex only.
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import type { ApiToken } from '../../shared/api/auth';
 import type { Db } from '../db/database';
-import { apiTokens, type ApiTokenRow } from '../db/schema';
+import { preparedPer } from '../db/prepared';
+import { apiTokens, users, type ApiTokenRow, type UserRow } from '../db/schema';
 import { newSecret, sha256Hex } from './secret-tokens';
 
 export const tokenPrefix = 'ecl_';
@@ -36,22 +37,47 @@ export function createApiToken(
 }
 
 export type TokenLookup =
-  | { ok: true; row: ApiTokenRow }
+  | { ok: true; row: ApiTokenRow; user: UserRow }
   | { ok: false; reason: 'unknown' | 'revoked' | 'expired' };
 
+const tokenWithUser = preparedPer((db: Db) =>
+  db
+    .select({ row: apiTokens, user: users })
+    .from(apiTokens)
+    .innerJoin(users, eq(users.id, apiTokens.userId))
+    .where(eq(apiTokens.tokenHash, sql.placeholder('hash')))
+    .prepare(),
+);
+
+/**
+ * The token of a secret and its owner, read from the database on every request (one prepared
+ * query, no cache), so a revoked token is refused at once.
+ */
 export function findApiToken(db: Db, secret: string, now = new Date()): TokenLookup {
-  const row = db.select().from(apiTokens).where(eq(apiTokens.tokenHash, sha256Hex(secret))).get();
-  if (!row) return { ok: false, reason: 'unknown' };
+  const found = tokenWithUser(db).get({ hash: sha256Hex(secret) });
+  if (!found) return { ok: false, reason: 'unknown' };
+  const { row, user } = found;
   if (row.revokedAt) return { ok: false, reason: 'revoked' };
   if (row.expiresAt && Date.parse(row.expiresAt) <= now.getTime()) return { ok: false, reason: 'expired' };
-  return { ok: true, row };
+  return { ok: true, row, user };
 }
 
-/** Records use at most once a minute, so a busy script does not turn every read into a write. */
+/** How long a token's recorded last use may lag behind its real last use. */
+export const tokenUseResolutionMs = 60_000;
+
+const recordTokenUse = preparedPer((db: Db) =>
+  db
+    .update(apiTokens)
+    .set({ lastUsedAt: sql`${sql.placeholder('at')}` })
+    .where(eq(apiTokens.id, sql.placeholder('id')))
+    .prepare(),
+);
+
+/**
+ * Records use at most once a minute, so a busy script does not turn every read into a write: the
+ * row read for this request says when use was last recorded.
+ */
 export function touchApiToken(db: Db, row: ApiTokenRow, now = new Date()): void {
-  if (row.lastUsedAt && now.getTime() - Date.parse(row.lastUsedAt) < 60_000) return;
-  db.update(apiTokens)
-    .set({ lastUsedAt: now.toISOString() })
-    .where(eq(apiTokens.id, row.id))
-    .run();
+  if (row.lastUsedAt && now.getTime() - Date.parse(row.lastUsedAt) < tokenUseResolutionMs) return;
+  recordTokenUse(db).run({ at: now.toISOString(), id: row.id });
 }

@@ -1,17 +1,22 @@
 // The answer of auth/me, sign-in and invitation acceptance: the user, their workspaces, how they came in.
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, sql } from 'drizzle-orm';
 import type { MeResponse, MembershipSummary } from '../../shared/api/auth';
 import type { Db } from '../db/database';
+import { preparedPer } from '../db/prepared';
 import { memberships, workspaces, type UserRow } from '../db/schema';
 
-export function userWorkspaces(db: Db, userId: string): MembershipSummary[] {
-  return db
+const workspacesOfUser = preparedPer((db: Db) =>
+  db
     .select({ workspaceId: workspaces.id, workspaceName: workspaces.name, role: memberships.role })
     .from(memberships)
     .innerJoin(workspaces, eq(workspaces.id, memberships.workspaceId))
-    .where(eq(memberships.userId, userId))
+    .where(eq(memberships.userId, sql.placeholder('userId')))
     .orderBy(asc(workspaces.name))
-    .all();
+    .prepare(),
+);
+
+export function userWorkspaces(db: Db, userId: string): MembershipSummary[] {
+  return workspacesOfUser(db).all({ userId });
 }
 
 export function meResponse(db: Db, user: UserRow, auth: MeResponse['auth']): MeResponse {

@@ -1,12 +1,13 @@
 // Who is calling, and may they: authentication (session cookie or personal API token), the
 // cross-site check for cookie-borne changes, and the workspace membership and role checks.
 import type { Request, RequestHandler } from 'express';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { Role } from '../../shared/api/workspaces';
 import type { AppContext } from '../app-context';
 import { pathParam } from '../path-param';
 import type { DbOrTx } from '../db/database';
-import { memberships, users } from '../db/schema';
+import { preparedPer } from '../db/prepared';
+import { memberships } from '../db/schema';
 import { ApiError, forbidden, notFound, unauthorized } from '../errors';
 import { findApiToken, tokenPrefix, touchApiToken } from './api-tokens';
 import type { RequestAuth } from './request-auth';
@@ -67,8 +68,7 @@ export function authenticate(ctx: AppContext): RequestHandler {
     if (secret !== null) {
       const found = secret.startsWith(tokenPrefix) ? findApiToken(ctx.db, secret) : ({ ok: false, reason: 'unknown' } as const);
       if (!found.ok) throw new ApiError(401, 'invalid_token', tokenProblems[found.reason]);
-      const user = ctx.db.select().from(users).where(eq(users.id, found.row.userId)).get();
-      if (!user) throw new ApiError(401, 'invalid_token', tokenProblems.unknown);
+      const user = found.user;
       if (found.row.readOnly && req.method !== 'GET' && req.method !== 'HEAD') {
         throw forbidden('This API token is read-only.', 'read_only_token');
       }
@@ -128,13 +128,17 @@ export const requireAdminSession: RequestHandler = (req, res, next) => {
   requireAdmin(req, res, next);
 };
 
-/** The user's role in a workspace, or null when they are not a member (inside a transaction too). */
-export function memberRole(db: DbOrTx, userId: string, workspaceId: string): Role | null {
-  const row = db
+const membershipRole = preparedPer((db: DbOrTx) =>
+  db
     .select({ role: memberships.role })
     .from(memberships)
-    .where(and(eq(memberships.userId, userId), eq(memberships.workspaceId, workspaceId)))
-    .get();
+    .where(and(eq(memberships.userId, sql.placeholder('userId')), eq(memberships.workspaceId, sql.placeholder('workspaceId'))))
+    .prepare(),
+);
+
+/** The user's role in a workspace, or null when they are not a member (inside a transaction too). */
+export function memberRole(db: DbOrTx, userId: string, workspaceId: string): Role | null {
+  const row = membershipRole(db).get({ userId, workspaceId });
   return row ? row.role : null;
 }
 

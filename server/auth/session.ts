@@ -3,10 +3,12 @@
 // the session is still open, so sign-out and a password reset end it on the server, for every
 // server process that shares the database.
 import type { CookieOptions, Response } from 'express';
-import { and, eq, isNull, lt } from 'drizzle-orm';
+import { and, eq, isNull, lt, sql } from 'drizzle-orm';
 import jwt from 'jsonwebtoken';
+import { createSecretKey, type KeyObject } from 'node:crypto';
 import type { AppContext } from '../app-context';
 import type { Db, DbOrTx } from '../db/database';
+import { preparedPer } from '../db/prepared';
 import { sessions, users, type UserRow } from '../db/schema';
 
 export const sessionCookie = 'eclipta_session';
@@ -20,6 +22,26 @@ function cookieOptions(ctx: AppContext): CookieOptions {
   };
 }
 
+interface SigningKey {
+  key: KeyObject;
+  /** Tokens whose signature this key has checked, with their claims and expiry (ms since 1970). */
+  checked: Map<string, { claims: SessionClaims; expiresAtMs: number }>;
+}
+
+// The signing key as a key object, made once per secret: given the secret as a string, jsonwebtoken
+// first tries (and fails) to read it as a public key on every call, about a millisecond per request.
+const signingKeys = new Map<string, SigningKey>();
+function signingKey(secret: string): SigningKey {
+  let key = signingKeys.get(secret);
+  if (key === undefined) {
+    key = { key: createSecretKey(Buffer.from(secret, 'utf8')), checked: new Map() };
+    signingKeys.set(secret, key);
+  }
+  return key;
+}
+/** How many checked signatures are remembered per key before the memory is emptied. */
+const checkedTokensKept = 10_000;
+
 /** Opens a session row for the user and sets its cookie. */
 export function startSession(ctx: AppContext, res: Response, user: UserRow): void {
   const hours = ctx.config.sessionHours;
@@ -31,7 +53,7 @@ export function startSession(ctx: AppContext, res: Response, user: UserRow): voi
     .values({ userId: user.id, expiresAt: new Date(now + hours * 3600 * 1000).toISOString() })
     .returning()
     .get();
-  const token = jwt.sign({ sid: row.id }, ctx.jwtSecret, {
+  const token = jwt.sign({ sid: row.id }, signingKey(ctx.jwtSecret).key, {
     algorithm: 'HS256',
     subject: user.id,
     expiresIn: Math.round(hours * 3600),
@@ -55,25 +77,49 @@ export interface SessionClaims {
   sessionId: string;
 }
 
-/** The claims of a well-signed, unexpired session token, or null for a forged, expired or malformed one. */
-export function readSession(ctx: AppContext, token: string): SessionClaims | null {
+/**
+ * The claims of a well-signed, unexpired session token, or null for a forged, expired or malformed
+ * one. A token whose signature was checked before is not checked again until it expires: only the
+ * signature and the expiry are remembered, never whether the session is open (sessionUser reads
+ * the row on every request, so sign-out and a reset still end the session at once).
+ */
+export function readSession(ctx: AppContext, token: string, now = Date.now()): SessionClaims | null {
+  const signing = signingKey(ctx.jwtSecret);
+  const known = signing.checked.get(token);
+  if (known !== undefined) {
+    if (now < known.expiresAtMs) return known.claims;
+    signing.checked.delete(token);
+    return null;
+  }
   try {
-    const payload = jwt.verify(token, ctx.jwtSecret, { algorithms: ['HS256'] });
+    const payload = jwt.verify(token, signing.key, { algorithms: ['HS256'] });
     if (typeof payload === 'string' || typeof payload.sub !== 'string' || typeof payload['sid'] !== 'string') return null;
-    return { userId: payload.sub, sessionId: payload['sid'] };
+    const claims = { userId: payload.sub, sessionId: payload['sid'] };
+    if (typeof payload.exp === 'number') {
+      if (signing.checked.size >= checkedTokensKept) signing.checked.clear();
+      signing.checked.set(token, { claims, expiresAtMs: payload.exp * 1000 });
+    }
+    return claims;
   } catch {
     return null;
   }
 }
 
-/** The user of an open, unexpired session row matching the claims; undefined otherwise. */
-export function sessionUser(db: Db, claims: SessionClaims, now = new Date()): UserRow | undefined {
-  const found = db
+const openSessionUser = preparedPer((db: Db) =>
+  db
     .select({ user: users, expiresAt: sessions.expiresAt })
     .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
-    .where(and(eq(sessions.id, claims.sessionId), eq(sessions.userId, claims.userId), isNull(sessions.endedAt)))
-    .get();
+    .where(and(eq(sessions.id, sql.placeholder('sessionId')), eq(sessions.userId, sql.placeholder('userId')), isNull(sessions.endedAt)))
+    .prepare(),
+);
+
+/**
+ * The user of an open, unexpired session row matching the claims; undefined otherwise. Read from
+ * the database on every request (one prepared query, no cache), so an ended session is refused at once.
+ */
+export function sessionUser(db: Db, claims: SessionClaims, now = new Date()): UserRow | undefined {
+  const found = openSessionUser(db).get({ sessionId: claims.sessionId, userId: claims.userId });
   if (!found || Date.parse(found.expiresAt) <= now.getTime()) return undefined;
   return found.user;
 }

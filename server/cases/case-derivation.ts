@@ -7,22 +7,24 @@ import { whyRecordOf, type CaseInputs, type StoredConditions } from '../../share
 import { caseRationale } from '../../shared/physics/case-why';
 import { surfaceNormal } from '../../shared/api/missions';
 import { getBody, solarDistanceRangeAu, type Body } from '../../shared/physics/bodies';
-import { deriveDesignCases, evaluateCase, type CaseSurface } from '../../shared/physics/design-cases';
+import { ECCENTRIC_SAMPLING_FROM, caseModelAssumptions, deriveDesignCases, evaluateCase, type CaseConditions, type CaseSurface } from '../../shared/physics/design-cases';
 import { designPairs, resolveMargins, type Margins } from '../../shared/physics/design-environment';
 import { raanOnDateRad, scanMission } from '../../shared/physics/design-scan';
 import { defineOrbit } from '../../shared/physics/orbit-definition';
+import { pairsFromTable } from '../../shared/physics/environment-table';
 import { DEG } from '../../shared/physics/vector3';
 import type { AppContext } from '../app-context';
 import type { Db } from '../db/database';
 import { recordAudit } from '../audit/audit-log';
+import { environmentTableRowsOf } from '../environment/environment-table-store';
 import { loadCases, materials, orbits, surfaces, type LoadCaseRow, type MissionRow, type OrbitRow, type UserRow } from '../db/schema';
 import { notFound, unprocessable } from '../errors';
 import { limitWork, MAX_CASE_SAMPLES } from '../work-limit';
 
-export const caseAssumptions = [
+/** A case's assumptions: the fixed ones and the albedo, IR and sampling models its conditions use. */
+export const caseAssumptions = (conditions: CaseConditions): string[] => [
   'eclipseFraction counts umbra plus half of penumbra (conical shadow, Sun as a uniform disk, no atmosphere)',
-  'albedo load = S * albedo * F * cos(solar zenith at the sub-spacecraft point) on the sunlit side: a common engineering approximation',
-  'planetary IR = OLR * F, with F the plate-to-sphere view factor (Howell catalogue)',
+  ...caseModelAssumptions(conditions),
   'surfaces are flat plates fixed in the local orbital frame (x ram, y orbit normal, z zenith) or pointed at the Sun; no shadowing between them',
   'the worst Sun distance and the worst beta are combined even when they fall on different days (conservative)',
   'the Sun is held fixed over the orbit; tS counts from periapsis (from the ascending node for a circular orbit)',
@@ -126,10 +128,15 @@ export function pairWords(body: Body, inclinationDeg: number, albedo: number, ol
   };
 }
 
+/** The columns copied out of a case's results, to be written with the results every time. */
+export function resultSummary(results: LoadCaseRow['results']): Pick<LoadCaseRow, 'orbitAverageAbsorbedW' | 'betaDeg'> {
+  return { orbitAverageAbsorbedW: results.total.orbitAverageAbsorbedW, betaDeg: results.betaDeg };
+}
+
 export function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: UserRow, values: DraftValues): LoadCaseRow {
   return tx
     .insert(loadCases)
-    .values({ ...values, missionId: mission.id, workspaceId: mission.workspaceId, seriesId: randomUUID(), revision: 1, status: 'draft', authorId: user.id })
+    .values({ ...values, ...resultSummary(values.results), missionId: mission.id, workspaceId: mission.workspaceId, seriesId: randomUUID(), revision: 1, status: 'draft', authorId: user.id })
     .returning()
     .get();
 }
@@ -141,6 +148,8 @@ export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, i
   const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId, input.steps);
   const margins: Margins = resolveMargins(input.margins);
   const pair = (p: { albedo: number; olrWm2: number; source: string } | undefined) => (p ? { ...p, provisional: false } : undefined);
+  // the workspace's own table, where a row holds for the body and the orbit's inclination, over the built-in pairs
+  const table = pairsFromTable(environmentTableRowsOf(db, mission.workspaceId), getBody(mission.bodyId), orbit.inclinationDeg, input.averagingTimeS);
   const derivation = deriveDesignCases({
     bodyId: mission.bodyId,
     orbit: canonicalOrbit(orbit),
@@ -150,7 +159,7 @@ export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, i
     surfaces: list,
     margins,
     properties: input.properties,
-    environment: { hot: pair(input.environment?.hot), cold: pair(input.environment?.cold) },
+    environment: { hot: pair(input.environment?.hot) ?? table?.hot, cold: pair(input.environment?.cold) ?? table?.cold },
     steps: input.steps,
   });
   const prefix = input.name ?? `${mission.name} ${orbit.name}`;
@@ -168,7 +177,7 @@ export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, i
       rationale: c.rationale,
       surfaceDrivers: c.surfaceDrivers,
       scan: derivation.scan,
-      assumptions: caseAssumptions,
+      assumptions: caseAssumptions(c.conditions),
     },
     results: c.results,
   }));
@@ -207,6 +216,11 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
     betaDeg: input.betaDeg ?? day.betaDeg, solarDistanceAu: input.solarDistanceAu ?? day.solarDistanceAu,
     albedo: input.albedo ?? body.albedo.nominal, olrWm2: input.olrWm2 ?? body.olrWm2.nominal,
     properties: input.properties, marginDirection: input.marginDirection, steps: input.steps, surfaces: pointed,
+    // an airless body's IR comes from its surface temperature field unless the user gave an OLR
+    ...(body.airless && input.olrWm2 === undefined
+      ? { surfaceField: { emissivity: body.airless.emissivity.nominal, nightFloorK: body.airless.nightFloorK.nominal } }
+      : {}),
+    ...(elements.eccentricity >= ECCENTRIC_SAMPLING_FROM ? { sampling: 'eccentric-anomaly' as const } : {}),
   };
   const pair = pairWords(body, orbit.inclinationDeg, conditions.albedo, conditions.olrWm2, input.albedo !== undefined || input.olrWm2 !== undefined);
   const given = (v: unknown, what: string, fallback: string) => (v === undefined ? fallback : `${what} given by the user`);
@@ -227,7 +241,7 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
     rationale: [],
     surfaceDrivers: [],
     scan: null,
-    assumptions: caseAssumptions,
+    assumptions: caseAssumptions(conditions),
   };
   const results = evaluateCase(conditions, margins);
   return ctx.db.transaction((tx) => {

@@ -14,7 +14,7 @@ import { auditEvents, caseComments, caseSubscriptions, loadCases, missions, user
 import { ApiError, conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
-import { attitudeText, limitCaseWork } from './case-derivation';
+import { attitudeText, limitCaseWork, resultSummary } from './case-derivation';
 import { caseReleasedMail } from './case-mail';
 import { withMargins } from './ephemeris-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
@@ -82,7 +82,7 @@ export function updateCase(ctx: AppContext, user: UserRow, row: LoadCaseRow, cha
   return ctx.db.transaction((tx) => {
     const updated = tx
       .update(loadCases)
-      .set({ name: change.name ?? row.name, inputs, results, version: nextVersion, updatedAt: new Date().toISOString() })
+      .set({ name: change.name ?? row.name, inputs, results, ...resultSummary(results), version: nextVersion, updatedAt: new Date().toISOString() })
       .where(and(eq(loadCases.id, row.id), eq(loadCases.status, 'draft'), eq(loadCases.version, row.version)))
       .returning()
       .get();
@@ -220,7 +220,7 @@ export function newRevision(ctx: AppContext, user: UserRow, row: LoadCaseRow, re
       .insert(loadCases)
       .values({
         missionId: row.missionId, workspaceId: row.workspaceId, seriesId: row.seriesId, revision: (top?.n ?? row.revision) + 1,
-        name: row.name, kind: row.kind, status: 'draft', inputs, results: fresh.results, authorId: user.id,
+        name: row.name, kind: row.kind, status: 'draft', inputs, results: fresh.results, ...resultSummary(fresh.results), authorId: user.id,
       })
       .returning()
       .get();

@@ -156,3 +156,4 @@ export * from './mission-tables';
 export * from './ephemeris-tables';
 export * from './case-tables';
 export * from './thermal-tables';
+export * from './environment-tables';

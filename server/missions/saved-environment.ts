@@ -4,6 +4,7 @@ import { asc, eq, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { EnvironmentResponse } from '../../shared/api/environment';
 import type { savedEnvironmentRequest } from '../../shared/api/missions';
+import { ECCENTRIC_SAMPLING_FROM } from '../../shared/physics/design-cases';
 import { computeEnvironment, type EnvironmentRequest } from '../../shared/physics/environment';
 import type { OrbitInput } from '../../shared/physics/orbit-definition';
 import type { Db } from '../db/database';
@@ -70,6 +71,8 @@ export function savedEnvironment(db: Db, mission: MissionRow, orbit: OrbitRow, r
     orbit: savedOrbitInput(orbit),
     epoch: orbit.epoch,
     steps: request.steps,
+    // a saved eccentric orbit is plotted with its periapsis pass resolved
+    sampling: request.sampling ?? (orbit.eccentricity >= ECCENTRIC_SAMPLING_FROM ? 'eccentric-anomaly' : 'time'),
     surfaces: list.map((s) => s.physics),
     ...(request.betaDeg !== undefined ? { betaDeg: request.betaDeg } : {}),
     ...(request.albedo !== undefined ? { albedo: request.albedo } : {}),

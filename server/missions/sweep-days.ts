@@ -77,6 +77,9 @@ export function sweepChunkComputer(mission: MissionRow, orbit: OrbitRow, plan: S
       solarDistanceAu: row.solarDistanceAu,
       solarFluxWm2: row.solarFluxWm2,
       surfaces: row.surfaces.map((load, j) => ({ surfaceId: surfaces[j]?.label.id ?? '', name: load.name, absorbedW: load.absorbedW })),
+      longestShadowS: row.longestShadowS,
+      longestShadowCastBy: row.longestShadowCastBy,
+      longestShadowStart: row.longestShadowStart,
     }));
   };
 }

@@ -24,6 +24,8 @@ export function csvHeader(surfaces: readonly MissionSurface[]): string {
     'solar distance (AU)',
     'solar flux (W/m^2)',
     ...surfaces.map((s) => `${s.label.name} absorbed, orbit average (W)`),
+    'longest shadow (s)',
+    'longest shadow cast by',
     'caution',
   ]);
 }
@@ -37,6 +39,8 @@ const csvDay = (day: SweepDay, caution: string): string =>
     day.solarDistanceAu,
     day.solarFluxWm2,
     ...day.surfaces.map((s) => s.absorbedW),
+    day.longestShadowS,
+    day.longestShadowCastBy.join(' and '),
     caution,
   ]);
 
@@ -96,6 +100,7 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
     res.type('application/x-ndjson; charset=utf-8');
     res.write(ndjson({ type: 'start', days: plan.days, from: plan.from, to: plan.to, stepDays: plan.stepDays }));
   }
+  res.flush?.();
 
   for (let start = 0; start < plan.days; start += DAYS_PER_CHUNK) {
     if (gone) {
@@ -114,9 +119,22 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
       else res.destroy();
       return;
     }
-    if (!res.write(chunk)) await drained(res);
+    const more = res.write(chunk);
+    // Under compression (server/http/answer-compression.ts) the chunk leaves now, not when the compressor's buffer fills.
+    res.flush?.();
+    if (!more) await drained(res);
     await nextTurn();
   }
   if (gone) return;
   res.end(format === 'ndjson' ? ndjson({ type: 'end', days: plan.days }) : undefined);
+}
+
+/** Every day of a sweep in one list, computed a chunk at a time with a turn of the event loop between chunks. */
+export async function collectSweep(plan: SweepPlan, computeDays: (first: number, count: number) => SweepDay[]): Promise<Omit<SweepDay, 'type'>[]> {
+  const days: Omit<SweepDay, 'type'>[] = [];
+  for (let start = 0; start < plan.days; start += DAYS_PER_CHUNK) {
+    for (const { type: _line, ...day } of computeDays(start, Math.min(DAYS_PER_CHUNK, plan.days - start))) days.push(day);
+    await nextTurn();
+  }
+  return days;
 }

@@ -22,4 +22,6 @@ export interface ApiRoute {
   response?: ZodType;
   /** Media type of the answer when it is not JSON (text/csv, application/x-ndjson). */
   produces?: string[];
+  /** Per-step results: also answered as columnar JSON (?layout=columns) and as an Apache Arrow stream (API.md "Answer formats"). */
+  perStep?: true;
 }

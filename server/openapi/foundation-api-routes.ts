@@ -35,5 +35,5 @@ export const foundationApiRoutes: ApiRoute[] = [
   { method: 'get', path: `${v1}/admin/mail`, tag: 'admin', summary: 'Mail received by the fake SMTP server (instance administrator, signed in; no API token)', response: items(mailSummary) },
   { method: 'get', path: `${v1}/admin/mail/:id`, tag: 'admin', summary: 'One received mail, invitation and reset links hidden unless ECLIPTA_OUTBOX_LINKS=shown (instance administrator, signed in; no API token)', response: mailMessage },
   { method: 'get', path: `${v1}/bodies`, tag: 'environment', summary: 'The body catalogue with sources', response: bodiesResponse },
-  { method: 'post', path: `${v1}/environment/compute`, tag: 'environment', summary: 'One orbit’s thermal environment (stateless)', body: environmentRequest, response: environmentResponse },
+  { method: 'post', path: `${v1}/environment/compute`, tag: 'environment', summary: 'One orbit’s thermal environment (stateless)', body: environmentRequest, response: environmentResponse, perStep: true },
 ];

@@ -6,6 +6,7 @@ import {
 } from '../../shared/api/ephemerides';
 import { caseDetail } from '../../shared/api/cases';
 import { environmentResponse } from '../../shared/api/environment';
+import { environmentTable, environmentTablePut } from '../../shared/api/environment-table';
 import {
   material, materialCreate, materialUpdate, mission, missionCreate, missionDetail, missionUpdate, orbit, orbitCreate, orbitUpdate,
   savedEnvironmentRequest, surface, surfaceCreate, surfaceUpdate, sweepQuery,
@@ -28,7 +29,7 @@ export const missionApiRoutes: ApiRoute[] = [
   { method: 'patch', path: `${m}/orbits/:orbitId`, tag: 'orbits', summary: 'Change an orbit', body: orbitUpdate, response: orbit },
   { method: 'delete', path: `${m}/orbits/:orbitId`, tag: 'orbits', summary: 'Delete an orbit', status: 204 },
   { method: 'post', path: `${m}/orbits/:orbitId/environment`, tag: 'orbits', summary: 'The environment of a saved orbit on the mission’s surfaces', body: savedEnvironmentRequest, response: environmentResponse },
-  { method: 'get', path: `${m}/orbits/:orbitId/sweep`, tag: 'orbits', summary: 'Beta, eclipse, Sun distance and loads day by day (NDJSON, or CSV)', query: sweepQuery, produces: ['application/x-ndjson', 'text/csv'] },
+  { method: 'get', path: `${m}/orbits/:orbitId/sweep`, tag: 'orbits', summary: 'Beta, eclipse, Sun distance and loads day by day (NDJSON, or CSV; columnar JSON or Arrow all at once)', query: sweepQuery, produces: ['application/x-ndjson', 'text/csv'], perStep: true },
   { method: 'get', path: `${m}/surfaces`, tag: 'surfaces', summary: 'A mission’s spacecraft surfaces', response: items(surface) },
   { method: 'post', path: `${m}/surfaces`, tag: 'surfaces', summary: 'Add a surface', body: surfaceCreate, status: 201, response: surface },
   { method: 'patch', path: `${m}/surfaces/:surfaceId`, tag: 'surfaces', summary: 'Change a surface', body: surfaceUpdate, response: surface },
@@ -37,11 +38,13 @@ export const missionApiRoutes: ApiRoute[] = [
   { method: 'post', path: `${v1}/workspaces/:workspaceId/materials`, tag: 'materials', summary: 'Add a workspace material', body: materialCreate, status: 201, response: material },
   { method: 'patch', path: `${v1}/workspaces/:workspaceId/materials/:materialId`, tag: 'materials', summary: 'Change a workspace material', body: materialUpdate, response: material },
   { method: 'delete', path: `${v1}/workspaces/:workspaceId/materials/:materialId`, tag: 'materials', summary: 'Delete a workspace material', status: 204 },
+  { method: 'get', path: `${v1}/workspaces/:workspaceId/environment-table`, tag: 'environment table', summary: 'The workspace’s own paired hot/cold albedo and OLR by inclination band and averaging time (any member)', response: environmentTable },
+  { method: 'put', path: `${v1}/workspaces/:workspaceId/environment-table`, tag: 'environment table', summary: 'Replace the workspace’s environment table (owner, thermal)', body: environmentTablePut, response: environmentTable },
   { method: 'post', path: `${m}/ephemerides`, tag: 'ephemerides', summary: 'Upload an ephemeris (multipart: file, frame, name)', body: ephemerisUploadFields, bodyKind: 'multipart', status: 201, response: ephemerisSummary },
   { method: 'get', path: `${m}/ephemerides`, tag: 'ephemerides', summary: 'A mission’s ephemerides', response: items(ephemerisSummary) },
   { method: 'get', path: `${m}/ephemerides/:ephemerisId`, tag: 'ephemerides', summary: 'One ephemeris (summary)', response: ephemerisSummary },
   { method: 'get', path: `${m}/ephemerides/:ephemerisId/points`, tag: 'ephemerides', summary: 'A page of an ephemeris’ points', query: ephemerisPointsQuery, response: ephemerisPointsPage },
   { method: 'delete', path: `${m}/ephemerides/:ephemerisId`, tag: 'ephemerides', summary: 'Delete an ephemeris', status: 204 },
-  { method: 'post', path: `${m}/ephemerides/:ephemerisId/environment`, tag: 'ephemerides', summary: 'The environment along an uploaded trajectory (optionally over a window)', body: trajectoryEnvironmentRequest, response: trajectoryEnvironmentResponse },
+  { method: 'post', path: `${m}/ephemerides/:ephemerisId/environment`, tag: 'ephemerides', summary: 'The environment along an uploaded trajectory (optionally over a window)', body: trajectoryEnvironmentRequest, response: trajectoryEnvironmentResponse, perStep: true },
   { method: 'post', path: `${m}/ephemerides/:ephemerisId/cases`, tag: 'ephemerides', summary: 'A load case (custom, draft) from a window of the trajectory', body: ephemerisCaseCreate, status: 201, response: caseDetail },
 ];

@@ -3,7 +3,9 @@
 import { OpenAPIRegistry, OpenApiGeneratorV3 } from '@asteasolutions/zod-to-openapi';
 import { z } from 'zod';
 import { caseExport } from '../../shared/api/cases';
+import { answerLayoutQuery } from '../../shared/api/answer-formats';
 import { errorBody } from '../../shared/api/errors';
+import { ARROW_STREAM } from '../http/answer-formats';
 import type { ApiRoute } from './api-route';
 import { caseApiRoutes } from './case-api-routes';
 import { foundationApiRoutes } from './foundation-api-routes';
@@ -18,6 +20,15 @@ export const allApiRoutes = (): ApiRoute[] => apiRouteLists.flat();
 
 const openApiPath = (path: string) => path.replace(/:(\w+)/g, '{$1}');
 const pathParams = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1] ?? '');
+
+const perStepDescription =
+  'Success. Per-step results in the form asked for (API.md "Answer formats"): the JSON below by default; with ?layout=columns the same ' +
+  'answer with its list of per-step objects as one array per quantity (and, per surface, one entry holding an array per quantity), ' +
+  'names and units unchanged; compressed (br or gzip) when Accept-Encoding allows.';
+const arrowDescription =
+  'Asked for with Accept: application/vnd.apache.arrow.stream. An Apache Arrow IPC stream: one row per step, one column per quantity ' +
+  '(a per-surface or per-node quantity is the column "<name>.<quantity>", e.g. "nadir.absorbedW"), units as in the JSON names; every other ' +
+  'field of the answer is in the schema metadata under its own name (text as it is, numbers and structures as JSON).';
 
 const errorStatuses: Record<string, string> = {
   '400': 'Malformed or out-of-range input; details name each field and value',
@@ -35,6 +46,8 @@ function register(registry: OpenAPIRegistry, route: ApiRoute): void {
   const content: Record<string, { schema: z.ZodType }> = {};
   if (route.response) content['application/json'] = { schema: route.response };
   for (const type of route.produces ?? []) if (!content[type]) content[type] = { schema: z.string() };
+  if (route.perStep) content[ARROW_STREAM] = { schema: z.string().meta({ format: 'binary', description: arrowDescription }) };
+  const query = route.perStep && !route.query?.shape['layout'] ? (route.query ?? z.object({})).extend(answerLayoutQuery.shape) : route.query;
   const bodyContent = route.body
     ? route.bodyKind === 'multipart'
       ? { 'multipart/form-data': { schema: route.body instanceof z.ZodObject ? route.body.extend({ file: z.string().meta({ format: 'binary' }) }) : route.body } }
@@ -48,11 +61,11 @@ function register(registry: OpenAPIRegistry, route: ApiRoute): void {
     ...(route.public ? { security: [] } : {}),
     request: {
       ...(params ? { params } : {}),
-      ...(route.query ? { query: route.query } : {}),
+      ...(query ? { query } : {}),
       ...(bodyContent ? { body: { content: bodyContent, required: true } } : {}),
     },
     responses: {
-      [status]: { description: status === '204' ? 'Done, no content' : 'Success', ...(Object.keys(content).length > 0 ? { content } : {}) },
+      [status]: { description: status === '204' ? 'Done, no content' : route.perStep ? perStepDescription : 'Success', ...(Object.keys(content).length > 0 ? { content } : {}) },
       ...Object.fromEntries(
         Object.entries(errorStatuses)
           .filter(([code]) => !(route.public && code === '401'))
@@ -75,7 +88,9 @@ export function openApiDocument(publicUrl: string): object {
     info: {
       title: 'Eclipta API',
       version: '1',
-      description: 'Orbital thermal environment, hot and cold load cases, thermal models. Errors: {"error": {"code", "message", "details"}}.',
+      description: 'Orbital thermal environment, hot and cold load cases, thermal models. Errors: {"error": {"code", "message", "details"}}. ' +
+        'Every answer is compressed (br or gzip) when the request accepts it. Per-step results also come as columnar JSON (?layout=columns) ' +
+        'and as an Apache Arrow IPC stream (Accept: application/vnd.apache.arrow.stream).',
     },
     servers: [{ url: publicUrl }],
     security: [{ apiToken: [] }, { session: [] }],

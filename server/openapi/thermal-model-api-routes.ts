@@ -1,7 +1,7 @@
 // Saved thermal models, their runs and sizing (shared/api/thermal-models.ts).
 import { z } from 'zod';
 import {
-  thermalModelCreate, thermalModelDetail, thermalModelSizeRequest, thermalModelSizeResponse, thermalModelSummary, thermalModelUpdate,
+  thermalDistanceStudyRequest, thermalModelCreate, thermalModelDetail, thermalModelSizeRequest, thermalModelSizeResponse, thermalModelSummary, thermalModelUpdate,
   thermalRunRequest, thermalRunResponse,
 } from '../../shared/api/thermal-models';
 import type { ApiRoute } from './api-route';
@@ -15,7 +15,8 @@ export const thermalModelApiRoutes: ApiRoute[] = [
   { method: 'get', path: m, tag: 'thermal', summary: 'A saved thermal model with its last runs (any member)', response: thermalModelDetail },
   { method: 'patch', path: m, tag: 'thermal', summary: 'Change a thermal model (thermal engineer or owner)', body: thermalModelUpdate, response: thermalModelDetail },
   { method: 'delete', path: m, tag: 'thermal', summary: 'Delete a thermal model (thermal engineer or owner)', status: 204 },
-  { method: 'post', path: `${m}/run`, tag: 'thermal', summary: 'Run the model on a load case of its mission (analyst, thermal engineer, owner); 422 when it does not converge', body: thermalRunRequest, response: thermalRunResponse },
-  { method: 'get', path: `${m}/runs/:caseId`, tag: 'thermal', summary: 'The last run of the model on a load case (any member)', response: thermalRunResponse },
+  { method: 'post', path: `${m}/run`, tag: 'thermal', summary: 'Run the model on a load case of its mission (analyst, thermal engineer, owner); 422 when it does not converge', body: thermalRunRequest, response: thermalRunResponse, perStep: true },
+  { method: 'get', path: `${m}/runs/:caseId`, tag: 'thermal', summary: 'The last run of the model on a load case (any member)', response: thermalRunResponse, perStep: true },
   { method: 'post', path: `${m}/size`, tag: 'thermal', summary: 'Radiator area in the hot case and heater power in the cold case (analyst, thermal engineer, owner)', body: thermalModelSizeRequest, response: thermalModelSizeResponse },
+  { method: 'post', path: `${m}/distance-study`, tag: 'thermal', summary: 'The model on a load case with the Sun at other distances: pump flow and radiator area per distance, one NDJSON line each (analyst, thermal engineer, owner)', body: thermalDistanceStudyRequest, produces: ['application/x-ndjson'] },
 ];

@@ -11,6 +11,7 @@ import { caseExportCsv, caseExportJson } from '../cases/case-export';
 import { commentOnCase, newRevision, releaseCase, requireReviewer, returnCase, setSubscription, submitCase, updateCase } from '../cases/case-lifecycle';
 import { commentsOf, compareCases, listCases, toDetail } from '../cases/case-views';
 import { badRequest, parse } from '../errors';
+import { answerForm, sendPerStep } from '../http/answer-formats';
 import { apiDocsRoutes } from '../openapi/api-docs-routes';
 import { pathParam } from '../path-param';
 
@@ -104,17 +105,24 @@ export function caseRoutes(ctx: AppContext): Router {
     res.json({ subscribed: false });
   });
 
-  router.get('/cases/:id/export', requireUser, (req, res) => {
+  router.get('/cases/:id/export', requireUser, async (req, res) => {
     const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'));
-    const { format } = parse(caseExportQuery, req.query);
-    const json = format === 'json' ? caseExportJson(ctx, row) : null;
+    const query = parse(caseExportQuery, req.query);
+    const form = answerForm(req, query.layout);
+    const format = form === 'arrow' ? 'arrow' : query.format;
+    const json = format !== 'csv' ? caseExportJson(ctx, row) : null;
     const csv = format === 'csv' ? caseExportCsv(ctx, row) : null;
     recordAudit(ctx.db, {
       workspaceId: row.workspaceId, actorUserId: me(req).id, action: 'case.exported', targetType: 'load_case', targetId: row.id,
-      summary: `Exported "${row.name}" revision ${row.revision} (${row.status}) as ${format.toUpperCase()}${signedIn(req).kind === 'token' ? ' with an API token' : ''}.`,
+      summary: `Exported "${row.name}" revision ${row.revision} (${row.status}) as ${format === 'arrow' ? 'an Apache Arrow stream' : format.toUpperCase()}${signedIn(req).kind === 'token' ? ' with an API token' : ''}.`,
     });
-    res.set('Content-Disposition', `attachment; filename="${fileName(row.name, row.revision, format)}"`);
+    res.set('Content-Disposition', `attachment; filename="${fileName(row.name, row.revision, format === 'arrow' ? 'arrows' : format)}"`);
     res.set('X-Eclipta-Checksum', json?.checksum ?? csv?.checksum ?? '');
+    if (json && form === 'arrow') {
+      // The export is in columns already; the Arrow stream carries them (API.md "Answer formats").
+      await sendPerStep(res, form, { answer: () => json, key: 'results', stepKey: 'tS' });
+      return;
+    }
     if (csv) {
       res.type('text/csv; charset=utf-8; header=present').send(csv.csv);
       return;

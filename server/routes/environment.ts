@@ -8,7 +8,8 @@ import {
   type BetaHistoryResponse, type BodyDetailResponse,
 } from '../../shared/api/environment';
 import { bodySummaries, getBody, isBodyId, type Body } from '../../shared/physics/bodies';
-import { computeEnvironment } from '../../shared/physics/environment';
+import { computeEnvironmentColumns, environmentResult } from '../../shared/physics/environment';
+import { environmentColumnsAnswer, environmentJson } from '../http/environment-json';
 import { sweepMission } from '../../shared/physics/mission-sweep';
 import { orbitFigures } from '../../shared/physics/orbit-figures';
 import { sunlightRange } from '../../shared/physics/sun';
@@ -16,8 +17,8 @@ import { sunSynchronousOrbit } from '../../shared/physics/sun-synchronous';
 import type { AppContext } from '../app-context';
 import { requireUser } from '../auth/middleware';
 import { notFound, parse } from '../errors';
-import { sendJson } from '../json-stream';
 import { limitWork } from '../work-limit';
+import { answerForm, sendPerStep } from '../http/answer-formats';
 import { loadUnits } from '../missions/quantity-reader';
 
 const DAY_MS = 86400e3;
@@ -64,7 +65,15 @@ export function environmentRoutes(_ctx: AppContext): Router {
   router.post('/environment/compute', requireUser, async (req, res) => {
     const request = parse(environmentRequest, req.body);
     limitWork([{ name: 'steps', count: request.steps }, { name: 'surfaces', count: request.surfaces.length }], 'steps', 'use fewer steps or fewer surfaces');
-    await sendJson(res, computeEnvironment(asEnvironmentRequest(request)));
+    const form = answerForm(req);
+    const columns = computeEnvironmentColumns(asEnvironmentRequest(request));
+    await sendPerStep(res, form, {
+      json: () => environmentJson(columns),
+      answer: () => environmentResult(columns),
+      columns: () => environmentColumnsAnswer(columns),
+      key: 'profile',
+      stepKey: 'tS',
+    });
   });
 
   router.post('/environment/beta-history', requireUser, (req, res) => {

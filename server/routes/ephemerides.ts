@@ -8,7 +8,7 @@ import { missionForCases } from '../cases/case-access';
 import { createEphemerisCase } from '../cases/ephemeris-case';
 import { toDetail } from '../cases/case-views';
 import { parse } from '../errors';
-import { sendJson } from '../json-stream';
+import { answerForm, sendPerStep } from '../http/answer-formats';
 import { pathParam } from '../path-param';
 import { ephemerisEnvironment } from '../ephemerides/ephemeris-environment';
 import { receiveEphemeris } from '../ephemerides/ephemeris-ingest';
@@ -47,7 +47,9 @@ export function ephemerisRoutes(ctx: AppContext): Router {
     const mission = ephemerisMission(ctx, signedIn(req).user.id, pathParam(req, 'id'), 'read');
     const row = ephemerisOf(ctx, mission.id, pathParam(req, 'ephemerisId'));
     const options = parse(trajectoryEnvironmentRequest, req.body ?? {});
-    await sendJson(res, ephemerisEnvironment(ctx, mission, row, options));
+    const form = answerForm(req);
+    const answer = ephemerisEnvironment(ctx, mission, row, options);
+    await sendPerStep(res, form, { answer: () => answer, key: 'points', stepKey: 'epoch' });
   });
 
   router.post(`${base}/:ephemerisId/cases`, requireUser, (req, res) => {

@@ -4,13 +4,14 @@ import { orbitCreate, orbitUpdate, savedEnvironmentRequest, sweepQuery } from '.
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
+import { answerForm, sendPerStep } from '../http/answer-formats';
 import { sendJson } from '../json-stream';
 import { missionFor, orbitOf } from '../missions/mission-access';
 import { toOrbit } from '../missions/mission-responses';
 import { createOrbit, deleteOrbit, listOrbits, updateOrbit } from '../missions/orbit-store';
 import { missionSurfaces, savedEnvironment } from '../missions/saved-environment';
 import { planSweep, sweepChunkComputer } from '../missions/sweep-days';
-import { csvFileName, streamSweep } from '../missions/sweep-stream';
+import { collectSweep, csvFileName, streamSweep } from '../missions/sweep-stream';
 import { pathParam } from '../path-param';
 import { loadUnits } from '../missions/quantity-reader';
 
@@ -59,6 +60,15 @@ export function orbitRoutes(ctx: AppContext): Router {
     const query = parse(sweepQuery, req.query);
     const plan = planSweep(mission, query);
     const surfaces = missionSurfaces(ctx.db, mission.id, query.properties);
+    const form = answerForm(req, query.layout);
+    const computeDays = sweepChunkComputer(mission, orbit, plan, surfaces);
+    if (form !== 'json') {
+      // Columns or Arrow: the whole sweep at once (API.md "Answer formats"); the stream is the default.
+      const series = await collectSweep(plan, computeDays);
+      const answer = { from: plan.from, to: plan.to, stepDays: plan.stepDays, days: plan.days, properties: query.properties, series };
+      await sendPerStep(res, form, { answer: () => answer, key: 'series', stepKey: 'date' });
+      return;
+    }
     await streamSweep({
       res,
       logger: ctx.logger,
@@ -67,7 +77,7 @@ export function orbitRoutes(ctx: AppContext): Router {
       format: query.format,
       fileName: csvFileName(mission.name, orbit.name, 'sweep', plan.from, plan.to, query.properties),
       crewed: mission.crewed,
-      computeDays: sweepChunkComputer(mission, orbit, plan, surfaces),
+      computeDays,
     });
   });
 

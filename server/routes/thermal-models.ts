@@ -1,13 +1,15 @@
 // Saved thermal models of a mission, their runs against load cases and their sizing
 // (shared/api/thermal-models.ts). The work and the role checks are in server/thermal/.
 import { Router } from 'express';
-import { thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, thermalRunRequest } from '../../shared/api/thermal-models';
+import { thermalDistanceStudyRequest, thermalModelCreate, thermalModelSizeRequest, thermalModelUpdate, thermalRunRequest } from '../../shared/api/thermal-models';
 import type { AppContext } from '../app-context';
 import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
-import { sendJson } from '../json-stream';
+import { answerForm, sendPerStep } from '../http/answer-formats';
 import { pathParam } from '../path-param';
+import { streamDistanceStudy } from '../thermal/thermal-distance-study';
 import { lastRun, runModel, sizeModel } from '../thermal/thermal-model-runs';
+import { whileClientWaits } from '../thermal/thermal-pool';
 import { createModel, deleteModel, getModel, listModels, updateModel } from '../thermal/thermal-model-store';
 
 export function thermalModelRoutes(ctx: AppContext): Router {
@@ -38,16 +40,25 @@ export function thermalModelRoutes(ctx: AppContext): Router {
 
   router.post('/thermal-models/:id/run', requireUser, async (req, res) => {
     const { caseId, maxOrbits } = parse(thermalRunRequest, req.body);
-    await sendJson(res, runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits));
+    const form = answerForm(req);
+    const run = await runModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), caseId, maxOrbits, whileClientWaits(res));
+    await sendPerStep(res, form, { answer: () => run, key: 'result', stepKey: 'tS' });
   });
 
-  router.get('/thermal-models/:id/runs/:caseId', requireUser, (req, res) => {
-    res.json(lastRun(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), pathParam(req, 'caseId')));
+  router.get('/thermal-models/:id/runs/:caseId', requireUser, async (req, res) => {
+    const form = answerForm(req);
+    const run = lastRun(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), pathParam(req, 'caseId'));
+    await sendPerStep(res, form, { answer: () => run, key: 'result', stepKey: 'tS' });
   });
 
-  router.post('/thermal-models/:id/size', requireUser, (req, res) => {
+  router.post('/thermal-models/:id/size', requireUser, async (req, res) => {
     const body = parse(thermalModelSizeRequest, req.body);
-    res.json(sizeModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), body));
+    res.json(await sizeModel(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), body, whileClientWaits(res)));
+  });
+
+  router.post('/thermal-models/:id/distance-study', requireUser, async (req, res) => {
+    const body = parse(thermalDistanceStudyRequest, req.body);
+    await streamDistanceStudy(ctx.db, ctx.logger, signedIn(req).user.id, pathParam(req, 'id'), body, res);
   });
 
   return router;

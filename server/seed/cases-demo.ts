@@ -6,7 +6,7 @@ import { and, eq } from 'drizzle-orm';
 import { resolveMargins } from '../../shared/physics/design-environment';
 import { evaluateCase } from '../../shared/physics/design-cases';
 import { recordAudit } from '../audit/audit-log';
-import { derivedCaseValues, withRationale } from '../cases/case-derivation';
+import { derivedCaseValues, resultSummary, withRationale } from '../cases/case-derivation';
 import { caseChecksum } from '../cases/case-export';
 import { caseSubscriptions, loadCases, missions, orbits, type LoadCaseRow } from '../db/schema';
 import type { FeatureSeed } from './seed';
@@ -26,7 +26,7 @@ export const seedDemoCases: FeatureSeed = (tx, team) => {
     const draft = tx
       .insert(loadCases)
       .values({
-        ...values, missionId: mission.id, workspaceId: mission.workspaceId, seriesId, revision, status: 'released', authorId: thermal.id,
+        ...values, ...resultSummary(values.results), missionId: mission.id, workspaceId: mission.workspaceId, seriesId, revision, status: 'released', authorId: thermal.id,
         submittedBy: thermal.id, submittedAt: at, releasedBy: owner.id, releasedAt: at, createdAt: at, updatedAt: at,
       })
       .returning()

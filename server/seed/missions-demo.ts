@@ -65,6 +65,27 @@ const kestrelLunar: DemoMission = {
   ],
 };
 
+// Invented concept study: a low polar orbit about Europa, in Jupiter's shadow for about three
+// hours every 3.55 days (the planet's shadow, parent-shadow.ts).
+const kestrelEuropa: DemoMission = {
+  name: 'Kestrel Europa orbiter (concept)',
+  bodyId: 'europa',
+  description: 'Concept study: 200 km polar orbit about Europa for six months of ice-shell mapping.',
+  startDate: '2034-03-01',
+  endDate: '2034-08-31',
+  orbits: [
+    // The epoch falls an hour before Europa leaves Jupiter's shadow (15:15-18:03 UTC that day), so the
+    // orbit's plots show the planet's shadow and Europa's own.
+    { name: 'Polar mapping orbit 200 km', epoch: '2034-03-03T17:00:00Z', input: { periapsisAltitudeKm: '200 km', apoapsisAltitudeKm: '200 km', inclinationDeg: '88 deg', raanDeg: 60 } },
+  ],
+  surfaces: [
+    { name: 'Solar array', areaM2: 6, normal: 'sun', material: 'silicon solar cells' },
+    { name: 'Zenith radiator', areaM2: 0.3, normal: 'zenith', material: 'optical solar reflector (silvered quartz)' },
+    { name: 'Nadir instrument deck', areaM2: 0.4, normal: 'nadir', material: 'black paint' },
+    { name: 'Ram face', areaM2: 0.3, normal: 'ram', material: 'white silicate paint' },
+  ],
+};
+
 const ploverRelay: DemoMission = {
   name: 'Plover Mars relay',
   bodyId: 'mars',
@@ -98,5 +119,6 @@ export const seedDemoMissions: FeatureSeed = (tx, team: DemoTeam) => {
   const analyst = team.users['analyst@kestrel.test']?.id ?? null;
   insertMission(tx, team.kestrel.id, analyst, kestrelOne);
   insertMission(tx, team.kestrel.id, analyst, kestrelLunar);
+  insertMission(tx, team.kestrel.id, analyst, kestrelEuropa);
   insertMission(tx, team.plover.id, team.users['owner@plover.test']?.id ?? null, ploverRelay);
 };

@@ -23,15 +23,28 @@ export function answerThermal<T>(work: () => T, refusedCode = 'not_sizable'): T 
   try {
     return work();
   } catch (error) {
-    if (error instanceof ThermalConvergenceError) {
-      // The message names the node, the time and the values; the detail points at the field to change.
-      const settling = Number.isFinite(error.residualK) && error.orbits > 0;
-      throw new ApiError(422, 'not_converged', error.message, [{
-        path: error.path ?? 'maxOrbits',
-        message: settling ? `${error.orbits} orbits run; a node is still ${error.residualK.toFixed(3)} K from its periodic state` : error.message,
-      }]);
-    }
-    if (error instanceof ThermalModelError) throw new ApiError(422, refusedCode, error.message, [{ path: error.path, message: error.message }]);
-    throw error;
+    throw asThermalAnswer(error, refusedCode);
   }
+}
+
+/** The same, for work done in the thermal pool (thermal-pool.ts). */
+export async function answerThermalAsync<T>(work: Promise<T>, refusedCode = 'not_sizable'): Promise<T> {
+  try {
+    return await work;
+  } catch (error) {
+    throw asThermalAnswer(error, refusedCode);
+  }
+}
+
+function asThermalAnswer(error: unknown, refusedCode: string): unknown {
+  if (error instanceof ThermalConvergenceError) {
+    // The message names the node, the time and the values; the detail points at the field to change.
+    const settling = Number.isFinite(error.residualK) && error.orbits > 0;
+    return new ApiError(422, 'not_converged', error.message, [{
+      path: error.path ?? 'maxOrbits',
+      message: settling ? `${error.orbits} orbits run; a node is still ${error.residualK.toFixed(3)} K from its periodic state` : error.message,
+    }]);
+  }
+  if (error instanceof ThermalModelError) return new ApiError(422, refusedCode, error.message, [{ path: error.path, message: error.message }]);
+  return error;
 }

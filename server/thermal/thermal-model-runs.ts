@@ -5,36 +5,36 @@ import { and, eq } from 'drizzle-orm';
 import { asThermalSolveInput, thermalSolveRequest, type ThermalSolveRequestInput } from '../../shared/api/thermal';
 import type { ThermalModelSizeResponse, ThermalRunResponse, thermalModelSizeRequest } from '../../shared/api/thermal-models';
 import { ThermalConvergenceError, ThermalModelError } from '../../shared/physics/thermal-model';
-import { heaterPowerFor, radiatorAreaFor } from '../../shared/physics/thermal-sizing';
-import { solveThermal } from '../../shared/physics/thermal-solver';
+import { controlRecoveries } from '../../shared/physics/thermal-loop-results';
 import type { z } from 'zod';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { surfaces, thermalRuns, type LoadCaseRow, type MissionRow, type ThermalModelRow } from '../db/schema';
 import { badRequest, notFound, parse } from '../errors';
 import { caseOfMission, modelFor } from './thermal-model-access';
-import { answerThermal, boundedModel } from './thermal-failures';
+import { answerThermalAsync, boundedModel } from './thermal-failures';
+import { thermalPool } from './thermal-pool';
 import { runInputs } from './thermal-run-inputs';
 
 type SizeRequest = z.output<typeof thermalModelSizeRequest>;
 
-const caseRef = (c: LoadCaseRow) => ({ id: c.id, name: c.name, kind: c.kind, status: c.status, revision: c.revision });
+export const caseRef = (c: LoadCaseRow) => ({ id: c.id, name: c.name, kind: c.kind, status: c.status, revision: c.revision });
 
-function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: LoadCaseRow, extra: Partial<ThermalSolveRequestInput> = {}) {
+export function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: LoadCaseRow, extra: Partial<ThermalSolveRequestInput> = {}, solarScale = 1) {
   const names = new Map(db.select({ id: surfaces.id, name: surfaces.name }).from(surfaces).where(eq(surfaces.missionId, mission.id)).all().map((s) => [s.id, s.name]));
-  const base = runInputs(row.model, names, kase);
+  const base = runInputs(row.model, names, kase, solarScale);
   const inputs = { ...base, request: { ...base.request, ...extra } };
   // The request is built from checked parts; parsing again fills the solver's defaults and keeps
   // the route honest should a case hold something the stateless route would refuse.
   return { ...inputs, parsed: boundedModel(asThermalSolveInput(parse(thermalSolveRequest, inputs.request))) };
 }
 
-export function runModel(db: Db, userId: string, modelId: string, caseId: string, maxOrbits?: number): ThermalRunResponse {
+export async function runModel(db: Db, userId: string, modelId: string, caseId: string, maxOrbits?: number, signal?: AbortSignal): Promise<ThermalRunResponse> {
   const { row, mission, role } = modelFor(db, userId, modelId, 'run');
   const kase = caseOfMission(db, mission, caseId, role, 'caseId');
   // A run that does not settle still answers: its last orbit, marked (result.converged false, result.unsettled).
   const { request, nodes, assumptions, parsed } = inputsFor(db, row, mission, kase, { whenUnsettled: 'last-orbit', ...(maxOrbits !== undefined ? { maxOrbits } : {}) });
-  const result = answerThermal(() => solveThermal(parsed), 'impossible_model');
+  const result = await answerThermalAsync(thermalPool.run('solve', parsed, signal), 'impossible_model');
   const ranAt = new Date().toISOString();
   const answer: Omit<ThermalRunResponse, 'stale'> = {
     model: { id: row.id, name: row.name, updatedAt: row.updatedAt },
@@ -44,6 +44,7 @@ export function runModel(db: Db, userId: string, modelId: string, caseId: string
     inputs: nodes,
     solveRequest: { ...request },
     result,
+    recoveries: controlRecoveries(result, kase.results.sunlit, parsed.periodS),
     assumptions: [...assumptions, ...result.assumptions],
   };
   db.transaction((tx) => {
@@ -67,16 +68,16 @@ export function lastRun(db: Db, userId: string, modelId: string, caseId: string)
 }
 
 /** The sizing's answer, or the sentence saying why this model cannot be sized so. */
-function attempt<T>(work: () => T): { sizing: T | null; refused: string | null } {
+async function attempt<T>(work: Promise<T>): Promise<{ sizing: T | null; refused: string | null }> {
   try {
-    return { sizing: work(), refused: null };
+    return { sizing: await work, refused: null };
   } catch (error) {
     if (error instanceof ThermalModelError || error instanceof ThermalConvergenceError) return { sizing: null, refused: error.message };
     throw error;
   }
 }
 
-export function sizeModel(db: Db, userId: string, modelId: string, body: SizeRequest): ThermalModelSizeResponse {
+export async function sizeModel(db: Db, userId: string, modelId: string, body: SizeRequest, signal?: AbortSignal): Promise<ThermalModelSizeResponse> {
   const { row, mission, role } = modelFor(db, userId, modelId, 'run');
   const hot = caseOfMission(db, mission, body.caseHotId, role, 'caseHotId');
   const cold = caseOfMission(db, mission, body.caseColdId, role, 'caseColdId');
@@ -92,8 +93,11 @@ export function sizeModel(db: Db, userId: string, modelId: string, body: SizeReq
   const hotMarginK = body.marginK ?? hotInputs.parsed.margins?.operatingK ?? 0;
   const coldMarginK = body.marginK ?? coldInputs.parsed.margins?.operatingK ?? 0;
   const maxDutyCycle = body.maxDutyCycle ?? row.model.maxDutyCycle;
-  const radiator = attempt(() => ({ kind: 'radiator' as const, ...radiatorAreaFor(hotInputs.parsed, body.node, hotMarginK) }));
-  const heater = attempt(() => ({ kind: 'heater' as const, ...heaterPowerFor(coldInputs.parsed, heaterNode, coldMarginK, maxDutyCycle) }));
+  // Both in the pool at once (two workers when the pool has them).
+  const [radiator, heater] = await Promise.all([
+    attempt(thermalPool.run('radiator', { model: hotInputs.parsed, node: body.node, marginK: hotMarginK }, signal).then((r) => ({ kind: 'radiator' as const, ...r }))),
+    attempt(thermalPool.run('heater', { model: coldInputs.parsed, node: heaterNode, marginK: coldMarginK, maxDutyCycle }, signal).then((h) => ({ kind: 'heater' as const, ...h }))),
+  ]);
   return {
     radiator: { case: caseRef(hot), ...radiator },
     heater: { case: caseRef(cold), ...heater },

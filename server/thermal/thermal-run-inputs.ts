@@ -5,6 +5,7 @@
 import type { ThermalSolveRequestInput } from '../../shared/api/thermal';
 import type { SavedThermalNode, ThermalModelContent, ThermalRunNodeInput } from '../../shared/api/thermal-models';
 import type { LoadCaseRow } from '../db/schema';
+import { absorbedAtScale } from '../../shared/physics/thermal-distance-study';
 import { unprocessable } from '../errors';
 
 export interface RunInputs {
@@ -26,6 +27,34 @@ export function resamplePeriodic(values: readonly number[], n: number): number[]
   });
 }
 
+/**
+ * `values` at times `tS` (ascending, not evenly spaced: an eccentric orbit's case) as `n` values
+ * evenly spaced over the period, each the mean of the piecewise-linear series over its step
+ * (centred on the sample time, wrapping round the orbit): the periapsis pulse's energy lands in the
+ * steps it falls in, so the orbit-average load is kept.
+ */
+export function resampleByTime(values: readonly number[], tS: readonly number[], periodS: number, n: number): number[] {
+  const count = values.length;
+  const t = [...tS, (tS[0] ?? 0) + periodS];
+  const v = [...values, values[0] ?? 0];
+  // cumulative integral at each sample (trapezoids)
+  const cumulative = [0];
+  for (let i = 1; i <= count; i++) cumulative.push(cumulative[i - 1]! + ((v[i]! + v[i - 1]!) / 2) * (t[i]! - t[i - 1]!));
+  const total = cumulative[count]!;
+  const integralTo = (time: number): number => {
+    const turns = Math.floor((time - t[0]!) / periodS);
+    const x = time - turns * periodS;
+    let i = 0;
+    while (i < count - 1 && t[i + 1]! <= x) i++;
+    const dt = t[i + 1]! - t[i]!;
+    const f = dt > 0 ? (x - t[i]!) / dt : 0;
+    const at = v[i]! + (v[i + 1]! - v[i]!) * f;
+    return turns * total + cumulative[i]! + ((v[i]! + at) / 2) * (x - t[i]!);
+  };
+  const step = periodS / n;
+  return Array.from({ length: n }, (_, k) => (integralTo((k + 0.5) * step) - integralTo((k - 0.5) * step)) / step);
+}
+
 function dissipationFor(node: SavedThermalNode, kind: LoadCaseRow['kind']): SavedThermalNode['dissipationW'] {
   if (kind === 'hot' && node.hotDissipationW !== undefined) return node.hotDissipationW;
   if (kind === 'cold' && node.coldDissipationW !== undefined) return node.coldDissipationW;
@@ -38,7 +67,11 @@ function describeDissipation(d: SavedThermalNode['dissipationW']): string {
   return `${d.onW} W for ${d.onS} s every ${d.periodS} s${d.offW ? `, ${d.offW} W otherwise` : ''}`;
 }
 
-export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<string, string>, kase: LoadCaseRow): RunInputs {
+/**
+ * The solve request of `model` on `kase`. `solarScale` multiplies the case's solar and albedo loads
+ * (the distance study's Sun at another distance); planetary IR is kept as it is.
+ */
+export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<string, string>, kase: LoadCaseRow, solarScale = 1): RunInputs {
   const results = kase.results;
   const steps = results.tS.length;
   const byName = new Map(results.surfaces.map((s) => [s.name, s]));
@@ -62,7 +95,9 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
       return found;
     });
     const absorbed = new Array<number>(steps).fill(0);
-    for (const s of owned) resamplePeriodic(s.series.absorbedW, steps).forEach((w, k) => (absorbed[k] = (absorbed[k] ?? 0) + w * factor));
+    // an eccentric orbit's case is sampled unevenly in time (weightS): its loads are averaged into even steps
+    const even = (series: number[]) => results.weightS ? resampleByTime(series, results.tS, results.periodS, steps) : resamplePeriodic(series, steps);
+    for (const s of owned) even(solarScale === 1 ? s.series.absorbedW : absorbedAtScale(s.series, solarScale)).forEach((w, k) => (absorbed[k] = (absorbed[k] ?? 0) + w * factor));
     const areaM2 = owned.reduce((sum, s) => sum + s.areaM2, 0);
     // An explicit radiator replaces the surfaces' own; otherwise they radiate with their area-weighted emissivity.
     const explicit = node.radiatorAreaM2 !== undefined;
@@ -103,6 +138,9 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
   };
   const assumptions = [
     `Loads from case "${kase.name}" (${kase.kind}, revision ${kase.revision}, ${kase.status}): each node absorbs the sum of its surfaces' absorbed loads, ${steps} samples over ${round(results.periodS, 1)} s.`,
+    ...(results.weightS
+      ? ['The case is sampled densely at periapsis; its loads are averaged over each of the solver\'s even time steps, so the periapsis pass keeps its energy but is spread over the step it falls in.']
+      : []),
     `The case's heat-load margin is applied: loads ${direction === 'increase' ? '+' : '-'}${heatLoadPercent} %.`,
     model.margins.operatingK !== undefined
       ? `Operating limits checked with the model's margin of ${operatingK} K.`

@@ -6,6 +6,7 @@ import { bodyIds } from '../physics/bodies';
 import type { CaseDecision, CaseWhyRecord } from '../physics/case-why';
 import type { CaseConditions, CaseResults, SurfaceDriver, ScanSummary } from '../physics/design-cases';
 import type { Margins } from '../physics/design-environment';
+import { samplings } from '../physics/orbit-sampling';
 import { surfaceNormal } from './missions';
 
 export const caseKinds = ['hot', 'cold', 'custom'] as const;
@@ -43,6 +44,7 @@ export const caseConditions = z.object({
   }),
   orbitEpoch: z.string().describe('ISO 8601 UTC epoch of the orbit elements'),
   date: z.string().describe('YYYY-MM-DD: the day the node and the Sun azimuth are taken from'),
+  orbitStart: z.string().optional().describe("ISO 8601 UTC: where the case's orbit starts when not at 12:00 UTC of date (a moon's orbiter in its planet's shadow)"),
   betaDeg: num,
   solarDistanceAu: num,
   albedo: num,
@@ -51,6 +53,11 @@ export const caseConditions = z.object({
   marginDirection: z.enum(['increase', 'decrease']),
   steps: z.number().int(),
   surfaces: z.array(caseSurface),
+  surfaceField: z
+    .object({ emissivity: num, nightFloorK: num.describe('K') })
+    .optional()
+    .describe("an airless body's surface temperature field (its Bond albedo is `albedo`); absent: uniform OLR"),
+  sampling: z.enum(samplings).optional().describe('time (default): series evenly spaced in time; eccentric-anomaly: evenly in eccentric anomaly, dense at periapsis'),
 });
 
 export const caseMargins = z.object({
@@ -170,6 +177,7 @@ export const caseResultsContent = z.object({
   umbraDurationS: num,
   penumbraDurationS: num,
   tS: z.array(num).describe('s from periapsis (from the ascending node for a circular orbit; from the first row for a case from an ephemeris)'),
+  weightS: z.array(num).optional().describe("each sample's share of the period in s, when the series are not evenly spaced in time"),
   sunlit: z.array(num).describe('1 full sun, 0 umbra'),
   surfaces: z.array(caseSurfaceResult),
   total: z.object({ orbitAverageAbsorbedW: num, orbitAverageWithMarginW: num, peakAbsorbedW: num }),

@@ -22,6 +22,7 @@
 //   GET    openapi.json                     -> the whole API in OpenAPI 3
 import { z } from 'zod';
 import { lineText, multilineText } from './text';
+import { answerLayout } from './answer-formats';
 import { caseInputs, caseKinds, caseResultsContent, caseStatuses, propertySetValues } from './case-content';
 import { surfaceNormal } from './missions';
 
@@ -48,6 +49,8 @@ export const caseDerive = z.strictObject({
   properties: z.strictObject({ hot: z.enum(propertySetValues).default('eol'), cold: z.enum(propertySetValues).default('bol') }).optional(),
   margins: marginsInput.optional(),
   environment: z.strictObject({ hot: pairInput.optional(), cold: pairInput.optional() }).optional(),
+  /** The item's thermal time constant: picks the averaging time of the workspace's environment table. */
+  averagingTimeS: z.number({ message: 'averagingTimeS must be a number' }).positive('averagingTimeS must be above 0 s').max(1e7).optional(),
   steps: steps.default(120),
 });
 
@@ -127,7 +130,11 @@ export const caseListQuery = z.strictObject({
 });
 
 export const caseCompareQuery = z.strictObject({ with: z.string().min(1, 'give the id of the case to compare with').max(64) });
-export const caseExportQuery = z.strictObject({ format: z.enum(['json', 'csv'], { message: 'format is json or csv' }).default('json') });
+export const caseExportQuery = z.strictObject({
+  format: z.enum(['json', 'csv'], { message: 'format is json or csv' }).default('json'),
+  /** The JSON export is in columns already: the columnar layout answers it as it is (API.md "Answer formats"). */
+  layout: answerLayout,
+});
 
 const person = z.object({ id: z.string(), name: z.string(), email: z.string() }).nullable();
 

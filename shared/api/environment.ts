@@ -8,7 +8,9 @@ import { z } from 'zod';
 import { lineText } from './text';
 import { bodyIds } from '../physics/bodies';
 import type { EnvironmentRequest } from '../physics/environment';
+import { albedoModels, irModels } from '../physics/cap-loads';
 import { namedNormals } from '../physics/heat-loads';
+import { samplings } from '../physics/orbit-sampling';
 
 const finite = (label: string) => z.number({ message: `${label} must be a number` });
 
@@ -84,6 +86,11 @@ export const environmentRequest = z
     albedo: finite('albedo').min(0, 'albedo is 0..1').max(1, 'albedo is 0..1').optional(),
     olrWm2: finite('OLR').min(0, 'OLR cannot be negative').max(20000).optional(),
     steps: z.number().int('steps is a whole number').min(12, 'steps is 12..100000').max(100000, 'steps is 12..100000').default(360),
+    sampling: z.enum(samplings, { message: `sampling is one of ${samplings.join(', ')}` }).optional(),
+    albedoModel: z.enum(albedoModels, { message: `albedoModel is one of ${albedoModels.join(', ')}` }).optional(),
+    irModel: z.enum(irModels, { message: `irModel is one of ${irModels.join(', ')}` }).optional(),
+    surfaceEmissivity: finite('surface emissivity').gt(0, 'surface emissivity is above 0, up to 1').max(1, 'surface emissivity is above 0, up to 1').optional(),
+    nightFloorK: finite('night floor temperature').min(0, 'the night floor temperature is 0..500 K').max(500, 'the night floor temperature is 0..500 K').optional(),
     surfaces: z
       .array(surfaceInput)
       .min(1, 'give at least one surface')
@@ -116,13 +123,30 @@ export const environmentResponse = z.object({
   solarFluxWm2: z.number(),
   albedo: z.number(),
   olrWm2: z.number(),
+  albedoModel: z.enum(albedoModels),
+  irModel: z.enum(irModels),
+  sampling: z.enum(samplings),
+  surfaceField: z.object({ bondAlbedo: z.number(), emissivity: z.number(), nightFloorK: z.number(), subsolarK: z.number() }).nullable(),
   /** Umbra plus half of penumbra. */
   eclipseFraction: z.number(),
   eclipseDurationS: z.number(),
   umbraDurationS: z.number(),
   penumbraDurationS: z.number(),
   nodalRateDegPerDay: z.number(),
-  profile: z.array(z.object({ tS: z.number(), trueAnomalyDeg: z.number(), sunlit: z.number(), surfaces: z.array(surfaceLoad) })),
+  /** The planet a moon orbits; null for a planet. */
+  parentBodyId: z.string().nullable(),
+  /** Time of the orbit in the planet's shadow, penumbra included (a moon with an epoch). */
+  parentShadowDurationS: z.number(),
+  /** An orbit that makes little sense (beyond the sphere of influence, across moons' orbits, inside a Roche limit), in words. */
+  warnings: z.array(z.string()),
+  profile: z.array(z.object({
+    tS: z.number(), trueAnomalyDeg: z.number(), sunlit: z.number(),
+    /** About a moon: the share of the Sun the planet leaves (sunlit already counts it). */
+    parentSunlit: z.number().optional(),
+    surfaces: z.array(surfaceLoad),
+  })),
+  /** Each sample's share of the period (s) when sampled evenly in eccentric anomaly; null evenly in time. */
+  sampleWeightsS: z.array(z.number()).nullable(),
   orbitAverage: z.object({ surfaces: z.array(surfaceLoad) }),
   peak: z.object({ surfaces: z.array(surfaceLoad) }),
   assumptions: z.array(z.string()),
@@ -145,6 +169,9 @@ export const bodySummary = z.object({
   olrWm2: range,
   /** True where ranges await the published design tables; the screen says "provisional". */
   provisional: z.boolean(),
+  /** A body without a thick atmosphere: its IR comes from a surface temperature field. */
+  airless: z.boolean(),
+  surfaceField: z.object({ emissivity: range, nightFloorK: range, sources: z.object({ emissivity: z.string(), nightFloorK: z.string() }) }).nullable(),
   sources: z.record(z.string(), z.string()),
 });
 export const bodiesResponse = z.array(bodySummary);

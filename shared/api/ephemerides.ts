@@ -16,10 +16,10 @@
 //            case, draft, from a window of the ephemeris; thermal engineers and owners)
 import { z } from 'zod';
 import { lineText } from './text';
+import { ephemerisFrames, type EphemerisFrame } from './plain-lists';
 
 /** Inertial frames accepted, centred on the mission's body; GCRF only for the Earth. */
-export const ephemerisFrames = ['EME2000', 'J2000', 'ICRF', 'GCRF'] as const;
-export type EphemerisFrame = (typeof ephemerisFrames)[number];
+export { ephemerisFrames, type EphemerisFrame };
 
 export const ephemerisUploadFields = z.strictObject({
   name: lineText(120, 'the name has at most 120 characters').optional(),

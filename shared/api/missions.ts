@@ -22,8 +22,10 @@
 //   PATCH|DELETE workspaces/:workspaceId/materials/:materialId   (only a workspace's own materials)
 import { z } from 'zod';
 import { lineText, multilineText } from './text';
+import { answerLayout } from './answer-formats';
 import { bodyIds } from '../physics/bodies';
 import { namedNormals } from '../physics/heat-loads';
+import { samplings } from '../physics/orbit-sampling';
 import { localVector } from './environment';
 
 const isoDate = z.iso.date({ message: 'is a date like 2027-03-20' });
@@ -179,6 +181,8 @@ export const savedEnvironmentRequest = z.strictObject({
   albedo: z.number().min(0).max(1).optional(),
   olrWm2: z.number().min(0).max(20000).optional(),
   solarDistanceAu: z.number().positive().max(100).optional(),
+  /** Default: evenly in eccentric anomaly for an orbit of e >= 0.1 (the periapsis pass in the plots), else evenly in time. */
+  sampling: z.enum(samplings, { message: `sampling is one of ${samplings.join(', ')}` }).optional(),
 });
 
 export const sweepQuery = z.strictObject({
@@ -187,6 +191,8 @@ export const sweepQuery = z.strictObject({
   stepDays: z.coerce.number().int().min(1, 'stepDays is 1..365').max(365, 'stepDays is 1..365').default(1),
   properties: z.enum(propertySets).default('bol'),
   format: z.enum(['ndjson', 'csv']).default('ndjson'),
+  /** Columnar JSON of the whole sweep at once instead of the stream (API.md "Answer formats"). */
+  layout: answerLayout,
 });
 
 export const sweepDay = z.object({
@@ -199,6 +205,12 @@ export const sweepDay = z.object({
   solarDistanceAu: z.number(),
   solarFluxWm2: z.number(),
   surfaces: z.array(z.object({ surfaceId: z.string(), name: z.string(), absorbedW: z.number() })),
+  /** The day's longest continuous shadow, penumbra included, s: the body's own, or about a moon a passage through its planet's shadow. */
+  longestShadowS: z.number(),
+  /** The bodies that cast it (body ids); empty without shadow. */
+  longestShadowCastBy: z.array(z.string()),
+  /** Its start (ISO 8601 UTC) when the planet takes part; null for the body's own shadow. */
+  longestShadowStart: z.string().nullable(),
 });
 
 export const sweepLine = z.discriminatedUnion('type', [

@@ -9,9 +9,12 @@
 //   POST   thermal-models/:id/run               {caseId} -> thermalRunResponse (the last run per case is kept)
 //   GET    thermal-models/:id/runs/:caseId      -> thermalRunResponse (the kept one)
 //   POST   thermal-models/:id/size              thermalModelSizeRequest -> thermalModelSizeResponse
+//   POST   thermal-models/:id/distance-study    thermalDistanceStudyRequest -> NDJSON of DistanceStudyLine (start, one per distance, end)
 // A model is the body of POST /thermal/solve (shared/api/thermal.ts) without the orbit: the period,
 // the steps and each node's absorbed load come from the case it is run against.
 import { z } from 'zod';
+import { bodyIds } from '../physics/bodies';
+import type { DistancePointResult, StudyDistance } from '../physics/thermal-distance-study';
 import { lineText, multilineText } from './text';
 import { caseKinds, caseStatuses } from './case-content';
 import { conductiveCoupling, coolantLoop, dissipationSchedule, heater, radiativeCoupling, thermalNode, thermalSolveResponse, thermalSizeResponse } from './thermal';
@@ -84,6 +87,42 @@ export const thermalModelSizeRequest = z.strictObject({
   maxDutyCycle: num('maxDutyCycle').gt(0, 'maxDutyCycle is above 0, at most 1').max(1, 'maxDutyCycle is above 0, at most 1').optional(),
 });
 
+/** Most distances one study may ask for (each is a solve and a radiator sizing). */
+export const MAX_STUDY_DISTANCES = 12;
+
+export const thermalDistanceStudyRequest = z.strictObject({
+  caseId: z.string().min(1, 'choose a load case').max(64),
+  /** The node whose radiator is sized at each distance. */
+  node: lineText(80).min(1, 'choose the radiator node'),
+  distancesAu: z.array(num('distancesAu').min(0.05, 'a distance is 0.05..50 AU').max(50, 'a distance is 0.05..50 AU')).max(MAX_STUDY_DISTANCES).optional(),
+  /** Bodies whose mean distance from the Sun is taken. */
+  bodyIds: z.array(z.enum(bodyIds, { message: `a body is one of ${bodyIds.join(', ')}` })).max(MAX_STUDY_DISTANCES).optional(),
+  /** The perihelion and aphelion of the mission's body (or of its planet). */
+  missionRange: z.boolean({ message: 'missionRange is true or false' }).optional(),
+  /** Default: the model's operating margin, else the case's. */
+  marginK: num('marginK').min(0, 'a margin cannot be negative').max(100).optional(),
+}).superRefine((body, ctx) => {
+  const count = (body.distancesAu?.length ?? 0) + (body.bodyIds?.length ?? 0) + (body.missionRange ? 2 : 0);
+  if (count === 0) ctx.addIssue({ code: 'custom', path: ['distancesAu'], message: 'give at least one distance, body or the mission\'s perihelion and aphelion' });
+  if (count > MAX_STUDY_DISTANCES) ctx.addIssue({ code: 'custom', path: ['distancesAu'], message: `at most ${MAX_STUDY_DISTANCES} distances in one study (got ${count})` });
+});
+export type ThermalDistanceStudyRequest = z.input<typeof thermalDistanceStudyRequest>;
+
+/** The study's answer, one JSON line at a time. */
+export type DistanceStudyLine =
+  | {
+      type: 'start';
+      model: { id: string; name: string };
+      case: { id: string; name: string; kind: string; revision: number; solarFluxWm2: number };
+      node: string;
+      marginK: number;
+      distances: StudyDistance[];
+      assumptions: string[];
+    }
+  | ({ type: 'point'; index: number; label: string; distanceAu: number; solarFluxWm2: number; solarScale: number } & DistancePointResult)
+  | { type: 'end'; points: number }
+  | { type: 'error'; message: string };
+
 const person = z.object({ id: z.string(), name: z.string(), email: z.string() }).nullable();
 
 const caseRef = z.object({
@@ -142,6 +181,10 @@ export const thermalRunResponse = z.object({
   /** Exactly what went to the solver: POST it to /thermal/solve to repeat the run. */
   solveRequest: z.record(z.string(), z.unknown()),
   result: thermalSolveResponse,
+  /** Per controlled loop: the time its node takes to return within the band after each eclipse entry and exit (null: it does not before the next). Runs kept from before loops were judged have none. */
+  recoveries: z.array(z.object({
+    loop: z.string(), node: z.string(), event: z.enum(['eclipse entry', 'eclipse exit']), atS: z.number(), returnS: z.number().nullable(),
+  })).optional(),
   assumptions: z.array(z.string()),
 });
 

@@ -109,24 +109,52 @@ export const heater = z
     }
   });
 
+/**
+ * A pumped loop (API.md "Coolant loops"): closed with a `path` and no `inletC` (the coolant's
+ * temperature computed), or open with `nodes` and `inletC` (coolant supplied at a fixed temperature).
+ * With minFlowKgS < maxFlowKgS a PI controller sets the flow and `controlNode` is required.
+ */
 export const coolantLoop = z
   .strictObject({
     name,
-    nodes: z.array(name).min(1, 'a loop cools at least one node'),
-    inletC: celsius('inletC'),
-    specificHeatJKgK: num('specificHeatJKgK').positive('specificHeatJKgK must be above 0 J/(kg K)'),
+    nodes: z.array(name).min(1, 'a loop cools at least one node').optional(),
+    inletC: celsius('inletC').optional(),
     effectiveness: fraction('effectiveness').optional(),
-    setPointC: celsius('setPointC'),
+    path: z.array(z.strictObject({
+      node: name,
+      conductanceWK: num('conductanceWK').positive('conductanceWK must be above 0 W/K').max(1e6),
+    })).min(1, 'a closed loop passes at least one node').max(200, 'a path has at most 200 elements').optional(),
+    fluidMassKg: num('fluidMassKg').positive('fluidMassKg must be above 0 kg').max(1e6).optional(),
+    densityKgM3: num('densityKgM3').positive('densityKgM3 must be above 0 kg/m^3').max(30000).optional(),
+    specificHeatJKgK: num('specificHeatJKgK').positive('specificHeatJKgK must be above 0 J/(kg K)'),
+    setPointC: celsius('setPointC').optional(),
     controlNode: name.optional(),
     minFlowKgS: num('minFlowKgS').min(0, 'minFlowKgS cannot be negative'),
     maxFlowKgS: num('maxFlowKgS').positive('maxFlowKgS must be above 0 kg/s'),
     nominalFlowKgS: num('nominalFlowKgS').positive('nominalFlowKgS must be above 0 kg/s'),
     proportionalKgSK: num('proportionalKgSK').min(0).optional(),
     integralKgSKs: num('integralKgSKs').min(0).optional(),
+    bandK: num('bandK').positive('bandK must be above 0 K').max(100).optional(),
+    feedforwardKgSW: num('feedforwardKgSW').min(-10, 'feedforwardKgSW is -10..10 kg/s per W').max(10, 'feedforwardKgSW is -10..10 kg/s per W').optional(),
+    feedforwardLeadS: num('feedforwardLeadS').min(-1e6).max(1e6).optional(),
   })
-  .refine((l) => l.minFlowKgS <= l.nominalFlowKgS && l.nominalFlowKgS <= l.maxFlowKgS, {
-    path: ['nominalFlowKgS'],
-    message: 'the flows need minFlowKgS <= nominalFlowKgS <= maxFlowKgS',
+  .superRefine((l, ctx) => {
+    if (!(l.minFlowKgS <= l.nominalFlowKgS && l.nominalFlowKgS <= l.maxFlowKgS)) {
+      ctx.addIssue({ code: 'custom', path: ['nominalFlowKgS'], message: `the flows need minFlowKgS <= nominalFlowKgS <= maxFlowKgS (got ${l.minFlowKgS}, ${l.nominalFlowKgS}, ${l.maxFlowKgS})` });
+    }
+    const closed = l.path !== undefined && l.inletC === undefined;
+    if (closed) {
+      if (l.nodes !== undefined) ctx.addIssue({ code: 'custom', path: ['nodes'], message: 'a closed loop lists its nodes in path; give nodes only with inletC (an open loop)' });
+      if (l.fluidMassKg === undefined) ctx.addIssue({ code: 'custom', path: ['fluidMassKg'], message: 'a closed loop needs the mass of its coolant (fluidMassKg)' });
+    } else {
+      if (l.path !== undefined) ctx.addIssue({ code: 'custom', path: ['inletC'], message: 'a loop with a path is closed: its coolant temperature is computed, so leave out inletC' });
+      if (l.inletC === undefined) ctx.addIssue({ code: 'custom', path: ['path'], message: 'give the path of a closed loop, or nodes and inletC for coolant supplied at a fixed temperature' });
+      if (l.nodes === undefined && l.path === undefined) ctx.addIssue({ code: 'custom', path: ['nodes'], message: 'an open loop lists the nodes it cools' });
+    }
+    if (l.minFlowKgS < l.maxFlowKgS) {
+      if (l.controlNode === undefined) ctx.addIssue({ code: 'custom', path: ['controlNode'], message: `the flow can vary (${l.minFlowKgS} to ${l.maxFlowKgS} kg/s): choose the one node it controls` });
+      if (l.setPointC === undefined) ctx.addIssue({ code: 'custom', path: ['setPointC'], message: 'a controlled loop needs its set point' });
+    }
   });
 
 const modelShape = {
@@ -181,10 +209,15 @@ function checkReferences(m: ModelFields, ctx: z.RefinementCtx): void {
   }
   (m.heaters ?? []).forEach((h, k) => free(['heaters', k, 'node'], h.node, 'a heater'));
   (m.loops ?? []).forEach((l, k) => {
-    l.nodes.forEach((n, j) => free(['loops', k, 'nodes', j], n, 'a loop'));
-    if (l.controlNode !== undefined && !l.nodes.includes(l.controlNode)) {
-      ctx.addIssue({ code: 'custom', path: ['loops', k, 'controlNode'], message: `controlNode ${JSON.stringify(l.controlNode)} is not one of the loop's nodes` });
-    }
+    (l.nodes ?? []).forEach((n, j) => free(['loops', k, 'nodes', j], n, 'a loop'));
+    (l.path ?? []).forEach((e, j) => free(['loops', k, 'path', j, 'node'], e.node, 'a loop'));
+    const seen = new Set<string>();
+    (l.path ?? []).forEach((e, j) => {
+      if (seen.has(e.node)) ctx.addIssue({ code: 'custom', path: ['loops', k, 'path', j, 'node'], message: `the path passes ${JSON.stringify(e.node)} twice` });
+      seen.add(e.node);
+    });
+    // The controlled node may be any node of the model (a loop can hold a node it reaches through a coupling).
+    if (l.controlNode !== undefined) free(['loops', k, 'controlNode'], l.controlNode, 'a loop controller');
   });
 }
 
@@ -246,7 +279,12 @@ export const thermalSolveResponse = z.object({
     atMinVoltage: voltageResult.optional(), atMaxVoltage: voltageResult.optional(),
   })),
   loops: z.array(z.object({
-    name: z.string(), flowKgS: z.array(z.number()), averageFlowKgS: z.number(), nominalFlowKgS: z.number(), averageToNominal: z.number(), heatRemovedW: z.number(),
+    name: z.string(), closed: z.boolean(), flowKgS: z.array(z.number()), averageFlowKgS: z.number(), nominalFlowKgS: z.number(), averageToNominal: z.number(), heatRemovedW: z.number(),
+    coolantC: z.array(z.object({ node: z.string(), temperaturesC: z.array(z.number()) })),
+    heatW: z.array(z.object({ node: z.string(), averageW: z.number() })),
+    saturatedFraction: z.number(),
+    densityKgM3: z.number().nullable(),
+    control: z.object({ node: z.string(), setPointC: z.number(), bandK: z.number(), maxDeviationK: z.number(), outsideBandS: z.number(), pass: z.boolean() }).nullable(),
   })),
   pass: z.boolean(),
   assumptions: z.array(z.string()),

@@ -13,10 +13,10 @@
 //   GET    admin/mail/:id                               -> mailMessage                   (instance administrator)
 // A workspace the caller is not a member of answers 404, never 403.
 import { z } from 'zod';
+import { roles, type Role } from './plain-lists';
 
-export const roles = ['owner', 'analyst', 'thermal', 'viewer'] as const;
+export { roles, type Role };
 export const role = z.enum(roles);
-export type Role = z.infer<typeof role>;
 
 export const workspace = z.object({ id: z.string(), name: z.string(), role });
 

@@ -4,7 +4,7 @@
 // Leaves out: higher zonal harmonics, prime meridians (no body-fixed frames are needed), rings, and
 // any spatial map of albedo or IR. Sources are named per value in `sources`; "from memory" marks a
 // value recalled from the named publication and not re-read here.
-import { SOLAR_CONSTANT_WM2, STEFAN_BOLTZMANN } from './constants';
+import { AU_KM, SOLAR_CONSTANT_WM2, STEFAN_BOLTZMANN } from './constants';
 import { PhysicsError } from './physics-error';
 
 export const bodyIds = [
@@ -37,12 +37,42 @@ export interface PoleModel {
   terms: readonly PoleTerm[];
 }
 
+/** Which published theory places a moon about its planet (moon-ephemeris.ts). */
+export type MoonTheory = 'meeus-moon' | 'meeus-galilean' | 'meeus-saturnian' | 'mean-elements';
+
+/** A moon's orbit about its planet: the theory that places it and the mean elements checks and warnings use. */
+export interface ParentOrbit {
+  theory: MoonTheory;
+  semiMajorAxisKm: number;
+  eccentricity: number;
+  periodDays: number;
+  /** The plane the orbit keeps near: the ecliptic (Earth's Moon) or the planet's equator. */
+  meanPlane: 'ecliptic' | 'parent-equator';
+  /** Only for 'mean-elements': the mean longitude at J2000, measured in the mean plane from its node on the ICRF equator. */
+  meanLongitudeJ2000Deg?: number;
+  source: string;
+}
+
+/**
+ * The surface temperature field of a body without a thick atmosphere: day side in radiative
+ * equilibrium with the Sun at the local zenith angle, night side at a floor temperature; each
+ * parameter with its published range (cap-radiance.ts integrates it over the cap a plate sees).
+ */
+export interface AirlessSurface {
+  emissivity: Range;
+  nightFloorK: Range;
+  sources: { emissivity: string; nightFloorK: string };
+}
+
 export interface Body {
   id: BodyId;
   name: string;
   kind: 'planet' | 'moon';
-  /** The planet whose heliocentric position stands in for a moon's. */
+  /** The planet whose heliocentric position, plus the moon's own offset, places a moon. */
   planetId: PlanetId;
+  /** The body a moon orbits (its shadow is added to the moon's); null for a planet. */
+  parentId: PlanetId | null;
+  parentOrbit: ParentOrbit | null;
   gmKm3S2: number;
   radiusKm: number;
   j2: number;
@@ -55,6 +85,8 @@ export interface Body {
   olrWm2: Range;
   /** True where a range is a placeholder awaiting the published design tables. */
   provisional: boolean;
+  /** Present for a body without a thick atmosphere: its IR comes from a surface temperature field. */
+  airless: AirlessSurface | null;
   sources: Record<string, string>;
 }
 
@@ -113,19 +145,45 @@ interface BodyData {
   albedo: Range;
   olrWm2: Range;
   provisional?: boolean;
+  parentOrbit?: ParentOrbit;
+  airless?: AirlessSurface;
   sources: Record<string, string>;
 }
+
+const SSD_MEAN = 'JPL SSD planetary satellite mean elements (from memory)';
+const moonOrbit = (
+  theory: MoonTheory, semiMajorAxisKm: number, eccentricity: number, periodDays: number, source: string,
+): ParentOrbit => ({
+  theory, semiMajorAxisKm, eccentricity, periodDays, meanPlane: theory === 'meeus-moon' ? 'ecliptic' : 'parent-equator',
+  source: `position: ${source}; mean a, e, period: ${SSD_MEAN}`,
+});
+const MEEUS_MOON = 'Meeus, Astronomical Algorithms ch. 47 (ELP-2000/82 main terms), as in astronomia moonposition';
+const MEEUS_GALILEAN = 'Meeus, Astronomical Algorithms ch. 44 high-accuracy theory (Lieske E5), as in astronomia jupitermoons';
+const MEEUS_SATURNIAN = 'Meeus, Astronomical Algorithms ch. 46 (Harper & Taylor), as in astronomia saturnmoons';
+const range = (min: number, nominal: number, max: number): Range => ({ min, nominal, max });
+const ICY_EMISSIVITY = 'icy satellite surfaces 0.90..0.96, as used in thermal models of Galileo PPR and Cassini CIRS data (from memory)';
+const icy = (nightFloorK: Range, floorSource: string): AirlessSurface => ({
+  emissivity: range(0.9, 0.93, 0.96), nightFloorK, sources: { emissivity: ICY_EMISSIVITY, nightFloorK: floorSource },
+});
 
 const data: BodyData[] = [
   {
     id: 'mercury', name: 'Mercury', planetId: 'mercury', gmKm3S2: 22031.868, radiusKm: 2440.5, j2: 50.3e-6,
     pole: fixedPole(281.0103, 61.4155, -0.0328, -0.0049),
-    albedo: flat(0.088),
+    albedo: range(0.068, 0.088, 0.088),
+    airless: {
+      emissivity: range(0.9, 0.95, 0.95),
+      nightFloorK: range(90, 100, 110),
+      sources: {
+        emissivity: '0.90..0.95, the range used in Mercury surface thermal models (Vasavada, Paige & Wood 1999, Icarus 141; from memory)',
+        nightFloorK: 'about 100 K before dawn at low latitudes (Vasavada, Paige & Wood 1999, Icarus 141; from memory)',
+      },
+    },
     // Day side near 700 K at perihelion, night side near 100 K: the extremes an airless body shows.
     olrWm2: { min: emittedWm2(100), nominal: equilibriumOlrWm2(0.088, orbits.mercury.a), max: emittedWm2(700) },
     sources: {
       gmKm3S2: FACT_SHEET, radiusKm: FACT_SHEET, j2: `${FACT_SHEET} (MESSENGER gravity field)`, pole: IAU_2015,
-      albedo: `${FACT_SHEET}, Bond albedo; ${NO_RANGE}`,
+      albedo: `nominal and max ${FACT_SHEET}, Bond albedo; min 0.068 (Mallama, Wang & Howard 2002, Icarus 155; from memory)`,
       olrWm2: `nominal ${ENERGY_BALANCE}; min/max sigma*T^4 for surface temperatures of about 100 K and 700 K (from memory)`,
     },
   },
@@ -160,12 +218,21 @@ const data: BodyData[] = [
       term(-3.8787, 1.5419, 125.045, -0.0529921), term(-0.1204, 0.0239, 250.089, -0.1059842),
       term(0.07, -0.0278, 260.008, 13.0120009), term(-0.0172, 0.0068, 176.625, 13.3407154),
     ]),
-    albedo: flat(0.11),
+    albedo: range(0.07, 0.11, 0.16),
+    airless: {
+      emissivity: range(0.9, 0.95, 0.97),
+      nightFloorK: range(90, 100, 120),
+      sources: {
+        emissivity: '0.95 in the Diviner-based thermal model, 0.90..0.97 over the measured range (Vasavada et al. 2012, JGR 117; from memory)',
+        nightFloorK: 'equatorial night about 95-100 K before dawn, about 120 K early in the night (LRO Diviner: Williams et al. 2017, Icarus 283; Vasavada et al. 2012; from memory)',
+      },
+    },
     olrWm2: { min: emittedWm2(95), nominal: equilibriumOlrWm2(0.11, orbits.earth.a), max: emittedWm2(390) },
+    parentOrbit: moonOrbit('meeus-moon', 384400, 0.0549, 27.321661, MEEUS_MOON),
     sources: {
       gmKm3S2: FACT_SHEET, radiusKm: `${FACT_SHEET}, equatorial radius`, j2: FACT_SHEET,
       pole: `${IAU_2015}, terms E1..E4 only`,
-      albedo: `${FACT_SHEET}, Bond albedo; ${NO_RANGE}`,
+      albedo: `nominal ${FACT_SHEET}, Bond albedo; min/max 0.07 (maria) .. 0.16 (highlands), the normal albedo of the Diviner thermal model (Vasavada et al. 2012, JGR 117; from memory)`,
       olrWm2: `nominal ${ENERGY_BALANCE}; min/max sigma*T^4 for about 95 K night and 390 K subsolar surface (LRO Diviner, from memory)`,
     },
   },
@@ -229,8 +296,10 @@ const data: BodyData[] = [
   {
     id: 'io', name: 'Io', planetId: 'jupiter', gmKm3S2: 5959.916, radiusKm: 1821.6, j2: 1859.5e-6,
     pole: fixedPole(268.05, 64.5, -0.009, 0.003, [jTerm(0.094, 0.04, J3), jTerm(0.024, 0.011, J4)]),
+    airless: icy(range(85, 90, 100), 'night about 85-100 K away from hot spots (Galileo PPR: Rathbun et al. 2004, Icarus 169; from memory)'),
     albedo: flat(0.63),
     olrWm2: flat(equilibriumOlrWm2(0.63, orbits.jupiter.a)),
+    parentOrbit: moonOrbit('meeus-galilean', 421800, 0.004, 1.769138, MEEUS_GALILEAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Anderson et al. 2001, Galileo gravity (from memory)', pole: IAU_2015,
@@ -243,8 +312,10 @@ const data: BodyData[] = [
     pole: fixedPole(268.08, 64.51, -0.009, 0.003, [
       jTerm(1.086, 0.468, J4), jTerm(0.06, 0.026, J5), jTerm(0.015, 0.007, J6), jTerm(0.009, 0.002, J7),
     ]),
+    airless: icy(range(80, 90, 100), 'night about 80-100 K at low latitudes (Galileo PPR: Rathbun et al. 2010, Icarus 210; from memory)'),
     albedo: flat(0.68),
     olrWm2: flat(equilibriumOlrWm2(0.68, orbits.jupiter.a)),
+    parentOrbit: moonOrbit('meeus-galilean', 671100, 0.009, 3.551181, MEEUS_GALILEAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Anderson et al. 1998, Galileo gravity (from memory)', pole: IAU_2015,
@@ -254,8 +325,10 @@ const data: BodyData[] = [
   {
     id: 'ganymede', name: 'Ganymede', planetId: 'jupiter', gmKm3S2: 9887.834, radiusKm: 2631.2, j2: 127.53e-6,
     pole: fixedPole(268.2, 64.57, -0.009, 0.003, [jTerm(-0.037, -0.016, J4), jTerm(0.431, 0.186, J5), jTerm(0.091, 0.039, J6)]),
+    airless: icy(range(70, 85, 100), 'night about 70-100 K (Galileo PPR: Orton et al. 1996, Science 274; from memory)'),
     albedo: flat(0.43),
     olrWm2: flat(equilibriumOlrWm2(0.43, orbits.jupiter.a)),
+    parentOrbit: moonOrbit('meeus-galilean', 1070400, 0.001, 7.154553, MEEUS_GALILEAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Anderson et al. 1996, Galileo gravity (from memory)', pole: IAU_2015,
@@ -265,8 +338,10 @@ const data: BodyData[] = [
   {
     id: 'callisto', name: 'Callisto', planetId: 'jupiter', gmKm3S2: 7179.289, radiusKm: 2410.3, j2: 32.7e-6,
     pole: fixedPole(268.72, 64.83, -0.009, 0.003, [jTerm(-0.068, -0.029, J5), jTerm(0.59, 0.254, J6), jTerm(0.01, -0.004, J8)]),
+    airless: icy(range(75, 85, 100), 'night about 75-100 K (Galileo PPR: Spencer 1987 / Orton et al. 1996; from memory)'),
     albedo: flat(0.13),
     olrWm2: flat(equilibriumOlrWm2(0.13, orbits.jupiter.a)),
+    parentOrbit: moonOrbit('meeus-galilean', 1882700, 0.007, 16.689018, MEEUS_GALILEAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Anderson et al. 2001, Galileo gravity (from memory)', pole: IAU_2015,
@@ -278,6 +353,7 @@ const data: BodyData[] = [
     pole: fixedPole(39.4827, 83.4279),
     albedo: flat(0.265),
     olrWm2: flat(equilibriumOlrWm2(0.265, orbits.saturn.a)),
+    parentOrbit: moonOrbit('meeus-saturnian', 1221870, 0.0288, 15.945421, MEEUS_SATURNIAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Iess et al. 2012, Cassini gravity (from memory)', pole: IAU_2015,
@@ -287,8 +363,10 @@ const data: BodyData[] = [
   {
     id: 'enceladus', name: 'Enceladus', planetId: 'saturn', gmKm3S2: 7.211, radiusKm: 252.1, j2: 5435.2e-6,
     pole: fixedPole(40.66, 83.52, -0.036, -0.004),
+    airless: icy(range(50, 60, 70), 'night about 50-70 K away from the south-polar vents (Cassini CIRS: Howett et al. 2010, Icarus 206; from memory)'),
     albedo: flat(0.81),
     olrWm2: flat(equilibriumOlrWm2(0.81, orbits.saturn.a)),
+    parentOrbit: moonOrbit('meeus-saturnian', 238040, 0.0047, 1.370218, MEEUS_SATURNIAN),
     sources: {
       gmKm3S2: 'JPL SSD planetary satellite physical parameters (from memory)', radiusKm: 'JPL SSD, mean radius (from memory)',
       j2: 'Iess et al. 2014, Cassini gravity (from memory)', pole: IAU_2015,
@@ -304,13 +382,16 @@ const bodies: ReadonlyMap<BodyId, Body> = new Map(
     const body: Body = {
       ...d,
       kind: d.id === d.planetId ? 'planet' : 'moon',
+      parentId: d.id === d.planetId ? null : d.planetId,
+      parentOrbit: d.parentOrbit ?? null,
       semiMajorAxisAu: orbit.a,
       eccentricity: orbit.e,
       solarYearDays: orbit.yearDays,
       provisional: d.provisional ?? false,
+      airless: d.airless ?? null,
       sources: {
         ...d.sources,
-        solarDistanceAu: d.id === d.planetId ? ORBIT_SOURCE : `${ORBIT_SOURCE}, of ${d.planetId} (the moon's own orbit is left out)`,
+        solarDistanceAu: d.id === d.planetId ? ORBIT_SOURCE : `${ORBIT_SOURCE}, of ${d.planetId}, plus the moon's own offset (${d.parentOrbit?.source ?? 'no theory'})`,
       },
     };
     return [d.id, body];
@@ -331,12 +412,18 @@ export function getBody(id: string): Body {
 
 export const allBodies = (): Body[] => bodyIds.map((id) => getBody(id));
 
-/** Perihelion and aphelion distances a(1 - e), a(1 + e), in AU. */
-export const solarDistanceRangeAu = (body: Body) => ({
-  mean: body.semiMajorAxisAu,
-  min: body.semiMajorAxisAu * (1 - body.eccentricity),
-  max: body.semiMajorAxisAu * (1 + body.eccentricity),
-});
+/**
+ * Perihelion and aphelion distances a(1 - e), a(1 + e), in AU; a moon adds its own apoapsis about
+ * its planet on either side (it can sit on the Sun's side or beyond the planet).
+ */
+export const solarDistanceRangeAu = (body: Body) => {
+  const moonAu = body.parentOrbit ? (body.parentOrbit.semiMajorAxisKm * (1 + body.parentOrbit.eccentricity)) / AU_KM : 0;
+  return {
+    mean: body.semiMajorAxisAu,
+    min: body.semiMajorAxisAu * (1 - body.eccentricity) - moonAu,
+    max: body.semiMajorAxisAu * (1 + body.eccentricity) + moonAu,
+  };
+};
 
 /** One body as GET /api/v1/bodies answers it (API.md "Other fixed routes"). */
 export interface BodySummary {
@@ -353,6 +440,10 @@ export interface BodySummary {
   albedo: Range;
   olrWm2: Range;
   provisional: boolean;
+  /** True for a body without a thick atmosphere, whose IR comes from a surface temperature field. */
+  airless: boolean;
+  /** That field's parameters and their published ranges; null for a body with an atmosphere. */
+  surfaceField: AirlessSurface | null;
   sources: Record<string, string>;
 }
 
@@ -362,5 +453,5 @@ export const bodySummaries = (): BodySummary[] =>
     id: b.id, name: b.name, kind: b.kind, planetId: b.planetId, gmKm3S2: b.gmKm3S2, radiusKm: b.radiusKm, j2: b.j2,
     poleRaDeg: b.pole.alpha0Deg, poleDecDeg: b.pole.delta0Deg,
     solarDistanceAu: solarDistanceRangeAu(b), albedo: { ...b.albedo }, olrWm2: { ...b.olrWm2 },
-    provisional: b.provisional, sources: { ...b.sources },
+    provisional: b.provisional, airless: b.airless !== null, surfaceField: b.airless, sources: { ...b.sources },
   }));

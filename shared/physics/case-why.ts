@@ -14,7 +14,13 @@ export interface CaseDecision {
   day: { date: string; betaDeg: number };
   /** The day of the shortest (hot) or longest (cold) eclipse when it is another day, evaluated as the case is. */
   eclipseExtreme: { date: string; betaDeg: number; eclipseDurationS: number; orbitAverageAbsorbedW: number } | null;
-  pair: { albedo: number; olrWm2: number; source: string };
+  /** The albedo/OLR pair; on an airless body, the surface temperature field its IR comes from. */
+  pair: {
+    albedo: number; olrWm2: number; source: string;
+    surfaceField?: { emissivity: number; nightFloorK: number; subsolarK: number; albedoRange: boolean };
+  };
+  /** About a moon (cold case): the mission's longest shadow the planet takes part in, which set the case's orbit. */
+  shadow?: { durationS: number; date: string; start: string; castBy: string[] };
   properties: PropertySet;
 }
 
@@ -33,7 +39,7 @@ export interface CaseWhyRecord {
   handEdited?: string[] | undefined;
 }
 
-export type CaseFactorKey = 'sun' | 'beta' | 'environment' | 'properties' | 'margins' | 'setup' | 'edited';
+export type CaseFactorKey = 'sun' | 'shadow' | 'beta' | 'environment' | 'properties' | 'margins' | 'setup' | 'edited';
 
 /** One deciding factor: a short headline figure, the full sentence and where its values come from. */
 export interface CaseFactor {
@@ -74,7 +80,8 @@ function sunFactor(r: CaseWhyRecord): CaseFactor[] {
 
 function betaFactor(r: CaseWhyRecord): CaseFactor[] {
   const d = r.decision;
-  if (!d) return [];
+  // About a moon, the longest shadow chose the orbit (shadowFactor says so).
+  if (!d || d.shadow) return [];
   const res = r.results;
   const hot = r.kind === 'hot';
   const eclipse = `eclipse ${minutes(res.eclipseDurationS)}`;
@@ -91,10 +98,28 @@ function betaFactor(r: CaseWhyRecord): CaseFactor[] {
   return [{ key: 'beta', title: 'Beta and eclipse', figure, text, sources: ['conical shadow, Sun as a uniform disk; node drift under J2'] }];
 }
 
+function shadowFactor(r: CaseWhyRecord): CaseFactor[] {
+  const x = r.decision?.shadow;
+  if (!x) return [];
+  const hhmm = (iso: string) => iso.slice(11, 16);
+  const start = r.conditions.orbitStart;
+  const how = x.castBy.length > 1 ? `${x.castBy[0]}'s own shadow joined to its planet's` : `${x.castBy[0]}'s shadow over the moon`;
+  const text = `the mission's longest shadow, ${f(x.durationS / 3600, 2)} h from ${x.date} ${hhmm(x.start)} UTC, cast by ${x.castBy.join(' and ')} (${how})` +
+    `${start ? `: the orbit from ${hhmm(start)} UTC is the case` : ''}, eclipse ${minutes(r.results.eclipseDurationS)} of the orbit, ${f(r.results.total.orbitAverageAbsorbedW)} W orbit-average absorbed`;
+  return [{ key: 'shadow', title: 'Longest shadow', figure: `${f(x.durationS / 3600, 2)} h on ${x.date}`, text, sources: ['conical umbra and penumbra with the Sun as a uniform disk; moons placed by their published theories'] }];
+}
+
 function environmentFactor(r: CaseWhyRecord): CaseFactor[] {
   const d = r.decision;
   if (!d) return [];
   const c = r.conditions;
+  const field = d.pair.surfaceField;
+  if (field && !(edited(r, 'albedo') || edited(r, 'olrWm2'))) {
+    const range = field.albedoRange ? `, the end of the range that makes the case ${r.kind === 'hot' ? 'hotter' : 'colder'}` : '';
+    const short = `planetary IR from the surface temperature field: Bond albedo ${f(c.albedo, 3)}${range}, emissivity ${f(field.emissivity, 2)}, ` +
+      `subsolar ${f(field.subsolarK, 0)} K in radiative equilibrium, night floor ${f(field.nightFloorK, 0)} K`;
+    return [{ key: 'environment', title: 'Albedo and ground temperature', figure: `albedo ${f(c.albedo, 2)}, ${f(field.subsolarK, 0)} K / ${f(field.nightFloorK, 0)} K`, text: `${short} (${d.pair.source})`, short, sources: [d.pair.source] }];
+  }
   const figure = `albedo ${f(c.albedo, 2)}, OLR ${f(c.olrWm2, 0)} W/m^2`;
   const byHand = edited(r, 'albedo') || edited(r, 'olrWm2');
   const text = byHand
@@ -150,7 +175,7 @@ function editedFactor(r: CaseWhyRecord): CaseFactor[] {
 
 /** The builders, in the order the factors are shown; one more deciding factor is one more entry. */
 export const factorBuilders: ((r: CaseWhyRecord) => CaseFactor[])[] = [
-  sunFactor, betaFactor, environmentFactor, propertyFactors, setupFactors, marginFactor, editedFactor,
+  sunFactor, shadowFactor, betaFactor, environmentFactor, propertyFactors, setupFactors, marginFactor, editedFactor,
 ];
 
 export const caseFactors = (r: CaseWhyRecord): CaseFactor[] => factorBuilders.flatMap((build) => build(r));

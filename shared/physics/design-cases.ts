@@ -9,8 +9,12 @@ import { caseRationale, fixed as f, type CaseDecision } from './case-why';
 import { designPairs, opticalProperties, type CaseMaterial, type EnvironmentPair, type Margins, type PropertySet } from './design-environment';
 import { candidateDays, maxBy, raanOnDateRad, scanMission, type ScanDay } from './design-scan';
 import { computeEnvironment, type EnvironmentResult } from './environment';
+import { capAssumptions, chooseCapModels } from './cap-loads';
+import { surfaceTemperatureK } from './cap-radiance';
+import type { Sampling } from './orbit-sampling';
 import type { SurfaceNormal } from './heat-loads';
 import { defineOrbit, type OrbitInput } from './orbit-definition';
+import { solarFluxWm2 } from './sun';
 import { DEG } from './vector3';
 
 export interface CaseSurface {
@@ -27,6 +31,8 @@ export interface CaseConditions {
   orbitEpoch: string;
   /** YYYY-MM-DD: sets the node (J2 drift) and the Sun's azimuth; beta and distance are given below. */
   date: string;
+  /** ISO 8601 UTC: where the orbit starts when not at 12:00 UTC of date (an orbit in the planet's shadow). */
+  orbitStart?: string;
   betaDeg: number;
   solarDistanceAu: number;
   albedo: number;
@@ -36,7 +42,14 @@ export interface CaseConditions {
   marginDirection: 'increase' | 'decrease';
   steps: number;
   surfaces: CaseSurface[];
+  /** An airless body's surface temperature field (its Bond albedo is `albedo`); absent: the uniform `olrWm2`. */
+  surfaceField?: { emissivity: number; nightFloorK: number } | undefined;
+  /** Where the series' samples fall; absent: evenly in time. */
+  sampling?: Sampling | undefined;
 }
+
+/** From this eccentricity on, a derived case's series are sampled evenly in eccentric anomaly. */
+export const ECCENTRIC_SAMPLING_FROM = 0.1;
 
 export interface LoadSummary {
   solarWm2: number;
@@ -67,6 +80,8 @@ export interface CaseResults {
   umbraDurationS: number;
   penumbraDurationS: number;
   tS: number[];
+  /** Each sample's share of the period, s, when the series are not evenly spaced in time. */
+  weightS?: number[];
   sunlit: number[];
   surfaces: CaseSurfaceResult[];
   total: { orbitAverageAbsorbedW: number; orbitAverageWithMarginW: number; peakAbsorbedW: number };
@@ -84,7 +99,7 @@ const noonOf = (date: string): Date => new Date(`${date}T12:00:00Z`);
 function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
   const body = getBody(c.bodyId);
   const orbit = defineOrbit(c.orbit, body);
-  const at = noonOf(c.date);
+  const at = c.orbitStart === undefined ? noonOf(c.date) : new Date(c.orbitStart);
   const raanDeg = raanOnDateRad(orbit, new Date(c.orbitEpoch), at) / DEG;
   return computeEnvironment({
     bodyId: c.bodyId,
@@ -93,7 +108,10 @@ function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
     betaDeg: c.betaDeg,
     solarDistanceAu: c.solarDistanceAu,
     albedo: c.albedo,
-    olrWm2: c.olrWm2,
+    ...(c.surfaceField
+      ? { irModel: 'surface-temperature' as const, surfaceEmissivity: c.surfaceField.emissivity, nightFloorK: c.surfaceField.nightFloorK }
+      : { irModel: 'uniform' as const, olrWm2: c.olrWm2 }),
+    sampling: c.sampling ?? 'time',
     steps,
     surfaces: c.surfaces.map((s) => ({ name: s.name, normal: s.normal, areaM2: s.areaM2, ...opticalProperties(s.material, c.properties) })),
   });
@@ -103,6 +121,8 @@ function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
 export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
   const env = environmentFor(c, c.steps);
   const factor = c.marginDirection === 'increase' ? 1 + margins.heatLoadPercent / 100 : 1 - margins.heatLoadPercent / 100;
+  // time weights per sample (equal when evenly spaced in time): averages stay time averages
+  const weights = env.sampleWeightsS ?? env.profile.map(() => env.periodS / env.profile.length);
   const surfaces = c.surfaces.map((s, i): CaseSurfaceResult => {
     const { absorptivity, emissivity } = opticalProperties(s.material, c.properties);
     const loads = env.profile.map((p) => p.surfaces[i]!);
@@ -112,14 +132,16 @@ export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
       irW: s.areaM2 * emissivity * w.irWm2,
     });
     const perStep = loads.map((l) => ({ ...l, ...watts(l) }));
-    const mean = (pick: (x: (typeof perStep)[number]) => number) => perStep.reduce((sum, x) => sum + pick(x), 0) / perStep.length;
-    const peakOf = (pick: (x: (typeof perStep)[number]) => number) => Math.max(...perStep.map(pick));
-    const summary = (f: typeof mean): LoadSummary => ({
+    const mean = (pick: (x: (typeof perStep)[number]) => number) => perStep.reduce((sum, x, k) => sum + pick(x) * weights[k]!, 0) / env.periodS;
+    const summary = (f: (pick: (x: (typeof perStep)[number]) => number) => number): LoadSummary => ({
       solarWm2: round(f((x) => x.solarWm2)), albedoWm2: round(f((x) => x.albedoWm2)), irWm2: round(f((x) => x.irWm2)),
       solarW: round(f((x) => x.solarW)), albedoW: round(f((x) => x.albedoW)), irW: round(f((x) => x.irW)),
       absorbedW: round(f((x) => x.absorbedW)),
     });
     const orbitAverage = summary(mean);
+    // the peaks the environment searched for between samples too (orbit-sampling.ts)
+    const peakLoad = env.peak.surfaces[i]!;
+    const peak = summary((pick) => pick({ ...peakLoad, ...watts(peakLoad) }));
     return {
       name: s.name, areaM2: s.areaM2, absorptivity, emissivity,
       series: {
@@ -128,7 +150,7 @@ export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
         absorbedW: perStep.map((x) => round(x.absorbedW)),
       },
       orbitAverage: { ...orbitAverage, absorbedWithMarginW: round(orbitAverage.absorbedW * factor) },
-      peak: summary(peakOf),
+      peak,
     };
   });
   const totalSeries = env.profile.map((p) => p.surfaces.reduce((sum, l) => sum + l.absorbedW, 0));
@@ -142,6 +164,7 @@ export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
     umbraDurationS: round(env.umbraDurationS, 1),
     penumbraDurationS: round(env.penumbraDurationS, 1),
     tS: env.profile.map((p) => round(p.tS, 3)),
+    ...(env.sampleWeightsS ? { weightS: env.sampleWeightsS.map((w) => round(w, 3)) } : {}),
     sunlit: env.profile.map((p) => round(p.sunlit, 5)),
     surfaces,
     total: { orbitAverageAbsorbedW: round(totalAverage), orbitAverageWithMarginW: round(totalAverage * factor), peakAbsorbedW: round(Math.max(...totalSeries)) },
@@ -210,6 +233,31 @@ interface Evaluated {
   day: ScanDay;
   env: EnvironmentResult;
   total: number;
+  /** Set when the orbit is not the one from 12:00 UTC (the cold case in the planet's shadow). */
+  orbitStart?: string;
+}
+
+interface DarkestDay {
+  day: ScanDay;
+  durationS: number;
+  castBy: string[];
+  startMs: number;
+  /** The orbit centred on the shadow's middle, ISO 8601 UTC. */
+  orbitStart: string;
+}
+
+/** The scan day with the longest shadow the planet takes part in, and the orbit centred on it; null for a planet's orbiter or none. */
+function longestParentShadow(scan: readonly ScanDay[], input: DerivationInput): DarkestDay | null {
+  const days = scan.filter((d) => d.parentShadow !== null);
+  if (days.length === 0) return null;
+  const day = maxBy(days, (d) => d.parentShadow!.durationS);
+  const shadow = day.parentShadow!;
+  const periodS = defineOrbit(input.orbit, getBody(input.bodyId)).periodS;
+  // The orbit is centred on the planet's part of the shadow when that outlasts an orbit (dark
+  // wherever the spacecraft is on it), else on the whole shadow.
+  const middleMs = shadow.parentS >= periodS ? shadow.parentMiddleMs : shadow.startMs + (shadow.durationS * 1000) / 2;
+  const startMs = middleMs - periodS * 500;
+  return { day, durationS: shadow.durationS, castBy: shadow.castBy, startMs: shadow.startMs, orbitStart: new Date(Math.round(startMs)).toISOString() };
 }
 
 /** The hot and the cold case of a mission (DOMAIN.md "Cases"). */
@@ -245,37 +293,58 @@ function deriveOne(
   const range = solarDistanceRangeAu(body);
   const distanceAu = spansFullYear ? (hot ? range.min : range.max) : sunDay.solarDistanceAu;
 
-  const base = (day: ScanDay, steps: number): CaseConditions => ({
+  const sampling = orbitSampling(input.orbit);
+  const base = (day: ScanDay, steps: number, albedo = pair.albedo): CaseConditions => ({
     bodyId: input.bodyId, orbit: input.orbit, orbitEpoch: input.orbitEpoch, date: day.date, betaDeg: day.betaDeg,
-    solarDistanceAu: distanceAu, albedo: pair.albedo, olrWm2: pair.olrWm2, properties,
+    solarDistanceAu: distanceAu, albedo, olrWm2: pair.olrWm2, properties,
     marginDirection: hot ? 'increase' : 'decrease', steps, surfaces: input.surfaces,
+    ...(pair.surfaceField ? { surfaceField: pair.surfaceField } : {}),
+    ...(sampling ? { sampling } : {}),
   });
   const evaluated: Evaluated[] = candidates.map((day) => {
     const env = environmentFor(base(day, SCAN_STEPS), SCAN_STEPS);
-    return { day, env, total: env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0) };
+    return { day, env, total: totalOf(env) };
   });
+  // About a moon, the cold case is the orbit amid the mission's longest shadow its planet takes part in.
+  const darkest = hot ? null : longestParentShadow(scan, input);
+  if (darkest) {
+    const conditions = { ...base(darkest.day, SCAN_STEPS), orbitStart: darkest.orbitStart };
+    const env = environmentFor(conditions, SCAN_STEPS);
+    evaluated.push({ day: darkest.day, env, total: totalOf(env), orbitStart: darkest.orbitStart });
+  }
   // Hot: the least eclipse (ties to the largest |beta|); cold: the longest eclipse (smallest |beta|).
   const eclipseExtreme = maxBy(evaluated, (e) => -sign * e.env.eclipseDurationS * 1e3 + sign * Math.abs(e.day.betaDeg) * 1e-3);
   // The scan's coarse orbit ranks the days; the best few and the eclipse extreme are evaluated as the
   // case is (its steps), and the case is the best of those, so its words never call a day the
-  // largest (smallest) while quoting another that beats it.
+  // largest (smallest) while quoting another that beats it. About a moon, the longest shadow decides.
   const steps = input.steps ?? 120;
-  const finalists = [...evaluated].sort((a, b) => sign * (b.total - a.total)).slice(0, FINALISTS);
+  // About a moon the case's orbit starts amid the planet's shadow (conditions.orbitStart).
+  const startingAt = (e: Evaluated, c: CaseConditions): CaseConditions => (e.orbitStart === undefined ? c : { ...c, orbitStart: e.orbitStart });
+  const finalists = darkest ? [evaluated[evaluated.length - 1]!] : [...evaluated].sort((a, b) => sign * (b.total - a.total)).slice(0, FINALISTS);
   if (!finalists.includes(eclipseExtreme)) finalists.push(eclipseExtreme);
-  const scored = finalists.map((e) => ({ e, results: evaluateCase(base(e.day, steps), input.margins) }));
-  const best = maxBy(scored, (x) => sign * x.results.total.orbitAverageAbsorbedW);
+  const scored = finalists.map((e) => ({ e, results: evaluateCase(startingAt(e, base(e.day, steps)), input.margins) }));
+  const best = darkest ? scored[0]! : maxBy(scored, (x) => sign * x.results.total.orbitAverageAbsorbedW);
   const chosen = best.e;
-  const conditions = base(chosen.day, steps);
-  const results = best.results;
+  // An airless body: the end of the albedo range that makes the chosen day hotter (or colder).
+  const albedo = pair.albedoChoices
+    ? maxBy(pair.albedoChoices, (a) => sign * totalOf(environmentFor(startingAt(chosen, base(chosen.day, SCAN_STEPS, a)), SCAN_STEPS)))
+    : pair.albedo;
+  const conditions = startingAt(chosen, base(chosen.day, steps, albedo));
+  const results = albedo === pair.albedo ? best.results : evaluateCase(conditions, input.margins);
   const extremeScored = scored.find((x) => x.e === eclipseExtreme)!;
   const extremeResults = chosen === eclipseExtreme || Math.abs(results.eclipseDurationS - extremeScored.results.eclipseDurationS) < 1 ? null : extremeScored.results;
+  const field = pair.surfaceField;
   const decision: CaseDecision = {
     sun: { basis: spansFullYear ? (hot ? 'perihelion' : 'aphelion') : 'mission', date: sunDay.date, distanceAu: distanceAu },
     day: { date: chosen.day.date, betaDeg: round(chosen.day.betaDeg, 4) },
     eclipseExtreme: extremeResults
       ? { date: eclipseExtreme.day.date, betaDeg: extremeResults.betaDeg, eclipseDurationS: extremeResults.eclipseDurationS, orbitAverageAbsorbedW: extremeResults.total.orbitAverageAbsorbedW }
       : null,
-    pair: { albedo: pair.albedo, olrWm2: pair.olrWm2, source: pair.source },
+    pair: {
+      albedo, olrWm2: pair.olrWm2, source: pair.source,
+      ...(field ? { surfaceField: { emissivity: field.emissivity, nightFloorK: field.nightFloorK, subsolarK: round(surfaceTemperatureK({ bondAlbedo: albedo, ...field }, solarFluxWm2(distanceAu), 1), 1), albedoRange: pair.albedoChoices !== undefined } } : {}),
+    },
+    ...(darkest ? { shadow: { durationS: round(darkest.durationS, 1), date: darkest.day.date, start: new Date(darkest.startMs).toISOString(), castBy: darkest.castBy.map((id) => getBody(id).name) } } : {}),
     properties,
   };
   const rationale = caseRationale({ kind, bodyName: body.name, conditions, results, margins: input.margins, decision });
@@ -292,3 +361,23 @@ function deriveOne(
   });
   return { kind, conditions, environmentSource: pair.source, provisional: pair.provisional, decision, rationale, surfaceDrivers, results };
 }
+
+/** The albedo, IR and sampling models a case's loads use, in words (cap-loads.ts chooses them as for the compute route). */
+export function caseModelAssumptions(c: CaseConditions): string[] {
+  const body = getBody(c.bodyId);
+  const orbit = defineOrbit(c.orbit, body);
+  const request = c.surfaceField
+    ? { irModel: 'surface-temperature' as const, surfaceEmissivity: c.surfaceField.emissivity, nightFloorK: c.surfaceField.nightFloorK }
+    : { irModel: 'uniform' as const, olrWm2: c.olrWm2 };
+  const models = chooseCapModels(body, request, c.albedo, orbit.apoapsisAltitudeKm);
+  const sampling = c.sampling === 'eccentric-anomaly'
+    ? ['series sampled evenly in eccentric anomaly (dense at periapsis); averages weight each sample by its share of the period (weightS)']
+    : ['series sampled evenly in time; the peaks of an eccentric orbit are searched between samples too'];
+  return [...capAssumptions(models, solarFluxWm2(c.solarDistanceAu)), ...sampling];
+}
+
+const totalOf = (env: EnvironmentResult): number => env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0);
+
+/** Eccentric orbits' series are sampled evenly in eccentric anomaly so the periapsis pass is in them. */
+const orbitSampling = (orbit: OrbitInput): Sampling | undefined =>
+  orbit.eccentricity !== undefined && orbit.eccentricity >= ECCENTRIC_SAMPLING_FROM ? 'eccentric-anomaly' : undefined;

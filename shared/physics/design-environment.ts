@@ -14,6 +14,13 @@ export interface EnvironmentPair {
   /** Where the pair came from, in words that travel with the case. */
   source: string;
   provisional: boolean;
+  /** An airless body's surface temperature field (emissivity, night floor); its Bond albedo is `albedo`. */
+  surfaceField?: { emissivity: number; nightFloorK: number } | undefined;
+  /**
+   * Bond albedos to try on the chosen day (the ends of the body's published range): a higher albedo
+   * reflects more and emits less, so which end is hotter depends on the surfaces' alpha and epsilon.
+   */
+  albedoChoices?: number[] | undefined;
 }
 
 export interface DesignPairs {
@@ -27,6 +34,7 @@ const BOUNDING =
 
 /** The hot and cold albedo/OLR sets of a body, for an orbit of the given inclination. */
 export function designPairs(body: Body, inclinationDeg: number): DesignPairs {
+  if (body.airless) return airlessPairs(body);
   const flatAlbedo = body.albedo.min === body.albedo.max;
   const flatOlr = body.olrWm2.min === body.olrWm2.max;
   if (flatAlbedo && flatOlr) {
@@ -39,6 +47,27 @@ export function designPairs(body: Body, inclinationDeg: number): DesignPairs {
     hot: { albedo: body.albedo.max, olrWm2: body.olrWm2.max, source: `${band}: ${BOUNDING}`, provisional: true },
     cold: { albedo: body.albedo.min, olrWm2: body.olrWm2.min, source: `${band}: ${BOUNDING}`, provisional: true },
   };
+}
+
+/**
+ * An airless body's hot and cold sets: its surface temperature field with the emissivity and night
+ * floor at the hot (high) or cold (low) end of their published ranges, and both ends of the Bond
+ * albedo range tried on the chosen day.
+ */
+function airlessPairs(body: Body): DesignPairs {
+  const surface = body.airless!;
+  const albedoSource = body.sources['albedo'] ?? '';
+  const pair = (end: 'max' | 'min'): EnvironmentPair => ({
+    albedo: body.albedo.nominal,
+    olrWm2: body.olrWm2.nominal,
+    surfaceField: { emissivity: surface.emissivity[end], nightFloorK: surface.nightFloorK[end] },
+    albedoChoices: body.albedo.min === body.albedo.max ? undefined : [body.albedo.min, body.albedo.max],
+    source: `${body.name} surface temperature field, the ${end === 'max' ? 'hot' : 'cold'} end of each published range: ` +
+      `emissivity ${surface.emissivity[end]} (${surface.sources.emissivity}); night floor ${surface.nightFloorK[end]} K (${surface.sources.nightFloorK}); ` +
+      `Bond albedo ${body.albedo.min}..${body.albedo.max} (${albedoSource})`,
+    provisional: false,
+  });
+  return { hot: pair('max'), cold: pair('min') };
 }
 
 export interface Margins {

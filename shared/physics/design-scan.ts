@@ -2,12 +2,10 @@
 // the node drifting under J2 and the Sun moving, and the body's distance from the Sun.
 // Leaves out: drag and every perturbation but J2's secular node drift (see beta-angle.ts).
 // Sources: Gilmore Vol. I ch. 2 (beta angle); Vallado ch. 9 (J2 nodal regression); VSOP87 (sun.ts).
-import type { Body } from './bodies';
-import { betaFromVectorsRad } from './beta-angle';
+import type { Body, BodyId } from './bodies';
+import { missionDays, type MissionDays } from './mission-days';
 import type { Orbit } from './orbit-definition';
-import { orbitBasis } from './orbit-position';
 import { PhysicsError } from './physics-error';
-import { sunFromBody } from './sun';
 import { DEG } from './vector3';
 
 export interface ScanDay {
@@ -16,6 +14,8 @@ export interface ScanDay {
   betaDeg: number;
   raanDeg: number;
   solarDistanceAu: number;
+  /** About a moon: the longest shadow its planet takes part in that day (mission-days.ts), or null. */
+  parentShadow: { durationS: number; startMs: number; castBy: BodyId[]; parentS: number; parentMiddleMs: number } | null;
 }
 
 const DAY_MS = 86_400_000;
@@ -32,9 +32,7 @@ function checkDate(date: string, path: string): Date {
   return d;
 }
 
-/** RAAN in radians on a date, drifted from its value at the orbit's epoch at the J2 nodal rate. */
-export const raanOnDateRad = (orbit: Orbit, orbitEpoch: Date, at: Date): number =>
-  orbit.raanRad + orbit.nodalRateRadS * ((at.getTime() - orbitEpoch.getTime()) / 1000);
+export { raanOnDateRad } from './mission-days';
 
 const wrapDeg = (deg: number): number => ((deg % 360) + 360) % 360;
 
@@ -50,21 +48,28 @@ export function scanMission(body: Body, orbit: Orbit, orbitEpoch: Date, startDat
   const days = Math.round((end.getTime() - start.getTime()) / DAY_MS);
   const stepDays = Math.max(1, Math.ceil((days + 1) / MAX_SAMPLES));
   const out: ScanDay[] = [];
-  for (let k = 0; k <= days; k += stepDays) out.push(sample(body, orbit, orbitEpoch, new Date(start.getTime() + k * DAY_MS)));
+  const scan = missionDays(body, orbit, orbitEpoch.getTime(), start.getTime(), end.getTime());
+  for (let k = 0; k <= days; k += stepDays) out.push(sample(scan, start.getTime() + k * DAY_MS, stepDays));
   // The last day always counts: a perihelion or a beta peak may sit on it.
-  if (days % stepDays !== 0) out.push(sample(body, orbit, orbitEpoch, end));
+  if (days % stepDays !== 0) out.push(sample(scan, end.getTime(), 1));
   return out;
 }
 
-function sample(body: Body, orbit: Orbit, orbitEpoch: Date, at: Date): ScanDay {
-  const raanRad = raanOnDateRad(orbit, orbitEpoch, at);
-  const { w } = orbitBasis(orbit.inclinationRad, raanRad, 0);
-  const sun = sunFromBody(body, at);
+function sample(scan: MissionDays, ms: number, stepDays: number): ScanDay {
+  const day = scan.at(ms);
+  const halfWindowMs = (stepDays * DAY_MS) / 2;
+  let parentShadow: ScanDay['parentShadow'] = null;
+  for (const span of scan.parentSpans(ms - halfWindowMs, ms + halfWindowMs)) {
+    if (!parentShadow || span.durationS > parentShadow.durationS) parentShadow = {
+      durationS: span.durationS, startMs: span.startMs, castBy: span.castBy, parentS: span.parentS, parentMiddleMs: span.parentMiddleMs,
+    };
+  }
   return {
-    date: at.toISOString().slice(0, 10),
-    betaDeg: betaFromVectorsRad(w, sun.direction) / DEG,
-    raanDeg: wrapDeg(raanRad / DEG),
-    solarDistanceAu: sun.distanceAu,
+    date: new Date(ms).toISOString().slice(0, 10),
+    betaDeg: day.betaDeg,
+    raanDeg: wrapDeg(day.raanRad / DEG),
+    solarDistanceAu: day.solarDistanceAu,
+    parentShadow,
   };
 }
 

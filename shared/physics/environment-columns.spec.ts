@@ -35,11 +35,11 @@ describe('computeEnvironmentColumns (the compute route\'s physics in arrays)', (
     expect(answer.eclipseFraction).toBe(columns.eclipse.eclipseFraction);
   });
 
-  it('averages are the column means and peaks the column maxima, per component (definition, no source)', () => {
+  it('averages are the column means; an eccentric orbit\'s peaks are at least the column maxima (searched between samples too) (definition, no source)', () => {
     for (const component of ['solarWm2', 'albedoWm2', 'irWm2', 'absorbedW'] as const) {
       loads[component].forEach((values, j) => {
         expect(averages[component][j]).toBeCloseTo(values.reduce((sum, v) => sum + v, 0) / values.length, 9);
-        expect(loads.peaks[component][j]).toBe(Math.max(...values));
+        expect(loads.peaks[component][j]).toBeGreaterThanOrEqual(Math.max(...values));
       });
     }
   });

@@ -8,15 +8,13 @@
 import { getBody, type BodyId } from './bodies';
 import type { EclipseSummary } from './eclipse';
 import type { Surface, SurfaceLoad } from './heat-loads';
-import { apsidalRateRadS } from './kepler';
 import { defineOrbit, type OrbitInput } from './orbit-definition';
 import {
-  eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, shadeGrid, type GridShade, type OrbitGrid, type PerifocalSun,
+  eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, shadeGrid, type GridShade, type OrbitGrid,
 } from './orbit-grid';
-import { AU_KM } from './constants';
+import { longestShadow, missionDays } from './mission-days';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2 } from './sun';
-import { sunTrack } from './sun-track';
 import { prepareSurfaces, type PreparedSurface } from './surface-grid';
 import { DEG } from './vector3';
 import { plateToSphereViewFactor } from './view-factors';
@@ -54,6 +52,16 @@ export interface MissionSweepRow {
   penumbraDurationS: number;
   /** Orbit-average incident fluxes and absorbed power per surface. */
   surfaces: SurfaceLoad[];
+  /**
+   * The longest continuous shadow of the row's day (the stepDays centred on the row), penumbra
+   * included, s: the body's own over one orbit, or - about a moon - a passage through its planet's
+   * shadow with the moon's own shadows that join on. 0 without shadow.
+   */
+  longestShadowS: number;
+  /** Which bodies cast it ('europa', 'jupiter', or both); empty without shadow. */
+  longestShadowCastBy: BodyId[];
+  /** When it starts (ISO 8601 UTC) for a shadow the planet takes part in; null for the body's own. */
+  longestShadowStart: string | null;
 }
 
 export interface MissionSweepResult {
@@ -101,8 +109,8 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   const startMs = toMs(request.epochStart, 'epochStart');
   const orbitEpochMs = request.orbitEpoch === undefined ? startMs : toMs(request.orbitEpoch, 'orbitEpoch');
   const endMs = startMs + (rowCount - 1) * stepDays * DAY_MS;
-  const track = sunTrack(body, startMs, endMs);
-  const apsidalRate = orbit.circular ? 0 : apsidalRateRadS(body, orbit.semiMajorAxisKm, orbit.eccentricity, orbit.inclinationRad);
+  const days = missionDays(body, orbit, orbitEpochMs, startMs, endMs);
+  const apsidalRate = days.apsidalRateRadS;
   const albedo = request.albedo ?? body.albedo.nominal;
   const olrWm2 = request.olrWm2 ?? body.olrWm2.nominal;
   const surfaces = request.surfaces ?? [];
@@ -113,8 +121,6 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   // IR depends only on the view factor, the same on every date: its orbit sum is computed once.
   const irSums = prepared.map((p) => (p.normal === null ? Number.NaN : p.viewFactor.reduce((s, f) => s + f, 0)));
   const constantViewFactor = constantViewFactors(prepared);
-  const [ci, si] = [Math.cos(orbit.inclinationRad), Math.sin(orbit.inclinationRad)];
-  const sunVector = new Float64Array(3);
   const shade = gridShade(steps);
   const solarSums = new Float64Array(prepared.length);
   const albedoSums = new Float64Array(prepared.length);
@@ -125,26 +131,15 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
 
   for (let row = 0; row < rowCount; row++) {
     const ms = startMs + row * stepDays * DAY_MS;
-    const distanceAu = track.at(ms, sunVector);
-    const elapsedS = (ms - orbitEpochMs) / 1000;
-    const raan = orbit.raanRad + orbit.nodalRateRadS * elapsedS;
-    const argp = orbit.argPeriapsisRad + apsidalRate * elapsedS;
-    // Sun components along P, Q, W (Vallado ch. 2, perifocal-to-inertial rotation)
-    const [cO, sO, cw, sw] = [Math.cos(raan), Math.sin(raan), Math.cos(argp), Math.sin(argp)];
-    const [x, y, z] = [sunVector[0], sunVector[1], sunVector[2]];
-    const sun: PerifocalSun = {
-      sp: x * (cO * cw - sO * sw * ci) + y * (sO * cw + cO * sw * ci) + z * (sw * si),
-      sq: x * (-cO * sw - sO * cw * ci) + y * (-sO * sw + cO * cw * ci) + z * (cw * si),
-      sw: x * (sO * si) + y * (-cO * si) + z * ci,
-      distanceKm: distanceAu * AU_KM,
-    };
+    const { sun, betaDeg, raanRad: raan, solarDistanceAu: distanceAu } = days.at(ms);
     const flux = solarFluxWm2(distanceAu);
     shadeGrid(grid, sun, shade);
     accumulate(prepared, grid, shade, sun.sw, body.radiusKm, constantViewFactor, solarSums, albedoSums, sunIrSums);
     const eclipse: EclipseSummary = scanGrid === grid
       ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm)
       : eclipseOnGrid(orbit, scanGrid, sun, body.radiusKm);
-    const betaDeg = Math.asin(Math.max(-1, Math.min(1, sun.sw))) / DEG;
+    const halfWindowMs = (stepDays * DAY_MS) / 2;
+    const longest = longestShadow(body, eclipse.umbraS + eclipse.penumbraS, days.parentSpans(ms - halfWindowMs, ms + halfWindowMs));
     minBeta = Math.min(minBeta, betaDeg);
     maxBeta = Math.max(maxBeta, betaDeg);
     const loads: SurfaceLoad[] = new Array(prepared.length);
@@ -159,6 +154,8 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
       date: new Date(ms).toISOString(), betaDeg, raanDeg: wrapDeg(raan), solarDistanceAu: distanceAu, solarFluxWm2: flux,
       eclipseFraction: eclipse.eclipseFraction, eclipseDurationS: eclipse.eclipseDurationS,
       umbraDurationS: eclipse.umbraS, penumbraDurationS: eclipse.penumbraS, surfaces: loads,
+      longestShadowS: longest.durationS, longestShadowCastBy: longest.castBy,
+      longestShadowStart: longest.startMs === null ? null : new Date(longest.startMs).toISOString(),
     };
   }
   return {

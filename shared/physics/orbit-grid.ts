@@ -49,6 +49,14 @@ export function trueAnomalyAt(orbit: Orbit, tS: number): number {
 
 /** `steps` samples at tS = k T / steps, k = 0 .. steps - 1. */
 export function orbitGrid(orbit: Orbit, bodyRadiusKm: number, steps: number): OrbitGrid {
+  const times = new Float64Array(steps);
+  for (let k = 0; k < steps; k++) times[k] = (k * orbit.periodS) / steps;
+  return orbitGridAt(orbit, bodyRadiusKm, times);
+}
+
+/** Samples at the given times after periapsis (orbit-sampling.ts chooses uneven ones). */
+export function orbitGridAt(orbit: Orbit, bodyRadiusKm: number, times: Float64Array): OrbitGrid {
+  const steps = times.length;
   const arrays = () => new Float64Array(steps);
   const grid: OrbitGrid = {
     steps, periodS: orbit.periodS, tS: arrays(), trueAnomalyRad: arrays(), cosNu: arrays(), sinNu: arrays(),
@@ -56,7 +64,7 @@ export function orbitGrid(orbit: Orbit, bodyRadiusKm: number, steps: number): Or
   };
   const { semiMajorAxisKm: a, eccentricity: e } = orbit;
   for (let k = 0; k < steps; k++) {
-    const tS = (k * orbit.periodS) / steps;
+    const tS = times[k];
     const nu = trueAnomalyAt(orbit, tS);
     const c = Math.cos(nu);
     // conic equation r = a (1 - e^2) / (1 + e cos nu)

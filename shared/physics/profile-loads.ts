@@ -5,6 +5,7 @@
 // because at 3600 samples x 20 surfaces building 72,000 objects costs several times the physics.
 // Leaves out: nothing of surface-grid.ts's loadAt; the formulas are the same (direct solar S
 // cos(incidence) times the sunlit share, albedo S a F cos(theta_subsolar) on the sunlit side, IR OLR F).
+import type { CapColumns } from './cap-loads';
 import type { SurfaceLoad } from './heat-loads';
 import type { GridShade, OrbitGrid } from './orbit-grid';
 import type { PreparedSurface } from './surface-grid';
@@ -39,10 +40,14 @@ const totals = (count: number): LoadTotals => ({
   solarWm2: new Float64Array(count), albedoWm2: new Float64Array(count), irWm2: new Float64Array(count), absorbedW: new Float64Array(count),
 });
 
-/** Loads of every prepared surface at every sample; `sunW` is the Sun's orbit-normal component, constant over the orbit. */
+/**
+ * Loads of every prepared surface at every sample; `sunW` is the Sun's orbit-normal component,
+ * constant over the orbit. `cap` holds albedo and IR columns from the cap quadrature (cap-loads.ts)
+ * that replace the closed forms where given.
+ */
 export function profileColumns(
   prepared: readonly PreparedSurface[], grid: OrbitGrid, shade: GridShade, sunW: number,
-  bodyRadiusKm: number, solarFluxWm2: number, albedo: number, olrWm2: number,
+  bodyRadiusKm: number, solarFluxWm2: number, albedo: number, olrWm2: number, cap: CapColumns | null = null,
 ): ProfileColumns {
   const steps = grid.steps;
   const count = prepared.length;
@@ -62,7 +67,7 @@ export function profileColumns(
     // A Sun-pointed surface's tilt from nadir moves with the Sun: its cosine and view factor per sample first.
     const [cosSun, viewFactor] = p.normal === null ? sunPointed(grid, shade, sunW, bodyRadiusKm) : [null, p.viewFactor];
     const [nx, ny, nz] = p.normal ?? [0, 0, 0];
-    fillSurface(out, j, shade, cosSun, nx, nz, ny * sunW, viewFactor, p, solarFluxWm2, albedo, olrWm2);
+    fillSurface(out, j, shade, cosSun, nx, nz, ny * sunW, viewFactor, p, solarFluxWm2, albedo, olrWm2, cap?.albedoWm2?.[j] ?? null, cap?.irWm2?.[j] ?? null);
   }
   return out;
 }
@@ -86,6 +91,7 @@ function sunPointed(grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusK
 function fillSurface(
   out: ProfileColumns, j: number, shade: GridShade, cosSun: Float64Array | null, nx: number, nz: number, fromNormal: number,
   viewFactor: Float64Array, p: PreparedSurface, solarFluxWm2: number, albedo: number, olrWm2: number,
+  capAlbedo: Float64Array | null, capIr: Float64Array | null,
 ): void {
   const { cx, cz, sunlit } = shade;
   const { areaM2, absorptivity, emissivity } = p.surface;
@@ -108,8 +114,8 @@ function fillSurface(
     const cosine = cosSun === null ? nx * cx[k] + nz * z + fromNormal : cosSun[k];
     const f = viewFactor[k];
     const solarWm2 = cosine > 0 ? solarFluxWm2 * sunlit[k] * cosine : 0;
-    const albedoWm2 = z > 0 ? solarAlbedo * f * z : 0;
-    const irWm2 = olrWm2 * f;
+    const albedoWm2 = capAlbedo !== null ? capAlbedo[k] : z > 0 ? solarAlbedo * f * z : 0;
+    const irWm2 = capIr !== null ? capIr[k] : olrWm2 * f;
     const absorbedW = areaM2 * (absorptivity * (solarWm2 + albedoWm2) + emissivity * irWm2);
     solar[k] = solarWm2;
     albedoColumn[k] = albedoWm2;

@@ -71,9 +71,10 @@ describe('the Sun from VSOP87', () => {
     expect(extreme).toBeLessThan(1.7);
   });
 
-  it('a moon sees the Sun through its planet: Europa and Jupiter share the distance (the task\'s simplification)', () => {
+  it('a moon sees the Sun from where it is: Europa within its orbit radius of Jupiter\'s distance (closed form; parent-shadow.spec.ts checks the Moon)', () => {
     const at = new Date('2027-03-20T12:00:00Z');
-    expect(sunFromBody(getBody('europa'), at).distanceAu).toBe(sunFromBody(getBody('jupiter'), at).distanceAu);
+    const difference = Math.abs(sunFromBody(getBody('europa'), at).distanceAu - sunFromBody(getBody('jupiter'), at).distanceAu);
+    expect(difference).toBeLessThan(680000 / 149597870.7);
   });
 
   it('Earth\'s perihelion and aphelion 147.09 and 152.10 million km (NASA Earth fact sheet; from memory)', () => {

@@ -1,15 +1,17 @@
 // The Sun as seen from a central body at an epoch: direction in the body's own equatorial frame
 // (from its IAU pole) and distance, from the VSOP87B heliocentric theory of the planets; the solar
 // flux by the inverse-square law.
-// Leaves out: light time, aberration and nutation (arcseconds), the Moon's and other moons' own
-// offsets from their planet (the Moon sits 0.0026 AU from Earth: under 0.15 deg and 0.5 % in flux).
+// A moon's Sun is its planet's moved by the moon's own offset (moon-ephemeris.ts): the Moon sits up
+// to 0.0027 AU from Earth, 0.5 % in flux at full and new moon.
+// Leaves out: light time, aberration and nutation (arcseconds).
 // Sources: Bretagnon & Francou 1988 (VSOP87) with astronomia's tables (vsop87.ts); Meeus, Astronomical
 // Algorithms, ch. 25 and 32; IAU WGCCRE 2015 for the poles.
 import { solarDistanceRangeAu, type Body, type PlanetId } from './bodies';
 import {
-  DAYS_PER_JULIAN_CENTURY, J2000_JD, OBLIQUITY_J2000_DEG, SECONDS_PER_DAY, SOLAR_CONSTANT_WM2, TT_MINUS_UTC_S,
+  AU_KM, DAYS_PER_JULIAN_CENTURY, J2000_JD, OBLIQUITY_J2000_DEG, SECONDS_PER_DAY, SOLAR_CONSTANT_WM2, TT_MINUS_UTC_S,
 } from './constants';
-import { cross, DEG, dot, fromSpherical, norm, scale, unit, type Vector3 } from './vector3';
+import { moonOffsetKm } from './moon-ephemeris';
+import { cross, DEG, dot, fromSpherical, norm, scale, subtract, unit, type Vector3 } from './vector3';
 import { vsop87Position } from './vsop87';
 
 /** Julian ephemeris date (TT) of a UTC instant. */
@@ -76,7 +78,8 @@ export interface SunGeometry {
 export function sunFromBody(body: Body, epoch: Date): SunGeometry {
   const jde = julianDateTT(epoch);
   const helio = heliocentricEclipticAu(body.planetId, jde);
-  const towardSunIcrf = eclipticToEquatorial(scale(helio, -1));
+  // the moon's offset from its planet, km to AU (zero for a planet)
+  const towardSunIcrf = subtract(eclipticToEquatorial(scale(helio, -1)), scale(moonOffsetKm(body, jde), 1 / AU_KM));
   const distanceAu = norm(towardSunIcrf);
   const directionIcrf = scale(towardSunIcrf, 1 / distanceAu);
   const direction = toBodyFrame(bodyFrameAxes(body, jde), directionIcrf);

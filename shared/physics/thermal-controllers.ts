@@ -6,6 +6,7 @@
 // "Margins"). Proportional-integral controllers clamp their integral term to what the actuator can
 // give, so they do not wind up while saturated.
 import { KELVIN_OFFSET, ThermalModelError, type ThermalModelInput } from './thermal-model';
+import { isClosedLoop } from './thermal-loops';
 import { capacitanceOf, nodeIndexOf, type ThermalNetwork } from './thermal-network';
 
 /** PI defaults (our choice, no source): full power 1 K below the set point, integral time 600 s. */
@@ -28,7 +29,11 @@ interface HeaterPlan {
 }
 
 interface LoopPlan {
+  /** Open loop: the nodes fed at the inlet temperature; closed: none (its terms are the network's). */
   frees: number[];
+  /** The closed loop's index in net.loops, or -1 for an open loop. */
+  closed: number;
+  /** The controlled node, or -1 for a constant flow. */
   control: number;
   inletK: number;
   conductancePerFlow: number;
@@ -38,6 +43,8 @@ interface LoopPlan {
   nominalFlow: number;
   kp: number;
   ki: number;
+  /** Feedforward flow per step over the orbit, kg/s (empty without feedforward). */
+  feedforward: Float64Array;
 }
 
 export class ThermalControllers {
@@ -55,6 +62,7 @@ export class ThermalControllers {
   readonly extraWK: Float64Array;
   readonly extraSource: Float64Array;
   switches = 0;
+  private readonly net: ThermalNetwork;
 
   /** `heaterScale[h]`: this run's power over the installed power, (V / V_nominal)^2. */
   constructor(model: ThermalModelInput, net: ThermalNetwork, heaterScale: readonly number[]) {
@@ -84,23 +92,37 @@ export class ThermalControllers {
         ki: h.integralWKs ?? kp / DEFAULT_INTEGRAL_TIME_S,
       };
     });
+    let closedCount = 0;
     this.loops = (model.loops ?? []).map((loop, k) => {
       const path = `loops.${k}`;
-      const frees = loop.nodes.map((name, j) => freeNode(name, `${path}.nodes.${j}`, 'a coolant loop'));
-      const control = freeNode(loop.controlNode ?? loop.nodes[0], `${path}.controlNode`, 'a loop controller');
-      const capacitance = capacitanceOf(model.nodes[net.nodeOfFree[control]], `${path}.controlNode`);
+      const closed = isClosedLoop(loop);
+      const frees = closed ? [] : (loop.nodes ?? []).map((name, j) => freeNode(name, `${path}.nodes.${j}`, 'a coolant loop'));
+      const pathFrees = closed ? (loop.path ?? []).map((e, j) => freeNode(e.node, `${path}.path.${j}.node`, 'a coolant loop')) : frees;
+      const controlled = loop.minFlowKgS < loop.maxFlowKgS;
+      if (controlled && loop.controlNode === undefined) {
+        throw new ThermalModelError(`${path}: the flow can vary between ${loop.minFlowKgS} and ${loop.maxFlowKgS} kg/s, so choose the node it controls (controlNode)`, `${path}.controlNode`);
+      }
+      if (controlled && loop.setPointC === undefined) throw new ThermalModelError(`${path}: a controlled loop needs setPointC`, `${path}.setPointC`);
+      const control = controlled ? freeNode(loop.controlNode ?? '', `${path}.controlNode`, 'a loop controller') : -1;
       const conductancePerFlow = (loop.effectiveness ?? 1) * loop.specificHeatJKgK;
       const span = loop.maxFlowKgS - loop.minFlowKgS;
-      // Gain limit as for heaters: flow gain x c_p x (T - T_in) acts as a power gain; (T - T_in) taken as 20 K.
-      const kp = loop.proportionalKgSK ?? Math.min(span / (2 * DEFAULT_PI_BAND_K), (EXPLICIT_GAIN_LIMIT * capacitance) / (net.dtS * conductancePerFlow * 20));
+      let kp = 0;
+      if (controlled) {
+        const capacitance = capacitanceOf(model.nodes[net.nodeOfFree[control]], `${path}.controlNode`);
+        // Gain limit as for heaters: flow gain x c_p x (T - T_coolant) acts as a power gain; (T - T_coolant) taken as 20 K.
+        kp = loop.proportionalKgSK ?? Math.min(span / (2 * DEFAULT_PI_BAND_K), (EXPLICIT_GAIN_LIMIT * capacitance) / (net.dtS * conductancePerFlow * 20));
+      }
       return {
         frees, control, conductancePerFlow,
-        inletK: loop.inletC + KELVIN_OFFSET,
-        setPointK: loop.setPointC + KELVIN_OFFSET,
+        closed: closed ? closedCount++ : -1,
+        inletK: (loop.inletC ?? 0) + KELVIN_OFFSET,
+        setPointK: (loop.setPointC ?? 0) + KELVIN_OFFSET,
         minFlow: loop.minFlowKgS, maxFlow: loop.maxFlowKgS, nominalFlow: loop.nominalFlowKgS,
-        kp, ki: loop.integralKgSKs ?? kp / DEFAULT_INTEGRAL_TIME_S,
+        kp, ki: controlled ? (loop.integralKgSKs ?? kp / DEFAULT_INTEGRAL_TIME_S) : 0,
+        feedforward: controlled && loop.feedforwardKgSW ? feedforwardFlow(net, pathFrees, loop.feedforwardKgSW, loop.feedforwardLeadS ?? 0) : new Float64Array(0),
       };
     });
+    this.net = net;
     this.on = new Uint8Array(this.heaters.length);
     this.heaterIntegralW = new Float64Array(this.heaters.length);
     this.heaterPowerW = new Float64Array(this.heaters.length);
@@ -121,6 +143,7 @@ export class ThermalControllers {
       if (!h.thermostat) this.heaterIntegralW[k] = Math.min(Math.max(heaterPowerW[k] ?? 0, 0), h.powerW);
     });
     this.loops.forEach((loop, k) => {
+      if (loop.control < 0) return;
       const flow = flowKgS[k] ?? loop.nominalFlow;
       this.loopIntegral[k] = Math.min(Math.max(flow, loop.minFlow), loop.maxFlow) - loop.nominalFlow;
     });
@@ -128,9 +151,10 @@ export class ThermalControllers {
 
   /**
    * Sets every output from the temperatures T at the start of a step of dtS seconds and fills
-   * extraWK / extraSource. Answers true when a loop's flow moved enough that the factor should be rebuilt.
+   * extraWK / extraSource. `step` is the step's index in the orbit (for feedforward). Answers true
+   * when a loop's flow moved enough that the factor should be rebuilt.
    */
-  update(T: Float64Array, dtS: number): boolean {
+  update(T: Float64Array, dtS: number, step = 0): boolean {
     // Called every step: plain loops, no closures.
     const { extraWK, extraSource, heaters, loops } = this;
     if (loops.length) extraWK.fill(0);
@@ -157,14 +181,26 @@ export class ThermalControllers {
     let refactor = false;
     for (let k = 0; k < loops.length; k++) {
       const loop = loops[k];
-      const error = T[loop.control] - loop.setPointK;
-      const lo = loop.minFlow - loop.nominalFlow;
-      const hi = loop.maxFlow - loop.nominalFlow;
-      this.loopIntegral[k] = Math.min(Math.max(this.loopIntegral[k] + loop.ki * error * dtS, lo), hi);
-      const flow = Math.min(Math.max(loop.nominalFlow + loop.kp * error + this.loopIntegral[k], loop.minFlow), loop.maxFlow);
+      let flow = loop.nominalFlow;
+      if (loop.control >= 0) {
+        const error = T[loop.control] - loop.setPointK;
+        const lo = loop.minFlow - loop.nominalFlow;
+        const hi = loop.maxFlow - loop.nominalFlow;
+        const ff = loop.feedforward.length ? loop.feedforward[step % loop.feedforward.length] : 0;
+        const wanted = loop.nominalFlow + ff + loop.kp * error + this.loopIntegral[k];
+        // Anti-windup: no integration while the flow is held at a limit the error pushes it past,
+        // and the integral itself kept within the flow range (Astrom & Murray, Feedback Systems, 10.4).
+        const pushing = (wanted >= loop.maxFlow && error > 0) || (wanted <= loop.minFlow && error < 0);
+        if (!pushing) this.loopIntegral[k] = Math.min(Math.max(this.loopIntegral[k] + loop.ki * error * dtS, lo), hi);
+        flow = Math.min(Math.max(loop.nominalFlow + ff + loop.kp * error + this.loopIntegral[k], loop.minFlow), loop.maxFlow);
+      }
       this.flowKgS[k] = flow;
       if (Math.abs(flow - this.factoredFlow[k]) > LOOP_REFACTOR_SHARE * Math.max(this.factoredFlow[k], loop.maxFlow * 1e-3)) {
         refactor = true;
+      }
+      if (loop.closed >= 0) {
+        this.net.loops?.setFlow(loop.closed, flow);
+        continue;
       }
       // Pumped loop heat: effectiveness x m_dot c_p (T_node - T_inlet) (DOMAIN.md "Thermal model")
       const g = loop.conductancePerFlow * flow;
@@ -177,11 +213,23 @@ export class ThermalControllers {
     return refactor;
   }
 
-  /** Heat the loop takes from its nodes at temperatures T with its current flow, W. */
+  /** Heat an open loop takes from its nodes at temperatures T with its current flow, W (a closed loop's is per element, in the orbit stepper). */
   loopHeatW(k: number, T: Float64Array): number {
     const loop = this.loops[k];
     const g = loop.conductancePerFlow * this.flowKgS[k];
     return loop.frees.reduce((sum, free) => sum + g * (T[free] - loop.inletK), 0);
   }
+}
 
+/**
+ * Feedforward flow at each step of the orbit: gain x (Q(t + lead) - mean Q), Q the load the case
+ * puts on the loop's nodes (absorbed plus dissipated, from the network's per-step sources).
+ */
+function feedforwardFlow(net: ThermalNetwork, frees: readonly number[], gainKgSW: number, leadS: number): Float64Array {
+  const total = net.steps * net.substeps;
+  const load = new Float64Array(total);
+  for (let s = 0; s < total; s++) for (const free of frees) load[s] += net.sourceW[s * net.n + free];
+  const mean = load.reduce((a, b) => a + b, 0) / total;
+  const lead = Math.round(leadS / net.dtS);
+  return load.map((_, s) => gainKgSW * (load[(((s + lead) % total) + total) % total] - mean));
 }

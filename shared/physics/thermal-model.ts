@@ -81,25 +81,46 @@ export interface HeaterInput {
   busVoltage?: BusVoltage;
 }
 
+/** One element of a closed loop's path: the coolant passes its node's cold plate (or panel) with this UA. */
+export interface CoolantPathElement {
+  node: string;
+  conductanceWK: number;
+}
+
 /**
- * A pumped loop: each of its nodes gives the coolant effectiveness * flow * c_p * (T_node - T_inlet)
- * (each node's cold plate sees the loop's flow at the inlet temperature). The flow is set by a
- * proportional-integral controller holding the control node at the set point.
+ * A pumped loop (API.md "Coolant loops"). Closed: a `path` and no `inletC`; the coolant passes the
+ * path's nodes in order and returns to the first, its temperature computed (thermal-loops.ts).
+ * Open: `nodes` + `inletC`; each node gives the coolant effectiveness * flow * c_p * (T_node - T_inlet).
+ * With minFlowKgS < maxFlowKgS the flow is set by a proportional-integral controller (with
+ * anti-windup) holding `controlNode` at the set point; with them equal the flow is constant.
  */
 export interface CoolantLoopInput {
   name: string;
-  nodes: readonly string[];
-  inletC: number;
-  specificHeatJKgK: number;
+  /** Open form. */
+  nodes?: readonly string[];
+  inletC?: number;
   effectiveness?: number;
-  setPointC: number;
-  /** The node whose temperature the flow controller holds; the loop's first node when not given. */
+  /** Closed form. */
+  path?: readonly CoolantPathElement[];
+  fluidMassKg?: number;
+  densityKgM3?: number;
+  specificHeatJKgK: number;
+  setPointC?: number;
+  /** The node whose temperature the flow controller holds; required when the flow can vary. */
   controlNode?: string;
   minFlowKgS: number;
   maxFlowKgS: number;
   nominalFlowKgS: number;
   proportionalKgSK?: number;
   integralKgSKs?: number;
+  /** The control requirement: the controlled node within +/- bandK of the set point. */
+  bandK?: number;
+  /**
+   * Feedforward from the case's known loads: flow += feedforwardKgSW * (Q(t + lead) - mean Q), Q the
+   * absorbed and dissipated load on the loop's nodes (W).
+   */
+  feedforwardKgSW?: number;
+  feedforwardLeadS?: number;
 }
 
 export interface ThermalMargins {
@@ -189,13 +210,36 @@ export interface HeaterResult {
   atMaxVoltage?: HeaterVoltageResult;
 }
 
+/** How well a loop's controller holds its node (API.md "Coolant loops": control). */
+export interface ControlFigures {
+  node: string;
+  setPointC: number;
+  bandK: number;
+  /** Largest |T - set point| over the periodic orbit, K. */
+  maxDeviationK: number;
+  /** Time per orbit outside +/- bandK, s. */
+  outsideBandS: number;
+  /** maxDeviationK within bandK. */
+  pass: boolean;
+}
+
 export interface LoopResult {
   name: string;
+  closed: boolean;
   flowKgS: number[];
   averageFlowKgS: number;
   nominalFlowKgS: number;
   averageToNominal: number;
+  /** Closed: the heat the coolant moves (the sum of what it takes up); open: what it removes. */
   heatRemovedW: number;
+  /** The coolant leaving each path element over the orbit (closed loops). */
+  coolantC: { node: string; temperaturesC: number[] }[];
+  /** Orbit-average heat the coolant takes from each element (negative where it gives heat up). */
+  heatW: { node: string; averageW: number }[];
+  /** Share of the orbit the flow sits at its minimum or maximum (0 without a controller). */
+  saturatedFraction: number;
+  densityKgM3: number | null;
+  control: ControlFigures | null;
 }
 
 /** Why a run's answer is its last orbit rather than the periodic state, in user words and figures. */

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { STEFAN_BOLTZMANN as SIGMA } from './constants';
+import { periodicFirstOrderLag } from './thermal-closed-forms';
 import { ThermalConvergenceError, type ThermalSolveInput } from './thermal-model';
 import { solveThermal } from './thermal-solver';
 
@@ -23,7 +24,6 @@ describe('thermal solver against analytic results', () => {
   it('a node switched on and off follows the lumped-capacitance exponential, tau = C/G (Incropera, Fundamentals of Heat and Mass Transfer, Ch. 5)', () => {
     const C = 9000;
     const G = 1.5;
-    const tau = C / G;
     const periodS = 6000;
     const onS = 2000;
     const q = 30;
@@ -36,12 +36,7 @@ describe('thermal solver against analytic results', () => {
       couplings: [{ from: 'unit', to: 'plate', conductanceWK: G }],
     });
     // Periodic solution of C dT/dt = Q - G T: rise toward Q/G while on, decay toward 0 while off.
-    const tInf = q / G;
-    const a = Math.exp(-onS / tau);
-    const b = Math.exp(-(periodS - onS) / tau);
-    const low = (tInf * (1 - a) * b) / (1 - a * b);
-    const high = tInf + (low - tInf) * a;
-    const exact = (t: number) => (t <= onS ? tInf + (low - tInf) * Math.exp(-t / tau) : high * Math.exp(-(t - onS) / tau));
+    const { at: exact, low, high } = periodicFirstOrderLag(q, G, C, onS, periodS);
     r.tS.forEach((t, k) => expect(Math.abs(r.nodes[0].temperaturesC[k] - exact(t))).toBeLessThan(0.02));
     expect(r.nodes[0].maxC).toBeCloseTo(high, 1);
     expect(r.nodes[0].minC).toBeCloseTo(low, 1);
@@ -136,7 +131,7 @@ describe('heaters and loops against energy balances', () => {
     const r = solveThermal({
       ...orbit,
       nodes: [{ name: 'amplifier', capacitanceJK: 5000, initialC: 20, dissipationW: 80 }],
-      loops: [{ name: 'loop A', nodes: ['amplifier'], inletC: 10, specificHeatJKgK: 3500, effectiveness: 0.8, setPointC: 25, minFlowKgS: 0.0005, maxFlowKgS: 0.01, nominalFlowKgS: 0.002 }],
+      loops: [{ name: 'loop A', nodes: ['amplifier'], inletC: 10, specificHeatJKgK: 3500, effectiveness: 0.8, setPointC: 25, controlNode: 'amplifier', minFlowKgS: 0.0005, maxFlowKgS: 0.01, nominalFlowKgS: 0.002 }],
     });
     const loop = r.loops[0];
     expect(r.nodes[0].meanC).toBeCloseTo(25, 1);

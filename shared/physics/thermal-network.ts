@@ -11,6 +11,7 @@
 // contracts quickly and rebuilt when it does not.
 import { STEFAN_BOLTZMANN } from './constants';
 import { minimumDegreeOrder, SparseCholesky } from './sparse-cholesky';
+import { ClosedLoops, withCoolantLumps } from './thermal-loops';
 import { KELVIN_OFFSET, ThermalConvergenceError, ThermalModelError, type DissipationSchedule, type OrbitSeries, type ThermalModelInput } from './thermal-model';
 
 /** An implicit step whose iteration did not settle: the free node that moved most, where it started and where it got to. */
@@ -52,6 +53,8 @@ export interface ThermalNetwork {
   readonly sourceW: Float64Array;
   readonly initialK: Float64Array;
   readonly fixedK: Float64Array;
+  /** Closed coolant loops (their lumps are free unknowns after the model's nodes), or null. */
+  readonly loops: ClosedLoops | null;
 }
 
 const radiatingArea = (area: number | undefined, eps: number | undefined) => (area ?? 0) * (eps ?? 0);
@@ -94,7 +97,8 @@ export function nodeIndexOf(model: ThermalModelInput): Map<string, number> {
   return index;
 }
 
-export function buildNetwork(model: ThermalModelInput, substeps = 1): ThermalNetwork {
+export function buildNetwork(userModel: ThermalModelInput, substeps = 1): ThermalNetwork {
+  const model = withCoolantLumps(userModel);
   const index = nodeIndexOf(model);
   const find = (name: string, path: string) => {
     const i = index.get(name);
@@ -215,6 +219,7 @@ export function buildNetwork(model: ThermalModelInput, substeps = 1): ThermalNet
     n, nodeOfFree, freeOfNode, capacitanceJK, radiationWK4, boundaryWK: boundaryFree,
     adjStart, adjIndex, adjConductanceWK, adjRadiationWK4, adjFactorEntry, factor,
     steps, substeps, dtS, sourceW, initialK, fixedK,
+    loops: model === userModel ? null : new ClosedLoops(model, userModel.nodes.length, freeOfNode, factor),
   };
 }
 
@@ -242,7 +247,8 @@ export function assembleNetworkMatrix(net: ThermalNetwork, T: Float64Array, capa
     diag[i] = d;
     dominance = Math.max(dominance, off / d);
   }
-  return dominance;
+  // Closed loops: their terms, and how much of a diagonal their couplings take.
+  return net.loops ? Math.max(dominance, net.loops.addSymmetric(diag, lower)) : dominance;
 }
 
 /**
@@ -279,11 +285,12 @@ export class ImplicitStep {
     const { net, diag, lower } = this;
     const dominance = assembleNetworkMatrix(net, T, alpha / dtS, extraWK, diag, lower);
     // Gauss-Seidel contracts by about the square of this ratio per sweep.
-    this.sweeping = dominance < 0.3;
+    this.sweeping = dominance < (net.loops ? 0.7 : 0.3);
     if (!net.factor.factor(diag, lower)) {
       const free = Math.max(0, net.factor.failedColumn);
       throw new StepDivergence(free, T[free], NaN, true);
     }
+    net.loops?.prepare(net.factor);
     this.factored = true;
     this.factorAlpha = alpha;
     this.factorDtS = dtS;
@@ -299,7 +306,7 @@ export class ImplicitStep {
     extraWK: Float64Array, extraSource: Float64Array, toleranceK: number): number {
     const { net, t4, diag } = this;
     const n = net.n;
-    const { capacitanceJK, radiationWK4, boundaryWK, adjStart, adjIndex, adjConductanceWK, adjRadiationWK4 } = net;
+    const { capacitanceJK, radiationWK4, boundaryWK, adjStart, adjIndex, adjConductanceWK, adjRadiationWK4, loops } = net;
     for (let i = 0; i < n; i++) {
       const sq = T[i] * T[i];
       t4[i] = sq * sq;
@@ -316,6 +323,7 @@ export class ImplicitStep {
           const j = adjIndex[p];
           out += adjConductanceWK[p] * (ti - T[j]) + adjRadiationWK4[p] * (t4i - t4[j]);
         }
+        if (loops) out += loops.heatOut(i, T);
         const d = -out / diag[i];
         const t = ti + d;
         T[i] = t;
@@ -364,7 +372,9 @@ export class ImplicitStep {
         }
         r[i] = -out;
       }
+      if (net.loops) net.loops.subtractHeatOut(T, r);
       net.factor.solve(r);
+      net.loops?.correct(r);
       let change = 0;
       for (let i = 0; i < n; i++) {
         T[i] += r[i];

@@ -52,6 +52,8 @@ export class OrbitStepper {
   readonly totalJ: Float64Array;
   readonly totalOnS: Float64Array;
   readonly switchOns: SwitchOn[][];
+  /** Per closed-loop path element: the heat the coolant took from it over the last orbit, J. */
+  readonly elementJ: Float64Array;
 
   constructor(
     private readonly net: ThermalNetwork,
@@ -73,6 +75,7 @@ export class OrbitStepper {
     this.totalJ = new Float64Array(H);
     this.totalOnS = new Float64Array(H);
     this.switchOns = controllers.heaters.map(() => []);
+    this.elementJ = new Float64Array(net.loops?.g.length ?? 0);
   }
 
   /** Moves the state to `next`, and the BDF2 history with it so the step after the jump keeps its slope. */
@@ -102,6 +105,9 @@ export class OrbitStepper {
     heaterPeakW.fill(0);
     loopFlowSum.fill(0);
     loopHeatJ.fill(0);
+    const elementJ = this.elementJ;
+    elementJ.fill(0);
+    const closed = net.loops;
     const on = controllers.on;
     const heaterPowerW = controllers.heaterPowerW;
     let T = this.T;
@@ -116,7 +122,7 @@ export class OrbitStepper {
         loopSamplesKgS.fill(0, sample * L, sample * L + L);
       }
       wasOn.set(on);
-      if (controllers.update(T, dtS)) step.invalidate();
+      if (controllers.update(T, dtS, s)) step.invalidate();
       for (let k = 0; k < H; k++) {
         if (on[k] && !wasOn[k]) {
           const list = this.switchOns[k];
@@ -162,6 +168,7 @@ export class OrbitStepper {
         loopHeatJ[k] += controllers.loopHeatW(k, Tnext) * dtS;
         loopSamplesKgS[sample * L + k] += flow / substeps;
       }
+      for (let e = 0; e < elementJ.length; e++) elementJ[e] += closed!.coolantSideHeatW(e, Tnext, history, alpha, dtS, net.capacitanceJK) * dtS;
       for (let i = 0; i < n; i++) {
         const t = Tnext[i];
         if (t < minK[i]) minK[i] = t;

@@ -16,6 +16,7 @@
 import { DEFAULT_MAX_ORBITS, DEFAULT_TOLERANCE_K, KELVIN_OFFSET, temperatureWords, ThermalConvergenceError, type ThermalModelInput, type ThermalSolveOptions } from './thermal-model';
 import { AndersonAcceleration } from './anderson-acceleration';
 import { ThermalControllers } from './thermal-controllers';
+import { LoopIntegrals } from './thermal-loop-integrals';
 import { OrbitCorrection } from './thermal-orbit-correction';
 import { newSummary, OrbitStepper, type OrbitSummary, type SwitchOn } from './thermal-orbit-stepper';
 import { buildNetwork, ImplicitStep, StepDivergence, type ThermalNetwork } from './thermal-network';
@@ -58,6 +59,8 @@ export interface PeriodicRun {
   loopSamplesKgS: Float64Array[];
   loopAverageKgS: number[];
   loopHeatW: number[];
+  /** Per closed-loop path element (net.loops order): the heat the coolant took from it, orbit average, W. */
+  elementHeatW: number[];
   iterations: number;
   factorizations: number;
 }
@@ -177,7 +180,11 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
   const stepper = new OrbitStepper(net, controllers, step, startK);
   const summaries: OrbitSummary[] = [];
   // Orbit-map acceleration; switched off for good once it stops helping (a thermostat limit cycle).
-  const anderson = options.accelerate === false ? null : new AndersonAcceleration(n);
+  // The loops' PI integrals ride along with the temperatures in the extrapolated orbit map.
+  const integrals = new LoopIntegrals(controllers);
+  const mapStart = new Float64Array(n + integrals.size);
+  const mapEnd = new Float64Array(n + integrals.size);
+  const anderson = options.accelerate === false ? null : new AndersonAcceleration(n + integrals.size);
   let accelerating = anderson !== null;
   const correction = new OrbitCorrection(net);
   const driftK = new Float64Array(n);
@@ -196,6 +203,7 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
   for (let orbit = 1; orbit <= maxOrbits; orbit++) {
     const summary = summaries.length >= 2 * MAX_PERIOD_ORBITS ? summaries.shift()! : newSummary(n, H, L);
     orbitStartK.set(stepper.T);
+    integrals.read(mapStart, n);
     startOn.set(controllers.on);
     const switchesBefore = controllers.switches;
     try {
@@ -290,10 +298,15 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
         // orbit-averaged estimate misses (radiation, thermostat switching).
         if (Number.isNaN(distanceK)) correction.distance(orbitMeanK, driftK, model.periodS, controllers, summary.heaterOnS, distance);
         for (let i = 0; i < n; i++) corrected[i] = T[i] + distance[i];
-        const next = anderson.next(orbitStartK, corrected);
+        mapStart.set(orbitStartK);
+        mapEnd.set(corrected);
+        integrals.read(mapEnd, n);
+        const next = anderson.next(mapStart, mapEnd);
+        const nextK = next.subarray(0, n);
         // A node with nowhere to lose its heat has no periodic state to jump to: step on and let the climb show.
-        if (next.every((t) => t > 1 && t < 1e5)) {
-          stepper.jumpTo(next);
+        if (nextK.every((t) => t > 1 && t < 1e5)) {
+          stepper.jumpTo(nextK);
+          integrals.write(next, n);
           lastJumpOrbit = orbit;
         } else accelerating = false;
       }
@@ -332,6 +345,7 @@ export function runPeriodic(model: ThermalModelInput, net: ThermalNetwork, heate
         loopSamplesKgS: OrbitStepper.bySeries(stepper.loopSamplesKgS, L, steps),
         loopAverageKgS: controllers.loops.map((_, k) => sum((o) => o.loopFlowSum, k) / (total * averagedOrbits)),
         loopHeatW: controllers.loops.map((_, k) => sum((o) => o.loopHeatJ, k) / span),
+        elementHeatW: Array.from(stepper.elementJ, (j) => j / model.periodS),
         iterations: step.iterations,
         factorizations: step.factorizations,
       };

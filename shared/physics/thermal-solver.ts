@@ -4,6 +4,7 @@
 // Pass/fail takes the coldest prediction of all the runs against the minimum limits and the hottest
 // against the maximum limits.
 import { checkLimits } from './thermal-limits';
+import { loopResults } from './thermal-loop-results';
 import { DEFAULT_MAX_ORBITS, DEFAULT_TOLERANCE_K, KELVIN_OFFSET, ThermalConvergenceError, type HeaterResult, type HeaterVoltageResult, type NodeResult, type ThermalSolveInput, type ThermalSolveResult, type UnsettledRun } from './thermal-model';
 import { buildNetwork, type ThermalNetwork } from './thermal-network';
 import { runPeriodic, unsettledMessage, type PeriodicRun } from './thermal-periodic';
@@ -71,14 +72,7 @@ export function solveThermal(input: ThermalSolveInput): ThermalSolveResult {
     };
   });
 
-  const loops = (input.loops ?? []).map((loop, k) => ({
-    name: loop.name,
-    flowKgS: roundedSeries(base.loopSamplesKgS[k], 0, 1e6),
-    averageFlowKgS: round(base.loopAverageKgS[k], 6),
-    nominalFlowKgS: loop.nominalFlowKgS,
-    averageToNominal: round(base.loopAverageKgS[k] / loop.nominalFlowKgS),
-    heatRemovedW: round(base.loopHeatW[k]),
-  }));
+  const loops = loopResults(input, net, base);
 
   return {
     converged: unsettled === null,
@@ -125,7 +119,8 @@ function assumptions(input: ThermalSolveInput, net: ThermalNetwork, withBus: boo
     list.push('Thermostat cycles that do not repeat with the orbit are judged by their averages over 24 orbits.');
   }
   if (withBus) list.push('Heater power scales with the square of the bus voltage; pass/fail uses the coldest and hottest of the nominal, minimum and maximum voltage runs.');
-  if ((input.loops ?? []).length) list.push("Each loop node's cold plate sees the loop's flow at the inlet temperature: effectiveness x flow x c_p x (T_node - T_inlet).");
+  if ((input.loops ?? []).some((l) => l.inletC !== undefined)) list.push("Each node of an open loop sees the loop's flow at its fixed inlet temperature: effectiveness x flow x c_p x (T_node - T_inlet).");
+  if (net.loops) list.push('A closed loop carries its coolant as one lump per path element (its share of the fluid mass); each element takes effectiveness x flow x c_p x (T_node - T_coolant in) with effectiveness 1 - exp(-UA/(flow c_p)); flow held over each step, set from the controlled node at its start.');
   const m = input.margins;
   list.push(m && (m.operatingK || m.survivalK)
     ? `Limits checked with margins of ${m.operatingK ?? 0} K (operating) and ${m.survivalK ?? 0} K (survival).`

@@ -1,18 +1,21 @@
 // The environment along a given trajectory (an uploaded ephemeris) rather than a Keplerian orbit:
-// at every point the Sun from that point's epoch, the conical shadow of the central body, the
-// plate-to-sphere view factors from that point's altitude and every surface's loads in the local
-// orbital frame built from r and v (v by finite differences when the file gave none).
-// Leaves out: what eclipse.ts, heat-loads.ts and sun.ts leave out; the Sun's direction is
-// interpolated linearly between evaluations an hour apart (it moves about 0.04 deg an hour as seen
-// from the Earth). Positions are in an ICRF-aligned frame centred on the body (EME2000/J2000 differ
+// at every point the Sun from that point's epoch, the conical shadow of the central body (and, about a
+// moon, of its planet: parent-shadow.ts's model), the plate-to-sphere view factors from that point's
+// altitude and every surface's loads in the local orbital frame built from r and v (v by finite
+// differences when the file gave none).
+// Leaves out: what eclipse.ts, heat-loads.ts and sun-track.ts leave out (the Sun comes from the same
+// track the sweeps use). Positions are in an ICRF-aligned frame centred on the body (EME2000/J2000 differ
 // from ICRF by milliarcseconds, ignored). Source: API.md's load definitions; the frame as in
 // orbit-position.ts (x ram, y orbit normal, z zenith).
-import type { Body } from './bodies';
+import { getBody, type Body } from './bodies';
 import { shadowGeometry, sunlitFraction } from './eclipse';
 import { localNormal, surfaceLoad, type Surface, type SurfaceLoad } from './heat-loads';
 import { AU_KM } from './constants';
 import { PhysicsError } from './physics-error';
-import { solarFluxWm2, sunFromBody } from './sun';
+import { moonTrack } from './moon-ephemeris';
+import { combinedSunlit } from './parent-shadow';
+import { solarFluxWm2 } from './sun';
+import { sunTrack, type SunTrack } from './sun-track';
 import { cross, DEG, dot, norm, scale, subtract, type Vector3 } from './vector3';
 
 export interface TrajectorySample {
@@ -59,36 +62,45 @@ export interface TrajectoryEnvironment {
   meanSolarFluxWm2: number;
 }
 
-const SUN_NODE_MS = 3600_000;
+const SUN_CHUNK_MS = 30 * 86400e3;
 
 interface SunState {
   directionIcrf: Vector3;
   distanceAu: number;
+  /** About a moon: the sunlit share past its planet at the spacecraft (1 for a planet). */
+  planetSunlit: (positionKm: Vector3) => number;
 }
 
-/** The Sun seen from the body, evaluated on the hour and interpolated between (VSOP87 is costly per row). */
+/**
+ * The Sun seen from the body through the sweeps' own Sun track (sun-track.ts: VSOP87 at nodes, a
+ * moon's offset added), built a month at a time as the trajectory advances; about a moon, also the
+ * planet's shadow at the spacecraft (the moon placed by moon-ephemeris.ts).
+ */
 function sunInterpolator(body: Body): (tMs: number) => SunState {
-  const nodes = new Map<number, SunState>();
-  const node = (k: number): SunState => {
-    let s = nodes.get(k);
-    if (!s) {
-      if (nodes.size > 64) nodes.clear();
-      const sun = sunFromBody(body, new Date(k * SUN_NODE_MS));
-      s = { directionIcrf: sun.directionIcrf, distanceAu: sun.distanceAu };
-      nodes.set(k, s);
-    }
-    return s;
-  };
+  const tracks = new Map<number, SunTrack>();
+  const moon = body.parentId ? moonTrack(body) : null;
+  const parentRadiusKm = body.parentId ? getBody(body.parentId).radiusKm : 0;
+  const out = new Float64Array(3);
+  const planetOut = new Float64Array(3);
+  const moonOut = new Float64Array(3);
   return (tMs) => {
-    const k = Math.floor(tMs / SUN_NODE_MS);
-    const f = tMs / SUN_NODE_MS - k;
-    const [a, b] = [node(k), node(k + 1)];
-    const d: Vector3 = [
-      a.directionIcrf[0] + f * (b.directionIcrf[0] - a.directionIcrf[0]),
-      a.directionIcrf[1] + f * (b.directionIcrf[1] - a.directionIcrf[1]),
-      a.directionIcrf[2] + f * (b.directionIcrf[2] - a.directionIcrf[2]),
-    ];
-    return { directionIcrf: scale(d, 1 / norm(d)), distanceAu: a.distanceAu + f * (b.distanceAu - a.distanceAu) };
+    const chunk = Math.floor(tMs / SUN_CHUNK_MS);
+    let track = tracks.get(chunk);
+    if (!track) {
+      if (tracks.size > 4) tracks.clear();
+      track = sunTrack(body, chunk * SUN_CHUNK_MS, (chunk + 1) * SUN_CHUNK_MS);
+      tracks.set(chunk, track);
+    }
+    const distanceAu = track.atIcrf(tMs, out);
+    const directionIcrf: Vector3 = [out[0], out[1], out[2]];
+    if (!moon) return { directionIcrf, distanceAu, planetSunlit: () => 1 };
+    const planetDistanceAu = track.planetAtIcrf(tMs, planetOut);
+    const planetSun: Vector3 = [planetOut[0], planetOut[1], planetOut[2]];
+    moon.at(tMs, moonOut);
+    return {
+      directionIcrf, distanceAu,
+      planetSunlit: (r) => sunlitFraction(shadowGeometry([r[0] + moonOut[0], r[1] + moonOut[1], r[2] + moonOut[2]], planetSun, planetDistanceAu * AU_KM, parentRadiusKm)),
+    };
   };
 }
 
@@ -138,7 +150,7 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
     const ram = cross(normal, zenith);
     const sun = sunAt(cur.tMs);
     const sunLocal: Vector3 = [dot(sun.directionIcrf, ram), dot(sun.directionIcrf, normal), dot(sun.directionIcrf, zenith)];
-    const sunlit = sunlitFraction(shadowGeometry(r, sun.directionIcrf, sun.distanceAu * AU_KM, body.radiusKm));
+    const sunlit = combinedSunlit(sunlitFraction(shadowGeometry(r, sun.directionIcrf, sun.distanceAu * AU_KM, body.radiusKm)), sun.planetSunlit(r));
     const point = { sunLocal, sunlit, solarFluxWm2: solarFluxWm2(sun.distanceAu), albedo, olrWm2, radiusKm, bodyRadiusKm: body.radiusKm };
     // trapezoidal weight: half of each neighbouring interval, s
     const weightS = ((next ? next.tMs - cur.tMs : 0) + (prev ? cur.tMs - prev.tMs : 0)) / 2000;

@@ -1,36 +1,13 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { bruteForceCapFlux } from './cap-brute-force';
 import { plateToSphereViewFactor } from './view-factors';
 
 const DEG = Math.PI / 180;
 
-/**
- * Numerical view factor: F = (1/pi) * integral over the visible cap of cos(t1) cos(t2) / d^2 dA
- * (the definition of the differential-element view factor, Howell catalogue introduction),
- * midpoint rule in polar angle psi from the sub-plate point and azimuth phi. Sphere radius 1.
- */
-function numericViewFactor(h: number, tiltRad: number, nPsi = 500, nPhi = 720): number {
-  const psiMax = Math.acos(1 / h);
-  const n = [Math.sin(tiltRad), 0, -Math.cos(tiltRad)];
-  const dPsi = psiMax / nPsi;
-  const dPhi = (2 * Math.PI) / nPhi;
-  let sum = 0;
-  for (let i = 0; i < nPsi; i++) {
-    const psi = (i + 0.5) * dPsi;
-    const [sp, cp] = [Math.sin(psi), Math.cos(psi)];
-    for (let j = 0; j < nPhi; j++) {
-      const phi = (j + 0.5) * dPhi;
-      const p = [sp * Math.cos(phi), sp * Math.sin(phi), cp];
-      const s = [p[0], p[1], p[2] - h];
-      const d2 = s[0] * s[0] + s[1] * s[1] + s[2] * s[2];
-      const d = Math.sqrt(d2);
-      const cos1 = (n[0] * s[0] + n[1] * s[1] + n[2] * s[2]) / d;
-      const cos2 = -(p[0] * s[0] + p[1] * s[1] + p[2] * s[2]) / d;
-      if (cos1 > 0 && cos2 > 0) sum += (cos1 * cos2 * sp) / d2;
-    }
-  }
-  return (sum * dPsi * dPhi) / Math.PI;
-}
+/** Numerical view factor: the brute-force cap integral with a uniform exitance of 1 (cap-brute-force.ts). */
+const numericViewFactor = (h: number, tiltRad: number, nPsi = 500, nPhi = 720): number =>
+  bruteForceCapFlux(h, [Math.sin(tiltRad), 0, -Math.cos(tiltRad)], [0, 0, 1], () => 1, nPsi, nPhi);
 
 describe('plate-to-sphere view factor', () => {
   it('a nadir plate sees F = (R/(R+h))^2 (DOMAIN.md; Howell catalogue)', () => {

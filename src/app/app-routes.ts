@@ -80,6 +80,12 @@ export const appRoutes: Routes = [
             loadComponent: () => import('./cases/case-comparison-page').then((m) => m.CaseComparisonPage),
           },
           {
+            path: 'environment',
+            title: 'Environment table · Eclipta',
+            canActivate: [sectionGuard('environment')],
+            loadComponent: () => import('./workspace/environment-table-page').then((m) => m.EnvironmentTablePage),
+          },
+          {
             path: 'thermal',
             title: 'Thermal models · Eclipta',
             canActivate: [sectionGuard('thermal')],

@@ -84,6 +84,9 @@ const rules: Record<string, string> = {
   'POST /api/v1/workspaces/:workspaceId/materials': '401 ok ok ok 403 403 404',
   'PATCH /api/v1/workspaces/:workspaceId/materials/:materialId': '401 ok ok ok 403 403 404',
   'DELETE /api/v1/workspaces/:workspaceId/materials/:materialId': '401 ok ok ok 403 403 404',
+  // the workspace's environment table: every member reads; owners and thermal engineers replace it
+  'GET /api/v1/workspaces/:workspaceId/environment-table': '401 ok ok ok ok ok 404',
+  'PUT /api/v1/workspaces/:workspaceId/environment-table': '401 ok 403 ok 403 403 404',
   'POST /api/v1/missions/:id/ephemerides': '401 ok ok ok 403 403 404',
   'GET /api/v1/missions/:id/ephemerides': '401 ok ok ok ok ok 404',
   'GET /api/v1/missions/:id/ephemerides/:ephemerisId': '401 ok ok ok ok ok 404',
@@ -120,6 +123,7 @@ const rules: Record<string, string> = {
   'POST /api/v1/thermal-models/:id/run': '401 ok ok ok 403 403 404',
   'GET /api/v1/thermal-models/:id/runs/:caseId': '401 ok ok ok ok ok 404',
   'POST /api/v1/thermal-models/:id/size': '401 ok ok ok 403 403 404',
+  'POST /api/v1/thermal-models/:id/distance-study': '401 ok ok ok 403 403 404',
   // the client's own pages: the same index.html for everyone (only when the client is built)
   'GET /{*splat}': 'ok ok ok ok ok ok ok',
 };

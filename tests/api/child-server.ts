@@ -33,11 +33,17 @@ export function startChildServer(dataDir: string, env: Record<string, string> = 
   const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
   return new Promise((resolve, reject) => {
     const timer = setTimeout(() => reject(new Error(`the server did not start within ${timeoutMs} ms:\n${output.join('\n')}`)), timeoutMs);
+    let listening = false;
     const onLine = (chunk: Buffer) => {
+      // Once the server listens and 500 lines are kept, the rest is only drained: under a load
+      // bench the request log is thousands of lines a second, read by the process making the load.
+      if (listening && output.length >= 500) return;
       for (const line of chunk.toString('utf8').split('\n').filter(Boolean)) {
         if (output.length < 500) output.push(line);
+        if (listening) continue;
         const match = /"url":"(http:\/\/localhost:\d+)"/.exec(line);
         if (match?.[1] && /Eclipta is listening/.test(line)) {
+          listening = true;
           clearTimeout(timer);
           resolve({ url: match[1], child, output, exited });
         }

@@ -52,6 +52,18 @@ describe('POST /api/v1/environment/compute', () => {
     expect(res.body.eclipseFraction).toBeLessThan(0.4);
   });
 
+  it("warns, without refusing, of a Europa orbit beyond Europa's sphere of influence, and names Jupiter as its parent (Laplace a (m/M)^(2/5))", async () => {
+    const res = await viewer
+      .post('/api/v1/environment/compute')
+      .send({ ...leo, bodyId: 'europa', betaDeg: undefined, orbit: { periapsisAltitudeKm: 200, apoapsisAltitudeKm: 20000, inclinationDeg: 80 } })
+      .expect(200);
+    expect(res.body.parentBodyId).toBe('jupiter');
+    expect(res.body.warnings).toHaveLength(1);
+    expect(res.body.warnings[0]).toMatch(/sphere of influence \(9,\d{3} km/);
+    expect(res.body.assumptions.some((a: string) => a.startsWith('warning: '))).toBe(true);
+    expect(typeof res.body.profile[0].parentSunlit).toBe('number');
+  });
+
   it('refuses a periapsis below the surface with 422 saying by how much', async () => {
     const res = await viewer
       .post('/api/v1/environment/compute')

@@ -3,6 +3,9 @@ import express from 'express';
 import { mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { brotliCompressSync, brotliDecompressSync, gunzipSync, gzipSync } from 'node:zlib';
+import http, { type IncomingHttpHeaders } from 'node:http';
+import type { AddressInfo } from 'node:net';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
@@ -84,6 +87,54 @@ describe('the built client', () => {
     const api = await request(app).get('/api/v1/missing');
     expect(api.status).toBe(404);
     expect(api.body.error.code).toBe('no_route');
+  });
+
+  it('sends the build\'s .br/.gz copies as the browser accepts them, hashed names cached for a year, index.html revalidated', async () => {
+    const clientDir = mkdtempSync(path.join(tmpdir(), 'eclipta-client-'));
+    const script = 'console.log("hashed");'.repeat(50);
+    writeFileSync(path.join(clientDir, 'index.html'), '<!doctype html><title>Eclipta test page</title>');
+    writeFileSync(path.join(clientDir, 'index.html.br'), brotliCompressSync('<!doctype html><title>Eclipta test page</title>'));
+    writeFileSync(path.join(clientDir, 'main-ABCD1234.js'), script);
+    writeFileSync(path.join(clientDir, 'main-ABCD1234.js.br'), brotliCompressSync(script));
+    writeFileSync(path.join(clientDir, 'main-ABCD1234.js.gz'), gzipSync(script));
+    writeFileSync(path.join(clientDir, 'favicon.svg'), '<svg xmlns="http://www.w3.org/2000/svg"/>');
+    const app = createApp(t.ctx, { clientDir });
+    // Over a real socket: supertest would decompress before the test could see the bytes.
+    const server = app.listen(0);
+    const port = (server.address() as AddressInfo).port;
+    const get = (page: string, encoding: string) => new Promise<{ headers: IncomingHttpHeaders; body: Buffer }>((resolve, reject) => {
+      http.get(`http://127.0.0.1:${port}${page}`, { headers: { 'accept-encoding': encoding } }, (res) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => resolve({ headers: res.headers, body: Buffer.concat(chunks) }));
+      }).on('error', reject);
+    });
+    try {
+      // What Chromium sends: gzip listed before br, both accepted; br is the smaller.
+      const br = await get('/main-ABCD1234.js', 'gzip, deflate, br, zstd');
+      expect(br.headers['content-encoding']).toBe('br');
+      expect(br.headers['content-type']).toMatch(/javascript/);
+      expect(br.headers['vary']).toMatch(/Accept-Encoding/);
+      // RFC 8246: immutable, with a year's max-age (common practice for content-hashed names)
+      expect(br.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+      expect(brotliDecompressSync(br.body).toString()).toBe(script);
+      const gz = await get('/main-ABCD1234.js', 'gzip');
+      expect(gz.headers['content-encoding']).toBe('gzip');
+      expect(gunzipSync(gz.body).toString()).toBe(script);
+      const plain = await get('/main-ABCD1234.js', 'identity');
+      expect(plain.headers['content-encoding']).toBeUndefined();
+      expect(plain.body.toString()).toBe(script);
+      for (const page of ['/', '/missions/abc', '/favicon.svg']) {
+        expect((await get(page, 'br')).headers['cache-control']).toBe('no-cache');
+      }
+      const deep = await get('/missions/abc', 'br');
+      expect(deep.headers['content-encoding']).toBe('br');
+      expect(deep.headers['content-type']).toMatch(/text\/html/);
+      expect(brotliDecompressSync(deep.body).toString()).toContain('Eclipta test page');
+    } finally {
+      server.close();
+    }
+    expect((await request(app).get('/..%2F..%2Fetc%2Fpasswd')).text).toContain('Eclipta test page');
   });
 });
 

@@ -212,6 +212,9 @@ export function sampleBody(key: string, ids: SceneIds): unknown {
     'PATCH /api/v1/missions/:id/surfaces/:surfaceId': { areaM2: '0.25 m^2' },
     'POST /api/v1/workspaces/:workspaceId/materials': { name: 'hostile paint', absorptivityBol: 0.3, emissivityBol: 0.8, absorptivityEol: 0.4, emissivityEol: 0.8 },
     'PATCH /api/v1/workspaces/:workspaceId/materials/:materialId': { absorptivityEol: 0.65 },
+    'PUT /api/v1/workspaces/:workspaceId/environment-table': {
+      rows: [{ bodyId: 'earth', inclinationMinDeg: 30, inclinationMaxDeg: 60, averagingTimeS: 896, hot: { albedo: 0.3, olrWm2: 260 }, cold: { albedo: 0.2, olrWm2: 200 }, source: 'invented for the test' }],
+    },
     'POST /api/v1/missions/:id/ephemerides/:ephemerisId/environment': { properties: 'bol', maxPoints: 20 },
     'POST /api/v1/missions/:id/cases/derive': { orbitId: ids.orbitId, name: 'Hostile', steps: 12 },
     'POST /api/v1/missions/:id/cases': { orbitId: ids.orbitId, name: 'Hostile custom', date: '2027-06-01', betaDeg: 10, steps: 12 },
@@ -225,6 +228,7 @@ export function sampleBody(key: string, ids: SceneIds): unknown {
     'PATCH /api/v1/thermal-models/:id': { description: 'edited by the scene' },
     'POST /api/v1/thermal-models/:id/run': { caseId: ids.releasedCaseId },
     'POST /api/v1/thermal-models/:id/size': { caseHotId: ids.releasedCaseId, caseColdId: ids.releasedCaseId, node: 'bus' },
+    'POST /api/v1/thermal-models/:id/distance-study': { caseId: ids.releasedCaseId, node: 'bus', distancesAu: [1] },
   };
   return samples[key];
 }

@@ -97,6 +97,29 @@ describe('GET /api/v1/missions/:id/orbits/:orbitId/sweep', () => {
     expect(res.body.error.message).toContain(message);
   });
 
+  it("names the day's longest shadow and who cast it: Jupiter's over the Europa demo, every 3.55 days (Jupiter satellite phenomena; from memory)", async () => {
+    const missionId = missionIdOf(t, 'Kestrel Europa orbiter (concept)');
+    const path = `/api/v1/missions/${missionId}/orbits/${orbitIdOf(t, missionId, 'Polar mapping orbit 200 km')}/sweep`;
+    const res = await viewer.get(`${path}?from=2034-03-01&to=2034-03-10`).buffer(true).parse((r, done) => {
+      let text = '';
+      r.on('data', (c: Buffer) => (text += c.toString()));
+      r.on('end', () => done(null, text));
+    }).expect(200);
+    const days = lines(res.body as string).flatMap((l) => (l.type === 'day' ? [l] : []));
+    const shadowed = days.filter((d) => d.longestShadowCastBy.includes('jupiter'));
+    // Europa passes behind Jupiter every 3.554 d: two or three of these ten days
+    expect(shadowed.length).toBeGreaterThanOrEqual(2);
+    expect(shadowed.length).toBeLessThanOrEqual(3);
+    for (const d of shadowed) {
+      expect(d.longestShadowS / 3600).toBeGreaterThan(2.4);
+      expect(d.longestShadowStart?.slice(0, 10)).toBe(d.date);
+    }
+    const csv = await viewer.get(`${path}?from=2034-03-03&to=2034-03-03&format=csv`).expect(200);
+    const [header, row] = csv.text.split('\r\n');
+    expect(header).toMatch(/longest shadow \(s\),longest shadow cast by$/);
+    expect(row).toMatch(/,Jupiter|,jupiter|and jupiter$/);
+  });
+
   it('is 404 to another workspace', async () => {
     await plover.get(`${sweepPath}?from=2027-06-01&to=2027-06-02`).expect(404);
   });

@@ -45,7 +45,7 @@ beforeAll(async () => {
   );
   missionId = missionIdOf(t, kestrelOne);
   const list = await thermal.get(`/api/v1/missions/${missionId}/thermal-models`).expect(200);
-  demoModelId = (list.body.items as { id: string }[])[0]!.id;
+  demoModelId = (list.body.items as { id: string; name: string }[]).find((m) => m.name === 'Kestrel-1 bus, 4 nodes')!.id;
   const cases = (await thermal.get(`/api/v1/cases?missionId=${missionId}&status=released`).expect(200)).body.items as { id: string; kind: string }[];
   hotCaseId = cases.find((c) => c.kind === 'hot')!.id;
   coldCaseId = cases.find((c) => c.kind === 'cold')!.id;
@@ -56,7 +56,7 @@ describe('saved models', () => {
   it('lists the demo model to every member and hides it from another workspace', async () => {
     for (const agent of [viewer, analyst]) {
       const res = await agent.get(`/api/v1/missions/${missionId}/thermal-models`).expect(200);
-      expect((res.body.items as { name: string; nodeCount: number }[]).map((m) => [m.name, m.nodeCount])).toEqual([['Kestrel-1 bus, 4 nodes', 4]]);
+      expect((res.body.items as { name: string; nodeCount: number }[]).map((m) => [m.name, m.nodeCount]).sort()).toEqual([['Kestrel-1 bus, 4 nodes', 4], ['Kestrel-1 pumped loops, 2 loops', 4]]);
     }
     expect((await plover.get(`/api/v1/missions/${missionId}/thermal-models`)).status).toBe(404);
     const hidden = await plover.get(`/api/v1/thermal-models/${demoModelId}`);
@@ -103,7 +103,7 @@ describe('validation', () => {
       ...base(),
       couplings: [{ from: 'box', to: 'pannel', conductanceWK: 1 }],
       heaters: [{ node: 'batery', powerW: 5, onC: 0, offC: 3 }],
-      loops: [{ name: 'loop', nodes: ['pump plate'], inletC: 10, specificHeatJKgK: 3500, setPointC: 20, minFlowKgS: 0, maxFlowKgS: 0.1, nominalFlowKgS: 0.05 }],
+      loops: [{ name: 'loop', nodes: ['pump plate'], inletC: 10, specificHeatJKgK: 3500, setPointC: 20, controlNode: 'pump plate', minFlowKgS: 0, maxFlowKgS: 0.1, nominalFlowKgS: 0.05 }],
     });
     expect(res.status).toBe(400);
     const details = res.body.error.details as { path: string; message: string }[];
@@ -272,5 +272,24 @@ describe('sizing', () => {
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.details).toEqual([{ path: 'node', message: expect.stringContaining('no node is named "antenna"') }]);
     expect((await viewer.post(`/api/v1/thermal-models/${demoModelId}/size`).send({ caseHotId: hotCaseId, caseColdId: coldCaseId, node: 'battery' })).status).toBe(403);
+  });
+});
+
+describe('the two-loop demo model (issue 14)', () => {
+  it('holds both set points within their bands on the released hot and cold cases; each loop closes its energy within 0.5 % (API.md "Coolant loops")', async () => {
+    const list = await thermal.get(`/api/v1/missions/${missionId}/thermal-models`).expect(200);
+    const loopsModel = (list.body.items as { id: string; name: string }[]).find((m) => m.name === 'Kestrel-1 pumped loops, 2 loops')!;
+    for (const caseId of [hotCaseId, coldCaseId]) {
+      const run = (await thermal.post(`/api/v1/thermal-models/${loopsModel.id}/run`).send({ caseId }).expect(200)).body;
+      for (const loop of run.result.loops as { closed: boolean; heatW: { averageW: number }[]; control: { pass: boolean; maxDeviationK: number } }[]) {
+        expect(loop.closed).toBe(true);
+        expect(loop.control.pass).toBe(true);
+        const sum = loop.heatW.reduce((a, h) => a + h.averageW, 0);
+        const abs = loop.heatW.reduce((a, h) => a + Math.abs(h.averageW), 0);
+        expect(Math.abs(sum)).toBeLessThanOrEqual(0.005 * abs);
+      }
+      // The case has one eclipse: an entry and an exit for each of the two controlled nodes.
+      expect((run.recoveries as { event: string }[]).map((r) => r.event).sort()).toEqual(['eclipse entry', 'eclipse entry', 'eclipse exit', 'eclipse exit']);
+    }
   });
 });

@@ -84,6 +84,36 @@ describe('POST /api/v1/thermal/solve', () => {
     expect(twice.body.error.details[0].path).toBe('nodes.1.name');
   });
 
+  // API.md "Coolant loops": the example loop, closed round a hull node and its radiator.
+  const closedLoop = {
+    name: 'hull loop', specificHeatJKgK: 3900, densityKgM3: 1030, fluidMassKg: 6,
+    path: [{ node: 'battery', conductanceWK: 60 }, { node: 'panel', conductanceWK: 120 }],
+    minFlowKgS: 0.001, nominalFlowKgS: 0.01, maxFlowKgS: 0.1,
+    controlNode: 'battery', setPointC: 41, proportionalKgSK: 0.01, integralKgSKs: 0.00001, bandK: 0.1,
+  };
+  const loopModel = { ...model, heaters: [], nodes: model.nodes.map((n) => (n.name === 'panel' ? { ...n, radiatorAreaM2: 0.2 } : n)) };
+
+  it('answers a closed loop with its coolant along the path, heat per element that closes within 0.5 %, and its control figures (API.md "Coolant loops")', async () => {
+    const res = await viewer.post('/api/v1/thermal/solve').send({ ...loopModel, loops: [closedLoop] }).expect(200);
+    const [loop] = res.body.loops;
+    expect(loop.closed).toBe(true);
+    expect(loop.coolantC.map((c: { node: string }) => c.node)).toEqual(['battery', 'panel']);
+    expect(loop.coolantC[0].temperaturesC).toHaveLength(360);
+    const heat = loop.heatW.map((h: { averageW: number }) => h.averageW);
+    expect(Math.abs(heat[0] + heat[1])).toBeLessThanOrEqual(0.005 * (Math.abs(heat[0]) + Math.abs(heat[1])));
+    expect(loop.control).toMatchObject({ node: 'battery', setPointC: 41, bandK: 0.1, pass: true });
+    expect(loop.densityKgM3).toBe(1030);
+  });
+
+  it('answers 400 naming loops.0.controlNode when the flow can vary and no node is chosen, and a closed loop without its fluid mass', async () => {
+    const { controlNode: _c, fluidMassKg: _m, ...rest } = closedLoop;
+    const res = await viewer.post('/api/v1/thermal/solve').send({ ...loopModel, loops: [rest] }).expect(400);
+    const paths = res.body.error.details.map((d: { path: string }) => d.path);
+    expect(paths).toEqual(expect.arrayContaining(['loops.0.controlNode', 'loops.0.fluidMassKg']));
+    const unknown = await viewer.post('/api/v1/thermal/solve').send({ ...loopModel, loops: [{ ...closedLoop, controlNode: 'pump' }] }).expect(400);
+    expect(unknown.body.error.details).toEqual(expect.arrayContaining([expect.objectContaining({ path: 'loops.0.controlNode', message: expect.stringContaining('"pump"') })]));
+  });
+
   it('answers 422 not_converged when the model cannot settle in the allowed orbits', async () => {
     const res = await viewer.post('/api/v1/thermal/solve')
       .send({ ...model, maxOrbits: 1, start: 'initial', nodes: [{ ...model.nodes[0], capacitanceJK: 1e8, initialC: 60 }, model.nodes[1]] })

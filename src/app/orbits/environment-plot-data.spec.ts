@@ -25,6 +25,19 @@ describe('eclipseBands', () => {
     ]);
   });
 
+  it("shades the planet's shadow about a moon as its own kind, named, apart from the moon's own eclipse", () => {
+    // 0-120 s in Jupiter's shadow, 240-300 s in Europa's own
+    const profile = [0, 60, 120, 180, 240, 300, 360].map((t) => ({
+      ...sample(t, t <= 120 || (t >= 240 && t <= 300) ? 0 : 1),
+      parentSunlit: t <= 120 ? 0 : 1,
+    }));
+    expect(eclipseBands(profile, 'jupiter')).toEqual([
+      { from: 0, to: 2.5, label: "In Jupiter's shadow", kind: 'parent-shadow' },
+      { from: 3.5, to: 5.5, label: 'Eclipse', kind: 'eclipse' },
+    ]);
+    expect(profileCsvColumns(profile).map((c) => c.header)).toContain('Sunlit fraction past the planet');
+  });
+
   it('gives no band for an orbit always in sunlight', () => {
     expect(eclipseBands([sample(0, 1), sample(60, 1)])).toEqual([]);
   });

@@ -8,25 +8,33 @@ type Profile = EnvironmentResponse['profile'];
 
 const minutes = (s: number): number => s / 60;
 
+/** A body's name from its id, as the catalogue spells the built-in ones. */
+export const bodyName = (id: string): string => id.charAt(0).toUpperCase() + id.slice(1);
+
 /**
  * The eclipse as shaded bands: each run of samples with sunlit < 1 (umbra and penumbra), widened to
- * the midpoints with its sunlit neighbours so a band covers the time the samples stand for.
+ * the midpoints with its sunlit neighbours so a band covers the time the samples stand for. About a
+ * moon, runs in the planet's shadow are their own kind and label ("In Jupiter's shadow").
  */
-export function eclipseBands(profile: Profile): PlotBand[] {
+export function eclipseBands(profile: Profile, parentBodyId: string | null = null): PlotBand[] {
   const bands: PlotBand[] = [];
   const n = profile.length;
   const edge = (i: number, j: number): number => minutes((profile[i].tS + profile[j].tS) / 2);
+  const kindAt = (k: number): 'parent-shadow' | 'eclipse' | null =>
+    (profile[k].parentSunlit ?? 1) < 1 ? 'parent-shadow' : profile[k].sunlit < 1 ? 'eclipse' : null;
+  const parentLabel = parentBodyId ? `In ${bodyName(parentBodyId)}'s shadow` : 'Eclipse';
   let i = 0;
   while (i < n) {
-    if (profile[i].sunlit >= 1) {
+    const kind = kindAt(i);
+    if (kind === null) {
       i++;
       continue;
     }
     let j = i;
-    while (j + 1 < n && profile[j + 1].sunlit < 1) j++;
+    while (j + 1 < n && kindAt(j + 1) === kind) j++;
     const from = i === 0 ? minutes(profile[0].tS) : edge(i - 1, i);
     const to = j === n - 1 ? minutes(profile[n - 1].tS) : edge(j, j + 1);
-    bands.push({ from, to, label: 'Eclipse', kind: 'eclipse' });
+    bands.push({ from, to, label: kind === 'parent-shadow' ? parentLabel : 'Eclipse', kind });
     i = j + 1;
   }
   return bands;
@@ -58,13 +66,18 @@ export function absorbedSeries(profile: Profile, surfaceIndex: number): PlotSeri
 }
 
 /** Every sample of the profile, every surface: one row a sample, units in the header. */
-export function profileCsvColumns(profile: Profile): CsvColumn[] {
+export function profileCsvColumns(profile: Profile, weightsS: readonly number[] | null = null): CsvColumn[] {
   const names = profile[0]?.surfaces.map((s) => s.name) ?? [];
   const columns: CsvColumn[] = [
     { header: 'Time from periapsis', unit: 'min', values: profile.map((p) => minutes(p.tS)) },
+    // samples not evenly spaced in time (dense at periapsis): each one's share of the period
+    ...(weightsS ? [{ header: 'Share of the period', unit: 's', values: [...weightsS] }] : []),
     { header: 'True anomaly', unit: 'deg', values: profile.map((p) => p.trueAnomalyDeg) },
     { header: 'Sunlit fraction', values: profile.map((p) => p.sunlit) },
   ];
+  if (profile.some((p) => p.parentSunlit !== undefined)) {
+    columns.push({ header: 'Sunlit fraction past the planet', values: profile.map((p) => p.parentSunlit ?? 1) });
+  }
   names.forEach((name, i) => {
     columns.push(
       { header: `${name} solar`, unit: 'W/m²', values: profile.map((p) => p.surfaces[i].solarWm2) },

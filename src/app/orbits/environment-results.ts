@@ -12,7 +12,7 @@ import { loaded } from '../api/loaded';
 import { MissionApi, type PropertySet } from '../missions/mission-api';
 import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
-import { absorbedSeries, eclipseBands, fluxSeries, profileCsvColumns } from './environment-plot-data';
+import { absorbedSeries, bodyName, eclipseBands, fluxSeries, profileCsvColumns } from './environment-plot-data';
 
 /** One saved orbit's environment with the mission's surfaces: figures, plots around the orbit, averages. */
 @Component({
@@ -58,7 +58,8 @@ export class EnvironmentResults {
   protected readonly surfaceNames = computed(() => this.answer()?.orbitAverage.surfaces.map((s) => s.name) ?? []);
   private readonly shownIndex = computed(() => Math.min(this.surfaceIndex(), Math.max(0, this.surfaceNames().length - 1)));
   protected readonly shownName = computed(() => this.surfaceNames()[this.shownIndex()] ?? '');
-  protected readonly bands = computed(() => eclipseBands(this.answer()?.profile ?? []));
+  protected readonly bands = computed(() => eclipseBands(this.answer()?.profile ?? [], this.answer()?.parentBodyId ?? null));
+  protected readonly parentName = computed(() => bodyName(this.answer()?.parentBodyId ?? ''));
   protected readonly flux = computed(() => {
     const a = this.answer();
     return a && a.profile.length > 0 && this.surfaceNames().length > 0 ? fluxSeries(a.profile, this.shownIndex()) : [];
@@ -82,6 +83,6 @@ export class EnvironmentResults {
   protected downloadProfile(): void {
     const a = this.answer();
     if (!a) return;
-    downloadCsv(`${this.fileStem()}-profile.csv`, buildResultCsv(profileCsvColumns(a.profile)), this.document);
+    downloadCsv(`${this.fileStem()}-profile.csv`, buildResultCsv(profileCsvColumns(a.profile, a.sampleWeightsS)), this.document);
   }
 }

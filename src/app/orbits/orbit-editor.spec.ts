@@ -19,6 +19,8 @@ const earth: BodySummaryResponse = {
   albedo: { min: 0.2, nominal: 0.3, max: 0.4 },
   olrWm2: { min: 200, nominal: 237, max: 260 },
   provisional: true,
+  airless: false,
+  surfaceField: null,
   sources: {},
 };
 
@@ -28,7 +30,8 @@ function answer(overrides: Partial<EnvironmentResponse>): EnvironmentResponse {
     bodyId: 'earth', periodS: 5739, semiMajorAxisKm: 6928.137, eccentricity: 0, periapsisAltitudeKm: 550,
     apoapsisAltitudeKm: 550, betaDeg: 21.4, epochBetaDeg: 21.4, solarDistanceAu: 0.996, solarFluxWm2: 1375,
     albedo: 0.3, olrWm2: 237, eclipseFraction: 0.372, eclipseDurationS: 2136, umbraDurationS: 2120,
-    penumbraDurationS: 16, nodalRateDegPerDay: 0, profile: [], orbitAverage: { surfaces: [] }, peak: { surfaces: [] },
+    penumbraDurationS: 16, nodalRateDegPerDay: 0, albedoModel: 'subsolar-cosine', irModel: 'uniform', sampling: 'time', surfaceField: null,
+    parentBodyId: null, parentShadowDurationS: 0, warnings: [], profile: [], sampleWeightsS: null, orbitAverage: { surfaces: [] }, peak: { surfaces: [] },
     assumptions: [], ...overrides,
   };
 }

@@ -14,19 +14,38 @@ export interface SweepSeries {
   readonly absorbed: readonly PlotSeries[];
 }
 
+/** True when some day's longest shadow is cast (at least partly) by a planet over the orbited moon. */
+export const hasParentShadow = (days: readonly SweepDay[]): boolean => days.some((d) => d.longestShadowStart !== null);
+
+/** Who cast a day's longest shadow, in words: "Europa and Jupiter", or "none". */
+export const castByText = (d: SweepDay): string =>
+  d.longestShadowCastBy.length === 0 ? 'none' : d.longestShadowCastBy.map((id) => id.charAt(0).toUpperCase() + id.slice(1)).join(' and ');
+
 export function sweepSeries(days: readonly SweepDay[]): SweepSeries {
   const names = days[0]?.surfaces.map((s) => ({ id: s.surfaceId, name: s.name })) ?? [];
+  const eclipse: PlotSeries[] = [
+    {
+      id: 'eclipse',
+      label: 'Eclipse duration',
+      unit: 'min',
+      colorVar: '--ecl-cold',
+      points: days.map((d) => ({ x: dateMs(d.date), y: d.eclipseDurationS / 60 })),
+    },
+  ];
+  if (hasParentShadow(days)) {
+    // About a moon: the day's longest darkness, its planet's shadow included.
+    eclipse.push({
+      id: 'longest-shadow',
+      label: "Longest shadow, the planet's included",
+      unit: 'min',
+      colorVar: '--ecl-accent',
+      dash: true,
+      points: days.map((d) => ({ x: dateMs(d.date), y: d.longestShadowS / 60 })),
+    });
+  }
   return {
     beta: [{ id: 'beta', label: 'Beta angle', unit: 'deg', colorVar: '--ecl-solar', points: days.map((d) => ({ x: dateMs(d.date), y: d.betaDeg })) }],
-    eclipse: [
-      {
-        id: 'eclipse',
-        label: 'Eclipse duration',
-        unit: 'min',
-        colorVar: '--ecl-cold',
-        points: days.map((d) => ({ x: dateMs(d.date), y: d.eclipseDurationS / 60 })),
-      },
-    ],
+    eclipse,
     absorbed: names.map((s, i) => ({
       id: s.id,
       label: s.name,
@@ -52,5 +71,7 @@ export function sweepCsvColumns(days: readonly SweepDay[]): CsvColumn[] {
       unit: 'W',
       values: days.map((d) => d.surfaces.find((x) => x.surfaceId === s.id)?.absorbedW),
     })),
+    { header: 'Longest shadow', unit: 'min', values: days.map((d) => d.longestShadowS / 60) },
+    { header: 'Longest shadow cast by', values: days.map(castByText) },
   ];
 }

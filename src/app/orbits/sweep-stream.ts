@@ -49,7 +49,7 @@ async function failureMessage(response: Response): Promise<string> {
   } catch {
     // not the error shape; fall through to the status
   }
-  return `The server answered ${response.status} to the sweep.`;
+  return `The server answered ${response.status}.`;
 }
 
 export type FetchLike = (url: string, init: RequestInit) => Promise<Response>;
@@ -59,14 +59,22 @@ export type FetchLike = (url: string, init: RequestInit) => Promise<Response>;
  * An 'error' line from the server ends the stream with that message.
  */
 export function streamSweep(url: string, fetchFn: FetchLike = (u, init) => fetch(u, init)): Observable<SweepLine> {
-  return new Observable<SweepLine>((subscriber) => {
+  return streamNdjson(url, {}, parseSweepLine, fetchFn);
+}
+
+/**
+ * Any NDJSON answer's lines as they arrive (the sweep, the thermal distance study): `parse` checks
+ * each line; a line of type 'error' ends the stream with its message. Unsubscribing aborts the request.
+ */
+export function streamNdjson<L extends { type: string }>(url: string, init: RequestInit, parse: (line: string) => L, fetchFn: FetchLike = (u, i) => fetch(u, i)): Observable<L> {
+  return new Observable<L>((subscriber) => {
     const abort = new AbortController();
     const splitter = new NdjsonSplitter();
     const emit = (lines: readonly string[]): boolean => {
       for (const text of lines) {
-        const line = parseSweepLine(text);
+        const line = parse(text);
         if (line.type === 'error') {
-          subscriber.error(new Error(line.message));
+          subscriber.error(new Error('message' in line && typeof line.message === 'string' ? line.message : 'The server stopped with an error.'));
           return false;
         }
         subscriber.next(line);
@@ -74,9 +82,9 @@ export function streamSweep(url: string, fetchFn: FetchLike = (u, init) => fetch
       return true;
     };
     const run = async (): Promise<void> => {
-      const response = await fetchFn(url, { signal: abort.signal, headers: { Accept: 'application/x-ndjson' }, credentials: 'same-origin' });
+      const response = await fetchFn(url, { ...init, signal: abort.signal, headers: { Accept: 'application/x-ndjson', ...(init.headers as Record<string, string> | undefined) }, credentials: 'same-origin' });
       if (!response.ok) throw new Error(await failureMessage(response));
-      if (response.body === null) throw new Error('The sweep answered with no body.');
+      if (response.body === null) throw new Error('The server answered with no body.');
       const reader = response.body.getReader();
       // stream: true keeps a multi-byte character split between chunks ("²") whole.
       const decoder = new TextDecoder();

@@ -19,7 +19,7 @@ export interface PlotSeries {
   readonly dash?: boolean;
 }
 
-export type BandKind = 'eclipse' | 'penumbra' | 'limit' | 'custom';
+export type BandKind = 'eclipse' | 'penumbra' | 'parent-shadow' | 'limit' | 'custom';
 
 /** A shaded x range behind the data, e.g. an eclipse from entry to exit. */
 export interface PlotBand {

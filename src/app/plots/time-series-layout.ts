@@ -72,6 +72,8 @@ export function bandStyle(kind: BandKind): { fill: string; opacity: number } {
       return { fill: cssColor('--ecl-eclipse-band'), opacity: 1 };
     case 'penumbra':
       return { fill: cssColor('--ecl-eclipse-band'), opacity: 0.5 };
+    case 'parent-shadow':
+      return { fill: cssColor('--ecl-parent-shadow-band'), opacity: 1 };
     case 'limit':
       return { fill: cssColor('--mat-sys-error'), opacity: 0.1 };
     case 'custom':

@@ -1,6 +1,10 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIcon } from '@angular/material/icon';
 
+/** The caution's words, for files a page writes (CSV). */
+export const DESIGN_CAUTION_TEXT =
+  "Preliminary-design estimate from simplified models. Verify with detailed analysis, a correlated model and thermal test under the project's standards and qualified practitioners.";
+
 /** The caution every result page carries (PRODUCT.md); crewed vehicles get the extra sentence. */
 @Component({
   selector: 'ecl-design-caution',
@@ -9,8 +13,7 @@ import { MatIcon } from '@angular/material/icon';
     <aside class="caution" aria-label="Design caution">
       <mat-icon aria-hidden="true">info</mat-icon>
       <p>
-        Preliminary-design estimate from simplified models. Verify with detailed analysis, a correlated model and thermal
-        test under the project's standards and qualified practitioners.
+        {{ text }}
         @if (crewed()) {
           <strong>Habitability and touch-temperature limits are not checked.</strong>
         }
@@ -41,5 +44,6 @@ import { MatIcon } from '@angular/material/icon';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class DesignCaution {
+  protected readonly text = DESIGN_CAUTION_TEXT;
   readonly crewed = input(false);
 }

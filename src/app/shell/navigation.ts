@@ -1,7 +1,7 @@
 import type { MembershipSummary } from '../../../shared/api/auth';
-import { roles, type Role } from '../../../shared/api/workspaces';
+import { roles, type Role } from '../../../shared/api/plain-lists';
 
-export type SectionId = 'missions' | 'overview' | 'cases' | 'thermal' | 'members' | 'audit' | 'tokens' | 'mail';
+export type SectionId = 'missions' | 'overview' | 'cases' | 'environment' | 'thermal' | 'members' | 'audit' | 'tokens' | 'mail';
 
 interface Section {
   readonly id: SectionId;
@@ -19,6 +19,8 @@ const SECTIONS: readonly Section[] = [
   { id: 'missions', label: 'Missions', icon: 'public', scope: 'workspace', roles },
   { id: 'overview', label: 'Overview', icon: 'dashboard', scope: 'workspace', roles },
   { id: 'cases', label: 'Load cases', icon: 'stacked_line_chart', scope: 'workspace', roles },
+  // every member reads the table the cases use; owners and thermal engineers edit it (the page says so)
+  { id: 'environment', label: 'Environment table', icon: 'table_chart', scope: 'workspace', roles },
   { id: 'thermal', label: 'Thermal models', icon: 'device_thermostat', scope: 'workspace', roles: ['thermal', 'owner'] },
   { id: 'members', label: 'Members', icon: 'group', scope: 'workspace', roles: ['owner'] },
   { id: 'audit', label: 'Audit log', icon: 'history', scope: 'workspace', roles: ['owner'] },

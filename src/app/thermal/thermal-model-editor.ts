@@ -33,7 +33,7 @@ export class ThermalModelEditor {
   protected readonly couplingColumns = ['from', 'to', 'conductanceWK', 'remove'];
   protected readonly radiativeColumns = ['from', 'to', 'areaM2', 'effectiveEmissivity', 'viewFactor', 'remove'];
   protected readonly heaterColumns = ['name', 'node', 'powerW', 'control', 'onC', 'offC', 'setPointC', 'minV', 'nominalV', 'maxV', 'remove'];
-  protected readonly loopColumns = ['name', 'nodes', 'inletC', 'specificHeatJKgK', 'effectiveness', 'setPointC', 'minFlowKgS', 'nominalFlowKgS', 'maxFlowKgS', 'remove'];
+  protected readonly loopColumns = ['name', 'closed', 'nodes', 'controlNode', 'inletC', 'fluidMassKg', 'densityKgM3', 'specificHeatJKgK', 'effectiveness', 'setPointC', 'bandK', 'minFlowKgS', 'nominalFlowKgS', 'maxFlowKgS', 'remove'];
 
   protected readonly rows = computed(() => {
     this.version();
@@ -110,7 +110,7 @@ export class ThermalModelEditor {
 
   protected addLoop(): void {
     const row = rowsFor(this.form()).loop();
-    row.patchValue({ name: `loop ${this.rows().loops.length + 1}`, specificHeatJKgK: 3500 });
+    row.patchValue({ name: `loop ${this.rows().loops.length + 1}`, specificHeatJKgK: 3500, densityKgM3: 1040 });
     this.form().controls.loops.push(row);
   }
 

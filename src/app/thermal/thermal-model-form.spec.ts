@@ -55,4 +55,21 @@ describe('the thermal model form', () => {
     panel.controls.name.setValue('battery');
     expect(errorOf(form)).toBe('node name "battery" is used twice');
   });
+
+  it('keeps a closed loop as it came (path in order, the one controlled node) and asks for the controlled node when the flow can vary', () => {
+    const loop = {
+      name: 'battery loop', path: [{ node: 'panel', conductanceWK: 20 }, { node: 'battery', conductanceWK: 8 }], fluidMassKg: 0.5, densityKgM3: 1040,
+      specificHeatJKgK: 3600, controlNode: 'battery', setPointC: 15, bandK: 0.2, minFlowKgS: 0.001, nominalFlowKgS: 0.005, maxFlowKgS: 0.02, proportionalKgSK: 0.001,
+    };
+    const form = modelForm({ ...content, loops: [loop] });
+    expect(form.valid).toBe(true);
+    expect(contentOf(form).loops).toEqual([loop]);
+    const row = form.controls.loops.at(0);
+    row.patchValue({ controlNode: '' });
+    expect(errorOf(row)).toBe('the flow can vary: choose the one node it controls');
+    row.patchValue({ controlNode: 'battery', path: 'panel: 20\nbox: 3' });
+    expect(errorOf(row.controls.path)).toBe('no node is named "box"');
+    row.patchValue({ path: 'panel 20' });
+    expect(errorOf(row.controls.path)).toBe('each line is "node: UA in W/K" with UA above 0 (got "panel 20")');
+  });
 });

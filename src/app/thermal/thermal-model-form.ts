@@ -146,28 +146,75 @@ export function heaterGroup(form: () => ModelForm | null, h?: Partial<Heater>) {
 }
 export type HeaterForm = ReturnType<typeof heaterGroup>;
 
+/** A closed loop's path as typed: one element per line, "node: UA" (W/K). */
+export function parsePath(textValue: string): { path: { node: string; conductanceWK: number }[]; problem: string | null } {
+  const path: { node: string; conductanceWK: number }[] = [];
+  const lines = textValue.split('\n').map((l) => l.trim()).filter((l) => l !== '');
+  for (const line of lines) {
+    const at = line.lastIndexOf(':');
+    const node = (at < 0 ? line : line.slice(0, at)).trim();
+    const ua = at < 0 ? NaN : Number(line.slice(at + 1).trim());
+    if (node === '' || !(ua > 0)) return { path, problem: `each line is "node: UA in W/K" with UA above 0 (got ${shown(line)})` };
+    path.push({ node, conductanceWK: ua });
+  }
+  return { path, problem: lines.length ? null : 'a closed loop passes at least one node: one line per element, "node: UA"' };
+}
+
+export const pathText = (path: readonly { node: string; conductanceWK: number }[] | undefined) => (path ?? []).map((e) => `${e.node}: ${e.conductanceWK}`).join('\n');
+
 function loopChecks(group: AbstractControl): ValidationErrors | null {
   const v = (group as LoopForm).getRawValue();
   if (v.minFlowKgS !== null && v.nominalFlowKgS !== null && v.maxFlowKgS !== null && !(v.minFlowKgS <= v.nominalFlowKgS && v.nominalFlowKgS <= v.maxFlowKgS)) {
     return fail(`the flows need minimum ≤ nominal ≤ maximum (got ${v.minFlowKgS}, ${v.nominalFlowKgS}, ${v.maxFlowKgS} kg/s)`);
   }
+  if (v.minFlowKgS !== null && v.maxFlowKgS !== null && v.minFlowKgS < v.maxFlowKgS) {
+    if (v.controlNode === '') return fail('the flow can vary: choose the one node it controls');
+    if (v.setPointC === null) return fail('a controlled loop needs its set point');
+  }
+  if (v.closed && v.fluidMassKg === null) return fail('a closed loop needs the mass of its coolant');
+  if (!v.closed && v.inletC === null) return fail('an open loop needs its inlet temperature');
+  if (!v.closed && v.nodes.length === 0) return fail('a loop cools at least one node');
   return null;
 }
 
+/** The path's nodes must be the model's. */
+function pathNodes(form: () => ModelForm | null): ValidatorFn {
+  return (c) => {
+    const group = c.parent as LoopForm | null;
+    if (!group || !group.controls.closed.value) return null;
+    const { path, problem } = parsePath(String(c.value));
+    if (problem) return fail(problem);
+    const names = nodeNames(form());
+    const missing = names === null ? undefined : path.find((e) => !names.includes(e.node));
+    if (missing) return fail(`no node is named ${shown(missing.node)}`);
+    const twice = path.find((e, i) => path.findIndex((f) => f.node === e.node) !== i);
+    return twice ? fail(`the path passes ${shown(twice.node)} twice`) : null;
+  };
+}
+
 export function loopGroup(form: () => ModelForm | null, l?: Partial<Loop>) {
-  const { name, nodes, inletC, specificHeatJKgK, effectiveness, setPointC, minFlowKgS, maxFlowKgS, nominalFlowKgS, ...extra } = l ?? {};
-  return new FormGroup({
+  const { name, nodes, path, inletC, specificHeatJKgK, effectiveness, setPointC, controlNode, fluidMassKg, densityKgM3, bandK, minFlowKgS, maxFlowKgS, nominalFlowKgS, ...extra } = l ?? {};
+  const group = new FormGroup({
     name: text(name ?? '', checks.required('a name')),
-    nodes: new FormControl<string[]>([...(nodes ?? [])], { nonNullable: true, validators: [(c) => (c.value.length === 0 ? fail('a loop cools at least one node') : null), knownNode(form)] }),
-    inletC: num(inletC ?? null, checks.required('the inlet temperature'), checks.celsius('inlet temperature')),
+    closed: new FormControl<boolean>(l === undefined || (path !== undefined && inletC === undefined), { nonNullable: true }),
+    nodes: new FormControl<string[]>([...(nodes ?? [])], { nonNullable: true, validators: [knownNode(form)] }),
+    path: text(pathText(path), pathNodes(form)),
+    controlNode: text(controlNode ?? '', knownNode(form)),
+    inletC: num(inletC ?? null, checks.celsius('inlet temperature')),
+    fluidMassKg: num(fluidMassKg ?? null, checks.above('coolant mass', 'kg')),
+    densityKgM3: num(densityKgM3 ?? null, checks.above('coolant density', 'kg/m³')),
     specificHeatJKgK: num(specificHeatJKgK ?? null, checks.required('the coolant specific heat'), checks.above('specific heat', 'J/(kg K)')),
     effectiveness: num(effectiveness, checks.fraction('effectiveness')),
-    setPointC: num(setPointC ?? null, checks.required('the set point'), checks.celsius('set point')),
+    setPointC: num(setPointC ?? null, checks.celsius('set point')),
+    bandK: num(bandK ?? null, checks.above('control band', 'K')),
     minFlowKgS: num(minFlowKgS ?? 0, checks.required('the minimum flow'), checks.atLeast('minimum flow', 'kg/s')),
     maxFlowKgS: num(maxFlowKgS ?? null, checks.required('the maximum flow'), checks.above('maximum flow', 'kg/s')),
     nominalFlowKgS: num(nominalFlowKgS ?? null, checks.required('the nominal flow'), checks.above('nominal flow', 'kg/s')),
+    /** Controller gains and feedforward the table does not show, kept as they were. */
     extra: new FormControl<Partial<Loop>>(extra, { nonNullable: true }),
   }, { validators: loopChecks });
+  group.controls.closed.valueChanges.subscribe(() => group.controls.path.updateValueAndValidity());
+  return group;
 }
 export type LoopForm = ReturnType<typeof loopGroup>;
 
@@ -232,7 +279,7 @@ export function revalidateReferences(form: ModelForm, show = true): void {
     ...form.controls.couplings.controls.flatMap((c) => [c.controls.from, c.controls.to]),
     ...form.controls.radiativeCouplings.controls.flatMap((c) => [c.controls.from, c.controls.to]),
     ...form.controls.heaters.controls.map((h) => h.controls.node),
-    ...form.controls.loops.controls.map((l) => l.controls.nodes),
+    ...form.controls.loops.controls.flatMap((l) => [l.controls.nodes, l.controls.path, l.controls.controlNode]),
   ];
   for (const control of refs) {
     control.updateValueAndValidity({ emitEvent: false });
@@ -281,9 +328,15 @@ export function contentOf(form: ModelForm): ThermalModelContentInput {
     })),
     loops: v.loops.map((l) => ({
       ...l.extra,
-      name: l.name.trim(), nodes: l.nodes, inletC: l.inletC ?? 0, specificHeatJKgK: l.specificHeatJKgK ?? 0,
-      ...given('effectiveness', l.effectiveness),
-      setPointC: l.setPointC ?? 0, minFlowKgS: l.minFlowKgS ?? 0, maxFlowKgS: l.maxFlowKgS ?? 0, nominalFlowKgS: l.nominalFlowKgS ?? 0,
+      name: l.name.trim(),
+      ...(l.closed
+        ? { path: parsePath(l.path).path, ...given('fluidMassKg', l.fluidMassKg), ...given('densityKgM3', l.densityKgM3) }
+        : { nodes: l.nodes, inletC: l.inletC ?? 0, ...given('effectiveness', l.effectiveness), ...given('densityKgM3', l.densityKgM3) }),
+      specificHeatJKgK: l.specificHeatJKgK ?? 0,
+      ...given('controlNode', l.controlNode || null),
+      ...given('setPointC', l.setPointC),
+      ...given('bandK', l.bandK),
+      minFlowKgS: l.minFlowKgS ?? 0, maxFlowKgS: l.maxFlowKgS ?? 0, nominalFlowKgS: l.nominalFlowKgS ?? 0,
     })),
     margins: { ...given('operatingK', v.operatingK), ...given('survivalK', v.survivalK) },
     maxDutyCycle: v.maxDutyCycle ?? 0.75,

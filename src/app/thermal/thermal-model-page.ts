@@ -25,6 +25,7 @@ import { ThermalModelApi } from './thermal-api';
 import { ThermalModelEditor } from './thermal-model-editor';
 import { contentOf, modelForm, type ModelForm } from './thermal-model-form';
 import { ThermalRunPanel } from './thermal-run-panel';
+import { ThermalDistancePanel } from './thermal-distance-panel';
 import { ThermalSizingPanel } from './thermal-sizing-panel';
 
 interface Loaded3 {
@@ -37,7 +38,7 @@ interface Loaded3 {
   selector: 'ecl-thermal-model-page',
   imports: [
     ReactiveFormsModule, RouterLink, MatButton, MatIcon, MatFormField, MatLabel, MatInput, DesignCaution, ThermalModelEditor, ThermalRunPanel,
-    ThermalSizingPanel,
+    ThermalSizingPanel, ThermalDistancePanel,
   ],
   templateUrl: './thermal-model-page.html',
   styleUrl: './thermal-model-page.css',

@@ -18,7 +18,9 @@ import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import { StripPlot } from '../plots/strip-plot';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { ThermalModelApi } from './thermal-api';
-import { dutyPercent, heaterCycleNote, heaterRows, limitLines, loopSeries, shadowBands, temperatureColumns, temperatureSeries, worstMarginK } from './thermal-run-plots';
+import { loopColumns, loopSummaryColumns } from './thermal-loop-plots';
+import { ThermalLoopResults } from './thermal-loop-results';
+import { dutyPercent, heaterCycleNote, heaterRows, limitLines, shadowBands, temperatureColumns, temperatureSeries, worstMarginK } from './thermal-run-plots';
 
 /** The solver's default when neither the run nor the model sets the orbits (shared/physics/thermal-model.ts). */
 const DEFAULT_MAX_ORBITS = 200;
@@ -28,7 +30,7 @@ const GUTTERS = { left: 150, right: 56 } as const;
 
 @Component({
   selector: 'ecl-thermal-run-panel',
-  imports: [DecimalPipe, PercentPipe, MatButton, MatFormField, MatLabel, MatHint, MatInput, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, StripPlot],
+  imports: [DecimalPipe, PercentPipe, MatButton, MatFormField, MatLabel, MatHint, MatInput, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, StripPlot, ThermalLoopResults],
   templateUrl: './thermal-run-panel.html',
   styleUrl: './thermal-run-panel.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -93,10 +95,6 @@ export class ThermalRunPanel {
   protected readonly strips = computed(() => {
     const r = this.run();
     return r ? heaterRows(r) : [];
-  });
-  protected readonly flows = computed(() => {
-    const r = this.run();
-    return r ? loopSeries(r) : [];
   });
   protected readonly nodeRows = computed(() => {
     const r = this.run();
@@ -163,6 +161,6 @@ export class ThermalRunPanel {
     const r = this.run();
     if (!r) return;
     const stem = `${r.model.name}-${r.case.name}`.replace(/[^A-Za-z0-9._-]+/g, '-').toLowerCase();
-    downloadCsv(`${stem}-temperatures.csv`, buildResultCsv(temperatureColumns(r)), this.document);
+    downloadCsv(`${stem}-temperatures.csv`, buildResultCsv([...temperatureColumns(r), ...loopColumns(r), ...loopSummaryColumns(r)]), this.document);
   }
 }

@@ -1,5 +1,6 @@
 // Plot and file inputs from a run's answer: a node's temperature over the orbit with its limits,
-// the heaters' on/off strips, the loops' flows, and the CSV of every node's temperature. Minutes.
+// the heaters' on/off strips, and the CSV of every node's temperature (the loops' are in
+// thermal-loop-plots.ts). Minutes.
 import type { ThermalRunResponse } from '../../../shared/api/thermal-models';
 import type { CsvColumn } from '../plots/csv-download';
 import { formatWithUnit } from '../plots/plot-format';
@@ -87,13 +88,6 @@ export function heaterCycleNote(run: Run): string | null {
     return `The strip draws the last orbit; the thermostats' cycle never locks to the orbit, so the duty cycles beside it and in the table are averages over the last ${r.averagedOrbits} orbits.`;
   }
   return null;
-}
-
-export function loopSeries(run: Run): PlotSeries[] {
-  const x = minutes(run);
-  return run.result.loops.map((l, k) => ({
-    id: `flow-${k}`, label: l.name, unit: 'kg/s', colorVar: k % 2 === 0 ? '--ecl-cold' : '--ecl-albedo', points: l.flowKgS.map((y, i) => ({ x: x[i] ?? 0, y })),
-  }));
 }
 
 export function temperatureColumns(run: Run): CsvColumn[] {

@@ -1,6 +1,7 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
+import type { EnvironmentTablePut, EnvironmentTableResponse } from '../../../shared/api/environment-table';
 import type { AuditEvent, Invitation, InvitationCreate, Member, Role } from '../../../shared/api/workspaces';
 import { apiPath } from '../api/api-path';
 
@@ -14,7 +15,7 @@ export interface AuditFilter {
   readonly offset: number;
 }
 
-/** The workspace routes of shared/api/workspaces.ts: members, invitations, audit log. */
+/** The workspace routes of shared/api/workspaces.ts (members, invitations, audit log) and its environment table. */
 @Injectable({ providedIn: 'root' })
 export class WorkspaceApi {
   private readonly http = inject(HttpClient);
@@ -41,6 +42,14 @@ export class WorkspaceApi {
 
   revokeInvitation(workspaceId: string, invitationId: string): Observable<unknown> {
     return this.http.delete(apiPath('workspaces', workspaceId, 'invitations', invitationId));
+  }
+
+  environmentTable(workspaceId: string): Observable<EnvironmentTableResponse> {
+    return this.http.get<EnvironmentTableResponse>(apiPath('workspaces', workspaceId, 'environment-table'));
+  }
+
+  saveEnvironmentTable(workspaceId: string, table: EnvironmentTablePut): Observable<EnvironmentTableResponse> {
+    return this.http.put<EnvironmentTableResponse>(apiPath('workspaces', workspaceId, 'environment-table'), table);
   }
 
   audit(workspaceId: string, query: AuditFilter): Observable<{ items: AuditEvent[]; total: number }> {
