@@ -105,7 +105,8 @@ function shadowFactor(r: CaseWhyRecord): CaseFactor[] {
   const start = r.conditions.orbitStart;
   const how = x.castBy.length > 1 ? `${x.castBy[0]}'s own shadow joined to its planet's` : `${x.castBy[0]}'s shadow over the moon`;
   const text = `the mission's longest shadow, ${f(x.durationS / 3600, 2)} h from ${x.date} ${hhmm(x.start)} UTC, cast by ${x.castBy.join(' and ')} (${how})` +
-    `${start ? `: the orbit from ${hhmm(start)} UTC is the case` : ''}, eclipse ${minutes(r.results.eclipseDurationS)} of the orbit, ${f(r.results.total.orbitAverageAbsorbedW)} W orbit-average absorbed`;
+    `${start ? `: the orbit from ${hhmm(start)} UTC is the case` : ''}, beta ${f(r.results.betaDeg)} deg on ${r.conditions.date}, eclipse ${minutes(r.results.eclipseDurationS)} of the orbit, ` +
+    `orbit-average absorbed load (${f(r.results.total.orbitAverageAbsorbedW)} W)`;
   return [{ key: 'shadow', title: 'Longest shadow', figure: `${f(x.durationS / 3600, 2)} h on ${x.date}`, text, sources: ['conical umbra and penumbra with the Sun as a uniform disk; moons placed by their published theories'] }];
 }
 

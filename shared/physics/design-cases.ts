@@ -332,7 +332,7 @@ function deriveOne(
   const conditions = startingAt(chosen, base(chosen.day, steps, albedo));
   const results = albedo === pair.albedo ? best.results : evaluateCase(conditions, input.margins);
   const extremeScored = scored.find((x) => x.e === eclipseExtreme)!;
-  const extremeResults = chosen === eclipseExtreme || Math.abs(results.eclipseDurationS - extremeScored.results.eclipseDurationS) < 1 ? null : extremeScored.results;
+  const extremeResults = darkest !== null || chosen === eclipseExtreme || Math.abs(results.eclipseDurationS - extremeScored.results.eclipseDurationS) < 1 ? null : extremeScored.results;
   const field = pair.surfaceField;
   const decision: CaseDecision = {
     sun: { basis: spansFullYear ? (hot ? 'perihelion' : 'aphelion') : 'mission', date: sunDay.date, distanceAu: distanceAu },
