@@ -1,5 +1,4 @@
 import { Clipboard } from '@angular/cdk/clipboard';
-import { DatePipe } from '@angular/common';
 import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
@@ -19,13 +18,14 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { apiPath } from '../api/api-path';
 import { loaded } from '../api/loaded';
 import { ConfirmDialog } from '../shell/confirm-dialog';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** Personal API tokens: other teams' scripts import released cases with them. */
 @Component({
   selector: 'ecl-api-tokens-page',
   imports: [
     ReactiveFormsModule,
-    DatePipe,
+    UtcTimePipe,
     MatTableModule,
     MatFormField,
     MatLabel,

@@ -1,6 +1,5 @@
 // The thermal models of one mission of the workspace, chosen with ?mission=; thermal engineers and
 // owners start a new model here (one node to begin with) and go on in the editor.
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
@@ -17,10 +16,11 @@ import { DesignCaution } from '../shell/design-caution';
 import { CurrentWorkspace } from '../workspace/current-workspace';
 import { firstMissionWithModels } from './first-mission-with-models';
 import { ThermalModelApi } from './thermal-api';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 @Component({
   selector: 'ecl-thermal-models-page',
-  imports: [DatePipe, RouterLink, MatTableModule, MatFormField, MatLabel, MatSelect, MatOption, MatButton, MatIcon, DesignCaution],
+  imports: [UtcTimePipe, RouterLink, MatTableModule, MatFormField, MatLabel, MatSelect, MatOption, MatButton, MatIcon, DesignCaution],
   template: `
     <section class="ecl-page">
       <h1>Thermal models</h1>
@@ -74,7 +74,7 @@ import { ThermalModelApi } from './thermal-api';
                 </ng-container>
                 <ng-container matColumnDef="updated">
                   <th mat-header-cell *matHeaderCellDef>Changed</th>
-                  <td mat-cell *matCellDef="let m">{{ m.updatedAt | date: 'yyyy-MM-dd HH:mm' : 'UTC' }} UTC</td>
+                  <td mat-cell *matCellDef="let m">{{ m.updatedAt | utc: 'minute' }}</td>
                 </ng-container>
                 <tr mat-header-row *matHeaderRowDef="columns"></tr>
                 <tr mat-row *matRowDef="let row; columns: columns"></tr>

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -16,13 +15,14 @@ import { loaded } from '../api/loaded';
 import { AuthSession } from '../auth/auth-session';
 import { ConfirmDialog } from '../shell/confirm-dialog';
 import { WorkspaceApi } from './workspace-api';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** The owner's page for who is in the workspace, with which role, and who is invited. */
 @Component({
   selector: 'ecl-members-page',
   imports: [
     ReactiveFormsModule,
-    DatePipe,
+    UtcTimePipe,
     MatTableModule,
     MatFormField,
     MatLabel,
