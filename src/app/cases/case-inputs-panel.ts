@@ -2,6 +2,7 @@ import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { CaseDetail } from '../../../shared/api/cases';
 import { PROPERTY_SET_LABELS } from './case-labels';
+import { DurationPipe } from '../time/duration-pipe';
 
 interface ConstantRow {
   readonly label: string;
@@ -15,7 +16,7 @@ const range = (r: { min: number; nominal: number; max: number }, digits: number,
 /** Every input of a case as it was snapshotted: orbit, conditions, eclipse, margins, body constants with sources. */
 @Component({
   selector: 'ecl-case-inputs',
-  imports: [DecimalPipe],
+  imports: [DurationPipe, DecimalPipe],
   templateUrl: './case-inputs-panel.html',
   styleUrl: './case-inputs-panel.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -29,6 +29,7 @@ import {
   type OrbitDefinition,
   type OrbitField,
 } from './orbit-form';
+import { DurationPipe } from '../time/duration-pipe';
 
 export type OrbitPreview =
   | { readonly kind: 'computing' }
@@ -61,7 +62,7 @@ export function problemsFromFailure(failure: unknown): { problems: FieldProblems
 /** Defines or edits one orbit; derived figures follow the typing, checked by the server's physics. */
 @Component({
   selector: 'ecl-orbit-editor',
-  imports: [ReactiveFormsModule, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSuffix],
+  imports: [DurationPipe, ReactiveFormsModule, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSuffix],
   templateUrl: './orbit-editor.html',
   styleUrl: './orbit-editor.css',
   providers: [{ provide: ErrorStateMatcher, useClass: ShowWhenInvalid }],
