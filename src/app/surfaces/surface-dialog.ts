@@ -14,6 +14,7 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { MissionApi } from '../missions/mission-api';
 import { readQuantityText } from '../missions/quantity-text';
 import { customDirection, describeNormal, NAMED_NORMALS, NORMAL_LABELS } from './surface-normals';
+import { SourceWordsPipe } from '../shell/source-words-pipe';
 
 export interface SurfaceDialogData {
   readonly missionId: string;
@@ -27,7 +28,7 @@ type SurfaceField = 'name' | 'areaM2' | 'normal' | 'materialId';
 @Component({
   selector: 'ecl-surface-dialog',
   imports: [
-    ReactiveFormsModule, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel,
+    SourceWordsPipe, ReactiveFormsModule, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel,
     MatInput, MatError, MatHint, MatSuffix, MatSelect, MatOption, MatOptgroup,
   ],
   templateUrl: './surface-dialog.html',
