@@ -53,6 +53,8 @@ test('units as typed: a 9-day period, "1.2 m²" and "3 sq m" areas, a custom nor
   await expect(page.getByTestId('mission-title')).toBeVisible();
 
   await page.getByTestId('orbit-add').click();
+  // The button goes away: the focus moves to the new orbit's first field, not the page body.
+  await expect(page.getByTestId('orbit-name')).toBeFocused();
   await page.getByTestId('orbit-name').fill('Nine-day orbit');
   await page.getByTestId('definition-period').click();
   // 9 d = 9 × 86,400 s (SI brochure, table 8); the form's field is in minutes: 12,960 min.
@@ -105,6 +107,17 @@ test('units as typed: a 9-day period, "1.2 m²" and "3 sq m" areas, a custom nor
   for (const tick of ticks) expect(tick).toMatch(/^(\d{4}(-\d{2}(-\d{2})?)?|\d{2}:\d{2}(:\d{2})?|[-−]?[\d.,]+)$/);
   expect(ticks.join(' ')).not.toMatch(/AM|PM|Mar|Sun|Mon/);
   await screenshot(page, 'everyday-sweep-24h');
+});
+
+test('forms: after a token is made the emptied name field shows no error', async ({ page }) => {
+  await signIn(page, 'analyst@kestrel.test');
+  await page.goto('/tokens');
+  await page.getByTestId('token-name').fill(`everyday ${Date.now()}`);
+  await page.getByTestId('token-create').click();
+  await expect(page.getByTestId('token-secret')).toBeVisible();
+  await expect(page.getByTestId('token-name')).toHaveValue('');
+  await expect(page.locator('mat-error')).toHaveCount(0);
+  await screenshot(page, 'everyday-token-made');
 });
 
 // Our internals, as a user must never read them: camelCase identifiers, dotted field paths,

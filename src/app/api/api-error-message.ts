@@ -28,7 +28,11 @@ export function apiErrorMessage(failure: unknown): string {
   if (failure instanceof HttpErrorResponse) {
     if (isErrorBody(failure.error)) {
       const { message, details } = failure.error.error;
-      const extra = (details ?? []).map(describeDetail).filter((d) => !message.includes(d));
+      // A detail for the field the message already opens with ("frame: ...") would say it twice.
+      const extra = (details ?? [])
+        .filter((d) => !(d.path && d.row === undefined && message.startsWith(`${d.path}:`)))
+        .map(describeDetail)
+        .filter((d) => !message.includes(d));
       // The server names fields by their API path; the screen says them as the forms label them.
       return withoutIdentifiers(extra.length > 0 ? `${message} (${extra.join('; ')})` : message);
     }

@@ -1,8 +1,8 @@
 import { Clipboard } from '@angular/cdk/clipboard';
 import { HttpClient } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
@@ -65,6 +65,8 @@ export class ApiTokensPage {
   protected readonly failure = signal<string | null>(null);
   protected readonly busy = signal(false);
 
+  private readonly formDirective = viewChild(FormGroupDirective);
+
   protected createToken(): void {
     if (this.form.invalid) {
       this.form.markAllAsTouched();
@@ -77,7 +79,8 @@ export class ApiTokensPage {
     this.http.post<TokenCreated>(apiPath('tokens'), body).subscribe({
       next: (made) => {
         this.created.set(made);
-        this.form.reset();
+        // Through the directive: it also forgets the submit, so the emptied name shows no error.
+        this.formDirective()?.resetForm();
         this.busy.set(false);
         this.refresh.next();
       },

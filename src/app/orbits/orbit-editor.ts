@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, DestroyRef, OnInit, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, OnInit, afterNextRender, inject, input, output, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -71,6 +71,13 @@ export function problemsFromFailure(failure: unknown): { problems: FieldProblems
 export class OrbitEditor implements OnInit {
   private readonly api = inject(MissionApi);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+
+  constructor() {
+    // Opened by "Add orbit" or "Edit", which then disappear: the focus goes to the orbit's first
+    // field rather than falling to the page body, so keyboard users carry on where they clicked.
+    afterNextRender(() => this.host.nativeElement.querySelector<HTMLInputElement>('input')?.focus());
+  }
 
   readonly missionId = input.required<string>();
   readonly missionStartDate = input.required<string>();

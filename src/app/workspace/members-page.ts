@@ -1,6 +1,6 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
@@ -98,6 +98,9 @@ export class MembersPage {
       });
   }
 
+  /** The form's directive: resetting through it also forgets that it was submitted, so the emptied field shows no error. */
+  private readonly inviteFormDirective = viewChild(FormGroupDirective);
+
   protected invite(): void {
     if (this.inviteForm.invalid) {
       this.inviteForm.markAllAsTouched();
@@ -109,7 +112,7 @@ export class MembersPage {
     this.api.invite(this.workspaceId(), { email: email.trim().toLowerCase(), role }).subscribe({
       next: (made) => {
         this.snackBar.open(`Invitation sent to ${made.email}.`, undefined, { duration: 3000 });
-        this.inviteForm.reset();
+        this.inviteFormDirective()?.resetForm();
         this.busy.set(false);
         this.refresh.next();
       },
