@@ -167,3 +167,32 @@ for (const role of roles) {
     expect(found, found.join('\n')).toEqual([]);
   });
 }
+
+test('screenshots of the changed screens at 390 px and in the dark theme', async ({ page }) => {
+  test.setTimeout(180_000);
+  await page.emulateMedia({ colorScheme: 'dark' });
+  await page.setViewportSize({ width: 390, height: 844 });
+  await signIn(page, 'analyst@kestrel.test');
+  await screenshot(page, 'everyday-390-dark-landing');
+  await page.getByTestId('mission-row').first().locator('a').first().click();
+  await expect(page.getByTestId('mission-title')).toBeVisible();
+  await expect(page.getByTestId('orbit-row-period').first()).toHaveText(/ (s|min|h|d)$/);
+  await page.getByTestId('orbit-add').click();
+  await expect(page.getByTestId('orbit-name')).toBeFocused();
+  await page.getByTestId('definition-period').click();
+  await page.getByTestId('orbit-period').fill('14 d');
+  await page.getByTestId('orbit-eccentricity').fill('0');
+  await page.getByTestId('orbit-inclination').fill('12 q');
+  await expect(page.getByTestId('error-inclination')).toContainText('is not a unit this field reads');
+  // Nothing in the editor is wider than the phone (it would slide the page sideways).
+  const editorBox = await page.getByTestId('orbit-editor').boundingBox();
+  expect(editorBox && editorBox.x >= 0 && editorBox.x + editorBox.width <= 390).toBe(true);
+  await screenshot(page, 'everyday-390-dark-orbit-editor');
+  await page.setViewportSize({ width: 1440, height: 900 });
+  await page.getByRole('tab', { name: 'Surfaces' }).click();
+  await page.getByTestId('surface-add').click();
+  await dialogReady(page);
+  await page.getByTestId('surface-area').fill('2 furlongs');
+  await expect(page.getByTestId('surface-area-preview')).toContainText('is not a unit this field reads');
+  await page.screenshot({ path: 'tmp/screenshots/everyday-1440-dark-surface-area-error.png' });
+});

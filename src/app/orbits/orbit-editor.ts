@@ -76,7 +76,12 @@ export class OrbitEditor implements OnInit {
   constructor() {
     // Opened by "Add orbit" or "Edit", which then disappear: the focus goes to the orbit's first
     // field rather than falling to the page body, so keyboard users carry on where they clicked.
-    afterNextRender(() => this.host.nativeElement.querySelector<HTMLInputElement>('input')?.focus());
+    // No scrolling by the focus itself: at 390 px it would slide the tab sideways; the editor is
+    // brought into view by its own left edge instead.
+    afterNextRender(() => {
+      this.host.nativeElement.querySelector<HTMLInputElement>('input')?.focus({ preventScroll: true });
+      this.host.nativeElement.scrollIntoView({ block: 'nearest', inline: 'start' });
+    });
   }
 
   readonly missionId = input.required<string>();
