@@ -80,7 +80,7 @@ export class OrbitEditor implements OnInit {
     // brought into view by its own left edge instead.
     afterNextRender(() => {
       this.host.nativeElement.querySelector<HTMLInputElement>('input')?.focus({ preventScroll: true });
-      this.host.nativeElement.scrollIntoView({ block: 'nearest', inline: 'start' });
+      this.host.nativeElement.scrollIntoView?.({ block: 'nearest', inline: 'start' });
     });
   }
 
