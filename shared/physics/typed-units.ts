@@ -82,9 +82,12 @@ export function unitsOfKind(kind: QuantityKind): string {
   return names.length === 1 ? names[0]! : `${names.slice(0, -1).join(', ')} or ${names[names.length - 1]}`;
 }
 
-/** The kind a unit of the table measures ("km" → length); undefined outside the table. */
+/**
+ * The kind a unit of the table measures ("km" → length, "m²" → area), spelled exactly as the table
+ * has it (symbols are case-sensitive: "M" is not "m"); undefined outside the table.
+ */
 export function kindOfUnit(name: string): QuantityKind | undefined {
-  return unitNamed(name)?.kind;
+  return BY_NAME.get(normaliseUnitText(name))?.kind;
 }
 
 export type TypedReading =

@@ -148,7 +148,7 @@ for (const role of roles) {
       await page.waitForLoadState('networkidle');
       for (const problem of await internalsOn(page)) found.push(`${label} (${page.url()}): ${problem}`);
     };
-    const links = await page.locator('nav a[href]').evaluateAll((as) => as.map((a) => (a as HTMLAnchorElement).getAttribute('href') ?? ''));
+    const links = await page.locator('nav a[href]').evaluateAll((as) => as.map((a) => a.getAttribute('href') ?? ''));
     for (const href of [...new Set(links)].filter((h) => h.startsWith('/'))) {
       await page.goto(href);
       await visit(href);
