@@ -102,8 +102,6 @@ export function readCsvEphemeris(input: Readable, checker: EphemerisChecker, epo
   let row = 0;
   /** Records read before csv-parse took over (the header included). */
   let recordsBefore = 0;
-  /** Lines of the file read before csv-parse took over. */
-  let linesBefore = 0;
   let parser: Parser | null = null;
   let pending = '';
   let first = true;
@@ -151,8 +149,7 @@ export function readCsvEphemeris(input: Readable, checker: EphemerisChecker, epo
         }
         // A quote out of place and similar: csv-parse cannot go on past it.
         const records = recordsBefore + (typeof err.records === 'number' ? err.records : row + 1 - recordsBefore);
-        const message = err.message.replace(/at line (\d+)/, (_, line: string) => `at line ${Number(line) + linesBefore}`);
-        checker.problem(records, undefined, undefined, `this line cannot be read as CSV: ${message}`);
+        checker.problem(records, undefined, undefined, `this line cannot be read as CSV: ${csvProblemWords(err.code)}`);
         finish();
       });
       csv.write(rest);
@@ -168,7 +165,6 @@ export function readCsvEphemeris(input: Readable, checker: EphemerisChecker, epo
           return '';
         }
         start = nl + 1;
-        linesBefore++;
         const hash = line.indexOf('#');
         const content = hash < 0 ? line : line.slice(0, hash);
         if (content !== '') onRecord(content.split(','));
@@ -211,6 +207,22 @@ export function readCsvEphemeris(input: Readable, checker: EphemerisChecker, epo
     input.on('end', onEnd);
     input.on('error', finish);
   });
+}
+
+// csv-parse's own messages ("Invalid Opening Quote: a quote is found on field 0 at line 4") are
+// for programmers; the user reads what is wrong with the line in words (the row is named beside).
+const CSV_PROBLEMS: Readonly<Record<string, string>> = {
+  INVALID_OPENING_QUOTE: 'a quote mark stands inside a value that did not start with one',
+  CSV_INVALID_CLOSING_QUOTE: 'a quoted value has more text after its closing quote mark',
+  CSV_QUOTE_NOT_CLOSED: 'a quoted value is never closed (a quote mark is missing)',
+  CSV_NON_TRIMABLE_CHAR_AFTER_CLOSING_QUOTE: 'a quoted value has more text after its closing quote mark',
+  CSV_RECORD_INCONSISTENT_COLUMNS: 'it has a different number of values than the header',
+  CSV_MAX_RECORD_SIZE: 'the line is far longer than an ephemeris row',
+  CSV_RECORD_INCONSISTENT_FIELDS_LENGTH: 'it has a different number of values than the header',
+};
+
+function csvProblemWords(code: string): string {
+  return CSV_PROBLEMS[code] ?? 'its quoting or separators are not those of a CSV file';
 }
 
 function readRow(row: number, cells: string[], header: Header, checker: EphemerisChecker, epochMs: number | null): void {

@@ -15,21 +15,35 @@ interface LibraryMaterial {
 }
 
 const bolSource = 'BOL: Fortescue, Swinerd & Stark 2011, Table 11.3; Gilmore 2002, App. A';
-const emissivityKept = 'EOL emissivity = BOL (no change given in DOMAIN.md)';
+// Shown to users beside each material, so in their words: no file names, no shorthand.
+const emissivityKept = 'EOL emissivity taken equal to BOL (no change assumed; common practice, no source)';
 // DOMAIN.md's end-of-life paragraph is marked [M]: from memory, to be confirmed against the source.
 const eolFromRange = (range: string, chosen: number): string =>
-  `EOL absorptivity ${chosen}: middle of DOMAIN.md's range ${range} (from memory, not yet confirmed against a published source)`;
-const eolAssumed = 'EOL absorptivity not published in DOMAIN.md: BOL + 0.05 assumed (common practice, no source)';
+  `EOL absorptivity ${chosen}: middle of the end-of-life range ${range} usually quoted for it (value not yet checked against its published source)`;
+
+/** A coating cannot absorb more than all the sunlight that reaches it; library values stay below this. */
+export const MAX_LIBRARY_ABSORPTIVITY = 0.99;
+
+/**
+ * End-of-life absorptivity where no published degradation figure is at hand: BOL + 0.05, but never
+ * more than half of what is left below 1, so a black coating (0.95) ends at 0.97, not at an
+ * impossible 1.00. Common practice, no source; the material's source text says so.
+ */
+export function assumedEolAbsorptivity(absorptivityBol: number): number {
+  const rise = Math.min(0.05, (1 - absorptivityBol) / 2);
+  return Math.min(MAX_LIBRARY_ABSORPTIVITY, Math.floor((absorptivityBol + rise) * 100 + 1e-9) / 100);
+}
 
 function assumedEol(name: string, absorptivityBol: number, emissivityBol: number): LibraryMaterial {
-  const absorptivityEol = Math.min(1, Math.round((absorptivityBol + 0.05) * 100) / 100);
+  const absorptivityEol = assumedEolAbsorptivity(absorptivityBol);
+  const rule = absorptivityEol < Math.round((absorptivityBol + 0.05) * 100) / 100 ? 'BOL + half the distance to 1' : 'BOL + 0.05';
   return {
     name,
     absorptivityBol,
     emissivityBol,
     absorptivityEol,
     emissivityEol: emissivityBol,
-    source: `${bolSource}. ${eolAssumed}. ${emissivityKept}.`,
+    source: `${bolSource}. EOL absorptivity ${absorptivityEol} = ${rule}, no published degradation figure at hand (common practice, no source). ${emissivityKept}.`,
   };
 }
 

@@ -2,6 +2,7 @@
 // built on the mathjs Unit system): where it answers, it must answer what mathjs would.
 import { describe, expect, it } from 'vitest';
 import { readQuantity } from '../../shared/physics/units';
+import { normaliseUnitText } from '../../shared/physics/typed-units';
 import { loadUnits, readQuantityIn, valueInOwnUnit } from './quantity-reader';
 
 describe('valueInOwnUnit', () => {
@@ -30,5 +31,42 @@ describe('readQuantityIn', () => {
   it('refuses a quantity of the wrong kind with the field path, as readQuantity does', async () => {
     await loadUnits();
     expect(() => readQuantityIn('95 min', 'km', 'orbit.periapsisAltitudeKm')).toThrow(/"95 min" is a time, not a length/);
+  });
+});
+
+describe('readQuantityIn with the typed-unit table the client previews with (shared/physics/typed-units.ts)', () => {
+  it('reads days, superscripts and "sq m" without mathjs (SI brochure table 8: 1 d = 86 400 s)', () => {
+    expect(readQuantityIn('14 d', 's', 'orbit.periodS')).toBe(1209600);
+    expect(readQuantityIn('9 days', 's', 'orbit.periodS')).toBe(777600);
+    expect(readQuantityIn('1.2 m²', 'm^2', 'areaM2')).toBe(1.2);
+    expect(readQuantityIn('3 sq m', 'm^2', 'areaM2')).toBe(3);
+  });
+
+  it('never passes a parser message on: unreadable text is refused in words', async () => {
+    await loadUnits();
+    for (const text of ['1.2 m²²', '4 @@', '1.2 "m']) {
+      let message = '';
+      try {
+        readQuantityIn(text, 'm^2', 'areaM2');
+      } catch (error) {
+        message = (error as Error).message;
+      }
+      expect(message, text).toMatch(/not a unit this field reads|does not start with a number/);
+      expect(message, text).not.toMatch(/Unexpected|index|char/i);
+    }
+  });
+
+  it('agrees with mathjs on every spelling of the table mathjs also reads', async () => {
+    const units = await loadUnits();
+    const { typedUnitNames } = await import('../../shared/physics/typed-units');
+    const target = { length: 'm', time: 's', angle: 'rad', area: 'm^2', volume: 'm^3' } as const;
+    let compared = 0;
+    for (const { name, kind } of typedUnitNames()) {
+      const text = `2.5 ${normaliseUnitText(name)}`;
+      if (!units.canReadQuantity(text)) continue;
+      compared++;
+      expect(readQuantityIn(text, target[kind], 'value'), text).toBeCloseTo(readQuantity(text, target[kind]), 9);
+    }
+    expect(compared).toBeGreaterThan(20);
   });
 });

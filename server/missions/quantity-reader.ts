@@ -3,6 +3,12 @@
 // requests (an ephemeris upload, a sign-in) never convert a unit. A bare number, or a number
 // followed by the field's own unit, needs no conversion and is read here; anything else goes to
 // units.ts, which the routes that take typed quantities load first (await loadUnits()).
+// Units people type ("14 d", "1.2 m²", "sq m") are read with the table the client previews with
+// (shared/physics/typed-units.ts), so the preview and the stored value always agree; only units
+// outside that table reach mathjs.
+import { PhysicsError } from '../../shared/physics/physics-error';
+import { normaliseUnitText, readTypedQuantity } from '../../shared/physics/typed-units';
+
 type Units = typeof import('../../shared/physics/units');
 
 let units: Units | null = null;
@@ -37,10 +43,22 @@ export function valueInOwnUnit(input: string | number, unit: string): number | u
   return Number.isFinite(value) ? value : undefined;
 }
 
-/** readQuantity (shared/physics/units.ts) with `unit` as target and default; see the file comment. */
+/**
+ * `input` in `unit` (a unit of the typed-unit table: "km", "s", "deg", "m^2"): a bare number is in
+ * `unit`; typed text is read with the shared table, and a unit outside it with mathjs
+ * (shared/physics/units.ts). Refusals are PhysicsErrors in words, never a parser's message.
+ */
 export function readQuantityIn(input: string | number, unit: string, path: string): number {
   const own = valueInOwnUnit(input, unit);
   if (own !== undefined) return own;
+  if (typeof input === 'number') throw new PhysicsError('invalid_quantity', `${input} is not a finite number`, [{ path, message: `${input} is not a finite number` }]);
+  const reading = readTypedQuantity(input, unit);
+  if (reading.ok) return reading.value;
+  const refusal = new PhysicsError('invalid_quantity', reading.message, [{ path, message: reading.message }]);
+  if (!reading.unknownUnit) throw refusal;
   if (!units) throw new Error(`reading ${path} needs the unit system: the route must await loadUnits() first`);
-  return units.readQuantity(input, unit, unit, path);
+  const text = normaliseUnitText(input);
+  // mathjs knows many more units ("300000 ft", "2 kg"); what it cannot read gets the table's words.
+  if (!units.canReadQuantity(text)) throw refusal;
+  return units.readQuantity(text, unit, unit, path);
 }

@@ -29,12 +29,22 @@ export function dimensionOf(unit: Unit): string {
 
 const refuse = (path: string, message: string): PhysicsError => new PhysicsError('invalid_quantity', message, [{ path, message }]);
 
+// mathjs's own message ("Unexpected "²" in ... at index 5") is for programmers, so the user reads words.
 function parse(text: string, path: string): Unit {
   try {
     return math.unit(text);
-  } catch (error) {
-    const reason = error instanceof Error ? error.message : String(error);
-    throw refuse(path, `"${text}" is not a quantity Eclipta can read (${reason})`);
+  } catch {
+    throw refuse(path, `"${text}" is not a quantity Eclipta can read; write a number and a unit, e.g. "550 km"`);
+  }
+}
+
+/** Whether mathjs reads the text as a quantity at all (its dimension is checked later). */
+export function canReadQuantity(text: string): boolean {
+  try {
+    math.unit(text);
+    return true;
+  } catch {
+    return false;
   }
 }
 
@@ -81,9 +91,8 @@ export function convertQuantity(input: string | number, unit: string): number {
   let target: Unit;
   try {
     target = math.unit(unit);
-  } catch (error) {
-    const reason = error instanceof Error ? error.message : String(error);
-    throw refuse('unit', `"${unit}" is not a unit Eclipta can read (${reason})`);
+  } catch {
+    throw refuse('unit', `"${unit}" is not a unit Eclipta can read; give a unit alone, e.g. "km"`);
   }
   if (target.value !== null) throw refuse('unit', `"${unit}" is a quantity; give the unit alone, e.g. "km"`);
   return readQuantity(input, unit, unit, 'value');

@@ -1,13 +1,20 @@
 import { inject } from '@angular/core';
 import { Router, Routes, UrlTree } from '@angular/router';
+import { AuthSession } from './auth/auth-session';
 import { signedInGuard } from './auth/signed-in-guard';
 import { adminGuard, sectionGuard, workspaceGuard } from './workspace/role-guard';
 import { CurrentWorkspace } from './workspace/current-workspace';
 
-/** "/" opens the remembered workspace's missions; a user in none still has their tokens page. */
+/**
+ * "/" opens the remembered workspace's missions; a user in none still has their tokens page.
+ * Redirects run before guards, so a signed-out visitor is sent to sign in from here, coming back
+ * to "/" (and so to their missions) rather than to wherever the signed-out fallback pointed.
+ */
 function homeOf(): string | UrlTree {
+  const router = inject(Router);
+  if (!inject(AuthSession).signedIn()) return router.createUrlTree(['/sign-in']);
   const id = inject(CurrentWorkspace).id();
-  return id === null ? '/tokens' : inject(Router).createUrlTree(['/w', id, 'missions']);
+  return id === null ? '/tokens' : router.createUrlTree(['/w', id, 'missions']);
 }
 
 export const appRoutes: Routes = [

@@ -136,6 +136,13 @@ describe('POST /api/v1/units/convert', () => {
     expect(bare.body.value).toBe(97.6);
   });
 
+  it('reads days and superscripts as the forms do (SI brochure table 8: 1 d = 86 400 s)', async () => {
+    expect((await viewer.post('/api/v1/units/convert').send({ value: '14 d', unit: 's' }).expect(200)).body.value).toBe(1209600);
+    expect((await viewer.post('/api/v1/units/convert').send({ value: '1.2 m²', unit: 'm^2' }).expect(200)).body.value).toBe(1.2);
+    const unreadable = await viewer.post('/api/v1/units/convert').send({ value: '1.2 m²²', unit: 'm^2' }).expect(400);
+    expect(unreadable.body.error.message).not.toMatch(/Unexpected|index/);
+  });
+
   it('400 naming the dimensions when they differ, the unit when it is unknown', async () => {
     const mass = await viewer.post('/api/v1/units/convert').send({ value: '5 kg', unit: 'km' }).expect(400);
     expect(mass.body.error.message).toMatch(/"5 kg" is a mass, not a length/);

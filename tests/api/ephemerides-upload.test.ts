@@ -154,7 +154,8 @@ describe('accepted ephemerides', () => {
 
 // Each malformed fixture (scripts/make-ephemeris-fixtures.ts) with the row, column and reason expected first.
 const refused: [file: string, row: number, column: string | undefined, reason: RegExp, fields?: Record<string, string>][] = [
-  ['unparseable-line.csv', 3, undefined, /cannot be read as CSV/],
+  // In words, not csv-parse's "Invalid Opening Quote: a quote is found on field 0 at line 3".
+  ['unparseable-line.csv', 3, undefined, /this line cannot be read as CSV: a quote mark stands inside a value that did not start with one/],
   ['missing-column.csv', 4, 'vz', /missing column: vz/],
   ['extra-column.csv', 5, undefined, /extra column/],
   ['non-numeric.csv', 2, 'x', /not a number/],

@@ -69,7 +69,7 @@ describe('POST /api/v1/missions/:id/orbits', () => {
   it.each([
     [{ periapsisAltitudeKm: '5 kg', apoapsisAltitudeKm: 500 }, 400, 'orbit.periapsisAltitudeKm: "5 kg" is a mass, not a length'],
     [{ periodS: '95 km', eccentricity: 0 }, 400, 'orbit.periodS: "95 km" is a length, not a time'],
-    [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, inclinationDeg: '12 parsnips' }, 400, 'orbit.inclinationDeg: "12 parsnips" is not a quantity'],
+    [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, inclinationDeg: '12 parsnips' }, 400, 'orbit.inclinationDeg: "parsnips" is not a unit this field reads; use deg or rad'],
     // the compute route's own words: saved orbits and compute share one schema
     [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, inclinationDeg: 200 }, 400, 'orbit.inclinationDeg: inclination is 0..180 deg (got 200)'],
     [{ periapsisAltitudeKm: 500, apoapsisAltitudeKm: 500, periodS: 5700 }, 400, 'define the orbit one way only'],

@@ -60,7 +60,7 @@ test('the analyst creates a mission, an orbit and surfaces, and reads the enviro
   await expect(page.getByTestId('figure-period')).toHaveText(/^95\.[5-7]\d min$/);
   await page.getByTestId('orbit-save').click();
   await expect(page.getByTestId('orbit-row')).toHaveCount(1);
-  await expect(page.getByTestId('orbit-row-period')).toHaveText(/^95\.[5-7]\d$/);
+  await expect(page.getByTestId('orbit-row-period')).toHaveText(/^95\.[5-7]\d min$/);
 
   await page.getByRole('tab', { name: 'Surfaces' }).click();
   await addSurface(page, 'Nadir panel', '0.5', /^Nadir/);

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
@@ -8,11 +7,12 @@ import type { MailMessage, MailSummary } from '../../../shared/api/workspaces';
 import { apiPath } from '../api/api-path';
 import { loaded } from '../api/loaded';
 import { mailTextParts } from './mail-text-parts';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** The mail the instance sent (caught by the local SMTP server), for administrators and demos. */
 @Component({
   selector: 'ecl-mail-outbox-page',
-  imports: [DatePipe, MatButton],
+  imports: [UtcTimePipe, MatButton],
   templateUrl: './mail-outbox-page.html',
   styleUrl: './mail-outbox-page.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,9 +1,8 @@
 import { Clipboard } from '@angular/cdk/clipboard';
-import { DatePipe } from '@angular/common';
 import { HttpClient } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
@@ -19,13 +18,14 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { apiPath } from '../api/api-path';
 import { loaded } from '../api/loaded';
 import { ConfirmDialog } from '../shell/confirm-dialog';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** Personal API tokens: other teams' scripts import released cases with them. */
 @Component({
   selector: 'ecl-api-tokens-page',
   imports: [
     ReactiveFormsModule,
-    DatePipe,
+    UtcTimePipe,
     MatTableModule,
     MatFormField,
     MatLabel,
@@ -65,6 +65,8 @@ export class ApiTokensPage {
   protected readonly failure = signal<string | null>(null);
   protected readonly busy = signal(false);
 
+  private readonly formDirective = viewChild(FormGroupDirective);
+
   protected createToken(): void {
     if (this.form.invalid) {
       this.form.markAllAsTouched();
@@ -77,7 +79,8 @@ export class ApiTokensPage {
     this.http.post<TokenCreated>(apiPath('tokens'), body).subscribe({
       next: (made) => {
         this.created.set(made);
-        this.form.reset();
+        // Through the directive: it also forgets the submit, so the emptied name shows no error.
+        this.formDirective()?.resetForm();
         this.busy.set(false);
         this.refresh.next();
       },

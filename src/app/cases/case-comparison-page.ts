@@ -1,4 +1,4 @@
-import { DatePipe, NgTemplateOutlet } from '@angular/common';
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIcon } from '@angular/material/icon';
@@ -12,6 +12,7 @@ import { CaseApi } from './case-api';
 import { formatDifference, formatInputValue, formatQuantity, inputDifference, type Compared, type DifferenceText, derivedPath, labelOfPath } from './case-differences';
 import { CaseKindLabel } from './case-kind-label';
 import { CaseStatusChip } from './case-status-chip';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 interface Row {
   readonly label: string;
@@ -80,7 +81,7 @@ export function comparisonRows(c: CaseComparison, margined: MarginedResults | nu
 /** Two cases side by side: inputs and per-surface orbit averages, B minus A, in the unit and in percent of A. */
 @Component({
   selector: 'ecl-case-comparison-page',
-  imports: [DatePipe, NgTemplateOutlet, RouterLink, MatIcon, DesignCaution, CaseKindLabel, CaseStatusChip],
+  imports: [UtcTimePipe, NgTemplateOutlet, RouterLink, MatIcon, DesignCaution, CaseKindLabel, CaseStatusChip],
   templateUrl: './case-comparison-page.html',
   styleUrl: './case-comparison-page.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

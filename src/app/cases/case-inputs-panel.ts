@@ -2,6 +2,9 @@ import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { CaseDetail } from '../../../shared/api/cases';
 import { PROPERTY_SET_LABELS } from './case-labels';
+import { DurationPipe } from '../time/duration-pipe';
+import { fieldWords, sourceWords } from '../shell/user-words';
+import { SourceWordsPipe } from '../shell/source-words-pipe';
 
 interface ConstantRow {
   readonly label: string;
@@ -15,7 +18,7 @@ const range = (r: { min: number; nominal: number; max: number }, digits: number,
 /** Every input of a case as it was snapshotted: orbit, conditions, eclipse, margins, body constants with sources. */
 @Component({
   selector: 'ecl-case-inputs',
-  imports: [DecimalPipe],
+  imports: [SourceWordsPipe, DurationPipe, DecimalPipe],
   templateUrl: './case-inputs-panel.html',
   styleUrl: './case-inputs-panel.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -37,7 +40,7 @@ export class CaseInputsPanel {
   /** The body's constants beside the source each was taken from; sources with no value shown come last. */
   protected readonly constants = computed((): ConstantRow[] => {
     const body = this.inputs().body;
-    const source = (key: string) => body.sources[key] ?? '—';
+    const source = (key: string) => sourceWords(body.sources[key] ?? '—');
     const rows: ConstantRow[] = [
       { label: 'Gravitational parameter', value: `${body.gmKm3S2.toFixed(4)} km³/s²`, source: source('gmKm3S2') },
       { label: 'Equatorial radius', value: `${body.radiusKm.toFixed(3)} km`, source: source('radiusKm') },
@@ -53,7 +56,7 @@ export class CaseInputsPanel {
     const shown = new Set(['gmKm3S2', 'radiusKm', 'j2', 'solarDistanceAu', 'albedo', 'olrWm2']);
     const rest = Object.entries(body.sources)
       .filter(([key]) => !shown.has(key))
-      .map(([key, text]) => ({ label: key, value: '', source: text }));
+      .map(([key, text]) => ({ label: fieldWords(key).replace(/^./, (c) => c.toUpperCase()), value: '', source: sourceWords(text) }));
     return [...rows, ...rest];
   });
 }

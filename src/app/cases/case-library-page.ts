@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal, viewChild } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
@@ -24,6 +23,7 @@ import { CaseKindLabel } from './case-kind-label';
 import { CASE_STATUSES, STATUS_LABELS, shortChecksum } from './case-labels';
 import { CaseStatusChip } from './case-status-chip';
 import { CustomCaseDialog } from './custom-case-dialog';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** Sort keys for the columns whose cell is not a plain field of the row. */
 function sortValue(row: CaseSummary, column: string): string | number {
@@ -49,7 +49,7 @@ function sortValue(row: CaseSummary, column: string): string | number {
 @Component({
   selector: 'ecl-case-library-page',
   imports: [
-    DatePipe, RouterLink, MatTableModule, MatSort, MatSortHeader, MatPaginator, MatFormField, MatLabel, MatSelect, MatOption,
+    UtcTimePipe, RouterLink, MatTableModule, MatSort, MatSortHeader, MatPaginator, MatFormField, MatLabel, MatSelect, MatOption,
     MatButton, MatIcon, DesignCaution, CaseKindLabel, CaseStatusChip,
   ],
   templateUrl: './case-library-page.html',

@@ -1,4 +1,4 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
@@ -26,12 +26,13 @@ import { CaseKindLabel } from './case-kind-label';
 import { CaseLoadsPanel } from './case-loads-panel';
 import { CaseReviewDialog } from './case-review-dialog';
 import { CaseStatusChip } from './case-status-chip';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** One load case: why it is the worst case, its loads around the orbit, its inputs, and its life cycle. */
 @Component({
   selector: 'ecl-case-page',
   imports: [
-    DatePipe, DecimalPipe, RouterLink, MatButton, MatIcon, MatSlideToggle, DesignCaution, CaseKindLabel, CaseStatusChip,
+    UtcTimePipe, DecimalPipe, RouterLink, MatButton, MatIcon, MatSlideToggle, DesignCaution, CaseKindLabel, CaseStatusChip,
     CaseInputsPanel, CaseLoadsPanel, MatFormField, MatLabel, MatInput, MatCheckbox,
   ],
   templateUrl: './case-page.html',

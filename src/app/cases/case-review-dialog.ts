@@ -1,4 +1,4 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
@@ -9,6 +9,7 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { CaseApi } from './case-api';
 import { CaseKindLabel } from './case-kind-label';
 import { PROPERTY_SET_LABELS } from './case-labels';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 export interface CaseReviewData {
   /** submit: draft -> in review; release: in review -> released. */
@@ -22,7 +23,7 @@ export interface CaseReviewData {
  */
 @Component({
   selector: 'ecl-case-review-dialog',
-  imports: [DatePipe, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatDialogClose, MatProgressBar, CaseKindLabel],
+  imports: [UtcTimePipe, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatDialogClose, MatProgressBar, CaseKindLabel],
   templateUrl: './case-review-dialog.html',
   styleUrl: './case-dialog.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

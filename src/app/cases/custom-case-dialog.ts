@@ -13,6 +13,7 @@ import type { CaseDeriveData } from './case-derive-dialog';
 import { CaseTreatmentToggles } from './case-treatment-toggles';
 import { MarginFields, marginGroup } from './margin-fields';
 import { missionOrbitChoice } from './mission-orbit-choice';
+import { isoDateValidator } from '../time/iso-date-validator';
 
 /** A case the engineer defines: a date (and with it the Sun), or a fixed beta, an attitude, a property set. */
 @Component({
@@ -34,7 +35,7 @@ export class CustomCaseDialog {
     missionId: [this.data.missionId ?? '', Validators.required],
     orbitId: ['', Validators.required],
     name: ['', [Validators.required, Validators.maxLength(120)]],
-    date: ['', Validators.required],
+    date: ['', [Validators.required, isoDateValidator]],
     betaDeg: [null as number | null, [Validators.min(-90), Validators.max(90)]],
     properties: ['bol' as 'bol' | 'eol'],
     marginDirection: ['increase' as 'increase' | 'decrease'],

@@ -86,6 +86,8 @@ export class EphemerisUpload {
 
   private take(file: File): void {
     this.file.set(file);
+    // "As the OEM file says" only fits an OEM; a CSV must declare its frame.
+    if (this.frame === '' && !/\.oem$/i.test(file.name)) this.frame = 'EME2000';
     this.refusal.set(null);
     this.progress.set(null);
   }
@@ -106,6 +108,9 @@ export class EphemerisUpload {
         if (p.stage === 'done') {
           this.file.set(null);
           this.name = '';
+          // The next file starts from the usual choices, not the last file's.
+          this.frame = 'EME2000';
+          this.epoch = '';
           this.uploaded.emit(p.summary);
         }
       },

@@ -1,15 +1,19 @@
-// The time window a user picks on an ephemeris, typed in a datetime-local field read as UTC (the
-// field itself has no time zone; the label says UTC), and the ISO 8601 epochs the API takes.
+// The time window a user picks on an ephemeris, typed as ISO 8601 in 24-hour UTC ("2027-03-20
+// 12:00:00"; a plain text field, since the browser's date-time field writes the locale's 12-hour
+// clock), and the ISO 8601 epochs the API takes.
 
-/** "2027-03-20T12:00:00.000Z" as the field shows it: "2027-03-20T12:00:00". */
+/** "2027-03-20T12:00:00.000Z" as the field shows it: "2027-03-20 12:00:00". */
 export function utcFieldValue(iso: string): string {
   const ms = Date.parse(iso);
-  return Number.isNaN(ms) ? '' : new Date(ms).toISOString().slice(0, 19);
+  return Number.isNaN(ms) ? '' : new Date(ms).toISOString().slice(0, 19).replace('T', ' ');
 }
 
-/** The field's text ("2027-03-20T12:00" or with seconds) as an ISO 8601 UTC epoch; null when it is not one. */
+/**
+ * The field's text ("2027-03-20 12:00", with seconds, a "T" for the space, a closing "Z" or "UTC")
+ * as an ISO 8601 UTC epoch; null when it is not one.
+ */
 export function isoFromUtcField(text: string): string | null {
-  const match = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2})(?:\.(\d{1,3}))?)?$/.exec(text.trim());
+  const match = /^(\d{4})-(\d{2})-(\d{2})[T ](\d{2}):(\d{2})(?::(\d{2})(?:\.(\d{1,3}))?)?\s*(?:Z|UTC)?$/i.exec(text.trim().replace(/\s+/g, ' '));
   if (!match) return null;
   const [year, month, day, hour, minute, second = '0', fraction = '0'] = match.slice(1);
   const ms = Date.UTC(+year!, +month! - 1, +day!, +hour!, +minute!, +second, Number(fraction.padEnd(3, '0')));

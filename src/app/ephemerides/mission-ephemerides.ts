@@ -1,4 +1,4 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
@@ -21,12 +21,13 @@ import { EphemerisCaseDialog } from './ephemeris-case-dialog';
 import { isoFromUtcField, utcFieldValue, windowText } from './ephemeris-window';
 import { absorbedSeries, altitudeSeries, eclipseBands, fluxSeries, spanText, sunlitSeries } from './ephemeris-series';
 import { EphemerisUpload } from './ephemeris-upload';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** A mission's ephemerides: upload, the list, and for the chosen one its summary and the environment along it. */
 @Component({
   selector: 'ecl-mission-ephemerides',
   imports: [
-    DatePipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatSelect, MatOption,
+    UtcTimePipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatSelect, MatOption,
     TimeSeriesPlot, DesignCaution, EphemerisUpload,
   ],
   templateUrl: './mission-ephemerides.html',
@@ -99,7 +100,7 @@ export class MissionEphemerides {
   protected showWindow(): void {
     const [from, to] = [isoFromUtcField(this.fromText()), isoFromUtcField(this.toText())];
     if (!from || !to) {
-      this.windowProblem.set(`Give both ends as a UTC date and time${!from ? ` (From: "${this.fromText()}")` : ` (To: "${this.toText()}")`}.`);
+      this.windowProblem.set(`Give both ends as a UTC date and time, e.g. 2027-03-20 12:00:00${!from ? ` (From: "${this.fromText()}")` : ` (To: "${this.toText()}")`}.`);
       return;
     }
     if (Date.parse(from) >= Date.parse(to)) {

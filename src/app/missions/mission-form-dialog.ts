@@ -13,6 +13,7 @@ import type { BodySummaryResponse } from '../../../shared/api/environment';
 import type { Mission } from '../../../shared/api/missions';
 import { apiErrorMessage } from '../api/api-error-message';
 import { MissionApi } from './mission-api';
+import { isoDateValidator } from '../time/iso-date-validator';
 
 export interface MissionFormData {
   readonly workspaceId: string;
@@ -47,13 +48,13 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
         <div class="dates">
           <mat-form-field appearance="outline">
             <mat-label>Start (UTC date)</mat-label>
-            <input matInput type="date" formControlName="startDate" data-testid="mission-start" />
-            <mat-error>{{ problems()['startDate'] ?? 'Give the start date.' }}</mat-error>
+            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="startDate" data-testid="mission-start" />
+            <mat-error>{{ problems()['startDate'] ?? 'Give the start date as YYYY-MM-DD, e.g. 2027-06-01.' }}</mat-error>
           </mat-form-field>
           <mat-form-field appearance="outline">
             <mat-label>End (UTC date)</mat-label>
-            <input matInput type="date" formControlName="endDate" data-testid="mission-end" />
-            <mat-error data-testid="mission-end-error">{{ problems()['endDate'] ?? 'Give the end date.' }}</mat-error>
+            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="endDate" data-testid="mission-end" />
+            <mat-error data-testid="mission-end-error">{{ problems()['endDate'] ?? 'Give the end date as YYYY-MM-DD, e.g. 2028-06-01.' }}</mat-error>
           </mat-form-field>
         </div>
         <mat-form-field appearance="outline">
@@ -105,8 +106,8 @@ export class MissionFormDialog {
     name: [this.data.mission?.name ?? '', Validators.required],
     bodyId: [this.data.mission?.bodyId ?? 'earth', Validators.required],
     description: this.data.mission?.description ?? '',
-    startDate: [this.data.mission?.startDate ?? '', Validators.required],
-    endDate: [this.data.mission?.endDate ?? '', Validators.required],
+    startDate: [this.data.mission?.startDate ?? '', [Validators.required, isoDateValidator]],
+    endDate: [this.data.mission?.endDate ?? '', [Validators.required, isoDateValidator]],
     crewed: this.data.mission?.crewed ?? false,
   });
 

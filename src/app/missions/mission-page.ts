@@ -23,11 +23,14 @@ import { SurfacesPanel } from '../surfaces/surfaces-panel';
 import { CurrentWorkspace } from '../workspace/current-workspace';
 import { MissionApi } from './mission-api';
 import { MissionFormDialog } from './mission-form-dialog';
+import { DurationPipe } from '../time/duration-pipe';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** One mission: its facts, orbits, spacecraft surfaces, one orbit's environment and the sweep. */
 @Component({
   selector: 'ecl-mission-page',
   imports: [
+    DurationPipe, UtcTimePipe,
     RouterLink, DecimalPipe, NgTemplateOutlet, MatButton, MatIcon, MatTabGroup, MatTab, MatTabContent, MatFormField, MatLabel, MatSelect, MatOption,
     OrbitEditor, SurfacesPanel, EnvironmentResults, MissionSweep, DesignCaution,
   ],

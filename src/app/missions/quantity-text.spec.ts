@@ -47,7 +47,7 @@ describe('readQuantityText', () => {
 
   it('names the units it reads when the unit is unknown', () => {
     expect(messageOf('12 kg', 'km')).toBe('"kg" is not a unit this field reads; use km, m, mi or nmi');
-    expect(unitsOfKind('time')).toBe('s, min or h');
+    expect(unitsOfKind('time')).toBe('s, min, h or d');
   });
 
   it('refuses empty and non-numeric text', () => {

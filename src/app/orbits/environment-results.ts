@@ -13,11 +13,13 @@ import { MissionApi, type PropertySet } from '../missions/mission-api';
 import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { absorbedSeries, bodyName, eclipseBands, fluxSeries, profileCsvColumns } from './environment-plot-data';
+import { DurationPipe } from '../time/duration-pipe';
+import { SourceWordsPipe } from '../shell/source-words-pipe';
 
 /** One saved orbit's environment with the mission's surfaces: figures, plots around the orbit, averages. */
 @Component({
   selector: 'ecl-environment-results',
-  imports: [DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot],
+  imports: [DurationPipe, SourceWordsPipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot],
   templateUrl: './environment-results.html',
   styleUrl: './environment-results.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, DestroyRef, OnInit, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, OnInit, afterNextRender, inject, input, output, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -29,6 +29,7 @@ import {
   type OrbitDefinition,
   type OrbitField,
 } from './orbit-form';
+import { DurationPipe } from '../time/duration-pipe';
 
 export type OrbitPreview =
   | { readonly kind: 'computing' }
@@ -61,7 +62,7 @@ export function problemsFromFailure(failure: unknown): { problems: FieldProblems
 /** Defines or edits one orbit; derived figures follow the typing, checked by the server's physics. */
 @Component({
   selector: 'ecl-orbit-editor',
-  imports: [ReactiveFormsModule, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSuffix],
+  imports: [DurationPipe, ReactiveFormsModule, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSuffix],
   templateUrl: './orbit-editor.html',
   styleUrl: './orbit-editor.css',
   providers: [{ provide: ErrorStateMatcher, useClass: ShowWhenInvalid }],
@@ -70,6 +71,18 @@ export function problemsFromFailure(failure: unknown): { problems: FieldProblems
 export class OrbitEditor implements OnInit {
   private readonly api = inject(MissionApi);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+
+  constructor() {
+    // Opened by "Add orbit" or "Edit", which then disappear: the focus goes to the orbit's first
+    // field rather than falling to the page body, so keyboard users carry on where they clicked.
+    // No scrolling by the focus itself: at 390 px it would slide the tab sideways; the editor is
+    // brought into view by its own left edge instead.
+    afterNextRender(() => {
+      this.host.nativeElement.querySelector<HTMLInputElement>('input')?.focus({ preventScroll: true });
+      this.host.nativeElement.scrollIntoView?.({ block: 'nearest', inline: 'start' });
+    });
+  }
 
   readonly missionId = input.required<string>();
   readonly missionStartDate = input.required<string>();

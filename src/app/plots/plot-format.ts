@@ -1,10 +1,10 @@
 // How numbers and times read on plot axes, read-outs and tables.
-import { format, utcFormat } from 'd3';
+import { format } from 'd3';
+import { utcText } from '../time/utc-time';
 import type { XKind } from './plot-series';
 
 const largeFormat = format(',.0f');
 const significantFormat = format('.3~r');
-const dateFormat = utcFormat('%Y-%m-%d %H:%M UTC');
 
 /** A read-out value: whole numbers from 100 up, three significant figures below. */
 export function formatValue(value: number): string {
@@ -19,7 +19,7 @@ export function formatWithUnit(value: number, unit: string): string {
 
 /** An x position: a date in UTC (analysts compare against propagator output, which is UTC) or a number. */
 export function formatX(x: number, kind: XKind, unit: string): string {
-  return kind === 'date' ? dateFormat(new Date(x)) : formatWithUnit(x, unit);
+  return kind === 'date' ? utcText(x, 'minute') : formatWithUnit(x, unit);
 }
 
 /** An axis title with its unit in parentheses: "Time (min)". */

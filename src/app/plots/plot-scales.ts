@@ -1,6 +1,7 @@
 // Pure helpers behind the plots: axis domains, the x scale (numbers or UTC dates), nearest-sample
 // lookup and thinning long series for drawing. No DOM and no Angular, so they run inside computed().
 import { nice, scaleLinear, scaleUtc } from 'd3';
+import { utcTickLabel } from '../time/utc-time';
 import type { PlotPoint, XKind } from './plot-series';
 
 export interface AxisTick {
@@ -61,8 +62,7 @@ export function buildXScale(kind: XKind, domain: readonly [number, number], widt
       toPx: (x) => scale(x),
       fromPx: (px) => scale.invert(px).getTime(),
       ticks: (count) => {
-        const label = scale.tickFormat(count);
-        return scale.ticks(count).map((d) => ({ value: d.getTime(), px: scale(d), label: label(d) }));
+        return scale.ticks(count).map((d) => ({ value: d.getTime(), px: scale(d), label: utcTickLabel(d) }));
       },
     };
   }

@@ -8,11 +8,13 @@ import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDial
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatOptgroup, MatOption, MatSelect } from '@angular/material/select';
-import { Observable } from 'rxjs';
+import { Observable, map } from 'rxjs';
 import type { Material, Surface, SurfaceCreate, SurfaceNormal } from '../../../shared/api/missions';
 import { apiErrorMessage } from '../api/api-error-message';
 import { MissionApi } from '../missions/mission-api';
-import { NAMED_NORMALS, NORMAL_LABELS } from './surface-normals';
+import { readQuantityText } from '../missions/quantity-text';
+import { customDirection, describeNormal, NAMED_NORMALS, NORMAL_LABELS } from './surface-normals';
+import { SourceWordsPipe } from '../shell/source-words-pipe';
 
 export interface SurfaceDialogData {
   readonly missionId: string;
@@ -26,7 +28,7 @@ type SurfaceField = 'name' | 'areaM2' | 'normal' | 'materialId';
 @Component({
   selector: 'ecl-surface-dialog',
   imports: [
-    ReactiveFormsModule, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel,
+    SourceWordsPipe, ReactiveFormsModule, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel,
     MatInput, MatError, MatHint, MatSuffix, MatSelect, MatOption, MatOptgroup,
   ],
   templateUrl: './surface-dialog.html',
@@ -58,6 +60,30 @@ export class SurfaceDialog {
   });
   protected readonly normalChoice = toSignal(this.form.controls.normal.valueChanges, { initialValue: this.form.controls.normal.value });
   private readonly materialId = toSignal(this.form.controls.materialId.valueChanges, { initialValue: this.form.controls.materialId.value });
+  private readonly vector = toSignal(
+    this.form.valueChanges.pipe(map(() => ({ x: this.form.controls.x.value, y: this.form.controls.y.value, z: this.form.controls.z.value }))),
+    { initialValue: { x: this.startVector.x, y: this.startVector.y, z: this.startVector.z } },
+  );
+  /** The custom direction scaled to length 1, and a sentence saying so when the typed one was not. */
+  protected readonly direction = computed(() => {
+    const { x, y, z } = this.vector();
+    return customDirection(Number(x), Number(y), Number(z));
+  });
+  protected readonly directionNote = computed(() => {
+    const d = this.direction();
+    if (d === null) return 'Give the direction: at least one of x, y and z must not be 0.';
+    if (Math.abs(d.typedLength - 1) <= 1e-9) return null;
+    return `Length ${d.typedLength.toLocaleString('en-US', { maximumFractionDigits: 3 })} scaled to 1: saved as ${describeNormal(d.unit)}.`;
+  });
+  private readonly areaText = toSignal(this.form.controls.area.valueChanges, { initialValue: this.form.controls.area.value });
+  /** The area as the server will read it ("1.2 m²", "3 sq m", "5000 cm²"), or what is wrong with it. */
+  protected readonly areaPreview = computed(() => {
+    const text = this.areaText().trim();
+    if (text === '') return null;
+    const reading = readQuantityText(text, 'm^2');
+    if (!reading.ok) return { ok: false, text: reading.message };
+    return { ok: true, text: reading.bare ? null : `= ${reading.value.toLocaleString('en-US', { maximumSignificantDigits: 6 })} m²` };
+  });
   protected readonly chosenMaterial = computed(() => this.data.materials.find((m) => m.id === this.materialId()) ?? null);
 
   static open(dialog: MatDialog, data: SurfaceDialogData): Observable<Surface | undefined> {
@@ -71,7 +97,10 @@ export class SurfaceDialog {
       return;
     }
     const v = this.form.getRawValue();
-    const normal: SurfaceNormal = v.normal === 'custom' ? { x: v.x, y: v.y, z: v.z } : (v.normal as SurfaceNormal);
+    const direction = this.direction();
+    if (v.normal === 'custom' && direction === null) return;
+    // A custom direction goes as a unit vector; the note beside the fields says it was scaled.
+    const normal: SurfaceNormal = v.normal === 'custom' && direction ? { ...direction.unit } : (v.normal as SurfaceNormal);
     const areaText = v.area.trim();
     // A bare number is m²; text with a unit ("5000 cm^2") goes as typed, the server converts it.
     const areaM2 = Number.isFinite(Number(areaText)) ? Number(areaText) : areaText;

@@ -14,11 +14,12 @@ import { ConfirmDialog } from '../shell/confirm-dialog';
 import { MaterialDialog } from './material-dialog';
 import { SurfaceDialog } from './surface-dialog';
 import { describeNormal } from './surface-normals';
+import { SourceWordsPipe } from '../shell/source-words-pipe';
 
 /** The spacecraft's surfaces of one mission, with their materials' optical properties. */
 @Component({
   selector: 'ecl-surfaces-panel',
-  imports: [DecimalPipe, MatButton, MatIcon],
+  imports: [SourceWordsPipe, DecimalPipe, MatButton, MatIcon],
   templateUrl: './surfaces-panel.html',
   styleUrl: './surfaces-panel.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,10 +1,10 @@
 // The thermal models of one mission of the workspace, chosen with ?mission=; thermal engineers and
 // owners start a new model here (one node to begin with) and go on in the editor.
-import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, Injector, afterNextRender, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
+import { MatInput } from '@angular/material/input';
 import { MatIcon } from '@angular/material/icon';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
@@ -17,10 +17,11 @@ import { DesignCaution } from '../shell/design-caution';
 import { CurrentWorkspace } from '../workspace/current-workspace';
 import { firstMissionWithModels } from './first-mission-with-models';
 import { ThermalModelApi } from './thermal-api';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 @Component({
   selector: 'ecl-thermal-models-page',
-  imports: [DatePipe, RouterLink, MatTableModule, MatFormField, MatLabel, MatSelect, MatOption, MatButton, MatIcon, DesignCaution],
+  imports: [UtcTimePipe, RouterLink, MatTableModule, MatFormField, MatLabel, MatInput, MatSelect, MatOption, MatButton, MatIcon, DesignCaution],
   template: `
     <section class="ecl-page">
       <h1>Thermal models</h1>
@@ -41,7 +42,19 @@ import { ThermalModelApi } from './thermal-api';
             </mat-select>
           </mat-form-field>
           @if (canEdit() && chosen()) {
-            <button mat-flat-button type="button" (click)="createModel()" [disabled]="creating()" data-testid="new-model"><mat-icon>add</mat-icon>New model</button>
+            @if (naming()) {
+              <!-- Nothing is saved until the model has a name and the engineer asks for it. -->
+              <form class="new-model" novalidate (submit)="$event.preventDefault(); createModel(newName.value)">
+                <mat-form-field appearance="outline">
+                  <mat-label>New model's name</mat-label>
+                  <input matInput #newName required maxlength="120" autocomplete="off" data-testid="new-model-name" />
+                </mat-form-field>
+                <button mat-flat-button type="submit" [disabled]="creating()" data-testid="new-model-create">Create</button>
+                <button mat-button type="button" (click)="naming.set(false)">Cancel</button>
+              </form>
+            } @else {
+              <button mat-flat-button type="button" (click)="startNaming()" data-testid="new-model"><mat-icon>add</mat-icon>New model</button>
+            }
           }
         </div>
         @if (failure(); as f) {
@@ -74,7 +87,7 @@ import { ThermalModelApi } from './thermal-api';
                 </ng-container>
                 <ng-container matColumnDef="updated">
                   <th mat-header-cell *matHeaderCellDef>Changed</th>
-                  <td mat-cell *matCellDef="let m">{{ m.updatedAt | date: 'yyyy-MM-dd HH:mm' : 'UTC' }} UTC</td>
+                  <td mat-cell *matCellDef="let m">{{ m.updatedAt | utc: 'minute' }}</td>
                 </ng-container>
                 <tr mat-header-row *matHeaderRowDef="columns"></tr>
                 <tr mat-row *matRowDef="let row; columns: columns"></tr>
@@ -93,6 +106,7 @@ import { ThermalModelApi } from './thermal-api';
   styles: `
     .row { display: flex; flex-wrap: wrap; gap: 12px; align-items: center; }
     .mission-pick { min-width: 320px; }
+    .new-model { display: flex; flex-wrap: wrap; gap: 8px; align-items: center; }
     .num { text-align: right; }
     table { width: 100%; }
     ecl-design-caution { display: block; margin-top: 24px; }
@@ -137,6 +151,7 @@ export class ThermalModelsPage {
     if (!list.some((m) => m.id === picked) && found === 'asking') return null;
     return list.find((m) => m.id === picked)?.id ?? list.find((m) => m.id === found)?.id ?? list[0]?.id ?? null;
   });
+  private readonly injector = inject(Injector);
   private readonly reload = signal(0);
   protected readonly models = toSignal(
     combineLatest([toObservable(this.chosen), toObservable(this.reload)]).pipe(
@@ -150,13 +165,27 @@ export class ThermalModelsPage {
     void this.router.navigate([], { queryParams: { mission: missionId }, replaceUrl: true });
   }
 
-  protected createModel(): void {
+  /** "New model" asks for the name first; the record is written only by createModel. */
+  protected readonly naming = signal(false);
+
+  protected startNaming(): void {
+    this.naming.set(true);
+    this.failure.set(null);
+    afterNextRender(() => document.querySelector<HTMLInputElement>('[data-testid="new-model-name"]')?.focus(), { injector: this.injector });
+  }
+
+  protected createModel(typedName: string): void {
     const missionId = this.chosen();
+    const name = typedName.trim();
     if (!missionId) return;
+    if (name === '') {
+      this.failure.set('Give the new model a name.');
+      return;
+    }
     this.creating.set(true);
     this.failure.set(null);
     const model = { nodes: [{ name: 'node 1', capacitanceJK: 1000, initialC: 20 }] };
-    this.api.create(missionId, { name: `New model ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`, model }).subscribe({
+    this.api.create(missionId, { name, model }).subscribe({
       next: (created) => void this.router.navigate(['/w', this.workspaceId(), 'thermal', created.id]),
       error: (e: unknown) => {
         this.creating.set(false);

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -10,6 +9,7 @@ import { MatTableModule } from '@angular/material/table';
 import { combineLatest, switchMap } from 'rxjs';
 import { loaded } from '../api/loaded';
 import { type AuditFilter, WorkspaceApi } from './workspace-api';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** A calendar day typed in the filter, as the instant it starts (since) or ends (until) in UTC. */
 function dayBound(day: string, end: boolean): string | undefined {
@@ -20,7 +20,7 @@ function dayBound(day: string, end: boolean): string | undefined {
 /** Who changed and released what in the workspace (owners only). */
 @Component({
   selector: 'ecl-audit-page',
-  imports: [ReactiveFormsModule, DatePipe, MatTableModule, MatPaginator, MatFormField, MatLabel, MatHint, MatInput, MatButton],
+  imports: [ReactiveFormsModule, UtcTimePipe, MatTableModule, MatPaginator, MatFormField, MatLabel, MatHint, MatInput, MatButton],
   templateUrl: './audit-page.html',
   styleUrl: './audit-page.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

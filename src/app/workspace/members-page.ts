@@ -1,7 +1,6 @@
-import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
@@ -17,13 +16,14 @@ import { loaded } from '../api/loaded';
 import { AuthSession } from '../auth/auth-session';
 import { ConfirmDialog } from '../shell/confirm-dialog';
 import { WorkspaceApi } from './workspace-api';
+import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** The owner's page for who is in the workspace, with which role, and who is invited. */
 @Component({
   selector: 'ecl-members-page',
   imports: [
     ReactiveFormsModule,
-    DatePipe,
+    UtcTimePipe,
     MatTableModule,
     MatFormField,
     MatLabel,
@@ -99,6 +99,9 @@ export class MembersPage {
       });
   }
 
+  /** The form's directive: resetting through it also forgets that it was submitted, so the emptied field shows no error. */
+  private readonly inviteFormDirective = viewChild(FormGroupDirective);
+
   protected invite(): void {
     if (this.inviteForm.invalid) {
       this.inviteForm.markAllAsTouched();
@@ -110,7 +113,7 @@ export class MembersPage {
     this.api.invite(this.workspaceId(), { email: email.trim().toLowerCase(), role }).subscribe({
       next: (made) => {
         this.snackBar.open(`Invitation sent to ${made.email}.`, undefined, { duration: 3000 });
-        this.inviteForm.reset();
+        this.inviteFormDirective()?.resetForm();
         this.busy.set(false);
         this.refresh.next();
       },

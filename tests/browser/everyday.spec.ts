@@ -1,0 +1,198 @@
+// The everyday interface (issue 17): every role lands on its missions, signed out or not; units are
+// read as engineers type them (days, superscripts, "sq m"); times read as ISO 8601 on a 24-hour UTC
+// clock; and no page shows our internals (identifiers, field paths, file names, NaN).
+import { expect, test, type Page } from '@playwright/test';
+import { dialogReady, demoPassword, screenshot, signIn } from './session';
+
+const roles = ['owner', 'analyst', 'thermal', 'viewer'] as const;
+
+async function signInHere(page: Page, email: string): Promise<void> {
+  await page.getByTestId('sign-in-email').fill(email);
+  await page.getByTestId('sign-in-password').fill(demoPassword);
+  await page.getByTestId('sign-in-submit').click();
+  await expect(page.getByTestId('user-menu')).toBeVisible();
+}
+
+for (const role of roles) {
+  test(`landing: the ${role}, signed out, opens "/" and after signing in lands on the missions, not API tokens`, async ({ page }) => {
+    await page.goto('/');
+    await expect(page).toHaveURL(/\/sign-in/);
+    await signInHere(page, `${role}@kestrel.test`);
+    await expect(page).toHaveURL(/\/w\/[^/]+\/missions$/);
+    await expect(page.getByRole('heading', { name: 'Missions' })).toBeVisible();
+    // Signed in, "/" goes there too.
+    await page.goto('/');
+    await expect(page).toHaveURL(/\/w\/[^/]+\/missions$/);
+  });
+}
+
+test('landing: the return URL still brings a signed-out user back to the page they asked for', async ({ page }) => {
+  await signIn(page, 'analyst@kestrel.test');
+  const workspaceUrl = page.url().replace(/\/missions$/, '');
+  await page.getByTestId('user-menu').click();
+  await page.getByRole('menuitem', { name: /sign out/i }).click();
+  await expect(page).toHaveURL(/\/sign-in/);
+  await page.goto(`${workspaceUrl}/cases`);
+  await expect(page).toHaveURL(/\/sign-in\?returnUrl=/);
+  await signInHere(page, 'analyst@kestrel.test');
+  await expect(page).toHaveURL(/\/w\/[^/]+\/cases$/);
+});
+
+test('units as typed: a 9-day period, "1.2 m²" and "3 sq m" areas, a custom normal scaled to 1; times on a 24-hour UTC clock', async ({ page }) => {
+  test.setTimeout(120_000);
+  await page.setViewportSize({ width: 1440, height: 900 });
+  await signIn(page, 'analyst@kestrel.test');
+  await page.getByTestId('mission-new').click();
+  await dialogReady(page);
+  await page.getByTestId('mission-name').fill(`Everyday units ${Date.now()}`);
+  // The date fields read ISO 8601 text, not the browser's locale form.
+  await expect(page.getByTestId('mission-start')).toHaveAttribute('placeholder', 'YYYY-MM-DD');
+  await page.getByTestId('mission-start').fill('2027-03-20');
+  await page.getByTestId('mission-end').fill('2027-03-24');
+  await page.getByTestId('mission-save').click();
+  await expect(page.getByTestId('mission-title')).toBeVisible();
+
+  await page.getByTestId('orbit-add').click();
+  // The button goes away: the focus moves to the new orbit's first field, not the page body.
+  await expect(page.getByTestId('orbit-name')).toBeFocused();
+  await page.getByTestId('orbit-name').fill('Nine-day orbit');
+  await page.getByTestId('definition-period').click();
+  // 9 d = 9 × 86,400 s (SI brochure, table 8); the form's field is in minutes: 12,960 min.
+  await page.getByTestId('orbit-period').fill('9 days');
+  await expect(page.getByTestId('converted-period')).toHaveText('= 12960 min');
+  await page.getByTestId('orbit-eccentricity').fill('0');
+  await page.getByTestId('orbit-inclination').fill('28.5 deg');
+  // The period reads best in days: 12,960 min is 9.00 d.
+  await expect(page.getByTestId('figure-period')).toHaveText('9.00 d');
+  await page.getByTestId('orbit-period').fill('14 d');
+  await expect(page.getByTestId('converted-period')).toHaveText('= 20160 min');
+  await expect(page.getByTestId('error-period')).toHaveCount(0);
+  await screenshot(page, 'everyday-period-in-days');
+  await page.getByTestId('orbit-save').click();
+  await expect(page.getByTestId('orbit-row-period')).toHaveText('14.00 d');
+  await expect(page.getByTestId('orbit-row').first()).not.toContainText(/AM|PM/);
+
+  await page.getByRole('tab', { name: 'Surfaces' }).click();
+  await page.getByTestId('surface-add').click();
+  await dialogReady(page);
+  await page.getByTestId('surface-name').fill('Side panel');
+  await page.getByTestId('surface-area').fill('1.2 m²');
+  await expect(page.getByTestId('surface-area-preview')).toHaveText('= 1.2 m²');
+  await page.getByTestId('surface-area').fill('3 sq m');
+  await expect(page.getByTestId('surface-area-preview')).toHaveText('= 3 m²');
+  await page.getByTestId('surface-area').fill('1.2 m²²');
+  await expect(page.getByTestId('surface-area-preview')).toContainText('is not a unit this field reads');
+  await expect(page.getByTestId('surface-area-preview')).not.toContainText(/Unexpected|index/);
+  await page.getByTestId('surface-area').fill('1.2 m²');
+  await page.getByTestId('surface-normal').click();
+  await page.getByRole('option', { name: /custom/i }).click();
+  const axes = page.locator('mat-dialog-container .vector input');
+  await axes.nth(0).fill('1');
+  await axes.nth(1).fill('0');
+  await axes.nth(2).fill('1');
+  // (1, 0, 1) has length √2; scaled to 1 it is (0.707, 0, 0.707).
+  await expect(page.getByTestId('surface-normal-note')).toHaveText('Length 1.414 scaled to 1: saved as (0.707, 0, 0.707).');
+  await screenshot(page, 'everyday-surface-units');
+  await page.getByTestId('surface-material').click();
+  await page.getByRole('option').first().click();
+  await page.getByTestId('surface-save').click();
+  await expect(page.getByTestId('surface-row').filter({ hasText: 'Side panel' })).toContainText('1.2');
+
+  // The sweep plots over dates: every tick is an ISO date or a 24-hour clock, never AM/PM.
+  await page.getByRole('tab', { name: 'Mission sweep' }).click();
+  await page.getByTestId('sweep-run').click();
+  await expect(page.getByTestId('sweep-done')).toBeVisible({ timeout: 60_000 });
+  const ticks = await page.getByTestId('sweep-beta-plot').locator('.ecl-axis-tick text').allTextContents();
+  expect(ticks.length).toBeGreaterThan(2);
+  for (const tick of ticks) expect(tick).toMatch(/^(\d{4}(-\d{2}(-\d{2})?)?|\d{2}:\d{2}(:\d{2})?|[-−]?[\d.,]+)$/);
+  expect(ticks.join(' ')).not.toMatch(/AM|PM|Mar|Sun|Mon/);
+  await screenshot(page, 'everyday-sweep-24h');
+});
+
+test('forms: after a token is made the emptied name field shows no error', async ({ page }) => {
+  await signIn(page, 'analyst@kestrel.test');
+  await page.goto('/tokens');
+  await page.getByTestId('token-name').fill(`everyday ${Date.now()}`);
+  await page.getByTestId('token-create').click();
+  await expect(page.getByTestId('token-secret')).toBeVisible();
+  await expect(page.getByTestId('token-name')).toHaveValue('');
+  await expect(page.locator('mat-error')).toHaveCount(0);
+  await screenshot(page, 'everyday-token-made');
+});
+
+// Our internals, as a user must never read them: camelCase identifiers, dotted field paths,
+// file names and NaN. E-mail addresses and hosts ("owner@kestrel.test") are not identifiers.
+const INTERNALS = [
+  { what: 'an identifier', pattern: /(?<![\w@.\-/])[a-z]+[A-Z][a-zA-Z0-9]*\b/ },
+  { what: 'a field path', pattern: /(?<![\w@.\-/])[a-z]+\.[a-z]+[A-Z]\w*/ },
+  { what: 'a file name', pattern: /\b[\w-]+\.(md|ts|mjs|js|json)\b/ },
+  { what: 'NaN', pattern: /\bNaN\b/ },
+  { what: 'our notes', pattern: /from memory|DOMAIN/ },
+];
+
+async function internalsOn(page: Page): Promise<string[]> {
+  const text = await page.locator('body').innerText();
+  return INTERNALS.flatMap(({ what, pattern }) => {
+    const match = pattern.exec(text);
+    return match ? [`${what}: "${match[0]}" in "…${text.slice(Math.max(0, match.index - 40), match.index + 40).replace(/\s+/g, ' ')}…"`] : [];
+  });
+}
+
+for (const role of roles) {
+  test(`the ${role} reads no identifiers, file names or NaN on any page`, async ({ page }) => {
+    test.setTimeout(180_000);
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await signIn(page, `${role}@kestrel.test`);
+    const found: string[] = [];
+    const visit = async (label: string): Promise<void> => {
+      await page.waitForLoadState('networkidle');
+      for (const problem of await internalsOn(page)) found.push(`${label} (${page.url()}): ${problem}`);
+    };
+    const links = await page.locator('nav a[href]').evaluateAll((as) => as.map((a) => a.getAttribute('href') ?? ''));
+    for (const href of [...new Set(links)].filter((h) => h.startsWith('/'))) {
+      await page.goto(href);
+      await visit(href);
+      // One level deeper: the first mission, load case and thermal model of each list, every tab.
+      const first = page.locator('main a[href*="/missions/"], main a[href*="/cases/"], main a[href*="/thermal/"]').first();
+      if ((await first.count()) > 0) {
+        await first.click();
+        await visit(`first item under ${href}`);
+        const tabs = page.getByRole('tab');
+        for (let i = 0; i < (await tabs.count()); i++) {
+          await tabs.nth(i).click();
+          await visit(`tab ${i + 1} under ${href}`);
+        }
+      }
+    }
+    expect(found, found.join('\n')).toEqual([]);
+  });
+}
+
+test('screenshots of the changed screens at 390 px and in the dark theme', async ({ page }) => {
+  test.setTimeout(180_000);
+  await page.emulateMedia({ colorScheme: 'dark' });
+  await page.setViewportSize({ width: 390, height: 844 });
+  await signIn(page, 'analyst@kestrel.test');
+  await screenshot(page, 'everyday-390-dark-landing');
+  await page.getByTestId('mission-row').first().locator('a').first().click();
+  await expect(page.getByTestId('mission-title')).toBeVisible();
+  await expect(page.getByTestId('orbit-row-period').first()).toHaveText(/ (s|min|h|d)$/);
+  await page.getByTestId('orbit-add').click();
+  await expect(page.getByTestId('orbit-name')).toBeFocused();
+  await page.getByTestId('definition-period').click();
+  await page.getByTestId('orbit-period').fill('14 d');
+  await page.getByTestId('orbit-eccentricity').fill('0');
+  await page.getByTestId('orbit-inclination').fill('12 q');
+  await expect(page.getByTestId('error-inclination')).toContainText('is not a unit this field reads');
+  // Nothing in the editor is wider than the phone (it would slide the page sideways).
+  const editorBox = await page.getByTestId('orbit-editor').boundingBox();
+  expect(editorBox && editorBox.x >= 0 && editorBox.x + editorBox.width <= 390).toBe(true);
+  await screenshot(page, 'everyday-390-dark-orbit-editor');
+  await page.setViewportSize({ width: 1440, height: 900 });
+  await page.getByRole('tab', { name: 'Surfaces' }).click();
+  await page.getByTestId('surface-add').click();
+  await dialogReady(page);
+  await page.getByTestId('surface-area').fill('2 furlongs');
+  await expect(page.getByTestId('surface-area-preview')).toContainText('is not a unit this field reads');
+  await page.screenshot({ path: 'tmp/screenshots/everyday-1440-dark-surface-area-error.png' });
+});
