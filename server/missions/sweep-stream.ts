@@ -60,6 +60,7 @@ export interface SweepStream {
   format: SweepFormat;
   fileName: string;
   computeDays: (first: number, count: number) => SweepDay[];
+  assumptions: string[];
 }
 
 const nextTurn = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
@@ -77,7 +78,7 @@ function drained(res: Response): Promise<void> {
   });
 }
 
-export async function streamSweep({ res, logger, plan, surfaces, format, fileName, computeDays }: SweepStream): Promise<void> {
+export async function streamSweep({ res, logger, plan, surfaces, format, fileName, computeDays, assumptions }: SweepStream): Promise<void> {
   // res 'close' fires when the connection ends, finished or not; req 'close' can fire as soon as
   // the (empty) request body has been read, so it would not tell a departed client apart.
   let gone = false;
@@ -92,7 +93,7 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
     res.write(csvHeader(surfaces));
   } else {
     res.type('application/x-ndjson; charset=utf-8');
-    res.write(ndjson({ type: 'start', days: plan.days, from: plan.from, to: plan.to, stepDays: plan.stepDays }));
+    res.write(ndjson({ type: 'start', days: plan.days, from: plan.from, to: plan.to, stepDays: plan.stepDays, assumptions }));
   }
   res.flush?.();
 
