@@ -57,7 +57,7 @@ const caseD: MissionSweepRequest = {
   ...caseB, bodyId: 'moon', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 90, raanDeg: 40 }, albedo: 0.11, olrWm2: 300,
 };
 // (e): (d) with the Moon's own models (no OLR given): its surface temperature field and the Lambertian
-// albedo by cap quadrature each day (mission-sweep.ts SWEEP_CAP_*), as the compute route chooses.
+// albedo by cap quadrature each day (mission-sweep.ts), as the compute route chooses.
 const caseE: MissionSweepRequest = { ...caseD, olrWm2: undefined };
 /**
  * (b) before the planet's shadow and the moon's own position were added (commit dd2c64e), measured

@@ -18,6 +18,13 @@ export type AlbedoModel = (typeof albedoModels)[number];
 export const irModels = ['surface-temperature', 'uniform'] as const;
 export type IrModel = (typeof irModels)[number];
 
+/**
+ * The coarser node grid of the paths that integrate the cap many times over (the mission sweep's
+ * days, an ephemeris's rows): within about 1 % of the default 20 x 48 (mission-sweep.spec.ts,
+ * trajectory-environment.spec.ts).
+ */
+export const COARSE_CAP_NODES = { radial: 10, azimuth: 24 } as const;
+
 /** Beyond this apoapsis altitude, in body radii, the engineering albedo approximation is not the default. */
 export const LAMBERTIAN_ALTITUDE_RADII = 1;
 

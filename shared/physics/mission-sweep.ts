@@ -13,7 +13,7 @@
 // the orbit's size or inclination; the Sun's motion within one orbit. Sources: Vallado ch. 9 (J2
 // secular rates); the models of environment.ts; the Sun from VSOP87 through sun-track.ts.
 import { getBody, type BodyId } from './bodies';
-import { capAssumptions, capColumns, capExitances, capGridNodes, chooseCapModels, needsCap, type CapModelChoice, type CapModelRequest } from './cap-loads';
+import { capAssumptions, capColumns, capExitances, capGridNodes, COARSE_CAP_NODES, chooseCapModels, needsCap, type CapModelChoice, type CapModelRequest } from './cap-loads';
 import type { EclipseSummary } from './eclipse';
 import type { Surface, SurfaceLoad } from './heat-loads';
 import { defineOrbit, type Orbit, type OrbitInput } from './orbit-definition';
@@ -95,8 +95,7 @@ export const DEFAULT_SWEEP_STEPS = 360;
 const SWEEP_SCAN_STEPS = 360;
 /** The cap quadrature of a sweep: samples per orbit (evenly in eccentric anomaly) and nodes over the disk. */
 export const SWEEP_CAP_STEPS = 48;
-export const SWEEP_CAP_RADIAL = 10;
-export const SWEEP_CAP_AZIMUTH = 24;
+const { radial: SWEEP_CAP_RADIAL, azimuth: SWEEP_CAP_AZIMUTH } = COARSE_CAP_NODES;
 const DAY_MS = 86400e3;
 
 function toMs(value: string | Date, path: string): number {
@@ -215,12 +214,12 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
   const { times, weightS } = eccentricAnomalyTimes(orbit, SWEEP_CAP_STEPS);
   const grid = orbitGridAt(orbit, bodyRadiusKm, times);
   const prepared = prepareSurfaces(surfaces, grid, bodyRadiusKm);
-  const nodesAt = capGridNodes(prepared, grid, bodyRadiusKm, { keepAll: true, radial: SWEEP_CAP_RADIAL, azimuth: SWEEP_CAP_AZIMUTH });
+  const nodesAt = capGridNodes(prepared, grid, bodyRadiusKm, { keepAll: true, ...COARSE_CAP_NODES });
   const circular = orbit.eccentricity === 0;
   const fixed = circular ? nodesAt(0).plates : prepared.map(() => null);
   // the sampled grid only for the plates the exact mean does not serve
   const sampled = prepared.filter((_, j) => fixed[j] === null);
-  const sampledNodesAt = capGridNodes(sampled, grid, bodyRadiusKm, { keepAll: true, radial: SWEEP_CAP_RADIAL, azimuth: SWEEP_CAP_AZIMUTH });
+  const sampledNodesAt = capGridNodes(sampled, grid, bodyRadiusKm, { keepAll: true, ...COARSE_CAP_NODES });
   const shade = gridShade(grid.steps);
   const out = new Float64Array(2);
   const average = (column: Float64Array): number => {
