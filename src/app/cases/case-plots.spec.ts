@@ -47,6 +47,9 @@ describe('case plots', () => {
       { from: 3, to: 4, kind: 'eclipse', label: 'Eclipse (umbra)' },
       { from: 4, to: 5, kind: 'penumbra', label: 'Penumbra' },
     ]);
+    // the moon's own umbra where it closes what the planet's penumbra leaves (the lunar orbiter's cold case in Earth's penumbra)
+    const penumbral = { ...results, sunlit: [0, 0, 0.3, 0.2, 0, 0], parentSunlit: [0.85, 0.8, 0.7, 0.2, 0, 0] };
+    expect(eclipseBands(penumbral, 'Earth').map((band) => [band.kind, band.from, band.to])).toEqual([['eclipse', 0, 2], ['parent-shadow', 2, 5]]);
     // a case stored before the planet's shadow was kept apart: one sunlit series, bands as before
     expect(eclipseBands(results, 'Jupiter').map((band) => band.kind)).toEqual(['penumbra', 'eclipse', 'penumbra']);
   });

@@ -1,7 +1,7 @@
 // Plot inputs from a case's results: the incident fluxes and absorbed loads of one surface (or
 // of the spacecraft as a whole) around the orbit, with the eclipse shaded, in minutes.
 import type { CaseResultsContent } from '../../../shared/api/case-content';
-import type { PlotBand, PlotSeries } from '../plots/plot-series';
+import { shadowKind, type PlotBand, type PlotSeries } from '../plots/plot-series';
 
 /** The picker's value for the sum over every surface. */
 export const WHOLE_SPACECRAFT = '';
@@ -33,8 +33,7 @@ export function eclipseBands(results: Results, parentName: string | null = null)
   const x = minutes(results);
   const bands: PlotBand[] = [];
   const parent = results.parentSunlit;
-  const kindAt = (i: number): PlotBand['kind'] | null =>
-    (parent?.[i] ?? 1) < 1 ? 'parent-shadow' : results.sunlit[i] <= 0 ? 'eclipse' : results.sunlit[i] < 1 ? 'penumbra' : null;
+  const kindAt = (i: number): PlotBand['kind'] | null => shadowKind(results.sunlit[i], parent?.[i]);
   const labels: Record<string, string> = {
     eclipse: 'Eclipse (umbra)', penumbra: 'Penumbra', 'parent-shadow': parentName ? `In ${parentName}'s shadow` : "In the planet's shadow",
   };
