@@ -56,6 +56,9 @@ const caseC: MissionSweepRequest = {
 const caseD: MissionSweepRequest = {
   ...caseB, bodyId: 'moon', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 90, raanDeg: 40 }, albedo: 0.11, olrWm2: 300,
 };
+// (e): (d) with the Moon's own models (no OLR given): its surface temperature field and the Lambertian
+// albedo by cap quadrature each day (mission-sweep.ts), as the compute route chooses.
+const caseE: MissionSweepRequest = { ...caseD, olrWm2: undefined };
 /**
  * (b) before the planet's shadow and the moon's own position were added (commit dd2c64e), measured
  * 2026-12-04 on the shared 2-core development machine, load average 4.1: the reference the moon
@@ -143,6 +146,7 @@ export default async function environmentBench(): Promise<BenchRow[]> {
 
   const timeC = timeRuns(() => sweepMission(caseC), 1, repeats);
   const timeD = timeRuns(() => sweepMission(caseD), 1, repeats);
+  const timeE = timeRuns(() => sweepMission(caseE), 1, repeats);
   const row = (name: string, time: { median: number; best: number }): BenchRow => ({ case: name, 'eclipta ms': time.median, 'eclipta best ms': time.best });
   const moonRow = (name: string, time: { median: number; best: number }): BenchRow => ({
     ...row(name, time),
@@ -151,13 +155,14 @@ export default async function environmentBench(): Promise<BenchRow[]> {
   });
   const rowC = moonRow('(c) 10 years about Europa, as (b), with Jupiter\'s shadow', timeC);
   const rowD = moonRow('(d) 10 years about the Moon, as (b), with Earth\'s shadow (lunar eclipses)', timeD);
+  const rowE = moonRow('(e) as (d) with the Moon\'s surface temperature field for IR (cap quadrature each day)', timeE);
   const rowA = row('(a) one orbit, 3600 steps x 20 surfaces: loads in arrays, averages, peaks, eclipse', timeA);
   const rowAnswer = row("(a') the same, as the API answer: (a) plus building 72,000 per-step objects (numpy builds none)", timeAnswer);
   const rowB = row('(b) 10 years, 3653 orbits x 360 steps x 6 surfaces', timeB);
   const python = findNumpy();
   if (!python) {
     rowA['numpy ms'] = rowAnswer['numpy ms'] = rowB['numpy ms'] = 'skipped: no python3 with numpy on PATH or at /usr/bin/python3';
-    return [rowA, rowAnswer, rowB, rowC, rowD];
+    return [rowA, rowAnswer, rowB, rowC, rowD, rowE];
   }
   const answer = runNumpy(python, repeats, [
     orbitCaseJob(repeatsA),
@@ -195,5 +200,5 @@ export default async function environmentBench(): Promise<BenchRow[]> {
   rowB['under 1 s'] = timeB.median < 1000 ? 'yes' : 'NO';
   const note = `numpy ${answer.numpy} (${python}), node ${process.version}, median and best of ${repeats} runs (a and a': ${repeatsA} on each side), ` +
     `ms of wall clock, load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores`;
-  return [rowA, rowAnswer, rowB, rowC, rowD, { case: note }];
+  return [rowA, rowAnswer, rowB, rowC, rowD, rowE, { case: note }];
 }

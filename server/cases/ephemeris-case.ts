@@ -16,12 +16,15 @@ import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import type { EphemerisRow, LoadCaseRow, MissionRow, UserRow } from '../db/schema';
 import { unprocessable } from '../errors';
+import { capAssumptions } from '../../shared/physics/cap-loads';
+import type { TrajectoryEnvironment } from '../../shared/physics/trajectory-environment';
 import { ephemerisWindow, firstStates, windowEnvironment } from '../ephemerides/ephemeris-environment';
 import { attitudeText, insertDraft, withRationale, limitCaseWork, missionInputs, pairWords, surfaceSnapshot } from './case-derivation';
 
-export const ephemerisCaseAssumptions = [
+/** The case's assumptions, with the albedo and IR models the window was computed with (cap-loads.ts says them). */
+export const ephemerisCaseAssumptions = (env: TrajectoryEnvironment): string[] => [
   'loads at every row of the ephemeris inside the window: the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations), conical shadow of the central body, no atmosphere',
-  'albedo load = S * albedo * F * cos(solar zenith at the sub-spacecraft point) on the sunlit side: a common engineering approximation; planetary IR = OLR * F (Howell catalogue)',
+  ...capAssumptions(env.models, env.meanSolarFluxWm2),
   'surfaces are flat plates fixed in the local orbital frame from r and v (x ram, y orbit normal, z zenith) or pointed at the Sun; no shadowing between them',
   '"orbit average" values are time-weighted (trapezoidal) over the whole window, every row; peaks over every row; the stored series keeps `steps` rows evenly spaced in time (the first row at or after each step), whatever the file\'s own spacing',
   'tS counts from the first row of the window and periodS is the window\'s length: a thermal model run on this case repeats the window as if it were periodic',
@@ -147,7 +150,7 @@ export function createEphemerisCase(
     rationale: [],
     surfaceDrivers: [],
     scan: null,
-    assumptions: ephemerisCaseAssumptions,
+    assumptions: ephemerisCaseAssumptions(env),
     ephemeris: { id: ephemeris.id, name: ephemeris.name, fileName: ephemeris.fileName, sha256: ephemeris.sha256, from, to, rows: window.rows },
   };
   return ctx.db.transaction((tx) => {

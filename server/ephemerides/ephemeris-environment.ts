@@ -5,6 +5,8 @@
 import { eq } from 'drizzle-orm';
 import type { TrajectoryEnvironmentResponse } from '../../shared/api/ephemerides';
 import { getBody } from '../../shared/physics/bodies';
+import { capAssumptions, COARSE_CAP_NODES, needsCap } from '../../shared/physics/cap-loads';
+import { CAUTION } from '../../shared/physics/environment';
 import { namedNormals, type Surface, type SurfaceNormal } from '../../shared/physics/heat-loads';
 import { trajectoryEnvironment, type TrajectoryEnvironment, type TrajectorySample } from '../../shared/physics/trajectory-environment';
 import type { AppContext } from '../app-context';
@@ -24,12 +26,14 @@ export interface EphemerisEnvironmentOptions {
   to?: string | undefined;
 }
 
-const assumptions = [
+/** The answer's assumptions: the albedo and IR models it used (cap-loads.ts says them) among the fixed ones. */
+const assumptions = (result: TrajectoryEnvironment): string[] => [
   'the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations); conical shadow of the central body, no atmosphere',
-  'albedo load = S * albedo * F * cos(solar zenith at the sub-spacecraft point): a common engineering approximation; planetary IR = OLR * F (Howell catalogue)',
+  ...capAssumptions(result.models, result.meanSolarFluxWm2),
+  ...(needsCap(result.models) ? [`the cap integrals at each row use ${COARSE_CAP_NODES.radial} x ${COARSE_CAP_NODES.azimuth} nodes over the disk (the compute route: 20 x 48), within about 1 % of it`] : []),
   'local orbital frame from r and v (v by finite differences when the file has no velocities); surfaces fixed in it',
   'averages are time-weighted (trapezoidal) over the window (the whole ephemeris unless a window is given), not per orbit',
-  'preliminary-design estimate from simplified models; verify with detailed analysis, a correlated model and thermal test',
+  CAUTION,
 ];
 
 // Stored as written by the surfaces route (validated there); a name outside the list is a bug, not input.
@@ -173,6 +177,7 @@ export function windowEnvironment(
     surfaces: surfaceList,
     albedo: options.albedo,
     olrWm2: options.olrWm2,
+    maxAltitudeKm: row.maxAltitudeKm,
     keep,
   });
 }
@@ -198,6 +203,6 @@ export function ephemerisEnvironment(ctx: AppContext, mission: MissionRow, row: 
     points: result.points.map((p) => ({ epoch: epochText(p.tMs), altitudeKm: p.altitudeKm, sunlit: p.sunlit, surfaces: p.surfaces })),
     averages: result.averages,
     peaks: result.peaks,
-    assumptions,
+    assumptions: assumptions(result),
   };
 }

@@ -5,6 +5,7 @@
 // Sources: Vallado ch. 9 (J2 secular rates); Gilmore Vol. I ch. 2 (beta angle), via shared/physics.
 import type { z } from 'zod';
 import type { SweepDay, sweepQuery } from '../../shared/api/missions';
+import { CAUTION } from '../../shared/physics/environment';
 import { DEFAULT_SWEEP_STEPS, sweepMission } from '../../shared/physics/mission-sweep';
 import type { MissionRow, OrbitRow } from '../db/schema';
 import { badRequest } from '../errors';
@@ -49,6 +50,14 @@ export function planSweep(mission: MissionRow, query: SweepQuery): SweepPlan {
     throw badRequest(`to: ${message}.`, [{ path: 'to', message }]);
   }
   return { from, to, stepDays: query.stepDays, days: Math.floor(spanDays / query.stepDays) + 1 };
+}
+
+/** The albedo and IR models of the sweep in words (one day computed to learn them) and the caution. */
+export function sweepAssumptions(mission: MissionRow, orbit: OrbitRow, plan: SweepPlan): string[] {
+  const { assumptions } = sweepMission({
+    bodyId: mission.bodyId, orbit: savedOrbitInput(orbit), orbitEpoch: orbit.epoch, epochStart: `${plan.from}T12:00:00Z`, days: 0, steps: SWEEP_STEPS,
+  });
+  return [...assumptions, CAUTION];
 }
 
 /** Computes days [first, first + count) of the plan; the caller decides how many to do between yields. */

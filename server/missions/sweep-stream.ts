@@ -65,6 +65,7 @@ export interface SweepStream {
   /** A crewed vehicle's CSV rows carry the crewed sentence of the caution too. */
   crewed: boolean;
   computeDays: (first: number, count: number) => SweepDay[];
+  assumptions: string[];
 }
 
 const nextTurn = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
@@ -82,7 +83,7 @@ function drained(res: Response): Promise<void> {
   });
 }
 
-export async function streamSweep({ res, logger, plan, surfaces, format, fileName, crewed, computeDays }: SweepStream): Promise<void> {
+export async function streamSweep({ res, logger, plan, surfaces, format, fileName, crewed, computeDays, assumptions }: SweepStream): Promise<void> {
   // res 'close' fires when the connection ends, finished or not; req 'close' can fire as soon as
   // the (empty) request body has been read, so it would not tell a departed client apart.
   let gone = false;
@@ -98,7 +99,7 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
     res.write(csvHeader(surfaces));
   } else {
     res.type('application/x-ndjson; charset=utf-8');
-    res.write(ndjson({ type: 'start', days: plan.days, from: plan.from, to: plan.to, stepDays: plan.stepDays }));
+    res.write(ndjson({ type: 'start', days: plan.days, from: plan.from, to: plan.to, stepDays: plan.stepDays, assumptions }));
   }
   res.flush?.();
 

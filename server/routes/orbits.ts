@@ -10,7 +10,7 @@ import { missionFor, orbitOf } from '../missions/mission-access';
 import { toOrbit } from '../missions/mission-responses';
 import { createOrbit, deleteOrbit, listOrbits, updateOrbit } from '../missions/orbit-store';
 import { missionSurfaces, savedEnvironment } from '../missions/saved-environment';
-import { planSweep, sweepChunkComputer } from '../missions/sweep-days';
+import { planSweep, sweepAssumptions, sweepChunkComputer } from '../missions/sweep-days';
 import { collectSweep, csvFileName, streamSweep } from '../missions/sweep-stream';
 import { pathParam } from '../path-param';
 import { loadUnits } from '../missions/quantity-reader';
@@ -62,10 +62,11 @@ export function orbitRoutes(ctx: AppContext): Router {
     const surfaces = missionSurfaces(ctx.db, mission.id, query.properties);
     const form = answerForm(req, query.layout);
     const computeDays = sweepChunkComputer(mission, orbit, plan, surfaces);
+    const assumptions = sweepAssumptions(mission, orbit, plan);
     if (form !== 'json') {
       // Columns or Arrow: the whole sweep at once (API.md "Answer formats"); the stream is the default.
       const series = await collectSweep(plan, computeDays);
-      const answer = { from: plan.from, to: plan.to, stepDays: plan.stepDays, days: plan.days, properties: query.properties, series };
+      const answer = { from: plan.from, to: plan.to, stepDays: plan.stepDays, days: plan.days, properties: query.properties, assumptions, series };
       await sendPerStep(res, form, { answer: () => answer, key: 'series', stepKey: 'date' });
       return;
     }
@@ -78,6 +79,7 @@ export function orbitRoutes(ctx: AppContext): Router {
       fileName: csvFileName(mission.name, orbit.name, 'sweep', plan.from, plan.to, query.properties),
       crewed: mission.crewed,
       computeDays,
+      assumptions,
     });
   });
 

@@ -179,6 +179,7 @@ export const caseResultsContent = z.object({
   tS: z.array(num).describe('s from periapsis (from the ascending node for a circular orbit; from the first row for a case from an ephemeris)'),
   weightS: z.array(num).optional().describe("each sample's share of the period in s, when the series are not evenly spaced in time"),
   sunlit: z.array(num).describe('1 full sun, 0 umbra'),
+  parentSunlit: z.array(num).optional().describe("about a moon, the share of the Sun's disk past its planet alone (1 clear of the planet's shadow); only when the planet's shadow falls on the orbit"),
   surfaces: z.array(caseSurfaceResult),
   total: z.object({ orbitAverageAbsorbedW: num, orbitAverageWithMarginW: num, peakAbsorbedW: num }),
 });

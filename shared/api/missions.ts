@@ -214,7 +214,11 @@ export const sweepDay = z.object({
 });
 
 export const sweepLine = z.discriminatedUnion('type', [
-  z.object({ type: z.literal('start'), days: z.number(), from: z.string(), to: z.string(), stepDays: z.number() }),
+  z.object({
+    type: z.literal('start'), days: z.number(), from: z.string(), to: z.string(), stepDays: z.number(),
+    /** The albedo and IR models used, in words, and the preliminary-design caution. */
+    assumptions: z.array(z.string()).optional(),
+  }),
   sweepDay,
   z.object({ type: z.literal('end'), days: z.number() }),
   z.object({ type: z.literal('error'), message: z.string() }),

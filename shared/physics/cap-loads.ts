@@ -18,6 +18,13 @@ export type AlbedoModel = (typeof albedoModels)[number];
 export const irModels = ['surface-temperature', 'uniform'] as const;
 export type IrModel = (typeof irModels)[number];
 
+/**
+ * The coarser node grid of the paths that integrate the cap many times over (the mission sweep's
+ * days, an ephemeris's rows): within about 1 % of the default 20 x 48 (mission-sweep.spec.ts,
+ * trajectory-environment.spec.ts).
+ */
+export const COARSE_CAP_NODES = { radial: 10, azimuth: 24 } as const;
+
 /** Beyond this apoapsis altitude, in body radii, the engineering albedo approximation is not the default. */
 export const LAMBERTIAN_ALTITUDE_RADII = 1;
 
@@ -78,38 +85,70 @@ export interface CapColumns {
   irWm2: Float64Array[] | null;
 }
 
+/** Whether the chosen models need the cap quadrature (else both closed forms apply). */
+export const needsCap = (choice: CapModelChoice): boolean => choice.albedoModel === 'lambertian' || choice.field !== null;
+
+/** The cap nodes of the plates at one sample: null for a Sun-pointed plate (its nodes move with the Sun). */
+export interface SampleNodes {
+  cap: CapNodes;
+  plates: (PlateNodes | null)[];
+}
+
+/**
+ * The quadrature nodes of every plate along an orbit grid. Rebuilt when the radius changes from one
+ * sample to the next (a circular orbit builds them once); with `keepAll` every sample's are kept, so a
+ * sweep that uses the same grid day after day builds them once (for small grids only: memory grows
+ * with samples x plates x nodes). Coarser grids than the default may be asked for.
+ */
+export function capGridNodes(
+  prepared: readonly PreparedSurface[], grid: OrbitGrid, bodyRadiusKm: number,
+  options: { keepAll?: boolean; radial?: number; azimuth?: number } = {},
+): (k: number) => SampleNodes {
+  const kept: (SampleNodes | undefined)[] = options.keepAll ? new Array(grid.steps) : [];
+  let last: SampleNodes | null = null;
+  let lastRadius = Number.NaN;
+  return (k) => {
+    const r = grid.radiusKm[k];
+    if (r === lastRadius && last) return last;
+    const found = options.keepAll ? kept[k] : undefined;
+    if (found) return found;
+    const cap = capNodes(r / bodyRadiusKm, options.radial, options.azimuth);
+    const nodes: SampleNodes = { cap, plates: prepared.map((p) => (p.normal ? plateNodes(cap, p.normal[0], p.normal[1], p.normal[2]) : null)) };
+    if (options.keepAll) kept[k] = nodes;
+    last = nodes;
+    lastRadius = r;
+    return nodes;
+  };
+}
+
+/** The exitances plateFluxes takes: a S, the day side's S (1 - A) under a zenith Sun, the night floor's (0, 0 without a field). */
+export function capExitances(choice: CapModelChoice, solarFluxWm2: number, albedo: number): { reflected: number; day: number; floor: number } {
+  const field = choice.field;
+  return { reflected: solarFluxWm2 * albedo, day: field ? solarFluxWm2 * (1 - field.bondAlbedo) : 0, floor: field ? floorExitanceWm2(field) : 0 };
+}
+
 /** Cap-quadrature columns for the chosen models, or null when both closed forms apply. */
 export function capColumns(
   choice: CapModelChoice, prepared: readonly PreparedSurface[], grid: OrbitGrid, shade: GridShade, sunW: number,
   bodyRadiusKm: number, solarFluxWm2: number, albedo: number,
+  nodesAt: (k: number) => SampleNodes = capGridNodes(prepared, grid, bodyRadiusKm),
 ): CapColumns | null {
   const lambertian = choice.albedoModel === 'lambertian';
   const field = choice.field;
-  if (!lambertian && !field) return null;
+  if (!needsCap(choice)) return null;
   const steps = grid.steps;
   const columns = () => prepared.map(() => new Float64Array(steps));
   const albedoWm2 = columns();
   const irWm2 = columns();
-  const reflected = solarFluxWm2 * albedo;
-  const day = field ? solarFluxWm2 * (1 - field.bondAlbedo) : 0;
-  const floor = field ? floorExitanceWm2(field) : 0;
+  const { reflected, day, floor } = capExitances(choice, solarFluxWm2, albedo);
   const out = new Float64Array(2);
-  let cap: CapNodes | null = null;
-  let plates: (PlateNodes | null)[] = [];
-  let radius = Number.NaN;
   for (let k = 0; k < steps; k++) {
-    const r = grid.radiusKm[k];
-    if (r !== radius) {
-      radius = r;
-      cap = capNodes(r / bodyRadiusKm);
-      const nodes = cap;
-      plates = prepared.map((p) => (p.normal ? plateNodes(nodes, p.normal[0], p.normal[1], p.normal[2]) : null));
-    }
+    const { cap, plates } = nodesAt(k);
     const sx = shade.cx[k];
     const sz = shade.cz[k];
     for (let j = 0; j < prepared.length; j++) {
       // a Sun-pointed plate's nodes move with the Sun
-      const plate = plates[j] ?? plateNodes(cap as CapNodes, sx, sunW, sz);
+      const plate = plates[j] ?? plateNodes(cap, sx, sunW, sz);
       plateFluxes(plate, sx, sunW, sz, reflected, day, floor, out);
       albedoWm2[j][k] = out[0];
       irWm2[j][k] = out[1];

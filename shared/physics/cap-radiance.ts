@@ -172,3 +172,35 @@ export function meanExitanceWm2(field: SurfaceField, solarFluxWm2: number): numb
   const c0 = day > 0 ? Math.min(1, floor / day) : 1;
   return 0.5 * (floor * (1 + c0) + (day * (1 - c0 * c0)) / 2);
 }
+
+/** Mean over a full turn of max(A cos(theta) + b, 0), A >= 0 (elementary integral). */
+function meanPositiveCosine(a: number, b: number): number {
+  if (b >= a) return b;
+  if (b <= -a) return 0;
+  return (b * Math.acos(-b / a) + Math.sqrt(a * a - b * b)) / Math.PI;
+}
+
+/**
+ * The time average over one circular orbit of plateFluxes for a plate fixed in the local frame: the
+ * Sun turns about the orbit normal (y) once per orbit, so at a node mu = A cos(theta - phi) + B with
+ * A = sqrt(ux^2 + uz^2) sqrt(1 - sy^2) and B = uy sy, and the means of the albedo's max(mu, 0) and
+ * the field's max(day mu, floor) over theta are elementary: exact in time, one pass over the nodes.
+ * Writes [albedo, ir] into `out`.
+ */
+export function plateOrbitMeanFluxes(p: PlateNodes, sy: number, reflectedWm2: number, dayWm2: number, floorWm2: number, out: Float64Array): void {
+  const { ux, uy, uz, weight } = p;
+  const across = Math.sqrt(Math.max(0, 1 - sy * sy));
+  const shift = dayWm2 > 0 ? floorWm2 / dayWm2 : 0;
+  let lit = 0;
+  let emitted = 0;
+  for (let k = 0; k < p.count; k++) {
+    const a = Math.sqrt(ux[k] * ux[k] + uz[k] * uz[k]) * across;
+    const b = uy[k] * sy;
+    const w = weight[k];
+    lit += w * meanPositiveCosine(a, b);
+    // max(day mu, floor) = floor + day max(mu - floor / day, 0)
+    emitted += w * (floorWm2 + (dayWm2 > 0 ? dayWm2 * meanPositiveCosine(a, b - shift) : 0));
+  }
+  out[0] = reflectedWm2 * lit;
+  out[1] = emitted;
+}

@@ -83,6 +83,8 @@ export interface CaseResults {
   /** Each sample's share of the period, s, when the series are not evenly spaced in time. */
   weightS?: number[];
   sunlit: number[];
+  /** About a moon, the sunlit share past its planet alone, when the planet's shadow falls on the orbit (`sunlit` is the combined one). */
+  parentSunlit?: number[];
   surfaces: CaseSurfaceResult[];
   total: { orbitAverageAbsorbedW: number; orbitAverageWithMarginW: number; peakAbsorbedW: number };
 }
@@ -166,6 +168,7 @@ export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
     tS: env.profile.map((p) => round(p.tS, 3)),
     ...(env.sampleWeightsS ? { weightS: env.sampleWeightsS.map((w) => round(w, 3)) } : {}),
     sunlit: env.profile.map((p) => round(p.sunlit, 5)),
+    ...(env.profile.some((p) => (p.parentSunlit ?? 1) < 1) ? { parentSunlit: env.profile.map((p) => round(p.parentSunlit ?? 1, 5)) } : {}),
     surfaces,
     total: { orbitAverageAbsorbedW: round(totalAverage), orbitAverageWithMarginW: round(totalAverage * factor), peakAbsorbedW: round(Math.max(...totalSeries)) },
   };

@@ -60,7 +60,7 @@ const SAMPLING: Record<Sampling, string> = {
   time: 'profile samples evenly spaced in time; the peaks of an eccentric orbit are searched on a grid evenly spaced in eccentric anomaly, refined between the neighbours of each peak',
   'eccentric-anomaly': 'profile samples evenly spaced in eccentric anomaly (dense at periapsis); orbit averages weight each sample by its exact share of the period, (1 - e cos E) dE / n',
 };
-const CAUTION = 'preliminary-design estimate from simplified models; verify with detailed analysis, a correlated model and thermal test';
+export const CAUTION = 'preliminary-design estimate from simplified models; verify with detailed analysis, a correlated model and thermal test';
 
 /** The assumptions of an answer: the models it used, in words. */
 export function environmentAssumptions(c: EnvironmentColumns): string[] {

@@ -36,6 +36,34 @@ describe('sweepMission (one orbit per date, the fast path of the mission sweep)'
     }
   });
 
+  it('a lunar orbiter: the airless surface temperature field and the Lambertian albedo, orbit averages as the compute route\'s for the same day; the nadir IR at night a few W/m^2, not the uniform 271 (LRO Diviner night 95-100 K, Williams et al. 2017, from memory; closed-form consistency with the compute route)', () => {
+    const orbit = { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 90, raanDeg: 40 };
+    const sweep = sweepMission({ bodyId: 'moon', orbit, epochStart: '2027-03-01T12:00:00Z', days: 21, stepDays: 7, steps: 360, surfaces });
+    expect(sweep.models.irModel).toBe('surface-temperature');
+    expect(sweep.models.albedoModel).toBe('lambertian');
+    expect(sweep.assumptions.join(' ')).toContain('radiative equilibrium');
+    for (const [i, row] of sweep.rows.entries()) {
+      const days = i * 7;
+      const single = computeEnvironment({
+        bodyId: 'moon', epoch: row.date, steps: 360, surfaces, orbit: { ...orbit, raanDeg: 40 + sweep.nodalRateDegPerDay * days },
+      });
+      expect(single.irModel).toBe('surface-temperature');
+      for (const [j, load] of row.surfaces.entries()) {
+        const reference = single.orbitAverage.surfaces[j];
+        // the sweep's coarser cap quadrature: within 1 % of the compute route's (or 0.5 W/m^2 where the load is small)
+        expect(Math.abs(load.irWm2 - reference.irWm2)).toBeLessThan(Math.max(0.5, 0.01 * reference.irWm2));
+        expect(Math.abs(load.albedoWm2 - reference.albedoWm2)).toBeLessThan(Math.max(0.5, 0.01 * reference.albedoWm2));
+      }
+      // the same model at the night samples: a nadir plate sees the night floor, a few W/m^2
+      const nightIr = Math.min(...single.profile.map((p) => p.surfaces[0]!.irWm2));
+      expect(nightIr).toBeLessThan(10);
+    }
+    // with the uniform OLR asked for, the sweep keeps the old model: the orbit-average nadir IR is OLR x F (Howell catalogue)
+    const uniform = sweepMission({ bodyId: 'moon', orbit, epochStart: '2027-03-01T12:00:00Z', days: 0, surfaces, olrWm2: 271 });
+    expect(uniform.models.irModel).toBe('uniform');
+    expect(uniform.rows[0].surfaces[0].irWm2).toBeCloseTo(271 * (1738.1 / 1838.1) ** 2, 0);
+  });
+
   it('a sun-synchronous orbit holds its beta over a year while a 51.6 deg orbit swings through +/- (i + obliquity) (Vallado ch. 9; Gilmore ch. 2)', () => {
     const iss = sweepMission({ bodyId: 'earth', orbit: { periapsisAltitudeKm: 410, apoapsisAltitudeKm: 410, inclinationDeg: 51.6 }, epochStart: '2027-01-01T00:00:00Z', days: 365 });
     expect(iss.maxBetaDeg).toBeGreaterThan(70);

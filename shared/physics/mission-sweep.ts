@@ -1,17 +1,27 @@
 // A mission's environment date by date: for each date the beta angle, the Sun's distance and flux,
 // the eclipse (conical shadow) and the orbit-average loads on each surface, with the node and the
 // periapsis drifting under J2 and the Sun moving along the body's orbit. One orbit is computed per
-// date with the Sun held fixed over it, as POST /environment/compute does.
+// date with the Sun held fixed over it, as POST /environment/compute does. Albedo and planetary IR
+// take the compute route's models (cap-loads.ts chooseCapModels: an airless body's surface
+// temperature field and the Lambertian albedo integral by default); where they need the cap
+// quadrature, a plate fixed in the local frame on a circular orbit takes the exact time average over
+// the orbit node by node (cap-radiance.ts plateOrbitMeanFluxes); other plates and eccentric orbits
+// are sampled on a coarser grid than the compute route's (SWEEP_CAP_STEPS samples evenly in eccentric
+// anomaly with their exact time weights); both on SWEEP_CAP_RADIAL x SWEEP_CAP_AZIMUTH nodes, so ten
+// years stay quick; mission-sweep.spec.ts holds the orbit averages to the compute route's.
 // Leaves out: everything computeEnvironment leaves out; drag and other perturbations that change
 // the orbit's size or inclination; the Sun's motion within one orbit. Sources: Vallado ch. 9 (J2
 // secular rates); the models of environment.ts; the Sun from VSOP87 through sun-track.ts.
 import { getBody, type BodyId } from './bodies';
+import { capAssumptions, capColumns, capExitances, capGridNodes, COARSE_CAP_NODES, chooseCapModels, needsCap, type CapModelChoice, type CapModelRequest } from './cap-loads';
 import type { EclipseSummary } from './eclipse';
 import type { Surface, SurfaceLoad } from './heat-loads';
-import { defineOrbit, type OrbitInput } from './orbit-definition';
+import { defineOrbit, type Orbit, type OrbitInput } from './orbit-definition';
+import { plateOrbitMeanFluxes } from './cap-radiance';
 import {
-  eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, shadeGrid, type GridShade, type OrbitGrid,
+  eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, orbitGridAt, shadeGrid, type GridShade, type OrbitGrid, type PerifocalSun,
 } from './orbit-grid';
+import { eccentricAnomalyTimes } from './orbit-sampling';
 import { longestShadow, missionDays } from './mission-days';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2 } from './sun';
@@ -19,7 +29,7 @@ import { prepareSurfaces, type PreparedSurface } from './surface-grid';
 import { DEG } from './vector3';
 import { plateToSphereViewFactor } from './view-factors';
 
-export interface MissionSweepRequest {
+export interface MissionSweepRequest extends CapModelRequest {
   bodyId: BodyId | string;
   /** The compute route's orbit object; RAAN and argument of periapsis hold at orbitEpoch. */
   orbit: OrbitInput;
@@ -34,9 +44,9 @@ export interface MissionSweepRequest {
   /** Samples over each orbit for the loads, default 360. */
   steps?: number;
   surfaces?: readonly Surface[];
-  /** Override the body's nominal albedo and OLR. */
-  albedo?: number;
-  olrWm2?: number;
+  /** Override the body's nominal albedo and OLR (an OLR given for an airless body asks for the uniform model, as in the compute route). */
+  albedo?: number | undefined;
+  olrWm2?: number | undefined;
 }
 
 export interface MissionSweepRow {
@@ -72,6 +82,10 @@ export interface MissionSweepResult {
   rows: MissionSweepRow[];
   minBetaDeg: number;
   maxBetaDeg: number;
+  /** The albedo and IR models used (the compute route's choice for the same orbit). */
+  models: CapModelChoice;
+  /** The models in words, as the compute route says them, with the sweep's own quadrature grid. */
+  assumptions: string[];
 }
 
 /** The most rows one sweep may produce (the routes answer 400 beyond it). */
@@ -79,6 +93,9 @@ export const MAX_SWEEP_ROWS = 20000;
 export const DEFAULT_SWEEP_STEPS = 360;
 /** The shadow scan grid of a sweep: finer load grids are used as they are. */
 const SWEEP_SCAN_STEPS = 360;
+/** The cap quadrature of a sweep: samples per orbit (evenly in eccentric anomaly) and nodes over the disk. */
+export const SWEEP_CAP_STEPS = 48;
+const { radial: SWEEP_CAP_RADIAL, azimuth: SWEEP_CAP_AZIMUTH } = COARSE_CAP_NODES;
 const DAY_MS = 86400e3;
 
 function toMs(value: string | Date, path: string): number {
@@ -114,6 +131,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   const albedo = request.albedo ?? body.albedo.nominal;
   const olrWm2 = request.olrWm2 ?? body.olrWm2.nominal;
   const surfaces = request.surfaces ?? [];
+  const models = chooseCapModels(body, request, albedo, orbit.apoapsisAltitudeKm);
 
   const grid = orbitGrid(orbit, body.radiusKm, steps);
   const scanGrid = steps >= SWEEP_SCAN_STEPS ? grid : orbitGrid(orbit, body.radiusKm, SWEEP_SCAN_STEPS);
@@ -125,6 +143,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   const solarSums = new Float64Array(prepared.length);
   const albedoSums = new Float64Array(prepared.length);
   const sunIrSums = new Float64Array(prepared.length);
+  const cap = needsCap(models) ? sweepCap(orbit, body.radiusKm, surfaces) : null;
   const rows: MissionSweepRow[] = new Array(rowCount);
   let minBeta = Infinity;
   let maxBeta = -Infinity;
@@ -142,12 +161,13 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
     const longest = longestShadow(body, eclipse.umbraS + eclipse.penumbraS, days.parentSpans(ms - halfWindowMs, ms + halfWindowMs));
     minBeta = Math.min(minBeta, betaDeg);
     maxBeta = Math.max(maxBeta, betaDeg);
+    const capAverages = cap ? cap.averages(models, sun, flux, albedo) : null;
     const loads: SurfaceLoad[] = new Array(prepared.length);
     for (let j = 0; j < prepared.length; j++) {
       const s = prepared[j].surface;
       const solarWm2 = (flux * solarSums[j]) / steps;
-      const albedoWm2 = (flux * albedo * albedoSums[j]) / steps;
-      const irWm2 = (olrWm2 * (prepared[j].normal === null ? sunIrSums[j] : irSums[j])) / steps;
+      const albedoWm2 = capAverages?.albedoWm2?.[j] ?? (flux * albedo * albedoSums[j]) / steps;
+      const irWm2 = capAverages?.irWm2?.[j] ?? (olrWm2 * (prepared[j].normal === null ? sunIrSums[j] : irSums[j])) / steps;
       loads[j] = { name: s.name, solarWm2, albedoWm2, irWm2, absorbedW: s.areaM2 * (s.absorptivity * (solarWm2 + albedoWm2) + s.emissivity * irWm2) };
     }
     rows[row] = {
@@ -166,6 +186,70 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
     rows,
     minBetaDeg: rowCount > 0 ? minBeta : Number.NaN,
     maxBetaDeg: rowCount > 0 ? maxBeta : Number.NaN,
+    models,
+    assumptions: sweepAssumptions(models, rows[0].solarFluxWm2),
+  };
+}
+
+/** The sweep's albedo and IR models in words: the compute route's lines, and the sweep's quadrature grid. */
+function sweepAssumptions(models: CapModelChoice, firstFluxWm2: number): string[] {
+  const lines = capAssumptions(models, firstFluxWm2);
+  if (models.field) lines[1] = `${lines[1]} (subsolar temperature at the first date's solar flux)`;
+  if (needsCap(models)) {
+    lines.push(
+      `the sweep's cap integrals use ${SWEEP_CAP_RADIAL} x ${SWEEP_CAP_AZIMUTH} nodes over the disk (the compute route: 20 x 48): on a circular orbit a plate fixed to the spacecraft takes the exact time average over the orbit, ` +
+      `Sun-pointed plates and eccentric orbits ${SWEEP_CAP_STEPS} samples evenly in eccentric anomaly with their exact time weights; orbit averages agree with the compute route's to about 1 %`,
+    );
+  }
+  return lines;
+}
+
+/**
+ * The cap quadrature of a sweep, its nodes built once for every day: per day, the orbit-average albedo
+ * and IR of each surface (null for a component a closed form gives). On a circular orbit a plate fixed
+ * in the local frame takes the exact time average over the orbit (plateOrbitMeanFluxes); Sun-pointed
+ * plates and eccentric orbits are sampled on a small grid evenly in eccentric anomaly with exact time weights.
+ */
+function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface[]) {
+  const { times, weightS } = eccentricAnomalyTimes(orbit, SWEEP_CAP_STEPS);
+  const grid = orbitGridAt(orbit, bodyRadiusKm, times);
+  const prepared = prepareSurfaces(surfaces, grid, bodyRadiusKm);
+  const nodesAt = capGridNodes(prepared, grid, bodyRadiusKm, { keepAll: true, ...COARSE_CAP_NODES });
+  const circular = orbit.eccentricity === 0;
+  const fixed = circular ? nodesAt(0).plates : prepared.map(() => null);
+  // the sampled grid only for the plates the exact mean does not serve
+  const sampled = prepared.filter((_, j) => fixed[j] === null);
+  const sampledNodesAt = capGridNodes(sampled, grid, bodyRadiusKm, { keepAll: true, ...COARSE_CAP_NODES });
+  const shade = gridShade(grid.steps);
+  const out = new Float64Array(2);
+  const average = (column: Float64Array): number => {
+    let sum = 0;
+    for (let k = 0; k < column.length; k++) sum += column[k] * weightS[k];
+    return sum / orbit.periodS;
+  };
+  return {
+    averages(models: CapModelChoice, sun: PerifocalSun, fluxWm2: number, albedo: number): { albedoWm2: number[] | null; irWm2: number[] | null } {
+      const { reflected, day, floor } = capExitances(models, fluxWm2, albedo);
+      const albedoWm2 = new Array<number>(prepared.length);
+      const irWm2 = new Array<number>(prepared.length);
+      const columns = sampled.length > 0
+        ? (shadeGrid(grid, sun, shade), capColumns(models, sampled, grid, shade, sun.sw, bodyRadiusKm, fluxWm2, albedo, sampledNodesAt))
+        : null;
+      let i = 0;
+      for (let j = 0; j < prepared.length; j++) {
+        const plate = fixed[j];
+        if (plate) {
+          plateOrbitMeanFluxes(plate, sun.sw, reflected, day, floor, out);
+          albedoWm2[j] = out[0];
+          irWm2[j] = out[1];
+        } else {
+          albedoWm2[j] = columns?.albedoWm2 ? average(columns.albedoWm2[i]) : Number.NaN;
+          irWm2[j] = columns?.irWm2 ? average(columns.irWm2[i]) : Number.NaN;
+          i++;
+        }
+      }
+      return { albedoWm2: models.albedoModel === 'lambertian' ? albedoWm2 : null, irWm2: models.field ? irWm2 : null };
+    },
   };
 }
 

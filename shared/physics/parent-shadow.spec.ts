@@ -224,6 +224,10 @@ describe('the cold case about a moon', () => {
     expect(d.cold.results.eclipseFraction).toBeGreaterThan(0.99);
     expect(d.cold.results.total.orbitAverageAbsorbedW).toBeLessThan(d.hot.results.total.orbitAverageAbsorbedW);
     expect(d.hot.conditions.orbitStart).toBeUndefined();
+    // the stored results keep the planet's shadow apart for the case's plot: the orbit amid Europa's passage is all behind Jupiter
+    expect(d.cold.results.parentSunlit).toHaveLength(d.cold.results.sunlit.length);
+    expect(Math.max(...d.cold.results.parentSunlit!)).toBeLessThan(1);
+    expect(d.hot.results.parentSunlit).toBeUndefined();
   });
 });
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { getBody } from './bodies';
+import { computeEnvironment } from './environment';
 import { defineOrbit } from './orbit-definition';
 import { orbitSampler } from './orbit-position';
 import { PhysicsError } from './physics-error';
@@ -41,6 +42,37 @@ describe('trajectoryEnvironment', () => {
       expect(p.surfaces[1].irWm2).toBe(0);
       expect(p.surfaces[1].albedoWm2).toBe(0);
     }
+  });
+
+  it('a lunar orbiter: the surface temperature field and the Lambertian albedo at every row, orbit averages as the compute route\'s at the same epoch; the nadir IR over the night a few W/m^2, not the uniform 271 (LRO Diviner night 95-100 K, Williams et al. 2017, from memory; consistency with the compute route)', () => {
+    const moon = getBody('moon');
+    const elements = { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 90, raanDeg: 40 };
+    const orbit = defineOrbit(elements, moon);
+    const at = orbitSampler(orbit);
+    const speed = Math.sqrt(moon.gmKm3S2 / orbit.semiMajorAxisKm);
+    const samples: TrajectorySample[] = [];
+    for (let t = 0; t <= orbit.periodS + 1e-6; t += orbit.periodS / 360) {
+      const s = at(t);
+      samples.push({ tMs: t0 + t * 1000, positionKm: s.positionKm, velocityKmS: scale(s.ram, speed) });
+    }
+    const result = trajectoryEnvironment(samples, { body: moon, surfaces: panels, maxAltitudeKm: 100 });
+    expect(result.models.irModel).toBe('surface-temperature');
+    expect(result.models.albedoModel).toBe('lambertian');
+    // on a circular orbit a plate fixed to the spacecraft sees an orbit average that depends only on beta and the solar flux:
+    // the compute route at the trajectory's mean beta and flux (the Sun moves about 1 deg a day from the Moon: within 1.5 % or 0.5 W/m^2)
+    const solarDistanceAu = Math.sqrt(solarFluxWm2(1) / result.meanSolarFluxWm2);
+    const single = computeEnvironment({ bodyId: 'moon', orbit: elements, betaDeg: result.meanBetaDeg, solarDistanceAu, steps: 360, surfaces: panels });
+    expect(single.irModel).toBe('surface-temperature');
+    for (const [j, load] of result.averages.surfaces.entries()) {
+      const reference = single.orbitAverage.surfaces[j];
+      expect(Math.abs(load.irWm2 - reference.irWm2)).toBeLessThan(Math.max(0.5, 0.015 * reference.irWm2));
+      expect(Math.abs(load.albedoWm2 - reference.albedoWm2)).toBeLessThan(Math.max(0.5, 0.015 * reference.albedoWm2));
+    }
+    const nadirIr = result.points.map((p) => p.surfaces[0].irWm2);
+    expect(Math.min(...nadirIr)).toBeLessThan(10);
+    // an OLR given asks for the uniform model, as in the compute route: OLR (R/r)^2 on a nadir plate (Howell catalogue)
+    const uniform = trajectoryEnvironment(samples, { body: moon, surfaces: panels, olrWm2: 271, maxAltitudeKm: 100 });
+    expect(uniform.points[0].surfaces[0].irWm2).toBeCloseTo(271 * (moon.radiusKm / (moon.radiusKm + 100)) ** 2, 6);
   });
 
   it('finite-difference velocities give the loads of exact ones within 0.5 % (10 s steps; common practice, no source)', () => {

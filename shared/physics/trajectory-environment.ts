@@ -3,13 +3,19 @@
 // moon, of its planet: parent-shadow.ts's model), the plate-to-sphere view factors from that point's
 // altitude and every surface's loads in the local orbital frame built from r and v (v by finite
 // differences when the file gave none).
+// Albedo and planetary IR take the compute route's models (cap-loads.ts chooseCapModels, on the
+// file's highest altitude): an airless body's surface temperature field and the Lambertian albedo
+// integral by cap quadrature at every row (the coarser COARSE_CAP_NODES grid, its nodes rebuilt when
+// the radius moves by more than 1e-4 of itself), else the closed forms of heat-loads.ts.
 // Leaves out: what eclipse.ts, heat-loads.ts and sun-track.ts leave out (the Sun comes from the same
 // track the sweeps use). Positions are in an ICRF-aligned frame centred on the body (EME2000/J2000 differ
 // from ICRF by milliarcseconds, ignored). Source: API.md's load definitions; the frame as in
 // orbit-position.ts (x ram, y orbit normal, z zenith).
 import { getBody, type Body } from './bodies';
 import { shadowGeometry, sunlitFraction } from './eclipse';
-import { localNormal, surfaceLoad, type Surface, type SurfaceLoad } from './heat-loads';
+import { absorbedW, localNormal, surfaceLoad, type Surface, type SurfaceLoad } from './heat-loads';
+import { capExitances, chooseCapModels, COARSE_CAP_NODES, needsCap, reportedOlrWm2, type CapModelChoice, type CapModelRequest } from './cap-loads';
+import { capNodes, plateFluxes, plateNodes, type PlateNodes } from './cap-radiance';
 import { AU_KM } from './constants';
 import { PhysicsError } from './physics-error';
 import { moonTrack } from './moon-ephemeris';
@@ -33,12 +39,14 @@ export interface TrajectoryPointLoads {
   surfaces: SurfaceLoad[];
 }
 
-export interface TrajectoryEnvironmentOptions {
+export interface TrajectoryEnvironmentOptions extends CapModelRequest {
   body: Body;
   surfaces: readonly Surface[];
-  /** Defaults to the body's nominal values. */
-  albedo?: number;
-  olrWm2?: number;
+  /** Defaults to the body's nominal values (an OLR given for an airless body asks for the uniform model, as in the compute route). */
+  albedo?: number | undefined;
+  olrWm2?: number | undefined;
+  /** The trajectory's highest altitude, km, for the choice of albedo model (cap-loads.ts); 0 when not known. */
+  maxAltitudeKm?: number | undefined;
   /** Which rows (0-based, with their epochs) to return as points; every row counts in the averages. Default: all. */
   keep?: (index: number, tMs: number) => boolean;
 }
@@ -46,7 +54,10 @@ export interface TrajectoryEnvironmentOptions {
 export interface TrajectoryEnvironment {
   rows: number;
   albedo: number;
+  /** The OLR used, or an airless body's whole-body mean exitance at the mean solar flux. */
   olrWm2: number;
+  /** The albedo and IR models used. */
+  models: CapModelChoice;
   points: TrajectoryPointLoads[];
   /** Time-weighted (trapezoidal) over the whole span. */
   averages: { sunlitFraction: number; surfaces: SurfaceLoad[] };
@@ -115,12 +126,39 @@ function differencedVelocity(prev: TrajectorySample | null, cur: TrajectorySampl
   return scale(subtract(b.positionKm, a.positionKm), 1 / dtS);
 }
 
+/**
+ * The cap quadrature at one row: replaces the closed-form albedo and/or IR of a surface's load with the
+ * chosen models' (its plate nodes kept while the radius stays within 1e-4 of itself).
+ */
+function capLoads(models: CapModelChoice, surfaces: readonly Surface[], bodyRadiusKm: number, albedo: number) {
+  const fixed = surfaces.map((s, i) => (s.normal === 'sun' ? null : localNormal(s.normal, [0, 0, 1], `surfaces.${i}.normal`)));
+  let radiusKm = Number.NaN;
+  let cap = capNodes(2, COARSE_CAP_NODES.radial, COARSE_CAP_NODES.azimuth);
+  let plates: (PlateNodes | null)[] = [];
+  const out = new Float64Array(2);
+  return (load: SurfaceLoad, i: number, r: number, sun: Vector3, fluxWm2: number): SurfaceLoad => {
+    if (!(Math.abs(r - radiusKm) <= 1e-4 * r)) {
+      radiusKm = r;
+      cap = capNodes(r / bodyRadiusKm, COARSE_CAP_NODES.radial, COARSE_CAP_NODES.azimuth);
+      const nodes = cap;
+      plates = fixed.map((n) => (n ? plateNodes(nodes, n[0], n[1], n[2]) : null));
+    }
+    const { reflected, day, floor } = capExitances(models, fluxWm2, albedo);
+    plateFluxes(plates[i] ?? plateNodes(cap, sun[0], sun[1], sun[2]), sun[0], sun[1], sun[2], reflected, day, floor, out);
+    const albedoWm2 = models.albedoModel === 'lambertian' ? out[0] : load.albedoWm2;
+    const irWm2 = models.field ? out[1] : load.irWm2;
+    return { ...load, albedoWm2, irWm2, absorbedW: absorbedW(surfaces[i], load.solarWm2, albedoWm2, irWm2) };
+  };
+}
+
 /** Loads on every surface at every row of the trajectory, with time-weighted averages and peaks. */
 export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, options: TrajectoryEnvironmentOptions): TrajectoryEnvironment {
   const { body, surfaces } = options;
   const albedo = options.albedo ?? body.albedo.nominal;
   const olrWm2 = options.olrWm2 ?? body.olrWm2.nominal;
   const keep = options.keep ?? (() => true);
+  const models = chooseCapModels(body, options, albedo, options.maxAltitudeKm ?? 0);
+  const capAt = needsCap(models) ? capLoads(models, surfaces, body.radiusKm, albedo) : null;
   const sunAt = sunInterpolator(body);
   const fixed = surfaces.map((s, i) => (s.normal === 'sun' ? null : localNormal(s.normal, [0, 0, 1], `surfaces.${i}.normal`)));
   const sums = surfaces.map((s) => zeroLoad(s.name));
@@ -161,7 +199,7 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
     betaSum += Math.asin(Math.max(-1, Math.min(1, sunLocal[1]))) * weightS;
     fluxSum += point.solarFluxWm2 * weightS;
     const loads = surfaces.map((surface, i) => {
-      const load = surfaceLoad(surface, fixed[i] ?? sunLocal, point);
+      const load = capAt ? capAt(surfaceLoad(surface, fixed[i] ?? sunLocal, point), i, radiusKm, sunLocal, point.solarFluxWm2) : surfaceLoad(surface, fixed[i] ?? sunLocal, point);
       const [sum, peak] = [sums[i], peaks[i]];
       sum.solarWm2 += load.solarWm2 * weightS; sum.albedoWm2 += load.albedoWm2 * weightS;
       sum.irWm2 += load.irWm2 * weightS; sum.absorbedW += load.absorbedW * weightS;
@@ -193,7 +231,8 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
   return {
     rows: index,
     albedo,
-    olrWm2,
+    olrWm2: reportedOlrWm2(models, fluxSum / totalS, olrWm2),
+    models,
     points,
     averages: { sunlitFraction: sunlitSum / totalS, surfaces: sums.map(average) },
     peaks: { surfaces: peaks },

@@ -33,7 +33,11 @@ describe('GET /api/v1/missions/:id/orbits/:orbitId/sweep', () => {
     }).expect(200);
     expect(res.headers['content-type']).toMatch(/^application\/x-ndjson/);
     const parsed = lines(res.body as string);
-    expect(parsed[0]).toEqual({ type: 'start', days: 10, from: '2027-06-01', to: '2027-06-10', stepDays: 1 });
+    expect(parsed[0]).toMatchObject({ type: 'start', days: 10, from: '2027-06-01', to: '2027-06-10', stepDays: 1 });
+    // the models in words and the preliminary-design caution (DOMAIN.md, last section)
+    const start = parsed[0] as { assumptions?: string[] };
+    expect(start.assumptions?.join(' ')).toContain('planetary IR');
+    expect(start.assumptions?.join(' ')).toContain('preliminary-design estimate');
     expect(parsed.at(-1)).toEqual({ type: 'end', days: 10 });
     const days = parsed.filter((l) => l.type === 'day');
     expect(days.map((d) => d.date)).toEqual(Array.from({ length: 10 }, (_, i) => `2027-06-${String(i + 1).padStart(2, '0')}`));

@@ -39,6 +39,21 @@ describe('case plots', () => {
     ]);
   });
 
+  it("shades a moon orbiter's time in its planet's shadow apart from the moon's own, named after the planet (as the environment page; common practice, no source)", () => {
+    // samples 1-3 dark: 1 and 2 behind the planet, 3 the moon's own umbra, 4 its penumbra
+    const moon = { ...results, sunlit: [1, 0, 0, 0, 0.5, 1], parentSunlit: [1, 0, 0, 1, 1, 1] };
+    expect(eclipseBands(moon, 'Jupiter')).toEqual([
+      { from: 1, to: 3, kind: 'parent-shadow', label: "In Jupiter's shadow" },
+      { from: 3, to: 4, kind: 'eclipse', label: 'Eclipse (umbra)' },
+      { from: 4, to: 5, kind: 'penumbra', label: 'Penumbra' },
+    ]);
+    // the moon's own umbra where it closes what the planet's penumbra leaves (the lunar orbiter's cold case in Earth's penumbra)
+    const penumbral = { ...results, sunlit: [0, 0, 0.3, 0.2, 0, 0], parentSunlit: [0.85, 0.8, 0.7, 0.2, 0, 0] };
+    expect(eclipseBands(penumbral, 'Earth').map((band) => [band.kind, band.from, band.to])).toEqual([['eclipse', 0, 2], ['parent-shadow', 2, 5]]);
+    // a case stored before the planet's shadow was kept apart: one sunlit series, bands as before
+    expect(eclipseBands(results, 'Jupiter').map((band) => band.kind)).toEqual(['penumbra', 'eclipse', 'penumbra']);
+  });
+
   it('sums the absorbed loads over the surfaces for the whole spacecraft', () => {
     const total = absorbedSeries(results, WHOLE_SPACECRAFT).find((s) => s.id === 'absorbed');
     expect(total?.points.map((p) => p.y)).toEqual([14, 7, 0, 0, 7, 14]);

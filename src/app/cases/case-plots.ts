@@ -1,7 +1,7 @@
 // Plot inputs from a case's results: the incident fluxes and absorbed loads of one surface (or
 // of the spacecraft as a whole) around the orbit, with the eclipse shaded, in minutes.
 import type { CaseResultsContent } from '../../../shared/api/case-content';
-import type { PlotBand, PlotSeries } from '../plots/plot-series';
+import { shadowKind, type PlotBand, type PlotSeries } from '../plots/plot-series';
 
 /** The picker's value for the sum over every surface. */
 export const WHOLE_SPACECRAFT = '';
@@ -25,18 +25,24 @@ function summed(results: Results, key: SeriesKey): number[] {
 
 /**
  * Eclipse bands from the sunlit fraction: full shadow (0) is the umbra, anything between 0 and 1
- * the penumbra. A run that reaches the end of the orbit closes at the last sample.
+ * the penumbra. About a moon, samples in the planet's shadow (parentSunlit < 1) are their own kind,
+ * shaded as on the orbit's environment page and labelled with the planet's name when it is given.
+ * A run that reaches the end of the orbit closes at the last sample.
  */
-export function eclipseBands(results: Results): PlotBand[] {
+export function eclipseBands(results: Results, parentName: string | null = null): PlotBand[] {
   const x = minutes(results);
   const bands: PlotBand[] = [];
-  const kindAt = (i: number): PlotBand['kind'] | null => (results.sunlit[i] <= 0 ? 'eclipse' : results.sunlit[i] < 1 ? 'penumbra' : null);
+  const parent = results.parentSunlit;
+  const kindAt = (i: number): PlotBand['kind'] | null => shadowKind(results.sunlit[i], parent?.[i]);
+  const labels: Record<string, string> = {
+    eclipse: 'Eclipse (umbra)', penumbra: 'Penumbra', 'parent-shadow': parentName ? `In ${parentName}'s shadow` : "In the planet's shadow",
+  };
   let start = -1;
   let kind: PlotBand['kind'] | null = null;
   for (let i = 0; i <= x.length; i++) {
     const here = i < x.length ? kindAt(i) : null;
     if (here === kind) continue;
-    if (kind !== null) bands.push({ from: x[start], to: x[Math.min(i, x.length - 1)], kind, label: kind === 'eclipse' ? 'Eclipse (umbra)' : 'Penumbra' });
+    if (kind !== null) bands.push({ from: x[start], to: x[Math.min(i, x.length - 1)], kind, label: labels[kind] ?? '' });
     start = i;
     kind = here;
   }

@@ -2,7 +2,7 @@
 // (from the ascending node for a circular orbit), as the profile's tS counts (API.md).
 import type { EnvironmentResponse } from '../../../shared/api/environment';
 import type { CsvColumn } from '../plots/csv-download';
-import type { PlotBand, PlotSeries } from '../plots/plot-series';
+import { shadowKind, type PlotBand, type PlotSeries } from '../plots/plot-series';
 
 type Profile = EnvironmentResponse['profile'];
 
@@ -20,8 +20,11 @@ export function eclipseBands(profile: Profile, parentBodyId: string | null = nul
   const bands: PlotBand[] = [];
   const n = profile.length;
   const edge = (i: number, j: number): number => minutes((profile[i].tS + profile[j].tS) / 2);
-  const kindAt = (k: number): 'parent-shadow' | 'eclipse' | null =>
-    (profile[k].parentSunlit ?? 1) < 1 ? 'parent-shadow' : profile[k].sunlit < 1 ? 'eclipse' : null;
+  // this page shades the moon's own umbra and penumbra alike
+  const kindAt = (k: number): 'parent-shadow' | 'eclipse' | null => {
+    const kind = shadowKind(profile[k].sunlit, profile[k].parentSunlit);
+    return kind === 'penumbra' ? 'eclipse' : kind;
+  };
   const parentLabel = parentBodyId ? `In ${bodyName(parentBodyId)}'s shadow` : 'Eclipse';
   let i = 0;
   while (i < n) {

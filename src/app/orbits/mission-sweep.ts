@@ -34,6 +34,8 @@ export class MissionSweep {
   protected readonly failure = signal<string | null>(null);
   protected readonly totalDays = signal(0);
   protected readonly days = signal<readonly SweepDay[]>([]);
+  /** The models the sweep used, in words, from the stream's first line. */
+  protected readonly assumptions = signal<readonly string[]>([]);
   private running: Subscription | null = null;
   private readonly orbitId = computed(() => this.orbit().id);
 
@@ -67,6 +69,7 @@ export class MissionSweep {
   protected run(): void {
     this.cancel('idle');
     this.days.set([]);
+    this.assumptions.set([]);
     this.totalDays.set(0);
     this.failure.set(null);
     this.state.set('running');
@@ -94,7 +97,10 @@ export class MissionSweep {
   private take(lines: readonly SweepLine[]): void {
     const fresh: SweepDay[] = [];
     for (const line of lines) {
-      if (line.type === 'start') this.totalDays.set(line.days);
+      if (line.type === 'start') {
+        this.totalDays.set(line.days);
+        this.assumptions.set(line.assumptions ?? []);
+      }
       else if (line.type === 'day') fresh.push(line);
       else if (line.type === 'end') this.state.set('done');
     }

@@ -21,6 +21,18 @@ export interface PlotSeries {
 
 export type BandKind = 'eclipse' | 'penumbra' | 'parent-shadow' | 'limit' | 'custom';
 
+/**
+ * Which shadow a sample is in, from the combined sunlit share and, about a moon, the share past its
+ * planet alone (combined = max(0, moon's + planet's - 1)): the moon's own umbra where it closes what
+ * the planet leaves (combined 0 with the planet's share above 0), else the planet's shadow where the
+ * planet darkens, else the moon's (or planet's) own umbra or penumbra; null in full sun.
+ */
+export function shadowKind(sunlit: number, parentSunlit = 1): 'eclipse' | 'penumbra' | 'parent-shadow' | null {
+  if (sunlit <= 0 && parentSunlit > 0) return 'eclipse';
+  if (parentSunlit < 1) return 'parent-shadow';
+  return sunlit <= 0 ? 'eclipse' : sunlit < 1 ? 'penumbra' : null;
+}
+
 /** A shaded x range behind the data, e.g. an eclipse from entry to exit. */
 export interface PlotBand {
   readonly from: number;
