@@ -20,7 +20,10 @@ of the fluid mass), fed by the lump before it; lump and node exchange g (T_node 
 g = max(UA, m_dot c_p (exp(min(NTU, 12)) - 1)), NTU = UA / (m_dot c_p), so each element's steady
 effectiveness is 1 - exp(-NTU). The flow is nominal + kp e + I, clamped to [min, max], with
 e = T_control - set point and dI/dt = ki e except where the flow or I sits at a limit the error
-pushes it past (anti-windup). Here the controller acts continuously; eclipta's holds the flow over
+pushes it past (anti-windup). The loads are the model's own function of time, the same on both
+sides: the absorbed samples interpolated linearly between them (thermal-network.ts, which each
+implicit step evaluates at its end time); maxStepS (optional) caps SciPy's step, for fine checks.
+Here the controller acts continuously; eclipta's holds the flow over
 each implicit step, so the two differ by the sampling, well inside the 0.1 K the bench asks.
 """
 import json
@@ -42,6 +45,7 @@ def main(path):
     rtol = model.get('rtol', 1e-5)
     atol = model.get('atolK', 1e-3)
     tol = model.get('toleranceK', 0.01)
+    max_step = model.get('maxStepS', np.inf)
     max_orbits = model.get('maxOrbits', 400)
     net = network(model)
     nodes, n, index, steps, period = net.nodes, net.n, net.index, net.steps, net.period
@@ -164,7 +168,7 @@ def main(path):
         orbits = orbit
         t0 = (orbit - 1) * period
         start = y.copy()
-        sol = solve_ivp(rhs, (t0, t0 + period), y, method='BDF', rtol=rtol, atol=atol, jac_sparsity=sparsity,
+        sol = solve_ivp(rhs, (t0, t0 + period), y, method='BDF', rtol=rtol, atol=atol, jac_sparsity=sparsity, max_step=max_step,
                         t_eval=np.append(samples + t0, t0 + period))
         if not sol.success:
             raise RuntimeError(sol.message)
