@@ -139,6 +139,7 @@ export async function buildScene(t: TestApp): Promise<Scene> {
 // Routes whose :id must be a case in a particular state to mean anything.
 const caseIdFor: Record<string, keyof SceneIds> = {
   'POST /api/v1/cases/:id/release': 'reviewCaseId',
+  'POST /api/v1/cases/:id/return': 'reviewCaseId',
   'POST /api/v1/cases/:id/revisions': 'releasedCaseId',
 };
 
@@ -222,6 +223,8 @@ export function sampleBody(key: string, ids: SceneIds): unknown {
     'PATCH /api/v1/cases/:id': { name: 'Scene hot, renamed', margins: { heatLoadPercent: 20 } },
     'POST /api/v1/cases/:id/submit': {},
     'POST /api/v1/cases/:id/release': {},
+    'POST /api/v1/cases/:id/return': { text: 'Sent back by the hostile-input scene' },
+    'POST /api/v1/cases/:id/comments': { text: 'A comment from the hostile-input scene' },
     'POST /api/v1/cases/:id/revisions': {},
     'POST /api/v1/cases/:id/subscription': {},
     'POST /api/v1/missions/:id/thermal-models': sampleThermalModel(ids.surfaceId),
