@@ -20,7 +20,7 @@ export interface DifferenceRow {
   readonly values: readonly (number | null)[];
 }
 
-const LABEL_PX = 120;
+const LABEL_PX = 180;
 const BAR_PX = 12;
 const GAP_PX = 10;
 const AXIS_PX = 42;

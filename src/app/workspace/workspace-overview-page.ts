@@ -140,7 +140,7 @@ import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
   styles: `
     .needs {
       display: grid;
-      grid-template-columns: repeat(auto-fit, minmax(320px, 1fr));
+      grid-template-columns: repeat(auto-fit, minmax(min(320px, 100%), 1fr));
       gap: 8px 32px;
     }
     .needs h3 {
