@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import {
   caseComment, caseCommentCreate, caseCompareQuery, caseComparison, caseRevisionCreate, caseCreate, caseDerive, caseDetail, caseExport, caseExportQuery, caseList, caseListQuery, caseUpdate,
-  derivedCases, subscriptionState,
+  derivedCases, subscriptionState, workspaceOverview,
 } from '../../shared/api/cases';
 import type { ApiRoute } from './api-route';
 
@@ -25,6 +25,7 @@ export const caseApiRoutes: ApiRoute[] = [
   { method: 'post', path: `${c}/subscription`, tag: 'cases', summary: 'Follow the case: mail on every new release', response: subscriptionState },
   { method: 'delete', path: `${c}/subscription`, tag: 'cases', summary: 'Stop following the case', response: subscriptionState },
   { method: 'get', path: `${c}/export`, tag: 'cases', summary: 'The case as a file: JSON (load-case.json schema) or a tidy CSV (RFC 4180): one header row with units, a row per time step and surface, then per surface its orbit average and peak and the spacecraft total; case, revision, status, checksum, mission, body, orbit, date, beta, Sun distance, property set, heat-load margin and caution as columns on every row', query: caseExportQuery, response: caseExport, produces: ['application/json', 'text/csv'], perStep: true },
+  { method: 'get', path: `${v1}/workspaces/:workspaceId/overview`, tag: 'cases', summary: 'What needs the caller in a workspace: cases waiting for their review, their drafts returned with a comment, the newest revisions of cases they follow, released cases whose inputs changed (members)', response: workspaceOverview },
   { method: 'get', path: `${v1}/schemas/load-case.json`, tag: 'documents', summary: 'JSON Schema (draft 2020-12) of a case’s JSON export', response: z.record(z.string(), z.unknown()) },
   { method: 'get', path: `${v1}/openapi.json`, tag: 'documents', summary: 'This document: the whole API in OpenAPI 3', response: z.record(z.string(), z.unknown()) },
 ];

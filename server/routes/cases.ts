@@ -4,10 +4,11 @@ import { Router } from 'express';
 import { caseCommentCreate, caseCompareQuery, caseCreate, caseRevisionCreate, caseDerive, caseExportQuery, caseListQuery, caseUpdate } from '../../shared/api/cases';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
-import { requireUser, signedIn } from '../auth/middleware';
+import { requireUser, signedIn, workspaceAccess } from '../auth/middleware';
 import { caseFor, missionForCases } from '../cases/case-access';
 import { createCustomCase, deriveCases } from '../cases/case-derivation';
 import { caseExportCsv, caseExportJson } from '../cases/case-export';
+import { workspaceOverview } from '../cases/case-overview';
 import { commentOnCase, newRevision, releaseCase, requireReviewer, returnCase, setSubscription, submitCase, updateCase } from '../cases/case-lifecycle';
 import { commentsOf, compareCases, listCases, toDetail } from '../cases/case-views';
 import { badRequest, parse } from '../errors';
@@ -38,6 +39,12 @@ export function caseRoutes(ctx: AppContext): Router {
   router.get('/cases', requireUser, (req, res) => {
     const filter = parse(caseListQuery, req.query);
     res.json({ items: listCases(ctx, me(req).id, filter) });
+  });
+
+  router.get('/workspaces/:workspaceId/overview', workspaceAccess(ctx, ['owner', 'analyst', 'thermal', 'viewer']), (req, res) => {
+    const membership = req.membership;
+    if (!membership) throw new Error('workspaceAccess sets the membership');
+    res.json(workspaceOverview(ctx, me(req).id, membership.workspaceId, membership.role));
   });
 
   router.get('/cases/:id', requireUser, (req, res) => {

@@ -18,6 +18,7 @@
 //   GET    cases/:id/compare?with=otherId   -> caseComparison
 //   POST   cases/:id/subscription           -> {subscribed: true}    DELETE -> {subscribed: false}
 //   GET    cases/:id/export?format=json|csv -> the case as a file (caseExport for JSON)
+//   GET    workspaces/:workspaceId/overview -> workspaceOverview (what needs the caller; members only, else 404)
 //   GET    schemas/load-case.json           -> the JSON Schema of caseExport
 //   GET    openapi.json                     -> the whole API in OpenAPI 3
 import { z } from 'zod';
@@ -194,6 +195,19 @@ export const caseDetail = caseSummary.extend({
 });
 
 export const caseList = z.object({ items: z.array(caseSummary) });
+
+/**
+ * What needs the caller in one workspace (GET workspaces/:workspaceId/overview): cases in review by
+ * someone else that the caller may release, the caller's drafts a reviewer returned (with the
+ * reviewer's comment), the newest revisions of the cases the caller follows, and released cases whose
+ * mission inputs changed since. Viewers see released and superseded revisions only, as in the list.
+ */
+export const workspaceOverview = z.object({
+  waitingForReview: z.array(caseSummary),
+  returnedToMe: z.array(z.object({ case: caseSummary, comment: caseComment })),
+  followed: z.array(caseSummary).describe('the newest revisions of followed cases, newest change first, at most 10'),
+  stale: z.array(caseSummary),
+});
 export const derivedCases = z.object({ items: z.array(caseDetail) });
 export const subscriptionState = z.object({ subscribed: z.boolean() });
 
@@ -265,3 +279,4 @@ export type CaseActionName = (typeof caseActionNames)[number];
 export type CaseComparison = z.infer<typeof caseComparison>;
 export type CaseExport = z.infer<typeof caseExport>;
 export type CaseExportCase = z.infer<typeof caseExportCase>;
+export type WorkspaceOverview = z.infer<typeof workspaceOverview>;

@@ -40,6 +40,7 @@ const rules: Record<string, string> = {
   'GET /api/v1/workspaces/:workspaceId/members': '401 ok ok ok ok ok 404',
   'PATCH /api/v1/workspaces/:workspaceId/members/:userId': '401 ok 403 403 403 403 404',
   'DELETE /api/v1/workspaces/:workspaceId/members/:userId': '401 ok 403 403 403 403 404',
+  'GET /api/v1/workspaces/:workspaceId/overview': '401 ok ok ok ok ok 404',
   'GET /api/v1/workspaces/:workspaceId/audit': '401 ok 403 403 403 ok 404',
   'GET /api/v1/workspaces/:workspaceId/invitations': '401 ok 403 403 403 ok 404',
   'POST /api/v1/workspaces/:workspaceId/invitations': '401 ok 403 403 403 403 404',

@@ -2,7 +2,7 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import type { CaseStatus } from '../../../shared/api/case-content';
-import type { CaseComment, CaseComparison, CaseCreate, CaseDerive, CaseDetail, CaseSummary, CaseUpdate } from '../../../shared/api/cases';
+import type { CaseComment, CaseComparison, CaseCreate, CaseDerive, CaseDetail, CaseSummary, CaseUpdate, WorkspaceOverview } from '../../../shared/api/cases';
 import type { Mission, MissionDetail } from '../../../shared/api/missions';
 import { apiPath } from '../api/api-path';
 
@@ -21,6 +21,11 @@ export class CaseApi {
     if (filter.missionId) params = params.set('missionId', filter.missionId);
     if (filter.status) params = params.set('status', filter.status);
     return this.http.get<{ items: CaseSummary[] }>(apiPath('cases'), { params }).pipe(map((r) => r.items));
+  }
+
+  /** What needs the caller in a workspace: reviews, returned drafts, followed cases, stale releases. */
+  overview(workspaceId: string): Observable<WorkspaceOverview> {
+    return this.http.get<WorkspaceOverview>(apiPath('workspaces', workspaceId, 'overview'));
   }
 
   get(caseId: string): Observable<CaseDetail> {

@@ -1,5 +1,5 @@
 import type { CaseComparison } from '../../../shared/api/cases';
-import { comparisonRows } from './case-comparison-page';
+import { comparisonRows, loadDifferenceRows } from './case-comparison-page';
 import { sampleCase } from './sample-case';
 
 describe('comparisonRows', () => {
@@ -55,5 +55,25 @@ describe('comparisonRows with margins', () => {
     // sampleCase gives 42.5 W with margin per surface and 85 W in total.
     expect(rows.surfaces[0].rows.at(-1)).toMatchObject({ label: 'Absorbed with margin, orbit average', a: '42.50 W', b: '44.20 W', changed: true });
     expect(rows.totals.map((t) => [t.changed, t.difference?.absolute])).toEqual([[false, '0.00 W'], [true, '+3.40 W']]);
+  });
+});
+
+describe('loadDifferenceRows', () => {
+  it('gives per surface the orbit-average and peak absorbed differences new − old, null where a case has none (common practice, no source)', () => {
+    const comparison: CaseComparison = {
+      a: sampleCase({ revision: 1, status: 'superseded' }),
+      b: sampleCase({ id: 'case-2', revision: 2, status: 'released' }),
+      inputs: [],
+      surfaces: [
+        { name: 'Radiator', solarW: null, albedoW: null, irW: null, absorbedW: { a: 34, b: 30.6, difference: 30.6 - 34 }, peakAbsorbedW: { a: 50, b: 62, difference: 12 } },
+        { name: 'Antenna', solarW: null, albedoW: null, irW: null, absorbedW: null, peakAbsorbedW: null },
+      ],
+      total: { orbitAverageAbsorbedW: { a: 68, b: 68, difference: 0 } },
+    };
+    const rows = loadDifferenceRows(comparison);
+    expect(rows.map((r) => r.label)).toEqual(['Radiator', 'Antenna']);
+    expect(rows[0]!.values[0]).toBeCloseTo(-3.4, 10);
+    expect(rows[0]!.values[1]).toBe(12);
+    expect(rows[1]!.values).toEqual([null, null]);
   });
 });

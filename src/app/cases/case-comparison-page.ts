@@ -7,6 +7,7 @@ import { catchError, combineLatest, forkJoin, of, switchMap } from 'rxjs';
 import type { CaseResultsContent } from '../../../shared/api/case-content';
 import type { CaseComparison } from '../../../shared/api/cases';
 import { loaded } from '../api/loaded';
+import { DifferenceBarPlot, type DifferenceRow, type DifferenceSeries } from '../plots/difference-bar-plot';
 import { DesignCaution } from '../shell/design-caution';
 import { CaseApi } from './case-api';
 import { formatDifference, formatInputValue, formatQuantity, inputDifference, type Compared, type DifferenceText, derivedPath, labelOfPath } from './case-differences';
@@ -78,10 +79,20 @@ export function comparisonRows(c: CaseComparison, margined: MarginedResults | nu
   };
 }
 
+const LOAD_DIFFERENCE_SERIES: readonly DifferenceSeries[] = [
+  { name: 'Absorbed, orbit average', color: '--ecl-absorbed' },
+  { name: 'Absorbed, peak', color: '--ecl-accent' },
+];
+
+/** Per surface, the orbit-average and peak absorbed load differences (B − A, new − old); null for a surface in one case only. */
+export function loadDifferenceRows(c: CaseComparison): DifferenceRow[] {
+  return c.surfaces.map((s) => ({ label: s.name, values: [s.absorbedW?.difference ?? null, s.peakAbsorbedW?.difference ?? null] }));
+}
+
 /** Two cases side by side: inputs and per-surface orbit averages, B minus A, in the unit and in percent of A. */
 @Component({
   selector: 'ecl-case-comparison-page',
-  imports: [UtcTimePipe, NgTemplateOutlet, RouterLink, MatIcon, DesignCaution, CaseKindLabel, CaseStatusChip],
+  imports: [UtcTimePipe, NgTemplateOutlet, RouterLink, MatIcon, DesignCaution, CaseKindLabel, CaseStatusChip, DifferenceBarPlot],
   templateUrl: './case-comparison-page.html',
   styleUrl: './case-comparison-page.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -108,6 +119,12 @@ export class CaseComparisonPage {
   protected asRows(rows: unknown): readonly Row[] {
     return Array.isArray(rows) ? (rows as Row[]) : [];
   }
+
+  protected readonly loadSeries = LOAD_DIFFERENCE_SERIES;
+  protected readonly loadDifferences = computed(() => {
+    const s = this.state();
+    return s.status === 'ready' ? loadDifferenceRows(s.value) : [];
+  });
 
   protected readonly rows = computed(() => {
     const s = this.state();
