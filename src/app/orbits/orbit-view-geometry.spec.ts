@@ -46,6 +46,8 @@ describe('orbit view geometry', () => {
     expect(sunAzimuth(profile).deg).toBeCloseTo(240, 6);
     // no shadow: the given fallback, flagged as not read from the shadow
     expect(sunAzimuth(profile.map((p) => ({ ...p, sunlit: 1 })), -30)).toEqual({ deg: 330, fromShadow: false });
+    // a planet's shadow (a moon orbiter) says nothing of the Sun's place along the orbit
+    expect(sunAzimuth(profile.map((p) => ({ ...p, parentSunlit: p.sunlit })), 45)).toEqual({ deg: 45, fromShadow: false });
   });
 
   it('the shadow in the orbit plane reaches R / sin β behind the body, and is a strip of width 2R at β = 0 (closed form)', () => {

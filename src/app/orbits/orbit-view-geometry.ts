@@ -36,11 +36,12 @@ export interface SunAzimuth {
 /**
  * Where the Sun lies along the orbit: opposite the middle of the shadow arc (exact on a circular
  * orbit, where the shadow is symmetric about the anti-Sun line; close on an eccentric one). Without
- * any shaded sample the answer does not fix it; `fallbackDeg` (e.g. the ascending node, where the
+ * any sample in the body's own shadow (a planet's shadow says nothing of it) the answer does not fix it; `fallbackDeg` (e.g. the ascending node, where the
  * computation puts the Sun when it has only a beta) is used.
  */
 export function sunAzimuth(profile: Profile, fallbackDeg = 0): SunAzimuth {
-  const shaded = profile.filter((p) => p.sunlit < 1);
+  // only the body's own shadow tells where the Sun is; a planet's shadow falls wherever the moon is
+  const shaded = profile.filter((p) => p.sunlit < 1 && (p.parentSunlit ?? 1) >= 1);
   if (shaded.length === 0 || shaded.length === profile.length) return { deg: normalizeDeg(fallbackDeg), fromShadow: false };
   // circular mean of the shaded directions, weighted by how much of the Sun is hidden
   let sx = 0;

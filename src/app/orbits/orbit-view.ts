@@ -72,11 +72,14 @@ export class OrbitView {
       shadow: pathThrough(shadowOutline(R, a.betaDeg, this.sun().deg, reachKm).map(toPx), true),
       arcs: shadedArcs(a.profile, a.semiMajorAxisKm, a.eccentricity).map((arc) => ({ kind: arc.kind, d: pathThrough(arc.points.map(toPx)) })),
       periapsis,
-      // the label stands outside the orbit, on the far side from the body
+      // the label stands outside the orbit, on the far side from the body, kept inside the frame
       periapsisLabel: (() => {
         const [dx, dy] = [periapsis.x - centre.x, periapsis.y - centre.y];
         const len = Math.hypot(dx, dy) || 1;
-        return { x: periapsis.x + (dx / len) * 14, y: periapsis.y + (dy / len) * 14 + 4, anchor: dx < -1 ? 'end' : dx > 1 ? 'start' : 'middle' };
+        const x = periapsis.x + (dx / len) * 14;
+        const anchor = x > SIZE * 0.7 ? 'end' : x < SIZE * 0.3 ? 'start' : 'middle';
+        const y = Math.min(SIZE - 6, Math.max(14, periapsis.y + (dy / len) * 14 + 4 + (anchor === 'middle' ? 0 : dy >= 0 ? 12 : -12)));
+        return { x: Math.min(SIZE - 6, Math.max(6, x)), y, anchor };
       })(),
     };
   });
