@@ -15,7 +15,7 @@ import {
 } from './orbit-view-geometry';
 
 const SIZE = 360;
-const PAD = 28;
+const PAD = 40;
 const KIND_WORDS = { sunlit: 'in sunlight', eclipse: 'in eclipse' } as const;
 
 @Component({
@@ -79,6 +79,8 @@ export class OrbitView {
         const x = periapsis.x + (dx / len) * 14;
         const anchor = x > SIZE * 0.7 ? 'end' : x < SIZE * 0.3 ? 'start' : 'middle';
         const y = Math.min(SIZE - 6, Math.max(14, periapsis.y + (dy / len) * 14 + 4 + (anchor === 'middle' ? 0 : dy >= 0 ? 12 : -12)));
+        // beside the Sun's pointer (left, mid-height) the label goes below the marker
+        if (x < SIZE * 0.3 && Math.abs(periapsis.y - SIZE / 2) < 24) return { x: periapsis.x + 6, y: periapsis.y + 20, anchor: 'start' };
         return { x: Math.min(SIZE - 6, Math.max(6, x)), y, anchor };
       })(),
     };
