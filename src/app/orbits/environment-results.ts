@@ -15,11 +15,13 @@ import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { absorbedSeries, bodyName, eclipseBands, fluxSeries, profileCsvColumns } from './environment-plot-data';
 import { DurationPipe } from '../time/duration-pipe';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
+import { OrbitView } from './orbit-view';
+import { nearestIndex } from '../plots/plot-scales';
 
 /** One saved orbit's environment with the mission's surfaces: figures, plots around the orbit, averages. */
 @Component({
   selector: 'ecl-environment-results',
-  imports: [DurationPipe, SourceWordsPipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot],
+  imports: [DurationPipe, SourceWordsPipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot, OrbitView],
   templateUrl: './environment-results.html',
   styleUrl: './environment-results.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,6 +36,8 @@ export class EnvironmentResults {
 
   protected readonly properties = signal<PropertySet>('bol');
   protected readonly surfaceIndex = signal(0);
+  /** The profile sample the orbit view's spacecraft stands at and the plots' cursor reads. */
+  protected readonly sampleIndex = signal<number | null>(null);
 
   // Anything that changes the answer: the orbit, the surfaces (and their materials) and BOL/EOL.
   private readonly request = computed(() => ({
@@ -77,6 +81,21 @@ export class EnvironmentResults {
   });
 
   protected readonly fileStem = computed(() => `${this.mission().name}-${this.orbit().name}-${this.properties()}`.replace(/[^A-Za-z0-9._-]+/g, '-'));
+
+  /** The plots' cursor follows the orbit view's scrubber (minutes from periapsis, the plots' x), once it has been moved. */
+  protected readonly cursorMinutes = computed(() => {
+    const i = this.sampleIndex();
+    const p = i === null ? undefined : this.answer()?.profile[i];
+    return p ? p.tS / 60 : null;
+  });
+
+  /** The orbit view follows a plot's cursor; when the cursor is hidden the spacecraft stays put. */
+  protected followPlot(minutes: number | null): void {
+    const profile = this.answer()?.profile;
+    if (minutes === null || !profile) return;
+    const i = nearestIndex(profile.map((p) => ({ x: p.tS / 60, y: 0 })), minutes);
+    if (i >= 0) this.sampleIndex.set(i);
+  }
 
   protected setProperties(value: PropertySet): void {
     this.properties.set(value);

@@ -106,6 +106,20 @@ describe('TimeSeriesPlot', () => {
     expect(lines(el)).toEqual(['solar', 'albedo', 'ir']);
   });
 
+  it('shows the cursor at an x set from outside and reports the x the user moves it to (linked views)', async () => {
+    const { fixture, el } = await render({ series: threeSeries, xUnit: 'min', cursorAt: 30 });
+    expect(tooltip(el)?.querySelector('.ecl-plot-tooltip-x')?.textContent?.trim()).toBe('30 min');
+    const moved: (number | null)[] = [];
+    fixture.componentInstance.cursorChange.subscribe((x) => moved.push(x));
+    await press(fixture, 'ArrowRight');
+    expect(moved).toEqual([40]);
+    expect(tooltip(el)?.querySelector('.ecl-plot-tooltip-x')?.textContent?.trim()).toBe('40 min');
+    await press(fixture, 'Escape');
+    expect(moved).toEqual([40, null]);
+    // with the user's own cursor hidden, the outside x shows again
+    expect(tooltip(el)?.querySelector('.ecl-plot-tooltip-x')?.textContent?.trim()).toBe('30 min');
+  });
+
   it('moves the read-out cursor with the arrow keys and lists every visible series with units', async () => {
     const { fixture, el } = await render({ series: threeSeries, xUnit: 'min' });
     expect(tooltip(el)).toBeNull();

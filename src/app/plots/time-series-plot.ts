@@ -2,7 +2,7 @@
 // temperatures, beta angle over the mission. Bands shade eclipses, limit lines mark hot and cold
 // limits, the legend toggles series, and a cursor reads values by pointer or arrow keys.
 import { DOCUMENT } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { buildResultCsv, downloadCsv } from './csv-download';
 import { cssColor } from './plot-colors';
@@ -41,11 +41,19 @@ export class TimeSeriesPlot {
   readonly gutters = input<PlotGutters>({});
   /** When set, a "Download CSV" button saves every sample under this file name. */
   readonly csvFileName = input('');
+  /**
+   * An x another view points at (e.g. the orbit view's scrubber): the cursor shows there while the
+   * pointer is not over the plot. Null (the default) leaves the cursor to the pointer and keys alone.
+   */
+  readonly cursorAt = input<number | null>(null);
+  /** The x the user put the cursor on by pointer or keys (a sample's x), null when they hid it. */
+  readonly cursorChange = output<number | null>();
 
   private readonly document = inject(DOCUMENT);
   private readonly width = observePlotWidth();
   private readonly hidden = signal<ReadonlySet<string>>(new Set());
-  private readonly cursorX = signal<number | null>(null);
+  private readonly ownCursorX = signal<number | null>(null);
+  private readonly cursorX = computed(() => this.ownCursorX() ?? this.cursorAt());
   protected readonly showTable = signal(false);
   protected readonly announcement = signal('');
   protected readonly clipId = `ecl-plot-clip-${nextPlotId}`;
@@ -154,17 +162,17 @@ export class TimeSeriesPlot {
     const layout = this.layout();
     const px = event.clientX - target.getBoundingClientRect().left - layout.margin.left;
     if (px < 0 || px > layout.innerWidth) {
-      this.cursorX.set(null);
+      this.setCursor(null);
       return;
     }
     const x = layout.x.fromPx(px);
     const primary = this.primaryPoints();
     const i = nearestIndex(primary, x);
-    this.cursorX.set(i < 0 ? x : primary[i].x);
+    this.setCursor(i < 0 ? x : primary[i].x);
   }
 
   protected hideCursor(): void {
-    this.cursorX.set(null);
+    this.setCursor(null);
   }
 
   /** Arrows step about one pixel column (Shift: ten), Home/End jump to the ends, Escape hides. */
@@ -191,15 +199,21 @@ export class TimeSeriesPlot {
         next = n - 1;
         break;
       case 'Escape':
-        this.cursorX.set(null);
+        this.setCursor(null);
         return;
       default:
         return;
     }
     event.preventDefault();
-    this.cursorX.set(points[next].x);
+    this.setCursor(points[next].x);
     const x = points[next].x;
     this.announcement.set(readoutSentence(readoutAt(this.visibleSeries(), x, this.xKind(), this.xUnit())));
+  }
+
+  private setCursor(x: number | null): void {
+    if (x === this.ownCursorX()) return;
+    this.ownCursorX.set(x);
+    this.cursorChange.emit(x);
   }
 
   /** The cursor snaps to the samples of the first visible series. */
