@@ -155,6 +155,8 @@ test('derive, review, release, export and compare a load case', async ({ browser
     await expect(margin).toContainText('30.0 %');
     await expect(margin).toContainText('+5.0 percentage points');
     await expect(owner.getByTestId('compare-total').filter({ hasText: 'with margin' })).toContainText('changed');
+    // Revision 2's larger margin gives the larger load with margin: B − A is positive.
+    await expect(owner.getByTestId('compare-total').filter({ hasText: 'with margin' })).toContainText('+');
     await tallScreenshot(owner, 'cases-comparison', 2600);
   });
 });

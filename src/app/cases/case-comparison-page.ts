@@ -129,6 +129,11 @@ export class CaseComparisonPage {
   protected readonly rows = computed(() => {
     const s = this.state();
     const d = this.details();
-    return s.status === 'ready' ? comparisonRows(s.value, d ? { a: d[0].results, b: d[1].results } : null) : null;
+    if (s.status !== 'ready') return null;
+    // The answer puts the older case at A whatever the address's order; the details follow it.
+    const byId = (id: string) => d?.find((x) => x.id === id)?.results;
+    const a = byId(s.value.a.id);
+    const b = byId(s.value.b.id);
+    return comparisonRows(s.value, a && b ? { a, b } : null);
   });
 }
