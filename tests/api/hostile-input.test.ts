@@ -5,28 +5,20 @@
 // every error has API.md's shape, nothing is written and Object.prototype stays as it was.
 // The route list comes from the app, so a new JSON route without a sample body fails here.
 import fc from 'fast-check';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { hostileBodies, hostileRequests, probe, startProbeScene, type Client, type ProbeScene } from './hostile-bodies';
-import { concretePath, jsonRoutes, routeKey, sampleBody, validatesBody, type Scene } from './route-samples';
-import type { TestApp } from './test-app';
+import { describe, expect, it } from 'vitest';
+import { hostileBodies, hostileRequests, probe } from './hostile-bodies';
+import { probeSceneForSuite } from './probe-scene-suite';
+import { concretePath, jsonRoutes, routeKey, sampleBody, validatesBody } from './route-samples';
 
 const runs = Number(process.env['ECLIPTA_HOSTILE_RUNS'] ?? 1000);
 
-let t: TestApp;
-let scene: Scene;
-let client: Client;
-let probing: ProbeScene;
-beforeAll(async () => {
-  probing = await startProbeScene();
-  ({ t, scene, client } = probing);
-}, 60_000);
-afterAll(() => probing.close());
+const suite = probeSceneForSuite();
 
 describe('hostile JSON bodies', () => {
   it('has a sample body for every JSON route the app answers', () => {
-    const keys = jsonRoutes(t.app).map(routeKey);
+    const keys = jsonRoutes(suite.t.app).map(routeKey);
     expect(keys.length).toBeGreaterThanOrEqual(30);
-    expect(keys.filter((k) => sampleBody(k, scene.ids) === undefined)).toEqual([]);
+    expect(keys.filter((k) => sampleBody(k, suite.scene.ids) === undefined)).toEqual([]);
   });
 
   it('the generator makes what it promises: __proto__ keys, 1e400, "NaN", long strings, deep nesting', () => {
@@ -46,23 +38,23 @@ describe('hostile JSON bodies', () => {
   });
 
   it('a well-formed sample still succeeds, so the refusals below are about the hostile parts', async () => {
-    const res = await client.send('POST', '/api/v1/units/convert', JSON.stringify(sampleBody('POST /api/v1/units/convert', scene.ids)), { cookie: scene.cookies['owner@kestrel.test'] ?? '' });
+    const res = await suite.client.send('POST', '/api/v1/units/convert', JSON.stringify(sampleBody('POST /api/v1/units/convert', suite.scene.ids)), { cookie: suite.scene.cookies['owner@kestrel.test'] ?? '' });
     expect(res.status).toBe(200);
   });
 });
 
 describe('every JSON route', () => {
   it(`answers ${runs} hostile bodies a route with a 4xx in API.md's shape and writes nothing`, async () => {
-    const owner = { cookie: scene.cookies['owner@kestrel.test'] ?? '' };
+    const owner = { cookie: suite.scene.cookies['owner@kestrel.test'] ?? '' };
     const failures: string[] = [];
-    for (const route of jsonRoutes(t.app)) {
+    for (const route of jsonRoutes(suite.t.app)) {
       const key = routeKey(route);
-      const target = { method: route.method, path: concretePath(route, scene.ids), headers: owner, validatesBody: validatesBody(key) };
+      const target = { method: route.method, path: concretePath(route, suite.scene.ids), headers: owner, validatesBody: validatesBody(key) };
       const started = Date.now();
       try {
         await fc.assert(
-          fc.asyncProperty(hostileRequests(sampleBody(key, scene.ids)), async (hostile) => {
-            const problem = await probe(client, t.ctx.sqlite, target, hostile);
+          fc.asyncProperty(hostileRequests(sampleBody(key, suite.scene.ids)), async (hostile) => {
+            const problem = await probe(suite.client, suite.t.ctx.sqlite, target, hostile);
             if (problem) throw new Error(problem);
           }),
           { numRuns: runs, seed: 42, endOnFailure: true },
@@ -71,13 +63,13 @@ describe('every JSON route', () => {
         failures.push(`${key}: ${err instanceof Error ? err.message.slice(0, 1500) : String(err)}`);
       }
       // The owner's session must outlive every route but sign-out (last), or later routes would only hear 401.
-      if (key !== 'POST /api/v1/auth/sign-out' && (await client.send('GET', '/api/v1/auth/me', '', owner)).status !== 200) {
+      if (key !== 'POST /api/v1/auth/sign-out' && (await suite.client.send('GET', '/api/v1/auth/me', '', owner)).status !== 200) {
         failures.push(`${key}: the owner's session ended, so the routes after it were not really tried`);
       }
       if (process.env['ECLIPTA_HOSTILE_TIMES']) console.log(`${key}: ${Date.now() - started} ms`);
     }
     expect(failures).toEqual([]);
     // The fuzz run's server log: no answer of 5xx, no unhandled error (issue 12, item 6).
-    expect(t.logLines.filter((line) => line.includes('"status":5') || line.includes('unhandled error'))).toEqual([]);
+    expect(suite.t.logLines.filter((line) => line.includes('"status":5') || line.includes('unhandled error'))).toEqual([]);
   }, 600_000);
 });

@@ -5,22 +5,13 @@
 // Deflate, gzip and br are RFC 1950/1952/7932; "415 for an encoding the server does not take" is
 // RFC 9110 §15.5.16. The rest is common practice, no source.
 import { brotliCompressSync, deflateSync, gzipSync } from 'node:zlib';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { errorBody } from '../../shared/api/errors';
 import { jsonDepthOver, MAX_JSON_DEPTH } from '../../server/json-body';
-import { startProbeScene, type Client, type ProbeScene } from './hostile-bodies';
-import { concretePath, jsonRoutes, routeKey, type Scene } from './route-samples';
-import type { TestApp } from './test-app';
+import { probeSceneForSuite } from './probe-scene-suite';
+import { concretePath, jsonRoutes, routeKey } from './route-samples';
 
-let t: TestApp;
-let scene: Scene;
-let client: Client;
-let probing: ProbeScene;
-beforeAll(async () => {
-  probing = await startProbeScene();
-  ({ t, scene, client } = probing);
-}, 60_000);
-afterAll(() => probing.close());
+const suite = probeSceneForSuite();
 
 const nested = (open: string, inner: string, close: string, depth: number) => open.repeat(depth) + inner + close.repeat(depth);
 
@@ -41,7 +32,7 @@ describe('the nesting depth of a JSON body', () => {
   });
 
   it(`over ${MAX_JSON_DEPTH} levels (5,000 and 50,000 as an attacker sends them) is 400 too_deep on every JSON route`, async () => {
-    const owner = { cookie: scene.cookies['owner@kestrel.test'] ?? '' };
+    const owner = { cookie: suite.scene.cookies['owner@kestrel.test'] ?? '' };
     const bodies = [
       nested('[', '', ']', 5000),
       nested('{"a":', '0', '}', 5000),
@@ -49,9 +40,9 @@ describe('the nesting depth of a JSON body', () => {
       nested('[', '', ']', MAX_JSON_DEPTH + 1),
     ];
     const wrong: string[] = [];
-    for (const route of jsonRoutes(t.app)) {
+    for (const route of jsonRoutes(suite.t.app)) {
       for (const body of bodies) {
-        const res = await client.send(route.method, concretePath(route, scene.ids), body, owner);
+        const res = await suite.client.send(route.method, concretePath(route, suite.scene.ids), body, owner);
         const answer = errorOf(res, routeKey(route));
         if (answer.status !== 400 || answer.code !== 'too_deep') wrong.push(`${routeKey(route)} (${body.length} characters): ${res.status} ${res.text.slice(0, 120)}`);
       }
@@ -60,20 +51,20 @@ describe('the nesting depth of a JSON body', () => {
   }, 120_000);
 
   it('up to the limit still reaches the route, whose schema answers', async () => {
-    const res = await client.send('POST', '/api/v1/auth/sign-in', `{"email":${nested('[', '"x"', ']', MAX_JSON_DEPTH - 1)},"password":"x"}`, {});
+    const res = await suite.client.send('POST', '/api/v1/auth/sign-in', `{"email":${nested('[', '"x"', ']', MAX_JSON_DEPTH - 1)},"password":"x"}`, {});
     expect(errorOf(res, 'sign-in')).toEqual({ status: 400, code: 'invalid_input' });
   });
 
   it('is checked on the decoded text of a UTF-16 body too', async () => {
     const body = Buffer.from(nested('[', '', ']', 5000), 'utf16le');
-    const res = await client.send('POST', '/api/v1/auth/sign-in', body, { 'content-type': 'application/json; charset=utf-16le' });
+    const res = await suite.client.send('POST', '/api/v1/auth/sign-in', body, { 'content-type': 'application/json; charset=utf-16le' });
     expect(errorOf(res, 'sign-in')).toEqual({ status: 400, code: 'too_deep' });
   });
 });
 
 describe('a Content-Encoding', () => {
   const signIn = JSON.stringify({ email: 'nobody@kestrel.test', password: 'not the password' });
-  const send = (body: string | Buffer, encoding: string) => client.send('POST', '/api/v1/auth/sign-in', body, { 'content-encoding': encoding });
+  const send = (body: string | Buffer, encoding: string) => suite.client.send('POST', '/api/v1/auth/sign-in', body, { 'content-encoding': encoding });
 
   it('gzip, deflate and br that decompress are read as the JSON inside (sign-in answers 401 to its wrong password)', async () => {
     for (const [name, compress] of [['gzip', gzipSync], ['deflate', deflateSync], ['br', brotliCompressSync]] as const) {
@@ -82,11 +73,11 @@ describe('a Content-Encoding', () => {
   });
 
   it('that the body does not follow (plain text, or cut short) is 400 invalid_encoding on every JSON route', async () => {
-    const owner = { cookie: scene.cookies['owner@kestrel.test'] ?? '' };
+    const owner = { cookie: suite.scene.cookies['owner@kestrel.test'] ?? '' };
     const wrong: string[] = [];
-    for (const route of jsonRoutes(t.app)) {
+    for (const route of jsonRoutes(suite.t.app)) {
       for (const [name, body] of [['gzip', signIn], ['deflate', signIn], ['br', signIn], ['gzip', gzipSync(signIn).subarray(0, 12)], ['br', brotliCompressSync(signIn).subarray(0, 5)]] as const) {
-        const res = await client.send(route.method, concretePath(route, scene.ids), body, { ...owner, 'content-encoding': name });
+        const res = await suite.client.send(route.method, concretePath(route, suite.scene.ids), body, { ...owner, 'content-encoding': name });
         const answer = errorOf(res, routeKey(route));
         if (answer.status !== 400 || answer.code !== 'invalid_encoding') wrong.push(`${routeKey(route)} ${name}: ${res.status} ${res.text.slice(0, 120)}`);
       }
@@ -103,13 +94,13 @@ describe('a Content-Encoding', () => {
   });
 
   it('a charset that is not Unicode is 415 unsupported_charset', async () => {
-    const res = await client.send('POST', '/api/v1/auth/sign-in', signIn, { 'content-type': 'application/json; charset=latin1' });
+    const res = await suite.client.send('POST', '/api/v1/auth/sign-in', signIn, { 'content-type': 'application/json; charset=latin1' });
     expect(errorOf(res, 'latin1')).toEqual({ status: 415, code: 'unsupported_charset' });
   });
 });
 
 describe('the server log of all the requests above', () => {
   it('holds no answer of 5xx and no unhandled error', () => {
-    expect(t.logLines.filter((line) => line.includes('"status":5') || line.includes('unhandled error'))).toEqual([]);
+    expect(suite.t.logLines.filter((line) => line.includes('"status":5') || line.includes('unhandled error'))).toEqual([]);
   });
 });
