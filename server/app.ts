@@ -19,6 +19,7 @@ import { invitationRoutes } from './routes/invitations';
 import { materialRoutes } from './routes/materials';
 import { missionRoutes } from './routes/missions';
 import { orbitRoutes } from './routes/orbits';
+import { phaseRoutes } from './routes/phases';
 import { surfaceRoutes } from './routes/surfaces';
 import { thermalRoutes } from './routes/thermal';
 import { thermalModelRoutes } from './routes/thermal-models';
@@ -39,6 +40,7 @@ export const featureRoutes: FeatureRoutes[] = [
   missionRoutes,
   orbitRoutes,
   surfaceRoutes,
+  phaseRoutes,
   materialRoutes,
   environmentTableRoutes,
   ephemerisRoutes,

@@ -10,11 +10,12 @@ import type { ApiRoute } from './api-route';
 import { caseApiRoutes } from './case-api-routes';
 import { foundationApiRoutes } from './foundation-api-routes';
 import { missionApiRoutes } from './mission-api-routes';
+import { phaseApiRoutes } from './phase-api-routes';
 import { physicsApiRoutes } from './physics-api-routes';
 import { thermalModelApiRoutes } from './thermal-model-api-routes';
 
 /** Every feature's routes; a new feature adds its list here. */
-export const apiRouteLists: ApiRoute[][] = [foundationApiRoutes, physicsApiRoutes, missionApiRoutes, caseApiRoutes, thermalModelApiRoutes];
+export const apiRouteLists: ApiRoute[][] = [foundationApiRoutes, physicsApiRoutes, missionApiRoutes, phaseApiRoutes, caseApiRoutes, thermalModelApiRoutes];
 
 export const allApiRoutes = (): ApiRoute[] => apiRouteLists.flat();
 

@@ -8,6 +8,7 @@ import type { CaseConditions, CaseResults, SurfaceDriver, ScanSummary } from '..
 import type { Margins } from '../physics/design-environment';
 import { samplings } from '../physics/orbit-sampling';
 import { surfaceNormal } from './missions';
+import { casePhase } from './phases';
 
 export const caseKinds = ['hot', 'cold', 'custom'] as const;
 export const caseStatuses = ['draft', 'review', 'released', 'superseded'] as const;
@@ -94,6 +95,17 @@ export const caseDecision = z.object({
   eclipseExtreme: dayFigures.extend({ eclipseDurationS: num, orbitAverageAbsorbedW: num }).nullable().describe('the day of the shortest (hot) or longest (cold) eclipse when it is another day'),
   pair: z.object({ albedo: num, olrWm2: num, source: z.string() }),
   properties: z.enum(propertySetValues),
+  phase: z
+    .object({
+      id: z.string(), name: z.string(), startDate: z.string(), endDate: z.string(), modeName: z.string(),
+      compared: z.array(z.object({ name: z.string(), orbitAverageAbsorbedW: num })).describe("every phase's own case of this kind, total orbit-average absorbed W without margin"),
+    })
+    .optional()
+    .describe('a mission flown in phases: the phase that drove this case'),
+  survival: z
+    .object({ nodes: z.array(z.object({ node: z.string(), dissipationW: num, phase: z.string() })) })
+    .optional()
+    .describe("a survival cold case: each thermal-model node's least dissipation over the phases (W) and the phase giving it; other nodes dissipate nothing, heaters only"),
 });
 
 export const caseInputs = z.object({
@@ -136,6 +148,7 @@ export const caseInputs = z.object({
   facts: z.array(z.string()).optional().describe('custom cases and cases from an ephemeris: how the case was set up, the rationale lines before the margins'),
   handEdited: z.array(z.string()).optional().describe('condition keys changed by hand since the case was made'),
   revisionReason: z.string().optional().describe('why this revision was made, as its author gave it'),
+  phase: casePhase.optional().describe("the mission phase this case was derived in: its dates, attitude mode and its nodes' dissipation, as they were"),
   /** Set when the case was computed along a window of an uploaded ephemeris rather than a Keplerian orbit. */
   ephemeris: z
     .object({

@@ -17,13 +17,10 @@ import { bodyIds } from '../physics/bodies';
 import type { DistancePointResult, StudyDistance } from '../physics/thermal-distance-study';
 import { lineText, multilineText } from './text';
 import { caseKinds, caseStatuses } from './case-content';
-import { conductiveCoupling, coolantLoop, dissipationSchedule, heater, radiativeCoupling, thermalNode, thermalSolveResponse, thermalSizeResponse } from './thermal';
+import { conductiveCoupling, coolantLoop, heater, radiativeCoupling, thermalNode, thermalSolveResponse, thermalSizeResponse, savedDissipation } from './thermal';
 
 const num = (label: string) => z.number({ message: `${label} must be a number` });
 const modelName = lineText(120, 'a model name has at most 120 characters').min(1, 'give the model a name');
-/** A constant (W) or an on/off schedule; per-step arrays belong to a case, not to a saved model. */
-const savedDissipation = (label: string) =>
-  z.union([num(label).min(0, `${label} cannot be negative`).max(1e7), dissipationSchedule], { message: `${label} is a number of W or an on/off schedule` });
 
 // The stateless node without the case's per-step load; the solve schema checks the rest on save.
 export const savedThermalNode = z

@@ -28,6 +28,10 @@ export const dissipationSchedule = z
   })
   .refine((s) => s.onS <= s.periodS, { path: ['onS'], message: 'onS cannot be longer than periodS' });
 
+/** A constant (W) or an on/off schedule; per-step arrays belong to a case, not to a saved model or a phase. */
+export const savedDissipation = (label: string) =>
+  z.union([num(label).min(0, `${label} cannot be negative`).max(1e7), dissipationSchedule], { message: `${label} is a number of W or an on/off schedule` });
+
 export const thermalNode = z
   .strictObject({
     name,

@@ -5,6 +5,7 @@
 // A new deciding factor is one more builder in factorBuilders.
 import type { CaseConditions, CaseResults } from './design-cases';
 import { opticalProperties, type CaseMaterial, type Margins, type PropertySet } from './design-environment';
+import type { PhaseDecision } from './phase-cases';
 
 /** What the derivation of a hot or cold case decided, kept with the case so its words can be rebuilt. */
 export interface CaseDecision {
@@ -22,6 +23,14 @@ export interface CaseDecision {
   /** About a moon (cold case): the mission's longest shadow the planet takes part in, which set the case's orbit. */
   shadow?: { durationS: number; date: string; start: string; castBy: string[] };
   properties: PropertySet;
+  /** A mission flown in phases: the phase whose case this is, and every phase's figure (phase-cases.ts). */
+  phase?: PhaseDecision | undefined;
+  /** A survival cold case: the dissipation each node keeps (the least any phase gives it), heaters only besides. */
+  survival?: SurvivalDecision | undefined;
+}
+
+export interface SurvivalDecision {
+  nodes: { node: string; dissipationW: number; phase: string }[];
 }
 
 /** The part of a stored case its words are built from. */
@@ -39,7 +48,7 @@ export interface CaseWhyRecord {
   handEdited?: string[] | undefined;
 }
 
-export type CaseFactorKey = 'sun' | 'shadow' | 'beta' | 'environment' | 'properties' | 'margins' | 'setup' | 'edited';
+export type CaseFactorKey = 'phase' | 'survival' | 'sun' | 'shadow' | 'beta' | 'environment' | 'properties' | 'margins' | 'setup' | 'edited';
 
 /** One deciding factor: a short headline figure, the full sentence and where its values come from. */
 export interface CaseFactor {
@@ -61,6 +70,29 @@ export const fixed = (x: number, digits = 1): string => {
 const f = fixed;
 const minutes = (s: number) => `${f(s / 60)} min`;
 const edited = (r: CaseWhyRecord, key: keyof CaseConditions) => (r.handEdited ?? []).includes(key);
+
+function phaseFactor(r: CaseWhyRecord): CaseFactor[] {
+  const p = r.decision?.phase;
+  if (!p) return [];
+  const hot = r.kind === 'hot';
+  const own = `${f(r.results.total.orbitAverageAbsorbedW)} W`;
+  const others = p.compared.filter((x) => x.name !== p.name);
+  const where = `${p.name} (${p.startDate} to ${p.endDate}, attitude mode ${p.modeName})`;
+  const text = others.length === 0
+    ? `phase ${where}: the only phase derived, ${own} orbit-average absorbed`
+    : `phase ${where} gives the ${hot ? 'largest' : 'smallest'} total orbit-average absorbed load of the mission's phases (${own}); ` +
+      others.map((x) => `${x.name} ${f(x.orbitAverageAbsorbedW)} W`).join(', ');
+  return [{ key: 'phase', title: 'Phase', figure: `${p.name} (${p.modeName})`, text, sources: [] }];
+}
+
+function survivalFactor(r: CaseWhyRecord): CaseFactor[] {
+  const s = r.decision?.survival;
+  if (!s) return [];
+  const total = s.nodes.reduce((sum, n) => sum + n.dissipationW, 0);
+  const listed = s.nodes.map((n) => `${n.node} ${f(n.dissipationW, 2)} W (${n.phase})`).join(', ');
+  const text = `survival cold: minimum dissipation with heaters only; each node keeps the least any phase gives it${listed ? `: ${listed}` : ''}; a node no phase names dissipates nothing`;
+  return [{ key: 'survival', title: 'Survival', figure: `${f(total, 1)} W dissipated, heaters only`, text, sources: [] }];
+}
 
 function sunFactor(r: CaseWhyRecord): CaseFactor[] {
   const c = r.conditions;
@@ -176,7 +208,7 @@ function editedFactor(r: CaseWhyRecord): CaseFactor[] {
 
 /** The builders, in the order the factors are shown; one more deciding factor is one more entry. */
 export const factorBuilders: ((r: CaseWhyRecord) => CaseFactor[])[] = [
-  sunFactor, shadowFactor, betaFactor, environmentFactor, propertyFactors, setupFactors, marginFactor, editedFactor,
+  phaseFactor, survivalFactor, sunFactor, shadowFactor, betaFactor, environmentFactor, propertyFactors, setupFactors, marginFactor, editedFactor,
 ];
 
 export const caseFactors = (r: CaseWhyRecord): CaseFactor[] => factorBuilders.flatMap((build) => build(r));

@@ -47,6 +47,19 @@ export interface MissionSweepRequest extends CapModelRequest {
   /** Override the body's nominal albedo and OLR (an OLR given for an airless body asks for the uniform model, as in the compute route). */
   albedo?: number | undefined;
   olrWm2?: number | undefined;
+  /**
+   * Other pointings of the same surfaces (same names, same order) over parts of the sweep: a
+   * mission's phases, each with its attitude mode. A row whose instant is in [fromMs, toMs) of a
+   * span takes that span's surfaces (the first span that holds it); a row in none the request's.
+   * The per-day geometry (Sun, node, shadow) is computed once per row whatever the span.
+   */
+  attitudeSpans?: readonly AttitudeSpan[] | undefined;
+}
+
+export interface AttitudeSpan {
+  fromMs: number;
+  toMs: number;
+  surfaces: readonly Surface[];
 }
 
 export interface MissionSweepRow {
@@ -72,6 +85,8 @@ export interface MissionSweepRow {
   longestShadowCastBy: BodyId[];
   /** When it starts (ISO 8601 UTC) for a shadow the planet takes part in; null for the body's own. */
   longestShadowStart: string | null;
+  /** The index of the attitude span the row's loads were computed in, null for the request's own surfaces. */
+  spanIndex: number | null;
 }
 
 export interface MissionSweepResult {
@@ -135,15 +150,19 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
 
   const grid = orbitGrid(orbit, body.radiusKm, steps);
   const scanGrid = steps >= SWEEP_SCAN_STEPS ? grid : orbitGrid(orbit, body.radiusKm, SWEEP_SCAN_STEPS);
-  const prepared = prepareSurfaces(surfaces, grid, body.radiusKm);
-  // IR depends only on the view factor, the same on every date: its orbit sum is computed once.
-  const irSums = prepared.map((p) => (p.normal === null ? Number.NaN : p.viewFactor.reduce((s, f) => s + f, 0)));
-  const constantViewFactor = constantViewFactors(prepared);
   const shade = gridShade(steps);
-  const solarSums = new Float64Array(prepared.length);
-  const albedoSums = new Float64Array(prepared.length);
-  const sunIrSums = new Float64Array(prepared.length);
-  const cap = needsCap(models) ? sweepCap(orbit, body.radiusKm, surfaces) : null;
+  // What each pointing needs for every date, made once per pointing the rows meet (index -1: the request's surfaces).
+  const pointings = new Map<number, Pointing>();
+  const spans = request.attitudeSpans ?? [];
+  const pointingAt = (ms: number): { index: number; set: Pointing } => {
+    const index = spans.findIndex((span) => ms >= span.fromMs && ms < span.toMs);
+    let set = pointings.get(index);
+    if (set === undefined) {
+      set = pointing(index < 0 ? surfaces : spans[index]!.surfaces, grid, orbit, body.radiusKm, needsCap(models));
+      pointings.set(index, set);
+    }
+    return { index, set };
+  };
   const rows: MissionSweepRow[] = new Array(rowCount);
   let minBeta = Infinity;
   let maxBeta = -Infinity;
@@ -153,6 +172,8 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
     const { sun, betaDeg, raanRad: raan, solarDistanceAu: distanceAu } = days.at(ms);
     const flux = solarFluxWm2(distanceAu);
     shadeGrid(grid, sun, shade);
+    const { index: spanIndex, set } = pointingAt(ms);
+    const { prepared, irSums, constantViewFactor, solarSums, albedoSums, sunIrSums, cap } = set;
     accumulate(prepared, grid, shade, sun.sw, body.radiusKm, constantViewFactor, solarSums, albedoSums, sunIrSums);
     const eclipse: EclipseSummary = scanGrid === grid
       ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm)
@@ -176,6 +197,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
       umbraDurationS: eclipse.umbraS, penumbraDurationS: eclipse.penumbraS, surfaces: loads,
       longestShadowS: longest.durationS, longestShadowCastBy: longest.castBy,
       longestShadowStart: longest.startMs === null ? null : new Date(longest.startMs).toISOString(),
+      spanIndex: spanIndex < 0 ? null : spanIndex,
     };
   }
   return {
@@ -188,6 +210,31 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
     maxBetaDeg: rowCount > 0 ? maxBeta : Number.NaN,
     models,
     assumptions: sweepAssumptions(models, rows[0].solarFluxWm2),
+  };
+}
+
+interface Pointing {
+  prepared: PreparedSurface[];
+  irSums: number[];
+  constantViewFactor: Float64Array;
+  solarSums: Float64Array;
+  albedoSums: Float64Array;
+  sunIrSums: Float64Array;
+  cap: ReturnType<typeof sweepCap> | null;
+}
+
+/** One pointing of the surfaces made ready for every date of the sweep. */
+function pointing(surfaces: readonly Surface[], grid: OrbitGrid, orbit: Orbit, bodyRadiusKm: number, withCap: boolean): Pointing {
+  const prepared = prepareSurfaces(surfaces, grid, bodyRadiusKm);
+  return {
+    prepared,
+    // IR depends only on the view factor, the same on every date: its orbit sum is computed once.
+    irSums: prepared.map((p) => (p.normal === null ? Number.NaN : p.viewFactor.reduce((s, f) => s + f, 0))),
+    constantViewFactor: constantViewFactors(prepared),
+    solarSums: new Float64Array(prepared.length),
+    albedoSums: new Float64Array(prepared.length),
+    sunIrSums: new Float64Array(prepared.length),
+    cap: withCap ? sweepCap(orbit, bodyRadiusKm, surfaces) : null,
   };
 }
 
