@@ -7,7 +7,8 @@ import type { CaseInputs } from '../../shared/api/case-content';
 import type { Db } from '../db/database';
 import { missions, orbits, type LoadCaseRow } from '../db/schema';
 import { canonicalJson } from './canonical-json';
-import { missionInputs, surfaceSnapshot } from './case-derivation';
+import { missionInputs, surfaceSnapshotWithIds } from './case-derivation';
+import { flownPhases, normalsInMode } from '../missions/phase-pointing';
 
 const same = (a: unknown, b: unknown) => canonicalJson(a) === canonicalJson(b);
 
@@ -35,12 +36,30 @@ export function inputChanges(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'input
       for (const [key, label, unit] of fields) out.push(changed(`orbit "${i.orbit.name}" ${label}`, i.orbit[key], orbit[key], unit));
     }
   }
-  let current: ReturnType<typeof surfaceSnapshot>;
+  let listed: ReturnType<typeof surfaceSnapshotWithIds>;
   try {
-    current = surfaceSnapshot(db, mission);
+    listed = surfaceSnapshotWithIds(db, mission);
   } catch {
     // The mission has no surfaces left (422 when deriving); every surface of the case was removed.
-    current = [];
+    listed = [];
+  }
+  let current = listed.map((x) => x.surface);
+  if (i.phase) {
+    // A phase's case: its phase's dates, dissipation and mode now, and the surfaces pointed by that mode.
+    const phaseNow = flownPhases(db, mission).find((f) => f.phase.id === i.phase!.id);
+    if (!phaseNow) out.push(`phase "${i.phase.name}" was deleted`);
+    else {
+      const p = phaseNow.phase;
+      out.push(changed(`phase "${i.phase.name}" start`, i.phase.startDate, p.startDate), changed(`phase "${i.phase.name}" end`, i.phase.endDate, p.endDate));
+      if (phaseNow.mode.id !== i.phase.mode.id) out.push(`phase "${i.phase.name}" attitude mode: ${i.phase.mode.name} -> ${phaseNow.mode.name}`);
+      if (!same(i.phase.dissipation, p.dissipation)) out.push(`phase "${i.phase.name}" dissipation changed`);
+      try {
+        const normals = normalsInMode(listed.map((x) => ({ id: x.id, name: x.surface.name, normal: x.surface.normal })), phaseNow.mode);
+        current = current.map((c, k) => ({ ...c, normal: normals[k]! }));
+      } catch {
+        out.push(`attitude mode "${phaseNow.mode.name}" can no longer be computed`);
+      }
+    }
   }
   const was = i.conditions.surfaces;
   for (const s of was) {

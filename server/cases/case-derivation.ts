@@ -4,10 +4,15 @@ import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { CaseCreateParsed, CaseDeriveParsed } from '../../shared/api/cases';
 import { whyRecordOf, type CaseInputs, type StoredConditions } from '../../shared/api/case-content';
-import { caseRationale } from '../../shared/physics/case-why';
+import { caseRationale, type SurvivalDecision } from '../../shared/physics/case-why';
+import type { PhaseDissipation } from '../../shared/api/phases';
+import { derivePhasedCases } from '../../shared/physics/phase-cases';
+import { casePhaseOf, flownPhases, normalsInMode, type FlownPhase } from '../missions/phase-pointing';
 import { surfaceNormal } from '../../shared/api/missions';
 import { getBody, solarDistanceRangeAu, type Body } from '../../shared/physics/bodies';
-import { ECCENTRIC_SAMPLING_FROM, caseModelAssumptions, deriveDesignCases, evaluateCase, type CaseConditions, type CaseSurface } from '../../shared/physics/design-cases';
+import {
+  ECCENTRIC_SAMPLING_FROM, caseModelAssumptions, deriveDesignCases, evaluateCase, type CaseConditions, type CaseSurface, type DerivedCase, type ScanSummary,
+} from '../../shared/physics/design-cases';
 import { designPairs, resolveMargins, type Margins } from '../../shared/physics/design-environment';
 import { raanOnDateRad, scanMission } from '../../shared/physics/design-scan';
 import { defineOrbit } from '../../shared/physics/orbit-definition';
@@ -18,7 +23,7 @@ import type { Db } from '../db/database';
 import { recordAudit } from '../audit/audit-log';
 import { environmentTableRowsOf } from '../environment/environment-table-store';
 import { loadCases, materials, orbits, surfaces, type LoadCaseRow, type MissionRow, type OrbitRow, type UserRow } from '../db/schema';
-import { notFound, unprocessable } from '../errors';
+import { badRequest, notFound, unprocessable } from '../errors';
 import { limitWork, MAX_CASE_SAMPLES } from '../work-limit';
 
 /** A case's assumptions: the fixed ones and the albedo, IR and sampling models its conditions use. */
@@ -37,6 +42,7 @@ export const attitudeText = (list: CaseSurface[]): string =>
 interface MissionSnapshot {
   orbit: OrbitRow;
   surfaces: CaseSurface[];
+  ids: string[];
 }
 
 /** A case's series hold steps × surfaces samples of each quantity: within what a load case may hold, or 413. */
@@ -48,13 +54,18 @@ export function limitCaseWork(steps: number, surfaceCount: number): void {
 function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string, steps: number): MissionSnapshot {
   const orbit = db.select().from(orbits).where(and(eq(orbits.id, orbitId), eq(orbits.missionId, mission.id))).get();
   if (!orbit) throw notFound(`The mission "${mission.name}" has no orbit with id ${JSON.stringify(orbitId.slice(0, 80))}.`);
-  const surfaces = surfaceSnapshot(db, mission);
-  limitCaseWork(steps, surfaces.length);
-  return { orbit, surfaces };
+  const listed = surfaceSnapshotWithIds(db, mission);
+  limitCaseWork(steps, listed.length);
+  return { orbit, surfaces: listed.map((s) => s.surface), ids: listed.map((s) => s.id) };
 }
 
 /** The mission's surfaces with their materials, as a case keeps them; 422 when there are none. */
 export function surfaceSnapshot(db: Pick<Db, 'select'>, mission: MissionRow): CaseSurface[] {
+  return surfaceSnapshotWithIds(db, mission).map((s) => s.surface);
+}
+
+/** surfaceSnapshot with each surface's id (attitude modes point surfaces by id). */
+export function surfaceSnapshotWithIds(db: Pick<Db, 'select'>, mission: MissionRow): { id: string; surface: CaseSurface }[] {
   const rows = db
     .select({ surface: surfaces, material: materials })
     .from(surfaces)
@@ -68,17 +79,20 @@ export function surfaceSnapshot(db: Pick<Db, 'select'>, mission: MissionRow): Ca
     ]);
   }
   return rows.map(({ surface, material }) => ({
-    name: surface.name,
-    // Stored as JSON text; checked against the contract's normals on the way out.
-    normal: surfaceNormal.parse(surface.normal),
-    areaM2: surface.areaM2,
-    material: {
-      name: material.name,
-      absorptivityBol: material.absorptivityBol,
-      emissivityBol: material.emissivityBol,
-      absorptivityEol: material.absorptivityEol,
-      emissivityEol: material.emissivityEol,
-      source: material.source,
+    id: surface.id,
+    surface: {
+      name: surface.name,
+      // Stored as JSON text; checked against the contract's normals on the way out.
+      normal: surfaceNormal.parse(surface.normal),
+      areaM2: surface.areaM2,
+      material: {
+        name: material.name,
+        absorptivityBol: material.absorptivityBol,
+        emissivityBol: material.emissivityBol,
+        absorptivityEol: material.absorptivityEol,
+        emissivityEol: material.emissivityEol,
+        source: material.source,
+      },
     },
   }));
 }
@@ -143,32 +157,56 @@ export function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: U
 
 export type DraftValues = Pick<LoadCaseRow, 'name' | 'kind' | 'inputs' | 'results'>;
 
-/** The hot and cold cases of a mission's orbit, ready to be saved (the seed saves them too). */
+/**
+ * The hot and cold cases of a mission's orbit, ready to be saved (the seed saves them too). A mission
+ * with phases is derived per phase (or in the one phase asked for) and each case names the phase
+ * that drove it; `survival` adds the survival cold case (the cold case's loads, minimum dissipation).
+ */
 export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {
-  const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId, input.steps);
+  const { orbit, surfaces: list, ids } = snapshotOf(db, mission, input.orbitId, input.steps);
   const margins: Margins = resolveMargins(input.margins);
   const pair = (p: { albedo: number; olrWm2: number; source: string } | undefined) => (p ? { ...p, provisional: false } : undefined);
   // the workspace's own table, where a row holds for the body and the orbit's inclination, over the built-in pairs
   const table = pairsFromTable(environmentTableRowsOf(db, mission.workspaceId), getBody(mission.bodyId), orbit.inclinationDeg, input.averagingTimeS);
-  const derivation = deriveDesignCases({
+  const common = {
     bodyId: mission.bodyId,
     orbit: canonicalOrbit(orbit),
     orbitEpoch: orbit.epoch,
-    startDate: mission.startDate,
-    endDate: mission.endDate,
-    surfaces: list,
     margins,
     properties: input.properties,
     environment: { hot: pair(input.environment?.hot) ?? table?.hot, cold: pair(input.environment?.cold) ?? table?.cold },
     steps: input.steps,
-  });
+  };
+  const flown = flownPhases(db, mission);
+  const phases = input.phaseId === undefined ? flown : flown.filter((f) => f.phase.id === input.phaseId);
+  if (input.phaseId !== undefined && phases.length === 0) {
+    throw badRequest(`phaseId: no phase ${JSON.stringify(input.phaseId.slice(0, 80))} in the mission "${mission.name}".`, [{ path: 'phaseId', message: `no phase ${JSON.stringify(input.phaseId.slice(0, 80))} in this mission` }]);
+  }
+  let derived: { c: DerivedCase; scan: ScanSummary; phase?: FlownPhase }[];
+  if (phases.length === 0) {
+    const derivation = deriveDesignCases({ ...common, startDate: mission.startDate, endDate: mission.endDate, surfaces: list });
+    derived = [derivation.hot, derivation.cold].map((c) => ({ c, scan: derivation.scan }));
+  } else {
+    const pointed = phases.map((f) => ({
+      id: f.phase.id, name: f.phase.name, startDate: f.phase.startDate, endDate: f.phase.endDate, modeName: f.mode.name,
+      surfaces: normalsInMode(list.map((s, i) => ({ id: ids[i]!, name: s.name, normal: s.normal })), f.mode).map((normal, i) => ({ ...list[i]!, normal })),
+    }));
+    const { hot, cold } = derivePhasedCases(common, pointed);
+    derived = [hot, cold].map((c) => ({ c, scan: c.scan, phase: phases[c.phaseIndex]! }));
+  }
+  if (input.survival) {
+    const cold = derived[1]!;
+    const decision = { ...cold.c.decision, survival: survivalDissipation(flown) };
+    const rationale = caseRationale({ kind: 'cold', bodyName: getBody(mission.bodyId).name, conditions: cold.c.conditions, results: cold.c.results, margins, decision });
+    derived.push({ ...cold, c: { ...cold.c, decision, rationale } });
+  }
   const prefix = input.name ?? `${mission.name} ${orbit.name}`;
-  return [derivation.hot, derivation.cold].map((c) => ({
-    name: `${prefix} ${c.kind}`,
+  return derived.map(({ c, scan, phase }) => ({
+    name: `${prefix} ${c.decision.survival ? 'survival cold' : c.kind}`,
     kind: c.kind,
     inputs: {
       ...baseInputs(mission, orbit),
-      attitude: attitudeText(list),
+      attitude: phase ? `phase "${phase.phase.name}", attitude mode "${phase.mode.name}"${phase.mode.yawSteering ? ' with yaw steering' : ''}: ${attitudeText(c.conditions.surfaces)}` : attitudeText(list),
       conditions: { ...c.conditions, orbit: canonicalOrbit(orbit) },
       environmentSource: c.environmentSource,
       provisional: c.provisional,
@@ -176,11 +214,32 @@ export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, i
       decision: c.decision,
       rationale: c.rationale,
       surfaceDrivers: c.surfaceDrivers,
-      scan: derivation.scan,
+      scan,
       assumptions: caseAssumptions(c.conditions),
+      ...(phase ? { phase: casePhaseOf(phase) } : {}),
     },
     results: c.results,
   }));
+}
+
+/** The least a dissipation gives over its cycle: a constant, or the lower of an on/off schedule's levels. */
+export function leastDissipationW(d: PhaseDissipation['dissipationW']): number {
+  if (typeof d === 'number') return d;
+  if (d.onS >= d.periodS) return d.onW;
+  return d.onS <= 0 ? (d.offW ?? 0) : Math.min(d.onW, d.offW ?? 0);
+}
+
+/** Survival: each node a phase names keeps the least any phase gives it (and that phase's name); other nodes none. */
+export function survivalDissipation(flown: readonly FlownPhase[]): SurvivalDecision {
+  const least = new Map<string, { node: string; dissipationW: number; phase: string }>();
+  for (const { phase } of flown) {
+    for (const d of phase.dissipation) {
+      const w = leastDissipationW(d.dissipationW);
+      const was = least.get(d.node);
+      if (!was || w < was.dissipationW) least.set(d.node, { node: d.node, dissipationW: w, phase: phase.name });
+    }
+  }
+  return { nodes: [...least.values()] };
 }
 
 /** Derives and saves the hot and cold drafts of a mission's orbit. */

@@ -53,7 +53,7 @@ const componentColumns = [
 /** The metadata columns, repeated on every row so each row stands alone (DEVELOPERS.md "Case CSV"). */
 const metaColumns = [
   'case', 'revision', 'status', 'checksum (sha256)', 'mission', 'body', 'orbit', 'case date (UTC)', 'beta (deg)', 'solar distance (AU)',
-  'property set', 'heat-load margin (%)',
+  'property set', 'heat-load margin (%)', 'phase', 'variant',
 ] as const;
 
 /** Every column of the case CSV, in order: what the export's documentation lists. */
@@ -77,7 +77,7 @@ export function caseExportCsv(ctx: AppContext, row: LoadCaseRow): { csv: string;
   const c = i.conditions;
   const meta = [
     doc.case.name, doc.case.revision, doc.status, doc.checksum, i.mission.name, i.body.name, i.orbit.name, c.date, rounded(r.betaDeg, 3),
-    rounded(c.solarDistanceAu, 6), c.properties.toUpperCase(), i.margins.heatLoadPercent,
+    rounded(c.solarDistanceAu, 6), c.properties.toUpperCase(), i.margins.heatLoadPercent, i.phase?.name ?? '', i.decision?.survival ? 'survival' : '',
   ];
   const line = (kind: string, step: number | null, t: number | null, sunlit: number | null, surface: string, loads: (number | null)[], withMargin: number | null) =>
     csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit, 4), surface, ...loads, rounded(withMargin, 3), doc.caution]);

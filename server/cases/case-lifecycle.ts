@@ -243,8 +243,11 @@ function derivedAgain(ctx: AppContext, row: LoadCaseRow): Pick<LoadCaseRow, 'inp
     orbitId: i.orbit.id, steps: i.conditions.steps,
     margins: { heatLoadPercent: i.margins.heatLoadPercent, temperatureMarginC: i.margins.temperatureMarginC },
     properties: { hot: i.conditions.properties, cold: i.conditions.properties },
+    // a phase's case is derived again in its phase; a survival case with its survival dissipation
+    ...(i.phase ? { phaseId: i.phase.id } : {}),
+    survival: i.decision?.survival !== undefined,
   });
-  const again = values.find((v) => v.kind === row.kind)!;
+  const again = values.find((v) => v.kind === row.kind && (v.inputs.decision?.survival !== undefined) === (i.decision?.survival !== undefined))!;
   return { inputs: again.inputs, results: again.results };
 }
 

@@ -4,7 +4,7 @@ import { and, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { CaseActionName, CaseComment, CaseComparison, CaseDetail, CaseSummary } from '../../shared/api/cases';
 import type { Role } from '../../shared/api/workspaces';
 import { memberRole } from '../auth/middleware';
-import type { CaseResultsContent } from '../../shared/api/case-content';
+import type { CaseInputs, CaseResultsContent } from '../../shared/api/case-content';
 import type { AppContext } from '../app-context';
 import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
@@ -39,8 +39,15 @@ export function toSummary(db: Db, row: LoadCaseRow): CaseSummary {
     orbitAverageAbsorbedW: row.results.total.orbitAverageAbsorbedW, betaDeg: row.results.betaDeg,
     version: row.version, createdAt: row.createdAt, updatedAt: row.updatedAt,
     inputsChanged: row.status !== 'superseded' && inputChanges(db, row).length > 0,
+    ...phaseOfCase(row.inputs),
   };
 }
+
+/** The phase that drove a case and its variant, as the lists show them. */
+export const phaseOfCase = (inputs: CaseInputs): Pick<CaseSummary, 'phase' | 'variant'> => ({
+  phase: inputs.phase?.name ?? null,
+  variant: inputs.decision?.survival ? 'survival' : null,
+});
 
 export function isSubscribed(db: Db, seriesId: string, userId: string): boolean {
   return !!db
@@ -166,6 +173,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
       orbitAverageAbsorbedW: Number(r.orbitAverageAbsorbedW), betaDeg: Number(r.betaDeg),
       inputsChanged: r.c.status !== 'superseded' && inputChanges(ctx.db, r.c).length > 0,
       version: r.c.version, createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
+      ...phaseOfCase(r.c.inputs),
     }));
 }
 

@@ -7,7 +7,7 @@ import type { CasePhase } from '../../shared/api/phases';
 import { pointedNormals } from '../../shared/physics/attitude-modes';
 import type { AttitudeModeRow, MissionPhaseRow, MissionRow } from '../db/schema';
 import { unprocessable } from '../errors';
-import type { DbLike } from './mission-access';
+import type { Db } from '../db/database';
 import { modeRowsOf, phaseRowsOf } from './phase-store';
 
 export interface FlownPhase {
@@ -18,7 +18,7 @@ export interface FlownPhase {
 const DAY_MS = 86_400_000;
 
 /** The mission's phases by start date, each with its mode. */
-export function flownPhases(db: DbLike, mission: MissionRow): FlownPhase[] {
+export function flownPhases(db: Pick<Db, 'select'>, mission: MissionRow): FlownPhase[] {
   const modes = new Map(modeRowsOf(db, mission.id).map((m) => [m.id, m]));
   return phaseRowsOf(db, mission.id).flatMap((phase) => {
     const mode = modes.get(phase.modeId);

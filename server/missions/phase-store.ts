@@ -53,10 +53,10 @@ export function toPhase(row: MissionPhaseRow, modeName: string): MissionPhase {
   };
 }
 
-export const modeRowsOf = (db: DbLike, missionId: string): AttitudeModeRow[] =>
+export const modeRowsOf = (db: Pick<Db, 'select'>, missionId: string): AttitudeModeRow[] =>
   db.select().from(attitudeModes).where(eq(attitudeModes.missionId, missionId)).orderBy(asc(attitudeModes.createdAt), sql`"attitude_modes".rowid`).all();
 
-export const phaseRowsOf = (db: DbLike, missionId: string): MissionPhaseRow[] =>
+export const phaseRowsOf = (db: Pick<Db, 'select'>, missionId: string): MissionPhaseRow[] =>
   db.select().from(missionPhases).where(eq(missionPhases.missionId, missionId)).orderBy(asc(missionPhases.startDate), asc(missionPhases.name)).all();
 
 export function listModes(db: Db, userId: string, missionId: string): AttitudeMode[] {

@@ -11,6 +11,7 @@ import type { MissionRow, OrbitRow } from '../db/schema';
 import { badRequest } from '../errors';
 import { limitWork } from '../work-limit';
 import { savedOrbitInput, type MissionSurface } from './saved-environment';
+import { normalsInMode, phaseSpanMs, type FlownPhase } from './phase-pointing';
 
 type SweepQuery = z.output<typeof sweepQuery>;
 
@@ -60,10 +61,22 @@ export function sweepAssumptions(mission: MissionRow, orbit: OrbitRow, plan: Swe
   return [...assumptions, CAUTION];
 }
 
-/** Computes days [first, first + count) of the plan; the caller decides how many to do between yields. */
-export function sweepChunkComputer(mission: MissionRow, orbit: OrbitRow, plan: SweepPlan, surfaces: readonly MissionSurface[]): (first: number, count: number) => SweepDay[] {
+/**
+ * Computes days [first, first + count) of the plan; the caller decides how many to do between yields.
+ * A day within a phase takes the surfaces as the phase's attitude mode points them (its row names
+ * the phase); a day in no phase the surfaces' own normals.
+ */
+export function sweepChunkComputer(
+  mission: MissionRow, orbit: OrbitRow, plan: SweepPlan, surfaces: readonly MissionSurface[], phases: readonly FlownPhase[] = [],
+): (first: number, count: number) => SweepDay[] {
   limitWork([{ name: 'days', count: plan.days }, { name: 'surfaces of the mission', count: surfaces.length }], 'stepDays', 'use a larger stepDays or a shorter range (from, to)');
   const physicsSurfaces = surfaces.map((s) => s.physics);
+  const labelled = surfaces.map((s) => ({ id: s.label.id, name: s.label.name, normal: s.physics.normal }));
+  // Each phase's pointing is checked and made once; the physics prepares it once per chunk that meets it.
+  const attitudeSpans = phases.map((f) => {
+    const normals = normalsInMode(labelled, f.mode);
+    return { ...phaseSpanMs(f.phase), surfaces: physicsSurfaces.map((s, i) => ({ ...s, normal: normals[i]! })) };
+  });
   return (first, count) => {
     const startDate = isoDay(dayMs(plan.from) + first * plan.stepDays * DAY_MS);
     const result = sweepMission({
@@ -75,6 +88,7 @@ export function sweepChunkComputer(mission: MissionRow, orbit: OrbitRow, plan: S
       stepDays: plan.stepDays,
       steps: SWEEP_STEPS,
       surfaces: physicsSurfaces,
+      attitudeSpans,
     });
     return result.rows.map((row, i) => ({
       type: 'day',
@@ -89,6 +103,7 @@ export function sweepChunkComputer(mission: MissionRow, orbit: OrbitRow, plan: S
       longestShadowS: row.longestShadowS,
       longestShadowCastBy: row.longestShadowCastBy,
       longestShadowStart: row.longestShadowStart,
+      phase: row.spanIndex === null ? null : (phases[row.spanIndex]?.phase.name ?? null),
     }));
   };
 }

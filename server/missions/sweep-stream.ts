@@ -18,6 +18,7 @@ export type SweepFormat = 'ndjson' | 'csv';
 export function csvHeader(surfaces: readonly MissionSurface[]): string {
   return csvRecord([
     'date (UTC, sampled 12:00)',
+    'phase',
     'beta (deg)',
     'eclipse fraction (0-1)',
     'eclipse duration (s)',
@@ -33,6 +34,7 @@ export function csvHeader(surfaces: readonly MissionSurface[]): string {
 const csvDay = (day: SweepDay, caution: string): string =>
   csvRecord([
     day.date,
+    day.phase ?? '',
     day.betaDeg,
     day.eclipseFraction,
     day.eclipseDurationS,
@@ -66,6 +68,8 @@ export interface SweepStream {
   crewed: boolean;
   computeDays: (first: number, count: number) => SweepDay[];
   assumptions: string[];
+  /** The mission's phases with their modes, named on the start line. */
+  phases?: { name: string; startDate: string; endDate: string; modeName: string }[];
 }
 
 const nextTurn = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
@@ -83,7 +87,7 @@ function drained(res: Response): Promise<void> {
   });
 }
 
-export async function streamSweep({ res, logger, plan, surfaces, format, fileName, crewed, computeDays, assumptions }: SweepStream): Promise<void> {
+export async function streamSweep({ res, logger, plan, surfaces, format, fileName, crewed, computeDays, assumptions, phases }: SweepStream): Promise<void> {
   // res 'close' fires when the connection ends, finished or not; req 'close' can fire as soon as
   // the (empty) request body has been read, so it would not tell a departed client apart.
   let gone = false;
@@ -99,7 +103,7 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
     res.write(csvHeader(surfaces));
   } else {
     res.type('application/x-ndjson; charset=utf-8');
-    res.write(ndjson({ type: 'start', days: plan.days, from: plan.from, to: plan.to, stepDays: plan.stepDays, assumptions }));
+    res.write(ndjson({ type: 'start', days: plan.days, from: plan.from, to: plan.to, stepDays: plan.stepDays, assumptions, ...(phases && phases.length > 0 ? { phases } : {}) }));
   }
   res.flush?.();
 

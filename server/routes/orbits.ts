@@ -13,6 +13,7 @@ import { missionSurfaces, savedEnvironment } from '../missions/saved-environment
 import { planSweep, sweepAssumptions, sweepChunkComputer } from '../missions/sweep-days';
 import { collectSweep, csvFileName, streamSweep } from '../missions/sweep-stream';
 import { pathParam } from '../path-param';
+import { flownPhases } from '../missions/phase-pointing';
 import { loadUnits } from '../missions/quantity-reader';
 
 export function orbitRoutes(ctx: AppContext): Router {
@@ -61,12 +62,14 @@ export function orbitRoutes(ctx: AppContext): Router {
     const plan = planSweep(mission, query);
     const surfaces = missionSurfaces(ctx.db, mission.id, query.properties);
     const form = answerForm(req, query.layout);
-    const computeDays = sweepChunkComputer(mission, orbit, plan, surfaces);
+    const flown = flownPhases(ctx.db, mission);
+    const computeDays = sweepChunkComputer(mission, orbit, plan, surfaces, flown);
+    const phases = flown.map(({ phase, mode }) => ({ name: phase.name, startDate: phase.startDate, endDate: phase.endDate, modeName: mode.name }));
     const assumptions = sweepAssumptions(mission, orbit, plan);
     if (form !== 'json') {
       // Columns or Arrow: the whole sweep at once (API.md "Answer formats"); the stream is the default.
       const series = await collectSweep(plan, computeDays);
-      const answer = { from: plan.from, to: plan.to, stepDays: plan.stepDays, days: plan.days, properties: query.properties, assumptions, series };
+      const answer = { from: plan.from, to: plan.to, stepDays: plan.stepDays, days: plan.days, properties: query.properties, assumptions, phases, series };
       await sendPerStep(res, form, { answer: () => answer, key: 'series', stepKey: 'date' });
       return;
     }
@@ -80,6 +83,7 @@ export function orbitRoutes(ctx: AppContext): Router {
       crewed: mission.crewed,
       computeDays,
       assumptions,
+      phases,
     });
   });
 

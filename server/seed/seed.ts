@@ -9,10 +9,11 @@ import { seedDemoTeam, type DemoTeam } from './demo';
 import { seedDemoMissions } from './missions-demo';
 import { seedDemoCases } from './cases-demo';
 import { seedDemoThermalModel } from './thermal-demo';
+import { seedDemoPhases } from './phases-demo';
 
 export type FeatureSeed = (tx: Tx, team: DemoTeam) => void;
 
-const featureSeeds: FeatureSeed[] = [seedDemoMissions, seedDemoCases, seedDemoThermalModel];
+const featureSeeds: FeatureSeed[] = [seedDemoMissions, seedDemoCases, seedDemoThermalModel, seedDemoPhases];
 
 /** Seeds the demo data when ECLIPTA_SEED=demo and there are no users yet; answers whether it did. */
 export async function seedDatabase(ctx: Pick<AppContext, 'db' | 'config' | 'logger'>): Promise<boolean> {

@@ -55,7 +55,17 @@ export function resampleByTime(values: readonly number[], tS: readonly number[],
   return Array.from({ length: n }, (_, k) => (integralTo((k + 0.5) * step) - integralTo((k - 0.5) * step)) / step);
 }
 
-function dissipationFor(node: SavedThermalNode, kind: LoadCaseRow['kind']): SavedThermalNode['dissipationW'] {
+/**
+ * A node's dissipation in a case: a survival case's least dissipation over the phases (0 W for a node
+ * no phase names: heaters only); in a phase's case, the phase's value where it names the node; else
+ * the model's own for the case's kind.
+ */
+function dissipationFor(node: SavedThermalNode, kase: LoadCaseRow): SavedThermalNode['dissipationW'] {
+  const survival = kase.inputs.decision?.survival;
+  if (survival) return survival.nodes.find((n) => n.node === node.name)?.dissipationW ?? 0;
+  const phased = kase.inputs.phase?.dissipation.find((d) => d.node === node.name);
+  if (phased) return phased.dissipationW;
+  const kind = kase.kind;
   if (kind === 'hot' && node.hotDissipationW !== undefined) return node.hotDissipationW;
   if (kind === 'cold' && node.coldDissipationW !== undefined) return node.coldDissipationW;
   return node.dissipationW;
@@ -65,6 +75,15 @@ function describeDissipation(d: SavedThermalNode['dissipationW']): string {
   if (d === undefined) return 'none';
   if (typeof d === 'number') return `${d} W`;
   return `${d.onW} W for ${d.onS} s every ${d.periodS} s${d.offW ? `, ${d.offW} W otherwise` : ''}`;
+}
+
+function dissipationAssumptions(kase: LoadCaseRow): string[] {
+  const phase = kase.inputs.phase;
+  if (kase.inputs.decision?.survival) {
+    return ['Survival: each node dissipates the least any mission phase gives it (0 W for a node no phase names); heaters as in the model.'];
+  }
+  if (phase) return [`Dissipation of phase "${phase.name}" (${phase.startDate} to ${phase.endDate}) for the nodes it names; other nodes take the model's own ${kase.kind} value.`];
+  return [];
 }
 
 /**
@@ -104,7 +123,7 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
     const fromSurfaces = !explicit && areaM2 > 0;
     const surfaceEmissivity = fromSurfaces ? round(owned.reduce((sum, s) => sum + s.areaM2 * s.emissivity, 0) / areaM2, 6) : null;
     const radiator = fromSurfaces ? { radiatorAreaM2: round(areaM2, 6), emissivity: surfaceEmissivity ?? 0 } : {};
-    const dissipationW = dissipationFor(node, kase.kind);
+    const dissipationW = dissipationFor(node, kase);
     nodeInputs.push({
       name: node.name,
       surfaces: owned.map((s) => s.name),
@@ -146,6 +165,7 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
       ? `Operating limits checked with the model's margin of ${operatingK} K.`
       : `Operating limits checked with the case's temperature margin of ${operatingK} K (the model sets none).`,
     'A node radiates to space through its surfaces (their area, their emissivity in the case) unless it names a radiator of its own.',
+    ...dissipationAssumptions(kase),
   ];
   return { request, nodes: nodeInputs, assumptions };
 }

@@ -53,6 +53,10 @@ export const caseDerive = z.strictObject({
   /** The item's thermal time constant: picks the averaging time of the workspace's environment table. */
   averagingTimeS: z.number({ message: 'averagingTimeS must be a number' }).positive('averagingTimeS must be above 0 s').max(1e7).optional(),
   steps: steps.default(120),
+  /** A mission with phases: derive in this phase only (its id) instead of choosing the worst phase for each case. */
+  phaseId: z.string().min(1, 'choose a phase').max(64).optional(),
+  /** Also save the survival cold case: the cold case's loads with each node's least dissipation over the phases, heaters only. */
+  survival: z.boolean().optional(),
 });
 
 /** A new revision: why it is made (shown in history, compare, exports and mail), and whether it is derived again from the mission's current inputs. */
@@ -161,6 +165,10 @@ export const caseSummary = z.object({
   updatedAt: z.string(),
   /** True when the mission's inputs (surfaces, materials, orbit, body, dates) changed since this revision was made (not said of superseded revisions). */
   inputsChanged: z.boolean(),
+  /** The mission phase that drove the case (its name), null for a case of a mission without phases or a custom one. */
+  phase: z.string().nullable(),
+  /** "survival" for a survival cold case (kind cold: minimum dissipation, heaters only), null otherwise. */
+  variant: z.enum(['survival']).nullable(),
 });
 
 export const caseActionNames = ['edit', 'submit', 'release', 'return', 'comment', 'newRevision'] as const;

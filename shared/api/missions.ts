@@ -211,6 +211,8 @@ export const sweepDay = z.object({
   longestShadowCastBy: z.array(z.string()),
   /** Its start (ISO 8601 UTC) when the planet takes part; null for the body's own shadow. */
   longestShadowStart: z.string().nullable(),
+  /** The mission phase the day is in (its attitude mode pointed the surfaces), null for a day in no phase. */
+  phase: z.string().nullable(),
 });
 
 export const sweepLine = z.discriminatedUnion('type', [
@@ -218,6 +220,8 @@ export const sweepLine = z.discriminatedUnion('type', [
     type: z.literal('start'), days: z.number(), from: z.string(), to: z.string(), stepDays: z.number(),
     /** The albedo and IR models used, in words, and the preliminary-design caution. */
     assumptions: z.array(z.string()).optional(),
+    /** The mission's phases the sweep's days fall in, with their attitude modes. */
+    phases: z.array(z.object({ name: z.string(), startDate: z.string(), endDate: z.string(), modeName: z.string() })).optional(),
   }),
   sweepDay,
   z.object({ type: z.literal('end'), days: z.number() }),

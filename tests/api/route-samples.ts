@@ -23,6 +23,8 @@ export interface SceneIds {
   reviewCaseId: string;
   releasedCaseId: string;
   thermalModelId: string | null;
+  modeId: string;
+  phaseId: string;
   tokenId: string;
   invitationId: string;
   invitationSecret: string;
@@ -111,6 +113,13 @@ export async function buildScene(t: TestApp): Promise<Scene> {
     expectStatus(await api.post(`/api/v1/thermal-models/${thermalModelId}/run`).set(owner).send({ caseId: releasedCaseId }), 200, 'thermal run');
   }
 
+  // An attitude mode and a phase of Kestrel-1, made last so the scene's cases above are derived without phases.
+  const mode = expectStatus(await api.post(`/api/v1/missions/${missionId}/attitude-modes`).set(owner).send({ name: 'Scene Sun safe', pointing: [{ surfaceId, normal: 'sun' }] }), 201, 'attitude mode');
+  const phase = expectStatus(
+    await api.post(`/api/v1/missions/${missionId}/phases`).set(owner).send({ name: 'Scene safe hold', startDate: '2027-04-01', endDate: '2027-04-05', modeId: mode['id'], dissipation: [{ node: 'bus', dissipationW: 5 }] }),
+    201, 'phase',
+  );
+
   const invitee = 'scene.invitee@kestrel.test';
   const invitation = expectStatus(await api.post(`/api/v1/workspaces/${workspaceId}/invitations`).set(owner).send({ email: invitee, role: 'viewer' }), 201, 'invitation');
   const mail = await t.waitForMail(invitee, '');
@@ -124,6 +133,8 @@ export async function buildScene(t: TestApp): Promise<Scene> {
       ploverWorkspaceId: workspaceIdOf(t, 'Plover'),
       viewerUserId: userIdOf(t, 'viewer@kestrel.test'),
       missionId, orbitId, surfaceId, releasedCaseId, thermalModelId,
+      modeId: String(mode['id']),
+      phaseId: String(phase['id']),
       materialId: String(material['id']),
       ephemerisId: String(ephemeris['id']),
       draftCaseId: hot,
@@ -163,6 +174,8 @@ export function concretePath(route: { method: string; path: string }, ids: Scene
         userId: ids.viewerUserId,
         orbitId: ids.orbitId,
         surfaceId: ids.surfaceId,
+        modeId: ids.modeId,
+        phaseId: ids.phaseId,
         materialId: ids.materialId,
         ephemerisId: ids.ephemerisId,
         caseId: ids.releasedCaseId,
@@ -211,6 +224,10 @@ export function sampleBody(key: string, ids: SceneIds): unknown {
     'POST /api/v1/missions/:id/orbits/:orbitId/environment': { steps: 24, properties: 'eol' },
     'POST /api/v1/missions/:id/surfaces': { name: 'Hostile panel', areaM2: 0.1, normal: 'zenith', materialId: ids.materialId },
     'PATCH /api/v1/missions/:id/surfaces/:surfaceId': { areaM2: '0.25 m^2' },
+    'POST /api/v1/missions/:id/attitude-modes': { name: 'Hostile mode', yawSteering: false, pointing: [{ surfaceId: ids.surfaceId, normal: 'zenith' }] },
+    'PATCH /api/v1/missions/:id/attitude-modes/:modeId': { description: 'edited by the scene' },
+    'POST /api/v1/missions/:id/phases': { name: 'Hostile phase', startDate: '2031-01-01', endDate: '2031-01-31', modeId: ids.modeId, dissipation: [{ node: 'bus', dissipationW: { onW: 10, offW: 2, periodS: 5700, onS: 600 } }] },
+    'PATCH /api/v1/missions/:id/phases/:phaseId': { description: 'edited by the scene' },
     'POST /api/v1/workspaces/:workspaceId/materials': { name: 'hostile paint', absorptivityBol: 0.3, emissivityBol: 0.8, absorptivityEol: 0.4, emissivityEol: 0.8 },
     'PATCH /api/v1/workspaces/:workspaceId/materials/:materialId': { absorptivityEol: 0.65 },
     'PUT /api/v1/workspaces/:workspaceId/environment-table': {

@@ -41,6 +41,8 @@ export function sampleCase(overrides: Partial<CaseDetail> = {}): CaseDetail {
     comments: [],
     inputChanges: [],
     inputsChanged: false,
+    phase: null,
+    variant: null,
     caution: 'Preliminary-design estimate from simplified models.',
     inputs: {
       mission: { id: 'mission-1', name: 'Kestrel-1 imaging smallsat', startDate: '2027-04-01', endDate: '2031-12-31', crewed: false },

@@ -20,6 +20,7 @@ import { ConfirmDialog } from '../shell/confirm-dialog';
 import { roleMayOpen } from '../shell/navigation';
 import { DesignCaution } from '../shell/design-caution';
 import { SurfacesPanel } from '../surfaces/surfaces-panel';
+import { PhasesPanel } from '../phases/phases-panel';
 import { CurrentWorkspace } from '../workspace/current-workspace';
 import { MissionApi } from './mission-api';
 import { MissionFormDialog } from './mission-form-dialog';
@@ -32,7 +33,7 @@ import { UtcTimePipe } from '../time/utc-time-pipe';
   imports: [
     DurationPipe, UtcTimePipe,
     RouterLink, DecimalPipe, NgTemplateOutlet, MatButton, MatIcon, MatTabGroup, MatTab, MatTabContent, MatFormField, MatLabel, MatSelect, MatOption,
-    OrbitEditor, SurfacesPanel, EnvironmentResults, MissionSweep, DesignCaution,
+    OrbitEditor, SurfacesPanel, PhasesPanel, EnvironmentResults, MissionSweep, DesignCaution,
   ],
   templateUrl: './mission-page.html',
   styleUrl: './mission-page.css',
@@ -51,6 +52,8 @@ export class MissionPage {
   readonly missionId = input.required<string>();
 
   protected readonly canEdit = computed(() => this.workspace.role() !== 'viewer' && this.workspace.role() !== null);
+  /** Attitude modes and phases carry the thermal design: thermal engineers and owners change them (the server says so too). */
+  protected readonly canEditPhases = computed(() => this.workspace.role() === 'thermal' || this.workspace.role() === 'owner');
   /** Deleting a whole mission is the owner's (the server says so too). */
   protected readonly canDelete = computed(() => this.workspace.role() === 'owner');
   /** Why the server kept the mission (it holds released cases), shown until the next try. */
@@ -100,7 +103,7 @@ export class MissionPage {
 
   protected showResults(orbit: Orbit): void {
     this.chosenOrbitId.set(orbit.id);
-    this.selectedTab.set(2);
+    this.selectedTab.set(3);
   }
 
   protected editMission(): void {
