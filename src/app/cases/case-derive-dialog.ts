@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
+import { MatCheckbox } from '@angular/material/checkbox';
 import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
@@ -23,7 +24,7 @@ export interface CaseDeriveData {
   selector: 'ecl-case-derive-dialog',
   imports: [
     ReactiveFormsModule, MatButton, MatButtonToggleGroup, MatButtonToggle, MatDialogTitle, MatDialogContent, MatDialogActions,
-    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatInput, MatSelect, MatOption, MatProgressBar, MarginFields,
+    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatInput, MatSelect, MatOption, MatProgressBar, MarginFields, MatCheckbox,
   ],
   templateUrl: './case-derive-dialog.html',
   styleUrl: './case-dialog.css',
@@ -41,6 +42,7 @@ export class CaseDeriveDialog {
     hot: ['eol' as 'bol' | 'eol'],
     cold: ['bol' as 'bol' | 'eol'],
     margins: marginGroup(inject(NonNullableFormBuilder)),
+    survival: false,
   });
   protected readonly choice = missionOrbitChoice(this.api, this.data.workspaceId, this.form.controls.missionId, this.form.controls.orbitId);
   protected readonly orbitHint = computed(() => {
@@ -62,6 +64,7 @@ export class CaseDeriveDialog {
       ...(v.name.trim() ? { name: v.name.trim() } : {}),
       properties: { hot: v.hot, cold: v.cold },
       margins: v.margins,
+      ...(v.survival ? { survival: true } : {}),
     };
     this.busy.set(true);
     this.failure.set(null);

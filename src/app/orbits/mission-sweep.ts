@@ -9,7 +9,7 @@ import { MissionApi, type PropertySet } from '../missions/mission-api';
 import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import type { PlotSeries } from '../plots/plot-series';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
-import { castByText, sweepCsvColumns, sweepSeries } from './sweep-plot-data';
+import { castByText, sweepCsvColumns, sweepPhaseRows, sweepSeries } from './sweep-plot-data';
 import { streamSweep } from './sweep-stream';
 
 type SweepState = 'idle' | 'running' | 'done' | 'cancelled' | 'failed';
@@ -36,6 +36,9 @@ export class MissionSweep {
   protected readonly days = signal<readonly SweepDay[]>([]);
   /** The models the sweep used, in words, from the stream's first line. */
   protected readonly assumptions = signal<readonly string[]>([]);
+  /** The mission's phases with their attitude modes, from the stream's first line. */
+  private readonly phases = signal<readonly { name: string; startDate: string; endDate: string; modeName: string }[]>([]);
+  protected readonly phaseRows = computed(() => sweepPhaseRows(this.phases(), this.days()));
   private running: Subscription | null = null;
   private readonly orbitId = computed(() => this.orbit().id);
 
@@ -70,6 +73,7 @@ export class MissionSweep {
     this.cancel('idle');
     this.days.set([]);
     this.assumptions.set([]);
+    this.phases.set([]);
     this.totalDays.set(0);
     this.failure.set(null);
     this.state.set('running');
@@ -100,6 +104,7 @@ export class MissionSweep {
       if (line.type === 'start') {
         this.totalDays.set(line.days);
         this.assumptions.set(line.assumptions ?? []);
+        this.phases.set(line.phases ?? []);
       }
       else if (line.type === 'day') fresh.push(line);
       else if (line.type === 'end') this.state.set('done');

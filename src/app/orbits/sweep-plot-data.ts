@@ -61,6 +61,7 @@ export function sweepCsvColumns(days: readonly SweepDay[]): CsvColumn[] {
   const names = days[0]?.surfaces.map((s) => ({ id: s.surfaceId, name: s.name })) ?? [];
   return [
     { header: 'Date (UTC)', values: days.map((d) => d.date) },
+    { header: 'Phase', values: days.map((d) => d.phase ?? '') },
     { header: 'Beta', unit: 'deg', values: days.map((d) => d.betaDeg) },
     { header: 'Eclipse fraction', values: days.map((d) => d.eclipseFraction) },
     { header: 'Eclipse duration', unit: 'min', values: days.map((d) => d.eclipseDurationS / 60) },
@@ -74,4 +75,24 @@ export function sweepCsvColumns(days: readonly SweepDay[]): CsvColumn[] {
     { header: 'Longest shadow', unit: 'min', values: days.map((d) => d.longestShadowS / 60) },
     { header: 'Longest shadow cast by', values: days.map(castByText) },
   ];
+}
+
+export interface SweepPhaseRow {
+  readonly name: string;
+  readonly startDate: string;
+  readonly endDate: string;
+  readonly modeName: string;
+  /** Days of the sweep shown in the phase. */
+  readonly days: number;
+  /** The largest and smallest spacecraft total of orbit-average absorbed power over those days, W; null without days. */
+  readonly maxTotalW: number | null;
+  readonly minTotalW: number | null;
+}
+
+/** Per phase of the sweep: its days shown and the range of the spacecraft's total absorbed power over them. */
+export function sweepPhaseRows(phases: readonly { name: string; startDate: string; endDate: string; modeName: string }[], days: readonly SweepDay[]): SweepPhaseRow[] {
+  return phases.map((p) => {
+    const totals = days.filter((d) => d.phase === p.name).map((d) => d.surfaces.reduce((sum, s) => sum + s.absorbedW, 0));
+    return { ...p, days: totals.length, maxTotalW: totals.length > 0 ? Math.max(...totals) : null, minTotalW: totals.length > 0 ? Math.min(...totals) : null };
+  });
 }

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/cor
 import { FormArray, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators, type FormControl } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
-import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
+import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
@@ -31,7 +31,7 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
 /** Adds or edits a phase: its dates (UTC days, both included), its attitude mode and each node's dissipation. */
 @Component({
   selector: 'ecl-phase-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatIconButton, MatIcon, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption],
+  imports: [ReactiveFormsModule, MatButton, MatIconButton, MatIcon, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatSelect, MatOption],
   template: `
     <h2 mat-dialog-title>{{ data.phase ? 'Edit the phase' : 'New phase' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>

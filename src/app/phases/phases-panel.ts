@@ -112,6 +112,10 @@ import { dissipationText, pointingText } from './phase-words';
     .dissipation { margin: 0; padding: 0; list-style: none; }
     .row-actions { text-align: right; white-space: nowrap; }
     .actions { display: flex; gap: 8px; align-items: center; flex-wrap: wrap; }
+    @media (max-width: 600px) {
+      table.plain th, table.plain td { padding: 6px 6px; }
+      .row-actions button { display: block; min-width: 0; }
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -1,0 +1,78 @@
+// Attitude modes and phases (issue 19) as the thermal engineer: the demo mission flown in three
+// phases and two modes, a phase added from the keyboard with typed UTC dates, the sweep's days by
+// phase, and the cases that name the phase that drove them; light, dark and 390 px.
+import { expect, test } from '@playwright/test';
+import { dialogReady, screenshot, signIn } from './session';
+
+const mission = 'Kestrel-2 ocean-colour smallsat';
+
+test('the thermal engineer reads and adds phases, sweeps the mission by phase and opens a case driven by a phase', async ({ page }) => {
+  test.setTimeout(180_000);
+  await page.setViewportSize({ width: 1400, height: 1000 });
+  await signIn(page, 'thermal@kestrel.test');
+  await page.getByRole('link', { name: 'Missions' }).first().click();
+  await page.getByRole('link', { name: mission }).click();
+  await page.getByRole('tab', { name: 'Modes and phases' }).click();
+  await expect(page.getByTestId('mode-row')).toHaveCount(2);
+  await expect(page.getByTestId('mode-table')).toContainText('Body-mounted array → sun; the others as defined');
+  await expect(page.getByTestId('phase-row')).toHaveCount(3);
+  await expect(page.getByTestId('phase-table')).toContainText('Launch and early orbit');
+  await expect(page.getByTestId('phase-table')).toContainText('camera: 22 W for 1500 s every 5800 s, else 3 W');
+  await screenshot(page, 'phases-mission-tab');
+
+  // A phase from the keyboard: typed ISO dates; a reversed range is refused beside its field.
+  await page.getByTestId('phase-add').focus();
+  await page.keyboard.press('Enter');
+  await dialogReady(page);
+  await page.keyboard.type('Extended mission');
+  await page.getByTestId('phase-start').fill('2031-03-31');
+  await page.getByTestId('phase-end').fill('2031-01-01');
+  await page.getByTestId('phase-node-add').click();
+  await page.getByTestId('phase-node-name-0').fill('avionics');
+  await page.getByTestId('phase-node-w-0').fill('15');
+  await page.getByTestId('phase-end').press('Enter');
+  await expect(page.getByTestId('phase-end-error')).toContainText('ends before it starts');
+  await page.getByTestId('phase-start').fill('2031-01-01');
+  await page.getByTestId('phase-end').fill('2031-03-31');
+  await page.getByTestId('phase-end').press('Enter');
+  await expect(page.getByTestId('phase-row')).toHaveCount(4);
+  await expect(page.getByTestId('phase-table')).toContainText('avionics: 15 W');
+
+  // The sweep names each day's phase.
+  await page.getByRole('tab', { name: 'Mission sweep' }).click();
+  await page.getByTestId('sweep-run').click();
+  await expect(page.getByTestId('sweep-done')).toBeVisible({ timeout: 120_000 });
+  const phaseRows = page.getByTestId('sweep-phase-row');
+  await expect(phaseRows).toHaveCount(4);
+  await expect(phaseRows.nth(0)).toContainText('Launch and early orbit');
+  await expect(phaseRows.nth(0)).toContainText('Sun safe');
+  await expect(phaseRows.nth(0).locator('td').nth(3)).toHaveText('15');
+  await expect(phaseRows.nth(3)).toContainText('no day shown');
+  await expect(page.getByTestId('sweep-phases')).not.toContainText('NaN');
+  await page.getByTestId('sweep-phases').scrollIntoViewIfNeeded();
+  await screenshot(page, 'phases-sweep');
+
+  // The cases name their phase; the survival cold case says so.
+  await page.getByRole('link', { name: 'Load cases' }).first().click();
+  await expect(page.getByTestId('case-table')).toContainText('Kestrel-2 SSO 600 survival cold');
+  await expect(page.getByTestId('case-table').getByTestId('case-variant')).toHaveCount(1);
+  await page.getByRole('link', { name: 'Kestrel-2 SSO 600 hot' }).click();
+  await expect(page.getByTestId('case-phase')).toContainText('Phase');
+  await expect(page.getByTestId('case-phase')).toContainText('attitude mode');
+  await expect(page.locator('body')).toContainText(/gives the largest total orbit-average absorbed load of the mission's phases/);
+  await screenshot(page, 'phases-case');
+
+  await page.emulateMedia({ colorScheme: 'dark' });
+  await screenshot(page, 'phases-case-dark');
+  await page.goBack();
+  await page.getByRole('link', { name: 'Missions' }).first().click();
+  await page.getByRole('link', { name: mission }).click();
+  await page.getByRole('tab', { name: 'Modes and phases' }).click();
+  await expect(page.getByTestId('phase-row')).toHaveCount(4);
+  await screenshot(page, 'phases-mission-tab-dark');
+  await page.setViewportSize({ width: 390, height: 900 });
+  await page.emulateMedia({ colorScheme: 'light' });
+  await expect(page.getByTestId('phase-row')).toHaveCount(4);
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await screenshot(page, 'phases-mission-tab-390');
+});
