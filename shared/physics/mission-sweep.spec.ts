@@ -102,3 +102,17 @@ describe('sunTrack (interpolated Sun for sweeps)', () => {
     expect(1e-6 / DEG * 3600).toBeLessThan(0.21);
   });
 });
+
+describe('sweepMission: a Sun-pointed plate on a circular orbit (its view factor tabulated against the Sun\'s zenith component)', () => {
+  it('gives the compute route\'s orbit-average albedo and IR within 1e-5 relative at low and high beta (consistency with the Howell plate-to-sphere formula the compute route evaluates at each sample)', () => {
+    const plate = [{ name: 'array', normal: 'sun' as const, areaM2: 1, absorptivity: 0.9, emissivity: 0.8 }];
+    for (const raanDeg of [40, 130]) {
+      const orbit = { periapsisAltitudeKm: 600, apoapsisAltitudeKm: 600, inclinationDeg: 51.6, raanDeg };
+      const row = sweepMission({ bodyId: 'earth', orbit, epochStart: '2027-06-01T12:00:00Z', days: 0, steps: 360, surfaces: plate, albedo: 0.3, olrWm2: 237 }).rows[0]!;
+      const single = computeEnvironment({ bodyId: 'earth', epoch: row.date, steps: 360, surfaces: plate, orbit, albedo: 0.3, olrWm2: 237 });
+      const want = single.orbitAverage.surfaces[0]!;
+      expect(Math.abs(row.surfaces[0]!.irWm2 / want.irWm2 - 1)).toBeLessThan(1e-5);
+      if (want.albedoWm2 > 1) expect(Math.abs(row.surfaces[0]!.albedoWm2 / want.albedoWm2 - 1)).toBeLessThan(1e-5);
+    }
+  });
+});

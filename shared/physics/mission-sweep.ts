@@ -151,6 +151,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   const grid = orbitGrid(orbit, body.radiusKm, steps);
   const scanGrid = steps >= SWEEP_SCAN_STEPS ? grid : orbitGrid(orbit, body.radiusKm, SWEEP_SCAN_STEPS);
   const shade = gridShade(steps);
+  const sunView = sunPointedViewFactors(grid, body.radiusKm);
   // What each pointing needs for every date, made once per pointing the rows meet (index -1: the request's surfaces).
   const pointings = new Map<number, Pointing>();
   const spans = request.attitudeSpans ?? [];
@@ -174,7 +175,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
     shadeGrid(grid, sun, shade);
     const { index: spanIndex, set } = pointingAt(ms);
     const { prepared, irSums, constantViewFactor, solarSums, albedoSums, sunIrSums, cap } = set;
-    accumulate(prepared, grid, shade, sun.sw, body.radiusKm, constantViewFactor, solarSums, albedoSums, sunIrSums);
+    accumulate(prepared, grid, shade, sun.sw, sunView, constantViewFactor, solarSums, albedoSums, sunIrSums);
     const eclipse: EclipseSummary = scanGrid === grid
       ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm)
       : eclipseOnGrid(orbit, scanGrid, sun, body.radiusKm);
@@ -305,7 +306,7 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
  * Sun-pointed surfaces also of their moving view factor. Flux, albedo and OLR multiply them after.
  */
 function accumulate(
-  prepared: readonly PreparedSurface[], grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number,
+  prepared: readonly PreparedSurface[], grid: OrbitGrid, shade: GridShade, sunW: number, sunView: (k: number, cz: number) => number,
   constantViewFactor: Float64Array, solarSums: Float64Array, albedoSums: Float64Array, sunIrSums: Float64Array,
 ): void {
   const { cx, cz, sunlit } = shade;
@@ -324,7 +325,7 @@ function accumulate(
     if (p.normal === null) {
       for (let k = 0; k < steps; k++) {
         const z = cz[k];
-        const viewFactor = sunPointedViewFactor(grid.radiusKm[k], bodyRadiusKm, z);
+        const viewFactor = sunView(k, z);
         solar += sunlit[k] * (cx[k] * cx[k] + sunW * sunW + z * z);
         if (z > 0) albedo += viewFactor * z;
         ir += viewFactor;
@@ -367,3 +368,31 @@ function constantViewFactors(prepared: readonly PreparedSurface[]): Float64Array
 
 const sunPointedViewFactor = (radiusKm: number, bodyRadiusKm: number, cz: number): number =>
   plateToSphereViewFactor(radiusKm, bodyRadiusKm, Math.acos(Math.max(-1, Math.min(1, -cz))));
+
+/** Intervals of the table of a Sun-pointed plate's view factor against the Sun's zenith component. */
+const SUN_VIEW_INTERVALS = 4096;
+
+/**
+ * A Sun-pointed plate's view factor to the body at sample k with the Sun's zenith component cz. On a
+ * circular orbit (one radius) it depends on cz alone: tabulated once per sweep over cz in [-1, 1] and
+ * interpolated linearly (exact where the plate sees the whole disk, F = cos(tilt) / H^2, within about
+ * 1e-6 elsewhere), so a Sun-pointed plate does not cost an acos and the Howell formula per sample and
+ * day; made on first use. An eccentric orbit takes the formula at each sample.
+ */
+function sunPointedViewFactors(grid: OrbitGrid, bodyRadiusKm: number): (k: number, cz: number) => number {
+  const radii = grid.radiusKm;
+  const r0 = radii[0];
+  for (let k = 1; k < grid.steps; k++) if (radii[k] !== r0) return (i, cz) => sunPointedViewFactor(radii[i], bodyRadiusKm, cz);
+  let table: Float64Array | null = null;
+  const n = SUN_VIEW_INTERVALS;
+  return (_k, cz) => {
+    if (table === null) {
+      table = new Float64Array(n + 1);
+      for (let i = 0; i <= n; i++) table[i] = sunPointedViewFactor(r0, bodyRadiusKm, -1 + (2 * i) / n);
+    }
+    const x = ((cz + 1) * n) / 2;
+    const i = Math.min(n - 1, Math.max(0, Math.floor(x)));
+    const f = x - i;
+    return table[i] * (1 - f) + table[i + 1] * f;
+  };
+}
