@@ -77,6 +77,18 @@ describe('attitude modes and phases: reading, roles and audit', () => {
   });
 });
 
+describe('a mission with modes and phases', () => {
+  it('is deleted by its owner with them (no phase is left flying a removed mode)', async () => {
+    const { missionId } = await missionWithRadiator('Short-lived', '2028-05-01', '2028-05-10');
+    const mode = (await as.thermal.post(`/api/v1/missions/${missionId}/attitude-modes`).send({ name: 'as built' }).expect(201)).body.id as string;
+    await as.thermal.post(`/api/v1/missions/${missionId}/phases`).send({ name: 'All of it', startDate: '2028-05-01', endDate: '2028-05-10', modeId: mode }).expect(201);
+    await as.owner.delete(`/api/v1/missions/${missionId}`).expect(204);
+    const left = (sql: string) => (t.ctx.sqlite.prepare(sql).get(missionId) as { n: number }).n;
+    expect(left('SELECT count(*) AS n FROM mission_phases WHERE mission_id = ?')).toBe(0);
+    expect(left('SELECT count(*) AS n FROM attitude_modes WHERE mission_id = ?')).toBe(0);
+  });
+});
+
 describe('attitude modes and phases: refusals name the field and the value', () => {
   const expectDetail = (res: request.Response, path: string, value: RegExp) => {
     expect(res.body.error.details?.map((d: { path: string }) => d.path)).toContain(path);
