@@ -215,6 +215,10 @@ describe('the demo mission flown in phases', () => {
     const array = (d: (typeof days)[number]) => d.surfaces!.find((s) => s.name === 'Body-mounted array')!.absorbedW;
     // Sun-pointed (LEOP) against zenith-pointed (commissioning): about pi / (cos beta) times more sunlight
     expect(array(days[2]!) / array(days[3]!)).toBeGreaterThan(2);
+    const columns = (await as.viewer.get(`/api/v1/missions/${demoId}/orbits/${orbitId}/sweep?from=2028-01-20&to=2028-01-25&stepDays=5&layout=columns`).expect(200)).body as { phases: { name: string }[]; series: { phase: string[] } };
+    expect(columns.series.phase).toEqual(['Launch and early orbit', 'Commissioning']);
+    expect(columns.phases.map((p) => p.name)).toHaveLength(3);
+    await as.viewer.get(`/api/v1/missions/${demoId}/orbits/${orbitId}/sweep?from=2028-01-20&to=2028-01-25&stepDays=5`).set('Accept', 'application/vnd.apache.arrow.stream').expect(200);
     const csv = (await as.viewer.get(`/api/v1/missions/${demoId}/orbits/${orbitId}/sweep?from=2028-01-20&to=2028-01-25&stepDays=5&format=csv`).expect(200)).text.split('\n');
     expect(csv[0]).toMatch(/^"date \(UTC, sampled 12:00\)",phase,/);
     expect(csv[1]).toMatch(/^2028-01-20,Launch and early orbit,/);
