@@ -18,13 +18,13 @@ export type SweepFormat = 'ndjson' | 'csv';
 export function csvHeader(surfaces: readonly MissionSurface[]): string {
   return csvRecord([
     'date (UTC, sampled 12:00)',
-    'phase',
     'beta (deg)',
     'eclipse fraction (0-1)',
     'eclipse duration (s)',
     'solar distance (AU)',
     'solar flux (W/m^2)',
     ...surfaces.map((s) => `${s.label.name} absorbed, orbit average (W)`),
+    'phase',
     'longest shadow (s)',
     'longest shadow cast by',
     'caution',
@@ -34,13 +34,13 @@ export function csvHeader(surfaces: readonly MissionSurface[]): string {
 const csvDay = (day: SweepDay, caution: string): string =>
   csvRecord([
     day.date,
-    day.phase ?? '',
     day.betaDeg,
     day.eclipseFraction,
     day.eclipseDurationS,
     day.solarDistanceAu,
     day.solarFluxWm2,
     ...day.surfaces.map((s) => s.absorbedW),
+    day.phase ?? '',
     day.longestShadowS,
     day.longestShadowCastBy.join(' and '),
     caution,

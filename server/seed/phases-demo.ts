@@ -82,7 +82,7 @@ export const seedDemoPhases: FeatureSeed = (tx, team) => {
   const at = '2026-07-01T09:00:00.000Z';
   const mission = tx.insert(missions).values({
     workspaceId: team.kestrel.id, createdBy: thermal.id, name: phasedMissionName, bodyId: 'earth',
-    description: 'Ocean-colour smallsat at 600 km sun-synchronous; flown in phases: launch and early orbit in Sun safe, commissioning and three years of nadir imaging.',
+    description: 'Ocean-colour smallsat at 600 km sun-synchronous; flown in phases: launch and early orbit in Sun safe, commissioning and three years of ocean-colour observation.',
     startDate: '2028-01-10', endDate: '2030-12-31',
   }).returning().get();
   const input = { periapsisAltitudeKm: '600 km', apoapsisAltitudeKm: '600 km', inclinationDeg: ssoInclination, raanDeg: '135 deg' };

@@ -57,6 +57,7 @@ test('the thermal engineer reads and adds phases, sweeps the mission by phase an
   await expect(page.getByTestId('case-table')).toContainText('Kestrel-2 SSO 600 survival cold');
   await expect(page.getByTestId('case-table').getByTestId('case-variant')).toHaveCount(1);
   await page.getByRole('link', { name: 'Kestrel-2 SSO 600 hot' }).click();
+  await expect(page.getByTestId('case-name')).toHaveText('Kestrel-2 SSO 600 hot');
   await expect(page.getByTestId('case-phase')).toContainText('Phase');
   await expect(page.getByTestId('case-phase')).toContainText('attitude mode');
   await expect(page.locator('body')).toContainText(/gives the largest total orbit-average absorbed load of the mission's phases/);

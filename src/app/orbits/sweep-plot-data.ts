@@ -61,7 +61,6 @@ export function sweepCsvColumns(days: readonly SweepDay[]): CsvColumn[] {
   const names = days[0]?.surfaces.map((s) => ({ id: s.surfaceId, name: s.name })) ?? [];
   return [
     { header: 'Date (UTC)', values: days.map((d) => d.date) },
-    { header: 'Phase', values: days.map((d) => d.phase ?? '') },
     { header: 'Beta', unit: 'deg', values: days.map((d) => d.betaDeg) },
     { header: 'Eclipse fraction', values: days.map((d) => d.eclipseFraction) },
     { header: 'Eclipse duration', unit: 'min', values: days.map((d) => d.eclipseDurationS / 60) },
@@ -72,6 +71,7 @@ export function sweepCsvColumns(days: readonly SweepDay[]): CsvColumn[] {
       unit: 'W',
       values: days.map((d) => d.surfaces.find((x) => x.surfaceId === s.id)?.absorbedW),
     })),
+    { header: 'Phase', values: days.map((d) => d.phase ?? '') },
     { header: 'Longest shadow', unit: 'min', values: days.map((d) => d.longestShadowS / 60) },
     { header: 'Longest shadow cast by', values: days.map(castByText) },
   ];
