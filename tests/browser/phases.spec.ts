@@ -32,6 +32,7 @@ test('the thermal engineer reads and adds phases, sweeps the mission by phase an
   await page.getByTestId('phase-node-w-0').fill('15');
   await page.getByTestId('phase-end').press('Enter');
   await expect(page.getByTestId('phase-end-error')).toContainText('ends before it starts');
+  await screenshot(page, 'phases-phase-dialog');
   await page.getByTestId('phase-start').fill('2031-01-01');
   await page.getByTestId('phase-end').fill('2031-03-31');
   await page.getByTestId('phase-end').press('Enter');
@@ -76,4 +77,10 @@ test('the thermal engineer reads and adds phases, sweeps the mission by phase an
   await expect(page.getByTestId('phase-row')).toHaveCount(4);
   expect(Number(await page.evaluate('document.documentElement.scrollWidth - document.documentElement.clientWidth'))).toBeLessThanOrEqual(0);
   await screenshot(page, 'phases-mission-tab-390');
+  // The Sun-safe mode's dialog at 390 px: the array's pointing chosen, the others as defined.
+  await page.getByRole('button', { name: 'Edit mode Sun safe' }).click();
+  await dialogReady(page);
+  await expect(page.getByTestId('mode-name')).toHaveValue('Sun safe');
+  await screenshot(page, 'phases-mode-dialog-390');
+  await page.keyboard.press('Escape');
 });

@@ -79,11 +79,11 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
               <input matInput inputmode="decimal" formControlName="offW" />
             </mat-form-field>
             <mat-form-field appearance="outline" subscriptSizing="dynamic" class="num">
-              <mat-label>On (s)</mat-label>
+              <mat-label>On, s</mat-label>
               <input matInput inputmode="decimal" formControlName="onS" />
             </mat-form-field>
             <mat-form-field appearance="outline" subscriptSizing="dynamic" class="num">
-              <mat-label>Cycle (s)</mat-label>
+              <mat-label>Cycle, s</mat-label>
               <input matInput inputmode="decimal" formControlName="periodS" />
             </mat-form-field>
             <button mat-icon-button type="button" (click)="rows.removeAt(i)" [attr.aria-label]="'Remove node row ' + (i + 1)"><mat-icon>close</mat-icon></button>
@@ -108,7 +108,7 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
     .hint { margin: 0 0 4px; font: var(--mat-sys-body-small); }
     .row { display: flex; flex-wrap: wrap; gap: 6px; align-items: center; }
     .row .node { flex: 2 1 140px; }
-    .row .num { flex: 1 1 72px; max-width: 110px; }
+    .row .num { flex: 1 1 80px; max-width: 120px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
