@@ -1,10 +1,10 @@
 // Builds the Express app from an AppContext. main.ts only listens; tests drive this on port 0.
 import express, { type Express } from 'express';
-import helmet from 'helmet';
 import type { AppContext } from './app-context';
 import { apiNotFound, errorMiddleware } from './errors';
 import { clientFiles, hasClient } from './http/client-files';
 import { requestLog } from './http/request-log';
+import { securityHeaders } from './http/security-headers';
 import { routeDispatcher } from './http/route-dispatch';
 import { rememberRouteTable } from './route-list';
 import { apiRoutes } from './routes/api-routes';
@@ -17,29 +17,7 @@ export interface AppOptions {
 export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   const app = express();
   app.disable('x-powered-by');
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          defaultSrc: ["'self'"],
-          scriptSrc: ["'self'"],
-          // Angular inserts component styles as <style> elements at run time.
-          styleSrc: ["'self'", "'unsafe-inline'"],
-          fontSrc: ["'self'", 'data:'],
-          imgSrc: ["'self'", 'data:', 'blob:'],
-          connectSrc: ["'self'"],
-          objectSrc: ["'none'"],
-          frameAncestors: ["'none'"],
-          baseUri: ["'self'"],
-          formAction: ["'self'"],
-          upgradeInsecureRequests: ctx.config.publicUrl.startsWith('https:') ? [] : null,
-        },
-      },
-      // Plain-http local use must not be told to switch to https for a year.
-      strictTransportSecurity: ctx.config.publicUrl.startsWith('https:'),
-    }),
-  );
-
+  app.use(securityHeaders(ctx.config.publicUrl));
   app.use(requestLog(ctx.logger));
 
   // Every declared route, answered from one table (server/http/route-dispatch.ts).
