@@ -82,5 +82,5 @@ export interface ApiRoute extends RouteFields {
 export function route<B extends ZodType | undefined = undefined, Q extends ZodObject | undefined = undefined>(
   declaration: RouteFields & { body?: B; query?: Q; handle(call: RouteCall<B, Q>): unknown },
 ): ApiRoute {
-  return declaration as ApiRoute;
+  return declaration;
 }
