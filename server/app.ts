@@ -1,7 +1,7 @@
 // Builds the Express app from an AppContext. main.ts only listens; tests drive this on port 0.
 import express, { type Express } from 'express';
 import type { AppContext } from './app-context';
-import { apiNotFound, errorMiddleware } from './errors';
+import { errorMiddleware } from './errors';
 import { clientFiles, hasClient } from './http/client-files';
 import { requestLog } from './http/request-log';
 import { securityHeaders } from './http/security-headers';
@@ -23,7 +23,6 @@ export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
   // Every declared route, answered from one table (server/http/route-dispatch.ts).
   app.use(routeDispatcher(ctx, apiRoutes));
   rememberRouteTable(app, apiRoutes);
-  app.use('/api', apiNotFound);
 
   const clientDir = options.clientDir ?? ctx.config.clientDir;
   if (hasClient(clientDir)) app.use(clientFiles(clientDir));

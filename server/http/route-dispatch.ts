@@ -10,7 +10,7 @@
 // compression, the body idle timeout, the JSON body (only when there is one), cookies,
 // authentication (token or session, cross-site refusal), then the route's access rule and its
 // handler; a path no route matches is the API's 404 after those steps, as before. A route outside
-// /api/v1 (the health check) runs its handler alone.
+// /api/v1 (the health check) runs its handler alone; any other /api path is a compressed 404.
 import cookieParser from 'cookie-parser';
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { AppContext } from '../app-context';
@@ -56,13 +56,18 @@ function runSteps(steps: readonly Step[], req: Request, res: Response, next: Nex
   step();
 }
 
-function decodeParam(text: string): string {
+/** A parameter percent-decoded, or undefined for a bad escape (answered 400 after the common steps, as Express did). */
+function decodeParam(text: string): string | undefined {
   try {
     return decodeURIComponent(text);
   } catch {
-    throw badRequest('The request could not be read.', undefined, 'bad_request');
+    return undefined;
   }
 }
+
+const badParam: Step = () => {
+  throw badRequest('The request could not be read.', undefined, 'bad_request');
+};
 
 function accessStep(ctx: AppContext, route: ApiRoute): RequestHandler | null {
   const access = route.access;
@@ -85,8 +90,8 @@ function compile(ctx: AppContext, route: ApiRoute): CompiledRoute {
   };
 }
 
-/** The parameters when the path's segments fit the route's, else null. */
-function matchSegments(compiled: CompiledRoute, parts: readonly string[]): Record<string, string> | null {
+/** The parameters when the path's segments fit the route's (undefined for one that does not decode), else null. */
+function matchSegments(compiled: CompiledRoute, parts: readonly string[]): Record<string, string | undefined> | null {
   const { segments } = compiled;
   for (let i = 0; i < segments.length; i++) {
     const want = segments[i];
@@ -97,7 +102,7 @@ function matchSegments(compiled: CompiledRoute, parts: readonly string[]): Recor
       return null;
     }
   }
-  const params: Record<string, string> = {};
+  const params: Record<string, string | undefined> = {};
   let n = 0;
   for (let i = 0; i < segments.length; i++) {
     if (segments[i] === null) params[compiled.names[n++] ?? ''] = decodeParam(parts[i] ?? '');
@@ -172,7 +177,8 @@ export function routeDispatcher(ctx: AppContext, routes: readonly ApiRoute[]): R
 
   return (req, res, next) => {
     const path = req.path;
-    if (!path.startsWith('/api/') && path.slice(0, 5).toLowerCase() !== '/api/') {
+    const head = path.slice(0, 5).toLowerCase();
+    if (head !== '/api/' && head !== '/api') {
       next();
       return;
     }
@@ -182,12 +188,17 @@ export function routeDispatcher(ctx: AppContext, routes: readonly ApiRoute[]): R
     for (const c of buckets.get(`${method} ${parts.length}`) ?? []) {
       const params = matchSegments(c, parts);
       if (params === null) continue;
-      req.params = params;
+      if (Object.values(params).includes(undefined)) {
+        runSteps(c.v1 ? [...before, badParam] : [badParam], req, res, next);
+        return;
+      }
+      req.params = params as Record<string, string>;
       runSteps(steps.get(c) ?? noRoute, req, res, next);
       return;
     }
     if (parts[1]?.toLowerCase() !== 'v1') {
-      next();
+      // Another /api path: the API's 404, compressed like every API answer.
+      runSteps([compressAnswers, apiNotFound], req, res, next);
       return;
     }
     if (req.method === 'OPTIONS') {
