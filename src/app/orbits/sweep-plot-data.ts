@@ -1,10 +1,8 @@
 // Plot inputs and the CSV file from the sweep's day lines; x is the day's date (UTC midnight).
 import type { SweepDay } from '../../../shared/api/missions';
 import type { CsvColumn } from '../plots/csv-download';
+import { seriesLook } from '../plots/plot-colors';
 import type { PlotSeries } from '../plots/plot-series';
-
-// Distinct theme colours for up to six surfaces on one plot; dashes tell the next six apart.
-const SURFACE_COLORS = ['--ecl-absorbed', '--ecl-solar', '--ecl-albedo', '--ecl-ir', '--mat-sys-primary', '--ecl-accent'];
 
 const dateMs = (date: string): number => Date.parse(`${date.slice(0, 10)}T00:00:00Z`);
 
@@ -50,8 +48,7 @@ export function sweepSeries(days: readonly SweepDay[]): SweepSeries {
       id: s.id,
       label: s.name,
       unit: 'W',
-      colorVar: SURFACE_COLORS[i % SURFACE_COLORS.length],
-      dash: i >= SURFACE_COLORS.length,
+      ...seriesLook(i),
       points: days.map((d) => ({ x: dateMs(d.date), y: d.surfaces.find((x) => x.surfaceId === s.id)?.absorbedW ?? NaN })),
     })),
   };

@@ -10,7 +10,7 @@ import { cssColor } from './plot-colors';
 import { axisTitle } from './plot-format';
 import { CURSOR_HINT, PlotCursor } from './plot-cursor';
 import { nearestIndex } from './plot-scales';
-import type { LimitLine, PlotBand, PlotGutters, PlotSeries, XKind } from './plot-series';
+import { physicalRange, type LimitLine, type PhysicalRange, type PlotBand, type PlotGutters, type PlotSeries, type XKind } from './plot-series';
 import { observePlotWidth } from './plot-width';
 import { PlotXAxis } from './plot-x-axis';
 import { bandStyle, layoutTimeSeries, timeSeriesXDomain } from './time-series-layout';
@@ -39,11 +39,8 @@ export class TimeSeriesPlot {
   readonly limits = input<readonly LimitLine[]>([]);
   /** Fixes the x range, e.g. to line up with a StripPlot below; by default the data's range. */
   readonly xDomain = input<readonly [number, number] | undefined>(undefined);
-  /**
-   * The physical range of y, e.g. [-90, 90] for a beta angle, [0, 1] for a sunlit fraction, [0, ∞)
-   * for a flow: the axis never runs past it (use ±Infinity for an open end).
-   */
-  readonly yRange = input<readonly [number, number] | undefined>(undefined);
+  /** Where y can physically lie ('non-negative', 'fraction', 'beta' or [low, high]): the axis never runs past it. */
+  readonly yRange = input<PhysicalRange | undefined>(undefined);
   readonly height = input(280);
   /** Minimum left and right margins in px: give a StripPlot below the same to align the x axes. */
   readonly gutters = input<PlotGutters>({});
@@ -93,7 +90,7 @@ export class TimeSeriesPlot {
       xKind: this.xKind(),
       xDomain: this.pointer.domain(),
       yFromShownX: this.pointer.zoom() !== null,
-      yRange: this.yRange(),
+      yRange: physicalRange(this.yRange()),
       width: this.width(),
       height: this.height(),
       gutters: this.gutters(),
