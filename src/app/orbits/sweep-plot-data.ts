@@ -92,8 +92,8 @@ export function sweepExtremes(days: readonly SweepDay[]): SweepExtreme[] {
   const names = days[0]?.surfaces.map((s) => ({ id: s.surfaceId, name: s.name })) ?? [];
   const quantities: { label: string; unit: string; digits: string; of: (d: SweepDay) => number | undefined }[] = [
     { label: 'Beta angle', unit: 'deg', digits: '1.1-1', of: (d) => d.betaDeg },
-    { label: 'Eclipse duration', unit: 'min', digits: '1.1-1', of: (d) => d.eclipseDurationS / 60 },
-    { label: 'Eclipse fraction', unit: '%', digits: '1.1-1', of: (d) => d.eclipseFraction * 100 },
+    { label: 'Eclipse duration', unit: 'min', digits: '1.2-2', of: (d) => d.eclipseDurationS / 60 },
+    { label: 'Eclipse fraction', unit: '%', digits: '1.2-2', of: (d) => d.eclipseFraction * 100 },
     { label: 'Sun distance', unit: 'AU', digits: '1.4-4', of: (d) => d.solarDistanceAu },
     { label: 'Solar flux', unit: 'W/m²', digits: '1.0-0', of: (d) => d.solarFluxWm2 },
     ...names.map((s) => ({

@@ -133,7 +133,8 @@ export function layoutTimeSeries(input: TimeSeriesLayoutInput): TimeSeriesLayout
 
   const longestLabel = Math.max(1, ...yLabels.map((l) => l.length));
   const left = Math.max(Math.ceil(24 + 8 + longestLabel * TICK_CHAR_PX), input.gutters?.left ?? 0);
-  const right = Math.max(16, input.gutters?.right ?? 0);
+  // room for half the last x tick's label (a date such as 2027-09 at the right end)
+  const right = Math.max(28, input.gutters?.right ?? 0);
   const width = Math.max(left + right + 60, input.width);
   const innerWidth = width - left - right;
 
