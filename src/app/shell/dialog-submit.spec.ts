@@ -4,7 +4,7 @@ import { HttpErrorResponse } from '@angular/common/http';
 import { FormControl, FormGroup, Validators } from '@angular/forms';
 import { Subject } from 'rxjs';
 import { describe, expect, it } from 'vitest';
-import { DialogSubmit } from './dialog-submit';
+import { DialogSubmit, refusalDetails } from './dialog-submit';
 
 function setUp() {
   const form = new FormGroup({ name: new FormControl('', { nonNullable: true, validators: Validators.required }) });
@@ -51,7 +51,9 @@ describe('DialogSubmit', () => {
     form.controls.name.setValue('Hot case');
     const answer = new Subject<string>();
     const heard: unknown[] = [];
-    submit.submit(() => answer, (failure) => heard.push(failure));
+    submit.submit(() => answer, (failure) => {
+      heard.push(failure);
+    });
     answer.error(refusal);
     expect(closed).toEqual([]);
     expect(submit.busy()).toBe(false);
@@ -61,6 +63,28 @@ describe('DialogSubmit', () => {
     // the next attempt clears the old message
     submit.submit(() => new Subject<string>());
     expect(submit.failure()).toBeNull();
+  });
+
+  it('leaves the general message out when the dialog placed every detail beside its field, and sends nothing for a null request', () => {
+    const { form, submit } = setUp();
+    form.controls.name.setValue('Radiator');
+    const answer = new Subject<string>();
+    const detailed = new HttpErrorResponse({
+      status: 400,
+      error: { error: { code: 'invalid', message: 'name: already taken', details: [{ path: 'name', message: 'already taken' }] } },
+    });
+    let details: unknown = null;
+    submit.submit(() => answer, (failure) => {
+      details = refusalDetails(failure);
+      return 'placed';
+    });
+    answer.error(detailed);
+    expect(details).toEqual([{ path: 'name', message: 'already taken' }]);
+    expect(submit.failure()).toBeNull();
+    expect(form.enabled).toBe(true);
+    submit.submit(() => null);
+    expect(submit.busy()).toBe(false);
+    expect(refusalDetails(new Error('not an answer'))).toEqual([]);
   });
 
   it('send() skips the form check (reloading what the server holds)', () => {

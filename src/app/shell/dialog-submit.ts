@@ -1,6 +1,9 @@
 // The submit of every form dialog: an invalid form shows its errors and sends nothing; a valid one
 // is disabled while its request runs (so nothing can change under it), the dialog closes with the
 // answer, and a refusal enables the form again with the server's message in the user's words.
+// (enable() enables every control: a form that keeps some disabled on purpose would have to restore
+// them in its refusal handler.)
+import { HttpErrorResponse } from '@angular/common/http';
 import { inject, signal } from '@angular/core';
 import type { AbstractControl } from '@angular/forms';
 import { MatDialogRef } from '@angular/material/dialog';
@@ -11,6 +14,23 @@ import { apiErrorMessage } from '../api/api-error-message';
 export interface ClosableDialog<R> {
   close(result?: R): void;
 }
+
+/** A refusal's per-field details (the API's error shape), so a dialog can put each under its field. */
+export interface RefusalDetail {
+  readonly path?: string;
+  readonly message: string;
+}
+
+export function refusalDetails(failure: unknown): readonly RefusalDetail[] {
+  if (!(failure instanceof HttpErrorResponse)) return [];
+  return (failure.error as { error?: { details?: RefusalDetail[] } } | null)?.error?.details ?? [];
+}
+
+/**
+ * Told of a refusal after the form is enabled again (so errors it sets on controls stay); answering
+ * 'placed' says every part of it was put beside its field, and the general message is left out.
+ */
+export type RefusalHandler = (failure: unknown) => 'placed' | void;
 
 export class DialogSubmit<R> {
   /** A request is running: the template shows progress and disables the buttons. */
@@ -25,18 +45,19 @@ export class DialogSubmit<R> {
 
   /**
    * Checks the form, then sends what `request` builds from it (called before the form is
-   * disabled, so it reads the values as typed). `refused` hears the failure after the message is set.
+   * disabled, so it reads the values as typed; it may answer null to send nothing).
    */
-  submit(request: () => Observable<R>, refused?: (failure: unknown) => void): void {
+  submit(request: () => Observable<R> | null, refused?: RefusalHandler): void {
     if (this.form.invalid) {
       this.form.markAllAsTouched();
       return;
     }
-    this.send(request(), refused);
+    const answer = request();
+    if (answer) this.send(answer, refused);
   }
 
   /** Sends without checking the form (e.g. reloading what the server holds), closing with the answer. */
-  send(request: Observable<R>, refused?: (failure: unknown) => void): void {
+  send(request: Observable<R>, refused?: RefusalHandler): void {
     this.busy.set(true);
     this.failure.set(null);
     this.form.disable();
@@ -45,8 +66,7 @@ export class DialogSubmit<R> {
       error: (failure: unknown) => {
         this.busy.set(false);
         this.form.enable();
-        this.failure.set(apiErrorMessage(failure));
-        refused?.(failure);
+        if (refused?.(failure) !== 'placed') this.failure.set(apiErrorMessage(failure));
       },
     });
   }
