@@ -165,6 +165,17 @@ describe('zoom on a plot', () => {
     expect(el.querySelector('[aria-live]')?.textContent).toContain('Showing the whole range');
   });
 
+  it('takes its zoom from the two-way zoomed binding and reports its own, so stacked plots zoom together', async () => {
+    const { fixture, el } = await render(TimeSeriesPlot, { series, xUnit: 'min', zoomed: [20, 40] });
+    expect(Math.min(...ticks(el))).toBeGreaterThanOrEqual(20);
+    expect(Math.max(...ticks(el))).toBeLessThanOrEqual(40);
+    const told: unknown[] = [];
+    fixture.componentInstance.zoomed.subscribe((z) => told.push(z));
+    await press(fixture, '0');
+    expect(told).toEqual([null]);
+    expect(Math.max(...ticks(el))).toBe(100);
+  });
+
   it('zooms a strip plot by keyboard too', async () => {
     const rows = [{ label: 'Heater', segments: [{ from: 0, to: 10 }, { from: 50, to: 75 }] }];
     const { fixture, el } = await render(StripPlot, { rows, xDomain: [0, 100], xUnit: 'min' });

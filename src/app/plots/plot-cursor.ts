@@ -2,7 +2,7 @@
 // pointer or the arrow keys move the cursor, a drag across the plot or the + and − keys zoom the
 // x range, 0 or the reset button shows it all again, and each move is said to screen readers. The
 // pure steps below hold the rules; PlotCursor keeps the state as signals for a component.
-import { computed, signal, type Signal } from '@angular/core';
+import { computed, signal, type Signal, type WritableSignal } from '@angular/core';
 import { nearestIndex, type XScale } from './plot-scales';
 
 /** The sentence under every plot that tells keyboard users what the keys do. */
@@ -131,6 +131,8 @@ export interface CursorHost {
   readonly changed?: (x: number | null) => void;
   /** An x another view points at: the cursor shows there while the user's own is hidden. */
   readonly external?: Signal<number | null>;
+  /** Where the zoom is kept: the plot's two-way `zoomed` binding, so stacked plots zoom together. */
+  readonly zoom?: WritableSignal<Range | null>;
 }
 
 /** The cursor, zoom and table toggle of one plot; create it in the component's field initialisers. */
@@ -138,7 +140,7 @@ export class PlotCursor {
   /** The x the user put the cursor on (pointer or keys); null when hidden. */
   readonly x = signal<number | null>(null);
   /** The zoomed x range, null when the whole range is shown. */
-  readonly zoom = signal<Range | null>(null);
+  readonly zoom: WritableSignal<Range | null>;
   /** A drag in progress, in px across the plot area. */
   readonly drag = signal<{ readonly from: number; readonly to: number } | null>(null);
   readonly showTable = signal(false);
@@ -153,7 +155,9 @@ export class PlotCursor {
     return d && Math.abs(d.to - d.from) >= MIN_DRAG_PX ? { x: Math.min(d.from, d.to), width: Math.abs(d.to - d.from) } : null;
   });
 
-  constructor(private readonly host: CursorHost) {}
+  constructor(private readonly host: CursorHost) {
+    this.zoom = host.zoom ?? signal<Range | null>(null);
+  }
 
   pointerDown(event: MouseEvent): void {
     if (event.button !== 0) return;

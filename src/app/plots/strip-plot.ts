@@ -1,6 +1,6 @@
 // On/off strips over time, one row each (heaters, switched dissipation), drawn with the same x axis
 // as TimeSeriesPlot so the two line up one above the other with a shared xDomain.
-import { ChangeDetectionStrategy, Component, computed, input, type Signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, model, type Signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { cssColor } from './plot-colors';
 import { axisTitle, formatValue, formatX } from './plot-format';
@@ -35,6 +35,11 @@ export class StripPlot {
   /** Set it to the TimeSeriesPlot's range above to line the two up; by default the segments' range. */
   readonly xDomain = input<readonly [number, number] | undefined>(undefined);
   readonly bands = input<readonly PlotBand[]>([]);
+  /**
+   * The zoomed x range (null: the whole range). Bind it two-way, `[(zoomed)]`, to one signal on
+   * plots stacked with a shared xDomain so a zoom on one zooms them all.
+   */
+  readonly zoomed = model<readonly [number, number] | null>(null);
   readonly rowHeight = input(22);
   /** Minimum left and right margins in px: give a StripPlot and a TimeSeriesPlot the same (wider than either's
    * own labels need) to align their x axes. */
@@ -66,6 +71,7 @@ export class StripPlot {
       return [readout.x, ...readout.states.map((s) => `${s.label} ${s.state}`)].join('; ');
     },
     xText: (at) => formatX(at, this.xKind(), this.xUnit()),
+    zoom: this.zoomed,
   });
   private readonly domain: Signal<readonly [number, number]> = this.pointer.domain;
 

@@ -3,7 +3,7 @@
 // limits, the legend toggles series, and a cursor reads values by pointer or arrow keys; a drag or
 // the + and − keys zoom the x range (plot-cursor.ts).
 import { DOCUMENT } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, model, output, signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { buildResultCsv, downloadCsv } from './csv-download';
 import { cssColor } from './plot-colors';
@@ -51,6 +51,11 @@ export class TimeSeriesPlot {
    * pointer is not over the plot. Null (the default) leaves the cursor to the pointer and keys alone.
    */
   readonly cursorAt = input<number | null>(null);
+  /**
+   * The zoomed x range (null: the whole range). Bind it two-way, `[(zoomed)]`, to one signal on
+   * plots stacked with a shared xDomain so a zoom on one zooms them all.
+   */
+  readonly zoomed = model<readonly [number, number] | null>(null);
   /** The x the user put the cursor on by pointer or keys (a sample's x), null when they hid it. */
   readonly cursorChange = output<number | null>();
 
@@ -74,6 +79,7 @@ export class TimeSeriesPlot {
     xText: (x) => formatX(x, this.xKind(), this.xUnit()),
     changed: (x) => this.cursorChange.emit(x),
     external: this.cursorAt,
+    zoom: this.zoomed,
   });
 
   protected readonly xTitle = computed(() => axisTitle(this.xLabel(), this.xKind() === 'date' ? 'UTC' : this.xUnit()));
