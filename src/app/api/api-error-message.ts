@@ -44,22 +44,3 @@ export function apiErrorMessage(failure: unknown): string {
   if (failure instanceof Error) return failure.message;
   return 'Something went wrong.';
 }
-
-/** The server's details of a refused request ([] for any other failure): each names the field (its API path) and the value. */
-export function apiErrorDetails(failure: unknown): ErrorDetail[] {
-  return failure instanceof HttpErrorResponse && isErrorBody(failure.error) ? (failure.error.error.details ?? []) : [];
-}
-
-/**
- * Shows each detail whose path is one of `fields` beside its field (`show`); answers whether the
- * failure still needs saying as a whole (no details, or one for no field of the form).
- */
-export function placeApiProblems<F extends string>(failure: unknown, fields: Readonly<Record<F, unknown>>, show: (field: F, message: string) => void): boolean {
-  const details = apiErrorDetails(failure);
-  let unplaced = details.length === 0;
-  for (const d of details) {
-    if (d.path && d.path in fields) show(d.path as F, d.message);
-    else unplaced = true;
-  }
-  return unplaced;
-}

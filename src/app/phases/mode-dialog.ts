@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { FormControl, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormArray, FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
 import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
@@ -10,7 +10,8 @@ import { MatOption, MatSelect } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { Surface, SurfaceNormal } from '../../../shared/api/missions';
 import type { AttitudeMode } from '../../../shared/api/phases';
-import { apiErrorDetails, apiErrorMessage } from '../api/api-error-message';
+import { apiErrorMessage } from '../api/api-error-message';
+import { dialogSubmit, placedBeside } from '../shell/dialog-submit';
 import { describeNormal, NAMED_NORMALS, NORMAL_LABELS } from '../surfaces/surface-normals';
 import { PhaseApi } from './phase-api';
 
@@ -57,13 +58,13 @@ type Choice = string;
             </mat-select>
           </mat-form-field>
         }
-        @if (failure(); as message) {
+        @if (submit.failure(); as message) {
           <p class="ecl-error" role="alert" data-testid="mode-form-error">{{ message }}</p>
         }
       </mat-dialog-content>
       <mat-dialog-actions align="end">
         <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="busy()" data-testid="mode-save">{{ data.mode ? 'Save' : 'Add mode' }}</button>
+        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="mode-save">{{ data.mode ? 'Save' : 'Add mode' }}</button>
       </mat-dialog-actions>
     </form>
   `,
@@ -79,8 +80,6 @@ export class ModeDialog {
   protected readonly dialogRef = inject<MatDialogRef<ModeDialog, AttitudeMode>>(MatDialogRef);
   protected readonly normals = NAMED_NORMALS;
   protected readonly labels = NORMAL_LABELS;
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
   protected readonly problem = signal<string | null>(null);
 
   private readonly pointed = new Map((this.data.mode?.pointing ?? []).map((p) => [p.surfaceId, p.normal as SurfaceNormal]));
@@ -96,6 +95,8 @@ export class ModeDialog {
     yawSteering: this.data.mode?.yawSteering ?? false,
   });
 
+  protected readonly submit = dialogSubmit<AttitudeMode>(new FormGroup({ mode: this.form, pointing: new FormArray(this.choices) }));
+
   protected describe(normal: SurfaceNormal): string {
     return describeNormal(normal);
   }
@@ -106,10 +107,6 @@ export class ModeDialog {
 
   protected save(): void {
     this.problem.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
     const v = this.form.getRawValue();
     const pointing = this.data.surfaces.flatMap((s, i) => {
       const choice = this.choices[i]!.value;
@@ -117,19 +114,20 @@ export class ModeDialog {
       const normal = choice === 'kept' ? this.kept.get(s.id) : (choice as SurfaceNormal);
       return normal === undefined ? [] : [{ surfaceId: s.id, normal }];
     });
-    this.busy.set(true);
-    this.failure.set(null);
-    this.api.saveMode(this.data.missionId, this.data.mode?.id ?? null, { name: v.name.trim(), description: v.description, yawSteering: v.yawSteering, pointing }).subscribe({
-      next: (saved) => this.dialogRef.close(saved),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        const detail = apiErrorDetails(failure)[0];
-        if (detail?.path === 'name' || (failure instanceof HttpErrorResponse && failure.status === 409)) {
-          this.problem.set(detail?.message ?? apiErrorMessage(failure));
-          this.form.controls.name.setErrors({ problem: true });
-          this.form.controls.name.markAsTouched();
-        } else this.failure.set(apiErrorMessage(failure));
+    this.submit.submit(
+      () => this.api.saveMode(this.data.missionId, this.data.mode?.id ?? null, { name: v.name.trim(), description: v.description, yawSteering: v.yawSteering, pointing }),
+      (failure) => {
+        // A name refused (a mode of that name already) is said under the name; the rest above the buttons.
+        if (!(failure instanceof HttpErrorResponse && failure.status === 409)) return placedBeside({ name: true }, (_field, message) => this.nameProblem(message))(failure);
+        this.nameProblem(apiErrorMessage(failure));
+        return 'placed';
       },
-    });
+    );
+  }
+
+  private nameProblem(message: string): void {
+    this.problem.set(message);
+    this.form.controls.name.setErrors({ problem: true });
+    this.form.controls.name.markAsTouched();
   }
 }

@@ -8,7 +8,7 @@ import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { AttitudeMode, MissionPhase, PhaseDissipation } from '../../../shared/api/phases';
-import { apiErrorMessage, placeApiProblems } from '../api/api-error-message';
+import { dialogSubmit, placedBeside } from '../shell/dialog-submit';
 import { isoDateValidator } from '../time/iso-date-validator';
 import { PhaseApi } from './phase-api';
 
@@ -90,13 +90,13 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
           </div>
         }
         <div><button mat-stroked-button type="button" (click)="addRow()" data-testid="phase-node-add"><mat-icon>add</mat-icon>Add node</button></div>
-        @if (failure(); as message) {
+        @if (rowProblem() ?? submit.failure(); as message) {
           <p class="ecl-error" role="alert" data-testid="phase-form-error">{{ message }}</p>
         }
       </mat-dialog-content>
       <mat-dialog-actions align="end">
         <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="busy()" data-testid="phase-save">{{ data.phase ? 'Save' : 'Add phase' }}</button>
+        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="phase-save">{{ data.phase ? 'Save' : 'Add phase' }}</button>
       </mat-dialog-actions>
     </form>
   `,
@@ -117,8 +117,8 @@ export class PhaseDialog {
   private readonly fb = inject(NonNullableFormBuilder);
   protected readonly data = inject<PhaseDialogData>(MAT_DIALOG_DATA);
   protected readonly dialogRef = inject<MatDialogRef<PhaseDialog, MissionPhase>>(MatDialogRef);
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  /** A refusal for the node rows, which no single field shows. */
+  protected readonly rowProblem = signal<string | null>(null);
   protected readonly problems = signal<Partial<Record<'name' | 'startDate' | 'endDate' | 'modeId', string>>>({});
 
   protected readonly rows = new FormArray<FormGroup<DissipationRow>>((this.data.phase?.dissipation ?? []).map((d) => this.row(d)));
@@ -128,6 +128,8 @@ export class PhaseDialog {
     endDate: [this.data.phase?.endDate ?? '', [Validators.required, isoDateValidator]],
     modeId: [this.data.phase?.modeId ?? this.data.modes[0]?.id ?? '', Validators.required],
   });
+
+  protected readonly submit = dialogSubmit<MissionPhase>(new FormGroup({ phase: this.form, rows: this.rows }));
 
   static open(dialog: MatDialog, data: PhaseDialogData): Observable<MissionPhase | undefined> {
     return dialog.open<PhaseDialog, PhaseDialogData, MissionPhase>(PhaseDialog, { data, width: '680px', maxWidth: '95vw' }).afterClosed();
@@ -154,26 +156,21 @@ export class PhaseDialog {
     this.problems.set({});
     const v = this.form.getRawValue();
     if (v.startDate && v.endDate && v.endDate < v.startDate) this.showProblem('endDate', 'the phase ends before it starts');
-    if (this.form.invalid || this.rows.invalid) {
-      this.form.markAllAsTouched();
-      this.rows.markAllAsTouched();
-      if (this.rows.invalid) this.failure.set('Each node row needs a name and its power in W (numbers only).');
-      return;
-    }
-    const dissipation: PhaseDissipation[] = this.rows.getRawValue().map((r) => {
+    this.rowProblem.set(this.rows.invalid ? 'Each node row needs a name and its power in W (numbers only).' : null);
+    if (this.rows.invalid) this.rows.markAllAsTouched();
+    this.submit.submit(
+      () => this.api.savePhase(this.data.missionId, this.data.phase?.id ?? null, { ...v, name: v.name.trim(), dissipation: this.dissipation() }),
+      placedBeside(this.form.controls, (field, message) => this.showProblem(field, message)),
+    );
+  }
+
+  /** The node rows as the API takes them: a constant, or an on/off schedule when a cycle is given. */
+  private dissipation(): PhaseDissipation[] {
+    return this.rows.getRawValue().map((r) => {
       const onW = Number(r.watts);
       if (r.periodS.trim() === '') return { node: r.node.trim(), dissipationW: onW };
       const schedule = { onW, periodS: Number(r.periodS), onS: Number(r.onS || '0') };
       return { node: r.node.trim(), dissipationW: r.offW.trim() === '' ? schedule : { ...schedule, offW: Number(r.offW) } };
-    });
-    this.busy.set(true);
-    this.failure.set(null);
-    this.api.savePhase(this.data.missionId, this.data.phase?.id ?? null, { ...v, name: v.name.trim(), dissipation }).subscribe({
-      next: (saved) => this.dialogRef.close(saved),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        if (placeApiProblems(failure, this.form.controls, (field, message) => this.showProblem(field, message))) this.failure.set(apiErrorMessage(failure));
-      },
     });
   }
 

@@ -105,8 +105,7 @@ import { dissipationText, pointingText } from './phase-words';
     section { display: flex; flex-direction: column; gap: 8px; }
     h2 { font: var(--mat-sys-title-medium); margin: 0; }
     p { margin: 0; }
-    table.plain { width: 100%; border-collapse: collapse; }
-    table.plain th, table.plain td { text-align: left; padding: 6px 12px; border-bottom: 1px solid var(--mat-sys-outline-variant); vertical-align: top; }
+    table.plain th, table.plain td { vertical-align: top; }
     .note { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); font-weight: normal; }
     .date { white-space: nowrap; font-variant-numeric: tabular-nums; }
     .dissipation { margin: 0; padding: 0; list-style: none; }
