@@ -2,7 +2,7 @@
 // reported only the last day). Common practice, no source.
 import { describe, expect, it } from 'vitest';
 import type { SweepDay } from '../../../shared/api/missions';
-import { sweepExtremes } from './sweep-plot-data';
+import { sweepExtremes, sweepPhaseRows } from './sweep-plot-data';
 
 const day = (date: string, betaDeg: number, eclipseMin: number, absorbedW: number): SweepDay => ({
   type: 'day',
@@ -17,6 +17,7 @@ const day = (date: string, betaDeg: number, eclipseMin: number, absorbedW: numbe
   longestShadowS: eclipseMin * 60,
   longestShadowCastBy: eclipseMin > 0 ? ['earth'] : [],
   longestShadowStart: null,
+  phase: null,
 });
 
 const days = [day('2027-04-01', 20, 30, 12), day('2027-05-01', 75, 0, 18), day('2027-06-01', -10, 35, 9), day('2027-07-01', 75, 35, Number.NaN)];
@@ -40,5 +41,20 @@ describe('sweepExtremes', () => {
     const moon = days.map((d, i) => ({ ...d, longestShadowStart: i === 1 ? '2027-05-01T03:00:00Z' : null }));
     expect(sweepExtremes(moon).some((r) => r.label.startsWith('Longest shadow'))).toBe(true);
     expect(sweepExtremes([])).toEqual([]);
+  });
+});
+
+describe('sweepPhaseRows', () => {
+  it("counts each phase's days shown and the range of the spacecraft's total absorbed power over them; a phase without days says so with nulls", () => {
+    const inPhase = (d: SweepDay, phase: string | null): SweepDay => ({ ...d, phase });
+    const shown = [inPhase(days[0]!, 'Safe'), inPhase(days[1]!, 'Nominal'), inPhase(days[2]!, 'Nominal'), inPhase(days[0]!, null)];
+    const phases = [
+      { name: 'Safe', startDate: '2027-04-01', endDate: '2027-04-30', modeName: 'Sun safe' },
+      { name: 'Nominal', startDate: '2027-05-01', endDate: '2027-06-30', modeName: 'nadir imaging' },
+      { name: 'Later', startDate: '2028-01-01', endDate: '2028-02-01', modeName: 'nadir imaging' },
+    ];
+    expect(sweepPhaseRows(phases, shown).map((p) => [p.name, p.days, p.minTotalW, p.maxTotalW])).toEqual([
+      ['Safe', 1, 12, 12], ['Nominal', 2, 9, 18], ['Later', 0, null, null],
+    ]);
   });
 });
