@@ -19,8 +19,7 @@ import { requireUser } from '../auth/middleware';
 import { notFound, parse } from '../errors';
 import { limitWork } from '../work-limit';
 import { answerForm, sendPerStep } from '../http/answer-formats';
-import { normaliseUnitText, kindOfUnit } from '../../shared/physics/typed-units';
-import { loadUnits, readQuantityIn } from '../missions/quantity-reader';
+import { convertTypedQuantity } from '../missions/quantity-reader';
 
 const DAY_MS = 86400e3;
 
@@ -106,10 +105,7 @@ export function environmentRoutes(_ctx: AppContext): Router {
 
   router.post('/units/convert', requireUser, async (req, res) => {
     const request = parse(unitConvertRequest, req.body);
-    const { convertQuantity } = await loadUnits();
-    // A unit of the typed-unit table is read as the forms read it ("14 d", "1.2 m²"); others by mathjs.
-    const value = kindOfUnit(request.unit) ? readQuantityIn(request.value, normaliseUnitText(request.unit), 'value') : convertQuantity(request.value, request.unit);
-    res.json({ value, unit: request.unit });
+    res.json({ value: await convertTypedQuantity(request.value, request.unit), unit: request.unit });
   });
 
   return router;

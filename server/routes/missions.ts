@@ -7,7 +7,6 @@ import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
 import { missionFor } from '../missions/mission-access';
 import { createMission, deleteMission, listMissions, missionDetail, updateMission } from '../missions/mission-store';
-import { loadUnits } from '../missions/quantity-reader';
 import { pathParam } from '../path-param';
 
 const listQuery = z.object({
@@ -34,9 +33,7 @@ export function missionRoutes(ctx: AppContext): Router {
 
   router.patch('/missions/:id', requireUser, async (req, res) => {
     const input = parse(missionUpdate, req.body);
-    // A new body recomputes every stored orbit from its typed fields.
-    if (input.bodyId !== undefined) await loadUnits();
-    res.json(updateMission(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), input));
+    res.json(await updateMission(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), input));
   });
 
   router.delete('/missions/:id', requireUser, (req, res) => {

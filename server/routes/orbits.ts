@@ -13,7 +13,6 @@ import { missionSurfaces, savedEnvironment } from '../missions/saved-environment
 import { planSweep, sweepAssumptions, sweepChunkComputer } from '../missions/sweep-days';
 import { collectSweep, csvFileName, streamSweep } from '../missions/sweep-stream';
 import { pathParam } from '../path-param';
-import { loadUnits } from '../missions/quantity-reader';
 
 export function orbitRoutes(ctx: AppContext): Router {
   const router = Router();
@@ -26,8 +25,7 @@ export function orbitRoutes(ctx: AppContext): Router {
 
   router.post('/missions/:id/orbits', requireUser, async (req, res) => {
     const input = parse(orbitCreate, req.body);
-    await loadUnits();
-    res.status(201).json(createOrbit(ctx.db, userId(req), pathParam(req, 'id'), input));
+    res.status(201).json(await createOrbit(ctx.db, userId(req), pathParam(req, 'id'), input));
   });
 
   router.get('/missions/:id/orbits/:orbitId', requireUser, (req, res) => {
@@ -37,8 +35,7 @@ export function orbitRoutes(ctx: AppContext): Router {
 
   router.patch('/missions/:id/orbits/:orbitId', requireUser, async (req, res) => {
     const input = parse(orbitUpdate, req.body);
-    await loadUnits();
-    res.json(updateOrbit(ctx.db, userId(req), pathParam(req, 'id'), pathParam(req, 'orbitId'), input));
+    res.json(await updateOrbit(ctx.db, userId(req), pathParam(req, 'id'), pathParam(req, 'orbitId'), input));
   });
 
   router.delete('/missions/:id/orbits/:orbitId', requireUser, (req, res) => {

@@ -6,7 +6,6 @@ import { requireUser, signedIn } from '../auth/middleware';
 import { parse } from '../errors';
 import { missionFor } from '../missions/mission-access';
 import { createSurface, deleteSurface, listSurfaces, updateSurface } from '../missions/surface-store';
-import { loadUnits } from '../missions/quantity-reader';
 import { pathParam } from '../path-param';
 
 export function surfaceRoutes(ctx: AppContext): Router {
@@ -19,14 +18,12 @@ export function surfaceRoutes(ctx: AppContext): Router {
 
   router.post('/missions/:id/surfaces', requireUser, async (req, res) => {
     const input = parse(surfaceCreate, req.body);
-    await loadUnits();
-    res.status(201).json(createSurface(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), input));
+    res.status(201).json(await createSurface(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), input));
   });
 
   router.patch('/missions/:id/surfaces/:surfaceId', requireUser, async (req, res) => {
     const input = parse(surfaceUpdate, req.body);
-    await loadUnits();
-    res.json(updateSurface(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), pathParam(req, 'surfaceId'), input));
+    res.json(await updateSurface(ctx.db, signedIn(req).user.id, pathParam(req, 'id'), pathParam(req, 'surfaceId'), input));
   });
 
   router.delete('/missions/:id/surfaces/:surfaceId', requireUser, (req, res) => {
