@@ -7,7 +7,7 @@ import type { CaseInputs } from '../../shared/api/case-content';
 import type { Db } from '../db/database';
 import { missions, orbits, type LoadCaseRow } from '../db/schema';
 import { canonicalJson } from './canonical-json';
-import { missionInputs, surfaceSnapshot } from './case-derivation';
+import { missionInputs, surfaceSnapshot } from './case-snapshot';
 
 const same = (a: unknown, b: unknown) => canonicalJson(a) === canonicalJson(b);
 

@@ -3,7 +3,7 @@
 // is. Both carry the caution and the same checksum.
 import type { CaseExport, CaseExportCase } from '../../shared/api/cases';
 import { csvRecord } from '../../shared/csv/csv-cell';
-import { round } from '../../shared/physics/design-cases';
+import { round } from '../../shared/physics/rounding';
 import type { AppContext } from '../app-context';
 import type { LoadCaseRow } from '../db/schema';
 import { canonicalJson, checksumMethod, sha256Hex } from './canonical-json';

@@ -4,7 +4,8 @@
 import { and, desc, eq, max, sql } from 'drizzle-orm';
 import type { CaseRevisionParsed, CaseUpdateParsed } from '../../shared/api/cases';
 import type { CaseInputs } from '../../shared/api/case-content';
-import { derivedCaseValues, withRationale } from './case-derivation';
+import { derivedCaseValues } from './case-derivation';
+import { resultSummary, withRationale } from './case-drafts';
 import { evaluateCase } from '../../shared/physics/design-cases';
 import { resolveMargins } from '../../shared/physics/design-environment';
 import type { AppContext } from '../app-context';
@@ -14,9 +15,10 @@ import { auditEvents, caseComments, caseSubscriptions, loadCases, missions, user
 import { ApiError, conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
-import { attitudeText, limitCaseWork, resultSummary } from './case-derivation';
+import { limitCaseWork } from './case-snapshot';
+import { attitudeText } from '../../shared/physics/case-words';
 import { caseReleasedMail } from './case-mail';
-import { withMargins } from './ephemeris-case';
+import { withMargins } from '../../shared/physics/trajectory-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
 
 

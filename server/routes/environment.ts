@@ -13,6 +13,7 @@ import { environmentColumnsAnswer, environmentJson } from '../http/environment-j
 import { sweepMission } from '../../shared/physics/mission-sweep';
 import { orbitFigures } from '../../shared/physics/orbit-figures';
 import { sunlightRange } from '../../shared/physics/sun';
+import { DAY_MS } from '../../shared/physics/constants';
 import { sunSynchronousOrbit } from '../../shared/physics/sun-synchronous';
 import type { AppContext } from '../app-context';
 import { requireUser } from '../auth/middleware';
@@ -21,7 +22,6 @@ import { limitWork } from '../work-limit';
 import { answerForm, sendPerStep } from '../http/answer-formats';
 import { convertTypedQuantity } from '../missions/quantity-reader';
 
-const DAY_MS = 86400e3;
 
 const BETA_HISTORY_ASSUMPTIONS = [
   'the node and the periapsis drift at their first-order J2 secular rates from the orbit epoch; size, shape and inclination stay fixed',

@@ -6,6 +6,7 @@ import type { Response } from 'express';
 import type { z } from 'zod';
 import type { DistanceStudyLine, thermalDistanceStudyRequest } from '../../shared/api/thermal-models';
 import { bodyDistances, perihelionAphelion, solarScaleAt, type StudyDistance } from '../../shared/physics/thermal-distance-study';
+import { round } from '../../shared/physics/rounding';
 import { solarFluxWm2 } from '../../shared/physics/sun';
 import type { Db } from '../db/database';
 import { badRequest } from '../errors';
@@ -17,7 +18,6 @@ import { thermalPool, whileClientWaits } from './thermal-pool';
 type StudyRequest = z.output<typeof thermalDistanceStudyRequest>;
 
 const ndjson = (line: DistanceStudyLine): string => JSON.stringify(line) + '\n';
-const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
 
 export async function streamDistanceStudy(db: Db, logger: Logger, userId: string, modelId: string, body: StudyRequest, res: Response): Promise<void> {
   const { row, mission, role } = modelFor(db, userId, modelId, 'run');

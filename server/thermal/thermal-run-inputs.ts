@@ -6,6 +6,8 @@ import type { ThermalSolveRequestInput } from '../../shared/api/thermal';
 import type { SavedThermalNode, ThermalModelContent, ThermalRunNodeInput } from '../../shared/api/thermal-models';
 import type { LoadCaseRow } from '../db/schema';
 import { absorbedAtScale } from '../../shared/physics/thermal-distance-study';
+import { round } from '../../shared/physics/rounding';
+import { heatLoadFactor } from '../../shared/physics/design-environment';
 import { unprocessable } from '../errors';
 
 export interface RunInputs {
@@ -14,7 +16,6 @@ export interface RunInputs {
   assumptions: string[];
 }
 
-const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
 
 /** `values` (evenly spaced over one period) at `n` evenly spaced times, linear between samples, wrapping round the orbit. */
 export function resamplePeriodic(values: readonly number[], n: number): number[] {
@@ -78,7 +79,7 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
   const { heatLoadPercent, temperatureMarginC } = kase.inputs.margins;
   const direction = kase.inputs.conditions.marginDirection;
   // The case's stored series are without its heat-load margin; the design case is with it.
-  const factor = direction === 'increase' ? 1 + heatLoadPercent / 100 : 1 - heatLoadPercent / 100;
+  const factor = heatLoadFactor(heatLoadPercent, direction);
 
   const nodeInputs: ThermalRunNodeInput[] = [];
   const nodes = model.nodes.map((node, i) => {

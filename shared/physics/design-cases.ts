@@ -6,7 +6,7 @@
 // they fall on different days, the usual conservative practice (DOMAIN.md "Cases" [P, G]).
 import { getBody, solarDistanceRangeAu, type Body, type BodyId } from './bodies';
 import { caseRationale, fixed as f, type CaseDecision } from './case-why';
-import { designPairs, opticalProperties, type CaseMaterial, type EnvironmentPair, type Margins, type PropertySet } from './design-environment';
+import { designPairs, heatLoadFactor, opticalProperties, type CaseMaterial, type EnvironmentPair, type MarginDirection, type Margins, type PropertySet } from './design-environment';
 import { candidateDays, maxBy, raanOnDateRad, scanMission, type ScanDay } from './design-scan';
 import { computeEnvironment, type EnvironmentResult } from './environment';
 import { capAssumptions, chooseCapModels } from './cap-loads';
@@ -15,7 +15,9 @@ import type { Sampling } from './orbit-sampling';
 import type { SurfaceNormal } from './heat-loads';
 import { defineOrbit, type OrbitInput } from './orbit-definition';
 import { solarFluxWm2 } from './sun';
-import { DEG } from './vector3';
+import { DEG, wrapDeg } from './vector3';
+import { DAY_MS } from './constants';
+import { round } from './rounding';
 
 export interface CaseSurface {
   name: string;
@@ -39,7 +41,7 @@ export interface CaseConditions {
   olrWm2: number;
   properties: PropertySet;
   /** Hot cases add the heat-load margin, cold cases take it off. */
-  marginDirection: 'increase' | 'decrease';
+  marginDirection: MarginDirection;
   steps: number;
   surfaces: CaseSurface[];
   /** An airless body's surface temperature field (its Bond albedo is `albedo`); absent: the uniform `olrWm2`. */
@@ -89,12 +91,6 @@ export interface CaseResults {
   total: { orbitAverageAbsorbedW: number; orbitAverageWithMarginW: number; peakAbsorbedW: number };
 }
 
-/** Rounds as stored case results are rounded (never -0). */
-export const round = (x: number, digits = 4): number => {
-  const k = 10 ** digits;
-  const r = Math.round(x * k) / k;
-  return Object.is(r, -0) ? 0 : r;
-};
 
 const noonOf = (date: string): Date => new Date(`${date}T12:00:00Z`);
 
@@ -105,7 +101,7 @@ function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
   const raanDeg = raanOnDateRad(orbit, new Date(c.orbitEpoch), at) / DEG;
   return computeEnvironment({
     bodyId: c.bodyId,
-    orbit: { ...c.orbit, raanDeg: ((raanDeg % 360) + 360) % 360 },
+    orbit: { ...c.orbit, raanDeg: wrapDeg(raanDeg) },
     epoch: at.toISOString(),
     betaDeg: c.betaDeg,
     solarDistanceAu: c.solarDistanceAu,
@@ -122,7 +118,7 @@ function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
 /** A case's results: per-surface time series of incident (W/m^2) and absorbed (W) loads, orbit averages and peaks. */
 export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
   const env = environmentFor(c, c.steps);
-  const factor = c.marginDirection === 'increase' ? 1 + margins.heatLoadPercent / 100 : 1 - margins.heatLoadPercent / 100;
+  const factor = heatLoadFactor(margins.heatLoadPercent, c.marginDirection);
   // time weights per sample (equal when evenly spaced in time): averages stay time averages
   const weights = env.sampleWeightsS ?? env.profile.map(() => env.periodS / env.profile.length);
   const surfaces = c.surfaces.map((s, i): CaseSurfaceResult => {
@@ -269,7 +265,7 @@ export function deriveDesignCases(input: DerivationInput): Derivation {
   const orbit = defineOrbit(input.orbit, body);
   const scan = scanMission(body, orbit, new Date(input.orbitEpoch), input.startDate, input.endDate);
   const candidates = candidateDays(scan);
-  const spanDays = Math.round((noonOf(input.endDate).getTime() - noonOf(input.startDate).getTime()) / 86_400_000) + 1;
+  const spanDays = Math.round((noonOf(input.endDate).getTime() - noonOf(input.startDate).getTime()) / DAY_MS) + 1;
   const spansFullYear = spanDays >= body.solarYearDays;
   const pairs = designPairs(body, orbit.inclinationRad / DEG);
   const summary: ScanSummary = {

@@ -94,6 +94,13 @@ export const defaultMargins = (): Margins => ({
   },
 });
 
+/** Hot cases add the heat-load margin to the absorbed loads, cold cases take it off. */
+export type MarginDirection = 'increase' | 'decrease';
+
+/** The factor on a case's absorbed loads: 1 + margin for a hot case, 1 - margin for a cold one (MIL-STD-1540 via Gilmore Vol. I ch. 19). */
+export const heatLoadFactor = (heatLoadPercent: number, direction: MarginDirection): number =>
+  direction === 'increase' ? 1 + heatLoadPercent / 100 : 1 - heatLoadPercent / 100;
+
 /** Margins with the user's values over the defaults; a changed value says it was chosen by the project. */
 export function resolveMargins(given: { heatLoadPercent?: number | undefined; temperatureMarginC?: number | undefined } | undefined): Margins {
   const margins = defaultMargins();

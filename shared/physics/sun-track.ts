@@ -12,13 +12,12 @@
 // and a few thousand km at most for the fast moons: under 1e-4 in their solar flux, checked in
 // parent-shadow.spec.ts).
 import type { Body } from './bodies';
-import { AU_KM } from './constants';
+import { AU_KM, DAY_MS } from './constants';
 import { moonTrack, type MoonTrack } from './moon-ephemeris';
 import { DEG, type Vector3 } from './vector3';
 import { bodyFrameAxes, eclipticToEquatorial, julianDateTT, toBodyFrame } from './sun';
 import { vsop87Series } from './vsop87';
 
-const DAY_MS = 86400e3;
 export const SUN_TRACK_NODE_DAYS = 4;
 
 export interface SunTrack {
