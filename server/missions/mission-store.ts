@@ -148,7 +148,7 @@ export function updateMission(db: Db, userId: string, missionId: string, input: 
 /** Roles that may delete a whole mission (with everything in it that is not released). */
 export const missionDeleteRoles: readonly Role[] = ['owner'];
 
-const counted = (n: number, one: string, many = `${one}s`): string => `${n} ${n === 1 ? one : many}`;
+const counted = (n: number, singular: string, plural = `${singular}s`): string => `${n} ${n === 1 ? singular : plural}`;
 
 /**
  * Deletes a mission: only an owner may, and never one that holds released or superseded load
