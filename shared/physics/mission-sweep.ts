@@ -27,6 +27,7 @@ import { PhysicsError } from './physics-error';
 import { solarFluxWm2 } from './sun';
 import { prepareSurfaces, type PreparedSurface } from './surface-grid';
 import { DEG, wrapDeg } from './vector3';
+import { degPerDay } from './kepler';
 import { DAY_MS } from './constants';
 import { plateToSphereViewFactor } from './view-factors';
 
@@ -177,8 +178,8 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   return {
     bodyId: body.id,
     periodS: orbit.periodS,
-    nodalRateDegPerDay: (orbit.nodalRateRadS / DEG) * 86400,
-    apsidalRateDegPerDay: (apsidalRate / DEG) * 86400,
+    nodalRateDegPerDay: degPerDay(orbit.nodalRateRadS),
+    apsidalRateDegPerDay: degPerDay(apsidalRate),
     rows,
     minBetaDeg: rowCount > 0 ? minBeta : Number.NaN,
     maxBetaDeg: rowCount > 0 ? maxBeta : Number.NaN,
