@@ -8,7 +8,7 @@ import { resolveMargins, type EnvironmentPair } from '../../shared/physics/desig
 import { pairsFromTable } from '../../shared/physics/environment-table';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
-import type { Db } from '../db/database';
+import type { DbOrTx } from '../db/database';
 import type { LoadCaseRow, MissionRow, UserRow } from '../db/schema';
 import { environmentTableRowsOf } from '../environment/environment-table-store';
 import { insertDraft, type DraftValues } from './case-drafts';
@@ -19,7 +19,7 @@ const userPair = (given: { albedo: number; olrWm2: number; source: string } | un
   given ? { ...given, provisional: false } : undefined;
 
 /** The hot and cold cases of a mission's orbit, ready to be saved (the seed saves them too). */
-export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {
+export function derivedCaseValues(db: DbOrTx, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {
   const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId, input.steps);
   const margins = resolveMargins(input.margins);
   // the workspace's own table, where a row holds for the body and the orbit's inclination, over the built-in pairs

@@ -1,12 +1,13 @@
 // What a load case keeps of its mission, read from the database: the orbit, the surfaces with their
 // materials, the mission and its body. A case is computed from this snapshot alone, so it does not
 // move when the mission changes later (case-currency.ts tells when it would).
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { CaseInputs, StoredConditions } from '../../shared/api/case-content';
 import { surfaceNormal } from '../../shared/api/missions';
 import { getBody, solarDistanceRangeAu } from '../../shared/physics/bodies';
 import type { CaseSurface } from '../../shared/physics/design-cases';
-import type { Db } from '../db/database';
+import type { DbOrTx } from '../db/database';
+import { preparedPer } from '../db/prepared';
 import { materials, orbits, surfaces, type MissionRow, type OrbitRow } from '../db/schema';
 import { notFound, unprocessable } from '../errors';
 import { limitWork, MAX_CASE_SAMPLES } from '../work-limit';
@@ -22,7 +23,7 @@ export function limitCaseWork(steps: number, surfaceCount: number): void {
 }
 
 /** The orbit and the surfaces a case is computed from, once steps × surfaces is within the limit. */
-export function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string, steps: number): MissionSnapshot {
+export function snapshotOf(db: DbOrTx, mission: MissionRow, orbitId: string, steps: number): MissionSnapshot {
   const orbit = db.select().from(orbits).where(and(eq(orbits.id, orbitId), eq(orbits.missionId, mission.id))).get();
   if (!orbit) throw notFound(`The mission "${mission.name}" has no orbit with id ${JSON.stringify(orbitId.slice(0, 80))}.`);
   const list = surfaceSnapshot(db, mission);
@@ -30,15 +31,19 @@ export function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId:
   return { orbit, surfaces: list };
 }
 
-/** The mission's surfaces with their materials, as a case keeps them; 422 when there are none. */
-export function surfaceSnapshot(db: Pick<Db, 'select'>, mission: MissionRow): CaseSurface[] {
-  const rows = db
+const surfacesWithMaterials = preparedPer((db: DbOrTx) =>
+  db
     .select({ surface: surfaces, material: materials })
     .from(surfaces)
     .innerJoin(materials, eq(materials.id, surfaces.materialId))
-    .where(eq(surfaces.missionId, mission.id))
+    .where(eq(surfaces.missionId, sql.placeholder('missionId')))
     .orderBy(surfaces.createdAt, surfaces.name)
-    .all();
+    .prepare(),
+);
+
+/** The mission's surfaces with their materials, as a case keeps them; 422 when there are none. */
+export function surfaceSnapshot(db: DbOrTx, mission: MissionRow): CaseSurface[] {
+  const rows = surfacesWithMaterials(db).all({ missionId: mission.id });
   if (rows.length === 0) {
     throw unprocessable(`The mission "${mission.name}" has no spacecraft surfaces yet; add them before deriving load cases.`, [
       { path: 'missionId', message: 'no surfaces' },

@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { canReadQuantity, readQuantity } from '../../shared/physics/units';
 import { normaliseUnitText, typedUnitNames } from '../../shared/physics/typed-units';
-import { convertTypedQuantity, withQuantityReader, type ReadQuantity } from './quantity-reader';
+import { convertTypedValue, withQuantityReader, type ReadQuantity } from './quantity-reader';
 
 const reading = (work: (read: ReadQuantity) => number) => withQuantityReader(work);
 
@@ -93,9 +93,9 @@ describe('the reader', () => {
   });
 });
 
-describe('convertTypedQuantity (POST /units/convert)', () => {
+describe('convertTypedValue (POST /units/convert)', () => {
   it('reads a unit of the table as the forms do, and any other with mathjs (0 degC = 273.15 K, SI brochure 2.3.1)', async () => {
-    expect(await convertTypedQuantity('14 d', 'h')).toBe(336);
-    expect(await convertTypedQuantity('0 degC', 'K')).toBeCloseTo(273.15, 9);
+    expect(await convertTypedValue('14 d', 'h')).toBe(336);
+    expect(await convertTypedValue('0 degC', 'K')).toBeCloseTo(273.15, 9);
   });
 });

@@ -67,7 +67,7 @@ export async function withQuantityReader<T>(work: (read: ReadQuantity) => T): Pr
  * `input` in a unit the caller names (POST /units/convert): a unit of the table is read as the
  * forms read it ("14 d", "1.2 m²"); any other unit is mathjs's to read.
  */
-export async function convertTypedQuantity(input: string | number, unit: string): Promise<number> {
+export async function convertTypedValue(input: string | number, unit: string): Promise<number> {
   if (kindOfUnit(unit)) return withQuantityReader((read) => read(input, normaliseUnitText(unit), 'value'));
   return (await loadUnits()).convertQuantity(input, unit);
 }
