@@ -8,7 +8,7 @@ import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
 import { loadCases, missions, orbits, type MissionRow, type OrbitRow } from '../db/schema';
 import { canonicalJson } from './canonical-json';
-import { missionInputs, surfaceSnapshotWithIds } from './case-derivation';
+import { missionInputs, surfaceSnapshotWithIds } from './case-snapshot';
 import { flownPhases, normalsInMode, type FlownPhase } from '../missions/phase-pointing';
 
 const isObject = (v: unknown): v is object => v !== null && typeof v === 'object';

@@ -10,7 +10,8 @@ import type { ThermalModelContent } from '../../shared/api/thermal-models';
 import { getBody } from '../../shared/physics/bodies';
 import { sunSynchronousInclinationDeg } from '../../shared/physics/sun-synchronous';
 import { recordAudit } from '../audit/audit-log';
-import { derivedCaseValues, insertDraft } from '../cases/case-derivation';
+import { derivedCaseValues } from '../cases/case-derivation';
+import { insertDraft } from '../cases/case-drafts';
 import { attitudeModes, missionPhases, missions, orbits, surfaces, thermalModels } from '../db/schema';
 import { libraryMaterialId } from '../missions/material-library';
 import { canonicalOrbit } from '../missions/orbit-values';
@@ -76,7 +77,7 @@ const model = (surfaceId: (name: string) => string): ThermalModelContent => ({
   maxDutyCycle: 0.75,
 });
 
-export const seedDemoPhases: FeatureSeed = (tx, team) => {
+export const seedDemoPhases: FeatureSeed = (tx, team, read) => {
   const thermal = team.users['thermal@kestrel.test'];
   if (!thermal) throw new Error('the phases seed needs the demo thermal engineer');
   const at = '2026-07-01T09:00:00.000Z';
@@ -86,7 +87,7 @@ export const seedDemoPhases: FeatureSeed = (tx, team) => {
     startDate: '2028-01-10', endDate: '2030-12-31',
   }).returning().get();
   const input = { periapsisAltitudeKm: '600 km', apoapsisAltitudeKm: '600 km', inclinationDeg: ssoInclination, raanDeg: '135 deg' };
-  const orbit = tx.insert(orbits).values({ missionId: mission.id, name: 'SSO 600 km', epoch: '2028-01-10T00:00:00Z', input, ...canonicalOrbit(input, earth) }).returning().get();
+  const orbit = tx.insert(orbits).values({ missionId: mission.id, name: 'SSO 600 km', epoch: '2028-01-10T00:00:00Z', input, ...canonicalOrbit(input, earth, read) }).returning().get();
   const ids = new Map<string, string>();
   for (const s of demoSurfaces) {
     const row = tx.insert(surfaces).values({ missionId: mission.id, name: s.name, areaM2: s.areaM2, normal: s.normal, materialId: libraryMaterialId(tx, s.material) }).returning().get();
