@@ -17,7 +17,7 @@ import earthData from 'astronomia/data/vsop87Bearth';
 import { getBody } from '../shared/physics/bodies';
 import { AU_KM, OBLIQUITY_J2000_DEG, SOLAR_CONSTANT_WM2, SUN_RADIUS_KM, TT_MINUS_UTC_S } from '../shared/physics/constants';
 import { computeEnvironment, computeEnvironmentColumns, type EnvironmentRequest } from '../shared/physics/environment';
-import { localNormal, type Surface } from '../shared/physics/heat-loads';
+import { localNormal, type LocalVector, type NamedNormal, type Surface } from '../shared/physics/heat-loads';
 import { apsidalRateRadS } from '../shared/physics/kepler';
 import { sweepMission, type MissionSweepRequest } from '../shared/physics/mission-sweep';
 import { defineOrbit, type OrbitInput } from '../shared/physics/orbit-definition';
@@ -89,7 +89,7 @@ function orbitJob(input: OrbitInput) {
 }
 
 const surfaceJob = (surfaces: Surface[]) => ({
-  normals: surfaces.map((s) => localNormal(s.normal, [0, 0, 1])),
+  normals: surfaces.map((s) => localNormal(s.normal as NamedNormal | LocalVector, [0, 0, 1])),
   areaM2: surfaces.map((s) => s.areaM2), absorptivity: surfaces.map((s) => s.absorptivity), emissivity: surfaces.map((s) => s.emissivity),
 });
 

@@ -1,0 +1,340 @@
+// Where a surface faces over an orbit: every pointing form of API.md "Environment computation" -
+// a named or vector normal of the local orbital frame, the Sun, a direction fixed in inertial space,
+// a one- or two-axis Sun-tracking drive, a plate on a spinning body and a face of a yaw-steered
+// spacecraft. A surface's form is compiled once (`pointingPlan`), turned toward the orbit being
+// computed (`orientPlan`: an inertial direction into the frame the caller's samples use), and at each
+// sample gives its instantaneous local normal (`directionAt`, the one rule every path uses: the
+// compute route, the mission sweep, the trajectory and the case derivation through the compute
+// route). From that normal the loads need two factors (`factorsAt`, `pointingColumns`): the positive
+// part of the Sun's cosine on the plate and its view factor to the body (view-factors.ts, the
+// Howell closed form). A spinner's factors are averaged over a turn: the Sun's cosine in closed form
+// (the mean of max(0, a cos phi + b), elementary), the view factor numerically (SPIN_PHASES phases
+// evenly over the turn), and the cap quadrature of cap-radiance.ts with each ray's weight averaged
+// over the turn in closed form (spinPlateNodes).
+// Frames: the local orbital frame is x toward ram, y the orbit normal, z zenith. An inertial
+// direction is given by right ascension and declination in the body's equatorial frame of J2000: its
+// pole is the IAU WGCCRE pole of bodies.ts at J2000 and its x axis the ascending node of that equator
+// on the ICRF equator (sun.ts bodyFrameAxes); for Earth this is EME2000 (the ICRF axes; the frame
+// bias of milliarcseconds is ignored).
+// Definitions (ours): trackSun about an axis turns a plate whose normal is perpendicular to the axis
+// so that it faces the Sun as nearly as it can (normal = the Sun's direction with its part along the
+// axis taken out); with the Sun on the axis the plate rests facing the direction perpendicular to the
+// axis nearest zenith (nearest ram for a zenith or nadir axis). trackSun "both" is a two-axis drive:
+// the normal is the Sun's direction, so its loads are those of "sun". yawSteered: the spacecraft turns
+// about its zenith-nadir axis so that the Sun stays in its y-z plane on the +y side: the body axes are
+// y_b = the Sun's horizontal direction, x_b = y_b x z, z_b = zenith; the -y face never sees the Sun
+// and the +-x faces see it edge-on; with the Sun at zenith or nadir there is no yaw. The normal is
+// given in the spacecraft frame before yaw (the local orbital frame's axes). Yaw does not tilt a
+// normal from nadir, so its view factor and closed-form albedo and IR are those of the normal unyawed.
+// Leaves out: gimbal limits and drive rates (the drive follows the Sun at once, also in the body's
+// shadow, where solar is zero anyway), shadowing by the spacecraft's own parts, the spin's
+// nutation and any spin-rate effect beyond the average over a turn.
+// Sources: Howell catalogue (plate-to-sphere view factor, view-factors.ts); the spin average of
+// max(0, cos) is elementary calculus (closed form); the frames as in orbit-position.ts (Vallado ch. 2).
+import { meanPositiveCosine } from './cap-radiance';
+import { J2000_JD } from './constants';
+import { localNormal, type LocalVector, type NamedNormal } from './heat-loads';
+import type { Body } from './bodies';
+import type { GridShade, OrbitGrid } from './orbit-grid';
+import type { OrbitBasis } from './orbit-position';
+import { PhysicsError } from './physics-error';
+import { bodyFrameAxes, julianDateTT, toBodyFrame } from './sun';
+import { DEG, dot, fromSpherical, type Vector3 } from './vector3';
+import { plateToSphereViewFactor } from './view-factors';
+
+/** A normal of the local orbital frame: a name or a unit vector. */
+export type LocalNormal = NamedNormal | LocalVector;
+/** Fixed in the body's equatorial frame of J2000 (for Earth EME2000). */
+export interface InertialNormal {
+  inertial: { raDeg: number; decDeg: number };
+}
+/** A drive axis: any local-orbital normal but the Sun. */
+export type DriveAxis = Exclude<NamedNormal, 'sun'> | LocalVector;
+/** A Sun-tracking drive about one axis of the local orbital frame, or "both" for two-axis tracking. */
+export interface TrackSunNormal {
+  trackSun: { axis: DriveAxis | 'both' };
+}
+/** A face of a yaw-steered spacecraft; `normal` in the spacecraft frame before yaw. */
+export interface YawSteeredNormal {
+  yawSteered: { normal: LocalNormal };
+}
+/** Every form that gives one direction at each instant (a spin's axis is one of these). */
+export type DirectionNormal = LocalNormal | InertialNormal | TrackSunNormal | YawSteeredNormal;
+/** A plate on a body spinning about `axis`, its normal `angleDeg` from the axis: loads averaged over a turn. */
+export interface SpinNormal {
+  spin: { axis: DirectionNormal; angleDeg: number };
+}
+export type SurfaceNormal = DirectionNormal | SpinNormal;
+
+/** A compiled direction. `v`: the fixed normal, the inertial direction, the drive axis or the face before yaw. */
+export type Direction =
+  | { kind: 'fixed'; v: Vector3 }
+  | { kind: 'sun' }
+  | { kind: 'inertial'; v: Vector3 }
+  | { kind: 'track'; v: Vector3; rest: Vector3 }
+  | { kind: 'yaw'; v: Vector3 };
+
+export interface PointingPlan {
+  direction: Direction;
+  /** The cone angle's cosine and sine from the spin axis; null for a plate that does not spin. */
+  spin: { cos: number; sin: number } | null;
+}
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null;
+
+/** The unit direction perpendicular to the axis nearest zenith (nearest ram for a zenith or nadir axis). */
+function restingNormal(a: Vector3): Vector3 {
+  for (const e of [[0, 0, 1], [1, 0, 0]] as const) {
+    const c = dot(e, a);
+    const p: Vector3 = [e[0] - c * a[0], e[1] - c * a[1], e[2] - c * a[2]];
+    const n = Math.hypot(p[0], p[1], p[2]);
+    if (n > 1e-6) return [p[0] / n, p[1] / n, p[2] / n];
+  }
+  return [0, 0, 1];
+}
+
+function directionPlan(normal: DirectionNormal, path: string): Direction {
+  if (normal === 'sun') return { kind: 'sun' };
+  if (typeof normal === 'string' || 'x' in normal) return { kind: 'fixed', v: localNormal(normal, [0, 0, 1], path) };
+  if ('inertial' in normal) {
+    const { raDeg, decDeg } = normal.inertial;
+    return { kind: 'inertial', v: fromSpherical(raDeg * DEG, decDeg * DEG) };
+  }
+  if ('trackSun' in normal) {
+    const axis = normal.trackSun.axis;
+    if (axis === 'both') return { kind: 'sun' };
+    if ((axis as string) === 'sun') {
+      throw new PhysicsError('invalid_surface', 'a Sun-tracking drive turns about an axis of the spacecraft, not about the Sun; use "both" for two-axis tracking', [
+        { path: `${path}.trackSun.axis`, message: 'the axis cannot be "sun"' },
+      ]);
+    }
+    const v = localNormal(axis, [0, 0, 1], `${path}.trackSun.axis`);
+    return { kind: 'track', v, rest: restingNormal(v) };
+  }
+  const face = normal.yawSteered.normal;
+  // A Sun-pointed plate stays Sun-pointed whatever the yaw.
+  if (face === 'sun') return { kind: 'sun' };
+  return { kind: 'yaw', v: localNormal(face, [0, 0, 1], `${path}.yawSteered.normal`) };
+}
+
+/** A surface's pointing compiled once; throws PhysicsError (naming `path`) for a direction that has none. */
+export function pointingPlan(normal: SurfaceNormal, path = 'normal'): PointingPlan {
+  if (typeof normal === 'object' && 'spin' in normal) {
+    const { axis, angleDeg } = normal.spin;
+    if (isObject(axis) && 'spin' in axis) {
+      throw new PhysicsError('invalid_surface', 'a spin axis is a direction, not another spin', [{ path: `${path}.spin.axis`, message: 'a spin inside a spin' }]);
+    }
+    return { direction: directionPlan(axis, `${path}.spin.axis`), spin: { cos: Math.cos(angleDeg * DEG), sin: Math.sin(angleDeg * DEG) } };
+  }
+  return { direction: directionPlan(normal, path), spin: null };
+}
+
+/** Whether the plate's normal is the same local vector at every sample (a named or vector normal, no spin). */
+export const fixedNormal = (plan: PointingPlan): Vector3 | null => (plan.direction.kind === 'fixed' && plan.spin === null ? plan.direction.v : null);
+
+/** Whether the plan holds an inertial direction (it must be oriented to each orbit). */
+export const isInertial = (plan: PointingPlan): boolean => plan.direction.kind === 'inertial';
+
+/** The plan with its inertial direction (body equatorial J2000) turned by `rotate` into the caller's frame. */
+export function orientPlan(plan: PointingPlan, rotate: (v: Vector3) => Vector3): PointingPlan {
+  const d = plan.direction;
+  return d.kind === 'inertial' ? { direction: { kind: 'inertial', v: rotate(d.v) }, spin: plan.spin } : plan;
+}
+
+const fromBodyFrame = (axes: { x: Vector3; y: Vector3; z: Vector3 }, v: Vector3): Vector3 => [
+  axes.x[0] * v[0] + axes.y[0] * v[1] + axes.z[0] * v[2],
+  axes.x[1] * v[0] + axes.y[1] * v[1] + axes.z[1] * v[2],
+  axes.x[2] * v[0] + axes.y[2] * v[1] + axes.z[2] * v[2],
+];
+
+/** A direction in the body's equatorial frame of J2000, in ICRF axes. */
+export function j2000ToIcrf(body: Body): (v: Vector3) => Vector3 {
+  const axes = bodyFrameAxes(body, J2000_JD);
+  return (v) => fromBodyFrame(axes, v);
+}
+
+/**
+ * A direction in the body's equatorial frame of J2000 as components along an orbit's perifocal axes
+ * P, Q, W, the orbit's elements being referred to the body's equatorial frame at `date` (the frame the
+ * Sun is given in, sun.ts); without a date the frame of J2000.
+ */
+export function j2000ToPerifocal(body: Body, basis: OrbitBasis, date: Date | null): (v: Vector3) => Vector3 {
+  const toIcrf = j2000ToIcrf(body);
+  const axes = date === null ? null : bodyFrameAxes(body, julianDateTT(date));
+  return (v) => {
+    const d = axes ? toBodyFrame(axes, toIcrf(v)) : v;
+    return [dot(d, basis.p), dot(d, basis.q), dot(d, basis.w)];
+  };
+}
+
+/**
+ * The instantaneous local unit normal (the spin axis for a spinner) at one sample, written into
+ * `out`: (sx, sy, sz) is the Sun's local unit direction, (ix, iy, iz) the local components of the
+ * oriented inertial direction (read for an inertial plan only).
+ */
+export function directionAt(d: Direction, sx: number, sy: number, sz: number, ix: number, iy: number, iz: number, out: Float64Array): void {
+  switch (d.kind) {
+    case 'fixed':
+      out[0] = d.v[0]; out[1] = d.v[1]; out[2] = d.v[2];
+      return;
+    case 'sun':
+      out[0] = sx; out[1] = sy; out[2] = sz;
+      return;
+    case 'inertial':
+      out[0] = ix; out[1] = iy; out[2] = iz;
+      return;
+    case 'track': {
+      const a = d.v;
+      const c = a[0] * sx + a[1] * sy + a[2] * sz;
+      const px = sx - c * a[0];
+      const py = sy - c * a[1];
+      const pz = sz - c * a[2];
+      const n = Math.sqrt(px * px + py * py + pz * pz);
+      if (n > 1e-9) {
+        out[0] = px / n; out[1] = py / n; out[2] = pz / n;
+      } else {
+        out[0] = d.rest[0]; out[1] = d.rest[1]; out[2] = d.rest[2];
+      }
+      return;
+    }
+    case 'yaw': {
+      const v = d.v;
+      const h = Math.sqrt(sx * sx + sy * sy);
+      if (!(h > 1e-12)) {
+        out[0] = v[0]; out[1] = v[1]; out[2] = v[2];
+        return;
+      }
+      // x_b = (sy, -sx, 0) / h, y_b = (sx, sy, 0) / h, z_b = zenith
+      out[0] = (v[0] * sy + v[1] * sx) / h;
+      out[1] = (v[1] * sy - v[0] * sx) / h;
+      out[2] = v[2];
+      return;
+    }
+  }
+}
+
+/** Phases over one turn at which a spinner's view factor is evaluated and averaged (midpoints; the turn is symmetric, so half of them are used). */
+export const SPIN_PHASES = 64;
+
+/**
+ * The view factor to the body of a plate on a spinner, averaged over a turn: the plate's normal is
+ * at cone angle (cos, sin) from the axis, the axis tilted from nadir by the angle of cosine `u`.
+ * Numerical (midpoint rule over SPIN_PHASES phases) over view-factors.ts's closed form.
+ */
+export function spinViewFactor(rKm: number, bodyRadiusKm: number, u: number, cos: number, sin: number): number {
+  const sinTilt = Math.sqrt(Math.max(0, 1 - u * u));
+  const half = SPIN_PHASES / 2;
+  let sum = 0;
+  for (let j = 0; j < half; j++) {
+    const c = cos * u + sin * sinTilt * Math.cos(((j + 0.5) * Math.PI) / half);
+    sum += plateToSphereViewFactor(rKm, bodyRadiusKm, Math.acos(Math.max(-1, Math.min(1, c))));
+  }
+  return sum / half;
+}
+
+/** The view factor of a plan's plate (its spin average for a spinner), the normal (or axis) tilted from nadir by the angle of cosine `u`. */
+export function pointingViewFactor(plan: PointingPlan, rKm: number, bodyRadiusKm: number, u: number): number {
+  const spin = plan.spin;
+  return spin ? spinViewFactor(rKm, bodyRadiusKm, u, spin.cos, spin.sin) : plateToSphereViewFactor(rKm, bodyRadiusKm, Math.acos(Math.max(-1, Math.min(1, u))));
+}
+
+/** The positive part of the Sun's cosine on the plate (its average over a turn for a spinner), from the normal or axis n and the Sun s. */
+export function sunCosine(plan: PointingPlan, nx: number, ny: number, nz: number, sx: number, sy: number, sz: number): number {
+  const c = nx * sx + ny * sy + nz * sz;
+  const spin = plan.spin;
+  if (!spin) return c > 0 ? c : 0;
+  return meanPositiveCosine(spin.sin * Math.sqrt(Math.max(0, 1 - c * c)), spin.cos * c);
+}
+
+/**
+ * The view factor as a function of the cosine u of the normal's (a spinner's axis's) tilt from nadir at
+ * one radius, tabulated at `intervals` + 1 points and interpolated linearly: for paths that evaluate it
+ * millions of times (the mission sweep of a circular orbit). mission-sweep.spec.ts holds it to the direct form.
+ */
+export function viewFactorTable(plan: PointingPlan, rKm: number, bodyRadiusKm: number, intervals = 2048): (u: number) => number {
+  const values = new Float64Array(intervals + 2);
+  for (let i = 0; i <= intervals; i++) values[i] = pointingViewFactor(plan, rKm, bodyRadiusKm, -1 + (2 * i) / intervals);
+  values[intervals + 1] = values[intervals];
+  const half = intervals / 2;
+  return (u) => {
+    const x = (u + 1) * half;
+    const i = x <= 0 ? 0 : x >= intervals ? intervals : Math.floor(x);
+    const f = x - i;
+    return values[i] + (values[i + 1] - values[i]) * (f > 0 ? f : 0);
+  };
+}
+
+/** Per sample: the Sun's cosine factor, the view factor, and the local normal (the axis for a spinner). */
+export interface PointingColumns {
+  sunCos: Float64Array;
+  viewFactor: Float64Array;
+  nx: Float64Array;
+  ny: Float64Array;
+  nz: Float64Array;
+}
+
+export function pointingColumnsFor(steps: number): PointingColumns {
+  const a = () => new Float64Array(steps);
+  return { sunCos: a(), viewFactor: a(), nx: a(), ny: a(), nz: a() };
+}
+
+/**
+ * The columns of an oriented plan over an orbit grid (its inertial direction in the orbit's perifocal
+ * frame), with the Sun of `shade` and `sunW`. `viewFactorOf(k, u)` gives the view factor at sample k
+ * for the tilt cosine u; by default the direct form at the sample's radius.
+ */
+export function pointingColumns(
+  plan: PointingPlan, grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number,
+  out: PointingColumns = pointingColumnsFor(grid.steps),
+  viewFactorOf: (k: number, u: number) => number = (k, u) => pointingViewFactor(plan, grid.radiusKm[k], bodyRadiusKm, u),
+): PointingColumns {
+  const d = plan.direction;
+  const [dp, dq, dw] = d.kind === 'inertial' ? d.v : [0, 0, 0];
+  const n = new Float64Array(3);
+  const { cx, cz } = shade;
+  const { cosNu, sinNu } = grid;
+  for (let k = 0; k < grid.steps; k++) {
+    const c = cosNu[k];
+    const s = sinNu[k];
+    // the inertial direction in the local frame, as the Sun's in orbit-grid.ts shadeGrid
+    directionAt(d, cx[k], sunW, cz[k], dq * c - dp * s, dw, dp * c + dq * s, n);
+    out.nx[k] = n[0];
+    out.ny[k] = n[1];
+    out.nz[k] = n[2];
+    out.sunCos[k] = sunCosine(plan, n[0], n[1], n[2], cx[k], sunW, cz[k]);
+    out.viewFactor[k] = viewFactorOf(k, -n[2]);
+  }
+  return out;
+}
+
+// ---- Words --------------------------------------------------------------------------------------
+
+const NAMED_WORDS: Record<NamedNormal, string> = {
+  nadir: 'nadir', zenith: 'zenith', ram: 'ram', wake: 'wake', 'orbit-normal': 'the orbit normal', 'anti-orbit-normal': 'the anti-orbit-normal', sun: 'the Sun',
+};
+const number = (v: number): string => String(Math.round(v * 1000) / 1000);
+const localWords = (n: LocalNormal): string => (typeof n === 'string' ? NAMED_WORDS[n] : `(${number(n.x)}, ${number(n.y)}, ${number(n.z)}) in the local orbital frame`);
+
+function directionWords(n: DirectionNormal): string {
+  if (typeof n === 'string' || 'x' in n) return n === 'sun' ? 'pointed at the Sun' : `facing ${localWords(n)}`;
+  if ('inertial' in n) return `fixed in inertial space at right ascension ${number(n.inertial.raDeg)}°, declination ${number(n.inertial.decDeg)}° (the body's equator of J2000)`;
+  if ('trackSun' in n) {
+    return n.trackSun.axis === 'both' ? 'tracking the Sun on two axes' : `turned about ${localWords(n.trackSun.axis)} to face the Sun (one-axis drive)`;
+  }
+  return `facing ${localWords(n.yawSteered.normal)} before yaw, on a spacecraft yaw-steered to keep the Sun off its −y face`;
+}
+
+/** A surface's pointing in words, for case exports, audit lines and assumptions. */
+export function pointingWords(n: SurfaceNormal): string {
+  if (typeof n === 'object' && 'spin' in n) {
+    return `on a body spinning about ${axisWords(n.spin.axis)}, ${number(n.spin.angleDeg)}° from the spin axis (loads averaged over a turn)`;
+  }
+  return directionWords(n);
+}
+
+/** A spin axis in words: "the Sun", "nadir", "a direction fixed in inertial space at ...". */
+function axisWords(axis: DirectionNormal): string {
+  if (typeof axis === 'string' || 'x' in axis) return localWords(axis);
+  if ('inertial' in axis) return `a direction ${directionWords(axis)}`;
+  return `an axis ${directionWords(axis).replace(/^facing /, 'along ')}`;
+}
