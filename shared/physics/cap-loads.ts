@@ -150,7 +150,7 @@ export function capColumns(
   const { reflected, day, floor } = capExitances(choice, solarFluxWm2, albedo);
   const out = new Float64Array(2);
   // a moving plate's normal (a spinner's axis) at every sample (pointing.ts)
-  const moving = prepared.map((p) => (p.plan ? pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm, undefined, () => 0) : null));
+  const moving = prepared.map((p) => (p.plan ? pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm) : null));
   for (let k = 0; k < steps; k++) {
     const { cap, plates } = nodesAt(k);
     const sx = shade.cx[k];

@@ -29,7 +29,7 @@ import { longestShadow, missionDays } from './mission-days';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2 } from './sun';
 import { orientSurfaces, prepareSurfaces, type PreparedSurface } from './surface-grid';
-import { isInertial, j2000ToPerifocal, pointingColumns, pointingColumnsFor, viewFactorTable, type PointingColumns } from './pointing';
+import { isInertial, j2000ToPerifocal, pointingColumns, pointingColumnsFor, viewFactorTable, type PointingColumns, type ViewFactorTable } from './pointing';
 import { DEG, type Vector3 } from './vector3';
 
 export interface MissionSweepRequest extends CapModelRequest {
@@ -265,7 +265,7 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
 /** A moving surface's reusable columns and its view factor by tilt (tabulated once for a circular orbit's one radius). */
 interface MovingSurface {
   columns: PointingColumns;
-  viewFactorOf: ((k: number, u: number) => number) | undefined;
+  table: ViewFactorTable | null;
 }
 
 function movingSurfaces(prepared: readonly PreparedSurface[], grid: OrbitGrid, bodyRadiusKm: number): (MovingSurface | null)[] {
@@ -273,8 +273,7 @@ function movingSurfaces(prepared: readonly PreparedSurface[], grid: OrbitGrid, b
   const circular = grid.radiusKm.every((r) => r === r0);
   return prepared.map((p) => {
     if (!p.plan) return null;
-    const table = circular ? viewFactorTable(p.source, r0, bodyRadiusKm) : null;
-    return { columns: pointingColumnsFor(grid.steps), viewFactorOf: table ? (_k: number, u: number) => table(u) : undefined };
+    return { columns: pointingColumnsFor(grid.steps), table: circular ? viewFactorTable(p.source, r0, bodyRadiusKm) : null };
   });
 }
 
@@ -301,13 +300,19 @@ function accumulate(
     let albedo = 0;
     let ir = 0;
     if (p.plan && m) {
-      const { sunCos, viewFactor } = pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm, m.columns, m.viewFactorOf);
-      for (let k = 0; k < steps; k++) {
-        const z = cz[k];
-        const f = viewFactor[k];
-        solar += sunlit[k] * sunCos[k];
-        if (z > 0) albedo += f * z;
-        ir += f;
+      const { sunCos, viewFactor } = pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm, m.columns, m.table);
+      for (let k = 0; k < steps; k++) solar += sunlit[k] * sunCos[k];
+      if (m.table && p.plan.tilt !== null) {
+        // one view factor at every sample (a tilt that holds on a circular orbit)
+        albedo = viewFactor[0] * zenithSum;
+        ir = viewFactor[0] * steps;
+      } else {
+        for (let k = 0; k < steps; k++) {
+          const z = cz[k];
+          const f = viewFactor[k];
+          if (z > 0) albedo += f * z;
+          ir += f;
+        }
       }
     } else if (p.normal) {
       const nx = p.normal[0];

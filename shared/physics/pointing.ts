@@ -3,7 +3,7 @@
 // a one- or two-axis Sun-tracking drive, a plate on a spinning body and a face of a yaw-steered
 // spacecraft. A surface's form is compiled once (`pointingPlan`), turned toward the orbit being
 // computed (`orientPlan`: an inertial direction into the frame the caller's samples use), and at each
-// sample gives its instantaneous local normal (`directionAt`, the one rule every path uses: the
+// sample gives its instantaneous local normal (`directionsAt`, the one rule every path uses: the
 // compute route, the mission sweep, the trajectory and the case derivation through the compute
 // route). From that normal the loads need two factors (`factorsAt`, `pointingColumns`): the positive
 // part of the Sun's cosine on the plate and its view factor to the body (view-factors.ts, the
@@ -78,6 +78,18 @@ export interface PointingPlan {
   direction: Direction;
   /** The cone angle's cosine and sine from the spin axis; null for a plate that does not spin. */
   spin: { cos: number; sin: number } | null;
+  /**
+   * The cosine of the normal's (a spinner's axis's) tilt from nadir when it is the same at every
+   * instant - a fixed normal, a yaw-steered face (yaw turns about nadir), a drive about the zenith-nadir
+   * axis - so its view factor depends on the radius alone; null when it moves.
+   */
+  tilt: number | null;
+}
+
+function tiltOf(d: Direction): number | null {
+  if (d.kind === 'fixed' || d.kind === 'yaw') return -d.v[2];
+  if (d.kind === 'track' && Math.abs(d.v[2]) === 1) return 0;
+  return null;
 }
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null;
@@ -124,9 +136,11 @@ export function pointingPlan(normal: SurfaceNormal, path = 'normal'): PointingPl
     if (isObject(axis) && 'spin' in axis) {
       throw new PhysicsError('invalid_surface', 'a spin axis is a direction, not another spin', [{ path: `${path}.spin.axis`, message: 'a spin inside a spin' }]);
     }
-    return { direction: directionPlan(axis, `${path}.spin.axis`), spin: { cos: Math.cos(angleDeg * DEG), sin: Math.sin(angleDeg * DEG) } };
+    const direction = directionPlan(axis, `${path}.spin.axis`);
+    return { direction, spin: { cos: Math.cos(angleDeg * DEG), sin: Math.sin(angleDeg * DEG) }, tilt: tiltOf(direction) };
   }
-  return { direction: directionPlan(normal, path), spin: null };
+  const direction = directionPlan(normal, path);
+  return { direction, spin: null, tilt: tiltOf(direction) };
 }
 
 /** Whether the plate's normal is the same local vector at every sample (a named or vector normal, no spin). */
@@ -138,7 +152,7 @@ export const isInertial = (plan: PointingPlan): boolean => plan.direction.kind =
 /** The plan with its inertial direction (body equatorial J2000) turned by `rotate` into the caller's frame. */
 export function orientPlan(plan: PointingPlan, rotate: (v: Vector3) => Vector3): PointingPlan {
   const d = plan.direction;
-  return d.kind === 'inertial' ? { direction: { kind: 'inertial', v: rotate(d.v) }, spin: plan.spin } : plan;
+  return d.kind === 'inertial' ? { ...plan, direction: { kind: 'inertial', v: rotate(d.v) } } : plan;
 }
 
 const fromBodyFrame = (axes: { x: Vector3; y: Vector3; z: Vector3 }, v: Vector3): Vector3 => [
@@ -168,49 +182,94 @@ export function j2000ToPerifocal(body: Body, basis: OrbitBasis, date: Date | nul
 }
 
 /**
- * The instantaneous local unit normal (the spin axis for a spinner) at one sample, written into
- * `out`: (sx, sy, sz) is the Sun's local unit direction, (ix, iy, iz) the local components of the
- * oriented inertial direction (read for an inertial plan only).
+ * The rule: the instantaneous local unit normal (the spin axis for a spinner) at samples 0..count-1,
+ * written into (nx, ny, nz), and its cosine with the Sun into `cs`: (sx, sy, sz) is the Sun's local
+ * unit direction at each sample, (ix, iy, iz) the local components of the oriented inertial direction
+ * (read for an inertial plan only). One loop per kind, so the sweep's millions of samples make no
+ * call per sample.
  */
-export function directionAt(d: Direction, sx: number, sy: number, sz: number, ix: number, iy: number, iz: number, out: Float64Array): void {
+export function directionsAt(
+  d: Direction, count: number, sx: Float64Array, sy: Float64Array, sz: Float64Array, ix: Float64Array, iy: Float64Array, iz: Float64Array,
+  nx: Float64Array, ny: Float64Array, nz: Float64Array, cs: Float64Array,
+): void {
   switch (d.kind) {
     case 'fixed':
-      out[0] = d.v[0]; out[1] = d.v[1]; out[2] = d.v[2];
+    case 'inertial': {
+      const fixed = d.kind === 'fixed';
+      const v = d.v;
+      for (let k = 0; k < count; k++) {
+        const x = fixed ? v[0] : ix[k];
+        const y = fixed ? v[1] : iy[k];
+        const z = fixed ? v[2] : iz[k];
+        nx[k] = x; ny[k] = y; nz[k] = z;
+        cs[k] = x * sx[k] + y * sy[k] + z * sz[k];
+      }
       return;
+    }
     case 'sun':
-      out[0] = sx; out[1] = sy; out[2] = sz;
-      return;
-    case 'inertial':
-      out[0] = ix; out[1] = iy; out[2] = iz;
+      nx.set(sx.subarray(0, count)); ny.set(sy.subarray(0, count)); nz.set(sz.subarray(0, count));
+      cs.fill(1, 0, count);
       return;
     case 'track': {
+      // the Sun with its part along the axis taken out; at rest when the Sun is on the axis
       const a = d.v;
-      const c = a[0] * sx + a[1] * sy + a[2] * sz;
-      const px = sx - c * a[0];
-      const py = sy - c * a[1];
-      const pz = sz - c * a[2];
-      const n = Math.sqrt(px * px + py * py + pz * pz);
-      if (n > 1e-9) {
-        out[0] = px / n; out[1] = py / n; out[2] = pz / n;
-      } else {
-        out[0] = d.rest[0]; out[1] = d.rest[1]; out[2] = d.rest[2];
+      const r = d.rest;
+      for (let k = 0; k < count; k++) {
+        const x = sx[k];
+        const y = sy[k];
+        const z = sz[k];
+        const c = a[0] * x + a[1] * y + a[2] * z;
+        const px = x - c * a[0];
+        const py = y - c * a[1];
+        const pz = z - c * a[2];
+        const n = Math.sqrt(px * px + py * py + pz * pz);
+        if (n > 1e-9) {
+          const inverse = 1 / n;
+          nx[k] = px * inverse; ny[k] = py * inverse; nz[k] = pz * inverse;
+          // (p / |p|) . s = |p|
+          cs[k] = n;
+        } else {
+          nx[k] = r[0]; ny[k] = r[1]; nz[k] = r[2];
+          cs[k] = r[0] * x + r[1] * y + r[2] * z;
+        }
       }
       return;
     }
     case 'yaw': {
       const v = d.v;
-      const h = Math.sqrt(sx * sx + sy * sy);
-      if (!(h > 1e-12)) {
-        out[0] = v[0]; out[1] = v[1]; out[2] = v[2];
-        return;
+      for (let k = 0; k < count; k++) {
+        const x = sx[k];
+        const y = sy[k];
+        const z = sz[k];
+        const h = Math.sqrt(x * x + y * y);
+        if (h > 1e-12) {
+          // x_b = (sy, -sx, 0) / h, y_b = (sx, sy, 0) / h, z_b = zenith: the Sun is (0, h, sz) in the body frame
+          const inverse = 1 / h;
+          nx[k] = (v[0] * y + v[1] * x) * inverse;
+          ny[k] = (v[1] * y - v[0] * x) * inverse;
+          cs[k] = v[1] * h + v[2] * z;
+        } else {
+          // the Sun at zenith or nadir: no yaw
+          nx[k] = v[0];
+          ny[k] = v[1];
+          cs[k] = v[2] * z;
+        }
+        nz[k] = v[2];
       }
-      // x_b = (sy, -sx, 0) / h, y_b = (sx, sy, 0) / h, z_b = zenith
-      out[0] = (v[0] * sy + v[1] * sx) / h;
-      out[1] = (v[1] * sy - v[0] * sx) / h;
-      out[2] = v[2];
       return;
     }
   }
+}
+
+const one = () => new Float64Array(1);
+const single = { sx: one(), sy: one(), sz: one(), ix: one(), iy: one(), iz: one(), nx: one(), ny: one(), nz: one(), cs: one() };
+
+/** directionsAt at one instant (the trajectory's rows): the normal into `out`. */
+export function directionAt(d: Direction, sx: number, sy: number, sz: number, ix: number, iy: number, iz: number, out: Float64Array): void {
+  const a = single;
+  [a.sx[0], a.sy[0], a.sz[0], a.ix[0], a.iy[0], a.iz[0]] = [sx, sy, sz, ix, iy, iz];
+  directionsAt(d, 1, a.sx, a.sy, a.sz, a.ix, a.iy, a.iz, a.nx, a.ny, a.nz, a.cs);
+  [out[0], out[1], out[2]] = [a.nx[0], a.ny[0], a.nz[0]];
 }
 
 /** Phases over one turn at which a spinner's view factor is evaluated and averaged (midpoints; the turn is symmetric, so half of them are used). */
@@ -242,26 +301,36 @@ export function pointingViewFactor(plan: PointingPlan, rKm: number, bodyRadiusKm
 export function sunCosine(plan: PointingPlan, nx: number, ny: number, nz: number, sx: number, sy: number, sz: number): number {
   const c = nx * sx + ny * sy + nz * sz;
   const spin = plan.spin;
+  // pointingColumns writes the same in its loop
   if (!spin) return c > 0 ? c : 0;
   return meanPositiveCosine(spin.sin * Math.sqrt(Math.max(0, 1 - c * c)), spin.cos * c);
 }
 
 /**
  * The view factor as a function of the cosine u of the normal's (a spinner's axis's) tilt from nadir at
- * one radius, tabulated at `intervals` + 1 points and interpolated linearly: for paths that evaluate it
- * millions of times (the mission sweep of a circular orbit). mission-sweep.spec.ts holds it to the direct form.
+ * one radius, tabulated at `intervals` + 1 points for linear interpolation: for paths that evaluate it
+ * millions of times (the mission sweep of a circular orbit). pointing.spec.ts holds it to the direct form.
  */
-export function viewFactorTable(plan: PointingPlan, rKm: number, bodyRadiusKm: number, intervals = 2048): (u: number) => number {
+export interface ViewFactorTable {
+  values: Float64Array;
+  intervals: number;
+}
+
+export function viewFactorTable(plan: PointingPlan, rKm: number, bodyRadiusKm: number, intervals = 2048): ViewFactorTable {
   const values = new Float64Array(intervals + 2);
   for (let i = 0; i <= intervals; i++) values[i] = pointingViewFactor(plan, rKm, bodyRadiusKm, -1 + (2 * i) / intervals);
   values[intervals + 1] = values[intervals];
-  const half = intervals / 2;
-  return (u) => {
-    const x = (u + 1) * half;
-    const i = x <= 0 ? 0 : x >= intervals ? intervals : Math.floor(x);
-    const f = x - i;
-    return values[i] + (values[i + 1] - values[i]) * (f > 0 ? f : 0);
-  };
+  return { values, intervals };
+}
+
+/** The table's value at u (linear interpolation). */
+export function tableViewFactor(table: ViewFactorTable, u: number): number {
+  const values = table.values;
+  const intervals = table.intervals;
+  const x = (u + 1) * (intervals / 2);
+  const i = x <= 0 ? 0 : x >= intervals ? intervals : x | 0;
+  const f = x - i;
+  return values[i] + (values[i + 1] - values[i]) * (f > 0 ? f : 0);
 }
 
 /** Per sample: the Sun's cosine factor, the view factor, and the local normal (the axis for a spinner). */
@@ -271,39 +340,59 @@ export interface PointingColumns {
   nx: Float64Array;
   ny: Float64Array;
   nz: Float64Array;
+  /** Work columns: the Sun's orbit-normal part and the inertial direction's local components. */
+  sy: Float64Array;
+  ix: Float64Array;
+  iy: Float64Array;
+  iz: Float64Array;
 }
 
 export function pointingColumnsFor(steps: number): PointingColumns {
   const a = () => new Float64Array(steps);
-  return { sunCos: a(), viewFactor: a(), nx: a(), ny: a(), nz: a() };
+  return { sunCos: a(), viewFactor: a(), nx: a(), ny: a(), nz: a(), sy: a(), ix: a(), iy: a(), iz: a() };
 }
 
 /**
  * The columns of an oriented plan over an orbit grid (its inertial direction in the orbit's perifocal
- * frame), with the Sun of `shade` and `sunW`. `viewFactorOf(k, u)` gives the view factor at sample k
- * for the tilt cosine u; by default the direct form at the sample's radius.
+ * frame), with the Sun of `shade` and `sunW`. The view factor comes from `table` where given (one
+ * radius), else the direct form at each sample's radius. Written without calls that return numbers in
+ * the loop: the sweep runs it for every surface of every day.
  */
 export function pointingColumns(
   plan: PointingPlan, grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number,
-  out: PointingColumns = pointingColumnsFor(grid.steps),
-  viewFactorOf: (k: number, u: number) => number = (k, u) => pointingViewFactor(plan, grid.radiusKm[k], bodyRadiusKm, u),
+  out: PointingColumns = pointingColumnsFor(grid.steps), table: ViewFactorTable | null = null,
 ): PointingColumns {
   const d = plan.direction;
-  const [dp, dq, dw] = d.kind === 'inertial' ? d.v : [0, 0, 0];
-  const n = new Float64Array(3);
+  const spin = plan.spin;
+  const steps = grid.steps;
   const { cx, cz } = shade;
-  const { cosNu, sinNu } = grid;
-  for (let k = 0; k < grid.steps; k++) {
-    const c = cosNu[k];
-    const s = sinNu[k];
+  const { sunCos, viewFactor, nx, ny, nz, sy, ix, iy, iz } = out;
+  sy.fill(sunW, 0, steps);
+  if (d.kind === 'inertial') {
     // the inertial direction in the local frame, as the Sun's in orbit-grid.ts shadeGrid
-    directionAt(d, cx[k], sunW, cz[k], dq * c - dp * s, dw, dp * c + dq * s, n);
-    out.nx[k] = n[0];
-    out.ny[k] = n[1];
-    out.nz[k] = n[2];
-    out.sunCos[k] = sunCosine(plan, n[0], n[1], n[2], cx[k], sunW, cz[k]);
-    out.viewFactor[k] = viewFactorOf(k, -n[2]);
+    const [dp, dq, dw] = d.v;
+    const { cosNu, sinNu } = grid;
+    for (let k = 0; k < steps; k++) {
+      const c = cosNu[k];
+      const s = sinNu[k];
+      ix[k] = dq * c - dp * s;
+      iz[k] = dp * c + dq * s;
+    }
+    iy.fill(dw, 0, steps);
   }
+  directionsAt(d, steps, cx, sy, cz, ix, iy, iz, nx, ny, nz, sunCos);
+  if (spin) {
+    for (let k = 0; k < steps; k++) {
+      const cosine = sunCos[k];
+      sunCos[k] = meanPositiveCosine(spin.sin * Math.sqrt(Math.max(0, 1 - cosine * cosine)), spin.cos * cosine);
+    }
+  } else {
+    for (let k = 0; k < steps; k++) if (!(sunCos[k] > 0)) sunCos[k] = 0;
+  }
+  // a tilt that holds (and one radius) needs one view factor
+  if (table && plan.tilt !== null) viewFactor.fill(tableViewFactor(table, plan.tilt), 0, steps);
+  else if (table) for (let k = 0; k < steps; k++) viewFactor[k] = tableViewFactor(table, -nz[k]);
+  else for (let k = 0; k < steps; k++) viewFactor[k] = pointingViewFactor(plan, grid.radiusKm[k], bodyRadiusKm, -nz[k]);
   return out;
 }
 
