@@ -163,6 +163,12 @@ export default async function environmentBench(): Promise<BenchRow[]> {
   const timeC = timeRuns(() => sweepMission(caseC), 1, repeats);
   const timeD = timeRuns(() => sweepMission(caseD), 1, repeats);
   const timeE = timeRuns(() => sweepMission(caseE), 1, repeats);
+  const row = (name: string, time: { median: number; best: number }): BenchRow => ({ case: name, 'eclipta ms': time.median, 'eclipta best ms': time.best });
+  const moonRow = (name: string, time: { median: number; best: number }): BenchRow => ({
+    ...row(name, time),
+    'largest difference': `${(time.median / timeB.median).toFixed(2)}x (b) of this run; ${(time.median / SWEEP_BEFORE_MS).toFixed(2)}x (b) before the planet's shadow (${SWEEP_BEFORE_MS} ms)`,
+    'under 2x (b)': time.median < 2 * timeB.median ? 'yes' : 'NO',
+  });
   // (b) again right beside each pointed sweep, so both see the same machine load
   const pointedRows = pointedCases.map(([name, request]): BenchRow => {
     const fixed = timeRuns(() => sweepMission(caseB), 1, repeats);
@@ -172,12 +178,6 @@ export default async function environmentBench(): Promise<BenchRow[]> {
       'largest difference': `${(pointed.median / fixed.median).toFixed(2)}x (b) with fixed normals timed beside it (${fixed.median.toFixed(1)} ms)`,
       'within 1.5x (b)': pointed.median <= 1.5 * fixed.median ? 'yes' : 'NO',
     };
-  });
-  const row = (name: string, time: { median: number; best: number }): BenchRow => ({ case: name, 'eclipta ms': time.median, 'eclipta best ms': time.best });
-  const moonRow = (name: string, time: { median: number; best: number }): BenchRow => ({
-    ...row(name, time),
-    'largest difference': `${(time.median / timeB.median).toFixed(2)}x (b) of this run; ${(time.median / SWEEP_BEFORE_MS).toFixed(2)}x (b) before the planet's shadow (${SWEEP_BEFORE_MS} ms)`,
-    'under 2x (b)': time.median < 2 * timeB.median ? 'yes' : 'NO',
   });
   const rowC = moonRow('(c) 10 years about Europa, as (b), with Jupiter\'s shadow', timeC);
   const rowD = moonRow('(d) 10 years about the Moon, as (b), with Earth\'s shadow (lunar eclipses)', timeD);

@@ -4,6 +4,7 @@
 import type { CaseExport, CaseExportCase } from '../../shared/api/cases';
 import { csvRecord } from '../../shared/csv/csv-cell';
 import { round } from '../../shared/physics/design-cases';
+import { pointingWords } from '../../shared/physics/pointing';
 import type { AppContext } from '../app-context';
 import type { LoadCaseRow } from '../db/schema';
 import { canonicalJson, checksumMethod, sha256Hex } from './canonical-json';
@@ -58,7 +59,7 @@ const metaColumns = [
 
 /** Every column of the case CSV, in order: what the export's documentation lists. */
 export const caseCsvColumns = [
-  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'surface',
+  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'surface', 'pointing',
   ...componentColumns.map(([, header]) => header), 'absorbed total with margin (W)', 'caution',
 ] as const;
 
@@ -79,8 +80,10 @@ export function caseExportCsv(ctx: AppContext, row: LoadCaseRow): { csv: string;
     doc.case.name, doc.case.revision, doc.status, doc.checksum, i.mission.name, i.body.name, i.orbit.name, c.date, rounded(r.betaDeg, 3),
     rounded(c.solarDistanceAu, 6), c.properties.toUpperCase(), i.margins.heatLoadPercent,
   ];
+  // each surface's pointing in words (pointing.ts), from the case's own conditions
+  const pointing = new Map(c.surfaces.map((s) => [s.name, pointingWords(s.normal)]));
   const line = (kind: string, step: number | null, t: number | null, sunlit: number | null, surface: string, loads: (number | null)[], withMargin: number | null) =>
-    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit, 4), surface, ...loads, rounded(withMargin, 3), doc.caution]);
+    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit, 4), surface, pointing.get(surface) ?? null, ...loads, rounded(withMargin, 3), doc.caution]);
   const loadsOf = (pick: (key: (typeof componentColumns)[number][0]) => number | undefined) =>
     componentColumns.map(([key, , digits]) => rounded(pick(key), digits));
   const out = [csvRecord([...caseCsvColumns])];
