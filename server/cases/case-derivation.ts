@@ -12,7 +12,7 @@ import { designPairs, resolveMargins, type Margins } from '../../shared/physics/
 import { raanOnDateRad, scanMission } from '../../shared/physics/design-scan';
 import { defineOrbit } from '../../shared/physics/orbit-definition';
 import { pairsFromTable } from '../../shared/physics/environment-table';
-import { pointingWords } from '../../shared/physics/pointing';
+import { pointingWords } from '../../shared/physics/pointing-words';
 import { DEG } from '../../shared/physics/vector3';
 import type { AppContext } from '../app-context';
 import type { Db } from '../db/database';

@@ -4,7 +4,7 @@
 import type { CaseExport, CaseExportCase } from '../../shared/api/cases';
 import { csvRecord } from '../../shared/csv/csv-cell';
 import { round } from '../../shared/physics/design-cases';
-import { pointingWords } from '../../shared/physics/pointing';
+import { pointingWords } from '../../shared/physics/pointing-words';
 import type { AppContext } from '../app-context';
 import type { LoadCaseRow } from '../db/schema';
 import { canonicalJson, checksumMethod, sha256Hex } from './canonical-json';

@@ -4,7 +4,7 @@ import { and, asc, eq, ne, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { Surface, surfaceCreate, surfaceUpdate } from '../../shared/api/missions';
 import { PhysicsError } from '../../shared/physics/physics-error';
-import { pointingWords } from '../../shared/physics/pointing';
+import { pointingWords } from '../../shared/physics/pointing-words';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { materials, surfaces, type MaterialRow, type MissionRow, type SurfaceRow } from '../db/schema';

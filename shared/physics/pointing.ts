@@ -1,4 +1,4 @@
-// Where a surface faces over an orbit: every pointing form of API.md "Environment computation" -
+// Where a surface faces over an orbit (the forms in words: pointing-words.ts): every pointing form of API.md "Environment computation" -
 // a named or vector normal of the local orbital frame, the Sun, a direction fixed in inertial space,
 // a one- or two-axis Sun-tracking drive, a plate on a spinning body and a face of a yaw-steered
 // spacecraft. A surface's form is compiled once (`pointingPlan`), turned toward the orbit being
@@ -381,49 +381,32 @@ export function pointingColumns(
     iy.fill(dw, 0, steps);
   }
   directionsAt(d, steps, cx, sy, cz, ix, iy, iz, nx, ny, nz, sunCos);
+  // The loops below inline cap-radiance.ts meanPositiveCosine and tableViewFactor: a call that returns
+  // a number per sample costs the sweep an allocation per sample where the compiler does not inline it.
   if (spin) {
+    const { cos, sin } = spin;
     for (let k = 0; k < steps; k++) {
-      const cosine = sunCos[k];
-      sunCos[k] = meanPositiveCosine(spin.sin * Math.sqrt(Math.max(0, 1 - cosine * cosine)), spin.cos * cosine);
+      const c = sunCos[k];
+      const a = sin * Math.sqrt(Math.max(0, 1 - c * c));
+      const b = cos * c;
+      sunCos[k] = b >= a ? b : b <= -a ? 0 : (b * Math.acos(-b / a) + Math.sqrt(a * a - b * b)) / Math.PI;
     }
   } else {
     for (let k = 0; k < steps; k++) if (!(sunCos[k] > 0)) sunCos[k] = 0;
   }
-  // a tilt that holds (and one radius) needs one view factor
-  if (table && plan.tilt !== null) viewFactor.fill(tableViewFactor(table, plan.tilt), 0, steps);
-  else if (table) for (let k = 0; k < steps; k++) viewFactor[k] = tableViewFactor(table, -nz[k]);
-  else for (let k = 0; k < steps; k++) viewFactor[k] = pointingViewFactor(plan, grid.radiusKm[k], bodyRadiusKm, -nz[k]);
+  if (table) {
+    const values = table.values;
+    const intervals = table.intervals;
+    const half = intervals / 2;
+    if (plan.tilt !== null) viewFactor.fill(tableViewFactor(table, plan.tilt), 0, steps);
+    else {
+      for (let k = 0; k < steps; k++) {
+        const x = (1 - nz[k]) * half;
+        const i = x <= 0 ? 0 : x >= intervals ? intervals : x | 0;
+        const f = x - i;
+        viewFactor[k] = values[i] + (values[i + 1] - values[i]) * (f > 0 ? f : 0);
+      }
+    }
+  } else for (let k = 0; k < steps; k++) viewFactor[k] = pointingViewFactor(plan, grid.radiusKm[k], bodyRadiusKm, -nz[k]);
   return out;
-}
-
-// ---- Words --------------------------------------------------------------------------------------
-
-const NAMED_WORDS: Record<NamedNormal, string> = {
-  nadir: 'nadir', zenith: 'zenith', ram: 'ram', wake: 'wake', 'orbit-normal': 'the orbit normal', 'anti-orbit-normal': 'the anti-orbit-normal', sun: 'the Sun',
-};
-const number = (v: number): string => String(Math.round(v * 1000) / 1000);
-const localWords = (n: LocalNormal): string => (typeof n === 'string' ? NAMED_WORDS[n] : `(${number(n.x)}, ${number(n.y)}, ${number(n.z)}) in the local orbital frame`);
-
-function directionWords(n: DirectionNormal): string {
-  if (typeof n === 'string' || 'x' in n) return n === 'sun' ? 'pointed at the Sun' : `facing ${localWords(n)}`;
-  if ('inertial' in n) return `fixed in inertial space at right ascension ${number(n.inertial.raDeg)}°, declination ${number(n.inertial.decDeg)}° (the body's equator of J2000)`;
-  if ('trackSun' in n) {
-    return n.trackSun.axis === 'both' ? 'tracking the Sun on two axes' : `turned about ${localWords(n.trackSun.axis)} to face the Sun (one-axis drive)`;
-  }
-  return `facing ${localWords(n.yawSteered.normal)} before yaw, on a spacecraft yaw-steered to keep the Sun off its −y face`;
-}
-
-/** A surface's pointing in words, for case exports, audit lines and assumptions. */
-export function pointingWords(n: SurfaceNormal): string {
-  if (typeof n === 'object' && 'spin' in n) {
-    return `on a body spinning about ${axisWords(n.spin.axis)}, ${number(n.spin.angleDeg)}° from the spin axis (loads averaged over a turn)`;
-  }
-  return directionWords(n);
-}
-
-/** A spin axis in words: "the Sun", "nadir", "a direction fixed in inertial space at ...". */
-function axisWords(axis: DirectionNormal): string {
-  if (typeof axis === 'string' || 'x' in axis) return localWords(axis);
-  if ('inertial' in axis) return `a direction ${directionWords(axis)}`;
-  return `an axis ${directionWords(axis).replace(/^facing /, 'along ')}`;
 }
