@@ -223,7 +223,8 @@ export function directionsAt(
         const py = y - c * a[1];
         const pz = z - c * a[2];
         const n = Math.sqrt(px * px + py * py + pz * pz);
-        if (n > 1e-9) {
+        // below 1e-6 the Sun is on the axis to within 0.2 arcsec: the plate rests (and sees it edge-on)
+        if (n > 1e-6) {
           const inverse = 1 / n;
           nx[k] = px * inverse; ny[k] = py * inverse; nz[k] = pz * inverse;
           // (p / |p|) . s = |p|
