@@ -300,20 +300,8 @@ function accumulate(
     let albedo = 0;
     let ir = 0;
     if (p.plan && m) {
-      const { sunCos, viewFactor } = pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm, m.columns, m.table);
-      for (let k = 0; k < steps; k++) solar += sunlit[k] * sunCos[k];
-      if (m.table && p.plan.tilt !== null) {
-        // one view factor at every sample (a tilt that holds on a circular orbit)
-        albedo = viewFactor[0] * zenithSum;
-        ir = viewFactor[0] * steps;
-      } else {
-        for (let k = 0; k < steps; k++) {
-          const z = cz[k];
-          const f = viewFactor[k];
-          if (z > 0) albedo += f * z;
-          ir += f;
-        }
-      }
+      const { sums } = pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm, m.columns, m.table, sunlit);
+      [solar, albedo, ir] = [sums[0], sums[1], sums[2]];
     } else if (p.normal) {
       const nx = p.normal[0];
       const nz = p.normal[2];

@@ -341,6 +341,8 @@ export interface PointingColumns {
   nx: Float64Array;
   ny: Float64Array;
   nz: Float64Array;
+  /** With sunlit shares given: the orbit sums of sunlit x the Sun's factor, F x max(0, cos subsolar), F. */
+  sums: Float64Array;
   /** Work columns: the Sun's orbit-normal part and the inertial direction's local components. */
   sy: Float64Array;
   ix: Float64Array;
@@ -350,18 +352,18 @@ export interface PointingColumns {
 
 export function pointingColumnsFor(steps: number): PointingColumns {
   const a = () => new Float64Array(steps);
-  return { sunCos: a(), viewFactor: a(), nx: a(), ny: a(), nz: a(), sy: a(), ix: a(), iy: a(), iz: a() };
+  return { sunCos: a(), viewFactor: a(), nx: a(), ny: a(), nz: a(), sums: new Float64Array(3), sy: a(), ix: a(), iy: a(), iz: a() };
 }
 
 /**
  * The columns of an oriented plan over an orbit grid (its inertial direction in the orbit's perifocal
  * frame), with the Sun of `shade` and `sunW`. The view factor comes from `table` where given (one
- * radius), else the direct form at each sample's radius. Written without calls that return numbers in
- * the loop: the sweep runs it for every surface of every day.
+ * radius), else the direct form at each sample's radius. Given the sunlit shares, `out.sums` receives
+ * the orbit sums of sunlit x the Sun's factor, of F x max(0, cos subsolar) and of F (the sweep's).
  */
 export function pointingColumns(
   plan: PointingPlan, grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number,
-  out: PointingColumns = pointingColumnsFor(grid.steps), table: ViewFactorTable | null = null,
+  out: PointingColumns = pointingColumnsFor(grid.steps), table: ViewFactorTable | null = null, sunlit: Float64Array | null = null,
 ): PointingColumns {
   const d = plan.direction;
   const spin = plan.spin;
@@ -382,32 +384,44 @@ export function pointingColumns(
     iy.fill(dw, 0, steps);
   }
   directionsAt(d, steps, cx, sy, cz, ix, iy, iz, nx, ny, nz, sunCos);
-  // The loops below inline cap-radiance.ts meanPositiveCosine and tableViewFactor: a call that returns
-  // a number per sample costs the sweep an allocation per sample where the compiler does not inline it.
-  if (spin) {
-    const { cos, sin } = spin;
-    for (let k = 0; k < steps; k++) {
-      const c = sunCos[k];
+  // One loop for both factors (and the orbit sums a sweep asks for), with cap-radiance.ts
+  // meanPositiveCosine and tableViewFactor written inline: a call that returns a number per sample
+  // costs an allocation per sample where the compiler does not inline it.
+  const values = table ? table.values : null;
+  const intervals = table ? table.intervals : 0;
+  const half = intervals / 2;
+  const constant = table && plan.tilt !== null ? tableViewFactor(table, plan.tilt) : -1;
+  const [cos, sin] = spin ? [spin.cos, spin.sin] : [1, 0];
+  let solar = 0;
+  let albedo = 0;
+  let ir = 0;
+  for (let k = 0; k < steps; k++) {
+    const c = sunCos[k];
+    let factor: number;
+    if (spin) {
       const a = sin * Math.sqrt(Math.max(0, 1 - c * c));
       const b = cos * c;
-      sunCos[k] = b >= a ? b : b <= -a ? 0 : (b * Math.acos(-b / a) + Math.sqrt(a * a - b * b)) / Math.PI;
+      factor = b >= a ? b : b <= -a ? 0 : (b * Math.acos(-b / a) + Math.sqrt(a * a - b * b)) / Math.PI;
+    } else factor = c > 0 ? c : 0;
+    let f: number;
+    if (constant >= 0) f = constant;
+    else if (values) {
+      const x = (1 - nz[k]) * half;
+      const i = x <= 0 ? 0 : x >= intervals ? intervals : x | 0;
+      const t = x - i;
+      f = values[i] + (values[i + 1] - values[i]) * (t > 0 ? t : 0);
+    } else f = pointingViewFactor(plan, grid.radiusKm[k], bodyRadiusKm, -nz[k]);
+    sunCos[k] = factor;
+    viewFactor[k] = f;
+    if (sunlit) {
+      const z = cz[k];
+      solar += sunlit[k] * factor;
+      if (z > 0) albedo += f * z;
+      ir += f;
     }
-  } else {
-    for (let k = 0; k < steps; k++) if (!(sunCos[k] > 0)) sunCos[k] = 0;
   }
-  if (table) {
-    const values = table.values;
-    const intervals = table.intervals;
-    const half = intervals / 2;
-    if (plan.tilt !== null) viewFactor.fill(tableViewFactor(table, plan.tilt), 0, steps);
-    else {
-      for (let k = 0; k < steps; k++) {
-        const x = (1 - nz[k]) * half;
-        const i = x <= 0 ? 0 : x >= intervals ? intervals : x | 0;
-        const f = x - i;
-        viewFactor[k] = values[i] + (values[i + 1] - values[i]) * (f > 0 ? f : 0);
-      }
-    }
-  } else for (let k = 0; k < steps; k++) viewFactor[k] = pointingViewFactor(plan, grid.radiusKm[k], bodyRadiusKm, -nz[k]);
+  out.sums[0] = solar;
+  out.sums[1] = albedo;
+  out.sums[2] = ir;
   return out;
 }
