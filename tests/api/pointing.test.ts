@@ -80,3 +80,24 @@ describe('saved surfaces take every pointing form', () => {
     await thermal.delete(`${path}/${created.body.id}`).expect(204);
   });
 });
+
+describe('cases from pointed surfaces', () => {
+  it('derive with a spinner and a yaw-steered face, and the case CSV says each surface\'s pointing in words', async () => {
+    const materialId = libraryMaterialIdOf(t, 'GaAs solar cells');
+    const path = `/api/v1/missions/${missionId}/surfaces`;
+    const spinner = await thermal.post(path).send({ name: 'Drum band', areaM2: 0.5, normal: { spin: { axis: 'sun', angleDeg: 90 } }, materialId }).expect(201);
+    const yaw = await thermal.post(path).send({ name: 'Yawed radiator', areaM2: 0.3, normal: { yawSteered: { normal: 'anti-orbit-normal' } }, materialId }).expect(201);
+    const orbitId = (t.ctx.sqlite.prepare('SELECT id FROM orbits WHERE mission_id = ?').get(missionId) as { id: string }).id;
+    const derived = await thermal.post(`/api/v1/missions/${missionId}/cases/derive`).send({ orbitId, name: 'Pointed' }).expect(201);
+    const hot = derived.body.items[0] as { id: string; inputs: { attitude: string }; results: { surfaces: { name: string; orbitAverage: { solarWm2: number } }[] } };
+    expect(hot.inputs.attitude).toContain('Drum band on a body spinning about the Sun, 90° from the spin axis');
+    // the yaw-steered -y face never sees the Sun (our definition of yaw steering)
+    expect(hot.results.surfaces.find((s) => s.name === 'Yawed radiator')?.orbitAverage.solarWm2).toBe(0);
+    const csv = await thermal.get(`/api/v1/cases/${hot.id}/export?format=csv`).expect(200);
+    expect(csv.text.split('\n')[0]).toContain(',surface,pointing,');
+    // RFC 4180: a cell holding a comma is quoted
+    expect(csv.text).toContain('Drum band,"on a body spinning about the Sun, 90° from the spin axis (loads averaged over a turn)"');
+    expect(csv.text).toContain('Yawed radiator,"facing the anti-orbit-normal before yaw, on a spacecraft yaw-steered');
+    for (const id of [spinner.body.id, yaw.body.id]) await thermal.delete(`${path}/${id}`).expect(204);
+  });
+});
