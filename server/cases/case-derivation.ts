@@ -12,7 +12,7 @@ import { designPairs, resolveMargins, type Margins } from '../../shared/physics/
 import { raanOnDateRad, scanMission } from '../../shared/physics/design-scan';
 import { defineOrbit } from '../../shared/physics/orbit-definition';
 import { pairsFromTable } from '../../shared/physics/environment-table';
-import { pointingWords } from '../../shared/physics/pointing-words';
+import { pointingAssumptions, pointingWords } from '../../shared/physics/pointing-words';
 import { DEG } from '../../shared/physics/vector3';
 import type { AppContext } from '../app-context';
 import type { Db } from '../db/database';
@@ -26,6 +26,7 @@ import { limitWork, MAX_CASE_SAMPLES } from '../work-limit';
 export const caseAssumptions = (conditions: CaseConditions): string[] => [
   'eclipseFraction counts umbra plus half of penumbra (conical shadow, Sun as a uniform disk, no atmosphere)',
   ...caseModelAssumptions(conditions),
+  ...pointingAssumptions(conditions.surfaces.map((s) => s.normal)),
   'surfaces are flat plates fixed in the local orbital frame (x ram, y orbit normal, z zenith), pointed at the Sun, fixed in inertial space, turned by Sun-tracking drives, on a spinner (loads averaged over a turn) or on a yaw-steered spacecraft; no shadowing between them',
   'the worst Sun distance and the worst beta are combined even when they fall on different days (conservative)',
   'the Sun is held fixed over the orbit; tS counts from periapsis (from the ascending node for a circular orbit)',

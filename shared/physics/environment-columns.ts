@@ -22,6 +22,7 @@ import { orbitWarnings } from './orbit-warnings';
 import { combinedSunlit, parentShadow, type ParentShadow } from './parent-shadow';
 import { prepareSurfaces } from './surface-grid';
 import { j2000ToPerifocal } from './pointing';
+import { pointingAssumptions } from './pointing-words';
 import { DEG, dot, norm, scale, subtract, type Vector3 } from './vector3';
 
 export interface EnvironmentRequest {
@@ -79,6 +80,8 @@ export interface EnvironmentColumns {
   parentShadowS: number;
   /** Plain-words warnings about the orbit (orbit-warnings.ts). */
   warnings: string[];
+  /** The assumptions of the pointing forms the surfaces use (pointing-words.ts). */
+  pointing: string[];
 }
 
 export const DEFAULT_STEPS = 360;
@@ -179,6 +182,7 @@ export function computeEnvironmentColumns(request: EnvironmentRequest): Environm
     sampling, grid, weightS: onE?.weightS ?? null, shade, loads,
     averages: onE ? weightedAverages(loads, onE.weightS, orbit.periodS) : averaged(loads.sums, steps),
     parentSunlit, parentBodyId: body.parentId, parentShadowS, warnings: orbitWarnings(body, orbit),
+    pointing: pointingAssumptions(request.surfaces.map((s) => s.normal)),
   };
 }
 

@@ -29,6 +29,7 @@ import { longestShadow, missionDays } from './mission-days';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2 } from './sun';
 import { orientSurfaces, prepareSurfaces, type PreparedSurface } from './surface-grid';
+import { pointingAssumptions } from './pointing-words';
 import { isInertial, j2000ToPerifocal, pointingColumns, pointingColumnsFor, viewFactorTable, type PointingColumns, type ViewFactorTable } from './pointing';
 import { DEG, type Vector3 } from './vector3';
 
@@ -195,7 +196,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
     minBetaDeg: rowCount > 0 ? minBeta : Number.NaN,
     maxBetaDeg: rowCount > 0 ? maxBeta : Number.NaN,
     models,
-    assumptions: sweepAssumptions(models, rows[0].solarFluxWm2),
+    assumptions: [...sweepAssumptions(models, rows[0].solarFluxWm2), ...pointingAssumptions(surfaces.map((s) => s.normal))],
   };
 }
 

@@ -32,3 +32,16 @@ function axisWords(axis: DirectionNormal): string {
   if ('inertial' in axis) return `a direction ${directionWords(axis)}`;
   return `an axis ${directionWords(axis).replace(/^facing /, 'along ')}`;
 }
+
+/** The assumption lines for the pointing forms a set of surfaces uses (none for local-orbital and Sun-pointed plates alone). */
+export function pointingAssumptions(normals: readonly SurfaceNormal[]): string[] {
+  const uses = (test: (n: SurfaceNormal) => boolean) => normals.some(test);
+  const object = (n: SurfaceNormal): n is Exclude<SurfaceNormal, string> => typeof n === 'object' && !('x' in n);
+  const inertial = (n: SurfaceNormal): boolean => object(n) && ('inertial' in n || ('spin' in n && typeof n.spin.axis === 'object' && 'inertial' in n.spin.axis));
+  const lines: string[] = [];
+  if (uses(inertial)) lines.push("inertial pointing: right ascension and declination in the body's equatorial frame of J2000 (IAU pole; for Earth EME2000); with a beta angle given, the Sun is placed by that beta and the inertial plates see it there");
+  if (uses((n) => object(n) && 'trackSun' in n)) lines.push('Sun-tracking drives follow the Sun at once, also in shadow; a one-axis drive turns a plate whose normal is perpendicular to its axis; no gimbal limits');
+  if (uses((n) => object(n) && 'spin' in n)) lines.push("spinning plates: loads averaged over a turn, the Sun's cosine in closed form, the view factor over 64 phases of the turn, the cap integrals with each ray's weight averaged in closed form");
+  if (uses((n) => object(n) && 'yawSteered' in n)) lines.push('yaw steering: the spacecraft turns about nadir so that the Sun stays in its y-z plane on the +y side (the -y face never sees it); no yaw-rate limit');
+  return lines;
+}

@@ -42,6 +42,9 @@ describe('POST /api/v1/environment/compute with every pointing form', () => {
     // the yaw-steered -y face never sees the Sun
     expect(yaw.solarWm2).toBe(0);
     expect(res.body.assumptions.join(' ')).not.toMatch(/NaN/);
+    // the answer says how it treated each form it used
+    expect(res.body.assumptions.join(' ')).toMatch(/spinning plates: loads averaged over a turn/);
+    expect(res.body.assumptions.join(' ')).toMatch(/yaw steering: .* the -y face never sees it/);
   });
 
   it.each([
