@@ -5,7 +5,7 @@ import { bodyIds } from '../../shared/physics/bodies';
 import { orbitDefinitions } from '../../shared/api/missions';
 import type { SurfaceNormal } from '../../shared/physics/pointing';
 import { createdAt, id, updatedAt } from './columns';
-import { users, workspaces } from './schema';
+import { users, workspaces } from './account-tables';
 
 export const missions = sqliteTable(
   'missions',
