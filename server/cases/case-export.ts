@@ -4,6 +4,7 @@
 import type { CaseExport, CaseExportCase } from '../../shared/api/cases';
 import { csvRecord } from '../../shared/csv/csv-cell';
 import { round } from '../../shared/physics/rounding';
+import { pointingWords } from '../../shared/physics/pointing-words';
 import type { AppContext } from '../app-context';
 import type { LoadCaseRow } from '../db/schema';
 import { canonicalJson, checksumMethod, sha256Hex } from './canonical-json';
@@ -58,7 +59,7 @@ const metaColumns = [
 
 /** Every column of the case CSV, in order: what the export's documentation lists. */
 export const caseCsvColumns = [
-  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'surface',
+  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'surface', 'pointing',
   ...componentColumns.map(([, header]) => header), 'absorbed total with margin (W)', 'caution',
 ] as const;
 
@@ -79,8 +80,10 @@ export function caseExportCsv(ctx: AppContext, row: LoadCaseRow): { csv: string;
     doc.case.name, doc.case.revision, doc.status, doc.checksum, inputs.mission.name, inputs.body.name, inputs.orbit.name, conditions.date, rounded(results.betaDeg, 3),
     rounded(conditions.solarDistanceAu, 6), conditions.properties.toUpperCase(), inputs.margins.heatLoadPercent, inputs.phase?.name ?? '', inputs.decision?.survival ? 'survival' : '',
   ];
+  // each surface's pointing in words (pointing.ts), from the case's own conditions
+  const pointing = new Map(conditions.surfaces.map((s) => [s.name, pointingWords(s.normal)]));
   const line = (kind: string, step: number | null, t: number | null, sunlit: number | null, surface: string, loads: (number | null)[], withMargin: number | null) =>
-    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit, 4), surface, ...loads, rounded(withMargin, 3), doc.caution]);
+    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit, 4), surface, pointing.get(surface) ?? null, ...loads, rounded(withMargin, 3), doc.caution]);
   const loadsOf = (pick: (key: (typeof componentColumns)[number][0]) => number | undefined) =>
     componentColumns.map(([key, , digits]) => rounded(pick(key), digits));
   const out = [csvRecord([...caseCsvColumns])];

@@ -4,6 +4,7 @@ import { and, asc, eq, ne, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { Surface, surfaceCreate, surfaceUpdate } from '../../shared/api/missions';
 import { PhysicsError } from '../../shared/physics/physics-error';
+import { pointingWords } from '../../shared/physics/pointing-words';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { materials, surfaces, type MaterialRow, type MissionRow, type SurfaceRow } from '../db/schema';
@@ -72,7 +73,7 @@ export function createSurface(db: Db, userId: string, missionId: string, input: 
   }));
 }
 
-const describeNormal = (normal: SurfaceRow['normal']): string => (typeof normal === 'string' ? `facing ${normal}` : `normal ${JSON.stringify(normal)}`);
+const describeNormal = (normal: SurfaceRow['normal']): string => pointingWords(normal);
 
 export function updateSurface(db: Db, userId: string, missionId: string, surfaceId: string, input: SurfaceUpdate): Promise<Surface> {
   return withQuantityReader((read) => db.transaction((tx) => {

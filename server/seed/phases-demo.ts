@@ -31,11 +31,18 @@ const demoSurfaces: { name: string; areaM2: number; normal: SurfaceNormal; mater
 ];
 
 /**
- * Sun safe: the array faces the Sun. The spin about the Sun line that the mode stands for is not
- * computed by this build (issue 19 item 1 lands separately): the other faces keep their own normals.
+ * Sun safe: the spacecraft spins slowly about the Sun line with the array facing the Sun (0° from the
+ * spin axis), the side radiators and blankets at 90° and the camera deck facing away (180°); each
+ * plate's loads averaged over a turn (shared/physics/pointing.ts).
  */
+const spinning = (angleDeg: number): SurfaceNormal => ({ spin: { axis: 'sun', angleDeg } });
 const sunSafePointing: Record<string, SurfaceNormal> = {
-  'Body-mounted array': 'sun',
+  'Body-mounted array': spinning(0),
+  '+Y radiator': spinning(90),
+  '-Y radiator': spinning(90),
+  'Ram face blanket': spinning(90),
+  'Wake face blanket': spinning(90),
+  'Nadir deck (camera)': spinning(180),
 };
 
 // Invented dissipation (W): LEOP with the camera off, commissioning and nominal imaging a part of each orbit.
@@ -101,7 +108,7 @@ export const seedDemoPhases: FeatureSeed = (tx, team, read) => {
   const modes = [
     { name: 'nadir imaging', description: 'Camera to nadir, array to zenith: the spacecraft frame as defined.', pointing: [] },
     {
-      name: 'Sun safe', description: 'Array to the Sun, turning slowly about the Sun line; entered after separation and on any fault.',
+      name: 'Sun safe', description: 'Array to the Sun, spinning slowly about the Sun line; entered after separation and on any fault.',
       pointing: Object.entries(sunSafePointing).map(([name, normal]) => ({ surfaceId: surfaceId(name), normal })),
     },
   ];

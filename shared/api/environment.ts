@@ -9,7 +9,7 @@ import { lineText } from './text';
 import { bodyIds } from '../physics/bodies';
 import type { EnvironmentRequest } from '../physics/environment';
 import { albedoModels, irModels } from '../physics/cap-loads';
-import { namedNormals } from '../physics/heat-loads';
+import { surfaceNormal } from './pointing';
 import { samplings } from '../physics/orbit-sampling';
 import { DAY_MS } from '../physics/constants';
 
@@ -61,17 +61,9 @@ export const orbitInput = z
     }
   });
 
-export const localVector = z
-  .strictObject({ x: finite('x'), y: finite('y'), z: finite('z') })
-  .refine((v) => Math.abs(Math.hypot(v.x, v.y, v.z) - 1) <= 0.01, {
-    message: 'a custom normal is a unit vector {x, y, z} (x ram, y orbit normal, z zenith); its length must be 1',
-  });
-
 export const surfaceInput = z.strictObject({
   name: lineText(80, 'a surface name has at most 80 characters').min(1, 'give the surface a name'),
-  normal: z.union([z.enum(namedNormals), localVector], {
-    message: `normal is one of ${namedNormals.join(', ')} or a unit vector {x, y, z}`,
-  }),
+  normal: surfaceNormal,
   areaM2: finite('area').positive('area must be above 0 m^2').max(10000),
   absorptivity: finite('absorptivity').min(0, 'absorptivity is 0..1').max(1, 'absorptivity is 0..1'),
   emissivity: finite('emissivity').min(0, 'emissivity is 0..1').max(1, 'emissivity is 0..1'),

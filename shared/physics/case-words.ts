@@ -3,22 +3,21 @@
 import type { Body } from './bodies';
 import { caseModelAssumptions, type CaseConditions, type CaseSurface } from './design-cases';
 import { designPairs } from './design-environment';
+import { pointingAssumptions, pointingWords } from './pointing-words';
 
 /** A case's assumptions: the fixed ones and the albedo, IR and sampling models its conditions use. */
 export const caseAssumptions = (conditions: CaseConditions): string[] => [
   'eclipseFraction counts umbra plus half of penumbra (conical shadow, Sun as a uniform disk, no atmosphere)',
   ...caseModelAssumptions(conditions),
-  'surfaces are flat plates fixed in the local orbital frame (x ram, y orbit normal, z zenith) or pointed at the Sun; no shadowing between them',
+  ...pointingAssumptions(conditions.surfaces.map((s) => s.normal)),
+  'surfaces are flat plates fixed in the local orbital frame (x ram, y orbit normal, z zenith), pointed at the Sun, fixed in inertial space, turned by Sun-tracking drives, on a spinner (loads averaged over a turn) or on a yaw-steered spacecraft; no shadowing between them',
   'the worst Sun distance and the worst beta are combined even when they fall on different days (conservative)',
   'the Sun is held fixed over the orbit; tS counts from periapsis (from the ascending node for a circular orbit)',
 ];
 
-const describeNormal = (normal: CaseSurface['normal']): string =>
-  typeof normal === 'string' ? normal : `{x: ${normal.x}, y: ${normal.y}, z: ${normal.z}}`;
-
-/** The surfaces' normals in words, as a case records its attitude. */
+/** How the surfaces are pointed, in words (pointing-words.ts), as a case records its attitude. */
 export const attitudeText = (list: readonly CaseSurface[]): string =>
-  `surface normals in the local orbital frame: ${list.map((s) => `${s.name} ${describeNormal(s.normal)}`).join('; ')}`;
+  `surface pointing: ${list.map((s) => `${s.name} ${pointingWords(s.normal)}`).join('; ')}`;
 
 /**
  * A single case's albedo and OLR in words: where they come from (the body's nominal values unless

@@ -64,7 +64,7 @@ export const CAUTION = 'preliminary-design estimate from simplified models; veri
 
 /** The assumptions of an answer: the models it used, in words. */
 export function environmentAssumptions(c: EnvironmentColumns): string[] {
-  const used = [ECLIPSE_ASSUMPTION, ...(c.parentBodyId ? [PARENT_SHADOW] : []), ...capAssumptions(c.models, c.solarFluxWm2), SUN_FIXED, SAMPLING[c.sampling], CAUTION];
+  const used = [ECLIPSE_ASSUMPTION, ...(c.parentBodyId ? [PARENT_SHADOW] : []), ...capAssumptions(c.models, c.solarFluxWm2), ...c.pointing, SUN_FIXED, SAMPLING[c.sampling], CAUTION];
   return [...used, ...c.warnings.map((w) => `warning: ${w}`)];
 }
 

@@ -42,7 +42,11 @@ describe('attitude modes and phases: reading, roles and audit', () => {
   it('every member reads the demo mission\'s two modes and three phases by start date; another workspace gets 404', async () => {
     const modes = (await as.viewer.get(`/api/v1/missions/${demoId}/attitude-modes`).expect(200)).body.items as unknown[];
     expect(modes.map((m) => attitudeMode.parse(m).name)).toEqual(['nadir imaging', 'Sun safe']);
-    expect(attitudeMode.parse(modes[1]).pointing.map((p) => [p.surfaceName, p.normal])).toEqual([['Body-mounted array', 'sun']]);
+    // Sun safe spins about the Sun line: the array faces the Sun, the camera deck faces away
+    const spin = Object.fromEntries(attitudeMode.parse(modes[1]).pointing.map((p) => [p.surfaceName, p.normal]));
+    expect(spin['Body-mounted array']).toEqual({ spin: { axis: 'sun', angleDeg: 0 } });
+    expect(spin['Nadir deck (camera)']).toEqual({ spin: { axis: 'sun', angleDeg: 180 } });
+    expect(Object.keys(spin)).toHaveLength(6);
     const phases = ((await as.analyst.get(`/api/v1/missions/${demoId}/phases`).expect(200)).body.items as unknown[]).map((p) => missionPhase.parse(p));
     expect(phases.map((p) => [p.name, p.startDate, p.endDate, p.modeName])).toEqual([
       ['Launch and early orbit', '2028-01-10', '2028-01-24', 'Sun safe'],

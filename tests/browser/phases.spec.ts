@@ -14,7 +14,7 @@ test('the thermal engineer reads and adds phases, sweeps the mission by phase an
   await page.getByRole('link', { name: mission }).click();
   await page.getByRole('tab', { name: 'Modes and phases' }).click();
   await expect(page.getByTestId('mode-row')).toHaveCount(2);
-  await expect(page.getByTestId('mode-table')).toContainText('Body-mounted array → sun; the others as defined');
+  await expect(page.getByTestId('mode-table')).toContainText('Body-mounted array → on a body spinning about the Sun, 0° from the spin axis');
   await expect(page.getByTestId('phase-row')).toHaveCount(3);
   await expect(page.getByTestId('phase-table')).toContainText('Launch and early orbit');
   await expect(page.getByTestId('phase-table')).toContainText('camera: 22 W for 1500 s every 5800 s, else 3 W');
