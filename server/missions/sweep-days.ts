@@ -72,10 +72,17 @@ export function sweepChunkComputer(
   limitWork([{ name: 'days', count: plan.days }, { name: 'surfaces of the mission', count: surfaces.length }], 'stepDays', 'use a larger stepDays or a shorter range (from, to)');
   const physicsSurfaces = surfaces.map((s) => s.physics);
   const labelled = surfaces.map((s) => ({ id: s.label.id, name: s.label.name, normal: s.physics.normal }));
-  // Each phase's pointing is checked and made once; the physics prepares it once per chunk that meets it.
+  // Each mode's pointing is checked and made once, one list per mode (phases in one mode share it), so
+  // the physics prepares each mode once per chunk that meets it.
+  const byMode = new Map<string, typeof physicsSurfaces>();
   const attitudeSpans = phases.map((f) => {
-    const normals = normalsInMode(labelled, f.mode);
-    return { ...phaseSpanMs(f.phase), surfaces: physicsSurfaces.map((s, i) => ({ ...s, normal: normals[i]! })) };
+    let list = byMode.get(f.mode.id);
+    if (list === undefined) {
+      const normals = normalsInMode(labelled, f.mode);
+      list = physicsSurfaces.map((s, i) => ({ ...s, normal: normals[i]! }));
+      byMode.set(f.mode.id, list);
+    }
+    return { ...phaseSpanMs(f.phase), surfaces: list };
   });
   return (first, count) => {
     const startDate = isoDay(dayMs(plan.from) + first * plan.stepDays * DAY_MS);

@@ -57,7 +57,8 @@ export interface MissionSweepRequest extends CapModelRequest {
    * Other pointings of the same surfaces (same names, same order) over parts of the sweep: a
    * mission's phases, each with its attitude mode. A row whose instant is in [fromMs, toMs) of a
    * span takes that span's surfaces (the first span that holds it); a row in none the request's.
-   * The per-day geometry (Sun, node, shadow) is computed once per row whatever the span.
+   * The per-day geometry (Sun, node, shadow) is computed once per row whatever the span; spans that
+   * share one surfaces list (phases in one mode) share its preparation.
    */
   attitudeSpans?: readonly AttitudeSpan[] | undefined;
 }
@@ -152,15 +153,17 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   const grid = orbitGrid(orbit, body.radiusKm, steps);
   const scanGrid = steps >= SWEEP_SCAN_STEPS ? grid : orbitGrid(orbit, body.radiusKm, SWEEP_SCAN_STEPS);
   const shade = gridShade(steps);
-  // What each pointing needs for every date, made once per pointing the rows meet (index -1: the request's surfaces).
-  const pointings = new Map<number, Pointing>();
+  // What each pointing needs for every date, made once per list of surfaces the rows meet (spans
+  // that share one list, e.g. two phases in one attitude mode, share it too).
+  const pointings = new Map<readonly Surface[], Pointing>();
   const spans = request.attitudeSpans ?? [];
   const pointingAt = (ms: number): { index: number; set: Pointing } => {
     const index = spans.findIndex((span) => ms >= span.fromMs && ms < span.toMs);
-    let set = pointings.get(index);
+    const list = index < 0 ? surfaces : spans[index]!.surfaces;
+    let set = pointings.get(list);
     if (set === undefined) {
-      set = pointing(index < 0 ? surfaces : spans[index]!.surfaces, grid, orbit, body.radiusKm, needsCap(models));
-      pointings.set(index, set);
+      set = pointing(list, grid, orbit, body.radiusKm, needsCap(models));
+      pointings.set(list, set);
     }
     return { index, set };
   };
