@@ -14,6 +14,9 @@ import { authRoutes } from './routes/auth';
 import { caseRoutes } from './routes/cases';
 import { environmentRoutes } from './routes/environment';
 import { environmentTableRoutes } from './routes/environment-table';
+import { customBodyRoutes } from './routes/custom-bodies';
+import { lookupCustomBody } from './bodies/custom-body-store';
+import { setCustomBodyLookup } from '../shared/physics/bodies';
 import { ephemerisRoutes } from './routes/ephemerides';
 import { invitationRoutes } from './routes/invitations';
 import { materialRoutes } from './routes/materials';
@@ -41,6 +44,7 @@ export const featureRoutes: FeatureRoutes[] = [
   surfaceRoutes,
   materialRoutes,
   environmentTableRoutes,
+  customBodyRoutes,
   ephemerisRoutes,
   caseRoutes,
   thermalModelRoutes,
@@ -52,6 +56,8 @@ export interface AppOptions {
 }
 
 export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
+  // The physics finds a workspace's own bodies (custom-...) in this app's database.
+  setCustomBodyLookup((id) => lookupCustomBody(ctx.db, id));
   const app = express();
   app.disable('x-powered-by');
   app.use(

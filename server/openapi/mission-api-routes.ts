@@ -7,6 +7,7 @@ import {
 import { caseDetail } from '../../shared/api/cases';
 import { environmentResponse } from '../../shared/api/environment';
 import { environmentTable, environmentTablePut } from '../../shared/api/environment-table';
+import { customBody, customBodyInput, customBodyList } from '../../shared/api/custom-bodies';
 import {
   material, materialCreate, materialUpdate, mission, missionCreate, missionDetail, missionUpdate, orbit, orbitCreate, orbitUpdate,
   savedEnvironmentRequest, surface, surfaceCreate, surfaceUpdate, sweepQuery,
@@ -40,6 +41,11 @@ export const missionApiRoutes: ApiRoute[] = [
   { method: 'delete', path: `${v1}/workspaces/:workspaceId/materials/:materialId`, tag: 'materials', summary: 'Delete a workspace material', status: 204 },
   { method: 'get', path: `${v1}/workspaces/:workspaceId/environment-table`, tag: 'environment table', summary: 'The workspace’s own paired hot/cold albedo and OLR by inclination band and averaging time (any member)', response: environmentTable },
   { method: 'put', path: `${v1}/workspaces/:workspaceId/environment-table`, tag: 'environment table', summary: 'Replace the workspace’s environment table (owner, thermal)', body: environmentTablePut, response: environmentTable },
+  { method: 'get', path: `${v1}/workspaces/:workspaceId/bodies`, tag: 'bodies', summary: 'The workspace’s own central bodies (any member); ids are "custom-" and a UUID, never a catalogue name', response: customBodyList },
+  { method: 'post', path: `${v1}/workspaces/:workspaceId/bodies`, tag: 'bodies', summary: 'Add a body of the workspace’s own (owner, thermal, analyst): GM, radius, J2, about the Sun or a planet, albedo/OLR ranges, airless surface field, a source per value', body: customBodyInput, status: 201, response: customBody },
+  { method: 'get', path: `${v1}/workspaces/:workspaceId/bodies/:bodyId`, tag: 'bodies', summary: 'One of the workspace’s own bodies', response: customBody },
+  { method: 'put', path: `${v1}/workspaces/:workspaceId/bodies/:bodyId`, tag: 'bodies', summary: 'Change one of the workspace’s own bodies (owner, thermal, analyst)', body: customBodyInput, response: customBody },
+  { method: 'delete', path: `${v1}/workspaces/:workspaceId/bodies/:bodyId`, tag: 'bodies', summary: 'Delete one of the workspace’s own bodies (owner, thermal, analyst); 409 while a mission uses it', status: 204 },
   { method: 'post', path: `${m}/ephemerides`, tag: 'ephemerides', summary: 'Upload an ephemeris (multipart: file, frame, name)', body: ephemerisUploadFields, bodyKind: 'multipart', status: 201, response: ephemerisSummary },
   { method: 'get', path: `${m}/ephemerides`, tag: 'ephemerides', summary: 'A mission’s ephemerides', response: items(ephemerisSummary) },
   { method: 'get', path: `${m}/ephemerides/:ephemerisId`, tag: 'ephemerides', summary: 'One ephemeris (summary)', response: ephemerisSummary },

@@ -2,12 +2,15 @@
 // catalogue and one body, one orbit's environment and figures, the sun-synchronous orbit at an
 // altitude, the beta history over a date range, and unit conversion for the client's fields.
 // Any signed-in role may call them; malformed input is a 400, the physically impossible a 422.
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import {
   asEnvironmentRequest, betaHistoryRequest, environmentRequest, orbitFiguresRequest, sunSynchronousQuery, unitConvertRequest,
   type BetaHistoryResponse, type BodyDetailResponse,
 } from '../../shared/api/environment';
-import { bodySummaries, getBody, isBodyId, type Body } from '../../shared/physics/bodies';
+import { bodySummaries, bodySummary, getBody, isBodyId, type Body } from '../../shared/physics/bodies';
+import { isCustomBodyId } from '../../shared/physics/custom-bodies';
+import { listCustomBodies, useCustomBodyIn } from '../bodies/custom-body-store';
+import { userWorkspaces } from '../auth/me-response';
 import { computeEnvironmentColumns, environmentResult } from '../../shared/physics/environment';
 import { environmentColumnsAnswer, environmentJson } from '../http/environment-json';
 import { sweepMission } from '../../shared/physics/mission-sweep';
@@ -15,7 +18,7 @@ import { orbitFigures } from '../../shared/physics/orbit-figures';
 import { sunlightRange } from '../../shared/physics/sun';
 import { sunSynchronousOrbit } from '../../shared/physics/sun-synchronous';
 import type { AppContext } from '../app-context';
-import { requireUser } from '../auth/middleware';
+import { requireUser, signedIn } from '../auth/middleware';
 import { notFound, parse } from '../errors';
 import { limitWork } from '../work-limit';
 import { answerForm, sendPerStep } from '../http/answer-formats';
@@ -30,41 +33,53 @@ const BETA_HISTORY_ASSUMPTIONS = [
   'eclipseFraction counts umbra plus half of penumbra (conical shadow, Sun as a uniform disk, no atmosphere), the Sun held fixed over each orbit',
 ];
 
-function bodyFromPath(id: string): Body {
-  if (!isBodyId(id)) throw notFound(`There is no body "${id}"; GET /api/v1/bodies lists them.`);
+/** The caller's workspaces, where their own bodies may come from. */
+const workspaceIdsOf = (ctx: AppContext, req: Request): string[] => userWorkspaces(ctx.db, signedIn(req).user.id).map((w) => w.workspaceId);
+
+/** A body named in a path: the catalogue's, or one of the caller's workspaces' own (404 otherwise). */
+function bodyFromPath(ctx: AppContext, req: Request, id: string): Body {
+  const mine = isCustomBodyId(id) && listCustomBodies(ctx.db, workspaceIdsOf(ctx, req)).some((b) => b.id === id);
+  if (!isBodyId(id) && !mine) throw notFound(`There is no body "${id.slice(0, 80)}"; GET /api/v1/bodies lists them.`);
   return getBody(id);
 }
 
-export function environmentRoutes(_ctx: AppContext): Router {
+/** A body named in a request body: a workspace's own only from the caller's workspaces (400 naming bodyId). */
+const checkBodyOfCaller = (ctx: AppContext, req: Request, bodyId: string): void => {
+  if (isCustomBodyId(bodyId)) useCustomBodyIn(ctx.db, workspaceIdsOf(ctx, req), bodyId);
+};
+
+export function environmentRoutes(ctx: AppContext): Router {
   const router = Router();
 
   // The catalogue is constant data; computed once.
   const bodies = bodySummaries();
-  router.get('/bodies', requireUser, (_req, res) => {
-    res.json(bodies);
+  // then the caller's workspaces' own bodies, each with its workspace
+  router.get('/bodies', requireUser, (req, res) => {
+    const own = listCustomBodies(ctx.db, workspaceIdsOf(ctx, req)).map((b) => ({ ...bodySummary(getBody(b.id)), workspaceId: b.workspaceId }));
+    res.json([...bodies, ...own]);
   });
 
   router.get('/bodies/:bodyId', requireUser, (req, res) => {
-    const body = bodyFromPath(req.params['bodyId'] as string);
-    const summary = bodies.find((b) => b.id === body.id);
-    if (!summary) throw notFound(`There is no body "${body.id}".`);
-    const detail: BodyDetailResponse = { ...summary, ...sunlightRange(body) };
+    const body = bodyFromPath(ctx, req, req.params['bodyId'] as string);
+    const detail: BodyDetailResponse = { ...bodySummary(body), ...sunlightRange(body) };
     res.json(detail);
   });
 
   router.get('/bodies/:bodyId/sun-synchronous', requireUser, (req, res) => {
-    const body = bodyFromPath(req.params['bodyId'] as string);
+    const body = bodyFromPath(ctx, req, req.params['bodyId'] as string);
     const query = parse(sunSynchronousQuery, req.query);
     res.json(sunSynchronousOrbit(body, query.altitudeKm, query.eccentricity ?? 0));
   });
 
   router.post('/orbits/figures', requireUser, (req, res) => {
     const request = parse(orbitFiguresRequest, req.body);
+    checkBodyOfCaller(ctx, req, request.bodyId);
     res.json(orbitFigures(getBody(request.bodyId), request.orbit));
   });
 
   router.post('/environment/compute', requireUser, async (req, res) => {
     const request = parse(environmentRequest, req.body);
+    checkBodyOfCaller(ctx, req, request.bodyId);
     limitWork([{ name: 'steps', count: request.steps }, { name: 'surfaces', count: request.surfaces.length }], 'steps', 'use fewer steps or fewer surfaces');
     const form = answerForm(req);
     const columns = computeEnvironmentColumns(asEnvironmentRequest(request));
@@ -79,6 +94,7 @@ export function environmentRoutes(_ctx: AppContext): Router {
 
   router.post('/environment/beta-history', requireUser, (req, res) => {
     const request = parse(betaHistoryRequest, req.body);
+    checkBodyOfCaller(ctx, req, request.bodyId);
     const fromMs = Date.parse(request.from);
     const sweep = sweepMission({
       bodyId: request.bodyId,

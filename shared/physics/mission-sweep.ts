@@ -12,7 +12,7 @@
 // Leaves out: everything computeEnvironment leaves out; drag and other perturbations that change
 // the orbit's size or inclination; the Sun's motion within one orbit. Sources: Vallado ch. 9 (J2
 // secular rates); the models of environment.ts; the Sun from VSOP87 through sun-track.ts.
-import { getBody, type BodyId } from './bodies';
+import { getBody, type AnyBodyId } from './bodies';
 import { capAssumptions, capColumns, capExitances, capGridNodes, COARSE_CAP_NODES, chooseCapModels, needsCap, type CapModelChoice, type CapModelRequest } from './cap-loads';
 import type { EclipseSummary } from './eclipse';
 import type { Surface, SurfaceLoad } from './heat-loads';
@@ -30,7 +30,7 @@ import { DEG } from './vector3';
 import { plateToSphereViewFactor } from './view-factors';
 
 export interface MissionSweepRequest extends CapModelRequest {
-  bodyId: BodyId | string;
+  bodyId: AnyBodyId | string;
   /** The compute route's orbit object; RAAN and argument of periapsis hold at orbitEpoch. */
   orbit: OrbitInput;
   /** The first date of the sweep (ISO 8601 UTC or a Date). */
@@ -69,13 +69,13 @@ export interface MissionSweepRow {
    */
   longestShadowS: number;
   /** Which bodies cast it ('europa', 'jupiter', or both); empty without shadow. */
-  longestShadowCastBy: BodyId[];
+  longestShadowCastBy: AnyBodyId[];
   /** When it starts (ISO 8601 UTC) for a shadow the planet takes part in; null for the body's own. */
   longestShadowStart: string | null;
 }
 
 export interface MissionSweepResult {
-  bodyId: BodyId;
+  bodyId: AnyBodyId;
   periodS: number;
   nodalRateDegPerDay: number;
   apsidalRateDegPerDay: number;

@@ -14,7 +14,7 @@
 // by linear interpolation of the shadow test (seconds); within one passage (hours) the orbit's
 // plane is held where it is at the passage's middle. Sources: Montenbruck & Gill,
 // Satellite Orbits, sect. 3.4.2 (conical shadow, from memory); Vallado ch. 2 and 9 (orbit, J2 drift).
-import { getBody, type Body, type BodyId } from './bodies';
+import { getBody, type AnyBodyId, type Body } from './bodies';
 import { AU_KM, SUN_RADIUS_KM } from './constants';
 import { shadowGeometry, sunlitFraction, type ShadowGeometry } from './eclipse';
 import { apsidalRateRadS } from './kepler';
@@ -34,7 +34,7 @@ export interface ShadowSpan {
   parentS: number;
   parentMiddleMs: number;
   /** The bodies whose shadow makes up the span: the planet, and the moon where its own shadow joins on. */
-  castBy: BodyId[];
+  castBy: AnyBodyId[];
 }
 
 export interface ShadowAt {
