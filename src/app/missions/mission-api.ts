@@ -33,10 +33,15 @@ function readSunSynchronous(body: unknown): SunSynchronousAnswer {
 export class MissionApi {
   private readonly http = inject(HttpClient);
 
-  // The catalogue is constant for the life of the server; fetched once per visit.
+  // The catalogue and the caller's workspaces' own bodies, for names on pages: fetched once per visit.
   readonly bodies$: Observable<BodySummaryResponse[]> = this.http
     .get<BodySummaryResponse[]>(apiPath('bodies'))
     .pipe(shareReplay({ bufferSize: 1, refCount: false }));
+
+  /** The same, fetched now: a body the workspace added since is in it (the mission form offers it). */
+  currentBodies(): Observable<BodySummaryResponse[]> {
+    return this.http.get<BodySummaryResponse[]>(apiPath('bodies'));
+  }
 
   missions(includeArchived: boolean): Observable<Mission[]> {
     const params = includeArchived ? new HttpParams().set('includeArchived', 'true') : undefined;
