@@ -16,7 +16,7 @@
 // Satellite Orbits, sect. 3.4.2 (conical shadow, from memory); Vallado ch. 2 and 9 (orbit, J2 drift).
 import { getBody, type AnyBodyId, type Body } from './bodies';
 import { AU_KM, SUN_RADIUS_KM } from './constants';
-import { shadowGeometry, sunlitFraction, type ShadowGeometry } from './eclipse';
+import { shadowGeometryInto, sunlitFraction, type ShadowGeometry } from './eclipse';
 import { apsidalRateRadS } from './kepler';
 import { jdeOfMs, localMoonTrack, moonTrack, type MoonTrack } from './moon-ephemeris';
 import type { Orbit } from './orbit-definition';
@@ -142,19 +142,22 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     return { p: icrf(basis.p), q: icrf(basis.q) };
   };
   /** Both shadow tests and sunlit shares at ms, the orbit's plane held as `axes` gives it. */
-  const shadeAt = (ms: number, frame: Frame, axes: { p: Vector3; q: Vector3 }, moonAt: (ms: number) => Vector3 = moonKm): Shade => {
-    const m = moonAt(ms);
+  const planetGeometry: ShadowGeometry = { sunRadiusRad: 0, bodyRadiusRad: 0, separationRad: 0 };
+  const moonGeometry: ShadowGeometry = { sunRadiusRad: 0, bodyRadiusRad: 0, separationRad: 0 };
+  const moonAtBuffer = new Float64Array(3);
+  const shadeAt = (ms: number, frame: Frame, axes: { p: Vector3; q: Vector3 }, moonAt: (ms: number, out: Float64Array) => void = (t, out) => track.at(t, out)): Shade => {
+    moonAt(ms, moonAtBuffer);
+    const [mx, my, mz] = [moonAtBuffer[0], moonAtBuffer[1], moonAtBuffer[2]];
     const elapsedS = (ms - orbitEpochMs) / 1000;
     const nu = trueAnomalyAt(orbit, ((elapsedS % orbit.periodS) + orbit.periodS) % orbit.periodS);
     const r = (a * (1 - e * e)) / (1 + e * Math.cos(nu));
     const [c, s] = [Math.cos(nu) * r, Math.sin(nu) * r];
     const { p, q } = axes;
-    const sc: Vector3 = [p[0] * c + q[0] * s, p[1] * c + q[1] * s, p[2] * c + q[2] * s];
-    const planetGeometry = shadowGeometry([m[0] + sc[0], m[1] + sc[1], m[2] + sc[2]], frame.sun, frame.sunKm, parent.radiusKm);
-    // The Sun seen from the moon's centre: the planet's Sun moved by the moon's offset.
-    const toSun: Vector3 = [frame.sun[0] * frame.sunKm - m[0], frame.sun[1] * frame.sunKm - m[1], frame.sun[2] * frame.sunKm - m[2]];
-    const moonSunKm = norm(toSun);
-    const moonGeometry = shadowGeometry(sc, [toSun[0] / moonSunKm, toSun[1] / moonSunKm, toSun[2] / moonSunKm], moonSunKm, body.radiusKm);
+    const [x, y, z] = [p[0] * c + q[0] * s, p[1] * c + q[1] * s, p[2] * c + q[2] * s];
+    // The Sun's centre from the spacecraft: the planet's Sun moved by the moon's offset and the spacecraft's.
+    const [tx, ty, tz] = [frame.sun[0] * frame.sunKm - mx - x, frame.sun[1] * frame.sunKm - my - y, frame.sun[2] * frame.sunKm - mz - z];
+    shadowGeometryInto(mx + x, my + y, mz + z, tx, ty, tz, parent.radiusKm, planetGeometry);
+    shadowGeometryInto(x, y, z, tx, ty, tz, body.radiusKm, moonGeometry);
     const fMoon = sunlitFraction(moonGeometry);
     const fParent = sunlitFraction(planetGeometry);
     return { moonTest: shadowTest(moonGeometry), parentTest: shadowTest(planetGeometry), moon: fMoon, parent: fParent, sunlit: combinedSunlit(fMoon, fParent) };
@@ -225,10 +228,6 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     const stepMs = periodMs / 32;
     // The moon over this stretch and half an orbit beyond either side from three evaluations of its theory.
     const local = localMoonTrack(body, roughFrom - periodMs / 2, roughTo + periodMs / 2 + stepMs);
-    const localKm = (ms: number): Vector3 => {
-      local(ms, buffer);
-      return [buffer[0], buffer[1], buffer[2]];
-    };
     // 1b. The same on the accurate track in fine steps: where the moon's centre is within reach of
     //     the penumbra, and where it is so deep in the umbra that the whole orbit is. The margin is
     //     the moon's motion in one step (the distance off the axis changes no faster) and the
@@ -236,11 +235,13 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     const fineMs = Math.max(10e3, Math.min(stepMs, coarseMs / 8));
     const marginKm = moonSpeedKmMs * fineMs + LOCAL_TRACK_KM;
     let [firstIn, lastIn, firstDeep, lastDeep] = [Infinity, -Infinity, Infinity, -Infinity];
+    const [sx, sy, sz] = frame.sun;
     for (let t = roughFrom; t <= roughTo; t += fineMs) {
-      const m = localKm(t);
-      const back = -dot(m, frame.sun);
+      local(t, buffer);
+      const [bx, by, bz] = [buffer[0], buffer[1], buffer[2]];
+      const back = -(bx * sx + by * sy + bz * sz);
       if (back <= 0) continue;
-      const off = Math.sqrt(Math.max(0, dot(m, m) - back * back));
+      const off = Math.sqrt(Math.max(0, bx * bx + by * by + bz * bz - back * back));
       if (off < penumbraKm(back, frame.sunKm) + reachKm + marginKm) {
         firstIn = Math.min(firstIn, t);
         lastIn = Math.max(lastIn, t);
@@ -259,7 +260,7 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     const from = roughFrom - periodMs / 2 + Math.max(0, Math.floor((firstIn - fineMs - roughFrom) / stepMs)) * stepMs;
     const to = lastIn + fineMs + periodMs / 2;
     const axes = perifocalAt(centreMs, frame);
-    const shade = (ms: number): Shade => shadeAt(ms, frame, axes, localKm);
+    const shade = (ms: number): Shade => shadeAt(ms, frame, axes, local);
     const spans: ShadowSpan[] = [];
     let run: { startMs: number; parentS: number; moon: boolean; parentFirstMs: number; parentLastMs: number } | null = null;
     let prev = shade(from);
