@@ -105,20 +105,30 @@ describe('a workspace\'s own bodies', () => {
 
   it('keeps an asteroid about the Sun at its entered distances and computes its environment at an epoch', async () => {
     const made = await thermal.post(bodiesUrl()).send({
-      name: 'Invented asteroid', gmKm3S2: 0.5, radiusKm: '120 km', place: { kind: 'sun', meanAu: 2.7, minAu: 2.5, maxAu: 2.9 },
+      name: 'Invented asteroid', gmKm3S2: 0.5, radiusKm: '120 km', place: { kind: 'sun', meanAu: 2.6, minAu: 2.4, maxAu: 2.8 },
       albedo: { min: 0.05, nominal: 0.09, max: 0.12 }, olrWm2: { min: 20, nominal: 40, max: 45 },
     }).expect(201);
     const detail = (await viewer.get(`/api/v1/bodies/${made.body.id}`).expect(200)).body;
-    expect(detail.solarDistanceAu).toEqual({ mean: 2.7, min: 2.5, max: 2.9 });
+    expect(detail.solarDistanceAu).toEqual({ mean: 2.6, min: 2.4, max: 2.8 });
     const res = await viewer.post('/api/v1/environment/compute').send({
       bodyId: made.body.id, orbit: { periapsisAltitudeKm: 50, apoapsisAltitudeKm: 50 }, epoch: '2030-06-01T00:00:00Z', steps: 36,
       surfaces: [{ name: 'n', normal: 'nadir', areaM2: 1, absorptivity: 0.3, emissivity: 0.8 }],
     }).expect(200);
     // on its ellipse between the entered perihelion and aphelion: the inverse square law of 1361 W/m^2 at 1 AU
-    expect(res.body.solarDistanceAu).toBeGreaterThanOrEqual(2.5);
-    expect(res.body.solarDistanceAu).toBeLessThanOrEqual(2.9);
+    expect(res.body.solarDistanceAu).toBeGreaterThanOrEqual(2.4);
+    expect(res.body.solarDistanceAu).toBeLessThanOrEqual(2.8);
     expect(res.body.solarFluxWm2).toBeCloseTo(1361 / res.body.solarDistanceAu ** 2, 0);
     expect(res.body.irModel).toBe('uniform');
+    // a year's mission on its ellipse: the hot case is taken nearest the Sun, the cold farthest (within the year's span of the ellipse)
+    const mission = await thermal.post('/api/v1/missions').send({ workspaceId: kestrel, name: 'Asteroid flyer', bodyId: made.body.id, startDate: '2030-01-01', endDate: '2034-12-31' }).expect(201);
+    const orbit = await thermal.post(`/api/v1/missions/${mission.body.id}/orbits`)
+      .send({ name: 'Low', epoch: '2030-01-01T00:00:00Z', periapsisAltitudeKm: 50, apoapsisAltitudeKm: 50, inclinationDeg: 80 }).expect(201);
+    await thermal.post(`/api/v1/missions/${mission.body.id}/surfaces`).send({ name: 'Radiator', normal: 'zenith', areaM2: 0.5, materialId: libraryMaterialIdOf(t, 'white silicone paint') }).expect(201);
+    const cases = await thermal.post(`/api/v1/missions/${mission.body.id}/cases/derive`).send({ orbitId: orbit.body.id, name: 'Asteroid', steps: 24 }).expect(201);
+    const byKind = Object.fromEntries((cases.body.items as { kind: string; inputs: { conditions: { solarDistanceAu: number } } }[]).map((c) => [c.kind, c.inputs.conditions.solarDistanceAu]));
+    // five years span its whole 4.2-year orbit (Kepler's third law: 2.6^1.5 years): both ends are reached
+    expect(byKind['hot']).toBeCloseTo(2.4, 2);
+    expect(byKind['cold']).toBeCloseTo(2.8, 2);
   });
 
   it('refuses another workspace\'s body in a computation and in a mission with a 400 naming bodyId', async () => {
