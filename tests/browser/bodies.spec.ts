@@ -53,8 +53,17 @@ test('a thermal engineer adds a body with typed units and named field messages; 
   await page.getByTestId('mission-body').click();
   await expect(page.getByRole('option', { name: /Invented asteroid \(the workspace’s own body\)/ })).toHaveCount(1);
   await page.getByRole('option', { name: /Invented asteroid/ }).click();
-  await page.getByRole('button', { name: 'Cancel' }).click();
+  await page.getByTestId('mission-name').fill('Asteroid flyer');
+  await page.getByTestId('mission-start').fill('2030-01-01');
+  await page.getByTestId('mission-end').fill('2030-12-31');
+  await page.getByTestId('mission-save').click();
   await expect(page.locator('mat-dialog-container')).toHaveCount(0);
+  await expect(page.getByRole('heading', { name: 'Asteroid flyer' })).toBeVisible();
+  await expect(page.getByText('Invented asteroid').first()).toBeVisible();
+  await screenshot(page, 'bodies-mission-page');
+  // the mission names its body as the workspace entered it
+  await page.getByTestId('nav-missions').click();
+  await expect(page.getByRole('row').filter({ hasText: 'Asteroid flyer' })).toContainText('Invented asteroid');
 
   await page.getByTestId('user-menu').click();
   await page.getByTestId('sign-out').click();

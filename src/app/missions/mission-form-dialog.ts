@@ -99,7 +99,7 @@ export class MissionFormDialog {
   protected readonly dialogRef = inject<MatDialogRef<MissionFormDialog, Mission>>(MatDialogRef);
   // the catalogue and this workspace's own bodies (another workspace's could not be its body)
   protected readonly bodies = toSignal<BodySummaryResponse[]>(
-    this.api.currentBodies().pipe(map((all) => all.filter((b) => b.workspaceId === undefined || b.workspaceId === this.data.workspaceId))),
+    this.api.bodies$.pipe(map((all) => all.filter((b) => b.workspaceId === undefined || b.workspaceId === this.data.workspaceId))),
   );
   protected readonly busy = signal(false);
   protected readonly failure = signal<string | null>(null);

@@ -147,6 +147,12 @@ export class BodiesPage {
     return `about ${parent}, ${b.place.orbitRadiusKm.toLocaleString('en-US')} km, period ${b.place.periodDays.toLocaleString('en-US', { maximumSignificantDigits: 6 })} d`;
   }
 
+  /** Each value's source as entered, or that none was given. */
+  protected sourcesText(b: CustomBodyResponse): string {
+    const given = SOURCES.filter(([key]) => b.sources[key]).map(([key, label]) => `${label}: ${b.sources[key]}`);
+    return given.length > 0 ? `Sources: ${given.join('; ')}` : 'No source given for its values.';
+  }
+
   protected open(body: CustomBodyResponse | null): void {
     this.problems.set({});
     this.failure.set(null);
