@@ -145,7 +145,10 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
   const planetGeometry: ShadowGeometry = { sunRadiusRad: 0, bodyRadiusRad: 0, separationRad: 0 };
   const moonGeometry: ShadowGeometry = { sunRadiusRad: 0, bodyRadiusRad: 0, separationRad: 0 };
   const moonAtBuffer = new Float64Array(3);
-  const shadeAt = (ms: number, frame: Frame, axes: { p: Vector3; q: Vector3 }, moonAt: (ms: number, out: Float64Array) => void = (t, out) => track.at(t, out)): Shade => {
+  /** `planetPossible` false: the caller knows the planet's penumbra is out of reach, so only the moon's shadow is worked. */
+  const shadeAt = (
+    ms: number, frame: Frame, axes: { p: Vector3; q: Vector3 }, moonAt: (ms: number, out: Float64Array) => void = (t, out) => track.at(t, out), planetPossible = true,
+  ): Shade => {
     moonAt(ms, moonAtBuffer);
     const [mx, my, mz] = [moonAtBuffer[0], moonAtBuffer[1], moonAtBuffer[2]];
     const elapsedS = (ms - orbitEpochMs) / 1000;
@@ -156,9 +159,10 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     const [x, y, z] = [p[0] * c + q[0] * s, p[1] * c + q[1] * s, p[2] * c + q[2] * s];
     // The Sun's centre from the spacecraft: the planet's Sun moved by the moon's offset and the spacecraft's.
     const [tx, ty, tz] = [frame.sun[0] * frame.sunKm - mx - x, frame.sun[1] * frame.sunKm - my - y, frame.sun[2] * frame.sunKm - mz - z];
-    shadowGeometryInto(mx + x, my + y, mz + z, tx, ty, tz, parent.radiusKm, planetGeometry);
     shadowGeometryInto(x, y, z, tx, ty, tz, body.radiusKm, moonGeometry);
     const fMoon = sunlitFraction(moonGeometry);
+    if (!planetPossible) return { moonTest: shadowTest(moonGeometry), parentTest: 1, moon: fMoon, parent: 1, sunlit: fMoon };
+    shadowGeometryInto(mx + x, my + y, mz + z, tx, ty, tz, parent.radiusKm, planetGeometry);
     const fParent = sunlitFraction(planetGeometry);
     return { moonTest: shadowTest(moonGeometry), parentTest: shadowTest(planetGeometry), moon: fMoon, parent: fParent, sunlit: combinedSunlit(fMoon, fParent) };
   };
@@ -260,7 +264,9 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     const from = roughFrom - periodMs / 2 + Math.max(0, Math.floor((firstIn - fineMs - roughFrom) / stepMs)) * stepMs;
     const to = lastIn + fineMs + periodMs / 2;
     const axes = perifocalAt(centreMs, frame);
-    const shade = (ms: number): Shade => shadeAt(ms, frame, axes, local);
+    // Outside [firstIn, lastIn] the fine scan proved the planet's penumbra out of reach: there only the
+    // moon's shadow is worked, from a sample step beyond (an edge is interpolated between two real tests).
+    const shade = (ms: number): Shade => shadeAt(ms, frame, axes, local, ms >= firstIn - fineMs - stepMs && ms <= lastIn + fineMs + stepMs);
     const spans: ShadowSpan[] = [];
     let run: { startMs: number; parentS: number; moon: boolean; parentFirstMs: number; parentLastMs: number } | null = null;
     let prev = shade(from);
