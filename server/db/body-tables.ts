@@ -4,7 +4,7 @@
 import { index, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import type { CustomBodyDefinition } from '../../shared/physics/custom-bodies';
 import { createdAt, id, updatedAt } from './columns';
-import { users, workspaces } from './schema';
+import { users, workspaces } from './account-tables';
 
 export const customBodies = sqliteTable(
   'custom_bodies',

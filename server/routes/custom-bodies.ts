@@ -1,46 +1,50 @@
 // A workspace's own central bodies (shared/api/custom-bodies.ts): members read them; owners,
 // thermal engineers and analysts add, change and delete them. GET /bodies (routes/environment.ts)
 // lists them beside the catalogue for the caller's workspaces.
-import { Router } from 'express';
-import { customBodyInput } from '../../shared/api/custom-bodies';
-import type { AppContext } from '../app-context';
-import { signedIn, workspaceAccess } from '../auth/middleware';
+import { customBody, customBodyInput, customBodyList } from '../../shared/api/custom-bodies';
 import { createCustomBody, customBodyIn, deleteCustomBody, listCustomBodies, updateCustomBody } from '../bodies/custom-body-store';
-import { parse } from '../errors';
-import { editorRoles, readerRoles } from '../missions/mission-access';
+import { route, type ApiRoute } from '../http/api-route';
 import { loadUnits } from '../missions/quantity-reader';
-import { pathParam } from '../path-param';
+import { anyMember, missionEditors } from '../workspaces/workspace-roles';
 
-export function customBodyRoutes(ctx: AppContext): Router {
-  const router = Router();
-  const list = '/workspaces/:workspaceId/bodies';
-  const one = '/workspaces/:workspaceId/bodies/:bodyId';
+const list = '/api/v1/workspaces/:workspaceId/bodies';
+const one = '/api/v1/workspaces/:workspaceId/bodies/:bodyId';
+const tag = 'bodies';
 
-  router.get(list, workspaceAccess(ctx, readerRoles), (req, res) => {
-    res.json({ items: listCustomBodies(ctx.db, [pathParam(req, 'workspaceId')]) });
-  });
-
-  router.post(list, workspaceAccess(ctx, editorRoles), async (req, res) => {
-    const input = parse(customBodyInput, req.body);
-    // radius, orbit radius and period are typed quantities
-    await loadUnits();
-    res.status(201).json(createCustomBody(ctx.db, signedIn(req).user.id, pathParam(req, 'workspaceId'), input));
-  });
-
-  router.get(one, workspaceAccess(ctx, readerRoles), (req, res) => {
-    res.json(customBodyIn(ctx.db, pathParam(req, 'workspaceId'), pathParam(req, 'bodyId')));
-  });
-
-  router.put(one, workspaceAccess(ctx, editorRoles), async (req, res) => {
-    const input = parse(customBodyInput, req.body);
-    await loadUnits();
-    res.json(updateCustomBody(ctx.db, signedIn(req).user.id, pathParam(req, 'workspaceId'), pathParam(req, 'bodyId'), input));
-  });
-
-  router.delete(one, workspaceAccess(ctx, editorRoles), (req, res) => {
-    deleteCustomBody(ctx.db, signedIn(req).user.id, pathParam(req, 'workspaceId'), pathParam(req, 'bodyId'));
-    res.status(204).end();
-  });
-
-  return router;
-}
+export const customBodyRoutes: ApiRoute[] = [
+  route({
+    method: 'get', path: list, tag, access: anyMember, response: customBodyList,
+    summary: 'The workspace’s own central bodies (any member); ids are "custom-" and a UUID, never a catalogue name',
+    handle: ({ ctx, param }) => ({ items: listCustomBodies(ctx.db, [param('workspaceId')]) }),
+  }),
+  route({
+    method: 'post', path: list, tag, access: missionEditors, body: customBodyInput, status: 201, response: customBody,
+    summary: 'Add a body of the workspace’s own (owner, thermal, analyst): GM, radius, J2, about the Sun or a planet, albedo/OLR ranges, airless surface field, a source per value',
+    handle: async ({ ctx, auth, param, body }) => {
+      const input = body();
+      // radius, orbit radius and period are typed quantities
+      await loadUnits();
+      return createCustomBody(ctx.db, auth.user.id, param('workspaceId'), input);
+    },
+  }),
+  route({
+    method: 'get', path: one, tag, access: anyMember, response: customBody, summary: 'One of the workspace’s own bodies',
+    handle: ({ ctx, param }) => customBodyIn(ctx.db, param('workspaceId'), param('bodyId')),
+  }),
+  route({
+    method: 'put', path: one, tag, access: missionEditors, body: customBodyInput, response: customBody,
+    summary: 'Change one of the workspace’s own bodies (owner, thermal, analyst)',
+    handle: async ({ ctx, auth, param, body }) => {
+      const input = body();
+      await loadUnits();
+      return updateCustomBody(ctx.db, auth.user.id, param('workspaceId'), param('bodyId'), input);
+    },
+  }),
+  route({
+    method: 'delete', path: one, tag, access: missionEditors, status: 204,
+    summary: 'Delete one of the workspace’s own bodies (owner, thermal, analyst); 409 while a mission uses it',
+    handle: ({ ctx, auth, param }) => {
+      deleteCustomBody(ctx.db, auth.user.id, param('workspaceId'), param('bodyId'));
+    },
+  }),
+];
