@@ -120,7 +120,7 @@ export function useCustomBodyIn(db: DbLike, workspaceIds: readonly string[], bod
     : db.select({ id: customBodies.id }).from(customBodies)
       .where(and(eq(customBodies.id, rowIdOf(bodyId)), inArray(customBodies.workspaceId, [...workspaceIds]))).get();
   if (!row) {
-    const message = `no body ${shown(bodyId)} in ${workspaceIds.length === 1 ? 'this workspace' : 'your workspaces'} (got ${shown(bodyId)})`;
+    const message = `${workspaceIds.length === 1 ? 'this workspace has' : 'your workspaces have'} no body ${shown(bodyId)}`;
     throw badRequest(`${path}: ${message}.`, [{ path, message }], 'unknown_body');
   }
 }
