@@ -17,7 +17,7 @@ import { capAssumptions, capColumns, capExitances, capGridNodes, COARSE_CAP_NODE
 import type { EclipseSummary } from './eclipse';
 import type { Surface, SurfaceLoad } from './heat-loads';
 import { defineOrbit, type Orbit, type OrbitInput } from './orbit-definition';
-import { plateOrbitMeanFluxes } from './cap-radiance';
+import { plateOrbitMeanFluxes, type PlateNodes } from './cap-radiance';
 import {
   eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, orbitGridAt, shadeGrid, type GridShade, type OrbitGrid, type PerifocalSun,
 } from './orbit-grid';
@@ -143,7 +143,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   const solarSums = new Float64Array(prepared.length);
   const albedoSums = new Float64Array(prepared.length);
   const sunIrSums = new Float64Array(prepared.length);
-  const cap = needsCap(models) ? sweepCap(orbit, body.radiusKm, surfaces) : null;
+  const cap = needsCap(models) ? sweepCap(orbit, body.radiusKm, surfaces, rowCount) : null;
   const rows: MissionSweepRow[] = new Array(rowCount);
   let minBeta = Infinity;
   let maxBeta = -Infinity;
@@ -210,7 +210,7 @@ function sweepAssumptions(models: CapModelChoice, firstFluxWm2: number): string[
  * in the local frame takes the exact time average over the orbit (plateOrbitMeanFluxes); Sun-pointed
  * plates and eccentric orbits are sampled on a small grid evenly in eccentric anomaly with exact time weights.
  */
-function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface[]) {
+function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface[], rowCount: number) {
   const { times, weightS } = eccentricAnomalyTimes(orbit, SWEEP_CAP_STEPS);
   const grid = orbitGridAt(orbit, bodyRadiusKm, times);
   const prepared = prepareSurfaces(surfaces, grid, bodyRadiusKm);
@@ -222,6 +222,7 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
   const sampledNodesAt = capGridNodes(sampled, grid, bodyRadiusKm, { keepAll: true, ...COARSE_CAP_NODES });
   const shade = gridShade(grid.steps);
   const out = new Float64Array(2);
+  const litTables: ((sy: number) => number)[] = [];
   const average = (column: Float64Array): number => {
     let sum = 0;
     for (let k = 0; k < column.length; k++) sum += column[k] * weightS[k];
@@ -238,7 +239,11 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
       let i = 0;
       for (let j = 0; j < prepared.length; j++) {
         const plate = fixed[j];
-        if (plate) {
+        if (plate && !models.field && rowCount >= ALBEDO_TABLE_FROM_ROWS) {
+          // the albedo alone: its orbit mean per unit reflected exitance, tabulated by beta
+          albedoWm2[j] = reflected * (litTables[j] ??= litByBeta(plate))(sun.sw);
+          irWm2[j] = Number.NaN;
+        } else if (plate) {
           plateOrbitMeanFluxes(plate, sun.sw, reflected, day, floor, out);
           albedoWm2[j] = out[0];
           irWm2[j] = out[1];
@@ -250,6 +255,35 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
       }
       return { albedoWm2: models.albedoModel === 'lambertian' ? albedoWm2 : null, irWm2: models.field ? irWm2 : null };
     },
+  };
+}
+
+/**
+ * From this many rows a sweep without a surface temperature field tabulates each fixed plate's orbit
+ * mean albedo (per unit reflected exitance) by beta once, instead of integrating the cap every day:
+ * the table costs ALBEDO_TABLE_STEPS + 4 days' work. The mean is a smooth function of beta (the
+ * Sun turns about the orbit normal; plateOrbitMeanFluxes), read by four-point Lagrange interpolation
+ * (Abramowitz & Stegun 25.2.13) within a few 1e-6 of the day-by-day value
+ * (mission-sweep.spec.ts holds it to the day-by-day integral).
+ */
+const ALBEDO_TABLE_FROM_ROWS = 1000;
+const ALBEDO_TABLE_STEPS = 720;
+
+/** A fixed plate's orbit-mean lit cap, sum of w max(mu, 0), as a function of sin(beta), from a table evenly in beta. */
+function litByBeta(plate: PlateNodes): (sy: number) => number {
+  const h = Math.PI / ALBEDO_TABLE_STEPS;
+  const out = new Float64Array(2);
+  // nodes from -90 deg - h to 90 deg + 2h: beyond +-90 deg sin(beta) folds back, so the table is whole there too
+  const table = Float64Array.from({ length: ALBEDO_TABLE_STEPS + 4 }, (_, n) => {
+    plateOrbitMeanFluxes(plate, Math.sin(-Math.PI / 2 + (n - 1) * h), 1, 0, 0, out);
+    return out[0];
+  });
+  return (sy) => {
+    const s = (Math.asin(Math.max(-1, Math.min(1, sy))) + Math.PI / 2) / h + 1;
+    const j = Math.min(ALBEDO_TABLE_STEPS + 1, Math.max(1, Math.floor(s)));
+    const u = s - j;
+    return ((-u * (u - 1) * (u - 2)) / 6) * table[j - 1] + (((u + 1) * (u - 1) * (u - 2)) / 2) * table[j]
+      + ((-(u + 1) * u * (u - 2)) / 2) * table[j + 1] + (((u + 1) * u * (u - 1)) / 6) * table[j + 2];
   };
 }
 
