@@ -12,7 +12,7 @@ import type { Db } from '../db/database';
 import { customBodies, missions, type CustomBodyRow } from '../db/schema';
 import { badRequest, conflict, notFound } from '../errors';
 import type { DbLike } from '../missions/mission-access';
-import { readQuantityIn } from '../missions/quantity-reader';
+import { withQuantityReader, type ReadQuantity } from '../missions/quantity-reader';
 
 const apiId = (rowId: string) => `${CUSTOM_BODY_PREFIX}${rowId}` as const;
 const rowIdOf = (bodyId: string): string => bodyId.slice(CUSTOM_BODY_PREFIX.length);
@@ -31,8 +31,8 @@ const toResponse = (row: CustomBodyRow): CustomBodyResponse => {
   };
 };
 
-/** The stored definition from a request: typed quantities read in km and days (the route awaits loadUnits first). */
-function definitionFrom(input: CustomBodyInput): Omit<CustomBodyDefinition, 'id' | 'name'> {
+/** The stored definition from a request: typed quantities read in km and days. */
+function definitionFrom(input: CustomBodyInput, readQuantityIn: ReadQuantity): Omit<CustomBodyDefinition, 'id' | 'name'> {
   const positive = (value: number, path: string, words: string): number => {
     if (!(value > 0)) throw badRequest(`${path}: ${words} must be above 0 (got ${value}).`, [{ path, message: `${words} must be above 0 (got ${value})` }]);
     return value;
@@ -64,21 +64,21 @@ function rowIn(db: DbLike, workspaceId: string, bodyId: string): CustomBodyRow {
 
 export const customBodyIn = (db: DbLike, workspaceId: string, bodyId: string): CustomBodyResponse => toResponse(rowIn(db, workspaceId, bodyId));
 
-export function createCustomBody(db: Db, userId: string, workspaceId: string, input: CustomBodyInput): CustomBodyResponse {
-  const definition = definitionFrom(input);
-  return db.transaction((tx) => {
+export function createCustomBody(db: Db, userId: string, workspaceId: string, input: CustomBodyInput): Promise<CustomBodyResponse> {
+  return withQuantityReader((read) => db.transaction((tx) => {
+    const definition = definitionFrom(input, read);
     const row = tx.insert(customBodies).values({ workspaceId, name: input.name, definition, createdBy: userId }).returning().get();
     recordAudit(tx, {
       workspaceId, actorUserId: userId, action: 'body.created', targetType: 'body', targetId: apiId(row.id),
       summary: `Body "${row.name}" added (${definition.airless ? 'airless' : 'with an atmosphere'}).`,
     });
     return toResponse(row);
-  });
+  }));
 }
 
-export function updateCustomBody(db: Db, userId: string, workspaceId: string, bodyId: string, input: CustomBodyInput): CustomBodyResponse {
-  const definition = definitionFrom(input);
-  return db.transaction((tx) => {
+export function updateCustomBody(db: Db, userId: string, workspaceId: string, bodyId: string, input: CustomBodyInput): Promise<CustomBodyResponse> {
+  return withQuantityReader((read) => db.transaction((tx) => {
+    const definition = definitionFrom(input, read);
     const before = rowIn(tx, workspaceId, bodyId);
     const row = tx.update(customBodies).set({ name: input.name, definition, updatedAt: new Date().toISOString() })
       .where(eq(customBodies.id, before.id)).returning().get();
@@ -87,7 +87,7 @@ export function updateCustomBody(db: Db, userId: string, workspaceId: string, bo
       summary: `Body "${before.name}" changed${before.name === row.name ? '' : ` (now "${row.name}")`}.`,
     });
     return toResponse(row);
-  });
+  }));
 }
 
 export function deleteCustomBody(db: Db, userId: string, workspaceId: string, bodyId: string): void {

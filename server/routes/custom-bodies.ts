@@ -4,7 +4,6 @@
 import { customBody, customBodyInput, customBodyList } from '../../shared/api/custom-bodies';
 import { createCustomBody, customBodyIn, deleteCustomBody, listCustomBodies, updateCustomBody } from '../bodies/custom-body-store';
 import { route, type ApiRoute } from '../http/api-route';
-import { loadUnits } from '../missions/quantity-reader';
 import { anyMember, missionEditors } from '../workspaces/workspace-roles';
 
 const list = '/api/v1/workspaces/:workspaceId/bodies';
@@ -20,12 +19,8 @@ export const customBodyRoutes: ApiRoute[] = [
   route({
     method: 'post', path: list, tag, access: missionEditors, body: customBodyInput, status: 201, response: customBody,
     summary: 'Add a body of the workspace’s own (owner, thermal, analyst): GM, radius, J2, about the Sun or a planet, albedo/OLR ranges, airless surface field, a source per value',
-    handle: async ({ ctx, auth, param, body }) => {
-      const input = body();
-      // radius, orbit radius and period are typed quantities
-      await loadUnits();
-      return createCustomBody(ctx.db, auth.user.id, param('workspaceId'), input);
-    },
+    // radius, orbit radius and period are typed quantities
+    handle: ({ ctx, auth, param, body }) => createCustomBody(ctx.db, auth.user.id, param('workspaceId'), body()),
   }),
   route({
     method: 'get', path: one, tag, access: anyMember, response: customBody, summary: 'One of the workspace’s own bodies',
@@ -34,11 +29,7 @@ export const customBodyRoutes: ApiRoute[] = [
   route({
     method: 'put', path: one, tag, access: missionEditors, body: customBodyInput, response: customBody,
     summary: 'Change one of the workspace’s own bodies (owner, thermal, analyst)',
-    handle: async ({ ctx, auth, param, body }) => {
-      const input = body();
-      await loadUnits();
-      return updateCustomBody(ctx.db, auth.user.id, param('workspaceId'), param('bodyId'), input);
-    },
+    handle: ({ ctx, auth, param, body }) => updateCustomBody(ctx.db, auth.user.id, param('workspaceId'), param('bodyId'), body()),
   }),
   route({
     method: 'delete', path: one, tag, access: missionEditors, status: 204,

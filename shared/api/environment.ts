@@ -11,6 +11,7 @@ import type { EnvironmentRequest } from '../physics/environment';
 import { albedoModels, irModels } from '../physics/cap-loads';
 import { namedNormals } from '../physics/heat-loads';
 import { samplings } from '../physics/orbit-sampling';
+import { DAY_MS } from '../physics/constants';
 
 const finite = (label: string) => z.number({ message: `${label} must be a number` });
 
@@ -240,7 +241,6 @@ export const sunSynchronousResponse = z.object({
 
 /** The most samples one beta history may hold. */
 export const MAX_BETA_HISTORY_SAMPLES = 20000;
-const DAY_MS = 86400e3;
 const isoDateTime = (label: string) =>
   z.iso.datetime({ offset: true, message: `${label} is an ISO 8601 date and time, e.g. 2027-03-20T00:00:00Z` });
 

@@ -26,7 +26,9 @@ import { longestShadow, missionDays } from './mission-days';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2 } from './sun';
 import { prepareSurfaces, type PreparedSurface } from './surface-grid';
-import { DEG } from './vector3';
+import { DEG, wrapDeg } from './vector3';
+import { degPerDay } from './kepler';
+import { DAY_MS } from './constants';
 import { plateToSphereViewFactor } from './view-factors';
 
 export interface MissionSweepRequest extends CapModelRequest {
@@ -96,7 +98,6 @@ const SWEEP_SCAN_STEPS = 360;
 /** The cap quadrature of a sweep: samples per orbit (evenly in eccentric anomaly) and nodes over the disk. */
 export const SWEEP_CAP_STEPS = 48;
 const { radial: SWEEP_CAP_RADIAL, azimuth: SWEEP_CAP_AZIMUTH } = COARSE_CAP_NODES;
-const DAY_MS = 86400e3;
 
 function toMs(value: string | Date, path: string): number {
   const ms = (value instanceof Date ? value : new Date(value)).getTime();
@@ -107,10 +108,6 @@ function toMs(value: string | Date, path: string): number {
 /** Number of rows for a span and step, without building them. */
 export const sweepRowCount = (days: number, stepDays: number): number => Math.floor(days / stepDays + 1e-9) + 1;
 
-const wrapDeg = (rad: number): number => {
-  const deg = (rad / DEG) % 360;
-  return deg < 0 ? deg + 360 : deg;
-};
 
 /** The environment at each date of a mission, one orbit per row. Throws PhysicsError for the impossible. */
 export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
@@ -171,7 +168,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
       loads[j] = { name: s.name, solarWm2, albedoWm2, irWm2, absorbedW: s.areaM2 * (s.absorptivity * (solarWm2 + albedoWm2) + s.emissivity * irWm2) };
     }
     rows[row] = {
-      date: new Date(ms).toISOString(), betaDeg, raanDeg: wrapDeg(raan), solarDistanceAu: distanceAu, solarFluxWm2: flux,
+      date: new Date(ms).toISOString(), betaDeg, raanDeg: wrapDeg(raan / DEG), solarDistanceAu: distanceAu, solarFluxWm2: flux,
       eclipseFraction: eclipse.eclipseFraction, eclipseDurationS: eclipse.eclipseDurationS,
       umbraDurationS: eclipse.umbraS, penumbraDurationS: eclipse.penumbraS, surfaces: loads,
       longestShadowS: longest.durationS, longestShadowCastBy: longest.castBy,
@@ -181,8 +178,8 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   return {
     bodyId: body.id,
     periodS: orbit.periodS,
-    nodalRateDegPerDay: (orbit.nodalRateRadS / DEG) * 86400,
-    apsidalRateDegPerDay: (apsidalRate / DEG) * 86400,
+    nodalRateDegPerDay: degPerDay(orbit.nodalRateRadS),
+    apsidalRateDegPerDay: degPerDay(apsidalRate),
     rows,
     minBetaDeg: rowCount > 0 ? minBeta : Number.NaN,
     maxBetaDeg: rowCount > 0 ? maxBeta : Number.NaN,

@@ -16,7 +16,7 @@ import { shadowGeometry, sunlitFraction } from './eclipse';
 import { absorbedW, localNormal, surfaceLoad, type Surface, type SurfaceLoad } from './heat-loads';
 import { capExitances, chooseCapModels, COARSE_CAP_NODES, needsCap, reportedOlrWm2, type CapModelChoice, type CapModelRequest } from './cap-loads';
 import { capNodes, plateFluxes, plateNodes, type PlateNodes } from './cap-radiance';
-import { AU_KM } from './constants';
+import { AU_KM, DAY_MS } from './constants';
 import { PhysicsError } from './physics-error';
 import { moonTrack } from './moon-ephemeris';
 import { combinedSunlit } from './parent-shadow';
@@ -73,7 +73,7 @@ export interface TrajectoryEnvironment {
   meanSolarFluxWm2: number;
 }
 
-const SUN_CHUNK_MS = 30 * 86400e3;
+const SUN_CHUNK_MS = 30 * DAY_MS;
 
 interface SunState {
   directionIcrf: Vector3;

@@ -19,6 +19,7 @@ import { apiPath } from '../api/api-path';
 import { CaseKindLabel } from '../cases/case-kind-label';
 import { streamNdjson } from '../orbits/sweep-stream';
 import { buildCsv, downloadCsv } from '../plots/csv-download';
+import { seriesLook } from '../plots/plot-colors';
 import type { PlotSeries } from '../plots/plot-series';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { DESIGN_CAUTION_TEXT } from '../shell/design-caution';
@@ -42,7 +43,6 @@ export function parseDistances(text: string): number[] | null {
   return values.every((v) => Number.isFinite(v)) ? values : null;
 }
 
-const LOOP_COLORS = ['--ecl-hot', '--ecl-cold', '--ecl-accent', '--ecl-albedo'];
 
 @Component({
   selector: 'ecl-thermal-distance-panel',
@@ -52,7 +52,7 @@ const LOOP_COLORS = ['--ecl-hot', '--ecl-cold', '--ecl-accent', '--ecl-albedo'];
     <div class="pick-row">
       <mat-form-field appearance="outline">
         <mat-label>Load case</mat-label>
-        <mat-select [value]="caseId()" (valueChange)="kase.set($event)" data-testid="study-case">
+        <mat-select [value]="caseId()" (valueChange)="pickedCaseId.set($event)" data-testid="study-case">
           <mat-select-trigger>@if (caseOf(caseId()); as c) { <ecl-case-kind [kind]="c.kind" /> {{ c.name }} · rev {{ c.revision }} }</mat-select-trigger>
           @for (c of cases(); track c.id) { <mat-option [value]="c.id"><ecl-case-kind [kind]="c.kind" /> {{ c.name }} · rev {{ c.revision }}</mat-option> }
         </mat-select>
@@ -86,8 +86,8 @@ const LOOP_COLORS = ['--ecl-hot', '--ecl-cold', '--ecl-accent', '--ecl-albedo'];
     }
     @if (points().length > 0) {
       <div class="plots" data-testid="study-results">
-        <ecl-time-series-plot [series]="flowSeries()" title="Pump flow needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Flow" yUnit="L/min" [height]="240" />
-        <ecl-time-series-plot [series]="areaSeries()" title="Radiator area needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Area" yUnit="m²" [height]="240" />
+        <ecl-time-series-plot [series]="flowSeries()" title="Pump flow needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Flow" yUnit="L/min" yRange="non-negative" [height]="240" />
+        <ecl-time-series-plot [series]="areaSeries()" title="Radiator area needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Area" yUnit="m²" yRange="non-negative" [height]="240" />
       </div>
       <div class="table-wrap">
         <table class="ecl-table" data-testid="study-table">
@@ -144,7 +144,7 @@ export class ThermalDistancePanel {
   readonly canRun = input(false);
 
   private readonly document = inject(DOCUMENT);
-  protected readonly kase = signal<string | null>(null);
+  protected readonly pickedCaseId = signal<string | null>(null);
   protected readonly radiator = signal<string | null>(null);
   protected readonly distancesText = signal('0.72, 1, 1.52');
   protected readonly missionRange = signal(true);
@@ -154,7 +154,7 @@ export class ThermalDistancePanel {
   protected readonly points = signal<readonly PointLine[]>([]);
   private subscription: Subscription | null = null;
 
-  protected readonly caseId = computed(() => this.kase() ?? this.cases().find((c) => c.kind === 'hot')?.id ?? this.cases()[0]?.id ?? null);
+  protected readonly caseId = computed(() => this.pickedCaseId() ?? this.cases().find((c) => c.kind === 'hot')?.id ?? this.cases()[0]?.id ?? null);
   protected readonly radiatorNode = computed(() => this.radiator() ?? this.nodes().find((n) => /radiator/i.test(n)) ?? this.nodes()[0] ?? null);
   protected readonly progress = computed(() => {
     const total = this.start()?.distances.length ?? 0;
@@ -163,7 +163,7 @@ export class ThermalDistancePanel {
   protected readonly loopNames = computed(() => [...new Set(this.points().flatMap((p) => p.loops.map((l) => l.name)))]);
   protected readonly flowSeries = computed<PlotSeries[]>(() =>
     this.loopNames().flatMap((name, i) => {
-      const colorVar = LOOP_COLORS[i % LOOP_COLORS.length] ?? '--ecl-accent';
+      const { colorVar } = seriesLook(i);
       const at = (pick: (f: PointLine['loops'][number]) => number | null) =>
         this.points().map((p) => ({ x: p.distanceAu, y: pick(p.loops.find((l) => l.name === name) ?? { name, averageKgS: NaN, peakKgS: NaN, averageLMin: null, peakLMin: null }) ?? NaN }));
       return [
