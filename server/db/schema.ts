@@ -8,4 +8,5 @@ export * from './ephemeris-tables';
 export * from './case-tables';
 export * from './thermal-tables';
 export * from './environment-tables';
+export * from './body-tables';
 export * from './phase-tables';

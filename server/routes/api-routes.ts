@@ -7,6 +7,7 @@ import { authRoutes } from './auth';
 import { caseRoutes } from './cases';
 import { environmentRoutes } from './environment';
 import { environmentTableRoutes } from './environment-table';
+import { customBodyRoutes } from './custom-bodies';
 import { ephemerisRoutes } from './ephemerides';
 import { invitationRoutes } from './invitations';
 import { missionRoutes } from './missions';
@@ -27,6 +28,7 @@ export const apiRoutes: readonly ApiRoute[] = [
   ...missionRoutes,
   ...phaseRoutes,
   ...environmentTableRoutes,
+  ...customBodyRoutes,
   ...ephemerisRoutes,
   ...caseRoutes,
   ...apiDocsRoutes,
