@@ -146,9 +146,18 @@ const caseListQueries = preparedPer((_db: Db) => new Map<string, ReturnType<type
  * case's currency with its mission depend on the database alone.
  */
 export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): readonly CaseSummary[] {
-  const key = `cases ${JSON.stringify([userId, filter.missionId ?? null, filter.status ?? null, filter.kind ?? null])}`;
-  return memoisedRead(ctx.db, key, () => readCaseList(ctx, userId, filter));
+  return memoisedRead(ctx.db, `cases ${listKey(userId, filter)}`, () => readCaseList(ctx, userId, filter));
 }
+
+/**
+ * The case list's answer ({ items }) as JSON text, as res.json would write it: made once per
+ * database change like the list itself, so a repeated list is not serialised again.
+ */
+export function caseListJson(ctx: AppContext, userId: string, filter: CaseFilter): string {
+  return memoisedRead(ctx.db, `cases json ${listKey(userId, filter)}`, () => JSON.stringify({ items: listCases(ctx, userId, filter) }));
+}
+
+const listKey = (userId: string, filter: CaseFilter) => JSON.stringify([userId, filter.missionId ?? null, filter.status ?? null, filter.kind ?? null]);
 
 function readCaseList(ctx: AppContext, userId: string, filter: CaseFilter): CaseSummary[] {
   const given: FilterShape = { missionId: !!filter.missionId, status: !!filter.status, kind: !!filter.kind };
