@@ -9,7 +9,7 @@ import {
 } from '../../shared/api/environment';
 import { bodySummaries, getBody, isBodyId, type Body } from '../../shared/physics/bodies';
 import { computeEnvironmentColumns, environmentResult } from '../../shared/physics/environment';
-import { environmentColumnsAnswer, environmentJson } from '../http/environment-json';
+import { environmentColumnsAnswer, environmentJsonPieces } from '../http/environment-json';
 import { sweepMission } from '../../shared/physics/mission-sweep';
 import { orbitFigures } from '../../shared/physics/orbit-figures';
 import { sunlightRange } from '../../shared/physics/sun';
@@ -69,7 +69,7 @@ export function environmentRoutes(_ctx: AppContext): Router {
     const form = answerForm(req);
     const columns = computeEnvironmentColumns(asEnvironmentRequest(request));
     await sendPerStep(res, form, {
-      json: () => environmentJson(columns),
+      json: () => environmentJsonPieces(columns),
       answer: () => environmentResult(columns),
       columns: () => environmentColumnsAnswer(columns),
       key: 'profile',
