@@ -80,9 +80,27 @@ export interface AnswerBytes {
 }
 
 /** Sends the pieces as the answer's body (the status is the caller's), compressed as the request accepts. */
+/** The pieces with small ones gathered into writes of at least CHUNK bytes (each write to the compressor is a trip to the thread pool). */
+function* gathered(pieces: Iterable<Uint8Array>): Generator<Uint8Array> {
+  let held: Uint8Array[] = [];
+  let heldBytes = 0;
+  for (const piece of pieces) {
+    if (piece.byteLength === 0) continue;
+    held.push(piece);
+    heldBytes += piece.byteLength;
+    if (heldBytes >= CHUNK) {
+      yield held.length === 1 ? piece : Buffer.concat(held, heldBytes);
+      held = [];
+      heldBytes = 0;
+    }
+  }
+  if (heldBytes > 0) yield held.length === 1 ? held[0] : Buffer.concat(held, heldBytes);
+}
+
+/** Sends the pieces as the answer's body (the status is the caller's), compressed as the request accepts. */
 export async function sendAnswerBytes(res: Response, body: AnswerBytes): Promise<void> {
   // The first piece before any header: an error formatting it still becomes a normal error answer.
-  const pieces = body.pieces[Symbol.iterator]();
+  const pieces = gathered(body.pieces);
   let next = pieces.next();
   const encoding = body.byteLength < SMALL ? 'identity' : chooseEncoding(res.req);
   res.locals['compressedHere'] = true;
