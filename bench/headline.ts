@@ -47,13 +47,13 @@ function clientRows({ firstLoad, paint }: WireFigures): BenchRow[] {
   if (!firstLoad || !paint) return [{ figure: 'first load and paint: skipped, the client did not build' }];
   return [
     {
-      figure: `first load: JavaScript of the ${firstLoad.scripts} scripts index.html loads, on the wire`, eclipta: `${(firstLoad.wireBytes / 1e3).toFixed(1)} kB`,
+      figure: `first load: JavaScript on the wire (${firstLoad.scripts} scripts: index.html's and all they import)`, eclipta: `${(firstLoad.wireBytes / 1e3).toFixed(1)} kB`,
       'anchor (this run)': `${(firstLoad.plainBytes / 1e3).toFixed(0)} kB uncompressed`, ratio: `${(firstLoad.wireBytes / 200e3).toFixed(2)}x target`,
       target: '<= 200 kB, no zod', result: verdict(firstLoad.wireBytes <= 200e3 && !firstLoad.zod),
     },
     {
       figure: 'first contentful paint, sign-in page, Chromium, empty cache', eclipta: ms(paint.medianMs),
-      'anchor (this run)': `runs ${paint.runs.map((r) => r.toFixed(0)).join(', ')} ms`, ratio: `${(paint.medianMs / 500).toFixed(2)}x target`,
+      'anchor (this run)': `runs ${paint.runs.map((r) => r.toFixed(0)).join(', ')} ms; form on screen ${paint.formMs.toFixed(0)} ms`, ratio: `${(paint.medianMs / 500).toFixed(2)}x target`,
       target: '< 500 ms', result: verdict(paint.medianMs < 500),
     },
   ];
