@@ -253,7 +253,7 @@ export async function measureSignInPaint(url: string): Promise<Paint> {
   });
   try {
     const runs: number[] = [];
-    const forms: number[] = [];
+    const formTimes: number[] = [];
     for (let i = 0; i <= PAINT_RUNS; i++) {
       const context = await browser.newContext();
       const page = await context.newPage();
@@ -265,10 +265,10 @@ export async function measureSignInPaint(url: string): Promise<Paint> {
       await context.close();
       if (i > 0) {
         runs.push(ms);
-        forms.push(formMs);
+        formTimes.push(formMs);
       }
     }
-    return { medianMs: median(runs), runs, formMs: median(forms) };
+    return { medianMs: median(runs), runs, formMs: median(formTimes) };
   } finally {
     await browser.close();
   }
