@@ -10,7 +10,7 @@ import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
 import { caseComments, caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
 import { caseEditors, visibleToViewer } from './case-access';
-import { inputChanges } from './case-currency';
+import { caseInputsOf, inputChanges, missionsNow } from './case-currency';
 
 export { cautionFor, cautionText, crewedCaution } from '../../shared/api/caution';
 import { cautionFor } from '../../shared/api/caution';
@@ -119,7 +119,6 @@ function caseListQuery(db: Db, given: FilterShape) {
         name: loadCases.name, kind: loadCases.kind, status: loadCases.status, revision: loadCases.revision, checksum: loadCases.checksum,
         authorId: loadCases.authorId, releasedBy: loadCases.releasedBy, releasedAt: loadCases.releasedAt,
         version: loadCases.version, createdAt: loadCases.createdAt, updatedAt: loadCases.updatedAt,
-        inputs: loadCases.inputs,
       },
       // Read out of the JSON in SQL so a list does not parse every case's time series.
       // Copied out of the results when they are written (resultSummary); read out of the JSON only
@@ -151,6 +150,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
     queries.set(key, query);
   }
   const rows = query.all({ userId, missionId: filter.missionId, status: filter.status, kind: filter.kind });
+  const missionNow = missionsNow(ctx.db);
   const people = new Map<string, Person>();
   const person = (id: string | null): Person => {
     if (!id) return null;
@@ -164,7 +164,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
       name: r.c.name, kind: r.c.kind, status: r.c.status, revision: r.c.revision, checksum: r.c.checksum,
       author: person(r.c.authorId), releasedBy: person(r.c.releasedBy), releasedAt: r.c.releasedAt,
       orbitAverageAbsorbedW: Number(r.orbitAverageAbsorbedW), betaDeg: Number(r.betaDeg),
-      inputsChanged: r.c.status !== 'superseded' && inputChanges(ctx.db, r.c).length > 0,
+      inputsChanged: r.c.status !== 'superseded' && inputChanges(ctx.db, { missionId: r.c.missionId, inputs: caseInputsOf(ctx.db, r.c.id, r.c.version) }, missionNow).length > 0,
       version: r.c.version, createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
     }));
 }
