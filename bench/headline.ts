@@ -39,7 +39,7 @@ function computeRows({ python, numpyMs, figures }: ComputeFigures): BenchRow[] {
       result: isDefault || !numpyMs ? unoffered.trim() : (within(f) ? 'pass' : someWithin ? 'over 4x (another form holds the target)' : 'FAIL') + unoffered,
     };
   });
-  rows.push({ figure: `    numpy: ${python ?? 'no python3 with numpy'}; each form timed end to end (request, compute, answer received, decompressed as it arrives, read into numbers), the forms taking turns` });
+  rows.push({ figure: `    numpy: ${python ?? 'no python3 with numpy'}; each form timed end to end (request, compute, answer received, decompressed as it arrives, read into numbers), the forms taking turns in blocks of 5` });
   return rows;
 }
 

@@ -142,18 +142,27 @@ export interface ComputeFigures {
   figures: ComputeFigure[];
 }
 
-/** Every form, REPEATS times each after 3 warm-ups, the forms taking turns so drift hits them alike. */
+/** Requests of one form in a row before the next form's turn. */
+const BLOCK = 5;
+
+/**
+ * Every form, REPEATS times each after 3 warm-ups, the forms taking turns in blocks of BLOCK so
+ * drift hits them alike while a form is not timed among the garbage of another's 8 MB answers at
+ * every request (as a script asking for one form over and over would not be).
+ */
 export async function measureCompute(session: Session): Promise<ComputeFigures> {
   const python = findNumpy();
   const numpy = python ? runNumpy(python, REPEATS, [orbitCaseJob(REPEATS)]).cases[0] : null;
   for (let i = 0; i < 3; i++) for (const form of forms) await computeOnce(session, form);
   const times = forms.map(() => [] as number[]);
   const last: (Once | null)[] = forms.map(() => null);
-  for (let i = 0; i < REPEATS; i++) {
+  for (let done = 0; done < REPEATS; done += BLOCK) {
     for (const [f, form] of forms.entries()) {
-      const once = await computeOnce(session, form);
-      times[f].push(once.ms);
-      last[f] = once;
+      for (let i = done; i < Math.min(REPEATS, done + BLOCK); i++) {
+        const once = await computeOnce(session, form);
+        times[f].push(once.ms);
+        last[f] = once;
+      }
     }
   }
   const figures = forms.map((form, f): ComputeFigure => {
@@ -186,7 +195,7 @@ function computeRows({ python, numpyMs, figures }: ComputeFigures): BenchRow[] {
     };
   });
   rows.push({
-    measure: python ? `    numpy from ${python}; median of ${REPEATS} after 3 warm-ups, each side, the forms taking turns` : '    numpy: no python3 with numpy on PATH or at /usr/bin/python3',
+    measure: python ? `    numpy from ${python}; median of ${REPEATS} after 3 warm-ups, each side, the forms taking turns in blocks of ${BLOCK}` : '    numpy: no python3 with numpy on PATH or at /usr/bin/python3',
   });
   return rows;
 }
