@@ -145,15 +145,18 @@ export interface ComputeFigures {
 /** Requests of one form in a row before the next form's turn. */
 const BLOCK = 5;
 
+/** Requests of each form before timing: a long-running server's JIT has compiled the path (numpy needs none). */
+const WARM_UPS = 10;
+
 /**
- * Every form, REPEATS times each after 3 warm-ups, the forms taking turns in blocks of BLOCK so
+ * Every form, REPEATS times each after WARM_UPS warm-ups, the forms taking turns in blocks of BLOCK so
  * drift hits them alike while a form is not timed among the garbage of another's 8 MB answers at
  * every request (as a script asking for one form over and over would not be).
  */
 export async function measureCompute(session: Session): Promise<ComputeFigures> {
   const python = findNumpy();
   const numpy = python ? runNumpy(python, REPEATS, [orbitCaseJob(REPEATS)]).cases[0] : null;
-  for (let i = 0; i < 3; i++) for (const form of forms) await computeOnce(session, form);
+  for (let i = 0; i < WARM_UPS; i++) for (const form of forms) await computeOnce(session, form);
   const times = forms.map(() => [] as number[]);
   const last: (Once | null)[] = forms.map(() => null);
   for (let done = 0; done < REPEATS; done += BLOCK) {
@@ -195,7 +198,7 @@ function computeRows({ python, numpyMs, figures }: ComputeFigures): BenchRow[] {
     };
   });
   rows.push({
-    measure: python ? `    numpy from ${python}; median of ${REPEATS} after 3 warm-ups, each side, the forms taking turns in blocks of ${BLOCK}` : '    numpy: no python3 with numpy on PATH or at /usr/bin/python3',
+    measure: python ? `    numpy from ${python}; median of ${REPEATS} after ${WARM_UPS} warm-ups (numpy 3), each side, the forms taking turns in blocks of ${BLOCK}` : '    numpy: no python3 with numpy on PATH or at /usr/bin/python3',
   });
   return rows;
 }
