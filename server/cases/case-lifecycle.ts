@@ -4,7 +4,8 @@
 import { and, desc, eq, max, sql } from 'drizzle-orm';
 import type { CaseRevisionParsed, CaseUpdateParsed } from '../../shared/api/cases';
 import type { CaseInputs } from '../../shared/api/case-content';
-import { derivedCaseValues, withRationale } from './case-derivation';
+import { derivedCaseValues } from './case-derivation';
+import { resultSummary, withRationale } from './case-drafts';
 import { evaluateCase } from '../../shared/physics/design-cases';
 import { resolveMargins } from '../../shared/physics/design-environment';
 import type { AppContext } from '../app-context';
@@ -14,9 +15,10 @@ import { auditEvents, caseComments, caseSubscriptions, loadCases, missions, user
 import { ApiError, conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
-import { attitudeText, limitCaseWork, resultSummary } from './case-derivation';
+import { limitCaseWork } from './case-snapshot';
+import { attitudeText } from '../../shared/physics/case-words';
 import { caseReleasedMail } from './case-mail';
-import { withMargins } from './ephemeris-case';
+import { withMargins } from '../../shared/physics/trajectory-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
 
 
@@ -232,17 +234,17 @@ export function newRevision(ctx: AppContext, user: UserRow, row: LoadCaseRow, re
 
 /** The hot or cold case of the revision's orbit, derived from the mission's current inputs with its steps and margins. */
 function derivedAgain(ctx: AppContext, row: LoadCaseRow): Pick<LoadCaseRow, 'inputs' | 'results'> {
-  const i = row.inputs;
+  const inputs = row.inputs;
   const mission = ctx.db.select().from(missions).where(eq(missions.id, row.missionId)).get();
-  if (row.kind === 'custom' || !i.orbit.id || i.ephemeris || !mission) {
+  if (row.kind === 'custom' || !inputs.orbit.id || inputs.ephemeris || !mission) {
     throw unprocessable(`The case ${label(row)} is a custom case or was computed along an ephemeris: make a new one from the current inputs instead.`, [
       { path: 'fromCurrentInputs', message: `only a derived hot or cold case is derived again (this one is ${row.kind})` },
     ]);
   }
   const values = derivedCaseValues(ctx.db, mission, {
-    orbitId: i.orbit.id, steps: i.conditions.steps,
-    margins: { heatLoadPercent: i.margins.heatLoadPercent, temperatureMarginC: i.margins.temperatureMarginC },
-    properties: { hot: i.conditions.properties, cold: i.conditions.properties },
+    orbitId: inputs.orbit.id, steps: inputs.conditions.steps,
+    margins: { heatLoadPercent: inputs.margins.heatLoadPercent, temperatureMarginC: inputs.margins.temperatureMarginC },
+    properties: { hot: inputs.conditions.properties, cold: inputs.conditions.properties },
   });
   const again = values.find((v) => v.kind === row.kind)!;
   return { inputs: again.inputs, results: again.results };

@@ -1,8 +1,9 @@
 // Missions, their orbits and spacecraft surfaces, and the material library (shared/api/missions.ts).
 // An orbit keeps what the user typed (input, with units) beside the canonical values.
 import { index, integer, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
-import { bodyIds } from '../../shared/physics/bodies';
+import type { AnyBodyId } from '../../shared/physics/bodies';
 import { orbitDefinitions } from '../../shared/api/missions';
+import type { SurfaceNormal } from '../../shared/physics/pointing';
 import { createdAt, id, updatedAt } from './columns';
 import { users, workspaces } from './account-tables';
 
@@ -14,7 +15,7 @@ export const missions = sqliteTable(
       .notNull()
       .references(() => workspaces.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
-    bodyId: text('body_id', { enum: bodyIds }).notNull(),
+    bodyId: text('body_id').$type<AnyBodyId>().notNull(),
     description: text('description').notNull().default(''),
     startDate: text('start_date').notNull(),
     endDate: text('end_date').notNull(),
@@ -79,8 +80,8 @@ export const surfaces = sqliteTable(
       .references(() => missions.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
     areaM2: real('area_m2').notNull(),
-    /** A named normal ("nadir") or JSON of a unit vector {"x":..,"y":..,"z":..}. */
-    normal: text('normal', { mode: 'json' }).$type<string | { x: number; y: number; z: number }>().notNull(),
+    /** The pointing as JSON: a named normal ("nadir"), a unit vector {"x":..,"y":..,"z":..} or another form of shared/api/pointing.ts. */
+    normal: text('normal', { mode: 'json' }).$type<SurfaceNormal>().notNull(),
     materialId: text('material_id')
       .notNull()
       .references(() => materials.id, { onDelete: 'restrict' }),

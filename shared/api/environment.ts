@@ -5,12 +5,13 @@
 // Ranges here catch malformed input (400); physics/orbit-definition.ts refuses the impossible (422)
 // so its messages can say by how much.
 import { z } from 'zod';
+import { anyBodyId, anyBodyIdOut } from './body-id';
 import { lineText } from './text';
-import { bodyIds } from '../physics/bodies';
 import type { EnvironmentRequest } from '../physics/environment';
 import { albedoModels, irModels } from '../physics/cap-loads';
-import { namedNormals } from '../physics/heat-loads';
+import { surfaceNormal } from './pointing';
 import { samplings } from '../physics/orbit-sampling';
+import { DAY_MS } from '../physics/constants';
 
 const finite = (label: string) => z.number({ message: `${label} must be a number` });
 
@@ -60,17 +61,9 @@ export const orbitInput = z
     }
   });
 
-export const localVector = z
-  .strictObject({ x: finite('x'), y: finite('y'), z: finite('z') })
-  .refine((v) => Math.abs(Math.hypot(v.x, v.y, v.z) - 1) <= 0.01, {
-    message: 'a custom normal is a unit vector {x, y, z} (x ram, y orbit normal, z zenith); its length must be 1',
-  });
-
 export const surfaceInput = z.strictObject({
   name: lineText(80, 'a surface name has at most 80 characters').min(1, 'give the surface a name'),
-  normal: z.union([z.enum(namedNormals), localVector], {
-    message: `normal is one of ${namedNormals.join(', ')} or a unit vector {x, y, z}`,
-  }),
+  normal: surfaceNormal,
   areaM2: finite('area').positive('area must be above 0 m^2').max(10000),
   absorptivity: finite('absorptivity').min(0, 'absorptivity is 0..1').max(1, 'absorptivity is 0..1'),
   emissivity: finite('emissivity').min(0, 'emissivity is 0..1').max(1, 'emissivity is 0..1'),
@@ -78,7 +71,7 @@ export const surfaceInput = z.strictObject({
 
 export const environmentRequest = z
   .strictObject({
-    bodyId: z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` }),
+    bodyId: anyBodyId(),
     orbit: orbitInput,
     epoch: z.iso.datetime({ offset: true, message: 'epoch is an ISO 8601 date and time, e.g. 2027-03-20T12:00:00Z' }).optional(),
     betaDeg: finite('beta').min(-90, 'beta is -90..90 deg').max(90, 'beta is -90..90 deg').optional(),
@@ -155,7 +148,9 @@ export const environmentResponse = z.object({
 const range = z.object({ min: z.number(), nominal: z.number(), max: z.number() });
 
 export const bodySummary = z.object({
-  id: z.enum(bodyIds),
+  id: anyBodyIdOut,
+  /** A workspace's own body: its workspace (absent for the catalogue's). */
+  workspaceId: z.string().optional(),
   name: z.string(),
   kind: z.enum(['planet', 'moon']),
   planetId: z.string(),
@@ -191,7 +186,7 @@ export const asEnvironmentRequest = (parsed: EnvironmentRequestParsed): Environm
 //   GET  /api/v1/bodies/:bodyId                    -> bodyDetail (404 for an unknown body)
 //   POST /api/v1/units/convert                     unitConvertRequest -> unitConvertResponse
 
-const bodyIdField = z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` });
+const bodyIdField = anyBodyId();
 
 export const orbitFiguresRequest = z.strictObject({ bodyId: bodyIdField, orbit: orbitInput });
 
@@ -238,7 +233,6 @@ export const sunSynchronousResponse = z.object({
 
 /** The most samples one beta history may hold. */
 export const MAX_BETA_HISTORY_SAMPLES = 20000;
-const DAY_MS = 86400e3;
 const isoDateTime = (label: string) =>
   z.iso.datetime({ offset: true, message: `${label} is an ISO 8601 date and time, e.g. 2027-03-20T00:00:00Z` });
 

@@ -21,12 +21,11 @@
 //   POST   workspaces/:workspaceId/materials      materialCreate -> 201 material
 //   PATCH|DELETE workspaces/:workspaceId/materials/:materialId   (only a workspace's own materials)
 import { z } from 'zod';
+import { anyBodyId, anyBodyIdOut } from './body-id';
 import { lineText, multilineText } from './text';
 import { answerLayout } from './answer-formats';
-import { bodyIds } from '../physics/bodies';
-import { namedNormals } from '../physics/heat-loads';
 import { samplings } from '../physics/orbit-sampling';
-import { localVector } from './environment';
+import { surfaceNormal } from './pointing';
 
 const isoDate = z.iso.date({ message: 'is a date like 2027-03-20' });
 const text = (label: string, max: number) => lineText(max, `the ${label} has at most ${max} characters`).min(1, `give the ${label}`);
@@ -40,7 +39,7 @@ export const mission = z.object({
   id: z.string(),
   workspaceId: z.string(),
   name: z.string(),
-  bodyId: z.enum(bodyIds),
+  bodyId: anyBodyIdOut,
   description: z.string(),
   startDate: z.string(),
   endDate: z.string(),
@@ -53,7 +52,7 @@ export const mission = z.object({
 
 const missionFields = {
   name: text('mission name', 120),
-  bodyId: z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` }),
+  bodyId: anyBodyId(),
   description: multilineText(4000).default(''),
   startDate: isoDate,
   endDate: isoDate,
@@ -146,9 +145,7 @@ export const materialCreate = z.strictObject({
 });
 export const materialUpdate = materialCreate.partial();
 
-export const surfaceNormal = z.union([z.enum(namedNormals), localVector], {
-  message: `normal is one of ${namedNormals.join(', ')} or a unit vector {x, y, z}`,
-});
+export { surfaceNormal };
 
 export const surface = z.object({
   id: z.string(),

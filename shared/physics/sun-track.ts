@@ -5,20 +5,30 @@
 // direction and under 1e-6 AU in distance (flux within 2e-6) for Earth with nodes 4 days apart (the largest short-period term is
 // Earth's monthly wobble about the Earth-Moon barycentre, about 6 arcsec; the four-point error is
 // about (3/128) (omega h)^4 of it). Source: Abramowitz & Stegun 25.2.13 (four-point Lagrange
-// interpolation); the interpolated values are checked against sunFromBody in sun-track.spec.ts.
+// interpolation); the interpolated values are checked against sunFromBody in mission-sweep.spec.ts.
 // A moon's Sun adds the moon's offset from its planet at each instant (moon-ephemeris.ts), from a
 // track of the moon's theory (nodes a sixteenth of a revolution apart, or 4 days for the fast moons),
 // interpolated in the frame turning with the moon (the offset then errs by tens of km for the Moon
 // and a few thousand km at most for the fast moons: under 1e-4 in their solar flux, checked in
 // parent-shadow.spec.ts).
-import type { Body } from './bodies';
-import { AU_KM } from './constants';
+import type { Body, HeliocentricOrbit } from './bodies';
+import { AU_KM, DAY_MS } from './constants';
 import { moonTrack, type MoonTrack } from './moon-ephemeris';
 import { DEG, type Vector3 } from './vector3';
 import { bodyFrameAxes, eclipticToEquatorial, julianDateTT, toBodyFrame } from './sun';
 import { vsop87Series } from './vsop87';
+import { keplerHeliocentric } from './custom-bodies';
 
-const DAY_MS = 86400e3;
+/** A custom body's Keplerian path (custom-bodies.ts) at the nodes, in vsop87Series's shape. */
+function keplerSeries(orbit: HeliocentricOrbit, jde0: number, stepDays: number, count: number) {
+  const series = { lon: new Float64Array(count), lat: new Float64Array(count), range: new Float64Array(count) };
+  for (let i = 0; i < count; i++) {
+    const p = keplerHeliocentric(orbit, jde0 + i * stepDays);
+    [series.lon[i], series.lat[i], series.range[i]] = [p.lon, p.lat, p.range];
+  }
+  return series;
+}
+
 export const SUN_TRACK_NODE_DAYS = 4;
 
 export interface SunTrack {
@@ -71,7 +81,7 @@ export function sunTrack(body: Body, startMs: number, endMs: number, nodeDays = 
   const zs = new Float64Array(count);
   // The nodes are evenly spaced in time, so the VSOP87 sums run as series over the grid (vsop87Series).
   const jde0 = julianDateTT(new Date(first));
-  const helio = vsop87Series(body.planetId, jde0, nodeDays, count);
+  const helio = body.heliocentric ? keplerSeries(body.heliocentric, jde0, nodeDays, count) : vsop87Series(body.planetId, jde0, nodeDays, count);
   for (let i = 0; i < count; i++) {
     const jde = jde0 + i * nodeDays;
     const cosLat = Math.cos(helio.lat[i]);

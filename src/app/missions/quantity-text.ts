@@ -6,17 +6,16 @@ import { readTypedQuantity, type TypedReading } from '../../../shared/physics/ty
 export { unitsOfKind, durationText } from '../../../shared/physics/typed-units';
 
 /** The unit a field shows as its suffix; a bare number is taken in it. */
-export type FieldUnit = 'km' | 's' | 'min' | 'deg' | 'm^2';
+export type FieldUnit = 'km' | 's' | 'min' | 'd' | 'deg' | 'm^2';
 
 export type QuantityReading = TypedReading;
 
 /**
- * The typed text as a number in the field's unit. A bare number is already in it; a number with a
- * unit is converted; anything else says what is wrong in words the field can show.
+ * The typed text as a number in the field's unit: the shared table's own reader, limited to the
+ * units a field shows. A bare number is already in it; a number with a unit is converted; anything
+ * else says what is wrong in words the field can show.
  */
-export function readQuantityText(text: string, fieldUnit: FieldUnit): QuantityReading {
-  return readTypedQuantity(text, fieldUnit);
-}
+export const readQuantityText: (text: string, fieldUnit: FieldUnit) => QuantityReading = readTypedQuantity;
 
 /**
  * What to send the server for a field: the text as typed, but a bare number gets the field's
