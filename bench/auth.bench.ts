@@ -66,7 +66,15 @@ async function rate(url: string, headers: Record<string, string>, pid: number | 
   return { perS: result.requests.average, p99: result.latency.p99, cpuUs };
 }
 
-export default async function authBench(): Promise<BenchRow[]> {
+export interface AuthFigure {
+  route: string;
+  perS: number;
+  p99: number;
+  cpuUs: number;
+}
+
+/** Every route's median requests/s, p99 and server CPU per answer; the first is the bare Express anchor. */
+export async function measureAuth(): Promise<AuthFigure[]> {
   const dir = mkdtempSync(path.join(tmpdir(), 'eclipta-auth-bench-'));
   const server = await startChildServer(dir);
   let bare: Awaited<ReturnType<typeof startBare>> | undefined;
@@ -101,20 +109,23 @@ export default async function authBench(): Promise<BenchRow[]> {
         measured[i]!.cpuUs.push(cpuUs);
       }
     }
-    const anchor = median(measured[0]!.perS);
-    const rows: BenchRow[] = runs.map((run, i) => {
-      const perS = median(measured[i]!.perS);
-      return {
-        route: run.route, 'req/s': Math.round(perS), 'p99 ms': median(measured[i]!.p99), 'x bare Express': perS / anchor,
-        'server CPU us/answer': Math.round(median(measured[i]!.cpuUs)),
-      };
-    });
-    rows.push({ route: `(${connections} connections, median of ${rounds} rounds of ${durationS} s; target: authenticated GET >= 0.5x bare Express)` });
-    return rows;
+    return runs.map((run, i) => ({
+      route: run.route, perS: median(measured[i]!.perS), p99: median(measured[i]!.p99), cpuUs: median(measured[i]!.cpuUs),
+    }));
   } finally {
     await bare?.stop();
     server.child.kill('SIGTERM');
     await server.exited;
     rmSync(dir, { recursive: true, force: true });
   }
+}
+
+export default async function authBench(): Promise<BenchRow[]> {
+  const figures = await measureAuth();
+  const anchor = figures[0]!.perS;
+  const rows: BenchRow[] = figures.map((f) => ({
+    route: f.route, 'req/s': Math.round(f.perS), 'p99 ms': f.p99, 'x bare Express': f.perS / anchor, 'server CPU us/answer': Math.round(f.cpuUs),
+  }));
+  rows.push({ route: `(${connections} connections, median of ${rounds} rounds of ${durationS} s; target: authenticated GET >= 0.5x bare Express)` });
+  return rows;
 }

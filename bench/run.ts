@@ -1,6 +1,7 @@
-// `npm run bench`: runs every bench/*.bench.ts in name order (or only those whose name contains an
-// argument: `npm run bench -- environment`) and prints each one's table. A bench file's default
-// export is an async function answering rows (bench/bench-table.ts).
+// `npm run bench`: the headline table of bench/headline.ts (every issue-16 figure beside its anchor
+// and target, one run). `npm run bench -- environment` runs the bench/*.bench.ts whose name
+// contains an argument, `npm run bench -- all` every one, in name order, printing each one's table.
+// A bench file's default export is an async function answering rows (bench/bench-table.ts).
 import { readdirSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
@@ -8,10 +9,12 @@ import { formatTable, type Bench } from './bench-table';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const filters = process.argv.slice(2);
-const files = readdirSync(here)
-  .filter((f) => f.endsWith('.bench.ts'))
-  .filter((f) => filters.length === 0 || filters.some((want) => f.includes(want)))
-  .sort();
+const files = filters.length === 0
+  ? ['headline.ts']
+  : readdirSync(here)
+    .filter((f) => f.endsWith('.bench.ts'))
+    .filter((f) => filters.includes('all') || filters.some((want) => f.includes(want)))
+    .sort();
 
 if (files.length === 0) {
   console.log(`no bench/*.bench.ts${filters.length ? ` matching ${filters.join(', ')}` : ''}`);

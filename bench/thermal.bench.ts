@@ -31,7 +31,23 @@ export function scipyAvailable(): string | null {
   return null;
 }
 
-export default async function thermalBench(): Promise<BenchRow[]> {
+export interface ThermalFigures {
+  model: ReturnType<typeof benchThermalModel>;
+  result: ReturnType<typeof solveThermal>;
+  eclipsMs: number;
+  eclipsCpuMs: number;
+  plainMs: number;
+  /** Why there is no SciPy side, or null. */
+  missing: string | null;
+  reference: {
+    ms: number; cpuMs: number; orbits: number; converged: boolean; temperaturesC: number[][];
+    changeOnly: { orbits: number; ms: number; cpuMs: number } | null;
+  } | null;
+  maxDiffK: number;
+}
+
+/** Eclipta's solve (median of 4, wall and CPU) and SciPy's of the same network. */
+export function measureThermal(): ThermalFigures {
   const model = benchThermalModel();
   const runs: number[] = [];
   const cpuRuns: number[] = [];
@@ -51,6 +67,25 @@ export default async function thermalBench(): Promise<BenchRow[]> {
   const plainMs = performance.now() - first;
   runs.sort((a, b) => a - b);
   const eclipsMs = runs[Math.floor(runs.length / 2)];
+  const missing = scipyAvailable();
+  const figures = { model, result, eclipsMs, eclipsCpuMs, plainMs, missing, reference: null, maxDiffK: NaN };
+  if (missing) return figures;
+  // Both start from the orbit-average steady state eclipta starts from.
+  const startC = orbitAverageStartC(model);
+  const dir = path.join(here, '..', 'tmp', 'bench');
+  mkdirSync(dir, { recursive: true });
+  const file = path.join(dir, 'thermal-model.json');
+  writeFileSync(file, JSON.stringify({ ...model, initialK: startC.map((c) => c + 273.15), toleranceK: TOLERANCE_K, rtol: RTOL, atolK: ATOL_K }));
+  const py = spawnSync('python3', [path.join(here, 'reference', 'thermal.py'), file], { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
+  if (py.status !== 0) return { ...figures, missing: `failed: ${py.stderr.trim().split('\n').pop() ?? ''}` };
+  const reference = JSON.parse(py.stdout) as NonNullable<ThermalFigures['reference']>;
+  let maxDiff = 0;
+  result.nodes.forEach((node, i) => node.temperaturesC.forEach((t, s) => (maxDiff = Math.max(maxDiff, Math.abs(t - reference.temperaturesC[i][s])))));
+  return { ...figures, reference, maxDiffK: maxDiff };
+}
+
+export default async function thermalBench(): Promise<BenchRow[]> {
+  const { model, result, eclipsMs, eclipsCpuMs, plainMs, missing, reference, maxDiffK: maxDiff } = measureThermal();
   const rows: BenchRow[] = [
     { name: 'thermal: nodes / couplings / heaters / samples x substeps', value: `${model.nodes.length} / ${(model.couplings?.length ?? 0) + (model.radiativeCouplings?.length ?? 0)} / ${model.heaters?.length ?? 0} / ${model.steps} x ${SUBSTEPS}`, unit: '' },
     { name: 'thermal: eclipta to periodic state (median of 4), wall', value: Math.round(eclipsMs), unit: 'ms' },
@@ -59,28 +94,10 @@ export default async function thermalBench(): Promise<BenchRow[]> {
     { name: 'thermal: eclipta orbits', value: result.orbits, unit: 'orbits' },
     { name: 'thermal: eclipta from initialC, no acceleration', value: Math.round(plainMs), unit: 'ms' },
   ];
-  const missing = scipyAvailable();
-  if (missing) {
-    rows.push({ name: 'thermal: scipy reference', value: `skipped: ${missing}`, unit: '' });
+  if (!reference) {
+    rows.push({ name: 'thermal: scipy reference', value: missing?.startsWith('failed') ? missing : `skipped: ${missing}`, unit: '' });
     return rows;
   }
-  // Both start from the orbit-average steady state eclipta starts from.
-  const startC = orbitAverageStartC(model);
-  const dir = path.join(here, '..', 'tmp', 'bench');
-  mkdirSync(dir, { recursive: true });
-  const file = path.join(dir, 'thermal-model.json');
-  writeFileSync(file, JSON.stringify({ ...model, initialK: startC.map((c) => c + 273.15), toleranceK: TOLERANCE_K, rtol: RTOL, atolK: ATOL_K }));
-  const py = spawnSync('python3', [path.join(here, 'reference', 'thermal.py'), file], { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
-  if (py.status !== 0) {
-    rows.push({ name: 'thermal: scipy reference', value: `failed: ${py.stderr.trim().split('\n').pop() ?? ''}`, unit: '' });
-    return rows;
-  }
-  const reference = JSON.parse(py.stdout) as {
-    ms: number; cpuMs: number; orbits: number; converged: boolean; temperaturesC: number[][];
-    changeOnly: { orbits: number; ms: number; cpuMs: number } | null;
-  };
-  let maxDiff = 0;
-  result.nodes.forEach((node, i) => node.temperaturesC.forEach((t, s) => (maxDiff = Math.max(maxDiff, Math.abs(t - reference.temperaturesC[i][s])))));
   rows.push(
     { name: `thermal: scipy solve_ivp BDF (rtol ${RTOL}, atol ${ATOL_K} K), wall`, value: Math.round(reference.ms), unit: 'ms' },
     { name: 'thermal: scipy, CPU', value: Math.round(reference.cpuMs), unit: 'ms' },

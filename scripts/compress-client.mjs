@@ -4,6 +4,7 @@
 import { readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { extname, join } from 'node:path';
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
+import { completeModulePreloads } from './initial-modules.mjs';
 
 // The same list as server/http/client-files.ts precompressedExtensions.
 const extensions = ['.js', '.css', '.html', '.svg', '.json', '.txt', '.map'];
@@ -17,6 +18,9 @@ function* files(dir) {
 }
 
 export function compressClient(dir = 'dist/client/browser') {
+  // index.html first, so its compressed copies name every module of the first load.
+  const preloads = completeModulePreloads(dir);
+  if (preloads > 0) console.log(`index.html: ${preloads} more modulepreload links (the first load's whole static import graph)`);
   let plain = 0;
   let brotli = 0;
   for (const file of files(dir)) {

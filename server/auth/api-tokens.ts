@@ -4,6 +4,7 @@ import type { ApiToken, TokenCreated } from '../../shared/api/auth';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
+import { memoisedRead } from '../db/read-memo';
 import { apiTokens, users, type ApiTokenRow, type UserRow } from '../db/schema';
 import { forbidden, notFound } from '../errors';
 import type { RequestAuth } from './request-auth';
@@ -56,11 +57,12 @@ const tokenWithUser = preparedPer((db: Db) =>
 );
 
 /**
- * The token of a secret and its owner, read from the database on every request (one prepared
- * query, no cache), so a revoked token is refused at once.
+ * The token of a secret and its owner, read again after any write to the database (memoisedRead),
+ * so a revoked token is refused at once; its expiry is checked against the clock on every request.
  */
 export function findApiToken(db: Db, secret: string, now = new Date()): TokenLookup {
-  const found = tokenWithUser(db).get({ hash: sha256Hex(secret) });
+  const hash = sha256Hex(secret);
+  const found = memoisedRead(db, `token ${hash}`, () => tokenWithUser(db).get({ hash }) ?? null);
   if (!found) return { ok: false, reason: 'unknown' };
   const { row, user } = found;
   if (row.revokedAt) return { ok: false, reason: 'revoked' };

@@ -4,6 +4,7 @@ import type { MeResponse, MembershipSummary } from '../../shared/api/auth';
 import type { Workspace } from '../../shared/api/workspaces';
 import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
+import { memoisedRead } from '../db/read-memo';
 import { memberships, workspaces, type UserRow } from '../db/schema';
 
 const workspacesOfUser = preparedPer((db: Db) =>
@@ -16,8 +17,9 @@ const workspacesOfUser = preparedPer((db: Db) =>
     .prepare(),
 );
 
-export function userWorkspaces(db: Db, userId: string): MembershipSummary[] {
-  return workspacesOfUser(db).all({ userId });
+/** The user's workspaces and roles, read again after any write to the database (memoisedRead). */
+export function userWorkspaces(db: Db, userId: string): readonly MembershipSummary[] {
+  return memoisedRead(db, `workspaces ${userId}`, () => workspacesOfUser(db).all({ userId }));
 }
 
 /** The user's workspaces as GET /workspaces lists them. */
@@ -28,7 +30,7 @@ export function workspacesOf(db: Db, userId: string): Workspace[] {
 export function meResponse(db: Db, user: UserRow, auth: MeResponse['auth']): MeResponse {
   return {
     user: { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin },
-    workspaces: userWorkspaces(db, user.id),
+    workspaces: [...userWorkspaces(db, user.id)],
     auth,
   };
 }

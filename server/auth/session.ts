@@ -9,6 +9,7 @@ import { createSecretKey, type KeyObject } from 'node:crypto';
 import type { AppContext } from '../app-context';
 import type { Db, DbOrTx } from '../db/database';
 import { preparedPer } from '../db/prepared';
+import { memoisedRead } from '../db/read-memo';
 import { sessions, users, type UserRow } from '../db/schema';
 
 export const sessionCookie = 'eclipta_session';
@@ -115,11 +116,14 @@ const openSessionUser = preparedPer((db: Db) =>
 );
 
 /**
- * The user of an open, unexpired session row matching the claims; undefined otherwise. Read from
- * the database on every request (one prepared query, no cache), so an ended session is refused at once.
+ * The user of an open, unexpired session row matching the claims; undefined otherwise. The row is
+ * read again after any write to the database (memoisedRead), so an ended session is refused at
+ * once; its expiry is checked against the clock on every request.
  */
 export function sessionUser(db: Db, claims: SessionClaims, now = new Date()): UserRow | undefined {
-  const found = openSessionUser(db).get({ sessionId: claims.sessionId, userId: claims.userId });
+  const found = memoisedRead(db, `session ${claims.sessionId} ${claims.userId}`, () =>
+    openSessionUser(db).get({ sessionId: claims.sessionId, userId: claims.userId }) ?? null,
+  );
   if (!found || Date.parse(found.expiresAt) <= now.getTime()) return undefined;
   return found.user;
 }

@@ -8,6 +8,7 @@ import type { CaseInputs, CaseResultsContent } from '../../shared/api/case-conte
 import type { AppContext } from '../app-context';
 import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
+import { memoisedRead } from '../db/read-memo';
 import { caseComments, caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
 import { caseEditors, visibleToViewer } from './case-access';
 import { caseInputsOf, inputChanges, missionsNow } from './case-currency';
@@ -147,8 +148,26 @@ function caseListQuery(db: Db, given: FilterShape) {
 /** One prepared case list query per database and combination of given filters (eight at most). */
 const caseListQueries = preparedPer((_db: Db) => new Map<string, ReturnType<typeof caseListQuery>>());
 
-/** The cases of every workspace the user belongs to; a viewer's list holds released and superseded ones only. */
-export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): CaseSummary[] {
+/**
+ * The cases of every workspace the user belongs to; a viewer's list holds released and superseded
+ * ones only. Worked out again after any write to the database (memoisedRead): the list and each
+ * case's currency with its mission depend on the database alone.
+ */
+export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): readonly CaseSummary[] {
+  return memoisedRead(ctx.db, `cases ${listKey(userId, filter)}`, () => readCaseList(ctx, userId, filter));
+}
+
+/**
+ * The case list's answer ({ items }) as JSON text, as res.json would write it: made once per
+ * database change like the list itself, so a repeated list is not serialised again.
+ */
+export function caseListJson(ctx: AppContext, userId: string, filter: CaseFilter): string {
+  return memoisedRead(ctx.db, `cases json ${listKey(userId, filter)}`, () => JSON.stringify({ items: listCases(ctx, userId, filter) }));
+}
+
+const listKey = (userId: string, filter: CaseFilter) => JSON.stringify([userId, filter.missionId ?? null, filter.status ?? null, filter.kind ?? null]);
+
+function readCaseList(ctx: AppContext, userId: string, filter: CaseFilter): CaseSummary[] {
   const given: FilterShape = { missionId: !!filter.missionId, status: !!filter.status, kind: !!filter.kind };
   const key = `${+given.missionId}${+given.status}${+given.kind}`;
   const queries = caseListQueries(ctx.db);

@@ -6,10 +6,11 @@
 // (a per-surface quantity is the column "<surface name>.<quantity>"), every other field of the
 // answer as schema metadata (text as it is, anything else as JSON).
 import type { Request, Response } from 'express';
-import { Float64, RecordBatch, Schema, Table, Utf8, makeVector, tableToIPC, vectorFromArray, type Vector } from 'apache-arrow';
 import { answerLayoutQuery } from '../../shared/api/answer-formats';
 import { parse } from '../errors';
 import { sendJson } from '../json-stream';
+import { sendAnswerBytes } from './answer-body';
+import { arrowStream, type ArrowPieces } from './arrow-stream';
 
 export const ARROW_STREAM = 'application/vnd.apache.arrow.stream';
 
@@ -104,13 +105,6 @@ function extractColumns(container: Plain, steps: number): Extracted {
   return { columns, rest };
 }
 
-function arrowVector(values: unknown[] | Float64Array): Vector {
-  // A copy of its own: the IPC writer is markedly slower on views into one large buffer (measured).
-  if (values instanceof Float64Array) return makeVector(values.slice());
-  if (values.some((v) => typeof v === 'string')) return vectorFromArray(values.map((v) => (v === null ? null : String(v))), new Utf8());
-  return vectorFromArray(values.map((v) => (typeof v === 'number' ? v : typeof v === 'boolean' ? Number(v) : null)), new Float64());
-}
-
 const metadataText = (value: unknown): string => (typeof value === 'string' ? value : JSON.stringify(value));
 
 /**
@@ -118,7 +112,7 @@ const metadataText = (value: unknown): string => (typeof value === 'string' ? va
  * `stepKey` array) as the table, every other field as schema metadata under its own name, and what
  * is left of `answer[key]` (e.g. the surfaces' ids) as JSON under `key`.
  */
-export function arrowAnswer(answer: Plain, key: string, stepKey: string): Uint8Array {
+export function arrowAnswer(answer: Plain, key: string, stepKey: string): ArrowPieces {
   const container = answer[key];
   if (!isPlain(container)) throw new Error(`the answer has no columns at ${key}`);
   const steps = (container[stepKey] as unknown[] | undefined)?.length ?? 0;
@@ -126,24 +120,12 @@ export function arrowAnswer(answer: Plain, key: string, stepKey: string): Uint8A
   const metadata = new Map<string, string>();
   for (const [field, value] of Object.entries(answer)) if (field !== key) metadata.set(field, metadataText(value));
   if (isPlain(rest) && Object.keys(rest).length > 0) metadata.set(key, JSON.stringify(rest));
-  const vectors: Record<string, Vector> = {};
-  for (const [name, values] of columns) vectors[name] = arrowVector(values);
-  const built = new Table(vectors);
-  const schema = new Schema(built.schema.fields, metadata);
-  return tableToIPC(new Table(schema, built.batches.map((b) => new RecordBatch(schema, b.data))), 'stream');
-}
-
-/** A copy with every Float64Array as a plain array, for JSON.stringify (which would write an object). */
-function plainArrays(value: unknown): unknown {
-  if (value instanceof Float64Array) return Array.from(value);
-  if (Array.isArray(value)) return value.map(plainArrays);
-  if (isPlain(value)) return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, plainArrays(v)]));
-  return value;
+  return arrowStream(columns, metadata, steps);
 }
 
 export interface PerStepAnswer<T extends object> {
-  /** The default JSON as bytes, when the route can write them faster than JSON.stringify of the object. */
-  json?: () => Buffer;
+  /** The default JSON in pieces (and about how many bytes), when the route can write them faster than JSON.stringify of the object. */
+  json?: () => { pieces: Iterable<Uint8Array>; byteLength: number };
   /** The answer in its default shape (built only when needed). */
   answer: () => T;
   /** The columnar form straight from the route's own columns (Float64Arrays welcome), instead of from `answer`. */
@@ -155,21 +137,22 @@ export interface PerStepAnswer<T extends object> {
 }
 
 /**
- * Sends a per-step answer in the form the request asks for. JSON built from objects is written a
- * batch at a time (`sendJson`), so a large answer never becomes one string in memory.
+ * Sends a per-step answer in the form the request asks for, piece by piece and compressed as the
+ * request accepts (answer-body.ts): JSON built from objects a batch of steps at a time
+ * (json-stream.ts), so a large answer never becomes one string in memory.
  */
 export async function sendPerStep<T extends object>(res: Response, form: AnswerForm, spec: PerStepAnswer<T>, status = 200): Promise<void> {
   res.status(status);
   if (form === 'json') {
-    if (spec.json) res.type('application/json; charset=utf-8').send(spec.json());
+    if (spec.json) await sendAnswerBytes(res, { type: 'application/json; charset=utf-8', ...spec.json(), exact: false });
     else await sendJson(res, spec.answer());
     return;
   }
   const columnar = spec.columns?.() ?? columnarAnswer(spec.answer(), spec.key);
   if (form === 'columns') {
-    await sendJson(res, plainArrays(columnar));
+    await sendJson(res, columnar);
     return;
   }
   const stream = arrowAnswer(columnar, spec.key, spec.stepKey);
-  res.type(ARROW_STREAM).send(Buffer.from(stream.buffer, stream.byteOffset, stream.byteLength));
+  await sendAnswerBytes(res, { type: ARROW_STREAM, pieces: stream.pieces, byteLength: stream.byteLength, exact: true });
 }

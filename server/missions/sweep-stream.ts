@@ -8,6 +8,7 @@ import { csvRecord } from '../../shared/csv/csv-cell';
 import type { Logger } from '../logger';
 import type { MissionSurface } from './saved-environment';
 import type { SweepPlan } from './sweep-days';
+import { drained } from '../http/answer-body';
 
 // About 40 ms of computing on one core per chunk at SWEEP_STEPS with a few surfaces (measured).
 const DAYS_PER_CHUNK = 120;
@@ -74,19 +75,6 @@ export interface SweepStream {
 
 const nextTurn = (): Promise<void> => new Promise((resolve) => setImmediate(resolve));
 
-/** Waits for 'drain' when the socket buffer is full, or for the client to leave. */
-function drained(res: Response): Promise<void> {
-  return new Promise((resolve) => {
-    const done = () => {
-      res.off('drain', done);
-      res.off('close', done);
-      resolve();
-    };
-    res.on('drain', done);
-    res.on('close', done);
-  });
-}
-
 export async function streamSweep({ res, logger, plan, surfaces, format, fileName, crewed, computeDays, assumptions, phases }: SweepStream): Promise<void> {
   // res 'close' fires when the connection ends, finished or not; req 'close' can fire as soon as
   // the (empty) request body has been read, so it would not tell a departed client apart.
@@ -127,7 +115,7 @@ export async function streamSweep({ res, logger, plan, surfaces, format, fileNam
     const more = res.write(chunk);
     // Under compression (server/http/answer-compression.ts) the chunk leaves now, not when the compressor's buffer fills.
     res.flush?.();
-    if (!more) await drained(res);
+    if (!more) await drained(res, res);
     await nextTurn();
   }
   if (gone) return;

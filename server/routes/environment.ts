@@ -19,7 +19,7 @@ import { betaHistory } from '../environment/beta-history';
 import { notFound } from '../errors';
 import { route, type ApiRoute } from '../http/api-route';
 import { answerForm, sendPerStep } from '../http/answer-formats';
-import { environmentColumnsAnswer, environmentJson } from '../http/environment-json';
+import { environmentColumnsAnswer, environmentJsonPieces } from '../http/environment-json';
 import { convertTypedValue } from '../missions/quantity-reader';
 import { limitWork } from '../work-limit';
 
@@ -93,7 +93,7 @@ export const environmentRoutes: ApiRoute[] = [
       const form = answerForm(req);
       const columns = computeEnvironmentColumns(asEnvironmentRequest(request));
       await sendPerStep(res, form, {
-        json: () => environmentJson(columns),
+        json: () => environmentJsonPieces(columns),
         answer: () => environmentResult(columns),
         columns: () => environmentColumnsAnswer(columns),
         key: 'profile',

@@ -158,6 +158,30 @@ describe('compression', () => {
     }
   });
 
+  it('compresses the columnar and Arrow answers and a full-size compute answer written in pieces to the very bytes sent uncompressed', async () => {
+    const big = { ...orbitRequest, steps: 3600 };
+    for (const [url, headers, body] of [
+      ['/api/v1/environment/compute', {}, big],
+      ['/api/v1/environment/compute?layout=columns', {}, orbitRequest],
+      ['/api/v1/environment/compute', { accept: ARROW }, big],
+    ] as const) {
+      const plain = await raw('POST', url, { ...headers, 'accept-encoding': 'identity' }, body);
+      expect(plain.headers['content-encoding']).toBeUndefined();
+      for (const encoding of ['br', 'gzip']) {
+        const packed = await raw('POST', url, { ...headers, 'accept-encoding': encoding }, body);
+        expect(packed.headers['content-encoding'], url).toBe(encoding);
+        expect(decoded(packed).equals(plain.body), `${url} ${encoding}`).toBe(true);
+        expect(packed.body.length).toBeLessThan(plain.body.length);
+      }
+    }
+    const parsed = asEnvironmentRequest(environmentRequest.parse(big));
+    const json = await raw('POST', '/api/v1/environment/compute', { 'accept-encoding': 'br' }, big);
+    expect(decoded(json).toString('utf8')).toBe(JSON.stringify(computeEnvironment(parsed)));
+    const table = arrowOf(await raw('POST', '/api/v1/environment/compute', { accept: ARROW, 'accept-encoding': 'gzip' }, big));
+    const profile = (JSON.parse(decoded(json).toString('utf8')) as { profile: Point[] }).profile;
+    expect(numbers(table, `${big.surfaces[1].name}.absorbedW`)).toEqual(profile.map((p) => p.surfaces[1].absorbedW));
+  });
+
   it('compresses a streamed NDJSON sweep chunk by chunk: what has arrived decompresses to whole lines before the end', async () => {
     const missionId = missionIdOf(t, kestrelOne);
     const orbitId = orbitIdOf(t, missionId, 'Operational SSO 540 km');

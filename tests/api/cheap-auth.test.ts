@@ -2,9 +2,10 @@
 // (with the clock under the test's control, not a timed test), and the look-ups that every request
 // makes -- prepared once and reused -- still see an ended session, a revoked token or a removed
 // membership on the very next request. Common practice, no source.
+import Database from 'better-sqlite3';
 import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
-import { readSession } from '../../server/auth/session';
+import { readSession, sessionUser } from '../../server/auth/session';
 import { createTestApp, demoPassword, userIdOf, workspaceIdOf, type TestApp } from './test-app';
 
 let t: TestApp;
@@ -130,3 +131,88 @@ describe('session signatures checked once', () => {
   });
 });
 
+
+// What every request reads is remembered until the database changes (server/db/read-memo.ts): any
+// write, through the app, straight on its connection, or by another connection (another process
+// sharing the file), must show on the very next request. Common practice, no source.
+describe('remembered reads are dropped by any write', () => {
+  /** A second connection on the same file, as another server process would have. */
+  function otherConnection(): Database.Database {
+    return new Database(t.ctx.config.dbPath);
+  }
+
+  it('a session ended by another connection is refused on the very next request, with a token and with a cookie', async () => {
+    const cookie = await signInCookie('thermal@kestrel.test');
+    const { secret } = await makeToken(cookie, 'ended elsewhere');
+    const bearer = { Authorization: `Bearer ${secret}` };
+    for (let i = 0; i < 3; i++) {
+      await request(t.app).get('/api/v1/cases').set('cookie', cookie).expect(200);
+      await request(t.app).get('/api/v1/auth/me').set(bearer).expect(200);
+    }
+    const other = otherConnection();
+    try {
+      const userId = userIdOf(t, 'thermal@kestrel.test');
+      other.prepare('UPDATE sessions SET ended_at = ? WHERE user_id = ? AND ended_at IS NULL').run(new Date().toISOString(), userId);
+      await request(t.app).get('/api/v1/cases').set('cookie', cookie).expect(401);
+      await request(t.app).get('/api/v1/auth/me').set('cookie', cookie).expect(401);
+      other.prepare('UPDATE api_tokens SET revoked_at = ? WHERE user_id = ?').run(new Date().toISOString(), userId);
+      const refused = await request(t.app).get('/api/v1/auth/me').set(bearer);
+      expect(refused.status).toBe(401);
+      expect(refused.body.error.message).toBe('This API token was revoked.');
+    } finally {
+      other.close();
+    }
+  });
+
+  it('a session past its expiry is refused though its row was remembered (the clock is checked on every call)', async () => {
+    const cookie = await signInCookie('analyst@kestrel.test');
+    await request(t.app).get('/api/v1/auth/me').set('cookie', cookie).expect(200);
+    const claims = readSession(t.ctx, decodeURIComponent(cookie.slice('eclipta_session='.length)));
+    if (!claims) throw new Error('the cookie did not read');
+    const expiresAt = (t.ctx.sqlite.prepare('SELECT expires_at FROM sessions WHERE id = ?').get(claims.sessionId) as { expires_at: string }).expires_at;
+    expect(sessionUser(t.ctx.db, claims)?.id).toBe(userIdOf(t, 'analyst@kestrel.test'));
+    expect(sessionUser(t.ctx.db, claims, new Date(Date.parse(expiresAt) - 1))?.id).toBe(userIdOf(t, 'analyst@kestrel.test'));
+    expect(sessionUser(t.ctx.db, claims, new Date(expiresAt))).toBeUndefined();
+  });
+
+  it('auth/me and the case list show a change made by another connection, and one made straight on the app’s own connection', async () => {
+    const cookie = await signInCookie('owner@kestrel.test');
+    const me = async () => (await request(t.app).get('/api/v1/auth/me').set('cookie', cookie).expect(200)).body as { user: { name: string }; workspaces: { workspaceName: string }[] };
+    const cases = async () => (await request(t.app).get('/api/v1/cases').set('cookie', cookie).expect(200)).body as { items: { id: string; name: string; inputsChanged: boolean }[] };
+    const before = await cases();
+    const first = before.items.find((c) => !c.inputsChanged && (c as { status?: string }).status !== 'superseded');
+    if (!first) throw new Error('the demo has no current case');
+    await me();
+    const userId = userIdOf(t, 'owner@kestrel.test');
+    const other = otherConnection();
+    try {
+      other.prepare('UPDATE users SET name = ? WHERE id = ?').run('Renamed Elsewhere', userId);
+      other.prepare('UPDATE load_cases SET name = ? WHERE id = ?').run('Renamed case', first.id);
+      other.prepare('UPDATE workspaces SET name = ? WHERE id = ?').run('Kestrel Renamed', workspaceIdOf(t, 'Kestrel'));
+    } finally {
+      other.close();
+    }
+    expect((await me()).user.name).toBe('Renamed Elsewhere');
+    expect((await me()).workspaces.map((w) => w.workspaceName)).toContain('Kestrel Renamed');
+    expect((await cases()).items.find((c) => c.id === first.id)?.name).toBe('Renamed case');
+
+    t.ctx.sqlite.prepare('UPDATE users SET name = ? WHERE id = ?').run('Renamed Here', userId);
+    expect((await me()).user.name).toBe('Renamed Here');
+    // A mission change the case was made from turns its currency flag on at once.
+    t.ctx.sqlite.prepare("UPDATE missions SET end_date = '2099-12-31' WHERE id = (SELECT mission_id FROM load_cases WHERE id = ?)").run(first.id);
+    expect((await cases()).items.find((c) => c.id === first.id)?.inputsChanged).toBe(true);
+    t.ctx.sqlite.prepare("UPDATE workspaces SET name = 'Kestrel' WHERE name = 'Kestrel Renamed'").run();
+  });
+
+  it('a member removed from a workspace loses its cases from the list and from auth/me on the very next request', async () => {
+    const kestrel = workspaceIdOf(t, 'Kestrel');
+    const owner = await signInCookie('owner@kestrel.test');
+    const engineer = await signInCookie('thermal@kestrel.test');
+    const listed = async () => ((await request(t.app).get('/api/v1/cases').set('cookie', engineer).expect(200)).body as { items: { workspaceId: string }[] }).items;
+    expect((await listed()).some((c) => c.workspaceId === kestrel)).toBe(true);
+    await request(t.app).delete(`/api/v1/workspaces/${kestrel}/members/${userIdOf(t, 'thermal@kestrel.test')}`).set('cookie', owner).expect(204);
+    expect((await listed()).some((c) => c.workspaceId === kestrel)).toBe(false);
+    const me = (await request(t.app).get('/api/v1/auth/me').set('cookie', engineer).expect(200)).body as { workspaces: { workspaceId: string }[] };
+    expect(me.workspaces.some((w) => w.workspaceId === kestrel)).toBe(false);
+  });
+});
