@@ -1,11 +1,11 @@
 // Is a case still current with its mission? The inputs a case was made from (its snapshot of the
 // surfaces with their materials, the orbit, the body's constants and the mission's dates) against
 // the mission as it is now, as a list of changes in words. A case from an ephemeris compares its
-// surfaces and body only (its orbit is the trajectory's).
+// surfaces and body only (its orbit is the trajectory's), and whether its ephemeris is still there.
 import { and, eq } from 'drizzle-orm';
 import type { CaseInputs } from '../../shared/api/case-content';
 import type { Db } from '../db/database';
-import { missions, orbits, type LoadCaseRow } from '../db/schema';
+import { ephemerides, missions, orbits, type LoadCaseRow } from '../db/schema';
 import { canonicalJson } from './canonical-json';
 import { missionInputs, surfaceSnapshot } from './case-derivation';
 
@@ -35,6 +35,7 @@ export function inputChanges(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'input
       for (const [key, label, unit] of fields) out.push(changed(`orbit "${i.orbit.name}" ${label}`, i.orbit[key], orbit[key], unit));
     }
   }
+  if (i.ephemeris && !ephemerisKept(db, row.missionId, i.ephemeris.id)) out.push(`ephemeris "${i.ephemeris.name}" was deleted`);
   let current: ReturnType<typeof surfaceSnapshot>;
   try {
     current = surfaceSnapshot(db, mission);
@@ -50,7 +51,7 @@ export function inputChanges(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'input
       continue;
     }
     out.push(changed(`surface "${s.name}" area`, s.areaM2, c.areaM2, ' m^2'));
-    if (!same(s.normal, c.normal) && !i.handEdited?.includes('surfaces')) out.push(`surface "${s.name}" pointing changed`);
+    if (!same(s.normal, c.normal) && !i.handEdited?.includes('surfaces') && !i.fixed?.normals?.[s.name]) out.push(`surface "${s.name}" pointing changed`);
     if (s.material.name !== c.material.name) out.push(`surface "${s.name}" material: ${s.material.name} -> ${c.material.name}`);
     else {
       for (const k of ['absorptivityBol', 'emissivityBol', 'absorptivityEol', 'emissivityEol'] as const) {
@@ -60,4 +61,23 @@ export function inputChanges(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'input
   }
   for (const c of current) if (!was.some((s) => s.name === c.name)) out.push(`surface "${c.name}" was added`);
   return [...new Set(out.filter((x): x is string => x !== null))];
+}
+
+const ephemerisKept = (db: Db, missionId: string, id: string): boolean =>
+  !!db.select({ id: ephemerides.id }).from(ephemerides).where(and(eq(ephemerides.id, id), eq(ephemerides.missionId, missionId))).get();
+
+/**
+ * Why a new revision cannot be computed again from the mission's current inputs: the ephemeris or
+ * the orbit it was computed on was deleted (the route's 409 and the case page say it); null when it can.
+ */
+export function rederivationBlocked(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'inputs'>): string | null {
+  const i = row.inputs;
+  const keep = 'a new revision can keep its stored inputs and loads only';
+  if (i.ephemeris) {
+    if (ephemerisKept(db, row.missionId, i.ephemeris.id)) return null;
+    return `The ephemeris "${i.ephemeris.name}" this case was computed along was deleted from the mission: ${keep}, or upload the file again and make a new case from it.`;
+  }
+  const orbit = i.orbit.id ? db.select({ id: orbits.id }).from(orbits).where(and(eq(orbits.id, i.orbit.id), eq(orbits.missionId, row.missionId))).get() : undefined;
+  if (orbit) return null;
+  return `The orbit "${i.orbit.name}" this case was computed on was deleted from the mission: ${keep}, or add the orbit again and make a new case on it.`;
 }

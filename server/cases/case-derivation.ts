@@ -116,6 +116,9 @@ const canonicalOrbit = (o: OrbitRow): StoredConditions['orbit'] => ({
   semiMajorAxisKm: o.semiMajorAxisKm, eccentricity: o.eccentricity, inclinationDeg: o.inclinationDeg, raanDeg: o.raanDeg, argPeriapsisDeg: o.argPeriapsisDeg,
 });
 
+/** A case's `environmentSource` when the user gave its albedo or OLR (a new revision keeps them). */
+export const USER_GIVEN_SOURCE = 'entered by the user';
+
 /**
  * A single case's albedo and OLR in words: where they come from (the body's nominal values unless
  * the user gave either) and the rationale line, which names the body's design pairs beside them.
@@ -123,7 +126,7 @@ const canonicalOrbit = (o: OrbitRow): StoredConditions['orbit'] => ({
 export function pairWords(body: Body, inclinationDeg: number, albedo: number, olrWm2: number, userGiven: boolean): { source: string; rationale: string } {
   const pairs = designPairs(body, inclinationDeg);
   return {
-    source: userGiven ? 'entered by the user' : `${body.name} nominal: ${body.sources['albedo'] ?? ''}`,
+    source: userGiven ? USER_GIVEN_SOURCE : `${body.name} nominal: ${body.sources['albedo'] ?? ''}`,
     rationale: `albedo ${albedo.toFixed(2)} with OLR ${olrWm2.toFixed(0)} W/m^2, ${userGiven ? 'given by the user' : `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}`}`,
   };
 }
@@ -198,9 +201,9 @@ export function deriveCases(ctx: AppContext, user: UserRow, mission: MissionRow,
   });
 }
 
-/** Saves a user-defined case: a fixed date (and beta, if given), property set and attitude. */
-export function createCustomCase(ctx: AppContext, user: UserRow, mission: MissionRow, input: CaseCreateParsed): LoadCaseRow {
-  const { orbit, surfaces: list } = snapshotOf(ctx.db, mission, input.orbitId, input.steps);
+/** A user-defined case computed with the mission's orbit, surfaces and materials as they are now. */
+export function customCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, input: CaseCreateParsed): DraftValues {
+  const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId, input.steps);
   const unknown = Object.keys(input.normals ?? {}).filter((n) => !list.some((s) => s.name === n));
   if (unknown.length > 0) {
     throw unprocessable(`The mission has no surface named ${unknown.map((n) => JSON.stringify(n)).join(', ')}.`, unknown.map((n) => ({ path: `normals.${n}`, message: 'no such surface' })));
@@ -230,6 +233,8 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
     pair.rationale,
     `${input.properties.toUpperCase()} optical properties`,
   ];
+  const userValues = { betaDeg: input.betaDeg, solarDistanceAu: input.solarDistanceAu, albedo: input.albedo, olrWm2: input.olrWm2, normals: input.normals };
+  const fixed: NonNullable<CaseInputs['fixed']> = Object.fromEntries(Object.entries(userValues).filter(([, v]) => v !== undefined));
   const inputs: CaseInputs = {
     ...baseInputs(mission, orbit),
     attitude: input.attitude ?? attitudeText(pointed),
@@ -242,10 +247,50 @@ export function createCustomCase(ctx: AppContext, user: UserRow, mission: Missio
     surfaceDrivers: [],
     scan: null,
     assumptions: caseAssumptions(conditions),
+    ...(Object.keys(fixed).length > 0 ? { fixed } : {}),
   };
   const results = evaluateCase(conditions, margins);
+  return { name: input.name, kind: 'custom', inputs: withRationale('custom', inputs, results), results };
+}
+
+/**
+ * The request that computes a stored custom case again from the mission's current orbit, surfaces
+ * and materials: its date, property set, margins and steps, the values its author fixed (beta, Sun
+ * distance, albedo, OLR, normals, attitude in words) and the conditions edited by hand since.
+ */
+export function customRequestOf(row: Pick<LoadCaseRow, 'name' | 'inputs'>, surfaceNames: string[]): CaseCreateParsed {
+  const i = row.inputs;
+  const c = i.conditions;
+  const fixed = i.fixed ?? legacyFixed(i);
+  const kept = <K extends 'betaDeg' | 'solarDistanceAu' | 'albedo' | 'olrWm2'>(k: K) => (i.handEdited?.includes(k) ? c[k] : fixed[k]);
+  const normals = Object.entries(fixed.normals ?? {}).filter(([name]) => surfaceNames.includes(name));
+  const typedAttitude = i.attitude !== attitudeText(c.surfaces) ? i.attitude : undefined;
+  const optional = { betaDeg: kept('betaDeg'), solarDistanceAu: kept('solarDistanceAu'), albedo: kept('albedo'), olrWm2: kept('olrWm2'), attitude: typedAttitude };
+  return {
+    orbitId: i.orbit.id ?? '', name: row.name, date: c.date, properties: c.properties, marginDirection: c.marginDirection, steps: c.steps,
+    margins: { heatLoadPercent: i.margins.heatLoadPercent, temperatureMarginC: i.margins.temperatureMarginC },
+    ...Object.fromEntries(Object.entries(optional).filter(([, v]) => v !== undefined)),
+    ...(normals.length > 0 ? { normals: Object.fromEntries(normals) } : {}),
+  };
+}
+
+/** What a custom case made before `fixed` was kept says of itself: its setup lines and environment source. */
+function legacyFixed(i: CaseInputs): NonNullable<CaseInputs['fixed']> {
+  const c = i.conditions;
+  const said = (pattern: RegExp) => (i.facts ?? []).some((line) => pattern.test(line));
+  const pairGiven = i.environmentSource === USER_GIVEN_SOURCE;
+  return {
+    ...(said(/^custom case on .*: beta \S+ deg given by the user/) ? { betaDeg: c.betaDeg } : {}),
+    ...(said(/^Sun distance .*, distance given by the user/) ? { solarDistanceAu: c.solarDistanceAu } : {}),
+    ...(pairGiven ? { albedo: c.albedo, olrWm2: c.olrWm2 } : {}),
+  };
+}
+
+/** Saves a user-defined case: a fixed date (and beta, if given), property set and attitude. */
+export function createCustomCase(ctx: AppContext, user: UserRow, mission: MissionRow, input: CaseCreateParsed): LoadCaseRow {
+  const values = customCaseValues(ctx.db, mission, input);
   return ctx.db.transaction((tx) => {
-    const row = insertDraft(tx, mission, user, { name: input.name, kind: 'custom', inputs: withRationale('custom', inputs, results), results });
+    const row = insertDraft(tx, mission, user, values);
     recordAudit(tx, {
       workspaceId: mission.workspaceId, actorUserId: user.id, action: 'case.created', targetType: 'load_case', targetId: row.id,
       summary: `Created custom case "${row.name}" (revision 1, draft) for mission "${mission.name}".`,

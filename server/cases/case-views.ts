@@ -10,7 +10,7 @@ import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
 import { caseComments, caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
 import { caseEditors, visibleToViewer } from './case-access';
-import { inputChanges } from './case-currency';
+import { inputChanges, rederivationBlocked } from './case-currency';
 
 export { cautionFor, cautionText, crewedCaution } from '../../shared/api/caution';
 import { cautionFor } from '../../shared/api/caution';
@@ -92,6 +92,7 @@ export function toDetail(db: Db, row: LoadCaseRow, userId: string): CaseDetail {
     actions: caseActionsFor(row, memberRole(db, userId, row.workspaceId), userId),
     comments: commentsOf(db, row.seriesId),
     inputChanges: inputChanges(db, row),
+    currentInputsBlocked: rederivationBlocked(db, row),
     caution: cautionFor(row.inputs.mission.crewed),
     inputs: row.inputs,
     results: row.results,

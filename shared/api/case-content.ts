@@ -135,6 +135,16 @@ export const caseInputs = z.object({
   decision: caseDecision.optional().describe('hot and cold cases: what the derivation decided; the rationale lines are built from it, the conditions and the results'),
   facts: z.array(z.string()).optional().describe('custom cases and cases from an ephemeris: how the case was set up, the rationale lines before the margins'),
   handEdited: z.array(z.string()).optional().describe('condition keys changed by hand since the case was made'),
+  fixed: z
+    .object({
+      betaDeg: num.optional(),
+      solarDistanceAu: num.optional(),
+      albedo: num.optional(),
+      olrWm2: num.optional(),
+      normals: z.record(z.string(), surfaceNormal).optional().describe('surface name -> normal, over the mission\'s own'),
+    })
+    .optional()
+    .describe('custom cases: the values their author fixed over what the date and the mission give; a new revision derived from the current inputs keeps them'),
   revisionReason: z.string().optional().describe('why this revision was made, as its author gave it'),
   /** Set when the case was computed along a window of an uploaded ephemeris rather than a Keplerian orbit. */
   ephemeris: z

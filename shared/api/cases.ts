@@ -189,6 +189,8 @@ export const caseDetail = caseSummary.extend({
   comments: z.array(caseComment),
   /** What changed in the mission (surfaces, materials, orbit, body constants, dates) since this revision was made; empty when current. */
   inputChanges: z.array(z.string()),
+  /** Why a new revision cannot be computed again from the current inputs (its ephemeris or orbit was deleted); null when it can. */
+  currentInputsBlocked: z.string().nullable(),
   caution: z.string(),
   inputs: caseInputs,
   results: caseResultsContent,

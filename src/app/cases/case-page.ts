@@ -98,7 +98,7 @@ export class CasePage {
   /** The new-revision form: open, its reason, and whether to derive from the current inputs. */
   protected readonly revising = signal(false);
   protected readonly revisionReason = signal('');
-  protected readonly fromCurrent = linkedSignal(() => (this.current()?.inputChanges.length ?? 0) > 0 && this.current()?.kind !== 'custom');
+  protected readonly fromCurrent = linkedSignal(() => (this.current()?.inputChanges.length ?? 0) > 0 && !this.current()?.currentInputsBlocked);
 
   protected startRevision(c: CaseDetail): void {
     const reason = this.revisionReason().trim();
@@ -108,7 +108,7 @@ export class CasePage {
     }
     this.busy.set(true);
     this.failure.set(null);
-    this.api.newRevision(c.id, reason, this.fromCurrent()).subscribe({
+    this.api.newRevision(c.id, reason, this.fromCurrent() && !c.currentInputsBlocked).subscribe({
       next: (draft) => {
         this.busy.set(false);
         this.revising.set(false);
