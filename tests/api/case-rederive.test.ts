@@ -5,6 +5,8 @@
 // Common practice of configuration control, no source: the check is that the new revision equals a
 // case made afresh from the same request today, and keeps what its author fixed.
 import path from 'node:path';
+import Ajv2020 from 'ajv/dist/2020';
+import addFormats from 'ajv-formats';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CaseDetail } from '../../shared/api/cases';
@@ -32,6 +34,15 @@ function firstSurface(missionId: string): { id: string; name: string; areaM2: nu
   return t.ctx.sqlite.prepare('SELECT id, name, area_m2 AS areaM2 FROM surfaces WHERE mission_id = ? ORDER BY created_at, name').get(missionId) as {
     id: string; name: string; areaM2: number;
   };
+}
+
+/** The case's JSON export follows the served JSON Schema (ajv, draft 2020-12). */
+async function expectSchemaValid(c: CaseDetail): Promise<void> {
+  const ajv = new Ajv2020({ allErrors: true, strict: false });
+  addFormats(ajv);
+  const validate = ajv.compile((await thermal.get('/api/v1/schemas/load-case.json').expect(200)).body);
+  const doc = JSON.parse((await thermal.get(`/api/v1/cases/${c.id}/export?format=json`).expect(200)).text);
+  expect({ valid: validate(doc), errors: validate.errors ?? null }).toEqual({ valid: true, errors: null });
 }
 
 const areaOf = (c: CaseDetail, name: string) => c.results.surfaces.find((s) => s.name === name)!.areaM2;
@@ -70,6 +81,7 @@ describe('a custom case, computed again from the current inputs', () => {
     const fresh = (await thermal.post(`/api/v1/missions/${missionId}/cases`).send({ ...request, orbitId, name: 'Custom fresh' }).expect(201)).body as CaseDetail;
     expect(rev2.results.total).toEqual(fresh.results.total);
     expect(rev2.results.total.orbitAverageAbsorbedW).not.toBe(rev1.results.total.orbitAverageAbsorbedW);
+    await expectSchemaValid(rev2);
   });
 
   it('takes the beta of the date from the orbit as it is now when its author did not fix one', async () => {
@@ -121,6 +133,7 @@ describe('a case from an ephemeris window, computed again from the current input
     // the doubled panel's solar share doubles: A alpha S per step
     const [was, now] = [rev1, rev2].map((c) => c.results.surfaces.find((s) => s.name === surface.name)!.orbitAverage.solarW);
     expect(now).toBeCloseTo(2 * was!, 2);
+    await expectSchemaValid(rev2);
   });
 
   it('says when the ephemeris was deleted, and refuses to compute it again with a 409 naming it; the stored loads can still be revised', async () => {
