@@ -128,7 +128,8 @@ const INTERNALS = [
   { what: 'a file name', pattern: /\b[\w-]+\.(md|ts|mjs|js|json)\b/ },
   { what: 'NaN', pattern: /\bNaN\b/ },
   { what: 'our notes', pattern: /from memory|DOMAIN/ },
-  { what: 'a code name', pattern: /\b[a-zA-Z]+_[a-zA-Z]+\b/ },
+  // snake_case ("thermal_model", "c_p", "T_node"); not a token's shown prefix ("ecl_Fyv…")
+  { what: 'a code name', pattern: /\b(?!ecl_)(?:[a-z]+|[A-Z])_[a-z]+\b/ },
 ];
 
 async function internalsOn(page: Page): Promise<string[]> {
