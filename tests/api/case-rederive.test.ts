@@ -149,3 +149,21 @@ describe('a case from an ephemeris window, computed again from the current input
     expect(kept.results.total).toEqual(rev1.results.total);
   });
 });
+
+describe('a derived case whose orbit was deleted since', () => {
+  it('says so, and refuses to derive it again with a 409 naming the orbit', async () => {
+    const missionId = missionIdOf(t, kestrelLunar);
+    const orbit = await analyst
+      .post(`/api/v1/missions/${missionId}/orbits`)
+      .send({ name: 'Short-lived survey orbit', epoch: '2028-03-20T12:00:00Z', periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 90, raanDeg: 0, argPeriapsisDeg: 0 });
+    expect(orbit.status, JSON.stringify(orbit.body)).toBe(201);
+    const [hot] = (await thermal.post(`/api/v1/missions/${missionId}/cases/derive`).send({ orbitId: orbit.body.id, name: 'Survey', steps: 36 }).expect(201)).body.items as CaseDetail[];
+    const rev1 = await released(hot!);
+    await analyst.delete(`/api/v1/missions/${missionId}/orbits/${orbit.body.id}`).expect(204);
+    const now = (await thermal.get(`/api/v1/cases/${rev1.id}`).expect(200)).body as CaseDetail;
+    expect(now.inputChanges).toContain('orbit "Short-lived survey orbit" was deleted');
+    expect(now.currentInputsBlocked).toContain('The orbit "Short-lived survey orbit" this case was computed on was deleted');
+    const refused = await thermal.post(`/api/v1/cases/${rev1.id}/revisions`).send({ reason: 'again', fromCurrentInputs: true }).expect(409);
+    expect(refused.body.error).toMatchObject({ code: 'case_source_deleted', message: expect.stringContaining('"Short-lived survey orbit"') });
+  });
+});
