@@ -38,8 +38,14 @@ export function toSummary(db: Db, row: LoadCaseRow): CaseSummary {
     author: personOf(db, row.authorId), releasedBy: personOf(db, row.releasedBy), releasedAt: row.releasedAt,
     orbitAverageAbsorbedW: row.results.total.orbitAverageAbsorbedW, betaDeg: row.results.betaDeg,
     version: row.version, createdAt: row.createdAt, updatedAt: row.updatedAt,
-    inputsChanged: row.status !== 'superseded' && inputChanges(db, row).length > 0,
+    ...currency(db, row),
   };
+}
+
+/** What changed since a revision was made, as a list says it: not said of superseded revisions. */
+function currency(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'inputs' | 'status'>): Pick<CaseSummary, 'inputsChanged' | 'inputChanges'> {
+  const changes = row.status === 'superseded' ? [] : inputChanges(db, row);
+  return { inputsChanged: changes.length > 0, inputChanges: changes };
 }
 
 export function isSubscribed(db: Db, seriesId: string, userId: string): boolean {
@@ -84,14 +90,16 @@ export function commentsOf(db: Db, seriesId: string): CaseComment[] {
 }
 
 export function toDetail(db: Db, row: LoadCaseRow, userId: string): CaseDetail {
+  const summary = toSummary(db, row);
   return {
-    ...toSummary(db, row),
+    ...summary,
     submittedBy: personOf(db, row.submittedBy),
     submittedAt: row.submittedAt,
     subscribed: isSubscribed(db, row.seriesId, userId),
     actions: caseActionsFor(row, memberRole(db, userId, row.workspaceId), userId),
     comments: commentsOf(db, row.seriesId),
-    inputChanges: inputChanges(db, row),
+    // the page says what changed of a superseded revision too
+    inputChanges: row.status === 'superseded' ? inputChanges(db, row) : summary.inputChanges,
     currentInputsBlocked: rederivationBlocked(db, row),
     caution: cautionFor(row.inputs.mission.crewed),
     inputs: row.inputs,
@@ -165,7 +173,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
       name: r.c.name, kind: r.c.kind, status: r.c.status, revision: r.c.revision, checksum: r.c.checksum,
       author: person(r.c.authorId), releasedBy: person(r.c.releasedBy), releasedAt: r.c.releasedAt,
       orbitAverageAbsorbedW: Number(r.orbitAverageAbsorbedW), betaDeg: Number(r.betaDeg),
-      inputsChanged: r.c.status !== 'superseded' && inputChanges(ctx.db, r.c).length > 0,
+      ...currency(ctx.db, r.c),
       version: r.c.version, createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
     }));
 }

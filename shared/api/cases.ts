@@ -169,6 +169,9 @@ export const caseSummary = z.object({
   inputsChanged: z
     .boolean()
     .describe("true when the mission's inputs (surfaces, materials, orbit, body constants, dates, the ephemeris) changed since this revision was made; false for superseded revisions"),
+  inputChanges: z
+    .array(z.string())
+    .describe('what changed in the mission since this revision was made, in words with old and new values (surfaces, materials, orbit, body constants, dates, a deleted ephemeris); empty when current (in lists, also for superseded revisions)'),
 });
 
 export const caseActionNames = ['edit', 'submit', 'release', 'return', 'comment', 'newRevision'] as const;
@@ -197,9 +200,6 @@ export const caseDetail = caseSummary.extend({
     .array(z.enum(caseActionNames))
     .describe('what the caller may do with this revision now (role, status, four eyes: the author neither releases nor returns it); the server refuses the others'),
   comments: z.array(caseComment).describe('the review conversation of every revision of the case, oldest first'),
-  inputChanges: z
-    .array(z.string())
-    .describe('what changed in the mission since this revision was made, in words with old and new values (surfaces, materials, orbit, body constants, dates, a deleted ephemeris); empty when current'),
   currentInputsBlocked: z
     .string()
     .nullable()

@@ -67,8 +67,9 @@ describe('a custom case, computed again from the current inputs', () => {
     const stale = (await thermal.get(`/api/v1/cases/${rev1.id}`).expect(200)).body as CaseDetail;
     expect(stale.inputChanges).toEqual([`surface "${surface.name}" area: ${surface.areaM2} m^2 -> ${surface.areaM2 + 0.4} m^2`]);
     expect(stale.currentInputsBlocked).toBeNull();
-    const list = (await thermal.get(`/api/v1/cases?missionId=${missionId}&kind=custom`).expect(200)).body.items as { id: string; inputsChanged: boolean }[];
-    expect(list.find((c) => c.id === rev1.id)!.inputsChanged).toBe(true);
+    // the list says it too, in the same words
+    const list = (await thermal.get(`/api/v1/cases?missionId=${missionId}&kind=custom`).expect(200)).body.items as { id: string; inputsChanged: boolean; inputChanges: string[] }[];
+    expect(list.find((c) => c.id === rev1.id)).toMatchObject({ inputsChanged: true, inputChanges: stale.inputChanges });
 
     const rev2 = (await thermal.post(`/api/v1/cases/${rev1.id}/revisions`).send({ reason: 'radiator grew', fromCurrentInputs: true }).expect(201)).body as CaseDetail;
     expect(rev2).toMatchObject({ kind: 'custom', revision: 2, status: 'draft', name: rev1.name, inputChanges: [] });
