@@ -101,6 +101,20 @@ describe('a custom case, computed again from the current inputs', () => {
   });
 });
 
+describe('a custom case made before its fixed values were kept apart', () => {
+  it('keeps the beta and the albedo/OLR its setup lines and source say were given', async () => {
+    const missionId = missionIdOf(t, kestrelLunar);
+    const orbitId = (t.ctx.sqlite.prepare('SELECT id FROM orbits WHERE mission_id = ?').get(missionId) as { id: string }).id;
+    const made = (await thermal.post(`/api/v1/missions/${missionId}/cases`).send({ name: 'Older custom', orbitId, date: '2028-06-01', betaDeg: -12.5, albedo: 0.2, olrWm2: 10, steps: 36 }).expect(201)).body as CaseDetail;
+    const rev1 = await released(made);
+    // as a case stored before `inputs.fixed` existed
+    t.ctx.sqlite.prepare("UPDATE load_cases SET inputs = json_remove(inputs, '$.fixed') WHERE id = ?").run(rev1.id);
+    const rev2 = (await thermal.post(`/api/v1/cases/${rev1.id}/revisions`).send({ reason: 'older case again', fromCurrentInputs: true }).expect(201)).body as CaseDetail;
+    expect([rev2.inputs.conditions.betaDeg, rev2.inputs.conditions.albedo, rev2.inputs.conditions.olrWm2]).toEqual([-12.5, 0.2, 10]);
+    expect(rev2.inputs.fixed).toEqual({ betaDeg: -12.5, albedo: 0.2, olrWm2: 10 });
+  });
+});
+
 describe('a case from an ephemeris window, computed again from the current inputs', () => {
   let missionId: string;
   let ephemerisId: string;
