@@ -49,23 +49,66 @@ export function redact(value: unknown, depth = 0): unknown {
 export interface LoggerOptions {
   level: LogLevel;
   file?: string | null;
-  /** Where lines go; stdout unless a test collects them. */
+  /** Where lines go, each as it is logged (a test collecting them); stdout in batches otherwise. */
   write?: (line: string) => void;
+}
+
+/**
+ * Lines for stdout and the log file, gathered and written together once the current work is done
+ * (setImmediate), at once for an error or past 64 kB, and before the process exits: a write to a
+ * pipe is synchronous in Node on Linux, which one line a request paid for on every request.
+ */
+function batchedWriter(file: string | null | undefined): { add: (line: string, now: boolean) => void } {
+  let lines: string[] = [];
+  let size = 0;
+  let scheduled = false;
+  const flush = () => {
+    scheduled = false;
+    if (lines.length === 0) return;
+    const text = lines.join('\n') + '\n';
+    lines = [];
+    size = 0;
+    process.stdout.write(text);
+    if (file) {
+      try {
+        appendFileSync(file, text);
+      } catch {
+        // A full disk or a removed folder must not take the server down with it.
+      }
+    }
+  };
+  process.on('exit', flush);
+  return {
+    add(line, now) {
+      lines.push(line);
+      size += line.length;
+      if (now || size > 65_536) flush();
+      else if (!scheduled) {
+        scheduled = true;
+        setImmediate(flush);
+      }
+    },
+  };
 }
 
 export function createLogger(options: LoggerOptions): Logger {
   const min = rank[options.level];
-  const write = options.write ?? ((line: string) => process.stdout.write(line + '\n'));
+  const given = options.write;
+  const batch = given ? null : batchedWriter(options.file);
   const log = (level: LogLevel, msg: string, fields?: LogFields): void => {
     if (rank[level] < min) return;
     const entry = { at: new Date().toISOString(), level, msg: redactText(msg), ...(fields ? (redact(fields) as LogFields) : {}) };
     const line = JSON.stringify(entry);
-    write(line);
+    if (batch) {
+      batch.add(line, rank[level] >= rank.error);
+      return;
+    }
+    given?.(line);
     if (options.file) {
       try {
         appendFileSync(options.file, line + '\n');
       } catch {
-        // A full disk or a removed folder must not take the server down with it.
+        // as above
       }
     }
   };

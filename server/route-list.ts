@@ -1,5 +1,8 @@
-// Lists the routes an Express app answers, by walking its router stack. Used by the tests that
-// check every protected route refuses anonymous callers, and available to an OpenAPI generator.
+// Lists the routes an Express app answers: the declared routes its dispatcher serves (remembered
+// when the app is built) and any route registered on Express itself (the built client's fallback),
+// by walking its router stack. Used by the tests that check every protected route refuses anonymous
+// callers, that every answered route is documented, and the authorization matrix.
+import type { ApiRoute } from './http/api-route';
 
 export interface RouteInfo {
   method: string;
@@ -30,9 +33,16 @@ function walk(stack: LayerLike[], prefix: string, out: RouteInfo[]): void {
   }
 }
 
+const routeTables = new WeakMap<object, readonly ApiRoute[]>();
+
+/** Remembers the route table an app's dispatcher serves, for listRoutes. */
+export function rememberRouteTable(app: object, routes: readonly ApiRoute[]): void {
+  routeTables.set(app, routes);
+}
+
 export function listRoutes(app: { router: unknown }): RouteInfo[] {
+  const out: RouteInfo[] = (routeTables.get(app) ?? []).map((r) => ({ method: r.method.toUpperCase(), path: r.path }));
   const router = app.router as { stack?: unknown } | undefined;
-  const out: RouteInfo[] = [];
   if (router && isLayerList(router.stack)) walk(router.stack, '', out);
   return out;
 }

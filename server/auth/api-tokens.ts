@@ -1,9 +1,12 @@
 // Personal API tokens: "ecl_" + 32 random bytes (base64url), stored as SHA-256 hex only.
-import { eq, sql } from 'drizzle-orm';
-import type { ApiToken } from '../../shared/api/auth';
+import { and, desc, eq, isNull, sql } from 'drizzle-orm';
+import type { ApiToken, TokenCreated } from '../../shared/api/auth';
+import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
 import { apiTokens, users, type ApiTokenRow, type UserRow } from '../db/schema';
+import { forbidden, notFound } from '../errors';
+import type { RequestAuth } from './request-auth';
 import { newSecret, sha256Hex } from './secret-tokens';
 
 export const tokenPrefix = 'ecl_';
@@ -20,10 +23,12 @@ export function toApiToken(row: ApiTokenRow): ApiToken {
   };
 }
 
+type NewTokenInput = { name: string; readOnly: boolean; expiresInDays?: number | undefined };
+
 export function createApiToken(
   db: Pick<Db, 'insert'>,
   userId: string,
-  input: { name: string; readOnly: boolean; expiresInDays?: number | undefined },
+  input: NewTokenInput,
 ): { row: ApiTokenRow; secret: string } {
   const { secret, hash } = newSecret(tokenPrefix);
   const expiresAt =
@@ -80,4 +85,57 @@ const recordTokenUse = preparedPer((db: Db) =>
 export function touchApiToken(db: Db, row: ApiTokenRow, now = new Date()): void {
   if (row.lastUsedAt && now.getTime() - Date.parse(row.lastUsedAt) < tokenUseResolutionMs) return;
   recordTokenUse(db).run({ at: now.toISOString(), id: row.id });
+}
+
+/** The user's tokens that are not revoked, newest first. */
+export function listApiTokens(db: Db, userId: string): ApiToken[] {
+  return db
+    .select()
+    .from(apiTokens)
+    .where(and(eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)))
+    .orderBy(desc(apiTokens.createdAt))
+    .all()
+    .map(toApiToken);
+}
+
+/** A new token with its audit event; only a signed-in session may make one (checked before the input is read). */
+export function issueApiToken(db: Db, auth: RequestAuth, readInput: () => NewTokenInput): TokenCreated {
+  // A leaked token must not be able to mint more tokens that outlive its revocation.
+  if (auth.kind !== 'session') throw forbidden('Create API tokens while signed in, not with another token.');
+  const input = readInput();
+  const user = auth.user;
+  const created = db.transaction((tx) => {
+    const made = createApiToken(tx, user.id, input);
+    recordAudit(tx, {
+      workspaceId: null,
+      actorUserId: user.id,
+      action: 'token.created',
+      targetType: 'api_token',
+      targetId: made.row.id,
+      summary: `API token "${made.row.name}" created${made.row.readOnly ? ' (read-only)' : ''}.`,
+    });
+    return made;
+  });
+  return { token: toApiToken(created.row), secret: created.secret };
+}
+
+/** Revokes one of the user's own tokens with its audit event (404 for anyone else's). */
+export function revokeApiToken(db: Db, userId: string, id: string): void {
+  db.transaction((tx) => {
+    const row = tx
+      .select()
+      .from(apiTokens)
+      .where(and(eq(apiTokens.id, id), eq(apiTokens.userId, userId), isNull(apiTokens.revokedAt)))
+      .get();
+    if (!row) throw notFound(`No API token with id ${JSON.stringify(id.slice(0, 80))}.`);
+    tx.update(apiTokens).set({ revokedAt: new Date().toISOString() }).where(eq(apiTokens.id, id)).run();
+    recordAudit(tx, {
+      workspaceId: null,
+      actorUserId: userId,
+      action: 'token.revoked',
+      targetType: 'api_token',
+      targetId: id,
+      summary: `API token "${row.name}" revoked.`,
+    });
+  });
 }

@@ -1,6 +1,7 @@
 // The answer of auth/me, sign-in and invitation acceptance: the user, their workspaces, how they came in.
 import { asc, eq, sql } from 'drizzle-orm';
 import type { MeResponse, MembershipSummary } from '../../shared/api/auth';
+import type { Workspace } from '../../shared/api/workspaces';
 import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
 import { memberships, workspaces, type UserRow } from '../db/schema';
@@ -17,6 +18,11 @@ const workspacesOfUser = preparedPer((db: Db) =>
 
 export function userWorkspaces(db: Db, userId: string): MembershipSummary[] {
   return workspacesOfUser(db).all({ userId });
+}
+
+/** The user's workspaces as GET /workspaces lists them. */
+export function workspacesOf(db: Db, userId: string): Workspace[] {
+  return userWorkspaces(db, userId).map((m) => ({ id: m.workspaceId, name: m.workspaceName, role: m.role }));
 }
 
 export function meResponse(db: Db, user: UserRow, auth: MeResponse['auth']): MeResponse {

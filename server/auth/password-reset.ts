@@ -14,6 +14,15 @@ const resetValidMs = 60 * 60 * 1000;
 export const resetRequestedMessage =
   'If an account with this e-mail address exists, a message with a link to choose a new password is on its way.';
 
+/** What the confirmation answers, naming the API tokens the reset revoked. */
+export function resetConfirmedMessage(tokensRevoked: number): string {
+  const tokens =
+    tokensRevoked === 0
+      ? ''
+      : ` Your ${tokensRevoked} personal API token${tokensRevoked === 1 ? ' was' : 's were'} revoked; make new ones after signing in.`;
+  return `Your password was changed and every session of your account was ended.${tokens} Sign in with the new password.`;
+}
+
 /**
  * Creates a reset for a known address and mails it; does nothing for an unknown one. Run it as
  * background work (ctx.background), never inside the request: the request's answer and its time

@@ -5,6 +5,7 @@
 import type { Request } from 'express';
 import { and, count, eq, gt, lt, min } from 'drizzle-orm';
 import type { Db } from '../db/database';
+import { preparedPer } from '../db/prepared';
 import { rateLimitHits } from '../db/schema';
 import { ApiError } from '../errors';
 
@@ -87,6 +88,9 @@ export class RateLimiter {
  * and accepting an invitation with an existing account both go through it. A right password
  * forgets that account's failures from that client, not the client's failures on other accounts.
  */
+/** One limiter per database handle, shared by the routes that count attempts. */
+export const rateLimiterOf = preparedPer((db: Db) => new RateLimiter(db));
+
 export function passwordCheckLimits(limiter: RateLimiter, email: string, client: string) {
   const accountClient = `${email.toLowerCase()} ${client}`;
   const keys: LimitKey[] = [

@@ -6,7 +6,7 @@ import type { Role } from '../../shared/api/workspaces';
 import type { AppContext } from '../app-context';
 import { memberRole, roleRefused } from '../auth/middleware';
 import { loadCases, missions, type LoadCaseRow, type MissionRow } from '../db/schema';
-import { notFound } from '../errors';
+import { badRequest, notFound } from '../errors';
 
 export const caseEditors: readonly Role[] = ['thermal', 'owner'];
 
@@ -35,4 +35,13 @@ export function missionForCases(ctx: AppContext, userId: string, missionId: stri
   if (!mission || !role) throw notFound(`No mission with id ${quoted(missionId)}.`);
   if (!caseEditors.includes(role)) throw roleRefused(role, caseEditors);
   return { mission, role };
+}
+
+/** The case to compare `row` with: one the caller may see, of the same mission (400 otherwise). */
+export function caseToCompareWith(ctx: AppContext, userId: string, row: LoadCaseRow, otherId: string): LoadCaseRow {
+  const other = caseFor(ctx, userId, otherId).row;
+  if (other.missionId !== row.missionId) {
+    throw badRequest('Compare revisions of cases of the same mission.', [{ path: 'with', message: `case ${otherId} belongs to another mission` }]);
+  }
+  return other;
 }

@@ -2,14 +2,17 @@
 // surfaces with their materials, the orbit, the body's constants and the mission's dates) against
 // the mission as it is now, as a list of changes in words. A case from an ephemeris compares its
 // surfaces and body only (its orbit is the trajectory's), and whether its ephemeris is still there.
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { CaseInputs } from '../../shared/api/case-content';
 import type { Db } from '../db/database';
-import { ephemerides, missions, orbits, type LoadCaseRow } from '../db/schema';
+import { preparedPer } from '../db/prepared';
+import { ephemerides, loadCases, missions, orbits, type MissionRow, type OrbitRow } from '../db/schema';
 import { canonicalJson } from './canonical-json';
 import { missionInputs, surfaceSnapshot } from './case-derivation';
 
-const same = (a: unknown, b: unknown) => canonicalJson(a) === canonicalJson(b);
+const isObject = (v: unknown): v is object => v !== null && typeof v === 'object';
+/** Equal as stored: numbers and texts directly, ranges and vectors by their canonical JSON. */
+const same = (a: unknown, b: unknown) => a === b || (isObject(a) && isObject(b) && canonicalJson(a) === canonicalJson(b));
 
 function changed(label: string, was: unknown, now: unknown, unit = ''): string | null {
   if (same(was, now)) return null;
@@ -17,32 +20,99 @@ function changed(label: string, was: unknown, now: unknown, unit = ''): string |
   return `${label}: ${show(was)} -> ${show(now)}`;
 }
 
+/** A mission as it is now: what a case's inputs are compared with. */
+interface MissionNow {
+  mission: MissionRow;
+  inputs: ReturnType<typeof missionInputs>;
+  orbits: Map<string, OrbitRow>;
+  surfaces: ReturnType<typeof surfaceSnapshot>;
+  ephemerisIds: Set<string>;
+}
+
+const missionById = preparedPer((db: Db) => db.select().from(missions).where(eq(missions.id, sql.placeholder('id'))).prepare());
+const orbitsOfMission = preparedPer((db: Db) => db.select().from(orbits).where(eq(orbits.missionId, sql.placeholder('missionId'))).prepare());
+const ephemerisIdsOfMission = preparedPer((db: Db) => db.select({ id: ephemerides.id }).from(ephemerides).where(eq(ephemerides.missionId, sql.placeholder('missionId'))).prepare());
+
+/**
+ * Reads each mission once however many of its cases are compared (a case list compares every case
+ * it lists); make one per request, so every request sees the database as it is.
+ */
+export function missionsNow(db: Db): (missionId: string) => MissionNow | null {
+  const read = new Map<string, MissionNow | null>();
+  return (missionId) => {
+    let found = read.get(missionId);
+    if (found === undefined) {
+      const mission = missionById(db).get({ id: missionId });
+      found = mission
+        ? {
+            mission, inputs: missionInputs(mission), orbits: new Map(orbitsOfMission(db).all({ missionId }).map((o) => [o.id, o])), surfaces: currentSurfaces(db, mission),
+            ephemerisIds: new Set(ephemerisIdsOfMission(db).all({ missionId }).map((e) => e.id)),
+          }
+        : null;
+      read.set(missionId, found);
+    }
+    return found;
+  };
+}
+
+function currentSurfaces(db: Db, mission: MissionRow): ReturnType<typeof surfaceSnapshot> {
+  try {
+    return surfaceSnapshot(db, mission);
+  } catch {
+    // The mission has no surfaces left (422 when deriving); every surface of the case was removed.
+    return [];
+  }
+}
+
+/** The parts of a case's inputs the comparison reads (the case list reads only these). */
+export type CurrencyInputs = Pick<CaseInputs, 'mission' | 'body' | 'orbit'> & {
+  conditions: Pick<CaseInputs['conditions'], 'surfaces'>;
+  /** null when cut out of a case that has none */
+  ephemeris?: CaseInputs['ephemeris'] | null;
+  handEdited?: CaseInputs['handEdited'] | null;
+  fixed?: CaseInputs['fixed'] | null;
+};
+
+const inputsOfCase = preparedPer((db: Db) => db.select({ inputs: loadCases.inputs, version: loadCases.version }).from(loadCases).where(eq(loadCases.id, sql.placeholder('id'))).prepare());
+const keptInputs = preparedPer((_db: Db) => new Map<string, { version: number; inputs: CaseInputs }>());
+const MAX_KEPT_INPUTS = 10_000;
+
+/**
+ * A case's inputs, read and parsed once per case and version (about 12 kB of JSON a case, which
+ * parsing on every case list cost more than the rest of the request). Every write to a case adds one
+ * to its version, in this process or another, so a kept copy is never used for a changed case.
+ */
+export function caseInputsOf(db: Db, caseId: string, version: number): CaseInputs {
+  const kept = keptInputs(db);
+  const found = kept.get(caseId);
+  if (found && found.version === version) return found.inputs;
+  const row = inputsOfCase(db).get({ id: caseId });
+  if (!row) throw new Error(`case ${caseId} vanished while it was listed`);
+  if (kept.size >= MAX_KEPT_INPUTS) kept.clear();
+  // Kept under the version read with them (a write may have come between the list and this read).
+  kept.set(caseId, { version: row.version, inputs: row.inputs });
+  return row.inputs;
+}
+
 /** What changed in the mission since the case was made; empty when it is current (or the mission is gone). */
-export function inputChanges(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'inputs'>): string[] {
-  const mission = db.select().from(missions).where(eq(missions.id, row.missionId)).get();
-  if (!mission) return [];
-  const i: CaseInputs = row.inputs;
+export function inputChanges(db: Db, row: { missionId: string; inputs: CurrencyInputs }, missionNow = missionsNow(db)): string[] {
+  const found = missionNow(row.missionId);
+  if (!found) return [];
+  const { inputs: now, surfaces: current } = found;
+  const i = row.inputs;
   const out: (string | null)[] = [];
-  const now = missionInputs(mission);
   out.push(changed('mission start', i.mission.startDate, now.mission.startDate), changed('mission end', i.mission.endDate, now.mission.endDate));
   for (const k of ['gmKm3S2', 'radiusKm', 'j2'] as const) out.push(changed(`${i.body.name} ${k === 'gmKm3S2' ? 'GM' : k === 'radiusKm' ? 'radius' : 'J2'}`, i.body[k], now.body[k]));
   out.push(changed(`${i.body.name} albedo range`, i.body.albedo, now.body.albedo), changed(`${i.body.name} OLR range`, i.body.olrWm2, now.body.olrWm2));
   if (!i.ephemeris && i.orbit.id) {
-    const orbit = db.select().from(orbits).where(and(eq(orbits.id, i.orbit.id), eq(orbits.missionId, mission.id))).get();
+    const orbit = found.orbits.get(i.orbit.id);
     if (!orbit) out.push(`orbit "${i.orbit.name}" was deleted`);
     else {
       const fields = [['semiMajorAxisKm', 'semi-major axis', ' km'], ['eccentricity', 'eccentricity', ''], ['inclinationDeg', 'inclination', ' deg'], ['raanDeg', 'RAAN', ' deg'], ['argPeriapsisDeg', 'argument of periapsis', ' deg'], ['epoch', 'epoch', '']] as const;
       for (const [key, label, unit] of fields) out.push(changed(`orbit "${i.orbit.name}" ${label}`, i.orbit[key], orbit[key], unit));
     }
   }
-  if (i.ephemeris && !ephemerisKept(db, row.missionId, i.ephemeris.id)) out.push(`ephemeris "${i.ephemeris.name}" was deleted`);
-  let current: ReturnType<typeof surfaceSnapshot>;
-  try {
-    current = surfaceSnapshot(db, mission);
-  } catch {
-    // The mission has no surfaces left (422 when deriving); every surface of the case was removed.
-    current = [];
-  }
+  if (i.ephemeris && !found.ephemerisIds.has(i.ephemeris.id)) out.push(`ephemeris "${i.ephemeris.name}" was deleted`);
   const was = i.conditions.surfaces;
   for (const s of was) {
     const c = current.find((x) => x.name === s.name);
@@ -63,18 +133,16 @@ export function inputChanges(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'input
   return [...new Set(out.filter((x): x is string => x !== null))];
 }
 
-const ephemerisKept = (db: Db, missionId: string, id: string): boolean =>
-  !!db.select({ id: ephemerides.id }).from(ephemerides).where(and(eq(ephemerides.id, id), eq(ephemerides.missionId, missionId))).get();
-
 /**
  * Why a new revision cannot be computed again from the mission's current inputs: the ephemeris or
  * the orbit it was computed on was deleted (the route's 409 and the case page say it); null when it can.
  */
-export function rederivationBlocked(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'inputs'>): string | null {
+export function rederivationBlocked(db: Db, row: { missionId: string; inputs: CurrencyInputs }): string | null {
   const i = row.inputs;
   const keep = 'a new revision can keep its stored inputs and loads only';
   if (i.ephemeris) {
-    if (ephemerisKept(db, row.missionId, i.ephemeris.id)) return null;
+    const kept = db.select({ id: ephemerides.id }).from(ephemerides).where(and(eq(ephemerides.id, i.ephemeris.id), eq(ephemerides.missionId, row.missionId))).get();
+    if (kept) return null;
     return `The ephemeris "${i.ephemeris.name}" this case was computed along was deleted from the mission: ${keep}, or upload the file again and make a new case from it.`;
   }
   const orbit = i.orbit.id ? db.select({ id: orbits.id }).from(orbits).where(and(eq(orbits.id, i.orbit.id), eq(orbits.missionId, row.missionId))).get() : undefined;

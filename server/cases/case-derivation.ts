@@ -1,7 +1,7 @@
 // Turns a mission's stored orbit, surfaces and materials into the snapshot a case keeps, derives
 // the hot and cold cases (physics/design-cases.ts) or computes a custom one, and saves them as drafts.
 import { randomUUID } from 'node:crypto';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { CaseCreateParsed, CaseDeriveParsed } from '../../shared/api/cases';
 import { whyRecordOf, type CaseInputs, type StoredConditions } from '../../shared/api/case-content';
 import { caseRationale } from '../../shared/physics/case-why';
@@ -14,7 +14,8 @@ import { defineOrbit } from '../../shared/physics/orbit-definition';
 import { pairsFromTable } from '../../shared/physics/environment-table';
 import { DEG } from '../../shared/physics/vector3';
 import type { AppContext } from '../app-context';
-import type { Db } from '../db/database';
+import type { Db, DbOrTx } from '../db/database';
+import { preparedPer } from '../db/prepared';
 import { recordAudit } from '../audit/audit-log';
 import { environmentTableRowsOf } from '../environment/environment-table-store';
 import { loadCases, materials, orbits, surfaces, type LoadCaseRow, type MissionRow, type OrbitRow, type UserRow } from '../db/schema';
@@ -45,7 +46,7 @@ export function limitCaseWork(steps: number, surfaceCount: number): void {
 }
 
 /** The orbit and the surfaces a case is computed from, once steps × surfaces is within the limit. */
-function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string, steps: number): MissionSnapshot {
+function snapshotOf(db: DbOrTx, mission: MissionRow, orbitId: string, steps: number): MissionSnapshot {
   const orbit = db.select().from(orbits).where(and(eq(orbits.id, orbitId), eq(orbits.missionId, mission.id))).get();
   if (!orbit) throw notFound(`The mission "${mission.name}" has no orbit with id ${JSON.stringify(orbitId.slice(0, 80))}.`);
   const surfaces = surfaceSnapshot(db, mission);
@@ -54,14 +55,18 @@ function snapshotOf(db: Pick<Db, 'select'>, mission: MissionRow, orbitId: string
 }
 
 /** The mission's surfaces with their materials, as a case keeps them; 422 when there are none. */
-export function surfaceSnapshot(db: Pick<Db, 'select'>, mission: MissionRow): CaseSurface[] {
-  const rows = db
+const surfacesWithMaterials = preparedPer((db: DbOrTx) =>
+  db
     .select({ surface: surfaces, material: materials })
     .from(surfaces)
     .innerJoin(materials, eq(materials.id, surfaces.materialId))
-    .where(eq(surfaces.missionId, mission.id))
+    .where(eq(surfaces.missionId, sql.placeholder('missionId')))
     .orderBy(surfaces.createdAt, surfaces.name)
-    .all();
+    .prepare(),
+);
+
+export function surfaceSnapshot(db: DbOrTx, mission: MissionRow): CaseSurface[] {
+  const rows = surfacesWithMaterials(db).all({ missionId: mission.id });
   if (rows.length === 0) {
     throw unprocessable(`The mission "${mission.name}" has no spacecraft surfaces yet; add them before deriving load cases.`, [
       { path: 'missionId', message: 'no surfaces' },
@@ -147,7 +152,7 @@ export function insertDraft(tx: Pick<Db, 'insert'>, mission: MissionRow, user: U
 export type DraftValues = Pick<LoadCaseRow, 'name' | 'kind' | 'inputs' | 'results'>;
 
 /** The hot and cold cases of a mission's orbit, ready to be saved (the seed saves them too). */
-export function derivedCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {
+export function derivedCaseValues(db: DbOrTx, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {
   const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId, input.steps);
   const margins: Margins = resolveMargins(input.margins);
   const pair = (p: { albedo: number; olrWm2: number; source: string } | undefined) => (p ? { ...p, provisional: false } : undefined);
@@ -202,7 +207,7 @@ export function deriveCases(ctx: AppContext, user: UserRow, mission: MissionRow,
 }
 
 /** A user-defined case computed with the mission's orbit, surfaces and materials as they are now. */
-export function customCaseValues(db: Pick<Db, 'select'>, mission: MissionRow, input: CaseCreateParsed): DraftValues {
+export function customCaseValues(db: DbOrTx, mission: MissionRow, input: CaseCreateParsed): DraftValues {
   const { orbit, surfaces: list } = snapshotOf(db, mission, input.orbitId, input.steps);
   const unknown = Object.keys(input.normals ?? {}).filter((n) => !list.some((s) => s.name === n));
   if (unknown.length > 0) {

@@ -259,7 +259,7 @@ function derivedAgain(ctx: AppContext, row: LoadCaseRow): Pick<LoadCaseRow, 'inp
   return { inputs: again.inputs, results: again.results };
 }
 
-export function setSubscription(ctx: AppContext, user: UserRow, row: LoadCaseRow, on: boolean): void {
+export function setSubscription(ctx: AppContext, user: UserRow, row: LoadCaseRow, on: boolean): { subscribed: boolean } {
   ctx.db.transaction((tx) => {
     if (on) {
       tx.insert(caseSubscriptions).values({ caseSeriesId: row.seriesId, userId: user.id }).onConflictDoNothing().run();
@@ -268,6 +268,7 @@ export function setSubscription(ctx: AppContext, user: UserRow, row: LoadCaseRow
     }
     audit(tx, row, user, on ? 'case.subscribed' : 'case.unsubscribed', `${on ? 'Subscribed to' : 'Unsubscribed from'} "${row.name}".`);
   });
+  return { subscribed: on };
 }
 
 /** 403 when the caller wrote the revision: only another engineer reviews it (four eyes). */

@@ -10,7 +10,7 @@ import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
 import { caseComments, caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
 import { caseEditors, visibleToViewer } from './case-access';
-import { inputChanges, rederivationBlocked } from './case-currency';
+import { caseInputsOf, inputChanges, missionsNow, rederivationBlocked, type CurrencyInputs } from './case-currency';
 
 export { cautionFor, cautionText, crewedCaution } from '../../shared/api/caution';
 import { cautionFor } from '../../shared/api/caution';
@@ -43,8 +43,10 @@ export function toSummary(db: Db, row: LoadCaseRow): CaseSummary {
 }
 
 /** What changed since a revision was made, as a list says it: not said of superseded revisions. */
-function currency(db: Db, row: Pick<LoadCaseRow, 'missionId' | 'inputs' | 'status'>): Pick<CaseSummary, 'inputsChanged' | 'inputChanges'> {
-  const changes = row.status === 'superseded' ? [] : inputChanges(db, row);
+function currency(
+  db: Db, row: { missionId: string; status: LoadCaseRow['status']; inputs: CurrencyInputs }, missionNow = missionsNow(db),
+): Pick<CaseSummary, 'inputsChanged' | 'inputChanges'> {
+  const changes = row.status === 'superseded' ? [] : inputChanges(db, row, missionNow);
   return { inputsChanged: changes.length > 0, inputChanges: changes };
 }
 
@@ -128,7 +130,6 @@ function caseListQuery(db: Db, given: FilterShape) {
         name: loadCases.name, kind: loadCases.kind, status: loadCases.status, revision: loadCases.revision, checksum: loadCases.checksum,
         authorId: loadCases.authorId, releasedBy: loadCases.releasedBy, releasedAt: loadCases.releasedAt,
         version: loadCases.version, createdAt: loadCases.createdAt, updatedAt: loadCases.updatedAt,
-        inputs: loadCases.inputs,
       },
       // Read out of the JSON in SQL so a list does not parse every case's time series.
       // Copied out of the results when they are written (resultSummary); read out of the JSON only
@@ -160,6 +161,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
     queries.set(key, query);
   }
   const rows = query.all({ userId, missionId: filter.missionId, status: filter.status, kind: filter.kind });
+  const missionNow = missionsNow(ctx.db);
   const people = new Map<string, Person>();
   const person = (id: string | null): Person => {
     if (!id) return null;
@@ -173,7 +175,7 @@ export function listCases(ctx: AppContext, userId: string, filter: CaseFilter): 
       name: r.c.name, kind: r.c.kind, status: r.c.status, revision: r.c.revision, checksum: r.c.checksum,
       author: person(r.c.authorId), releasedBy: person(r.c.releasedBy), releasedAt: r.c.releasedAt,
       orbitAverageAbsorbedW: Number(r.orbitAverageAbsorbedW), betaDeg: Number(r.betaDeg),
-      ...currency(ctx.db, r.c),
+      ...currency(ctx.db, { missionId: r.c.missionId, status: r.c.status, inputs: caseInputsOf(ctx.db, r.c.id, r.c.version) }, missionNow),
       version: r.c.version, createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
     }));
 }

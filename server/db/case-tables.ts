@@ -6,7 +6,7 @@ import type { CaseInputs, CaseResultsContent } from '../../shared/api/case-conte
 import { caseKinds, caseStatuses } from '../../shared/api/case-content';
 import { createdAt, id, updatedAt } from './columns';
 import { missions } from './mission-tables';
-import { users, workspaces } from './schema';
+import { users, workspaces } from './account-tables';
 
 export const loadCases = sqliteTable(
   'load_cases',

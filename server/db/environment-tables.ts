@@ -3,7 +3,7 @@
 import { index, integer, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import { bodyIds } from '../../shared/physics/bodies';
 import { createdAt, id } from './columns';
-import { workspaces } from './schema';
+import { workspaces } from './account-tables';
 
 export const environmentTableRows = sqliteTable(
   'environment_table_rows',

@@ -4,7 +4,7 @@
 import { blob, index, integer, primaryKey, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import { createdAt, id } from './columns';
 import { missions } from './mission-tables';
-import { users } from './schema';
+import { users } from './account-tables';
 
 export const ephemerides = sqliteTable(
   'ephemerides',

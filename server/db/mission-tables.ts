@@ -4,7 +4,7 @@ import { index, integer, real, sqliteTable, text } from 'drizzle-orm/sqlite-core
 import { bodyIds } from '../../shared/physics/bodies';
 import { orbitDefinitions } from '../../shared/api/missions';
 import { createdAt, id, updatedAt } from './columns';
-import { users, workspaces } from './schema';
+import { users, workspaces } from './account-tables';
 
 export const missions = sqliteTable(
   'missions',

@@ -6,7 +6,7 @@ import type { ThermalModelContent, ThermalRunResponse } from '../../shared/api/t
 import { createdAt, id, updatedAt } from './columns';
 import { loadCases } from './case-tables';
 import { missions } from './mission-tables';
-import { users, workspaces } from './schema';
+import { users, workspaces } from './account-tables';
 
 export const thermalModels = sqliteTable(
   'thermal_models',

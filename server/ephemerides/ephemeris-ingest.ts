@@ -3,6 +3,7 @@
 // the metadata and every point written in one transaction with prepared statements. A refused
 // file answers 400 invalid_ephemeris with its first problems; its temp files are deleted whatever
 // the outcome.
+import { sql } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
 import { createReadStream, rmSync } from 'node:fs';
 import path from 'node:path';
@@ -13,7 +14,7 @@ import { withoutControls } from '../../shared/api/text';
 import { getBody } from '../../shared/physics/bodies';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
-import { ephemerides, type EphemerisRow, type MissionRow } from '../db/schema';
+import { ephemerides, ephemerisPointBlocks, type EphemerisRow, type MissionRow } from '../db/schema';
 import { ApiError, badRequest, parse } from '../errors';
 import { MAX_PROBLEMS, type Problem } from './ephemeris-checker';
 import { checkFrame } from './ephemeris-frames';
@@ -144,13 +145,23 @@ type NewEphemeris = typeof ephemerides.$inferInsert;
 
 /** The metadata row and the spooled points, one block a statement, in one transaction. */
 function storeEphemeris(ctx: AppContext, request: IngestRequest, spool: PointSpool, values: NewEphemeris): EphemerisRow {
-  const insertBlock = ctx.sqlite.prepare('INSERT INTO ephemeris_point_blocks (ephemeris_id, block, first_seq, points, data) VALUES (?, ?, ?, ?, ?)');
   return ctx.db.transaction((tx) => {
     const row = tx.insert(ephemerides).values(values).returning().get();
+    // One statement prepared for the transaction, run once a block (4,096 points).
+    const insertBlock = tx
+      .insert(ephemerisPointBlocks)
+      .values({
+        ephemerisId: sql.placeholder('ephemerisId'),
+        block: sql.placeholder('block'),
+        firstSeq: sql.placeholder('firstSeq'),
+        points: sql.placeholder('points'),
+        data: sql.placeholder('data'),
+      })
+      .prepare();
     let block = 0;
     let firstSeq = 0;
     spool.forEachChunk((chunk, points) => {
-      insertBlock.run(row.id, block++, firstSeq, points, packPoints(chunk, points));
+      insertBlock.run({ ephemerisId: row.id, block: block++, firstSeq, points, data: packPoints(chunk, points) });
       firstSeq += points;
     });
     recordAudit(tx, {

@@ -1,12 +1,14 @@
 // Reading and removing stored ephemerides, and who may: members of the mission's workspace read;
 // analysts, thermal engineers and owners upload and delete; another workspace's mission is 404.
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, sql } from 'drizzle-orm';
 import type { EphemerisPointsPage, EphemerisSummary } from '../../shared/api/ephemerides';
 import type { Role } from '../../shared/api/workspaces';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import { memberRole, roleRefused } from '../auth/middleware';
-import { ephemerides, missions, type EphemerisRow, type MissionRow } from '../db/schema';
+import type { Db } from '../db/database';
+import { preparedPer } from '../db/prepared';
+import { ephemerides, ephemerisPointBlocks, missions, type EphemerisRow, type MissionRow } from '../db/schema';
 import { notFound } from '../errors';
 import { epochText } from './epoch-text';
 import { POINT_FIELDS, unpackBlock } from './point-blocks';
@@ -69,12 +71,35 @@ export interface StoredBlock {
   values: Float64Array;
 }
 
-/** The ephemeris' point blocks in file order, from the one holding point `fromSeq` on. */
+/** Blocks read per statement: about 0.9 MB, so a long trajectory is never held in memory whole. */
+const BLOCKS_PER_READ = 4;
+
+const blocksAfter = preparedPer((db: Db) =>
+  db
+    .select({ block: ephemerisPointBlocks.block, firstSeq: ephemerisPointBlocks.firstSeq, points: ephemerisPointBlocks.points, data: ephemerisPointBlocks.data })
+    .from(ephemerisPointBlocks)
+    .where(
+      and(
+        eq(ephemerisPointBlocks.ephemerisId, sql.placeholder('ephemerisId')),
+        gt(ephemerisPointBlocks.block, sql.placeholder('after')),
+        gt(sql`${ephemerisPointBlocks.firstSeq} + ${ephemerisPointBlocks.points}`, sql.placeholder('fromSeq')),
+      ),
+    )
+    .orderBy(asc(ephemerisPointBlocks.block))
+    .limit(BLOCKS_PER_READ)
+    .prepare(),
+);
+
+/** The ephemeris' point blocks in file order, from the one holding point `fromSeq` on, a few blocks a read. */
 export function* storedBlocks(ctx: AppContext, ephemerisId: string, fromSeq = 0): Generator<StoredBlock> {
-  const rows = ctx.sqlite
-    .prepare('SELECT first_seq, points, data FROM ephemeris_point_blocks WHERE ephemeris_id = ? AND first_seq + points > ? ORDER BY block')
-    .iterate(ephemerisId, fromSeq) as IterableIterator<{ first_seq: number; points: number; data: Buffer }>;
-  for (const r of rows) yield { firstSeq: r.first_seq, points: r.points, values: unpackBlock(r.data) };
+  let after = -1;
+  for (;;) {
+    const rows = blocksAfter(ctx.db).all({ ephemerisId, after, fromSeq });
+    for (const r of rows) yield { firstSeq: r.firstSeq, points: r.points, values: unpackBlock(r.data) };
+    const last = rows.at(-1);
+    if (!last || rows.length < BLOCKS_PER_READ) return;
+    after = last.block;
+  }
 }
 
 const orNull = (x: number): number | null => (Number.isNaN(x) ? null : x);

@@ -7,7 +7,7 @@
 // when it is written, not when the compressor's buffer fills. Answers under 1 kB go as they are.
 import { constants } from 'node:zlib';
 import compression from 'compression';
-import type { Request, Response } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 
 const streamedTypes = ['application/x-ndjson', 'text/csv', 'application/vnd.apache.arrow.stream'];
 
@@ -16,4 +16,18 @@ function worthCompressing(req: Request, res: Response): boolean {
   return streamedTypes.some((t) => type.startsWith(t)) || compression.filter(req, res);
 }
 
-export const compressAnswers = compression({ filter: worthCompressing, level: 1, brotli: { params: { [constants.BROTLI_PARAM_QUALITY]: 1 } } });
+const compressor = compression({ filter: worthCompressing, level: 1, brotli: { params: { [constants.BROTLI_PARAM_QUALITY]: 1 } } });
+
+/**
+ * The compressor for a request that accepts br or gzip. One that names no Accept-Encoding would be
+ * answered as it is anyway (the package negotiates identity), so it skips the package's per-request
+ * wrapping of the answer and only gets the Vary header.
+ */
+export const compressAnswers: RequestHandler = (req, res, next) => {
+  if (req.headers['accept-encoding'] === undefined) {
+    res.setHeader('Vary', 'Accept-Encoding');
+    next();
+    return;
+  }
+  compressor(req, res, next);
+};

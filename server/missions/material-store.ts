@@ -4,6 +4,7 @@ import { and, asc, eq, inArray, isNull, ne, or, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { Material, materialCreate, materialUpdate } from '../../shared/api/missions';
 import { recordAudit } from '../audit/audit-log';
+import { memberRole, noWorkspace } from '../auth/middleware';
 import type { Db } from '../db/database';
 import { materials, memberships, missions, surfaces, type MaterialRow } from '../db/schema';
 import { conflict, forbidden, notFound } from '../errors';
@@ -14,7 +15,9 @@ type MaterialCreate = z.output<typeof materialCreate>;
 type MaterialUpdate = z.output<typeof materialUpdate>;
 
 /** The library and the workspace's own (the caller is a member), or the library and all the caller's workspaces'. */
+/** The library and the caller's workspaces' own materials (one workspace's when given: 404 for a non-member). */
 export function listMaterials(db: Db, userId: string, workspaceId: string | undefined): Material[] {
+  if (workspaceId !== undefined && !memberRole(db, userId, workspaceId)) throw noWorkspace(workspaceId);
   const own =
     workspaceId !== undefined
       ? eq(materials.workspaceId, workspaceId)

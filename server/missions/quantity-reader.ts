@@ -7,7 +7,7 @@
 // (shared/physics/typed-units.ts), so the preview and the stored value always agree; only units
 // outside that table reach mathjs.
 import { PhysicsError } from '../../shared/physics/physics-error';
-import { normaliseUnitText, readTypedQuantity } from '../../shared/physics/typed-units';
+import { kindOfUnit, normaliseUnitText, readTypedQuantity } from '../../shared/physics/typed-units';
 
 type Units = typeof import('../../shared/physics/units');
 
@@ -61,4 +61,10 @@ export function readQuantityIn(input: string | number, unit: string, path: strin
   // mathjs knows many more units ("300000 ft", "2 kg"); what it cannot read gets the table's words.
   if (!units.canReadQuantity(text)) throw refusal;
   return units.readQuantity(text, unit, unit, path);
+}
+
+/** POST /units/convert: a unit of the typed-unit table is read as the forms read it ("14 d", "1.2 m²"); others by mathjs. */
+export async function convertTypedValue(value: string | number, unit: string): Promise<number> {
+  const { convertQuantity } = await loadUnits();
+  return kindOfUnit(unit) ? readQuantityIn(value, normaliseUnitText(unit), 'value') : convertQuantity(value, unit);
 }

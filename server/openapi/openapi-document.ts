@@ -1,22 +1,13 @@
-// The OpenAPI 3 description of the whole API, generated from the zod schemas of shared/api/ with
-// @asteasolutions/zod-to-openapi, and the JSON Schema of a case export from zod 4's own converter.
+// The OpenAPI 3 description of the whole API, generated from the route declarations
+// (server/routes/api-routes.ts, the list the dispatcher serves) and their zod schemas of shared/api/
+// with @asteasolutions/zod-to-openapi, and the JSON Schema of a case export from zod 4's own converter.
 import { OpenAPIRegistry, OpenApiGeneratorV3 } from '@asteasolutions/zod-to-openapi';
 import { z } from 'zod';
 import { caseExport } from '../../shared/api/cases';
 import { answerLayoutQuery } from '../../shared/api/answer-formats';
 import { errorBody } from '../../shared/api/errors';
 import { ARROW_STREAM } from '../http/answer-formats';
-import type { ApiRoute } from './api-route';
-import { caseApiRoutes } from './case-api-routes';
-import { foundationApiRoutes } from './foundation-api-routes';
-import { missionApiRoutes } from './mission-api-routes';
-import { physicsApiRoutes } from './physics-api-routes';
-import { thermalModelApiRoutes } from './thermal-model-api-routes';
-
-/** Every feature's routes; a new feature adds its list here. */
-export const apiRouteLists: ApiRoute[][] = [foundationApiRoutes, physicsApiRoutes, missionApiRoutes, caseApiRoutes, thermalModelApiRoutes];
-
-export const allApiRoutes = (): ApiRoute[] => apiRouteLists.flat();
+import type { ApiRoute } from '../http/api-route';
 
 const openApiPath = (path: string) => path.replace(/:(\w+)/g, '{$1}');
 const pathParams = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1] ?? '');
@@ -58,32 +49,34 @@ function register(registry: OpenAPIRegistry, route: ApiRoute): void {
     path: openApiPath(route.path),
     summary: route.summary,
     tags: [route.tag],
-    ...(route.public ? { security: [] } : {}),
+    ...(route.access === 'public' ? { security: [] } : {}),
     request: {
       ...(params ? { params } : {}),
       ...(query ? { query } : {}),
-      ...(bodyContent ? { body: { content: bodyContent, required: true } } : {}),
+      ...(bodyContent ? { body: { content: bodyContent, required: !route.bodyOptional } } : {}),
     },
     responses: {
       [status]: { description: status === '204' ? 'Done, no content' : route.perStep ? perStepDescription : 'Success', ...(Object.keys(content).length > 0 ? { content } : {}) },
       ...Object.fromEntries(
         Object.entries(errorStatuses)
-          .filter(([code]) => !(route.public && code === '401'))
+          .filter(([code]) => !(route.access === 'public' && code === '401'))
           .map(([code, description]) => [code, { description, content: { 'application/json': { schema: errorBody } } }]),
       ),
     },
   });
 }
 
-let cached: object | null = null;
+const cached = new WeakMap<readonly ApiRoute[], object>();
 
-export function openApiDocument(publicUrl: string): object {
-  if (cached) return cached;
+/** The document of these routes (made once per list; the server's public URL is its one server). */
+export function openApiDocument(publicUrl: string, routes: readonly ApiRoute[]): object {
+  const made = cached.get(routes);
+  if (made) return made;
   const registry = new OpenAPIRegistry();
   registry.registerComponent('securitySchemes', 'apiToken', { type: 'http', scheme: 'bearer', description: 'A personal API token: Authorization: Bearer <token>' });
   registry.registerComponent('securitySchemes', 'session', { type: 'apiKey', in: 'cookie', name: 'eclipta_session' });
-  for (const route of allApiRoutes()) register(registry, route);
-  cached = new OpenApiGeneratorV3(registry.definitions).generateDocument({
+  for (const route of routes) register(registry, route);
+  const document = new OpenApiGeneratorV3(registry.definitions).generateDocument({
     openapi: '3.0.3',
     info: {
       title: 'Eclipta API',
@@ -95,7 +88,8 @@ export function openApiDocument(publicUrl: string): object {
     servers: [{ url: publicUrl }],
     security: [{ apiToken: [] }, { session: [] }],
   });
-  return cached;
+  cached.set(routes, document);
+  return document;
 }
 
 let schemaCache: object | null = null;

@@ -1,142 +1,121 @@
-// cases: load cases of a mission (shared/api/cases.ts), and the documents that describe the API:
-// the JSON Schema of a case export and the OpenAPI description of every route.
-import { Router } from 'express';
-import { caseCommentCreate, caseCompareQuery, caseCreate, caseRevisionCreate, caseDerive, caseExportQuery, caseListQuery, caseUpdate } from '../../shared/api/cases';
-import type { AppContext } from '../app-context';
-import { recordAudit } from '../audit/audit-log';
-import { requireUser, signedIn, workspaceAccess } from '../auth/middleware';
-import { caseFor, missionForCases } from '../cases/case-access';
+// cases: load cases of a mission (shared/api/cases.ts). Who may see or change a case is decided by
+// caseFor and missionForCases (server/cases/case-access.ts); the work is in server/cases/.
+import {
+  caseComment, caseCommentCreate, caseCompareQuery, caseComparison, caseCreate, caseDerive, caseDetail, caseExport, caseExportQuery, caseList, caseListQuery,
+  caseRevisionCreate, caseUpdate, derivedCases, subscriptionState, workspaceOverview as workspaceOverviewSchema,
+} from '../../shared/api/cases';
+import { caseFor, caseToCompareWith, missionForCases } from '../cases/case-access';
 import { createCustomCase, deriveCases } from '../cases/case-derivation';
-import { caseExportCsv, caseExportJson } from '../cases/case-export';
-import { workspaceOverview } from '../cases/case-overview';
+import { sendCaseExport } from '../cases/case-export-answer';
 import { commentOnCase, newRevision, releaseCase, requireReviewer, returnCase, setSubscription, submitCase, updateCase } from '../cases/case-lifecycle';
+import { workspaceOverview } from '../cases/case-overview';
 import { commentsOf, compareCases, listCases, toDetail } from '../cases/case-views';
-import { badRequest, parse } from '../errors';
-import { answerForm, sendPerStep } from '../http/answer-formats';
-import { apiDocsRoutes } from '../openapi/api-docs-routes';
-import { pathParam } from '../path-param';
+import { route, type ApiRoute } from '../http/api-route';
+import { anyMember } from '../workspaces/workspace-roles';
 
-const fileName = (name: string, revision: number, ext: string) =>
-  `${name.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '') || 'case'}-rev${revision}.${ext}`;
+const v1 = '/api/v1';
+const c = `${v1}/cases/:id`;
+const tag = 'cases';
+const editors = '(thermal engineer or owner)';
 
-export function caseRoutes(ctx: AppContext): Router {
-  const router = Router();
-  const me = (req: Parameters<typeof signedIn>[0]) => signedIn(req).user;
-
-  router.post('/missions/:id/cases/derive', requireUser, (req, res) => {
-    const { mission } = missionForCases(ctx, me(req).id, pathParam(req, 'id'));
-    const input = parse(caseDerive, req.body);
-    const rows = deriveCases(ctx, me(req), mission, input);
-    res.status(201).json({ items: rows.map((r) => toDetail(ctx.db, r, me(req).id)) });
-  });
-
-  router.post('/missions/:id/cases', requireUser, (req, res) => {
-    const { mission } = missionForCases(ctx, me(req).id, pathParam(req, 'id'));
-    const row = createCustomCase(ctx, me(req), mission, parse(caseCreate, req.body));
-    res.status(201).json(toDetail(ctx.db, row, me(req).id));
-  });
-
-  router.get('/cases', requireUser, (req, res) => {
-    const filter = parse(caseListQuery, req.query);
-    res.json({ items: listCases(ctx, me(req).id, filter) });
-  });
-
-  router.get('/workspaces/:workspaceId/overview', workspaceAccess(ctx, ['owner', 'analyst', 'thermal', 'viewer']), (req, res) => {
-    const membership = req.membership;
-    if (!membership) throw new Error('workspaceAccess sets the membership');
-    res.json(workspaceOverview(ctx, me(req).id, membership.workspaceId, membership.role));
-  });
-
-  router.get('/cases/:id', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'));
-    res.json(toDetail(ctx.db, row, me(req).id));
-  });
-
-  router.patch('/cases/:id', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
-    const change = parse(caseUpdate, req.body);
-    res.json(toDetail(ctx.db, updateCase(ctx, me(req), row, change), me(req).id));
-  });
-
-  router.post('/cases/:id/submit', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
-    res.json(toDetail(ctx.db, submitCase(ctx, me(req), row), me(req).id));
-  });
-
-  router.post('/cases/:id/release', requireUser, async (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
-    const released = await releaseCase(ctx, me(req), row);
-    res.json(toDetail(ctx.db, released, me(req).id));
-  });
-
-  router.post('/cases/:id/return', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
-    requireReviewer(row, me(req));
-    const { text } = parse(caseCommentCreate, req.body);
-    res.json(toDetail(ctx.db, returnCase(ctx, me(req), row, text), me(req).id));
-  });
-
-  router.post('/cases/:id/comments', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
-    const { text } = parse(caseCommentCreate, req.body);
-    const made = commentOnCase(ctx, me(req), row, text);
-    res.status(201).json(commentsOf(ctx.db, row.seriesId).find((c) => c.id === made.id));
-  });
-
-  router.post('/cases/:id/revisions', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'), true);
-    const request = parse(caseRevisionCreate, req.body ?? {});
-    res.status(201).json(toDetail(ctx.db, newRevision(ctx, me(req), row, request), me(req).id));
-  });
-
-  router.get('/cases/:id/compare', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'));
-    const query = parse(caseCompareQuery, req.query);
-    const other = caseFor(ctx, me(req).id, query.with).row;
-    if (other.missionId !== row.missionId) {
-      throw badRequest('Compare revisions of cases of the same mission.', [{ path: 'with', message: `case ${query.with} belongs to another mission` }]);
-    }
-    res.json(compareCases(ctx.db, row, other));
-  });
-
+export const caseRoutes: ApiRoute[] = [
+  route({
+    method: 'post', path: `${v1}/missions/:id/cases/derive`, tag, summary: `Derive the hot and cold cases of an orbit; both saved as drafts ${editors}`, access: 'signed-in',
+    body: caseDerive, status: 201, response: derivedCases,
+    handle: ({ ctx, auth, param, body }) => {
+      const { mission } = missionForCases(ctx, auth.user.id, param('id'));
+      const rows = deriveCases(ctx, auth.user, mission, body());
+      return { items: rows.map((r) => toDetail(ctx.db, r, auth.user.id)) };
+    },
+  }),
+  route({
+    method: 'post', path: `${v1}/missions/:id/cases`, tag, summary: `Add a custom case: fixed date, beta, properties, attitude ${editors}`, access: 'signed-in',
+    body: caseCreate, status: 201, response: caseDetail,
+    handle: ({ ctx, auth, param, body }) => {
+      const { mission } = missionForCases(ctx, auth.user.id, param('id'));
+      return toDetail(ctx.db, createCustomCase(ctx, auth.user, mission, body()), auth.user.id);
+    },
+  }),
+  route({
+    method: 'get', path: `${v1}/cases`, tag, summary: 'The cases the caller may see (viewers: released and superseded only)', access: 'signed-in',
+    query: caseListQuery, response: caseList,
+    handle: ({ ctx, auth, query }) => ({ items: listCases(ctx, auth.user.id, query()) }),
+  }),
+  route({
+    method: 'get', path: `${v1}/workspaces/:workspaceId/overview`, tag, access: anyMember, response: workspaceOverviewSchema,
+    summary: 'What needs the caller in a workspace: cases waiting for their review, their drafts returned with a comment, the newest revisions of cases they follow, released cases whose inputs changed (members)',
+    handle: ({ ctx, auth, membership }) => workspaceOverview(ctx, auth.user.id, membership.workspaceId, membership.role),
+  }),
+  route({
+    method: 'get', path: c, tag, summary: 'A case with its inputs, rationale and results', access: 'signed-in', response: caseDetail,
+    handle: ({ ctx, auth, param }) => toDetail(ctx.db, caseFor(ctx, auth.user.id, param('id')).row, auth.user.id),
+  }),
+  route({
+    method: 'patch', path: c, tag, summary: `Change a draft; 409 for any other status ${editors}`, access: 'signed-in', body: caseUpdate, response: caseDetail,
+    handle: ({ ctx, auth, param, body }) => {
+      const { row } = caseFor(ctx, auth.user.id, param('id'), true);
+      return toDetail(ctx.db, updateCase(ctx, auth.user, row, body()), auth.user.id);
+    },
+  }),
+  route({
+    method: 'post', path: `${c}/submit`, tag, summary: `Submit a draft for review ${editors}`, access: 'signed-in', response: caseDetail,
+    handle: ({ ctx, auth, param }) => toDetail(ctx.db, submitCase(ctx, auth.user, caseFor(ctx, auth.user.id, param('id'), true).row), auth.user.id),
+  }),
+  route({
+    method: 'post', path: `${c}/release`, tag, summary: 'Release a case in review: a thermal engineer or owner other than its author', access: 'signed-in', response: caseDetail,
+    handle: async ({ ctx, auth, param }) => {
+      const { row } = caseFor(ctx, auth.user.id, param('id'), true);
+      return toDetail(ctx.db, await releaseCase(ctx, auth.user, row), auth.user.id);
+    },
+  }),
+  route({
+    method: 'post', path: `${c}/return`, tag, access: 'signed-in', body: caseCommentCreate, response: caseDetail,
+    summary: 'Return a case in review to its author as a draft, with a comment kept in its history: a thermal engineer or owner other than its author',
+    handle: ({ ctx, auth, param, body }) => {
+      const { row } = caseFor(ctx, auth.user.id, param('id'), true);
+      requireReviewer(row, auth.user);
+      return toDetail(ctx.db, returnCase(ctx, auth.user, row, body().text), auth.user.id);
+    },
+  }),
+  route({
+    method: 'post', path: `${c}/comments`, tag, summary: `Comment on a draft or a case in review ${editors}`, access: 'signed-in', body: caseCommentCreate, status: 201, response: caseComment,
+    handle: ({ ctx, auth, param, body }) => {
+      const { row } = caseFor(ctx, auth.user.id, param('id'), true);
+      const made = commentOnCase(ctx, auth.user, row, body().text);
+      return commentsOf(ctx.db, row.seriesId).find((comment) => comment.id === made.id) ?? null;
+    },
+  }),
+  route({
+    method: 'post', path: `${c}/revisions`, tag, access: 'signed-in', body: caseRevisionCreate, bodyOptional: true, status: 201, response: caseDetail,
+    summary: `Start a new draft revision from a released one, with its reason; fromCurrentInputs computes it again from the mission as it is now (hot, cold, custom, or along its ephemeris window; 409 when its orbit or ephemeris was deleted) ${editors}`,
+    handle: ({ ctx, auth, param, body }) => {
+      const { row } = caseFor(ctx, auth.user.id, param('id'), true);
+      return toDetail(ctx.db, newRevision(ctx, auth.user, row, body()), auth.user.id);
+    },
+  }),
+  route({
+    method: 'get', path: `${c}/compare`, tag, summary: 'Two revisions side by side: inputs and per-surface orbit averages', access: 'signed-in',
+    query: caseCompareQuery, response: caseComparison,
+    handle: ({ ctx, auth, param, query }) => {
+      const { row } = caseFor(ctx, auth.user.id, param('id'));
+      return compareCases(ctx.db, row, caseToCompareWith(ctx, auth.user.id, row, query().with));
+    },
+  }),
   // Any member who may see a case may follow it, viewers included: they are the importing teams.
-  router.post('/cases/:id/subscription', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'));
-    setSubscription(ctx, me(req), row, true);
-    res.json({ subscribed: true });
-  });
-
-  router.delete('/cases/:id/subscription', requireUser, (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'));
-    setSubscription(ctx, me(req), row, false);
-    res.json({ subscribed: false });
-  });
-
-  router.get('/cases/:id/export', requireUser, async (req, res) => {
-    const { row } = caseFor(ctx, me(req).id, pathParam(req, 'id'));
-    const query = parse(caseExportQuery, req.query);
-    const form = answerForm(req, query.layout);
-    const format = form === 'arrow' ? 'arrow' : query.format;
-    const json = format !== 'csv' ? caseExportJson(ctx, row) : null;
-    const csv = format === 'csv' ? caseExportCsv(ctx, row) : null;
-    recordAudit(ctx.db, {
-      workspaceId: row.workspaceId, actorUserId: me(req).id, action: 'case.exported', targetType: 'load_case', targetId: row.id,
-      summary: `Exported "${row.name}" revision ${row.revision} (${row.status}) as ${format === 'arrow' ? 'an Apache Arrow stream' : format.toUpperCase()}${signedIn(req).kind === 'token' ? ' with an API token' : ''}.`,
-    });
-    res.set('Content-Disposition', `attachment; filename="${fileName(row.name, row.revision, format === 'arrow' ? 'arrows' : format)}"`);
-    res.set('X-Eclipta-Checksum', json?.checksum ?? csv?.checksum ?? '');
-    if (json && form === 'arrow') {
-      // The export is in columns already; the Arrow stream carries them (API.md "Answer formats").
-      await sendPerStep(res, form, { answer: () => json, key: 'results', stepKey: 'tS' });
-      return;
-    }
-    if (csv) {
-      res.type('text/csv; charset=utf-8; header=present').send(csv.csv);
-      return;
-    }
-    res.type('application/json; charset=utf-8').send(JSON.stringify(json, null, 2));
-  });
-
-  router.use(apiDocsRoutes(ctx));
-  return router;
-}
+  route({
+    method: 'post', path: `${c}/subscription`, tag, summary: 'Follow the case: mail on every new release', access: 'signed-in', response: subscriptionState,
+    handle: ({ ctx, auth, param }) => setSubscription(ctx, auth.user, caseFor(ctx, auth.user.id, param('id')).row, true),
+  }),
+  route({
+    method: 'delete', path: `${c}/subscription`, tag, summary: 'Stop following the case', access: 'signed-in', response: subscriptionState,
+    handle: ({ ctx, auth, param }) => setSubscription(ctx, auth.user, caseFor(ctx, auth.user.id, param('id')).row, false),
+  }),
+  route({
+    method: 'get', path: `${c}/export`, tag, access: 'signed-in', query: caseExportQuery, response: caseExport, produces: ['application/json', 'text/csv'], perStep: true,
+    summary: 'The case as a file: JSON (load-case.json schema) or a tidy CSV (RFC 4180): one header row with units, a row per time step and surface (with the sunlit share, and past the parent planet about a moon), then per surface its orbit average and peak and the spacecraft total; case, revision, status, checksum, mission, body, orbit, date, beta, Sun distance, property set, heat-load margin and caution as columns on every row',
+    handle: ({ ctx, req, res, auth, param, query }) => {
+      const { row } = caseFor(ctx, auth.user.id, param('id'));
+      return sendCaseExport(ctx, req, res, auth, row, query());
+    },
+  }),
+];

@@ -1,29 +1,21 @@
 // A workspace's own environment table (shared/api/environment-table.ts): members read it; owners
 // and thermal engineers replace it. Case derivation uses it in place of the built-in pairs.
-import { Router } from 'express';
-import { environmentTablePut } from '../../shared/api/environment-table';
-import type { Role } from '../../shared/api/workspaces';
-import type { AppContext } from '../app-context';
-import { signedIn, workspaceAccess } from '../auth/middleware';
+import { environmentTable as environmentTableSchema, environmentTablePut } from '../../shared/api/environment-table';
 import { environmentTable, replaceEnvironmentTable } from '../environment/environment-table-store';
-import { parse } from '../errors';
-import { readerRoles } from '../missions/mission-access';
-import { pathParam } from '../path-param';
+import { route, type ApiRoute } from '../http/api-route';
+import { anyMember, thermalEditors } from '../workspaces/workspace-roles';
 
-const tableEditors: readonly Role[] = ['owner', 'thermal'];
+const path = '/api/v1/workspaces/:workspaceId/environment-table';
+const tag = 'environment table';
 
-export function environmentTableRoutes(ctx: AppContext): Router {
-  const router = Router();
-  const path = '/workspaces/:workspaceId/environment-table';
-
-  router.get(path, workspaceAccess(ctx, readerRoles), (req, res) => {
-    res.json(environmentTable(ctx.db, pathParam(req, 'workspaceId')));
-  });
-
-  router.put(path, workspaceAccess(ctx, tableEditors), (req, res) => {
-    const input = parse(environmentTablePut, req.body);
-    res.json(replaceEnvironmentTable(ctx.db, signedIn(req).user.id, pathParam(req, 'workspaceId'), input));
-  });
-
-  return router;
-}
+export const environmentTableRoutes: ApiRoute[] = [
+  route({
+    method: 'get', path, tag, access: anyMember, response: environmentTableSchema,
+    summary: 'The workspace’s own paired hot/cold albedo and OLR by inclination band and averaging time (any member)',
+    handle: ({ ctx, param }) => environmentTable(ctx.db, param('workspaceId')),
+  }),
+  route({
+    method: 'put', path, tag, summary: 'Replace the workspace’s environment table (owner, thermal)', access: thermalEditors, body: environmentTablePut, response: environmentTableSchema,
+    handle: ({ ctx, auth, param, body }) => replaceEnvironmentTable(ctx.db, auth.user.id, param('workspaceId'), body()),
+  }),
+];

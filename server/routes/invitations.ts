@@ -1,53 +1,42 @@
 // Invitations: the owner's side under workspaces/:workspaceId/invitations, and the invitee's
 // side under invitations/:token, which needs no sign-in (the link is the credential).
-import { Router } from 'express';
-import { invitationAccept } from '../../shared/api/auth';
-import { invitationCreate } from '../../shared/api/workspaces';
-import type { AppContext } from '../app-context';
-import { pathParam } from '../path-param';
+import { z } from 'zod';
+import { invitationAccept, invitationPreview, meResponse as meSchema } from '../../shared/api/auth';
+import { invitation, invitationCreate } from '../../shared/api/workspaces';
 import { meResponse } from '../auth/me-response';
-import { signedIn, workspaceAccess } from '../auth/middleware';
 import { clientAddress } from '../auth/rate-limiter';
 import { startSession } from '../auth/session';
-import { parse } from '../errors';
-import {
-  acceptInvitation,
-  createInvitation,
-  listInvitations,
-  previewInvitation,
-  withdrawInvitation,
-} from '../workspaces/invitations';
+import { route, type ApiRoute } from '../http/api-route';
+import { acceptInvitation, createInvitation, listInvitations, previewInvitation, withdrawInvitation } from '../workspaces/invitations';
+import { ownerOnly } from '../workspaces/workspace-roles';
 
-export function invitationRoutes(ctx: AppContext): Router {
-  const router = Router();
-  const ownerOnly = workspaceAccess(ctx, ['owner']);
+const v1 = '/api/v1';
+const w = `${v1}/workspaces/:workspaceId/invitations`;
 
-  router.get('/workspaces/:workspaceId/invitations', ownerOnly, (req, res) => {
-    res.json({ items: listInvitations(ctx, pathParam(req, 'workspaceId')) });
-  });
-
-  router.post('/workspaces/:workspaceId/invitations', ownerOnly, async (req, res) => {
-    const input = parse(invitationCreate, req.body);
-    res.status(201).json(await createInvitation(ctx, pathParam(req, 'workspaceId'), input, signedIn(req).user));
-  });
-
-  router.delete('/workspaces/:workspaceId/invitations/:id', ownerOnly, (req, res) => {
-    const workspaceId = pathParam(req, 'workspaceId');
-    const id = pathParam(req, 'id');
-    withdrawInvitation(ctx, workspaceId, id, signedIn(req).user.id);
-    res.status(204).end();
-  });
-
-  router.get('/invitations/:token', (req, res) => {
-    res.json(previewInvitation(ctx, pathParam(req, 'token')));
-  });
-
-  router.post('/invitations/:token/accept', async (req, res) => {
-    const input = parse(invitationAccept, req.body);
-    const user = await acceptInvitation(ctx, pathParam(req, 'token'), input, clientAddress(req));
-    startSession(ctx, res, user);
-    res.json(meResponse(ctx.db, user, { kind: 'session', readOnly: false }));
-  });
-
-  return router;
-}
+export const invitationRoutes: ApiRoute[] = [
+  route({
+    method: 'get', path: w, tag: 'workspaces', summary: 'Open invitations (owner)', access: ownerOnly, response: z.object({ items: z.array(invitation) }),
+    handle: ({ ctx, param }) => ({ items: listInvitations(ctx, param('workspaceId')) }),
+  }),
+  route({
+    method: 'post', path: w, tag: 'workspaces', summary: 'Invite by e-mail (owner)', access: ownerOnly, body: invitationCreate, status: 201, response: invitation,
+    handle: ({ ctx, auth, param, body }) => createInvitation(ctx, param('workspaceId'), body(), auth.user),
+  }),
+  route({
+    method: 'delete', path: `${w}/:id`, tag: 'workspaces', summary: 'Withdraw an invitation (owner)', access: ownerOnly, status: 204,
+    handle: ({ ctx, auth, param }) => withdrawInvitation(ctx, param('workspaceId'), param('id'), auth.user.id),
+  }),
+  route({
+    method: 'get', path: `${v1}/invitations/:token`, tag: 'auth', summary: 'Preview an invitation', access: 'public', response: invitationPreview,
+    handle: ({ ctx, param }) => previewInvitation(ctx, param('token')),
+  }),
+  route({
+    method: 'post', path: `${v1}/invitations/:token/accept`, tag: 'auth', summary: 'Accept an invitation; sets the session cookie', access: 'public',
+    body: invitationAccept, response: meSchema,
+    handle: async ({ ctx, req, res, param, body }) => {
+      const user = await acceptInvitation(ctx, param('token'), body(), clientAddress(req));
+      startSession(ctx, res, user);
+      return meResponse(ctx.db, user, { kind: 'session', readOnly: false });
+    },
+  }),
+];

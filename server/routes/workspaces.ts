@@ -1,50 +1,36 @@
 // workspaces: the caller's workspaces, their members and the audit log (shared/api/workspaces.ts).
-import { Router } from 'express';
-import { auditQuery, memberUpdate, type Workspace } from '../../shared/api/workspaces';
-import type { AppContext } from '../app-context';
-import { pathParam } from '../path-param';
+import { z } from 'zod';
+import { auditEvent, auditQuery, member, memberUpdate, workspace } from '../../shared/api/workspaces';
 import { listAudit } from '../audit/audit-log';
-import { userWorkspaces } from '../auth/me-response';
-import { signedIn, requireUser, workspaceAccess } from '../auth/middleware';
-import { parse } from '../errors';
+import { workspacesOf } from '../auth/me-response';
+import { route, type ApiRoute } from '../http/api-route';
 import { changeMemberRole, listMembers, removeMember } from '../workspaces/members';
+import { anyMember, ownerOnly } from '../workspaces/workspace-roles';
 
-export function workspaceRoutes(ctx: AppContext): Router {
-  const router = Router();
-  const anyMember = workspaceAccess(ctx, ['owner', 'analyst', 'thermal', 'viewer']);
-  const ownerOnly = workspaceAccess(ctx, ['owner']);
+const w = '/api/v1/workspaces/:workspaceId';
 
-  router.get('/workspaces', requireUser, (req, res) => {
-    const items: Workspace[] = userWorkspaces(ctx.db, signedIn(req).user.id).map((m) => ({
-      id: m.workspaceId,
-      name: m.workspaceName,
-      role: m.role,
-    }));
-    res.json({ items });
-  });
-
-  router.get('/workspaces/:workspaceId/members', anyMember, (req, res) => {
-    res.json({ items: listMembers(ctx.db, pathParam(req, 'workspaceId')) });
-  });
-
-  router.patch('/workspaces/:workspaceId/members/:userId', ownerOnly, (req, res) => {
-    const input = parse(memberUpdate, req.body);
-    const workspaceId = pathParam(req, 'workspaceId');
-    const userId = pathParam(req, 'userId');
-    res.json(changeMemberRole(ctx.db, workspaceId, userId, input.role, signedIn(req).user.id));
-  });
-
-  router.delete('/workspaces/:workspaceId/members/:userId', ownerOnly, (req, res) => {
-    const workspaceId = pathParam(req, 'workspaceId');
-    const userId = pathParam(req, 'userId');
-    removeMember(ctx.db, workspaceId, userId, signedIn(req).user.id);
-    res.status(204).end();
-  });
-
-  router.get('/workspaces/:workspaceId/audit', ownerOnly, (req, res) => {
-    const filter = parse(auditQuery, req.query);
-    res.json(listAudit(ctx.db, pathParam(req, 'workspaceId'), filter));
-  });
-
-  return router;
-}
+export const workspaceRoutes: ApiRoute[] = [
+  route({
+    method: 'get', path: '/api/v1/workspaces', tag: 'workspaces', summary: 'The caller’s workspaces', access: 'signed-in',
+    response: z.object({ items: z.array(workspace) }),
+    handle: ({ ctx, auth }) => ({ items: workspacesOf(ctx.db, auth.user.id) }),
+  }),
+  route({
+    method: 'get', path: `${w}/members`, tag: 'workspaces', summary: 'Members of a workspace', access: anyMember,
+    response: z.object({ items: z.array(member) }),
+    handle: ({ ctx, param }) => ({ items: listMembers(ctx.db, param('workspaceId')) }),
+  }),
+  route({
+    method: 'patch', path: `${w}/members/:userId`, tag: 'workspaces', summary: 'Change a member’s role (owner)', access: ownerOnly, body: memberUpdate, response: member,
+    handle: ({ ctx, auth, param, body }) => changeMemberRole(ctx.db, param('workspaceId'), param('userId'), body().role, auth.user.id),
+  }),
+  route({
+    method: 'delete', path: `${w}/members/:userId`, tag: 'workspaces', summary: 'Remove a member (owner)', access: ownerOnly, status: 204,
+    handle: ({ ctx, auth, param }) => removeMember(ctx.db, param('workspaceId'), param('userId'), auth.user.id),
+  }),
+  route({
+    method: 'get', path: `${w}/audit`, tag: 'workspaces', summary: 'The audit log, filtered (owner)', access: ownerOnly, query: auditQuery,
+    response: z.object({ items: z.array(auditEvent), total: z.number() }),
+    handle: ({ ctx, param, query }) => listAudit(ctx.db, param('workspaceId'), query()),
+  }),
+];

@@ -237,3 +237,11 @@ export type SurfaceCreate = z.input<typeof surfaceCreate>;
 export type SurfaceNormal = z.infer<typeof surfaceNormal>;
 export type SweepDay = z.infer<typeof sweepDay>;
 export type SweepLine = z.infer<typeof sweepLine>;
+
+/** GET /missions: archived missions are left out unless asked for. */
+export const missionListQuery = z.object({
+  includeArchived: z.enum(['true', 'false'], { message: 'includeArchived is true or false' }).optional(),
+});
+
+/** GET /materials: the library, and with workspaceId that workspace's own materials too. */
+export const materialListQuery = z.object({ workspaceId: z.string().min(1).max(64).optional() });

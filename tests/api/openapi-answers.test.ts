@@ -6,7 +6,7 @@ import Ajv from 'ajv';
 import addFormats from 'ajv-formats';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { allApiRoutes } from '../../server/openapi/openapi-document';
+import { apiRoutes } from '../../server/routes/api-routes';
 import { buildScene, concretePath, sampleBody, type Scene } from './route-samples';
 import { createTestApp, type TestApp } from './test-app';
 
@@ -104,7 +104,7 @@ const queries: Record<string, string> = {
 
 describe('the OpenAPI document describes what the routes answer', () => {
   it('every GET route with a JSON answer, called as the Kestrel owner', async () => {
-    const routes = allApiRoutes().filter((r) => r.method === 'get' && r.response && !r.path.includes('openapi.json') && !r.path.includes('schemas/'));
+    const routes = apiRoutes.filter((r) => r.method === 'get' && r.response && !r.path.includes('openapi.json') && !r.path.includes('schemas/'));
     const problems: Record<string, unknown> = {};
     let checked = 0;
     for (const route of routes) {

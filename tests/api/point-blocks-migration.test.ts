@@ -58,7 +58,7 @@ describe('the move of ephemeris points into blocks', () => {
       migrateDatabase(reopened.db, 'migrations');
       const tables = reopened.sqlite.prepare("SELECT name FROM sqlite_master WHERE type = 'table' AND name LIKE 'ephemeris_point%'").pluck().all();
       expect(tables).toEqual(['ephemeris_point_blocks']);
-      const ctx = { sqlite: reopened.sqlite } as AppContext;
+      const ctx = { sqlite: reopened.sqlite, db: reopened.db } as AppContext;
       for (const [id, rows] of expected) {
         const blocks = [...storedBlocks(ctx, id)];
         expect(blocks.map((b) => [b.firstSeq, b.points])).toEqual(

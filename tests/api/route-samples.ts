@@ -4,7 +4,7 @@
 import path from 'node:path';
 import request from 'supertest';
 import { listRoutes } from '../../server/route-list';
-import { allApiRoutes } from '../../server/openapi/openapi-document';
+import { apiRoutes } from '../../server/routes/api-routes';
 import { fixturesDir } from './ephemeris-test-mission';
 import { linkToken, userIdOf, workspaceIdOf, type TestApp } from './test-app';
 
@@ -236,7 +236,7 @@ export function sampleBody(key: string, ids: SceneIds): unknown {
   return samples[key];
 }
 
-const multipartRoutes = new Set(allApiRoutes().filter((r) => r.bodyKind === 'multipart').map((r) => `${r.method.toUpperCase()} ${r.path}`));
+const multipartRoutes = new Set(apiRoutes.filter((r) => r.bodyKind === 'multipart').map((r) => `${r.method.toUpperCase()} ${r.path}`));
 
 /** Every route of the app that takes a JSON body: POST, PATCH and PUT, except multipart uploads. */
 export function jsonRoutes(app: Parameters<typeof listRoutes>[0]): { method: string; path: string }[] {
@@ -246,7 +246,7 @@ export function jsonRoutes(app: Parameters<typeof listRoutes>[0]): { method: str
   return [...routes.filter((r) => !signOut(r)), ...routes.filter(signOut)];
 }
 
-const bodyRoutes = new Set(allApiRoutes().filter((r) => r.body).map((r) => `${r.method.toUpperCase()} ${r.path}`));
+const bodyRoutes = new Set(apiRoutes.filter((r) => r.body).map((r) => `${r.method.toUpperCase()} ${r.path}`));
 
 /** True when the OpenAPI description gives the route a body schema (routes like submit read none). */
 export const validatesBody = (key: string): boolean => bodyRoutes.has(key);

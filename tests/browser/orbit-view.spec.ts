@@ -1,7 +1,7 @@
 // The orbit view on a saved orbit's environment: the picture, its scrubber by keyboard, and its
 // link both ways with the load plots' read-out cursor; screenshots light and dark, wide and narrow.
 import { expect, test, type Page } from '@playwright/test';
-import { screenshot, signIn } from './session';
+import { api, screenshot, signIn } from './session';
 
 async function openEnvironment(page: Page, filter: string): Promise<void> {
   await page.getByTestId('mission-filter').fill(filter);
@@ -75,4 +75,67 @@ test('about Europa the part of the orbit in Jupiter\'s shadow is drawn in the pl
   await expect(page.getByTestId('orbit-view')).toContainText("In Jupiter's shadow");
   await screenshot(page, 'orbit-view-europa-1440-light');
   await darkAndNarrow(page, 'orbit-view-europa');
+});
+
+test('without surfaces the environment shows the six body-frame faces and a Sun-pointing plate, and its plot zooms by drag and keys', async ({ page }) => {
+  await page.setViewportSize({ width: 1440, height: 900 });
+  await signIn(page, 'thermal@kestrel.test');
+  const me = await api(page).get('/auth/me');
+  const workspaceId = (me['workspaces'] as { workspaceId: string }[])[0].workspaceId;
+  const name = `Bare bus ${Date.now()}`;
+  const mission = await api(page).send('post', '/missions', { workspaceId, name, bodyId: 'earth', startDate: '2027-03-01', endDate: '2027-03-31' });
+  await api(page).send('post', `/missions/${String(mission['id'])}/orbits`, {
+    name: 'SSO 540 km', periapsisAltitudeKm: '540 km', apoapsisAltitudeKm: '540 km', inclinationDeg: '97.5 deg', epoch: '2027-03-20T12:00:00Z',
+  });
+  await page.goto(`/w/${workspaceId}/missions/${String(mission['id'])}`);
+  await page.getByRole('tab', { name: 'Environment' }).click();
+
+  await expect(page.getByTestId('result-faces')).toBeVisible();
+  const rows = page.getByTestId('result-faces-table').locator('tbody tr');
+  await expect(rows).toHaveCount(7);
+  await expect(rows.first()).toContainText('Ram face (+x)');
+  const plate = rows.filter({ hasText: 'Sun-pointing plate' });
+  // 540 km, beta near 0: in sunlight about 63 % of the orbit at about 1,370 W/m^2 (from memory: the
+  // solar constant at 1 AU, the eclipse of a low orbit at beta 0)
+  const plateSolar = Number(((await plate.locator('td').first().textContent()) ?? '').replace(/,/g, ''));
+  expect(plateSolar).toBeGreaterThan(800);
+  expect(plateSolar).toBeLessThan(900);
+  await expect(page.getByTestId('result-flux-plot')).toContainText('Solar');
+  await expect(page.getByTestId('result-absorbed-plot')).toHaveCount(0);
+  await page.getByTestId('result-faces-table').scrollIntoViewIfNeeded();
+  await screenshot(page, 'environment-default-faces-1440-light');
+
+  // zoom: a drag across the plot narrows the time axis, the reset button shows the whole orbit again
+  const plot = page.getByTestId('result-flux-plot');
+  const svg = plot.locator('svg.ecl-plot-svg');
+  const lastTick = async () => Number((await plot.locator('g[eclPlotXAxis] .ecl-axis-tick text').last().textContent()) ?? NaN);
+  expect(await lastTick()).toBeGreaterThan(80);
+  await svg.scrollIntoViewIfNeeded();
+  const box = await svg.boundingBox();
+  if (!box) throw new Error('the plot has no box');
+  await page.mouse.move(box.x + box.width * 0.3, box.y + box.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(box.x + box.width * 0.5, box.y + box.height / 2, { steps: 5 });
+  await page.mouse.up();
+  await expect(plot.locator('.ecl-plot-zoom-reset')).toBeVisible();
+  expect(await lastTick()).toBeLessThan(60);
+  await plot.locator('.ecl-plot-zoom-reset').click();
+  await expect(plot.locator('.ecl-plot-zoom-reset')).toHaveCount(0);
+  expect(await lastTick()).toBeGreaterThan(80);
+
+  // and by keyboard: + zooms about the cursor, 0 shows the whole range
+  await svg.focus();
+  await page.keyboard.press('Home');
+  await page.keyboard.press('+');
+  await expect(plot.locator('.ecl-plot-zoom-reset')).toBeVisible();
+  expect(await lastTick()).toBeLessThan(60);
+  await page.keyboard.press('0');
+  await expect(plot.locator('.ecl-plot-zoom-reset')).toHaveCount(0);
+
+  await page.emulateMedia({ colorScheme: 'dark' });
+  await page.getByTestId('result-faces-table').scrollIntoViewIfNeeded();
+  await screenshot(page, 'environment-default-faces-1440-dark');
+  await page.setViewportSize({ width: 390, height: 844 });
+  await page.getByTestId('result-faces-table').scrollIntoViewIfNeeded();
+  await screenshot(page, 'environment-default-faces-390-dark');
 });

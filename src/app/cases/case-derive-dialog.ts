@@ -1,17 +1,16 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
-import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
-import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
+import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
+import { MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import { MatOption, MatSelect } from '@angular/material/select';
 import type { CaseDerive, CaseDetail } from '../../../shared/api/cases';
-import { apiErrorMessage } from '../api/api-error-message';
+import { dialogSubmit } from '../shell/dialog-submit';
 import { CaseApi } from './case-api';
 import { MarginFields, marginGroup } from './margin-fields';
-import { missionOrbitChoice } from './mission-orbit-choice';
+import { MissionOrbitPicker, missionOrbitChoice } from './mission-orbit-picker';
 
 export interface CaseDeriveData {
   readonly workspaceId: string;
@@ -23,7 +22,7 @@ export interface CaseDeriveData {
   selector: 'ecl-case-derive-dialog',
   imports: [
     ReactiveFormsModule, MatButton, MatButtonToggleGroup, MatButtonToggle, MatDialogTitle, MatDialogContent, MatDialogActions,
-    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatInput, MatSelect, MatOption, MatProgressBar, MarginFields,
+    MatDialogClose, MatFormField, MatLabel, MatHint, MatInput, MatProgressBar, MarginFields, MissionOrbitPicker,
   ],
   templateUrl: './case-derive-dialog.html',
   styleUrl: './case-dialog.css',
@@ -31,7 +30,6 @@ export interface CaseDeriveData {
 })
 export class CaseDeriveDialog {
   private readonly api = inject(CaseApi);
-  private readonly dialogRef = inject<MatDialogRef<CaseDeriveDialog, CaseDetail[]>>(MatDialogRef);
   private readonly data = inject<CaseDeriveData>(MAT_DIALOG_DATA);
 
   protected readonly form = inject(NonNullableFormBuilder).group({
@@ -43,36 +41,18 @@ export class CaseDeriveDialog {
     margins: marginGroup(inject(NonNullableFormBuilder)),
   });
   protected readonly choice = missionOrbitChoice(this.api, this.data.workspaceId, this.form.controls.missionId, this.form.controls.orbitId);
-  protected readonly orbitHint = computed(() => {
-    const m = this.choice.mission();
-    if (m.status !== 'ready' || m.value === null) return '';
-    return m.value.orbits.length === 0 ? 'This mission has no orbit yet.' : `Mission ${m.value.startDate} to ${m.value.endDate}`;
-  });
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  protected readonly submit = dialogSubmit<CaseDetail[]>(this.form);
 
   protected deriveCases(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const v = this.form.getRawValue();
-    const body: CaseDerive = {
-      orbitId: v.orbitId,
-      ...(v.name.trim() ? { name: v.name.trim() } : {}),
-      properties: { hot: v.hot, cold: v.cold },
-      margins: v.margins,
-    };
-    this.busy.set(true);
-    this.failure.set(null);
-    this.form.disable();
-    this.api.derive(v.missionId, body).subscribe({
-      next: (cases) => this.dialogRef.close(cases),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        this.form.enable();
-        this.failure.set(apiErrorMessage(failure));
-      },
+    this.submit.submit(() => {
+      const v = this.form.getRawValue();
+      const body: CaseDerive = {
+        orbitId: v.orbitId,
+        ...(v.name.trim() ? { name: v.name.trim() } : {}),
+        properties: { hot: v.hot, cold: v.cold },
+        margins: v.margins,
+      };
+      return this.api.derive(v.missionId, body);
     });
   }
 }

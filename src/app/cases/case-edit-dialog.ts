@@ -2,12 +2,12 @@ import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import type { CaseDetail, CaseUpdate } from '../../../shared/api/cases';
-import { apiErrorMessage } from '../api/api-error-message';
+import { dialogSubmit } from '../shell/dialog-submit';
 import { CaseApi } from './case-api';
 import { MarginFields, marginGroup } from './margin-fields';
 
@@ -32,19 +32,19 @@ import { MarginFields, marginGroup } from './margin-fields';
         </mat-form-field>
         <ecl-margin-fields [group]="form.controls.margins" testIdPrefix="edit" />
       </form>
-      @if (busy()) {
+      @if (submit.busy()) {
         <mat-progress-bar mode="indeterminate" aria-label="Saving and recomputing" />
       }
-      @if (failure(); as message) {
+      @if (submit.failure(); as message) {
         <p class="ecl-error refusal" role="alert" data-testid="edit-error">{{ message }}</p>
       }
     </mat-dialog-content>
     <mat-dialog-actions align="end">
-      <button mat-button type="button" mat-dialog-close [disabled]="busy()">Cancel</button>
+      <button mat-button type="button" mat-dialog-close [disabled]="submit.busy()">Cancel</button>
       @if (stale()) {
-        <button mat-stroked-button type="button" (click)="loadLatest()" [disabled]="busy()" data-testid="edit-reload">Load the latest</button>
+        <button mat-stroked-button type="button" (click)="loadLatest()" [disabled]="submit.busy()" data-testid="edit-reload">Load the latest</button>
       }
-      <button mat-flat-button type="submit" form="edit-form" [disabled]="busy()" data-testid="edit-save">Save</button>
+      <button mat-flat-button type="submit" form="edit-form" [disabled]="submit.busy()" data-testid="edit-save">Save</button>
     </mat-dialog-actions>
   `,
   styleUrl: './case-dialog.css',
@@ -52,51 +52,34 @@ import { MarginFields, marginGroup } from './margin-fields';
 })
 export class CaseEditDialog {
   private readonly api = inject(CaseApi);
-  private readonly dialogRef = inject<MatDialogRef<CaseEditDialog, CaseDetail>>(MatDialogRef);
   protected readonly c = inject<CaseDetail>(MAT_DIALOG_DATA);
 
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: [this.c.name, [Validators.required, Validators.maxLength(120)]],
     margins: marginGroup(inject(NonNullableFormBuilder), this.c.inputs.margins),
   });
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  protected readonly submit = dialogSubmit<CaseDetail>(this.form);
   /** Someone changed the draft since this dialog opened: the server kept their change (409). */
   protected readonly stale = signal(false);
 
   protected saveCase(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const v = this.form.getRawValue();
-    const body: CaseUpdate = {
-      // The version this edit was made on: if the draft changed meanwhile the server answers 409.
-      version: this.c.version,
-      ...(v.name.trim() !== this.c.name ? { name: v.name.trim() } : {}),
-      margins: v.margins,
-    };
-    this.busy.set(true);
-    this.failure.set(null);
-    this.api.update(this.c.id, body).subscribe({
-      next: (saved) => this.dialogRef.close(saved),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        this.stale.set(failure instanceof HttpErrorResponse && failure.status === 409 && this.c.status === 'draft');
-        this.failure.set(apiErrorMessage(failure));
+    this.submit.submit(
+      () => {
+        const v = this.form.getRawValue();
+        const body: CaseUpdate = {
+          // The version this edit was made on: if the draft changed meanwhile the server answers 409.
+          version: this.c.version,
+          ...(v.name.trim() !== this.c.name ? { name: v.name.trim() } : {}),
+          margins: v.margins,
+        };
+        return this.api.update(this.c.id, body);
       },
-    });
+      (failure) => this.stale.set(failure instanceof HttpErrorResponse && failure.status === 409 && this.c.status === 'draft'),
+    );
   }
 
   /** Closes with the stored draft, so the page shows the other change; the user edits again from there. */
   protected loadLatest(): void {
-    this.busy.set(true);
-    this.api.get(this.c.id).subscribe({
-      next: (latest) => this.dialogRef.close(latest),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        this.failure.set(apiErrorMessage(failure));
-      },
-    });
+    this.submit.send(this.api.get(this.c.id));
   }
 }

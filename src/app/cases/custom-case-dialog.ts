@@ -1,18 +1,17 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
-import { MatOption, MatSelect } from '@angular/material/select';
 import type { CaseCreate, CaseDetail } from '../../../shared/api/cases';
-import { apiErrorMessage } from '../api/api-error-message';
+import { dialogSubmit } from '../shell/dialog-submit';
 import { CaseApi } from './case-api';
 import type { CaseDeriveData } from './case-derive-dialog';
 import { CaseTreatmentToggles } from './case-treatment-toggles';
 import { MarginFields, marginGroup } from './margin-fields';
-import { missionOrbitChoice } from './mission-orbit-choice';
+import { MissionOrbitPicker, missionOrbitChoice } from './mission-orbit-picker';
 import { isoDateValidator } from '../time/iso-date-validator';
 
 /** A case the engineer defines: a date (and with it the Sun), or a fixed beta, an attitude, a property set. */
@@ -20,7 +19,7 @@ import { isoDateValidator } from '../time/iso-date-validator';
   selector: 'ecl-custom-case-dialog',
   imports: [
     ReactiveFormsModule, MatButton, CaseTreatmentToggles, MatDialogTitle, MatDialogContent, MatDialogActions,
-    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatSelect, MatOption, MatProgressBar, MarginFields,
+    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatProgressBar, MarginFields, MissionOrbitPicker,
   ],
   templateUrl: './custom-case-dialog.html',
   styleUrl: './case-dialog.css',
@@ -28,7 +27,6 @@ import { isoDateValidator } from '../time/iso-date-validator';
 })
 export class CustomCaseDialog {
   private readonly api = inject(CaseApi);
-  private readonly dialogRef = inject<MatDialogRef<CustomCaseDialog, CaseDetail>>(MatDialogRef);
   private readonly data = inject<CaseDeriveData>(MAT_DIALOG_DATA);
 
   protected readonly form = inject(NonNullableFormBuilder).group({
@@ -43,8 +41,7 @@ export class CustomCaseDialog {
     margins: marginGroup(inject(NonNullableFormBuilder)),
   });
   protected readonly choice = missionOrbitChoice(this.api, this.data.workspaceId, this.form.controls.missionId, this.form.controls.orbitId);
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  protected readonly submit = dialogSubmit<CaseDetail>(this.form);
 
   protected missionStart(): string {
     const m = this.choice.mission();
@@ -54,29 +51,19 @@ export class CustomCaseDialog {
   protected createCase(): void {
     // An empty date means the mission's first day, as the hint says.
     if (this.form.controls.date.value === '' && this.missionStart() !== '') this.form.controls.date.setValue(this.missionStart());
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const v = this.form.getRawValue();
-    const body: CaseCreate = {
-      orbitId: v.orbitId,
-      name: v.name.trim(),
-      date: v.date,
-      ...(v.betaDeg !== null ? { betaDeg: v.betaDeg } : {}),
-      properties: v.properties,
-      marginDirection: v.marginDirection,
-      ...(v.attitude.trim() ? { attitude: v.attitude.trim() } : {}),
-      margins: v.margins,
-    };
-    this.busy.set(true);
-    this.failure.set(null);
-    this.api.create(v.missionId, body).subscribe({
-      next: (made) => this.dialogRef.close(made),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        this.failure.set(apiErrorMessage(failure));
-      },
+    this.submit.submit(() => {
+      const v = this.form.getRawValue();
+      const body: CaseCreate = {
+        orbitId: v.orbitId,
+        name: v.name.trim(),
+        date: v.date,
+        ...(v.betaDeg !== null ? { betaDeg: v.betaDeg } : {}),
+        properties: v.properties,
+        marginDirection: v.marginDirection,
+        ...(v.attitude.trim() ? { attitude: v.attitude.trim() } : {}),
+        margins: v.margins,
+      };
+      return this.api.create(v.missionId, body);
     });
   }
 }

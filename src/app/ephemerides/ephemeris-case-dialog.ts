@@ -1,16 +1,16 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import type { Observable } from 'rxjs';
 import type { CaseDetail } from '../../../shared/api/cases';
 import type { EphemerisSummary } from '../../../shared/api/ephemerides';
-import { apiErrorMessage } from '../api/api-error-message';
 import { CaseTreatmentToggles } from '../cases/case-treatment-toggles';
 import { MarginFields, marginGroup } from '../cases/margin-fields';
+import { dialogSubmit } from '../shell/dialog-submit';
 import { EphemerisApi } from './ephemeris-api';
 import { windowText } from './ephemeris-window';
 
@@ -46,17 +46,17 @@ export interface EphemerisCaseData {
         <ecl-case-treatment-toggles [properties]="form.controls.properties" [marginDirection]="form.controls.marginDirection" />
         <ecl-margin-fields [group]="form.controls.margins" testIdPrefix="ephemeris-case" />
       </form>
-      @if (busy()) {
+      @if (submit.busy()) {
         <mat-progress-bar mode="indeterminate" aria-label="Computing the case along the ephemeris" />
         <p class="ecl-muted" role="status">Computing the loads at {{ data.ephemeris.rows > 100000 ? 'up to ' : '' }}every row of the window…</p>
       }
-      @if (failure(); as message) {
+      @if (submit.failure(); as message) {
         <p class="ecl-error" role="alert" data-testid="ephemeris-case-error">{{ message }}</p>
       }
     </mat-dialog-content>
     <mat-dialog-actions align="end">
-      <button mat-button type="button" mat-dialog-close [disabled]="busy()">Cancel</button>
-      <button mat-flat-button type="submit" form="ephemeris-case-form" [disabled]="busy()" data-testid="ephemeris-case-submit">Create case</button>
+      <button mat-button type="button" mat-dialog-close [disabled]="submit.busy()">Cancel</button>
+      <button mat-flat-button type="submit" form="ephemeris-case-form" [disabled]="submit.busy()" data-testid="ephemeris-case-submit">Create case</button>
     </mat-dialog-actions>
   `,
   styleUrl: '../cases/case-dialog.css',
@@ -64,7 +64,6 @@ export interface EphemerisCaseData {
 })
 export class EphemerisCaseDialog {
   private readonly api = inject(EphemerisApi);
-  private readonly dialogRef = inject<MatDialogRef<EphemerisCaseDialog, CaseDetail>>(MatDialogRef);
   protected readonly data = inject<EphemerisCaseData>(MAT_DIALOG_DATA);
   protected readonly window = windowText(this.data.from, this.data.to);
 
@@ -74,33 +73,18 @@ export class EphemerisCaseDialog {
     marginDirection: ['increase' as 'increase' | 'decrease'],
     margins: marginGroup(inject(NonNullableFormBuilder)),
   });
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  protected readonly submit = dialogSubmit<CaseDetail>(this.form);
 
   static open(dialog: MatDialog, data: EphemerisCaseData): Observable<CaseDetail | undefined> {
     return dialog.open<EphemerisCaseDialog, EphemerisCaseData, CaseDetail>(EphemerisCaseDialog, { data, width: '640px' }).afterClosed();
   }
 
   protected createCase(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const v = this.form.getRawValue();
-    this.busy.set(true);
-    this.failure.set(null);
-    this.form.disable();
-    this.api
-      .createCase(this.data.missionId, this.data.ephemeris.id, {
+    this.submit.submit(() => {
+      const v = this.form.getRawValue();
+      return this.api.createCase(this.data.missionId, this.data.ephemeris.id, {
         name: v.name.trim(), from: this.data.from, to: this.data.to, properties: v.properties, marginDirection: v.marginDirection, margins: v.margins,
-      })
-      .subscribe({
-        next: (made) => this.dialogRef.close(made),
-        error: (failure: unknown) => {
-          this.busy.set(false);
-          this.form.enable();
-          this.failure.set(apiErrorMessage(failure));
-        },
       });
+    });
   }
 }

@@ -1,6 +1,7 @@
 // Plot inputs from the environment along an ephemeris: altitude, sunlit fraction and each surface's
 // loads against UTC time, and the eclipse bands (umbra and penumbra) to shade behind them.
 import type { TrajectoryEnvironmentResponse } from '../../../shared/api/ephemerides';
+import { seriesLook } from '../plots/plot-colors';
 import type { PlotBand, PlotSeries } from '../plots/plot-series';
 
 type Points = TrajectoryEnvironmentResponse['points'];
@@ -30,16 +31,15 @@ export function fluxSeries(points: Points, surfaceIndex: number): PlotSeries[] {
   ];
 }
 
-/** Absorbed power of every surface, each its own line (dashed alternately so they stay apart without colour). */
+/** Absorbed power of every surface, each its own line in the series colours (dashed alternately so they stay apart without colour). */
 export function absorbedSeries(points: Points): PlotSeries[] {
   const t = times(points);
   const names = points[0]?.surfaces.map((s) => s.name) ?? [];
-  const colours = ['--ecl-absorbed', '--ecl-solar', '--ecl-albedo', '--ecl-ir', '--mat-sys-primary', '--ecl-hot', '--ecl-cold'];
   return names.map((name, k) => ({
     id: `absorbed-${k}`,
     label: name,
     unit: 'W',
-    colorVar: colours[k % colours.length],
+    colorVar: seriesLook(k).colorVar,
     dash: k % 2 === 1,
     points: points.map((p, i) => ({ x: t[i], y: p.surfaces[k]?.absorbedW ?? NaN })),
   }));

@@ -1,6 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { HttpErrorResponse } from '@angular/common/http';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
@@ -11,7 +10,7 @@ import { MatOption, MatSelect } from '@angular/material/select';
 import { Observable } from 'rxjs';
 import type { BodySummaryResponse } from '../../../shared/api/environment';
 import type { Mission } from '../../../shared/api/missions';
-import { apiErrorMessage } from '../api/api-error-message';
+import { dialogSubmit, refusalDetails } from '../shell/dialog-submit';
 import { MissionApi } from './mission-api';
 import { isoDateValidator } from '../time/iso-date-validator';
 
@@ -63,13 +62,13 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
           <mat-hint>Optional; what the mission is for.</mat-hint>
         </mat-form-field>
         <mat-checkbox formControlName="crewed" data-testid="mission-crewed">Crewed vehicle</mat-checkbox>
-        @if (failure(); as message) {
+        @if (submit.failure(); as message) {
           <p class="ecl-error" role="alert" data-testid="mission-form-error">{{ message }}</p>
         }
       </mat-dialog-content>
       <mat-dialog-actions align="end">
         <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="busy()" data-testid="mission-save">
+        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="mission-save">
           {{ data.mission ? 'Save' : 'Create mission' }}
         </button>
       </mat-dialog-actions>
@@ -98,8 +97,6 @@ export class MissionFormDialog {
   protected readonly data = inject<MissionFormData>(MAT_DIALOG_DATA);
   protected readonly dialogRef = inject<MatDialogRef<MissionFormDialog, Mission>>(MatDialogRef);
   protected readonly bodies = toSignal<BodySummaryResponse[]>(this.api.bodies$);
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
   protected readonly problems = signal<Partial<Record<MissionFieldName, string>>>({});
 
   protected readonly form = inject(NonNullableFormBuilder).group({
@@ -110,6 +107,7 @@ export class MissionFormDialog {
     endDate: [this.data.mission?.endDate ?? '', [Validators.required, isoDateValidator]],
     crewed: this.data.mission?.crewed ?? false,
   });
+  protected readonly submit = dialogSubmit<Mission>(this.form);
 
   static open(dialog: MatDialog, data: MissionFormData): Observable<Mission | undefined> {
     return dialog.open<MissionFormDialog, MissionFormData, Mission>(MissionFormDialog, { data, width: '560px' }).afterClosed();
@@ -121,28 +119,23 @@ export class MissionFormDialog {
     if (value.startDate && value.endDate && value.endDate < value.startDate) {
       this.showProblem('endDate', 'the mission ends before it starts');
     }
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const body = { ...value, name: value.name.trim(), bodyId: value.bodyId as Mission['bodyId'] };
-    const mission = this.data.mission;
-    const request = mission ? this.api.updateMission(mission.id, body) : this.api.createMission({ workspaceId: this.data.workspaceId, ...body });
-    this.busy.set(true);
-    this.failure.set(null);
-    request.subscribe({
-      next: (saved) => this.dialogRef.close(saved),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        const details = failure instanceof HttpErrorResponse ? (failure.error as { error?: { details?: { path?: string; message: string }[] } } | null)?.error?.details ?? [] : [];
+    this.submit.submit(
+      () => {
+        const body = { ...value, name: value.name.trim(), bodyId: value.bodyId as Mission['bodyId'] };
+        const mission = this.data.mission;
+        return mission ? this.api.updateMission(mission.id, body) : this.api.createMission({ workspaceId: this.data.workspaceId, ...body });
+      },
+      (failure) => {
+        // Each detail under its field; the message above the buttons only for what no field shows.
+        const details = refusalDetails(failure);
         let unplaced = details.length === 0;
         for (const d of details) {
           if (d.path && d.path in this.form.controls) this.showProblem(d.path as MissionFieldName, d.message);
           else unplaced = true;
         }
-        if (unplaced) this.failure.set(apiErrorMessage(failure));
+        return unplaced ? undefined : 'placed';
       },
-    });
+    );
   }
 
   private showProblem(field: MissionFieldName, message: string): void {

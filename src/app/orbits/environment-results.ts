@@ -5,7 +5,7 @@ import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatOption, MatSelect } from '@angular/material/select';
-import { distinctUntilChanged, switchMap } from 'rxjs';
+import { distinctUntilChanged, of, switchMap } from 'rxjs';
 import type { BodySummaryResponse, EnvironmentResponse } from '../../../shared/api/environment';
 import type { MissionDetail, Orbit } from '../../../shared/api/missions';
 import { loaded } from '../api/loaded';
@@ -17,6 +17,10 @@ import { DurationPipe } from '../time/duration-pipe';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { OrbitView } from './orbit-view';
 import { nearestIndex } from '../plots/plot-scales';
+import { defaultFacesRequest, faceAverages } from './default-faces';
+
+/** The face plotted first: the Sun-pointing plate, the largest solar load. */
+const DEFAULT_FACE_SHOWN = 6;
 
 /** One saved orbit's environment with the mission's surfaces: figures, plots around the orbit, averages. */
 @Component({
@@ -62,14 +66,43 @@ export class EnvironmentResults {
   });
 
   protected readonly surfaceNames = computed(() => this.answer()?.orbitAverage.surfaces.map((s) => s.name) ?? []);
+
+  // Without surfaces: the incident fluxes on the six body-frame faces and a Sun-pointing plate,
+  // asked once the saved orbit's answer says how it was sampled (default-faces.ts).
+  private readonly facesRequest = computed(() => {
+    const a = this.answer();
+    return a && a.orbitAverage.surfaces.length === 0 ? defaultFacesRequest(this.mission(), this.orbit(), a.sampling) : null;
+  });
+  protected readonly faces = toSignal(
+    toObservable(this.facesRequest).pipe(
+      distinctUntilChanged((a, b) => JSON.stringify(a) === JSON.stringify(b)),
+      switchMap((r) => (r ? this.api.compute(r).pipe(loaded()) : of(null))),
+    ),
+  );
+  protected readonly facesAnswer = computed<EnvironmentResponse | null>(() => {
+    const state = this.faces();
+    return state?.status === 'ready' ? state.value : null;
+  });
+  protected readonly faceIndex = signal(DEFAULT_FACE_SHOWN);
+  protected readonly faceNames = computed(() => this.facesAnswer()?.orbitAverage.surfaces.map((s) => s.name) ?? []);
+  private readonly shownFace = computed(() => Math.min(this.faceIndex(), Math.max(0, this.faceNames().length - 1)));
+
+  /** No surfaces: the flux plot shows the default faces instead. */
+  protected readonly bare = computed(() => this.answer() !== null && this.surfaceNames().length === 0);
+  protected readonly plotNames = computed(() => (this.bare() ? this.faceNames() : this.surfaceNames()));
+  protected readonly plotIndex = computed(() => (this.bare() ? this.shownFace() : this.shownIndex()));
+  protected readonly plotName = computed(() => this.plotNames().at(this.plotIndex()) ?? '');
+  protected readonly flux = computed(() => {
+    const a = this.bare() ? this.facesAnswer() : this.answer();
+    return a && a.profile.length > 0 && this.plotNames().length > 0 ? fluxSeries(a.profile, this.plotIndex()) : [];
+  });
+  protected readonly faceRows = computed(() => {
+    const a = this.facesAnswer();
+    return a ? faceAverages(a) : [];
+  });
   private readonly shownIndex = computed(() => Math.min(this.surfaceIndex(), Math.max(0, this.surfaceNames().length - 1)));
-  protected readonly shownName = computed(() => this.surfaceNames()[this.shownIndex()] ?? '');
   protected readonly bands = computed(() => eclipseBands(this.answer()?.profile ?? [], this.answer()?.parentBodyId ?? null));
   protected readonly parentName = computed(() => bodyName(this.answer()?.parentBodyId ?? ''));
-  protected readonly flux = computed(() => {
-    const a = this.answer();
-    return a && a.profile.length > 0 && this.surfaceNames().length > 0 ? fluxSeries(a.profile, this.shownIndex()) : [];
-  });
   protected readonly absorbed = computed(() => {
     const a = this.answer();
     return a && a.profile.length > 0 && this.surfaceNames().length > 0 ? absorbedSeries(a.profile, this.shownIndex()) : [];
@@ -95,6 +128,10 @@ export class EnvironmentResults {
     if (minutes === null || !profile) return;
     const i = nearestIndex(profile.map((p) => ({ x: p.tS / 60, y: 0 })), minutes);
     if (i >= 0) this.sampleIndex.set(i);
+  }
+
+  protected choosePlotted(index: number): void {
+    (this.bare() ? this.faceIndex : this.surfaceIndex).set(index);
   }
 
   protected setProperties(value: PropertySet): void {

@@ -9,7 +9,7 @@ import { MissionApi, type PropertySet } from '../missions/mission-api';
 import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import type { PlotSeries } from '../plots/plot-series';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
-import { castByText, sweepCsvColumns, sweepSeries } from './sweep-plot-data';
+import { castByText, sweepCsvColumns, sweepExtremes, sweepSeries } from './sweep-plot-data';
 import { streamSweep } from './sweep-stream';
 
 type SweepState = 'idle' | 'running' | 'done' | 'cancelled' | 'failed';
@@ -42,6 +42,8 @@ export class MissionSweep {
   protected readonly percent = computed(() => (this.totalDays() > 0 ? (100 * this.days().length) / this.totalDays() : 0));
   protected readonly series = computed(() => sweepSeries(this.days()));
   protected readonly absorbed = computed<readonly PlotSeries[]>(() => this.series().absorbed);
+  /** Each quantity's lowest and highest day of those swept. */
+  protected readonly extremes = computed(() => sweepExtremes(this.days()));
   /** About a moon: the day whose longest shadow (its planet's included) is the longest of those shown. */
   protected readonly longestShadow = computed<SweepDay | null>(() => {
     const withParent = this.days().filter((d) => d.longestShadowStart !== null);

@@ -1,10 +1,8 @@
 // Plot inputs and the CSV file from the sweep's day lines; x is the day's date (UTC midnight).
 import type { SweepDay } from '../../../shared/api/missions';
 import type { CsvColumn } from '../plots/csv-download';
+import { seriesLook } from '../plots/plot-colors';
 import type { PlotSeries } from '../plots/plot-series';
-
-// Distinct theme colours for up to six surfaces on one plot; dashes tell the next six apart.
-const SURFACE_COLORS = ['--ecl-absorbed', '--ecl-solar', '--ecl-albedo', '--ecl-ir', '--mat-sys-primary', '--ecl-accent'];
 
 const dateMs = (date: string): number => Date.parse(`${date.slice(0, 10)}T00:00:00Z`);
 
@@ -50,8 +48,7 @@ export function sweepSeries(days: readonly SweepDay[]): SweepSeries {
       id: s.id,
       label: s.name,
       unit: 'W',
-      colorVar: SURFACE_COLORS[i % SURFACE_COLORS.length],
-      dash: i >= SURFACE_COLORS.length,
+      ...seriesLook(i),
       points: days.map((d) => ({ x: dateMs(d.date), y: d.surfaces.find((x) => x.surfaceId === s.id)?.absorbedW ?? NaN })),
     })),
   };
@@ -74,4 +71,48 @@ export function sweepCsvColumns(days: readonly SweepDay[]): CsvColumn[] {
     { header: 'Longest shadow', unit: 'min', values: days.map((d) => d.longestShadowS / 60) },
     { header: 'Longest shadow cast by', values: days.map(castByText) },
   ];
+}
+
+/** One quantity's lowest and highest value over the days swept, each with its (first) date. */
+export interface SweepExtreme {
+  readonly label: string;
+  readonly unit: string;
+  /** DecimalPipe digits for the values. */
+  readonly digits: string;
+  readonly min: { readonly value: number; readonly date: string };
+  readonly max: { readonly value: number; readonly date: string };
+}
+
+/**
+ * Each quantity of the sweep answer at its minimum and maximum over the days (the first day on a
+ * tie; days without a finite value are skipped): beta, eclipse duration and fraction, Sun distance
+ * and flux, each surface's orbit-average absorbed heat, and about a moon the longest shadow.
+ */
+export function sweepExtremes(days: readonly SweepDay[]): SweepExtreme[] {
+  const names = days[0]?.surfaces.map((s) => ({ id: s.surfaceId, name: s.name })) ?? [];
+  const quantities: { label: string; unit: string; digits: string; of: (d: SweepDay) => number | undefined }[] = [
+    { label: 'Beta angle', unit: 'deg', digits: '1.1-1', of: (d) => d.betaDeg },
+    { label: 'Eclipse duration', unit: 'min', digits: '1.2-2', of: (d) => d.eclipseDurationS / 60 },
+    { label: 'Eclipse fraction', unit: '%', digits: '1.2-2', of: (d) => d.eclipseFraction * 100 },
+    { label: 'Sun distance', unit: 'AU', digits: '1.4-4', of: (d) => d.solarDistanceAu },
+    { label: 'Solar flux', unit: 'W/m²', digits: '1.0-0', of: (d) => d.solarFluxWm2 },
+    ...names.map((s) => ({
+      label: `${s.name}, orbit-average absorbed`,
+      unit: 'W',
+      digits: '1.2-2',
+      of: (d: SweepDay) => d.surfaces.find((x) => x.surfaceId === s.id)?.absorbedW,
+    })),
+    ...(hasParentShadow(days) ? [{ label: "Longest shadow, the planet's included", unit: 'min', digits: '1.1-1', of: (d: SweepDay) => d.longestShadowS / 60 }] : []),
+  ];
+  return quantities.flatMap((q) => {
+    let min: { value: number; date: string } | null = null;
+    let max: { value: number; date: string } | null = null;
+    for (const d of days) {
+      const value = q.of(d);
+      if (value === undefined || !Number.isFinite(value)) continue;
+      if (min === null || value < min.value) min = { value, date: d.date.slice(0, 10) };
+      if (max === null || value > max.value) max = { value, date: d.date.slice(0, 10) };
+    }
+    return min && max ? [{ label: q.label, unit: q.unit, digits: q.digits, min, max }] : [];
+  });
 }

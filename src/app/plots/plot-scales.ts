@@ -34,6 +34,19 @@ export function niceDomain(values: Iterable<number>, tickCount = 5): [number, nu
   return nice(lo, hi, tickCount);
 }
 
+/**
+ * A nice domain kept inside a physical range (a beta angle within ±90°, a sunlit fraction within
+ * 0..1, a flow at or above 0): nice rounding and the room around a flat line never carry an axis past
+ * what the quantity can be. A domain wholly outside the range (bad data) is left as it is, so the
+ * data stays visible.
+ */
+export function clampDomain(domain: readonly [number, number], range: readonly [number, number] | undefined): [number, number] {
+  if (!range) return [domain[0], domain[1]];
+  const lo = Math.max(domain[0], range[0]);
+  const hi = Math.min(domain[1], range[1]);
+  return hi > lo ? [lo, hi] : [domain[0], domain[1]];
+}
+
 /** [min, max] of the finite values; [Infinity, -Infinity] when there are none. */
 export function finiteExtent(values: Iterable<number>): [number, number] {
   let lo = Infinity;
@@ -79,7 +92,7 @@ export function buildXScale(kind: XKind, domain: readonly [number, number], widt
 }
 
 /** Index of the point whose x is nearest to `x` (the lower one on a tie); -1 for no points. */
-export function nearestIndex(points: readonly PlotPoint[], x: number): number {
+export function nearestIndex(points: readonly { readonly x: number }[], x: number): number {
   const n = points.length;
   if (n === 0 || Number.isNaN(x)) return -1;
   // Binary search for the first point with x >= target.

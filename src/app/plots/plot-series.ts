@@ -69,3 +69,23 @@ export interface PlotGutters {
   readonly left?: number;
   readonly right?: number;
 }
+
+/**
+ * Where y can physically lie, so an axis never runs past it: 'non-negative' (fluxes, heat, flows,
+ * durations), 'fraction' (0..1, a sunlit fraction), 'beta' (−90..90°), or [low, high] (±Infinity for
+ * an open end).
+ */
+export type PhysicalRange = 'non-negative' | 'fraction' | 'beta' | readonly [number, number];
+
+export function physicalRange(range: PhysicalRange | undefined): readonly [number, number] | undefined {
+  switch (range) {
+    case 'non-negative':
+      return [0, Infinity];
+    case 'fraction':
+      return [0, 1];
+    case 'beta':
+      return [-90, 90];
+    default:
+      return range;
+  }
+}

@@ -1,9 +1,10 @@
 // On/off strips over time, one row each (heaters, switched dissipation), drawn with the same x axis
 // as TimeSeriesPlot so the two line up one above the other with a shared xDomain.
-import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, model, type Signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { cssColor } from './plot-colors';
 import { axisTitle, formatValue, formatX } from './plot-format';
+import { CURSOR_HINT, PlotCursor } from './plot-cursor';
 import { buildXScale, xDomainOf } from './plot-scales';
 import type { PlotBand, PlotGutters, StripRow, XKind } from './plot-series';
 import { observePlotWidth } from './plot-width';
@@ -34,26 +35,45 @@ export class StripPlot {
   /** Set it to the TimeSeriesPlot's range above to line the two up; by default the segments' range. */
   readonly xDomain = input<readonly [number, number] | undefined>(undefined);
   readonly bands = input<readonly PlotBand[]>([]);
+  /**
+   * The zoomed x range (null: the whole range). Bind it two-way, `[(zoomed)]`, to one signal on
+   * plots stacked with a shared xDomain so a zoom on one zooms them all.
+   */
+  readonly zoomed = model<readonly [number, number] | null>(null);
   readonly rowHeight = input(22);
   /** Minimum left and right margins in px: give a StripPlot and a TimeSeriesPlot the same (wider than either's
    * own labels need) to align their x axes. */
   readonly gutters = input<PlotGutters>({});
 
   private readonly width = observePlotWidth();
-  private readonly cursorX = signal<number | null>(null);
-  protected readonly showTable = signal(false);
-  protected readonly announcement = signal('');
+  protected readonly cursorHint = CURSOR_HINT;
   protected readonly clipId = `ecl-strip-clip-${nextStripId}`;
   protected readonly hintId = `ecl-strip-hint-${nextStripId++}`;
 
   protected readonly xTitle = computed(() => axisTitle(this.xLabel(), this.xKind() === 'date' ? 'UTC' : this.xUnit()));
 
-  private readonly domain = computed<readonly [number, number]>(() => {
+  private readonly fullDomain = computed<readonly [number, number]>(() => {
     const fixed = this.xDomain();
     if (fixed) return fixed;
     const xs = this.rows().flatMap((r) => r.segments.flatMap((s) => [s.from, s.to]));
     return xDomainOf(xs.length > 0 ? xs : this.bands().flatMap((b) => [b.from, b.to]));
   });
+  protected readonly pointer: PlotCursor = new PlotCursor({
+    fullDomain: this.fullDomain,
+    geometry: () => {
+      const l = this.layout();
+      return { x: l.x, left: l.margin.left, innerWidth: l.innerWidth };
+    },
+    // on and off periods have no samples: the cursor moves freely
+    stops: () => null,
+    sentence: (at) => {
+      const readout = this.readout(at);
+      return [readout.x, ...readout.states.map((s) => `${s.label} ${s.state}`)].join('; ');
+    },
+    xText: (at) => formatX(at, this.xKind(), this.xUnit()),
+    zoom: this.zoomed,
+  });
+  private readonly domain: Signal<readonly [number, number]> = this.pointer.domain;
 
   protected readonly layout = computed(() => {
     const rows = this.rows();
@@ -112,7 +132,7 @@ export class StripPlot {
   });
 
   protected readonly cursor = computed(() => {
-    const at = this.cursorX();
+    const at = this.pointer.shownX();
     if (at === null) return null;
     const layout = this.layout();
     const px = layout.x.toPx(at);
@@ -122,7 +142,7 @@ export class StripPlot {
   });
 
   protected readonly table = computed(() => {
-    if (!this.showTable()) return null;
+    if (!this.pointer.showTable()) return null;
     const domain = this.domain();
     const [kind, unit] = [this.xKind(), this.xUnit()];
     return this.rows().map((r) => ({
@@ -133,53 +153,6 @@ export class StripPlot {
         .join('; '),
     }));
   });
-
-  protected toggleTable(): void {
-    this.showTable.update((shown) => !shown);
-  }
-
-  protected trackPointer(event: MouseEvent): void {
-    const target = event.currentTarget;
-    if (!(target instanceof Element)) return;
-    const layout = this.layout();
-    const px = event.clientX - target.getBoundingClientRect().left - layout.margin.left;
-    this.cursorX.set(px < 0 || px > layout.innerWidth ? null : layout.x.fromPx(px));
-  }
-
-  protected hideCursor(): void {
-    this.cursorX.set(null);
-  }
-
-  /** Arrows step 1 % of the range (Shift: 10 %), Home/End jump to the ends, Escape hides. */
-  protected moveCursor(event: KeyboardEvent): void {
-    const [d0, d1] = this.domain();
-    const step = ((d1 - d0) / 100) * (event.shiftKey ? 10 : 1);
-    const current = this.cursorX();
-    let next: number;
-    switch (event.key) {
-      case 'ArrowRight':
-        next = current === null ? d0 : Math.min(d1, current + step);
-        break;
-      case 'ArrowLeft':
-        next = current === null ? d1 : Math.max(d0, current - step);
-        break;
-      case 'Home':
-        next = d0;
-        break;
-      case 'End':
-        next = d1;
-        break;
-      case 'Escape':
-        this.cursorX.set(null);
-        return;
-      default:
-        return;
-    }
-    event.preventDefault();
-    this.cursorX.set(next);
-    const readout = this.readout(next);
-    this.announcement.set([readout.x, ...readout.states.map((s) => `${s.label} ${s.state}`)].join('; '));
-  }
 
   private readout(at: number): { x: string; states: { label: string; state: 'on' | 'off' }[] } {
     return {

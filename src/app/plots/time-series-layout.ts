@@ -3,7 +3,7 @@
 // DOM (no second renderer fighting change detection).
 import { line, scaleLinear } from 'd3';
 import { cssColor } from './plot-colors';
-import { buildXScale, niceDomain, thinForDrawing, xDomainOf, type AxisTick, type XScale } from './plot-scales';
+import { buildXScale, clampDomain, niceDomain, thinForDrawing, xDomainOf, type AxisTick, type XScale } from './plot-scales';
 import type { BandKind, LimitLine, PlotBand, PlotGutters, PlotPoint, PlotSeries, XKind } from './plot-series';
 
 export interface PlotMargin {
@@ -20,6 +20,10 @@ export interface TimeSeriesLayoutInput {
   readonly limits: readonly LimitLine[];
   readonly xKind: XKind;
   readonly xDomain: readonly [number, number] | undefined;
+  /** y follows only the samples inside xDomain (a zoomed plot), not every sample. */
+  readonly yFromShownX?: boolean;
+  /** The physical range of y; the axis stays inside it (clampDomain). */
+  readonly yRange?: readonly [number, number] | undefined;
   readonly width: number;
   readonly height: number;
   readonly gutters?: PlotGutters;
@@ -112,12 +116,16 @@ export function layoutTimeSeries(input: TimeSeriesLayoutInput): TimeSeriesLayout
 
   // The y range follows the visible series, so hiding the large solar term lets the small IR term
   // fill the plot; limit lines always stay in view.
+  // A zoomed plot scales y to the samples it shows.
+  const shownX = input.yFromShownX && input.xDomain ? input.xDomain : null;
   const yValues = function* (): Generator<number> {
-    for (const s of visible.length > 0 ? visible : input.series) for (const p of s.points) yield p.y;
+    for (const s of visible.length > 0 ? visible : input.series) {
+      for (const p of s.points) if (!shownX || (p.x >= shownX[0] && p.x <= shownX[1])) yield p.y;
+    }
     for (const l of input.limits) yield l.y;
   };
   const yTickCount = Math.max(2, Math.round(innerHeight / 40));
-  const yDomain = niceDomain(yValues(), yTickCount);
+  const yDomain = clampDomain(niceDomain(yValues(), yTickCount), input.yRange);
   const y = scaleLinear().domain(yDomain).range([innerHeight, 0]);
   const yFormat = y.tickFormat(yTickCount);
   const yTickValues = y.ticks(yTickCount);
@@ -125,7 +133,8 @@ export function layoutTimeSeries(input: TimeSeriesLayoutInput): TimeSeriesLayout
 
   const longestLabel = Math.max(1, ...yLabels.map((l) => l.length));
   const left = Math.max(Math.ceil(24 + 8 + longestLabel * TICK_CHAR_PX), input.gutters?.left ?? 0);
-  const right = Math.max(16, input.gutters?.right ?? 0);
+  // room for half the last x tick's label (a date such as 2027-09 at the right end)
+  const right = Math.max(28, input.gutters?.right ?? 0);
   const width = Math.max(left + right + 60, input.width);
   const innerWidth = width - left - right;
 

@@ -1,17 +1,20 @@
 // A line plot of one or more series against time (or any x): heat loads around the orbit,
 // temperatures, beta angle over the mission. Bands shade eclipses, limit lines mark hot and cold
-// limits, the legend toggles series, and a cursor reads values by pointer or arrow keys.
+// limits, the legend toggles series, and a cursor reads values by pointer or arrow keys; a drag or
+// the + and − keys zoom the x range (plot-cursor.ts).
 import { DOCUMENT } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, model, output, signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { buildResultCsv, downloadCsv } from './csv-download';
 import { cssColor } from './plot-colors';
 import { axisTitle } from './plot-format';
+import { CURSOR_HINT, PlotCursor } from './plot-cursor';
 import { nearestIndex } from './plot-scales';
-import type { LimitLine, PlotBand, PlotGutters, PlotSeries, XKind } from './plot-series';
+import { physicalRange, type LimitLine, type PhysicalRange, type PlotBand, type PlotGutters, type PlotSeries, type XKind } from './plot-series';
 import { observePlotWidth } from './plot-width';
 import { PlotXAxis } from './plot-x-axis';
-import { bandStyle, layoutTimeSeries } from './time-series-layout';
+import { bandStyle, layoutTimeSeries, timeSeriesXDomain } from './time-series-layout';
+import { formatX } from './plot-format';
 import { dataTable, readoutAt, readoutSentence, seriesCsvColumns, summarize } from './time-series-text';
 
 let nextPlotId = 0;
@@ -36,6 +39,8 @@ export class TimeSeriesPlot {
   readonly limits = input<readonly LimitLine[]>([]);
   /** Fixes the x range, e.g. to line up with a StripPlot below; by default the data's range. */
   readonly xDomain = input<readonly [number, number] | undefined>(undefined);
+  /** Where y can physically lie ('non-negative', 'fraction', 'beta' or [low, high]): the axis never runs past it. */
+  readonly yRange = input<PhysicalRange | undefined>(undefined);
   readonly height = input(280);
   /** Minimum left and right margins in px: give a StripPlot below the same to align the x axes. */
   readonly gutters = input<PlotGutters>({});
@@ -46,18 +51,36 @@ export class TimeSeriesPlot {
    * pointer is not over the plot. Null (the default) leaves the cursor to the pointer and keys alone.
    */
   readonly cursorAt = input<number | null>(null);
+  /**
+   * The zoomed x range (null: the whole range). Bind it two-way, `[(zoomed)]`, to one signal on
+   * plots stacked with a shared xDomain so a zoom on one zooms them all.
+   */
+  readonly zoomed = model<readonly [number, number] | null>(null);
   /** The x the user put the cursor on by pointer or keys (a sample's x), null when they hid it. */
   readonly cursorChange = output<number | null>();
 
   private readonly document = inject(DOCUMENT);
   private readonly width = observePlotWidth();
   private readonly hidden = signal<ReadonlySet<string>>(new Set());
-  private readonly ownCursorX = signal<number | null>(null);
-  private readonly cursorX = computed(() => this.ownCursorX() ?? this.cursorAt());
-  protected readonly showTable = signal(false);
-  protected readonly announcement = signal('');
+  protected readonly cursorHint = CURSOR_HINT;
   protected readonly clipId = `ecl-plot-clip-${nextPlotId}`;
   protected readonly hintId = `ecl-plot-hint-${nextPlotId++}`;
+
+  private readonly fullXDomain = computed(() => timeSeriesXDomain(this.series(), this.bands(), this.xDomain()));
+  protected readonly pointer: PlotCursor = new PlotCursor({
+    fullDomain: this.fullXDomain,
+    geometry: () => {
+      const l = this.layout();
+      return { x: l.x, left: l.margin.left, innerWidth: l.innerWidth };
+    },
+    // The cursor snaps to the samples of the first visible series.
+    stops: () => this.visibleSeries().find((s) => s.points.length > 0)?.points ?? [],
+    sentence: (x) => readoutSentence(readoutAt(this.visibleSeries(), x, this.xKind(), this.xUnit())),
+    xText: (x) => formatX(x, this.xKind(), this.xUnit()),
+    changed: (x) => this.cursorChange.emit(x),
+    external: this.cursorAt,
+    zoom: this.zoomed,
+  });
 
   protected readonly xTitle = computed(() => axisTitle(this.xLabel(), this.xKind() === 'date' ? 'UTC' : this.xUnit()));
   protected readonly yTitle = computed(() => axisTitle(this.yLabel(), this.yUnit()));
@@ -71,7 +94,9 @@ export class TimeSeriesPlot {
       bands: this.bands(),
       limits: this.limits(),
       xKind: this.xKind(),
-      xDomain: this.xDomain(),
+      xDomain: this.pointer.domain(),
+      yFromShownX: this.pointer.zoom() !== null,
+      yRange: physicalRange(this.yRange()),
       width: this.width(),
       height: this.height(),
       gutters: this.gutters(),
@@ -110,7 +135,7 @@ export class TimeSeriesPlot {
   );
 
   protected readonly cursor = computed(() => {
-    const x = this.cursorX();
+    const x = this.pointer.shownX();
     if (x === null) return null;
     const layout = this.layout();
     const px = layout.x.toPx(x);
@@ -136,7 +161,7 @@ export class TimeSeriesPlot {
   });
 
   protected readonly table = computed(() =>
-    this.showTable() ? dataTable(this.series(), { label: this.xLabel(), unit: this.xUnit() }, this.xKind()) : null,
+    this.pointer.showTable() ? dataTable(this.series(), { label: this.xLabel(), unit: this.xUnit() }, this.xKind()) : null,
   );
 
   protected toggleSeries(id: string): void {
@@ -147,77 +172,8 @@ export class TimeSeriesPlot {
     });
   }
 
-  protected toggleTable(): void {
-    this.showTable.update((shown) => !shown);
-  }
-
   protected downloadData(): void {
     const columns = seriesCsvColumns(this.series(), { label: this.xLabel(), unit: this.xUnit() }, this.xKind());
     downloadCsv(this.csvFileName(), buildResultCsv(columns), this.document);
-  }
-
-  protected trackPointer(event: MouseEvent): void {
-    const target = event.currentTarget;
-    if (!(target instanceof Element)) return;
-    const layout = this.layout();
-    const px = event.clientX - target.getBoundingClientRect().left - layout.margin.left;
-    if (px < 0 || px > layout.innerWidth) {
-      this.setCursor(null);
-      return;
-    }
-    const x = layout.x.fromPx(px);
-    const primary = this.primaryPoints();
-    const i = nearestIndex(primary, x);
-    this.setCursor(i < 0 ? x : primary[i].x);
-  }
-
-  protected hideCursor(): void {
-    this.setCursor(null);
-  }
-
-  /** Arrows step about one pixel column (Shift: ten), Home/End jump to the ends, Escape hides. */
-  protected moveCursor(event: KeyboardEvent): void {
-    const points = this.primaryPoints();
-    const n = points.length;
-    if (n === 0) return;
-    const base = Math.max(1, Math.floor(n / this.layout().innerWidth));
-    const step = event.shiftKey ? base * 10 : base;
-    const current = this.cursorX();
-    const i = current === null ? -1 : nearestIndex(points, current);
-    let next: number;
-    switch (event.key) {
-      case 'ArrowRight':
-        next = i < 0 ? 0 : Math.min(n - 1, i + step);
-        break;
-      case 'ArrowLeft':
-        next = i < 0 ? n - 1 : Math.max(0, i - step);
-        break;
-      case 'Home':
-        next = 0;
-        break;
-      case 'End':
-        next = n - 1;
-        break;
-      case 'Escape':
-        this.setCursor(null);
-        return;
-      default:
-        return;
-    }
-    event.preventDefault();
-    this.setCursor(points[next].x);
-    const x = points[next].x;
-    this.announcement.set(readoutSentence(readoutAt(this.visibleSeries(), x, this.xKind(), this.xUnit())));
-  }
-
-  private setCursor(x: number | null): void {
-    if (x === this.ownCursorX()) return;
-    this.ownCursorX.set(x);
-    this.cursorChange.emit(x);
-  }
-
-  /** The cursor snaps to the samples of the first visible series. */
-  private primaryPoints(): PlotSeries['points'] {
-    return this.visibleSeries().find((s) => s.points.length > 0)?.points ?? [];
   }
 }

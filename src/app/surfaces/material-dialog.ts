@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
@@ -6,8 +6,8 @@ import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/for
 import { MatInput } from '@angular/material/input';
 import { Observable } from 'rxjs';
 import type { Material } from '../../../shared/api/missions';
-import { apiErrorMessage } from '../api/api-error-message';
 import { MissionApi } from '../missions/mission-api';
+import { dialogSubmit } from '../shell/dialog-submit';
 
 const fraction = [Validators.required, Validators.min(0), Validators.max(1)];
 
@@ -38,13 +38,13 @@ const fraction = [Validators.required, Validators.min(0), Validators.max(1)];
           <input matInput formControlName="source" data-testid="material-source" />
           <mat-hint>A datasheet, a measurement report, a handbook table.</mat-hint>
         </mat-form-field>
-        @if (failure(); as message) {
+        @if (submit.failure(); as message) {
           <p class="ecl-error" role="alert">{{ message }}</p>
         }
       </mat-dialog-content>
       <mat-dialog-actions align="end">
         <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="busy()" data-testid="material-save">Add material</button>
+        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="material-save">Add material</button>
       </mat-dialog-actions>
     </form>
   `,
@@ -58,8 +58,6 @@ export class MaterialDialog {
   private readonly api = inject(MissionApi);
   private readonly workspaceId = inject<string>(MAT_DIALOG_DATA);
   protected readonly dialogRef = inject<MatDialogRef<MaterialDialog, Material>>(MatDialogRef);
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
   protected readonly optical = [
     { key: 'absorptivityBol', label: 'Solar absorptivity α, BOL', symbol: 'α' },
     { key: 'emissivityBol', label: 'IR emissivity ε, BOL', symbol: 'ε' },
@@ -75,24 +73,16 @@ export class MaterialDialog {
     emissivityEol: [0.5, fraction],
     source: '',
   });
+  protected readonly submit = dialogSubmit<Material>(this.form);
 
   static open(dialog: MatDialog, workspaceId: string): Observable<Material | undefined> {
     return dialog.open<MaterialDialog, string, Material>(MaterialDialog, { data: workspaceId, width: '560px' }).afterClosed();
   }
 
   protected save(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const value = this.form.getRawValue();
-    this.busy.set(true);
-    this.api.createMaterial(this.workspaceId, { ...value, name: value.name.trim(), source: value.source.trim() || undefined }).subscribe({
-      next: (made) => this.dialogRef.close(made),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        this.failure.set(apiErrorMessage(failure));
-      },
+    this.submit.submit(() => {
+      const value = this.form.getRawValue();
+      return this.api.createMaterial(this.workspaceId, { ...value, name: value.name.trim(), source: value.source.trim() || undefined });
     });
   }
 }

@@ -1,5 +1,4 @@
 import { DecimalPipe } from '@angular/common';
-import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -10,11 +9,11 @@ import { MatInput } from '@angular/material/input';
 import { MatOptgroup, MatOption, MatSelect } from '@angular/material/select';
 import { Observable, map } from 'rxjs';
 import type { Material, Surface, SurfaceCreate, SurfaceNormal } from '../../../shared/api/missions';
-import { apiErrorMessage } from '../api/api-error-message';
 import { MissionApi } from '../missions/mission-api';
 import { readQuantityText } from '../missions/quantity-text';
 import { customDirection, describeNormal, NAMED_NORMALS, NORMAL_LABELS } from './surface-normals';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
+import { dialogSubmit, refusalDetails } from '../shell/dialog-submit';
 
 export interface SurfaceDialogData {
   readonly missionId: string;
@@ -43,8 +42,6 @@ export class SurfaceDialog {
   protected readonly normalLabels = NORMAL_LABELS;
   protected readonly library = this.data.materials.filter((m) => m.workspaceId === null);
   protected readonly own = this.data.materials.filter((m) => m.workspaceId !== null);
-  protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
   protected readonly problems = signal<Partial<Record<SurfaceField, string>>>({});
 
   private readonly start = this.data.surface;
@@ -58,6 +55,7 @@ export class SurfaceDialog {
     z: this.startVector.z,
     materialId: [this.start?.materialId ?? '', Validators.required],
   });
+  protected readonly submit = dialogSubmit<Surface>(this.form);
   protected readonly normalChoice = toSignal(this.form.controls.normal.valueChanges, { initialValue: this.form.controls.normal.value });
   private readonly materialId = toSignal(this.form.controls.materialId.valueChanges, { initialValue: this.form.controls.materialId.value });
   private readonly vector = toSignal(
@@ -92,36 +90,33 @@ export class SurfaceDialog {
 
   protected save(): void {
     this.problems.set({});
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const v = this.form.getRawValue();
-    const direction = this.direction();
-    if (v.normal === 'custom' && direction === null) return;
-    // A custom direction goes as a unit vector; the note beside the fields says it was scaled.
-    const normal: SurfaceNormal = v.normal === 'custom' && direction ? { ...direction.unit } : (v.normal as SurfaceNormal);
-    const areaText = v.area.trim();
-    // A bare number is m²; text with a unit ("5000 cm^2") goes as typed, the server converts it.
-    const areaM2 = Number.isFinite(Number(areaText)) ? Number(areaText) : areaText;
-    const body: SurfaceCreate = { name: v.name.trim(), areaM2, normal, materialId: v.materialId };
-    const existing = this.data.surface;
-    const request = existing ? this.api.updateSurface(this.data.missionId, existing.id, body) : this.api.createSurface(this.data.missionId, body);
-    this.busy.set(true);
-    this.failure.set(null);
-    request.subscribe({
-      next: (saved) => this.dialogRef.close(saved),
-      error: (failure: unknown) => {
-        this.busy.set(false);
-        const details = failure instanceof HttpErrorResponse ? (failure.error as { error?: { details?: { path?: string; message: string }[] } } | null)?.error?.details ?? [] : [];
+    this.submit.submit(
+      () => {
+        const v = this.form.getRawValue();
+        const direction = this.direction();
+        if (v.normal === 'custom' && direction === null) return null;
+        // A custom direction goes as a unit vector; the note beside the fields says it was scaled.
+        const normal: SurfaceNormal = v.normal === 'custom' && direction ? { ...direction.unit } : (v.normal as SurfaceNormal);
+        const areaText = v.area.trim();
+        // A bare number is m²; text with a unit ("5000 cm^2") goes as typed, the server converts it.
+        const areaM2 = Number.isFinite(Number(areaText)) ? Number(areaText) : areaText;
+        const body: SurfaceCreate = { name: v.name.trim(), areaM2, normal, materialId: v.materialId };
+        const existing = this.data.surface;
+        return existing ? this.api.updateSurface(this.data.missionId, existing.id, body) : this.api.createSurface(this.data.missionId, body);
+      },
+      (failure) => {
+        // Each detail under its field; the message above the buttons only for what no field shows.
+        const details = refusalDetails(failure);
         const placed: Partial<Record<SurfaceField, string>> = {};
         for (const d of details) {
           const field = (d.path ?? '').split('.')[0] as SurfaceField;
           if (['name', 'areaM2', 'normal', 'materialId'].includes(field)) placed[field] = d.message;
         }
         this.problems.set(placed);
-        if (Object.keys(placed).length < details.length || details.length === 0) this.failure.set(apiErrorMessage(failure));
+        return Object.keys(placed).length < details.length || details.length === 0 ? undefined : 'placed';
       },
-    });
+    );
   }
+
+
 }

@@ -20,6 +20,7 @@ import { apiPath } from '../api/api-path';
 import { CaseKindLabel } from '../cases/case-kind-label';
 import { streamNdjson } from '../orbits/sweep-stream';
 import { buildCsv, downloadCsv } from '../plots/csv-download';
+import { seriesLook } from '../plots/plot-colors';
 import type { PlotSeries } from '../plots/plot-series';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { DESIGN_CAUTION_TEXT } from '../shell/design-caution';
@@ -43,7 +44,6 @@ export function parseDistances(text: string): number[] | null {
   return values.every((v) => Number.isFinite(v)) ? values : null;
 }
 
-const LOOP_COLORS = ['--ecl-hot', '--ecl-cold', '--ecl-accent', '--ecl-albedo'];
 
 @Component({
   selector: 'ecl-thermal-distance-panel',
@@ -87,8 +87,8 @@ const LOOP_COLORS = ['--ecl-hot', '--ecl-cold', '--ecl-accent', '--ecl-albedo'];
     }
     @if (points().length > 0) {
       <div class="plots" data-testid="study-results">
-        <ecl-time-series-plot [series]="flowSeries()" title="Pump flow needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Flow" yUnit="L/min" [height]="240" />
-        <ecl-time-series-plot [series]="areaSeries()" title="Radiator area needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Area" yUnit="m²" [height]="240" />
+        <ecl-time-series-plot [series]="flowSeries()" title="Pump flow needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Flow" yUnit="L/min" yRange="non-negative" [height]="240" />
+        <ecl-time-series-plot [series]="areaSeries()" title="Radiator area needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Area" yUnit="m²" yRange="non-negative" [height]="240" />
       </div>
       <div class="table-wrap">
         <table class="ecl-table" data-testid="study-table">
@@ -164,7 +164,7 @@ export class ThermalDistancePanel {
   protected readonly loopNames = computed(() => [...new Set(this.points().flatMap((p) => p.loops.map((l) => l.name)))]);
   protected readonly flowSeries = computed<PlotSeries[]>(() =>
     this.loopNames().flatMap((name, i) => {
-      const colorVar = LOOP_COLORS[i % LOOP_COLORS.length] ?? '--ecl-accent';
+      const { colorVar } = seriesLook(i);
       const at = (pick: (f: PointLine['loops'][number]) => number | null) =>
         this.points().map((p) => ({ x: p.distanceAu, y: pick(p.loops.find((l) => l.name === name) ?? { name, averageKgS: NaN, peakKgS: NaN, averageLMin: null, peakLMin: null }) ?? NaN }));
       return [

@@ -3,13 +3,13 @@
 // shaded; the coolant leaving each path element; the flow in kg/s and L/min. Minutes on the x axis.
 import type { ThermalRunResponse } from '../../../shared/api/thermal-models';
 import type { CsvColumn } from '../plots/csv-download';
+import { seriesLook } from '../plots/plot-colors';
 import type { LimitLine, PlotBand, PlotSeries } from '../plots/plot-series';
 
 type Run = ThermalRunResponse;
 type Loop = Run['result']['loops'][number];
 
 const minutes = (run: Run) => run.result.tS.map((t) => t / 60);
-const COLORS = ['--ecl-cold', '--ecl-albedo', '--ecl-hot', '--ecl-solar', '--ecl-ir', '--ecl-absorbed'];
 
 /** kg/s to L/min with the coolant's density (kg/m^3): 1 m^3 = 1000 L, 60 s a minute. */
 export const litresPerMinute = (kgS: number, densityKgM3: number) => (kgS / densityKgM3) * 1000 * 60;
@@ -46,14 +46,14 @@ export function recoveryBands(run: Run, loop: Loop): PlotBand[] {
 export function coolantSeries(run: Run, loop: Loop): PlotSeries[] {
   const x = minutes(run);
   return loop.coolantC.map((c, j) => ({
-    id: `coolant-${loop.name}-${j}`, label: `leaving ${c.node}`, unit: '°C', colorVar: COLORS[j % COLORS.length]!, points: c.temperaturesC.map((y, i) => ({ x: x[i] ?? 0, y })),
+    id: `coolant-${loop.name}-${j}`, label: `leaving ${c.node}`, unit: '°C', colorVar: seriesLook(j).colorVar, points: c.temperaturesC.map((y, i) => ({ x: x[i] ?? 0, y })),
   }));
 }
 
 export function flowSeries(run: Run): PlotSeries[] {
   const x = minutes(run);
   return run.result.loops.map((l, k) => ({
-    id: `flow-${k}`, label: l.name, unit: 'kg/s', colorVar: COLORS[k % COLORS.length]!, points: l.flowKgS.map((y, i) => ({ x: x[i] ?? 0, y })),
+    id: `flow-${k}`, label: l.name, unit: 'kg/s', colorVar: seriesLook(k).colorVar, points: l.flowKgS.map((y, i) => ({ x: x[i] ?? 0, y })),
   }));
 }
 

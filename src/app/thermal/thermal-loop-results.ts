@@ -14,7 +14,7 @@ import { controlLines, controlRows, controlSeries, coolantSeries, flowSeries, re
   imports: [DecimalPipe, PercentPipe, TimeSeriesPlot],
   template: `
     <h3>Coolant loops</h3>
-    <ecl-time-series-plot [series]="flows()" [bands]="bands()" [xDomain]="xDomain()" [gutters]="gutters()" title="Pump flow" xLabel="Time in orbit" xUnit="min" yLabel="Flow" yUnit="kg/s" [height]="200" data-testid="plot-loops" />
+    <ecl-time-series-plot [series]="flows()" [bands]="bands()" [xDomain]="xDomain()" [gutters]="gutters()" title="Pump flow" xLabel="Time in orbit" xUnit="min" yLabel="Flow" yUnit="kg/s" yRange="non-negative" [height]="200" data-testid="plot-loops" />
     @for (row of rows(); track row.loop.name) {
       @let l = row.loop;
       <section class="loop" [attr.aria-label]="l.name" data-testid="loop-results">

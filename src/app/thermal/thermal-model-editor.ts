@@ -26,10 +26,9 @@ export class ThermalModelEditor {
   /** Bumped on every form event, so the OnPush template redraws errors that another cell caused. */
   protected readonly version = signal(0);
 
-  protected readonly nodeColumns = [
-    'name', 'capacitanceJK', 'massKg', 'specificHeatJKgK', 'initialC', 'dissipationW', 'hotDissipationW', 'coldDissipationW',
-    'surfaceIds', 'radiatorAreaM2', 'emissivity', 'fixedC', 'minC', 'maxC', 'survivalMinC', 'survivalMaxC', 'remove',
-  ];
+  // A node's fields in two tables of about eight columns, so both fit a 1440 px screen.
+  protected readonly nodeColumns = ['name', 'capacitanceJK', 'massKg', 'specificHeatJKgK', 'initialC', 'dissipationW', 'hotDissipationW', 'coldDissipationW', 'remove'];
+  protected readonly nodeLimitColumns = ['node', 'surfaceIds', 'radiatorAreaM2', 'emissivity', 'fixedC', 'minC', 'maxC', 'survivalMinC', 'survivalMaxC'];
   protected readonly couplingColumns = ['from', 'to', 'conductanceWK', 'remove'];
   protected readonly radiativeColumns = ['from', 'to', 'areaM2', 'effectiveEmissivity', 'viewFactor', 'remove'];
   protected readonly heaterColumns = ['name', 'node', 'powerW', 'control', 'onC', 'offC', 'setPointC', 'minV', 'nominalV', 'maxV', 'remove'];

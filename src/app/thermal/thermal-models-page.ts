@@ -87,7 +87,7 @@ import { UtcTimePipe } from '../time/utc-time-pipe';
                 </ng-container>
                 <ng-container matColumnDef="updated">
                   <th mat-header-cell *matHeaderCellDef>Changed</th>
-                  <td mat-cell *matCellDef="let m">{{ m.updatedAt | utc: 'minute' }}</td>
+                  <td mat-cell *matCellDef="let m" class="ecl-nowrap">{{ m.updatedAt | utc: 'minute' }}</td>
                 </ng-container>
                 <tr mat-header-row *matHeaderRowDef="columns"></tr>
                 <tr mat-row *matRowDef="let row; columns: columns"></tr>

@@ -54,6 +54,8 @@ export class ThermalRunPanel {
   protected readonly run = signal<ThermalRunResponse | null>(null);
   protected readonly node = signal<string | null>(null);
   protected readonly gutters = GUTTERS;
+  /** The temperature plot and the heater strips beneath it zoom together. */
+  protected readonly zoom = signal<readonly [number, number] | null>(null);
   protected readonly maxOrbitsLimit = MAX_ORBITS;
   /** Orbits allowed for the next run; null: the model's setting, else the solver's default. */
   protected readonly orbits = signal<number | null>(null);
