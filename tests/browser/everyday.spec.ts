@@ -135,9 +135,10 @@ const INTERNALS = [
 async function internalsOn(page: Page): Promise<string[]> {
   // what is folded away (sources, assumptions) is read too
   await page.locator('details:not([open])').evaluateAll((all) => all.forEach((d) => d.setAttribute('open', '')));
-  const text = await page.locator('body').innerText();
-  // an icon's ligature ("account_circle") is drawn as a picture, not read
-  const icons = new Set((await page.locator('mat-icon').allInnerTexts()).map((t) => t.trim()));
+  // an icon's ligature ("account_circle") is drawn as a picture, not read; both read at one moment
+  const seen = await page.evaluate(() => ({ text: document.body.innerText, icons: [...document.querySelectorAll('mat-icon')].map((i) => (i.textContent ?? '').trim()) }));
+  const text = seen.text;
+  const icons = new Set(seen.icons);
   return INTERNALS.flatMap(({ what, pattern }) => {
     const match = [...text.matchAll(new RegExp(pattern.source, 'g'))].find((m) => !icons.has(m[0]));
     return match ? [`${what}: "${match[0]}" in "…${text.slice(Math.max(0, (match.index ?? 0) - 40), (match.index ?? 0) + 40).replace(/\s+/g, ' ')}…"`] : [];
@@ -220,7 +221,8 @@ test('the main dialogs and a thermal run\'s results show no identifiers, file na
   await closeDialog();
 
   // A released case: the new revision form, and the compare dialog
-  await page.getByTestId('case-table').locator('tr', { has: page.getByTestId('case-link'), hasText: 'Released' }).first().getByTestId('case-link').click();
+  const releasedRow = page.getByTestId('case-table').locator('tr').filter({ has: page.locator('ecl-case-status', { hasText: /^\s*Released\s*$/ }) });
+  await releasedRow.first().getByTestId('case-link').click();
   await expect(page.getByTestId('case-name')).toBeVisible();
   await page.getByTestId('case-new-revision').click();
   await expect(page.getByTestId('case-revise')).toBeVisible();
