@@ -6,6 +6,7 @@ import { openAsBlob, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { createInterface } from 'node:readline';
 import { fileURLToPath } from 'node:url';
+import { meanMotionRadS } from '../shared/physics/kepler';
 
 export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 export const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
@@ -13,7 +14,7 @@ export const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Ma
 /** A 550 km circular equatorial orbit every 10 s, positions and velocities (about 100 bytes a row). */
 export function writeCsv(file: string, rows: number): void {
   const r = 6928.137;
-  const w = Math.sqrt(398600.4418 / r ** 3);
+  const w = meanMotionRadS(r, 398600.4418);
   const t0 = Date.parse('2027-03-20T12:00:00Z');
   const lines = ['epoch,x,y,z,vx,vy,vz'];
   for (let i = 0; i < rows; i++) {

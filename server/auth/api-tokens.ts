@@ -8,6 +8,7 @@ import { apiTokens, users, type ApiTokenRow, type UserRow } from '../db/schema';
 import { forbidden, notFound } from '../errors';
 import type { RequestAuth } from './request-auth';
 import { newSecret, sha256Hex } from './secret-tokens';
+import { DAY_MS } from '../../shared/physics/constants';
 
 export const tokenPrefix = 'ecl_';
 
@@ -32,7 +33,7 @@ export function createApiToken(
 ): { row: ApiTokenRow; secret: string } {
   const { secret, hash } = newSecret(tokenPrefix);
   const expiresAt =
-    input.expiresInDays === undefined ? null : new Date(Date.now() + input.expiresInDays * 86_400_000).toISOString();
+    input.expiresInDays === undefined ? null : new Date(Date.now() + input.expiresInDays * DAY_MS).toISOString();
   const row = db
     .insert(apiTokens)
     .values({ userId, name: input.name, readOnly: input.readOnly, tokenHash: hash, prefix: secret.slice(0, 12), expiresAt })

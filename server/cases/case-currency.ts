@@ -8,7 +8,7 @@ import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
 import { ephemerides, loadCases, missions, orbits, type MissionRow, type OrbitRow } from '../db/schema';
 import { canonicalJson } from './canonical-json';
-import { missionInputs, surfaceSnapshot } from './case-derivation';
+import { missionInputs, surfaceSnapshot } from './case-snapshot';
 
 const isObject = (v: unknown): v is object => v !== null && typeof v === 'object';
 /** Equal as stored: numbers and texts directly, ranges and vectors by their canonical JSON. */

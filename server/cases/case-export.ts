@@ -3,7 +3,8 @@
 // is. Both carry the caution and the same checksum.
 import type { CaseExport, CaseExportCase } from '../../shared/api/cases';
 import { csvRecord } from '../../shared/csv/csv-cell';
-import { round } from '../../shared/physics/design-cases';
+import { round } from '../../shared/physics/rounding';
+import { pointingWords } from '../../shared/physics/pointing-words';
 import type { AppContext } from '../app-context';
 import type { LoadCaseRow } from '../db/schema';
 import { canonicalJson, checksumMethod, sha256Hex } from './canonical-json';
@@ -58,7 +59,7 @@ const metaColumns = [
 
 /** Every column of the case CSV, in order: what the export's documentation lists. */
 export const caseCsvColumns = [
-  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'sunlit past the parent planet (0-1)', 'surface',
+  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'sunlit past the parent planet (0-1)', 'surface', 'pointing',
   ...componentColumns.map(([, header]) => header), 'absorbed total with margin (W)', 'caution',
 ] as const;
 
@@ -77,27 +78,29 @@ const rounded = (x: number | null | undefined, digits: number): number | null =>
  */
 export function caseExportCsv(ctx: AppContext, row: LoadCaseRow): { csv: string; checksum: string } {
   const doc = caseExportJson(ctx, row);
-  const { inputs: i, results: r } = doc;
-  const c = i.conditions;
+  const { inputs, results } = doc;
+  const conditions = inputs.conditions;
   const meta = [
-    doc.case.name, doc.case.revision, doc.status, doc.checksum, i.mission.name, i.body.name, i.orbit.name, c.date, rounded(r.betaDeg, 3),
-    rounded(c.solarDistanceAu, 6), c.properties.toUpperCase(), i.margins.heatLoadPercent,
+    doc.case.name, doc.case.revision, doc.status, doc.checksum, inputs.mission.name, inputs.body.name, inputs.orbit.name, conditions.date, rounded(results.betaDeg, 3),
+    rounded(conditions.solarDistanceAu, 6), conditions.properties.toUpperCase(), inputs.margins.heatLoadPercent,
   ];
+  // each surface's pointing in words (pointing.ts), from the case's own conditions
+  const pointing = new Map(conditions.surfaces.map((s) => [s.name, pointingWords(s.normal)]));
   const line = (kind: string, step: number | null, t: number | null, sunlit: Shade | null, surface: string, loads: (number | null)[], withMargin: number | null) =>
-    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit?.[0], 4), rounded(sunlit?.[1], 4), surface, ...loads, rounded(withMargin, 3), doc.caution]);
+    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit?.[0], 4), rounded(sunlit?.[1], 4), surface, pointing.get(surface) ?? null, ...loads, rounded(withMargin, 3), doc.caution]);
   const loadsOf = (pick: (key: (typeof componentColumns)[number][0]) => number | undefined) =>
     componentColumns.map(([key, , digits]) => rounded(pick(key), digits));
   const out = [csvRecord([...caseCsvColumns])];
-  r.tS.forEach((t, k) => {
-    const sunlit: Shade = [r.sunlit[k], r.parentSunlit?.[k]];
-    for (const s of r.surfaces) out.push(line('step', k + 1, t, sunlit, s.name, loadsOf((key) => s.series[key][k]), null));
+  results.tS.forEach((t, k) => {
+    const sunlit: Shade = [results.sunlit[k], results.parentSunlit?.[k]];
+    for (const s of results.surfaces) out.push(line('step', k + 1, t, sunlit, s.name, loadsOf((key) => s.series[key][k]), null));
   });
-  for (const s of r.surfaces) {
+  for (const s of results.surfaces) {
     out.push(line('orbit average', null, null, null, s.name, loadsOf((key) => s.orbitAverage[key]), s.orbitAverage.absorbedWithMarginW));
     out.push(line('peak', null, null, null, s.name, loadsOf((key) => s.peak[key]), null));
   }
   const totalOnly = (w: number) => componentColumns.map(([key]) => (key === 'absorbedW' ? rounded(w, 3) : null));
-  out.push(line('orbit average', null, null, null, 'spacecraft total', totalOnly(r.total.orbitAverageAbsorbedW), r.total.orbitAverageWithMarginW));
-  out.push(line('peak', null, null, null, 'spacecraft total', totalOnly(r.total.peakAbsorbedW), null));
+  out.push(line('orbit average', null, null, null, 'spacecraft total', totalOnly(results.total.orbitAverageAbsorbedW), results.total.orbitAverageWithMarginW));
+  out.push(line('peak', null, null, null, 'spacecraft total', totalOnly(results.total.peakAbsorbedW), null));
   return { csv: out.join(''), checksum: doc.checksum };
 }

@@ -4,7 +4,9 @@
 import { and, desc, eq, max, sql } from 'drizzle-orm';
 import type { CaseRevisionParsed, CaseUpdateParsed } from '../../shared/api/cases';
 import type { CaseInputs } from '../../shared/api/case-content';
-import { customCaseValues, customRequestOf, derivedCaseValues, surfaceSnapshot, withRationale } from './case-derivation';
+import { derivedCaseValues } from './case-derivation';
+import { resultSummary, withRationale } from './case-drafts';
+import { customCaseValues, customRequestOf } from './custom-case';
 import { rederivationBlocked } from './case-currency';
 import { ephemerisOf } from '../ephemerides/ephemeris-store';
 import { evaluateCase } from '../../shared/physics/design-cases';
@@ -16,9 +18,11 @@ import { auditEvents, caseComments, caseSubscriptions, loadCases, missions, user
 import { ApiError, conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
-import { attitudeText, limitCaseWork, resultSummary } from './case-derivation';
+import { limitCaseWork, surfaceSnapshot } from './case-snapshot';
+import { attitudeText } from '../../shared/physics/case-words';
 import { caseReleasedMail } from './case-mail';
-import { ephemerisCaseValues, ephemerisRequestOf, withMargins } from './ephemeris-case';
+import { ephemerisCaseValues, ephemerisRequestOf } from './ephemeris-case';
+import { withMargins } from '../../shared/physics/trajectory-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
 
 

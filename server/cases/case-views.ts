@@ -14,6 +14,7 @@ import { caseInputsOf, inputChanges, missionsNow, rederivationBlocked, type Curr
 
 export { cautionFor, cautionText, crewedCaution } from '../../shared/api/caution';
 import { cautionFor } from '../../shared/api/caution';
+import { round } from '../../shared/physics/rounding';
 
 type Person = CaseSummary['author'];
 
@@ -218,7 +219,6 @@ function flatten(value: unknown, path: string, out: Map<string, Scalar>): void {
   for (const [k, v] of Object.entries(value as Record<string, unknown>)) flatten(v, path ? `${path}.${k}` : k, out);
 }
 
-const round = (x: number) => Math.round(x * 1e4) / 1e4;
 const compared = (a: number | undefined, b: number | undefined) =>
   a === undefined || b === undefined ? null : { a, b, difference: round(b - a) };
 

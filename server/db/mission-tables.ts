@@ -3,6 +3,7 @@
 import { index, integer, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import { bodyIds } from '../../shared/physics/bodies';
 import { orbitDefinitions } from '../../shared/api/missions';
+import type { SurfaceNormal } from '../../shared/physics/pointing';
 import { createdAt, id, updatedAt } from './columns';
 import { users, workspaces } from './account-tables';
 
@@ -79,8 +80,8 @@ export const surfaces = sqliteTable(
       .references(() => missions.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
     areaM2: real('area_m2').notNull(),
-    /** A named normal ("nadir") or JSON of a unit vector {"x":..,"y":..,"z":..}. */
-    normal: text('normal', { mode: 'json' }).$type<string | { x: number; y: number; z: number }>().notNull(),
+    /** The pointing as JSON: a named normal ("nadir"), a unit vector {"x":..,"y":..,"z":..} or another form of shared/api/pointing.ts. */
+    normal: text('normal', { mode: 'json' }).$type<SurfaceNormal>().notNull(),
     materialId: text('material_id')
       .notNull()
       .references(() => materials.id, { onDelete: 'restrict' }),

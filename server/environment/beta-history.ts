@@ -2,9 +2,9 @@
 // geometry without loads, with the assumptions it rests on.
 import type { z } from 'zod';
 import type { betaHistoryRequest, BetaHistoryResponse } from '../../shared/api/environment';
+import { DAY_MS } from '../../shared/physics/constants';
 import { sweepMission } from '../../shared/physics/mission-sweep';
 
-const DAY_MS = 86400e3;
 
 const BETA_HISTORY_ASSUMPTIONS = [
   'the node and the periapsis drift at their first-order J2 secular rates from the orbit epoch; size, shape and inclination stay fixed',

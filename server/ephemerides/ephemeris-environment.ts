@@ -7,7 +7,8 @@ import type { TrajectoryEnvironmentResponse } from '../../shared/api/ephemerides
 import { getBody } from '../../shared/physics/bodies';
 import { capAssumptions, COARSE_CAP_NODES, needsCap } from '../../shared/physics/cap-loads';
 import { CAUTION } from '../../shared/physics/environment';
-import { namedNormals, type Surface, type SurfaceNormal } from '../../shared/physics/heat-loads';
+import { surfaceNormal } from '../../shared/api/pointing';
+import type { Surface, SurfaceNormal } from '../../shared/physics/heat-loads';
 import { trajectoryEnvironment, type TrajectoryEnvironment, type TrajectorySample } from '../../shared/physics/trajectory-environment';
 import type { AppContext } from '../app-context';
 import { materials, surfaces, type EphemerisRow, type MissionRow } from '../db/schema';
@@ -31,18 +32,13 @@ const assumptions = (result: TrajectoryEnvironment): string[] => [
   'the Sun from each row\'s epoch (VSOP87, interpolated between hourly evaluations); conical shadow of the central body, no atmosphere',
   ...capAssumptions(result.models, result.meanSolarFluxWm2),
   ...(needsCap(result.models) ? [`the cap integrals at each row use ${COARSE_CAP_NODES.radial} x ${COARSE_CAP_NODES.azimuth} nodes over the disk (the compute route: 20 x 48), within about 1 % of it`] : []),
-  'local orbital frame from r and v (v by finite differences when the file has no velocities); surfaces fixed in it',
+  'local orbital frame from r and v (v by finite differences when the file has no velocities); surfaces fixed in it or pointed in it at each row (inertial directions in the body\'s equatorial frame of J2000)',
   'averages are time-weighted (trapezoidal) over the window (the whole ephemeris unless a window is given), not per orbit',
   CAUTION,
 ];
 
-// Stored as written by the surfaces route (validated there); a name outside the list is a bug, not input.
-function storedNormal(normal: string | { x: number; y: number; z: number }, surface: string): SurfaceNormal {
-  if (typeof normal !== 'string') return normal;
-  const named = namedNormals.find((n) => n === normal);
-  if (!named) throw new Error(`surface ${surface} has an unknown stored normal ${JSON.stringify(normal)}`);
-  return named;
-}
+// Stored as written by the surfaces route (validated there); a form outside the contract is a bug, not input.
+const storedNormal = (normal: unknown): SurfaceNormal => surfaceNormal.parse(normal);
 
 /** The mission's surfaces as the physics takes them, with the chosen property set. */
 export function missionSurfaces(ctx: AppContext, missionId: string, properties: 'bol' | 'eol'): Surface[] {
@@ -54,7 +50,7 @@ export function missionSurfaces(ctx: AppContext, missionId: string, properties: 
     .all()
     .map(({ surface, material }) => ({
       name: surface.name,
-      normal: storedNormal(surface.normal, surface.name),
+      normal: storedNormal(surface.normal),
       areaM2: surface.areaM2,
       absorptivity: properties === 'eol' ? material.absorptivityEol : material.absorptivityBol,
       emissivity: properties === 'eol' ? material.emissivityEol : material.emissivityBol,

@@ -4,15 +4,10 @@
 import { and, eq, isNull } from 'drizzle-orm';
 import type { Db } from '../db/database';
 import { materials } from '../db/schema';
+import type { CaseMaterial } from '../../shared/physics/design-environment';
 
-interface LibraryMaterial {
-  name: string;
-  absorptivityBol: number;
-  emissivityBol: number;
-  absorptivityEol: number;
-  emissivityEol: number;
-  source: string;
-}
+/** A library material: the same fields a case keeps of a surface's material. */
+type LibraryMaterial = CaseMaterial;
 
 const bolSource = 'BOL: Fortescue, Swinerd & Stark 2011, Table 11.3; Gilmore 2002, App. A';
 // Shown to users beside each material, so in their words: no file names, no shorthand.

@@ -17,6 +17,7 @@ import { memberRole } from '../auth/middleware';
 import { editorRoles, missionFor, type Tx } from './mission-access';
 import { toMission, toOrbit, toSurface } from './mission-responses';
 import { canonicalOrbit } from './orbit-values';
+import { withQuantityReader, type ReadQuantity } from './quantity-reader';
 
 type MissionCreate = z.output<typeof missionCreate>;
 type MissionUpdate = z.output<typeof missionUpdate>;
@@ -81,12 +82,12 @@ const describeChange = (name: string, before: unknown, after: unknown): string =
   `${name} ${JSON.stringify(before)} -> ${JSON.stringify(after)}`;
 
 /** A change of body moves every orbit's canonical values (altitudes are above the new body). */
-function recomputeOrbits(tx: Tx, missionId: string, bodyId: string): void {
+function recomputeOrbits(tx: Tx, missionId: string, bodyId: string, read: ReadQuantity): void {
   const body = getBody(bodyId);
   for (const orbit of tx.select().from(orbits).where(eq(orbits.missionId, missionId)).all()) {
     let values;
     try {
-      values = canonicalOrbit(orbit.input, body);
+      values = canonicalOrbit(orbit.input, body, read);
     } catch (error) {
       if (error instanceof ApiError) {
         const message = `bodyId: orbit "${orbit.name}" does not fit around ${body.name}: ${error.message}`;
@@ -98,8 +99,9 @@ function recomputeOrbits(tx: Tx, missionId: string, bodyId: string): void {
   }
 }
 
-export function updateMission(db: Db, userId: string, missionId: string, input: MissionUpdate): Mission {
-  return db.transaction((tx) => {
+export function updateMission(db: Db, userId: string, missionId: string, input: MissionUpdate): Promise<Mission> {
+  // A new body recomputes every stored orbit from its typed fields.
+  return withQuantityReader((read) => db.transaction((tx) => {
     const { mission } = missionFor(tx, userId, missionId, 'edit');
     const startDate = input.startDate ?? mission.startDate;
     const endDate = input.endDate ?? mission.endDate;
@@ -123,7 +125,7 @@ export function updateMission(db: Db, userId: string, missionId: string, input: 
       changes.push('un-archived');
     }
     if (changes.length === 0) return toMission(mission);
-    if (fields.bodyId !== undefined && fields.bodyId !== mission.bodyId) recomputeOrbits(tx, mission.id, fields.bodyId);
+    if (fields.bodyId !== undefined && fields.bodyId !== mission.bodyId) recomputeOrbits(tx, mission.id, fields.bodyId, read);
     const row = tx
       .update(missions)
       .set({ ...fields, archivedAt, updatedAt: new Date().toISOString() })
@@ -140,13 +142,13 @@ export function updateMission(db: Db, userId: string, missionId: string, input: 
       summary: `Mission "${row.name}": ${changes.join('; ')}.`,
     });
     return toMission(row);
-  });
+  }));
 }
 
 /** Roles that may delete a whole mission (with everything in it that is not released). */
 export const missionDeleteRoles: readonly Role[] = ['owner'];
 
-const counted = (n: number, one: string, many = `${one}s`): string => `${n} ${n === 1 ? one : many}`;
+const counted = (n: number, singular: string, plural = `${singular}s`): string => `${n} ${n === 1 ? singular : plural}`;
 
 /**
  * Deletes a mission: only an owner may, and never one that holds released or superseded load

@@ -9,6 +9,7 @@ import type { Db } from '../db/database';
 import { orbits, type MissionRow } from '../db/schema';
 import { missionFor, orbitOf } from './mission-access';
 import { toOrbit } from './mission-responses';
+import { withQuantityReader } from './quantity-reader';
 import { canonicalOrbit, mergedFields, orbitFieldNames, type CanonicalOrbit, type OrbitFields } from './orbit-values';
 
 type OrbitCreate = z.output<typeof orbitCreate>;
@@ -23,18 +24,18 @@ function typedFields(input: OrbitUpdate): OrbitFields {
   return fields;
 }
 
-const summaryOf = (c: CanonicalOrbit): string =>
-  `${c.periapsisAltitudeKm.toFixed(1)} x ${c.apoapsisAltitudeKm.toFixed(1)} km, i ${c.inclinationDeg.toFixed(2)} deg`;
+const summaryOf = (orbit: CanonicalOrbit): string =>
+  `${orbit.periapsisAltitudeKm.toFixed(1)} x ${orbit.apoapsisAltitudeKm.toFixed(1)} km, i ${orbit.inclinationDeg.toFixed(2)} deg`;
 
 export function listOrbits(db: Db, missionId: string): Orbit[] {
   return db.select().from(orbits).where(eq(orbits.missionId, missionId)).orderBy(asc(orbits.createdAt), sql`"orbits".rowid`).all().map(toOrbit);
 }
 
-export function createOrbit(db: Db, userId: string, missionId: string, input: OrbitCreate): Orbit {
-  return db.transaction((tx) => {
+export function createOrbit(db: Db, userId: string, missionId: string, input: OrbitCreate): Promise<Orbit> {
+  return withQuantityReader((read) => db.transaction((tx) => {
     const { mission } = missionFor(tx, userId, missionId, 'edit');
     const fields = typedFields(input);
-    const values = canonicalOrbit(fields, getBody(mission.bodyId));
+    const values = canonicalOrbit(fields, getBody(mission.bodyId), read);
     const row = tx
       .insert(orbits)
       .values({ missionId: mission.id, name: input.name, epoch: input.epoch, input: fields, ...values })
@@ -42,16 +43,16 @@ export function createOrbit(db: Db, userId: string, missionId: string, input: Or
       .get();
     audit(tx, userId, mission, 'orbit.created', row.id, `Orbit "${row.name}" added to mission "${mission.name}": ${summaryOf(values)}.`);
     return toOrbit(row);
-  });
+  }));
 }
 
-export function updateOrbit(db: Db, userId: string, missionId: string, orbitId: string, input: OrbitUpdate): Orbit {
-  return db.transaction((tx) => {
+export function updateOrbit(db: Db, userId: string, missionId: string, orbitId: string, input: OrbitUpdate): Promise<Orbit> {
+  return withQuantityReader((read) => db.transaction((tx) => {
     const { mission } = missionFor(tx, userId, missionId, 'edit');
     const orbit = orbitOf(tx, mission.id, orbitId);
     const change = typedFields(input);
     const fields = Object.keys(change).length > 0 ? mergedFields(orbit.input, change) : orbit.input;
-    const values = canonicalOrbit(fields, getBody(mission.bodyId));
+    const values = canonicalOrbit(fields, getBody(mission.bodyId), read);
     const changed = [
       ...(input.name !== undefined && input.name !== orbit.name ? [`renamed "${orbit.name}" -> "${input.name}"`] : []),
       ...(input.epoch !== undefined && input.epoch !== orbit.epoch ? [`epoch ${orbit.epoch} -> ${input.epoch}`] : []),
@@ -66,7 +67,7 @@ export function updateOrbit(db: Db, userId: string, missionId: string, orbitId: 
     const what = changed.length > 0 ? changed.join('; ') : 'saved unchanged';
     audit(tx, userId, mission, 'orbit.updated', row.id, `Orbit "${row.name}" of mission "${mission.name}": ${what} (now ${summaryOf(values)}).`);
     return toOrbit(row);
-  });
+  }));
 }
 
 export function deleteOrbit(db: Db, userId: string, missionId: string, orbitId: string): void {

@@ -1,5 +1,5 @@
 // An orbit as typed ("550 km", "341.8 mi", 97.6, "95 min") read into canonical values (km, s, deg):
-// each quantity through quantity-reader.ts (shared/physics/units.ts when a unit needs converting), then the body's defineOrbit, which refuses the
+// each quantity through the reader of quantity-reader.ts, then the body's defineOrbit, which refuses the
 // impossible (a 422 saying by how much). Unit errors are 400s naming the field and the value.
 import { orbitInput } from '../../shared/api/environment';
 import type { orbitDefinitions } from '../../shared/api/missions';
@@ -7,7 +7,7 @@ import type { Body } from '../../shared/physics/bodies';
 import { defineOrbit, type OrbitInput } from '../../shared/physics/orbit-definition';
 import { PhysicsError } from '../../shared/physics/physics-error';
 import { ApiError, parse } from '../errors';
-import { readQuantityIn } from './quantity-reader';
+import type { ReadQuantity } from './quantity-reader';
 
 export type OrbitFields = Record<string, number | string>;
 export type OrbitDefinition = (typeof orbitDefinitions)[number];
@@ -44,9 +44,9 @@ function withPath(error: PhysicsError, status: number): ApiError {
   return new ApiError(status, error.code, message.endsWith('.') ? message : `${message}.`, error.details);
 }
 
-function readField(value: number | string, unit: string, path: string): number {
+function readField(read: ReadQuantity, value: number | string, unit: string, path: string): number {
   try {
-    return readQuantityIn(value, unit, path);
+    return read(value, unit, path);
   } catch (error) {
     if (error instanceof PhysicsError) throw withPath(error, 400);
     throw error;
@@ -61,11 +61,11 @@ export function definitionOf(fields: OrbitFields): OrbitDefinition | null {
 }
 
 /** Canonical values of a typed orbit around `body`; throws a 400 (units, definition) or a 422 (impossible). */
-export function canonicalOrbit(fields: OrbitFields, body: Body): CanonicalOrbit {
+export function canonicalOrbit(fields: OrbitFields, body: Body, read: ReadQuantity): CanonicalOrbit {
   const input: OrbitInput = {};
   for (const [name, unit] of Object.entries(fieldUnits) as [keyof typeof fieldUnits, string][]) {
     const value = fields[name];
-    if (value !== undefined) input[name] = readField(value, unit, `orbit.${name}`);
+    if (value !== undefined) input[name] = readField(read, value, unit, `orbit.${name}`);
   }
   const e = fields.eccentricity;
   // The contract types eccentricity as a plain number; defineOrbit refuses anything not finite.

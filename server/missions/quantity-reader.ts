@@ -1,70 +1,73 @@
-// Typed quantities ("550 km", "341.8 mi", 97.6) read on the server without loading mathjs until a
-// request needs it: shared/physics/units.ts pulls in mathjs, about 90 MB of memory, and most
-// requests (an ephemeris upload, a sign-in) never convert a unit. A bare number, or a number
-// followed by the field's own unit, needs no conversion and is read here; anything else goes to
-// units.ts, which the routes that take typed quantities load first (await loadUnits()).
-// Units people type ("14 d", "1.2 m²", "sq m") are read with the table the client previews with
-// (shared/physics/typed-units.ts), so the preview and the stored value always agree; only units
-// outside that table reach mathjs.
+// Typed quantities ("550 km", "14 d", "1.2 m²", 97.6) read on the server with the one table the
+// client previews with (shared/physics/typed-units.ts), so the preview and the stored value always
+// agree. Only a unit outside that table ("300000 ft") reaches mathjs (shared/physics/units.ts),
+// about 90 MB of memory that most requests never need: it is loaded the first time a quantity
+// asks for it, and never by a route "just in case".
+//
+// Work functions read their quantities inside their transaction (synchronous, better-sqlite3), so
+// the reader is handed to them by `withQuantityReader`: when a quantity needs mathjs before it is
+// loaded, the work stops (its transaction rolls back, nothing written), mathjs is loaded and the
+// work runs again. No caller has to remember to load anything first.
 import { PhysicsError } from '../../shared/physics/physics-error';
 import { kindOfUnit, normaliseUnitText, readTypedQuantity } from '../../shared/physics/typed-units';
 
 type Units = typeof import('../../shared/physics/units');
 
+/** `input` in `unit` (a unit of the typed-unit table: "km", "s", "deg", "m^2"); a bare number is in `unit`. */
+export type ReadQuantity = (input: string | number, unit: string, path: string) => number;
+
 let units: Units | null = null;
 let loading: Promise<Units> | null = null;
 
-/** Loads the unit system once; every later call answers at once. */
-export function loadUnits(): Promise<Units> {
+function loadUnits(): Promise<Units> {
   loading ??= import('../../shared/physics/units').then((module) => (units = module));
   return loading;
 }
 
-// The same plain decimal form readQuantity's Number() accepts for the numeric part of "480 km".
-const plainNumber = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+/** Thrown by a reader without mathjs at a unit outside the table; only withQuantityReader sees it. */
+class UnitsNotLoaded extends Error {}
 
-/**
- * The value when it is already in `unit` (a finite number, a numeric string, or "<number> <unit>"
- * with exactly that unit), else undefined: then only the unit system can read it.
- */
-export function valueInOwnUnit(input: string | number, unit: string): number | undefined {
-  if (typeof input === 'number') return Number.isFinite(input) ? input : undefined;
-  const text = input.trim();
-  if (text === '') return undefined;
-  const bare = Number(text);
-  if (Number.isFinite(bare)) return bare;
-  if (!text.endsWith(unit)) return undefined;
-  const number = text.slice(0, text.length - unit.length);
-  // A space between number and unit, as people type it; "480km" and the like go to mathjs.
-  if (number.length === number.trimEnd().length) return undefined;
-  const digits = number.trimEnd();
-  if (!plainNumber.test(digits)) return undefined;
-  const value = Number(digits);
-  return Number.isFinite(value) ? value : undefined;
+/** Refusals are PhysicsErrors in words (a 400 naming the field), never a parser's message. */
+function readerWith(loaded: Units | null): ReadQuantity {
+  return (input, unit, path) => {
+    const refuse = (message: string) => new PhysicsError('invalid_quantity', message, [{ path, message }]);
+    if (typeof input === 'number') {
+      if (Number.isFinite(input)) return input;
+      throw refuse(`${input} is not a finite number`);
+    }
+    // Any numeric text Number() takes is a bare number in `unit`, as it always was.
+    const bare = input.trim() === '' ? Number.NaN : Number(input);
+    if (Number.isFinite(bare)) return bare;
+    const reading = readTypedQuantity(input, unit);
+    if (reading.ok) return reading.value;
+    if (!reading.unknownUnit) throw refuse(reading.message);
+    if (!loaded) throw new UnitsNotLoaded();
+    const text = normaliseUnitText(input);
+    // mathjs knows many more units ("300000 ft", "2 kg"); what it cannot read gets the table's words.
+    if (!loaded.canReadQuantity(text)) throw refuse(reading.message);
+    return loaded.readQuantity(text, unit, unit, path);
+  };
 }
 
 /**
- * `input` in `unit` (a unit of the typed-unit table: "km", "s", "deg", "m^2"): a bare number is in
- * `unit`; typed text is read with the shared table, and a unit outside it with mathjs
- * (shared/physics/units.ts). Refusals are PhysicsErrors in words, never a parser's message.
+ * Runs `work` (a work function's checks and its transaction, synchronous) with a reader of typed
+ * quantities, and answers what it answers. Should a quantity need mathjs before it is loaded, the
+ * work is run once more with it; `work` must therefore write only inside its transaction.
  */
-export function readQuantityIn(input: string | number, unit: string, path: string): number {
-  const own = valueInOwnUnit(input, unit);
-  if (own !== undefined) return own;
-  if (typeof input === 'number') throw new PhysicsError('invalid_quantity', `${input} is not a finite number`, [{ path, message: `${input} is not a finite number` }]);
-  const reading = readTypedQuantity(input, unit);
-  if (reading.ok) return reading.value;
-  const refusal = new PhysicsError('invalid_quantity', reading.message, [{ path, message: reading.message }]);
-  if (!reading.unknownUnit) throw refusal;
-  if (!units) throw new Error(`reading ${path} needs the unit system: the route must await loadUnits() first`);
-  const text = normaliseUnitText(input);
-  // mathjs knows many more units ("300000 ft", "2 kg"); what it cannot read gets the table's words.
-  if (!units.canReadQuantity(text)) throw refusal;
-  return units.readQuantity(text, unit, unit, path);
+export async function withQuantityReader<T>(work: (read: ReadQuantity) => T): Promise<T> {
+  try {
+    return work(readerWith(units));
+  } catch (error) {
+    if (!(error instanceof UnitsNotLoaded)) throw error;
+  }
+  return work(readerWith(await loadUnits()));
 }
 
-/** POST /units/convert: a unit of the typed-unit table is read as the forms read it ("14 d", "1.2 m²"); others by mathjs. */
-export async function convertTypedValue(value: string | number, unit: string): Promise<number> {
-  const { convertQuantity } = await loadUnits();
-  return kindOfUnit(unit) ? readQuantityIn(value, normaliseUnitText(unit), 'value') : convertQuantity(value, unit);
+/**
+ * `input` in a unit the caller names (POST /units/convert): a unit of the table is read as the
+ * forms read it ("14 d", "1.2 m²"); any other unit is mathjs's to read.
+ */
+export async function convertTypedValue(input: string | number, unit: string): Promise<number> {
+  if (kindOfUnit(unit)) return withQuantityReader((read) => read(input, normaliseUnitText(unit), 'value'));
+  return (await loadUnits()).convertQuantity(input, unit);
 }

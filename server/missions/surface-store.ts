@@ -4,13 +4,14 @@ import { and, asc, eq, ne, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { Surface, surfaceCreate, surfaceUpdate } from '../../shared/api/missions';
 import { PhysicsError } from '../../shared/physics/physics-error';
+import { pointingWords } from '../../shared/physics/pointing-words';
 import { recordAudit } from '../audit/audit-log';
 import type { Db } from '../db/database';
 import { materials, surfaces, type MaterialRow, type MissionRow, type SurfaceRow } from '../db/schema';
 import { badRequest, conflict } from '../errors';
 import { missionFor, surfaceOf, type Tx } from './mission-access';
 import { toSurface } from './mission-responses';
-import { readQuantityIn } from './quantity-reader';
+import { withQuantityReader, type ReadQuantity } from './quantity-reader';
 
 type SurfaceCreate = z.output<typeof surfaceCreate>;
 type SurfaceUpdate = z.output<typeof surfaceUpdate>;
@@ -20,10 +21,10 @@ const MAX_AREA_M2 = 10000;
 
 const refuse = (path: string, message: string) => badRequest(`${path}: ${message}.`, [{ path, message }]);
 
-export function readAreaM2(value: number | string): number {
+function readAreaM2(read: ReadQuantity, value: number | string): number {
   let area: number;
   try {
-    area = readQuantityIn(value, 'm^2', 'areaM2');
+    area = read(value, 'm^2', 'areaM2');
   } catch (error) {
     if (error instanceof PhysicsError) throw refuse('areaM2', error.message);
     throw error;
@@ -56,10 +57,10 @@ export function listSurfaces(db: Db, missionId: string): Surface[] {
   return db.select().from(surfaces).where(eq(surfaces.missionId, missionId)).orderBy(asc(surfaces.createdAt), sql`"surfaces".rowid`).all().map(toSurface);
 }
 
-export function createSurface(db: Db, userId: string, missionId: string, input: SurfaceCreate): Surface {
-  return db.transaction((tx) => {
+export function createSurface(db: Db, userId: string, missionId: string, input: SurfaceCreate): Promise<Surface> {
+  return withQuantityReader((read) => db.transaction((tx) => {
     const { mission } = missionFor(tx, userId, missionId, 'edit');
-    const areaM2 = readAreaM2(input.areaM2);
+    const areaM2 = readAreaM2(read, input.areaM2);
     const material = usableMaterial(tx, mission, input.materialId);
     requireUniqueName(tx, mission.id, input.name);
     const row = tx
@@ -69,13 +70,13 @@ export function createSurface(db: Db, userId: string, missionId: string, input: 
       .get();
     audit(tx, userId, mission, 'surface.created', row.id, `Surface "${row.name}" added to mission "${mission.name}": ${areaM2} m^2, ${describeNormal(row.normal)}, ${material.name}.`);
     return toSurface(row);
-  });
+  }));
 }
 
-const describeNormal = (normal: SurfaceRow['normal']): string => (typeof normal === 'string' ? `facing ${normal}` : `normal ${JSON.stringify(normal)}`);
+const describeNormal = (normal: SurfaceRow['normal']): string => pointingWords(normal);
 
-export function updateSurface(db: Db, userId: string, missionId: string, surfaceId: string, input: SurfaceUpdate): Surface {
-  return db.transaction((tx) => {
+export function updateSurface(db: Db, userId: string, missionId: string, surfaceId: string, input: SurfaceUpdate): Promise<Surface> {
+  return withQuantityReader((read) => db.transaction((tx) => {
     const { mission } = missionFor(tx, userId, missionId, 'edit');
     const surface = surfaceOf(tx, mission.id, surfaceId);
     const changes: string[] = [];
@@ -86,7 +87,7 @@ export function updateSurface(db: Db, userId: string, missionId: string, surface
       next.name = input.name;
     }
     if (input.areaM2 !== undefined) {
-      next.areaM2 = readAreaM2(input.areaM2);
+      next.areaM2 = readAreaM2(read, input.areaM2);
       if (next.areaM2 !== surface.areaM2) changes.push(`area ${surface.areaM2} -> ${next.areaM2} m^2`);
     }
     if (input.normal !== undefined && JSON.stringify(input.normal) !== JSON.stringify(surface.normal)) {
@@ -102,7 +103,7 @@ export function updateSurface(db: Db, userId: string, missionId: string, surface
     const row = tx.update(surfaces).set({ ...next, updatedAt: new Date().toISOString() }).where(eq(surfaces.id, surface.id)).returning().get();
     audit(tx, userId, mission, 'surface.updated', row.id, `Surface "${row.name}" of mission "${mission.name}": ${changes.join('; ')}.`);
     return toSurface(row);
-  });
+  }));
 }
 
 export function deleteSurface(db: Db, userId: string, missionId: string, surfaceId: string): void {

@@ -6,6 +6,7 @@
 import type { z } from 'zod';
 import type { SweepDay, sweepQuery } from '../../shared/api/missions';
 import { CAUTION } from '../../shared/physics/environment';
+import { DAY_MS } from '../../shared/physics/constants';
 import { DEFAULT_SWEEP_STEPS, sweepMission } from '../../shared/physics/mission-sweep';
 import type { MissionRow, OrbitRow } from '../db/schema';
 import { badRequest } from '../errors';
@@ -14,7 +15,6 @@ import { savedOrbitInput, type MissionSurface } from './saved-environment';
 
 type SweepQuery = z.output<typeof sweepQuery>;
 
-const DAY_MS = 86_400_000;
 /** The longest range a sweep covers: 40 years of days. */
 export const MAX_SWEEP_DAYS = Math.floor(40 * 365.25);
 // The compute route's default: the shared sweep is fast enough (well under 1 ms a day) to afford it.

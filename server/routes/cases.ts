@@ -5,7 +5,8 @@ import {
   caseRevisionCreate, caseUpdate, derivedCases, subscriptionState, workspaceOverview as workspaceOverviewSchema,
 } from '../../shared/api/cases';
 import { caseFor, caseToCompareWith, missionForCases } from '../cases/case-access';
-import { createCustomCase, deriveCases } from '../cases/case-derivation';
+import { deriveCases } from '../cases/case-derivation';
+import { createCustomCase } from '../cases/custom-case';
 import { sendCaseExport } from '../cases/case-export-answer';
 import { commentOnCase, newRevision, releaseCase, requireReviewer, returnCase, setSubscription, submitCase, updateCase } from '../cases/case-lifecycle';
 import { workspaceOverview } from '../cases/case-overview';

@@ -14,7 +14,6 @@ import { missionFor, orbitOf } from '../missions/mission-access';
 import { toOrbit } from '../missions/mission-responses';
 import { createMission, deleteMission, listMissions, missionDetail, updateMission } from '../missions/mission-store';
 import { createOrbit, deleteOrbit, listOrbits, updateOrbit } from '../missions/orbit-store';
-import { loadUnits } from '../missions/quantity-reader';
 import { savedEnvironment } from '../missions/saved-environment';
 import { sendSweep } from '../missions/sweep-answer';
 import { createSurface, deleteSurface, listSurfaces, updateSurface } from '../missions/surface-store';
@@ -23,11 +22,6 @@ import { missionEditors } from '../workspaces/workspace-roles';
 const v1 = '/api/v1';
 const m = `${v1}/missions/:id`;
 const items = <T extends z.ZodType>(schema: T) => z.object({ items: z.array(schema) });
-/** The parsed input once the unit reader is loaded: these routes read typed quantities. */
-const withUnits = async <T>(input: T): Promise<T> => {
-  await loadUnits();
-  return input;
-};
 
 export const missionRoutes: ApiRoute[] = [
   route({
@@ -46,12 +40,7 @@ export const missionRoutes: ApiRoute[] = [
   }),
   route({
     method: 'patch', path: m, tag: 'missions', summary: 'Change or archive a mission', access: 'signed-in', body: missionUpdate, response: mission,
-    handle: async ({ ctx, auth, param, body }) => {
-      const input = body();
-      // A new body recomputes every stored orbit from its typed fields.
-      if (input.bodyId !== undefined) await loadUnits();
-      return updateMission(ctx.db, auth.user.id, param('id'), input);
-    },
+    handle: ({ ctx, auth, param, body }) => updateMission(ctx.db, auth.user.id, param('id'), body()),
   }),
   route({
     method: 'delete', path: m, tag: 'missions', summary: 'Delete a mission, its orbits and surfaces', access: 'signed-in', status: 204,
@@ -64,7 +53,7 @@ export const missionRoutes: ApiRoute[] = [
   }),
   route({
     method: 'post', path: `${m}/orbits`, tag: 'orbits', summary: 'Add an orbit (values may carry units)', access: 'signed-in', body: orbitCreate, status: 201, response: orbit,
-    handle: async ({ ctx, auth, param, body }) => createOrbit(ctx.db, auth.user.id, param('id'), await withUnits(body())),
+    handle: ({ ctx, auth, param, body }) => createOrbit(ctx.db, auth.user.id, param('id'), body()),
   }),
   route({
     method: 'get', path: `${m}/orbits/:orbitId`, tag: 'orbits', summary: 'One orbit', access: 'signed-in', response: orbit,
@@ -72,7 +61,7 @@ export const missionRoutes: ApiRoute[] = [
   }),
   route({
     method: 'patch', path: `${m}/orbits/:orbitId`, tag: 'orbits', summary: 'Change an orbit', access: 'signed-in', body: orbitUpdate, response: orbit,
-    handle: async ({ ctx, auth, param, body }) => updateOrbit(ctx.db, auth.user.id, param('id'), param('orbitId'), await withUnits(body())),
+    handle: ({ ctx, auth, param, body }) => updateOrbit(ctx.db, auth.user.id, param('id'), param('orbitId'), body()),
   }),
   route({
     method: 'delete', path: `${m}/orbits/:orbitId`, tag: 'orbits', summary: 'Delete an orbit', access: 'signed-in', status: 204,
@@ -104,11 +93,11 @@ export const missionRoutes: ApiRoute[] = [
   }),
   route({
     method: 'post', path: `${m}/surfaces`, tag: 'surfaces', summary: 'Add a surface', access: 'signed-in', body: surfaceCreate, status: 201, response: surface,
-    handle: async ({ ctx, auth, param, body }) => createSurface(ctx.db, auth.user.id, param('id'), await withUnits(body())),
+    handle: ({ ctx, auth, param, body }) => createSurface(ctx.db, auth.user.id, param('id'), body()),
   }),
   route({
     method: 'patch', path: `${m}/surfaces/:surfaceId`, tag: 'surfaces', summary: 'Change a surface', access: 'signed-in', body: surfaceUpdate, response: surface,
-    handle: async ({ ctx, auth, param, body }) => updateSurface(ctx.db, auth.user.id, param('id'), param('surfaceId'), await withUnits(body())),
+    handle: ({ ctx, auth, param, body }) => updateSurface(ctx.db, auth.user.id, param('id'), param('surfaceId'), body()),
   }),
   route({
     method: 'delete', path: `${m}/surfaces/:surfaceId`, tag: 'surfaces', summary: 'Delete a surface', access: 'signed-in', status: 204,

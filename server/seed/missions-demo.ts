@@ -8,6 +8,7 @@ import { libraryMaterialId } from '../missions/material-library';
 import type { SurfaceNormal } from '../../shared/api/missions';
 import { canonicalOrbit, type OrbitFields } from '../missions/orbit-values';
 import type { DemoTeam } from './demo';
+import type { ReadQuantity } from '../missions/quantity-reader';
 import type { FeatureSeed } from './seed';
 
 type Tx = Parameters<FeatureSeed>[0];
@@ -103,22 +104,22 @@ const ploverRelay: DemoMission = {
   ],
 };
 
-function insertMission(tx: Tx, workspaceId: string, createdBy: string | null, demo: DemoMission): void {
+function insertMission(tx: Tx, read: ReadQuantity, workspaceId: string, createdBy: string | null, demo: DemoMission): void {
   const body = getBody(demo.bodyId);
   const { orbits: demoOrbits, surfaces: demoSurfaces, ...fields } = demo;
   const mission = tx.insert(missions).values({ ...fields, workspaceId, createdBy }).returning().get();
   for (const o of demoOrbits) {
-    tx.insert(orbits).values({ missionId: mission.id, name: o.name, epoch: o.epoch, input: o.input, ...canonicalOrbit(o.input, body) }).run();
+    tx.insert(orbits).values({ missionId: mission.id, name: o.name, epoch: o.epoch, input: o.input, ...canonicalOrbit(o.input, body, read) }).run();
   }
   for (const s of demoSurfaces) {
     tx.insert(surfaces).values({ missionId: mission.id, name: s.name, areaM2: s.areaM2, normal: s.normal, materialId: libraryMaterialId(tx, s.material) }).run();
   }
 }
 
-export const seedDemoMissions: FeatureSeed = (tx, team: DemoTeam) => {
+export const seedDemoMissions: FeatureSeed = (tx, team: DemoTeam, read) => {
   const analyst = team.users['analyst@kestrel.test']?.id ?? null;
-  insertMission(tx, team.kestrel.id, analyst, kestrelOne);
-  insertMission(tx, team.kestrel.id, analyst, kestrelLunar);
-  insertMission(tx, team.kestrel.id, analyst, kestrelEuropa);
-  insertMission(tx, team.plover.id, team.users['owner@plover.test']?.id ?? null, ploverRelay);
+  insertMission(tx, read, team.kestrel.id, analyst, kestrelOne);
+  insertMission(tx, read, team.kestrel.id, analyst, kestrelLunar);
+  insertMission(tx, read, team.kestrel.id, analyst, kestrelEuropa);
+  insertMission(tx, read, team.plover.id, team.users['owner@plover.test']?.id ?? null, ploverRelay);
 };

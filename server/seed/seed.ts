@@ -5,12 +5,14 @@ import type { AppContext } from '../app-context';
 import { hashPassword } from '../auth/passwords';
 import type { Tx } from '../db/database';
 import { users } from '../db/schema';
+import { withQuantityReader, type ReadQuantity } from '../missions/quantity-reader';
 import { seedDemoTeam, type DemoTeam } from './demo';
 import { seedDemoMissions } from './missions-demo';
 import { seedDemoCases } from './cases-demo';
 import { seedDemoThermalModel } from './thermal-demo';
 
-export type FeatureSeed = (tx: Tx, team: DemoTeam) => void;
+/** A feature's demo objects; typed quantities are read with `read`, as the API reads them. */
+export type FeatureSeed = (tx: Tx, team: DemoTeam, read: ReadQuantity) => void;
 
 const featureSeeds: FeatureSeed[] = [seedDemoMissions, seedDemoCases, seedDemoThermalModel];
 
@@ -20,10 +22,10 @@ export async function seedDatabase(ctx: Pick<AppContext, 'db' | 'config' | 'logg
   const existing = ctx.db.select({ n: count() }).from(users).get();
   if ((existing?.n ?? 0) > 0) return false;
   const passwordHash = await hashPassword(ctx.config.demoPassword, ctx.config.bcryptCost);
-  ctx.db.transaction((tx) => {
+  await withQuantityReader((read) => ctx.db.transaction((tx) => {
     const team = seedDemoTeam(tx, passwordHash);
-    for (const seed of featureSeeds) seed(tx, team);
-  });
+    for (const seed of featureSeeds) seed(tx, team, read);
+  }));
   ctx.logger.info('demo data seeded', { workspaces: ['Kestrel', 'Plover'] });
   return true;
 }

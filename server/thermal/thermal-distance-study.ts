@@ -6,6 +6,7 @@ import type { Response } from 'express';
 import type { z } from 'zod';
 import type { DistanceStudyLine, thermalDistanceStudyRequest } from '../../shared/api/thermal-models';
 import { bodyDistances, perihelionAphelion, solarScaleAt, type StudyDistance } from '../../shared/physics/thermal-distance-study';
+import { round } from '../../shared/physics/rounding';
 import { solarFluxWm2 } from '../../shared/physics/sun';
 import type { Db } from '../db/database';
 import { badRequest } from '../errors';
@@ -17,11 +18,10 @@ import { thermalPool, whileClientWaits } from './thermal-pool';
 type StudyRequest = z.output<typeof thermalDistanceStudyRequest>;
 
 const ndjson = (line: DistanceStudyLine): string => JSON.stringify(line) + '\n';
-const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
 
 export async function streamDistanceStudy(db: Db, logger: Logger, userId: string, modelId: string, body: StudyRequest, res: Response): Promise<void> {
   const { row, mission, role } = modelFor(db, userId, modelId, 'run');
-  const kase = caseOfMission(db, mission, body.caseId, role, 'caseId');
+  const loadCase = caseOfMission(db, mission, body.caseId, role, 'caseId');
   if (!row.model.nodes.some((n) => n.name === body.node)) {
     const message = `no node is named ${JSON.stringify(body.node)} in model "${row.name}"`;
     throw badRequest(`node: ${message}.`, [{ path: 'node', message }]);
@@ -31,11 +31,11 @@ export async function streamDistanceStudy(db: Db, logger: Logger, userId: string
     ...(body.bodyIds ?? []).flatMap(bodyDistances),
     ...(body.distancesAu ?? []).map((d) => ({ label: `${d} AU`, distanceAu: d })),
   ].sort((a, b) => a.distanceAu - b.distanceAu);
-  const caseFlux = kase.results.solarFluxWm2;
+  const caseFlux = loadCase.results.solarFluxWm2;
   // Every distance's model is checked (and bounded) before the answer begins, so a refusal is a 4xx.
   const plans = distances.map((d) => {
     const solarScale = solarScaleAt(d.distanceAu, caseFlux);
-    return { ...d, solarScale, inputs: inputsFor(db, row, mission, kase, {}, solarScale) };
+    return { ...d, solarScale, inputs: inputsFor(db, row, mission, loadCase, {}, solarScale) };
   });
   const first = plans[0]?.inputs;
   const marginK = body.marginK ?? first?.parsed.margins?.operatingK ?? 0;
@@ -45,7 +45,7 @@ export async function streamDistanceStudy(db: Db, logger: Logger, userId: string
   res.write(ndjson({
     type: 'start',
     model: { id: row.id, name: row.name },
-    case: { ...caseRef(kase), solarFluxWm2: caseFlux },
+    case: { ...caseRef(loadCase), solarFluxWm2: caseFlux },
     node: body.node,
     marginK,
     distances,

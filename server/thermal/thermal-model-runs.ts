@@ -18,11 +18,11 @@ import { runInputs } from './thermal-run-inputs';
 
 type SizeRequest = z.output<typeof thermalModelSizeRequest>;
 
-export const caseRef = (c: LoadCaseRow) => ({ id: c.id, name: c.name, kind: c.kind, status: c.status, revision: c.revision });
+export const caseRef = (loadCase: LoadCaseRow) => ({ id: loadCase.id, name: loadCase.name, kind: loadCase.kind, status: loadCase.status, revision: loadCase.revision });
 
-export function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kase: LoadCaseRow, extra: Partial<ThermalSolveRequestInput> = {}, solarScale = 1) {
+export function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, loadCase: LoadCaseRow, extra: Partial<ThermalSolveRequestInput> = {}, solarScale = 1) {
   const names = new Map(db.select({ id: surfaces.id, name: surfaces.name }).from(surfaces).where(eq(surfaces.missionId, mission.id)).all().map((s) => [s.id, s.name]));
-  const base = runInputs(row.model, names, kase, solarScale);
+  const base = runInputs(row.model, names, loadCase, solarScale);
   const inputs = { ...base, request: { ...base.request, ...extra } };
   // The request is built from checked parts; parsing again fills the solver's defaults and keeps
   // the route honest should a case hold something the stateless route would refuse.
@@ -31,28 +31,28 @@ export function inputsFor(db: Db, row: ThermalModelRow, mission: MissionRow, kas
 
 export async function runModel(db: Db, userId: string, modelId: string, caseId: string, maxOrbits?: number, signal?: AbortSignal): Promise<ThermalRunResponse> {
   const { row, mission, role } = modelFor(db, userId, modelId, 'run');
-  const kase = caseOfMission(db, mission, caseId, role, 'caseId');
+  const loadCase = caseOfMission(db, mission, caseId, role, 'caseId');
   // A run that does not settle still answers: its last orbit, marked (result.converged false, result.unsettled).
-  const { request, nodes, assumptions, parsed } = inputsFor(db, row, mission, kase, { whenUnsettled: 'last-orbit', ...(maxOrbits !== undefined ? { maxOrbits } : {}) });
+  const { request, nodes, assumptions, parsed } = inputsFor(db, row, mission, loadCase, { whenUnsettled: 'last-orbit', ...(maxOrbits !== undefined ? { maxOrbits } : {}) });
   const result = await answerThermalAsync(thermalPool.run('solve', parsed, signal), 'impossible_model');
   const ranAt = new Date().toISOString();
   const answer: Omit<ThermalRunResponse, 'stale'> = {
     model: { id: row.id, name: row.name, updatedAt: row.updatedAt },
-    case: { ...caseRef(kase), periodS: kase.results.periodS, steps: kase.results.tS.length, eclipseFraction: kase.results.eclipseFraction, sunlit: kase.results.sunlit },
+    case: { ...caseRef(loadCase), periodS: loadCase.results.periodS, steps: loadCase.results.tS.length, eclipseFraction: loadCase.results.eclipseFraction, sunlit: loadCase.results.sunlit },
     crewed: mission.crewed,
     ranAt,
     inputs: nodes,
     solveRequest: { ...request },
     result,
-    recoveries: controlRecoveries(result, kase.results.sunlit, parsed.periodS),
+    recoveries: controlRecoveries(result, loadCase.results.sunlit, parsed.periodS),
     assumptions: [...assumptions, ...result.assumptions],
   };
   db.transaction((tx) => {
-    tx.delete(thermalRuns).where(and(eq(thermalRuns.modelId, row.id), eq(thermalRuns.caseId, kase.id))).run();
-    tx.insert(thermalRuns).values({ modelId: row.id, caseId: kase.id, pass: result.pass, modelUpdatedAt: row.updatedAt, result: answer, ranBy: userId, ranAt }).run();
+    tx.delete(thermalRuns).where(and(eq(thermalRuns.modelId, row.id), eq(thermalRuns.caseId, loadCase.id))).run();
+    tx.insert(thermalRuns).values({ modelId: row.id, caseId: loadCase.id, pass: result.pass, modelUpdatedAt: row.updatedAt, result: answer, ranBy: userId, ranAt }).run();
     recordAudit(tx, {
       workspaceId: mission.workspaceId, actorUserId: userId, action: 'thermal_model.run', targetType: 'thermal_model', targetId: row.id,
-      summary: `Ran thermal model "${row.name}" on case "${kase.name}" (${kase.kind}): ${result.converged ? (result.pass ? 'pass' : 'fail') : `not settled after ${result.orbits} orbits`}.`,
+      summary: `Ran thermal model "${row.name}" on case "${loadCase.name}" (${loadCase.kind}): ${result.converged ? (result.pass ? 'pass' : 'fail') : `not settled after ${result.orbits} orbits`}.`,
     });
   });
   return { ...answer, stale: false };
@@ -60,9 +60,9 @@ export async function runModel(db: Db, userId: string, modelId: string, caseId: 
 
 export function lastRun(db: Db, userId: string, modelId: string, caseId: string): ThermalRunResponse {
   const { row, mission, role } = modelFor(db, userId, modelId, 'read');
-  const kase = caseOfMission(db, mission, caseId, role, 'caseId');
-  const run = db.select().from(thermalRuns).where(and(eq(thermalRuns.modelId, row.id), eq(thermalRuns.caseId, kase.id))).get();
-  if (!run) throw notFound(`Thermal model "${row.name}" has not been run on case "${kase.name}" yet.`, 'no_run');
+  const loadCase = caseOfMission(db, mission, caseId, role, 'caseId');
+  const run = db.select().from(thermalRuns).where(and(eq(thermalRuns.modelId, row.id), eq(thermalRuns.caseId, loadCase.id))).get();
+  if (!run) throw notFound(`Thermal model "${row.name}" has not been run on case "${loadCase.name}" yet.`, 'no_run');
   // Runs kept before unsettled runs were answered have no `unsettled`: they all settled.
   return { ...run.result, result: { ...run.result.result, unsettled: run.result.result.unsettled ?? null }, stale: run.modelUpdatedAt !== row.updatedAt };
 }

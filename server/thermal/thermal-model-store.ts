@@ -77,15 +77,15 @@ function summaryOf(db: DbLike, row: ThermalModelRow): ThermalModelSummary {
 
 export function detailOf(db: DbLike, row: ThermalModelRow, crewed: boolean, role: Role): ThermalModelDetail {
   const runs = db
-    .select({ run: thermalRuns, kase: loadCases })
+    .select({ run: thermalRuns, loadCase: loadCases })
     .from(thermalRuns)
     .innerJoin(loadCases, eq(loadCases.id, thermalRuns.caseId))
     .where(eq(thermalRuns.modelId, row.id))
     .orderBy(desc(thermalRuns.ranAt))
     .all()
-    .filter(({ kase }) => role !== 'viewer' || visibleToViewer(kase.status))
-    .map(({ run, kase }) => ({
-      case: { id: kase.id, name: kase.name, kind: kase.kind, status: kase.status, revision: kase.revision },
+    .filter(({ loadCase }) => role !== 'viewer' || visibleToViewer(loadCase.status))
+    .map(({ run, loadCase }) => ({
+      case: { id: loadCase.id, name: loadCase.name, kind: loadCase.kind, status: loadCase.status, revision: loadCase.revision },
       pass: run.pass, ranAt: run.ranAt, stale: run.modelUpdatedAt !== row.updatedAt,
     }));
   return { ...summaryOf(db, row), crewed, model: row.model, runs };

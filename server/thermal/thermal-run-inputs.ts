@@ -6,6 +6,8 @@ import type { ThermalSolveRequestInput } from '../../shared/api/thermal';
 import type { SavedThermalNode, ThermalModelContent, ThermalRunNodeInput } from '../../shared/api/thermal-models';
 import type { LoadCaseRow } from '../db/schema';
 import { absorbedAtScale } from '../../shared/physics/thermal-distance-study';
+import { round } from '../../shared/physics/rounding';
+import { heatLoadFactor } from '../../shared/physics/design-environment';
 import { unprocessable } from '../errors';
 
 export interface RunInputs {
@@ -14,7 +16,6 @@ export interface RunInputs {
   assumptions: string[];
 }
 
-const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
 
 /** `values` (evenly spaced over one period) at `n` evenly spaced times, linear between samples, wrapping round the orbit. */
 export function resamplePeriodic(values: readonly number[], n: number): number[] {
@@ -68,17 +69,17 @@ function describeDissipation(d: SavedThermalNode['dissipationW']): string {
 }
 
 /**
- * The solve request of `model` on `kase`. `solarScale` multiplies the case's solar and albedo loads
+ * The solve request of `model` on `loadCase`. `solarScale` multiplies the case's solar and albedo loads
  * (the distance study's Sun at another distance); planetary IR is kept as it is.
  */
-export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<string, string>, kase: LoadCaseRow, solarScale = 1): RunInputs {
-  const results = kase.results;
+export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<string, string>, loadCase: LoadCaseRow, solarScale = 1): RunInputs {
+  const results = loadCase.results;
   const steps = results.tS.length;
   const byName = new Map(results.surfaces.map((s) => [s.name, s]));
-  const { heatLoadPercent, temperatureMarginC } = kase.inputs.margins;
-  const direction = kase.inputs.conditions.marginDirection;
+  const { heatLoadPercent, temperatureMarginC } = loadCase.inputs.margins;
+  const direction = loadCase.inputs.conditions.marginDirection;
   // The case's stored series are without its heat-load margin; the design case is with it.
-  const factor = direction === 'increase' ? 1 + heatLoadPercent / 100 : 1 - heatLoadPercent / 100;
+  const factor = heatLoadFactor(heatLoadPercent, direction);
 
   const nodeInputs: ThermalRunNodeInput[] = [];
   const nodes = model.nodes.map((node, i) => {
@@ -90,7 +91,7 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
       }
       const found = byName.get(name);
       if (!found) {
-        throw unprocessable(`The case "${kase.name}" has no surface named ${JSON.stringify(name)} (node ${JSON.stringify(node.name)}); derive the case again after adding the surface.`, [{ path: `model.nodes.${i}.surfaceIds.${j}`, message: `not in the case's snapshot: ${name}` }]);
+        throw unprocessable(`The case "${loadCase.name}" has no surface named ${JSON.stringify(name)} (node ${JSON.stringify(node.name)}); derive the case again after adding the surface.`, [{ path: `model.nodes.${i}.surfaceIds.${j}`, message: `not in the case's snapshot: ${name}` }]);
       }
       return found;
     });
@@ -104,7 +105,7 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
     const fromSurfaces = !explicit && areaM2 > 0;
     const surfaceEmissivity = fromSurfaces ? round(owned.reduce((sum, s) => sum + s.areaM2 * s.emissivity, 0) / areaM2, 6) : null;
     const radiator = fromSurfaces ? { radiatorAreaM2: round(areaM2, 6), emissivity: surfaceEmissivity ?? 0 } : {};
-    const dissipationW = dissipationFor(node, kase.kind);
+    const dissipationW = dissipationFor(node, loadCase.kind);
     nodeInputs.push({
       name: node.name,
       surfaces: owned.map((s) => s.name),
@@ -137,7 +138,7 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
     ...(model.substeps !== undefined ? { substeps: model.substeps } : {}),
   };
   const assumptions = [
-    `Loads from case "${kase.name}" (${kase.kind}, revision ${kase.revision}, ${kase.status}): each node absorbs the sum of its surfaces' absorbed loads, ${steps} samples over ${round(results.periodS, 1)} s.`,
+    `Loads from case "${loadCase.name}" (${loadCase.kind}, revision ${loadCase.revision}, ${loadCase.status}): each node absorbs the sum of its surfaces' absorbed loads, ${steps} samples over ${round(results.periodS, 1)} s.`,
     ...(results.weightS
       ? ['The case is sampled densely at periapsis; its loads are averaged over each of the solver\'s even time steps, so the periapsis pass keeps its energy but is spread over the step it falls in.']
       : []),

@@ -9,8 +9,9 @@ import { lineText } from './text';
 import { bodyIds } from '../physics/bodies';
 import type { EnvironmentRequest } from '../physics/environment';
 import { albedoModels, irModels } from '../physics/cap-loads';
-import { namedNormals } from '../physics/heat-loads';
+import { surfaceNormal } from './pointing';
 import { samplings } from '../physics/orbit-sampling';
+import { DAY_MS } from '../physics/constants';
 
 const finite = (label: string) => z.number({ message: `${label} must be a number` });
 
@@ -60,17 +61,9 @@ export const orbitInput = z
     }
   });
 
-export const localVector = z
-  .strictObject({ x: finite('x'), y: finite('y'), z: finite('z') })
-  .refine((v) => Math.abs(Math.hypot(v.x, v.y, v.z) - 1) <= 0.01, {
-    message: 'a custom normal is a unit vector {x, y, z} (x ram, y orbit normal, z zenith); its length must be 1',
-  });
-
 export const surfaceInput = z.strictObject({
   name: lineText(80, 'a surface name has at most 80 characters').min(1, 'give the surface a name'),
-  normal: z.union([z.enum(namedNormals), localVector], {
-    message: `normal is one of ${namedNormals.join(', ')} or a unit vector {x, y, z}`,
-  }),
+  normal: surfaceNormal,
   areaM2: finite('area').positive('area must be above 0 m^2').max(10000),
   absorptivity: finite('absorptivity').min(0, 'absorptivity is 0..1').max(1, 'absorptivity is 0..1'),
   emissivity: finite('emissivity').min(0, 'emissivity is 0..1').max(1, 'emissivity is 0..1'),
@@ -238,7 +231,6 @@ export const sunSynchronousResponse = z.object({
 
 /** The most samples one beta history may hold. */
 export const MAX_BETA_HISTORY_SAMPLES = 20000;
-const DAY_MS = 86400e3;
 const isoDateTime = (label: string) =>
   z.iso.datetime({ offset: true, message: `${label} is an ISO 8601 date and time, e.g. 2027-03-20T00:00:00Z` });
 

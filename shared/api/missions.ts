@@ -24,9 +24,8 @@ import { z } from 'zod';
 import { lineText, multilineText } from './text';
 import { answerLayout } from './answer-formats';
 import { bodyIds } from '../physics/bodies';
-import { namedNormals } from '../physics/heat-loads';
 import { samplings } from '../physics/orbit-sampling';
-import { localVector } from './environment';
+import { surfaceNormal } from './pointing';
 
 const isoDate = z.iso.date({ message: 'is a date like 2027-03-20' });
 const text = (label: string, max: number) => lineText(max, `the ${label} has at most ${max} characters`).min(1, `give the ${label}`);
@@ -146,9 +145,7 @@ export const materialCreate = z.strictObject({
 });
 export const materialUpdate = materialCreate.partial();
 
-export const surfaceNormal = z.union([z.enum(namedNormals), localVector], {
-  message: `normal is one of ${namedNormals.join(', ')} or a unit vector {x, y, z}`,
-});
+export { surfaceNormal };
 
 export const surface = z.object({
   id: z.string(),

@@ -9,8 +9,9 @@
 // peak; DOMAIN.md), and the Lambertian integral is used. Either albedo model can be asked for.
 // Leaves out: what cap-radiance.ts leaves out.
 import type { Body } from './bodies';
-import { capNodes, floorExitanceWm2, meanExitanceWm2, plateFluxes, plateNodes, surfaceTemperatureK, type CapNodes, type PlateNodes, type SurfaceField } from './cap-radiance';
+import { capNodes, floorExitanceWm2, meanExitanceWm2, plateFluxes, plateNodes, spinPlateNodes, surfaceTemperatureK, type CapNodes, type PlateNodes, type SurfaceField } from './cap-radiance';
 import type { GridShade, OrbitGrid } from './orbit-grid';
+import { pointingColumns, type PointingPlan } from './pointing';
 import type { PreparedSurface } from './surface-grid';
 
 export const albedoModels = ['lambertian', 'subsolar-cosine'] as const;
@@ -88,7 +89,7 @@ export interface CapColumns {
 /** Whether the chosen models need the cap quadrature (else both closed forms apply). */
 export const needsCap = (choice: CapModelChoice): boolean => choice.albedoModel === 'lambertian' || choice.field !== null;
 
-/** The cap nodes of the plates at one sample: null for a Sun-pointed plate (its nodes move with the Sun). */
+/** The cap nodes of the plates at one sample: null for a moving plate (its nodes move with its normal). */
 export interface SampleNodes {
   cap: CapNodes;
   plates: (PlateNodes | null)[];
@@ -127,6 +128,12 @@ export function capExitances(choice: CapModelChoice, solarFluxWm2: number, albed
   return { reflected: solarFluxWm2 * albedo, day: field ? solarFluxWm2 * (1 - field.bondAlbedo) : 0, floor: field ? floorExitanceWm2(field) : 0 };
 }
 
+/** The cap nodes of a plan's plate whose normal (a spinner's axis) is (nx, ny, nz) at this instant. */
+export function pointingPlateNodes(plan: PointingPlan, cap: CapNodes, nx: number, ny: number, nz: number): PlateNodes {
+  const spin = plan.spin;
+  return spin ? spinPlateNodes(cap, nx, ny, nz, spin.cos, spin.sin) : plateNodes(cap, nx, ny, nz);
+}
+
 /** Cap-quadrature columns for the chosen models, or null when both closed forms apply. */
 export function capColumns(
   choice: CapModelChoice, prepared: readonly PreparedSurface[], grid: OrbitGrid, shade: GridShade, sunW: number,
@@ -142,13 +149,16 @@ export function capColumns(
   const irWm2 = columns();
   const { reflected, day, floor } = capExitances(choice, solarFluxWm2, albedo);
   const out = new Float64Array(2);
+  // a moving plate's normal (a spinner's axis) at every sample (pointing.ts)
+  const moving = prepared.map((p) => (p.plan ? pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm) : null));
   for (let k = 0; k < steps; k++) {
     const { cap, plates } = nodesAt(k);
     const sx = shade.cx[k];
     const sz = shade.cz[k];
     for (let j = 0; j < prepared.length; j++) {
-      // a Sun-pointed plate's nodes move with the Sun
-      const plate = plates[j] ?? plateNodes(cap, sx, sunW, sz);
+      const m = moving[j];
+      // a moving plate's nodes move with its normal
+      const plate = plates[j] ?? (m ? pointingPlateNodes(prepared[j].plan!, cap, m.nx[k], m.ny[k], m.nz[k]) : null)!;
       plateFluxes(plate, sx, sunW, sz, reflected, day, floor, out);
       albedoWm2[j][k] = out[0];
       irWm2[j][k] = out[1];

@@ -112,10 +112,30 @@ export function capNodes(h: number, radial = RADIAL_NODES, azimuth = AZIMUTH_NOD
 
 /** The nodes a plate of unit normal (nx, ny, nz) sees, each weighted by its cosine on the plate; those behind it dropped. */
 export function plateNodes(cap: CapNodes, nx: number, ny: number, nz: number): PlateNodes {
+  return weightedNodes(cap, (rx, ry, rz) => {
+    const c = nx * rx + ny * ry + nz * rz;
+    return c > 0 ? c : 0;
+  });
+}
+
+/**
+ * The nodes of a plate on a body spinning about the unit axis (ax, ay, az), its normal at cone angle
+ * (cos, sin) from the axis: each ray's cosine on the plate averaged over a turn, in closed form (the
+ * mean of max(0, sin sin(psi) cos(phi) + cos cos(psi)), psi the ray's angle from the axis).
+ */
+export function spinPlateNodes(cap: CapNodes, ax: number, ay: number, az: number, cos: number, sin: number): PlateNodes {
+  return weightedNodes(cap, (rx, ry, rz) => {
+    const c = ax * rx + ay * ry + az * rz;
+    return meanPositiveCosine(sin * Math.sqrt(Math.max(0, 1 - c * c)), cos * c);
+  });
+}
+
+/** The nodes whose ray has a positive (mean) cosine on the plate, weighted by it. */
+function weightedNodes(cap: CapNodes, cosineOf: (rx: number, ry: number, rz: number) => number): PlateNodes {
   const keep: number[] = [];
   const weights: number[] = [];
   for (let k = 0; k < cap.count; k++) {
-    const cosPlate = nx * cap.rx[k] + ny * cap.ry[k] + nz * cap.rz[k];
+    const cosPlate = cosineOf(cap.rx[k], cap.ry[k], cap.rz[k]);
     // the base weight is per projected solid angle on a nadir plate (cos eta = -rz); the plate's own cosine replaces it
     if (cosPlate > 0) {
       keep.push(k);
@@ -174,7 +194,7 @@ export function meanExitanceWm2(field: SurfaceField, solarFluxWm2: number): numb
 }
 
 /** Mean over a full turn of max(A cos(theta) + b, 0), A >= 0 (elementary integral). */
-function meanPositiveCosine(a: number, b: number): number {
+export function meanPositiveCosine(a: number, b: number): number {
   if (b >= a) return b;
   if (b <= -a) return 0;
   return (b * Math.acos(-b / a) + Math.sqrt(a * a - b * b)) / Math.PI;

@@ -22,6 +22,8 @@ export const OBLIQUITY_J2000_DEG = 23.4392911;
 export const TT_MINUS_UTC_S = 69.184;
 
 export const SECONDS_PER_DAY = 86400;
+/** A day of 86 400 s in milliseconds, as Date counts time (UTC days; leap seconds are not counted). */
+export const DAY_MS = SECONDS_PER_DAY * 1000;
 export const DAYS_PER_JULIAN_CENTURY = 36525;
 /** Julian date of J2000.0 (2000-01-01 12:00 TT). */
 export const J2000_JD = 2451545.0;

@@ -5,8 +5,8 @@
 // coupling between parameters: the worst Sun distance and the worst beta are combined even when
 // they fall on different days, the usual conservative practice (DOMAIN.md "Cases" [P, G]).
 import { getBody, solarDistanceRangeAu, type Body, type BodyId } from './bodies';
-import { caseRationale, fixed as f, type CaseDecision } from './case-why';
-import { designPairs, opticalProperties, type CaseMaterial, type EnvironmentPair, type Margins, type PropertySet } from './design-environment';
+import { caseRationale, fixed, type CaseDecision } from './case-why';
+import { designPairs, heatLoadFactor, opticalProperties, type CaseMaterial, type EnvironmentPair, type MarginDirection, type Margins, type PropertySet } from './design-environment';
 import { candidateDays, maxBy, raanOnDateRad, scanMission, type ScanDay } from './design-scan';
 import { computeEnvironment, type EnvironmentResult } from './environment';
 import { capAssumptions, chooseCapModels } from './cap-loads';
@@ -15,7 +15,9 @@ import type { Sampling } from './orbit-sampling';
 import type { SurfaceNormal } from './heat-loads';
 import { defineOrbit, type OrbitInput } from './orbit-definition';
 import { solarFluxWm2 } from './sun';
-import { DEG } from './vector3';
+import { DEG, wrapDeg } from './vector3';
+import { DAY_MS } from './constants';
+import { round } from './rounding';
 
 export interface CaseSurface {
   name: string;
@@ -39,7 +41,7 @@ export interface CaseConditions {
   olrWm2: number;
   properties: PropertySet;
   /** Hot cases add the heat-load margin, cold cases take it off. */
-  marginDirection: 'increase' | 'decrease';
+  marginDirection: MarginDirection;
   steps: number;
   surfaces: CaseSurface[];
   /** An airless body's surface temperature field (its Bond albedo is `albedo`); absent: the uniform `olrWm2`. */
@@ -89,44 +91,38 @@ export interface CaseResults {
   total: { orbitAverageAbsorbedW: number; orbitAverageWithMarginW: number; peakAbsorbedW: number };
 }
 
-/** Rounds as stored case results are rounded (never -0). */
-export const round = (x: number, digits = 4): number => {
-  const k = 10 ** digits;
-  const r = Math.round(x * k) / k;
-  return Object.is(r, -0) ? 0 : r;
-};
 
 const noonOf = (date: string): Date => new Date(`${date}T12:00:00Z`);
 
-function environmentFor(c: CaseConditions, steps: number): EnvironmentResult {
-  const body = getBody(c.bodyId);
-  const orbit = defineOrbit(c.orbit, body);
-  const at = c.orbitStart === undefined ? noonOf(c.date) : new Date(c.orbitStart);
-  const raanDeg = raanOnDateRad(orbit, new Date(c.orbitEpoch), at) / DEG;
+function environmentFor(conditions: CaseConditions, steps: number): EnvironmentResult {
+  const body = getBody(conditions.bodyId);
+  const orbit = defineOrbit(conditions.orbit, body);
+  const at = conditions.orbitStart === undefined ? noonOf(conditions.date) : new Date(conditions.orbitStart);
+  const raanDeg = raanOnDateRad(orbit, new Date(conditions.orbitEpoch), at) / DEG;
   return computeEnvironment({
-    bodyId: c.bodyId,
-    orbit: { ...c.orbit, raanDeg: ((raanDeg % 360) + 360) % 360 },
+    bodyId: conditions.bodyId,
+    orbit: { ...conditions.orbit, raanDeg: wrapDeg(raanDeg) },
     epoch: at.toISOString(),
-    betaDeg: c.betaDeg,
-    solarDistanceAu: c.solarDistanceAu,
-    albedo: c.albedo,
-    ...(c.surfaceField
-      ? { irModel: 'surface-temperature' as const, surfaceEmissivity: c.surfaceField.emissivity, nightFloorK: c.surfaceField.nightFloorK }
-      : { irModel: 'uniform' as const, olrWm2: c.olrWm2 }),
-    sampling: c.sampling ?? 'time',
+    betaDeg: conditions.betaDeg,
+    solarDistanceAu: conditions.solarDistanceAu,
+    albedo: conditions.albedo,
+    ...(conditions.surfaceField
+      ? { irModel: 'surface-temperature' as const, surfaceEmissivity: conditions.surfaceField.emissivity, nightFloorK: conditions.surfaceField.nightFloorK }
+      : { irModel: 'uniform' as const, olrWm2: conditions.olrWm2 }),
+    sampling: conditions.sampling ?? 'time',
     steps,
-    surfaces: c.surfaces.map((s) => ({ name: s.name, normal: s.normal, areaM2: s.areaM2, ...opticalProperties(s.material, c.properties) })),
+    surfaces: conditions.surfaces.map((s) => ({ name: s.name, normal: s.normal, areaM2: s.areaM2, ...opticalProperties(s.material, conditions.properties) })),
   });
 }
 
 /** A case's results: per-surface time series of incident (W/m^2) and absorbed (W) loads, orbit averages and peaks. */
-export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
-  const env = environmentFor(c, c.steps);
-  const factor = c.marginDirection === 'increase' ? 1 + margins.heatLoadPercent / 100 : 1 - margins.heatLoadPercent / 100;
+export function evaluateCase(conditions: CaseConditions, margins: Margins): CaseResults {
+  const env = environmentFor(conditions, conditions.steps);
+  const factor = heatLoadFactor(margins.heatLoadPercent, conditions.marginDirection);
   // time weights per sample (equal when evenly spaced in time): averages stay time averages
   const weights = env.sampleWeightsS ?? env.profile.map(() => env.periodS / env.profile.length);
-  const surfaces = c.surfaces.map((s, i): CaseSurfaceResult => {
-    const { absorptivity, emissivity } = opticalProperties(s.material, c.properties);
+  const surfaces = conditions.surfaces.map((s, i): CaseSurfaceResult => {
+    const { absorptivity, emissivity } = opticalProperties(s.material, conditions.properties);
     const loads = env.profile.map((p) => p.surfaces[i]!);
     const watts = (w: { solarWm2: number; albedoWm2: number; irWm2: number }) => ({
       solarW: s.areaM2 * absorptivity * w.solarWm2,
@@ -135,10 +131,10 @@ export function evaluateCase(c: CaseConditions, margins: Margins): CaseResults {
     });
     const perStep = loads.map((l) => ({ ...l, ...watts(l) }));
     const mean = (pick: (x: (typeof perStep)[number]) => number) => perStep.reduce((sum, x, k) => sum + pick(x) * weights[k]!, 0) / env.periodS;
-    const summary = (f: (pick: (x: (typeof perStep)[number]) => number) => number): LoadSummary => ({
-      solarWm2: round(f((x) => x.solarWm2)), albedoWm2: round(f((x) => x.albedoWm2)), irWm2: round(f((x) => x.irWm2)),
-      solarW: round(f((x) => x.solarW)), albedoW: round(f((x) => x.albedoW)), irW: round(f((x) => x.irW)),
-      absorbedW: round(f((x) => x.absorbedW)),
+    const summary = (reduce: (pick: (x: (typeof perStep)[number]) => number) => number): LoadSummary => ({
+      solarWm2: round(reduce((x) => x.solarWm2)), albedoWm2: round(reduce((x) => x.albedoWm2)), irWm2: round(reduce((x) => x.irWm2)),
+      solarW: round(reduce((x) => x.solarW)), albedoW: round(reduce((x) => x.albedoW)), irW: round(reduce((x) => x.irW)),
+      absorbedW: round(reduce((x) => x.absorbedW)),
     });
     const orbitAverage = summary(mean);
     // the peaks the environment searched for between samples too (orbit-sampling.ts)
@@ -269,7 +265,7 @@ export function deriveDesignCases(input: DerivationInput): Derivation {
   const orbit = defineOrbit(input.orbit, body);
   const scan = scanMission(body, orbit, new Date(input.orbitEpoch), input.startDate, input.endDate);
   const candidates = candidateDays(scan);
-  const spanDays = Math.round((noonOf(input.endDate).getTime() - noonOf(input.startDate).getTime()) / 86_400_000) + 1;
+  const spanDays = Math.round((noonOf(input.endDate).getTime() - noonOf(input.startDate).getTime()) / DAY_MS) + 1;
   const spansFullYear = spanDays >= body.solarYearDays;
   const pairs = designPairs(body, orbit.inclinationRad / DEG);
   const summary: ScanSummary = {
@@ -279,9 +275,9 @@ export function deriveDesignCases(input: DerivationInput): Derivation {
     solarDistanceMaxAu: round(Math.max(...scan.map((d) => d.solarDistanceAu)), 6),
     spansFullYear,
   };
-  const one = (kind: 'hot' | 'cold'): DerivedCase =>
+  const derive = (kind: 'hot' | 'cold'): DerivedCase =>
     deriveOne(kind, input, body, scan, candidates, spansFullYear, input.environment?.[kind] ?? pairs[kind]);
-  return { hot: one('hot'), cold: one('cold'), scan: summary };
+  return { hot: derive('hot'), cold: derive('cold'), scan: summary };
 }
 
 function deriveOne(
@@ -322,7 +318,7 @@ function deriveOne(
   // largest (smallest) while quoting another that beats it. About a moon, the longest shadow decides.
   const steps = input.steps ?? 120;
   // About a moon the case's orbit starts amid the planet's shadow (conditions.orbitStart).
-  const startingAt = (e: Evaluated, c: CaseConditions): CaseConditions => (e.orbitStart === undefined ? c : { ...c, orbitStart: e.orbitStart });
+  const startingAt = (e: Evaluated, given: CaseConditions): CaseConditions => (e.orbitStart === undefined ? given : { ...given, orbitStart: e.orbitStart });
   const finalists = darkest ? [evaluated[evaluated.length - 1]!] : [...evaluated].sort((a, b) => sign * (b.total - a.total)).slice(0, FINALISTS);
   if (!finalists.includes(eclipseExtreme)) finalists.push(eclipseExtreme);
   const scored = finalists.map((e) => ({ e, results: evaluateCase(startingAt(e, base(e.day, steps)), input.margins) }));
@@ -358,25 +354,25 @@ function deriveOne(
     const caseW = results.surfaces[i]!.orbitAverage.absorbedW;
     const w = sameAsCase ? caseW : best.env.orbitAverage.surfaces[i]!.absorbedW;
     const text = sameAsCase
-      ? `${s.name}: ${hot ? 'hottest' : 'coldest'} in the spacecraft's case (beta ${f(best.day.betaDeg)} deg, ${f(w)} W orbit-average absorbed)`
-      : `${s.name}: ${hot ? 'hottest' : 'coldest'} at beta ${f(best.day.betaDeg)} deg on ${best.day.date} (${f(w)} W orbit-average absorbed; the spacecraft's case gives it ${f(caseW)} W)`;
+      ? `${s.name}: ${hot ? 'hottest' : 'coldest'} in the spacecraft's case (beta ${fixed(best.day.betaDeg)} deg, ${fixed(w)} W orbit-average absorbed)`
+      : `${s.name}: ${hot ? 'hottest' : 'coldest'} at beta ${fixed(best.day.betaDeg)} deg on ${best.day.date} (${fixed(w)} W orbit-average absorbed; the spacecraft's case gives it ${fixed(caseW)} W)`;
     return { surface: s.name, date: best.day.date, betaDeg: round(best.day.betaDeg, 3), orbitAverageAbsorbedW: round(w), sameAsCase, text };
   });
   return { kind, conditions, environmentSource: pair.source, provisional: pair.provisional, decision, rationale, surfaceDrivers, results };
 }
 
 /** The albedo, IR and sampling models a case's loads use, in words (cap-loads.ts chooses them as for the compute route). */
-export function caseModelAssumptions(c: CaseConditions): string[] {
-  const body = getBody(c.bodyId);
-  const orbit = defineOrbit(c.orbit, body);
-  const request = c.surfaceField
-    ? { irModel: 'surface-temperature' as const, surfaceEmissivity: c.surfaceField.emissivity, nightFloorK: c.surfaceField.nightFloorK }
-    : { irModel: 'uniform' as const, olrWm2: c.olrWm2 };
-  const models = chooseCapModels(body, request, c.albedo, orbit.apoapsisAltitudeKm);
-  const sampling = c.sampling === 'eccentric-anomaly'
+export function caseModelAssumptions(conditions: CaseConditions): string[] {
+  const body = getBody(conditions.bodyId);
+  const orbit = defineOrbit(conditions.orbit, body);
+  const request = conditions.surfaceField
+    ? { irModel: 'surface-temperature' as const, surfaceEmissivity: conditions.surfaceField.emissivity, nightFloorK: conditions.surfaceField.nightFloorK }
+    : { irModel: 'uniform' as const, olrWm2: conditions.olrWm2 };
+  const models = chooseCapModels(body, request, conditions.albedo, orbit.apoapsisAltitudeKm);
+  const sampling = conditions.sampling === 'eccentric-anomaly'
     ? ['series sampled evenly in eccentric anomaly (dense at periapsis); averages weight each sample by its share of the period (weightS)']
     : ['series sampled evenly in time; the peaks of an eccentric orbit are searched between samples too'];
-  return [...capAssumptions(models, solarFluxWm2(c.solarDistanceAu)), ...sampling];
+  return [...capAssumptions(models, solarFluxWm2(conditions.solarDistanceAu)), ...sampling];
 }
 
 const totalOf = (env: EnvironmentResult): number => env.orbitAverage.surfaces.reduce((s, l) => s + l.absorbedW, 0);

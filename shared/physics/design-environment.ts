@@ -88,11 +88,18 @@ export const defaultMargins = (): Margins => ({
   heatLoadPercent: DEFAULT_HEAT_LOAD_MARGIN_PERCENT,
   temperatureMarginC: DEFAULT_TEMPERATURE_MARGIN_C,
   sources: {
-    heatLoadPercent: 'default: MIL-STD-1540, 25 % on heat loads for active systems (Gilmore Vol. I ch. 19)',
+    heatLoadPercent: `default: MIL-STD-1540, ${DEFAULT_HEAT_LOAD_MARGIN_PERCENT} % on heat loads for active systems (Gilmore Vol. I ch. 19)`,
     temperatureMarginC:
-      'default: MIL-STD-1540, 17 C before model correlation (11 C once correlated) (Gilmore Vol. I ch. 19)',
+      `default: MIL-STD-1540, ${DEFAULT_TEMPERATURE_MARGIN_C} C before model correlation (${CORRELATED_TEMPERATURE_MARGIN_C} C once correlated) (Gilmore Vol. I ch. 19)`,
   },
 });
+
+/** Hot cases add the heat-load margin to the absorbed loads, cold cases take it off. */
+export type MarginDirection = 'increase' | 'decrease';
+
+/** The factor on a case's absorbed loads: 1 + margin for a hot case, 1 - margin for a cold one (MIL-STD-1540 via Gilmore Vol. I ch. 19). */
+export const heatLoadFactor = (heatLoadPercent: number, direction: MarginDirection): number =>
+  direction === 'increase' ? 1 + heatLoadPercent / 100 : 1 - heatLoadPercent / 100;
 
 /** Margins with the user's values over the defaults; a changed value says it was chosen by the project. */
 export function resolveMargins(given: { heatLoadPercent?: number | undefined; temperatureMarginC?: number | undefined } | undefined): Margins {
@@ -105,7 +112,7 @@ export function resolveMargins(given: { heatLoadPercent?: number | undefined; te
     margins.temperatureMarginC = given.temperatureMarginC;
     margins.sources.temperatureMarginC =
       given.temperatureMarginC === CORRELATED_TEMPERATURE_MARGIN_C
-        ? 'MIL-STD-1540, 11 C with a correlated model (Gilmore Vol. I ch. 19)'
+        ? `MIL-STD-1540, ${CORRELATED_TEMPERATURE_MARGIN_C} C with a correlated model (Gilmore Vol. I ch. 19)`
         : `project choice (default ${DEFAULT_TEMPERATURE_MARGIN_C} C per MIL-STD-1540)`;
   }
   return margins;

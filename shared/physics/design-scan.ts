@@ -6,7 +6,8 @@ import type { Body, BodyId } from './bodies';
 import { missionDays, type MissionDays } from './mission-days';
 import type { Orbit } from './orbit-definition';
 import { PhysicsError } from './physics-error';
-import { DEG } from './vector3';
+import { DEG, wrapDeg } from './vector3';
+import { DAY_MS } from './constants';
 
 export interface ScanDay {
   /** YYYY-MM-DD; the sample is taken at 12:00 UTC. */
@@ -18,7 +19,6 @@ export interface ScanDay {
   parentShadow: { durationS: number; startMs: number; castBy: BodyId[]; parentS: number; parentMiddleMs: number } | null;
 }
 
-const DAY_MS = 86_400_000;
 // Beyond about ten years of daily samples the scan steps more coarsely; beta moves slowly enough.
 const MAX_SAMPLES = 3700;
 
@@ -34,7 +34,6 @@ function checkDate(date: string, path: string): Date {
 
 export { raanOnDateRad } from './mission-days';
 
-const wrapDeg = (deg: number): number => ((deg % 360) + 360) % 360;
 
 /** One sample a day (coarser for very long missions) from startDate to endDate inclusive. */
 export function scanMission(body: Body, orbit: Orbit, orbitEpoch: Date, startDate: string, endDate: string): ScanDay[] {

@@ -3,7 +3,7 @@
 // with the orbit averages, peaks and eclipse. environment.ts shapes this into the API's answer; the
 // benchmark times this part against the numpy reference, which computes the same quantities.
 // Leaves out: everything the modules it calls leave out; the Sun is held fixed for the one orbit
-// computed. About a moon with an epoch, the planet's shadow (parent-shadow.ts) darkens the samples
+// computed. Surfaces take every pointing form of pointing.ts. About a moon with an epoch, the planet's shadow (parent-shadow.ts) darkens the samples
 // it covers and the eclipse is counted from both bodies. Source: API.md "Environment computation".
 import { getBody, type BodyId } from './bodies';
 import { betaFromVectorsRad } from './beta-angle';
@@ -21,6 +21,8 @@ import { solarFluxWm2, sunFromBody } from './sun';
 import { orbitWarnings } from './orbit-warnings';
 import { combinedSunlit, parentShadow, type ParentShadow } from './parent-shadow';
 import { prepareSurfaces } from './surface-grid';
+import { j2000ToPerifocal } from './pointing';
+import { pointingAssumptions } from './pointing-words';
 import { DEG, dot, norm, scale, subtract, type Vector3 } from './vector3';
 
 export interface EnvironmentRequest {
@@ -78,6 +80,8 @@ export interface EnvironmentColumns {
   parentShadowS: number;
   /** Plain-words warnings about the orbit (orbit-warnings.ts). */
   warnings: string[];
+  /** The assumptions of the pointing forms the surfaces use (pointing-words.ts). */
+  pointing: string[];
 }
 
 export const DEFAULT_STEPS = 360;
@@ -146,10 +150,12 @@ export function computeEnvironmentColumns(request: EnvironmentRequest): Environm
   const epochMs = request.epoch === undefined ? null : parseEpoch(request.epoch).getTime();
   const planetShadow = epochMs === null ? null : parentShadow(body, orbit, epochMs);
   const parentOn = (g: OrbitGrid): Float64Array | null => (planetShadow && epochMs !== null ? parentSunlitOnGrid(planetShadow, g, epochMs) : null);
+  // An inertial pointing's direction, body equatorial J2000, in this orbit's perifocal frame (pointing.ts).
+  const toOrbit = j2000ToPerifocal(body, basis, request.epoch === undefined ? null : parseEpoch(request.epoch));
   const loadsOn = (g: OrbitGrid, shade: GridShade, parent = parentOn(g)): ProfileColumns => {
     shadeGrid(g, sun, shade);
     if (parent) for (let k = 0; k < g.steps; k++) shade.sunlit[k] = combinedSunlit(shade.sunlit[k], parent[k]);
-    const prepared = prepareSurfaces(request.surfaces, g, body.radiusKm);
+    const prepared = prepareSurfaces(request.surfaces, g, body.radiusKm, toOrbit);
     const cap = capColumns(models, prepared, g, shade, sun.sw, body.radiusKm, solarFlux, albedo);
     return profileColumns(prepared, g, shade, sun.sw, body.radiusKm, solarFlux, albedo, olrWm2, cap);
   };
@@ -176,6 +182,7 @@ export function computeEnvironmentColumns(request: EnvironmentRequest): Environm
     sampling, grid, weightS: onE?.weightS ?? null, shade, loads,
     averages: onE ? weightedAverages(loads, onE.weightS, orbit.periodS) : averaged(loads.sums, steps),
     parentSunlit, parentBodyId: body.parentId, parentShadowS, warnings: orbitWarnings(body, orbit),
+    pointing: pointingAssumptions(request.surfaces.map((s) => s.normal)),
   };
 }
 

@@ -61,11 +61,11 @@ describe('computeEnvironment (API.md "Environment computation")', () => {
     expect(below).toThrow('periapsis is 312 km below the surface of Earth');
   });
 
-  it('100000 steps run in well under a second (task requirement)', () => {
-    const started = performance.now();
+  // Its time is measured in bench/environment.bench.ts, row (f), never in a test.
+  it('answers an orbit of 100000 steps, every step finite (API.md: steps up to 100000)', () => {
     const r = computeEnvironment({ ...example, steps: 100000 });
     expect(r.profile).toHaveLength(100000);
-    expect(performance.now() - started).toBeLessThan(1000);
+    expect(r.profile.every((p) => p.surfaces.every((s) => Number.isFinite(s.absorbedW)))).toBe(true);
   });
 
   it('the zod schema accepts API.md\'s example and refuses two orbit definitions, steps 11 and a bad normal (400s)', () => {

@@ -8,7 +8,7 @@ import type { Sampling } from './orbit-sampling';
 import { computeEnvironmentColumns, type EnvironmentColumns, type EnvironmentRequest } from './environment-columns';
 import type { SurfaceLoad } from './heat-loads';
 import { profilePoints, surfaceLoads, type ProfilePoint } from './profile-loads';
-import { DEG } from './vector3';
+import { degPerDay } from './kepler';
 
 export { DEFAULT_STEPS, ECLIPSE_SCAN_STEPS, computeEnvironmentColumns, type EnvironmentColumns, type EnvironmentRequest } from './environment-columns';
 export type { ProfilePoint } from './profile-loads';
@@ -64,7 +64,7 @@ export const CAUTION = 'preliminary-design estimate from simplified models; veri
 
 /** The assumptions of an answer: the models it used, in words. */
 export function environmentAssumptions(c: EnvironmentColumns): string[] {
-  const used = [ECLIPSE_ASSUMPTION, ...(c.parentBodyId ? [PARENT_SHADOW] : []), ...capAssumptions(c.models, c.solarFluxWm2), SUN_FIXED, SAMPLING[c.sampling], CAUTION];
+  const used = [ECLIPSE_ASSUMPTION, ...(c.parentBodyId ? [PARENT_SHADOW] : []), ...capAssumptions(c.models, c.solarFluxWm2), ...c.pointing, SUN_FIXED, SAMPLING[c.sampling], CAUTION];
   return [...used, ...c.warnings.map((w) => `warning: ${w}`)];
 }
 
@@ -92,7 +92,7 @@ export function environmentHeader(c: EnvironmentColumns): Omit<EnvironmentResult
     eclipseDurationS: eclipse.eclipseDurationS,
     umbraDurationS: eclipse.umbraS,
     penumbraDurationS: eclipse.penumbraS,
-    nodalRateDegPerDay: (orbit.nodalRateRadS / DEG) * 86400,
+    nodalRateDegPerDay: degPerDay(orbit.nodalRateRadS),
     parentBodyId: c.parentBodyId,
     parentShadowDurationS: c.parentShadowS,
   };

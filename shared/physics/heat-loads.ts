@@ -1,6 +1,6 @@
 // Incident and absorbed environmental heat on flat surfaces: direct solar, albedo (sunlight the body
 // reflects) and planetary IR (the body's outgoing long-wave radiation), for surfaces fixed in the
-// local orbital frame or pointed at the Sun.
+// local orbital frame, or at each instant for any pointing (pointing.ts).
 // Leaves out: the angular (non-Lambertian) reflection of real albedo, the correction for high solar
 // zenith angles (NASA/TM-2001-211221), spatial variation of albedo and OLR, shadowing between
 // surfaces and IR exchange with the spacecraft itself. Albedo is S a F cos(theta_subsolar) on the
@@ -8,6 +8,7 @@
 // plate-to-sphere view factor F (Howell catalogue); solar is S cos(incidence) times the sunlit share.
 import { PhysicsError } from './physics-error';
 import { plateToSphereViewFactor } from './view-factors';
+import type { SurfaceNormal } from './pointing';
 import type { Vector3 } from './vector3';
 
 export const namedNormals = ['nadir', 'zenith', 'ram', 'wake', 'orbit-normal', 'anti-orbit-normal', 'sun'] as const;
@@ -18,7 +19,8 @@ export interface LocalVector {
   y: number;
   z: number;
 }
-export type SurfaceNormal = NamedNormal | LocalVector;
+/** Every pointing form (pointing.ts): the local-orbital ones above and those that move in that frame. */
+export type { SurfaceNormal } from './pointing';
 
 export interface Surface {
   name: string;
@@ -55,7 +57,7 @@ const fixedNormals: Record<Exclude<NamedNormal, 'sun'>, Vector3> = {
 };
 
 /** The surface normal as a unit vector in the local orbital frame (custom vectors are normalised). */
-export function localNormal(normal: SurfaceNormal, sunLocal: Vector3, path = 'normal'): Vector3 {
+export function localNormal(normal: NamedNormal | LocalVector, sunLocal: Vector3, path = 'normal'): Vector3 {
   if (normal === 'sun') return sunLocal;
   if (typeof normal === 'string') return fixedNormals[normal];
   const length = Math.hypot(normal.x, normal.y, normal.z);
@@ -75,10 +77,18 @@ export const absorbedW = (surface: Surface, solarWm2: number, albedoWm2: number,
 export function surfaceLoad(surface: Surface, n: Vector3, point: LoadPoint): SurfaceLoad {
   const s = point.sunLocal;
   const cosSun = n[0] * s[0] + n[1] * s[1] + n[2] * s[2];
-  const solarWm2 = cosSun > 0 ? point.solarFluxWm2 * point.sunlit * cosSun : 0;
   // Tilt from nadir: nadir is -z in the local frame.
   const tiltRad = Math.acos(Math.max(-1, Math.min(1, -n[2])));
-  const viewFactor = plateToSphereViewFactor(point.radiusKm, point.bodyRadiusKm, tiltRad);
+  return loadFromFactors(surface, cosSun, plateToSphereViewFactor(point.radiusKm, point.bodyRadiusKm, tiltRad), point);
+}
+
+/**
+ * The loads from the plate's two factors: the cosine of the Sun on it (only its positive part counts;
+ * a spinner's average over a turn) and its view factor to the body (a spinner's average).
+ */
+export function loadFromFactors(surface: Surface, cosSun: number, viewFactor: number, point: LoadPoint): SurfaceLoad {
+  const s = point.sunLocal;
+  const solarWm2 = cosSun > 0 ? point.solarFluxWm2 * point.sunlit * cosSun : 0;
   // cos of the Sun's zenith angle at the sub-spacecraft point is the Sun's z component
   const cosSubsolar = s[2];
   const albedoWm2 = cosSubsolar > 0 ? point.solarFluxWm2 * point.albedo * viewFactor * cosSubsolar : 0;

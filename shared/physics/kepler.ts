@@ -3,7 +3,9 @@
 // Leaves out: drag, third bodies, J2 short-period terms and higher harmonics; secular J2 rates use
 // the first-order formulas. Source: Vallado, Fundamentals of Astrodynamics and Applications
 // (chapters 2 and 9), Curtis, Orbital Mechanics for Engineering Students (ch. 4).
+import { SECONDS_PER_DAY } from './constants';
 import { ConvergenceError, PhysicsError } from './physics-error';
+import { DEG } from './vector3';
 
 const TWO_PI = 2 * Math.PI;
 
@@ -16,6 +18,9 @@ export const periodS = (semiMajorAxisKm: number, gmKm3S2: number): number =>
 // Kepler's third law, inverted
 export const semiMajorAxisForPeriodKm = (periodSeconds: number, gmKm3S2: number): number =>
   Math.cbrt(gmKm3S2 * (periodSeconds / TWO_PI) ** 2);
+
+/** A rate in rad/s as degrees a day (the node's and the periapsis's drift). */
+export const degPerDay = (radS: number): number => (radS / DEG) * SECONDS_PER_DAY;
 
 /** Mean motion in rad/s. */
 export const meanMotionRadS = (semiMajorAxisKm: number, gmKm3S2: number): number =>
@@ -100,11 +105,10 @@ export function sunSynchronousInclinationRad(
     throw new PhysicsError(
       'no_sun_synchronous_orbit',
       `no sun-synchronous orbit exists at ${altitudeKm.toFixed(0)} km above ${body.name}: J2 turns the node at most ` +
-        `${degPerDay(Math.abs(ratePerCosI))} deg/day there, and ${degPerDay(Math.abs(requiredRateRadS))} deg/day are needed${why}`,
+        `${degPerDay(Math.abs(ratePerCosI)).toPrecision(3)} deg/day there, and ${degPerDay(Math.abs(requiredRateRadS)).toPrecision(3)} deg/day are needed${why}`,
       [{ path: 'orbit', message: `sun-synchronous needs cos i = ${cosI.toFixed(3)}, outside -1..1` }],
     );
   }
   return Math.acos(cosI);
 }
 
-const degPerDay = (radS: number): string => ((radS * 180) / Math.PI * 86400).toPrecision(3);

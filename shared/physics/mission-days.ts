@@ -11,9 +11,10 @@ import { AU_KM } from './constants';
 import { apsidalRateRadS } from './kepler';
 import type { Orbit } from './orbit-definition';
 import type { PerifocalSun } from './orbit-grid';
+import { orbitBasis, type OrbitBasis } from './orbit-position';
 import { parentShadow, type ParentShadow, type ShadowSpan } from './parent-shadow';
 import { sunTrack } from './sun-track';
-import { DEG } from './vector3';
+import { DEG, dot, type Vector3 } from './vector3';
 
 export interface DayGeometry {
   ms: number;
@@ -21,6 +22,8 @@ export interface DayGeometry {
   argPeriapsisRad: number;
   /** The Sun in the orbit's perifocal frame and its distance. */
   sun: PerifocalSun;
+  /** The orbit's perifocal axes P, Q, W in the body's equatorial frame of the date. */
+  basis: OrbitBasis;
   betaDeg: number;
   solarDistanceAu: number;
 }
@@ -43,7 +46,6 @@ export const raanOnDateRad = (orbit: Orbit, orbitEpoch: Date, at: Date): number 
 export function missionDays(body: Body, orbit: Orbit, orbitEpochMs: number, startMs: number, endMs: number): MissionDays {
   const track = sunTrack(body, startMs, endMs);
   const apsidalRate = orbit.circular ? 0 : apsidalRateRadS(body, orbit.semiMajorAxisKm, orbit.eccentricity, orbit.inclinationRad);
-  const [ci, si] = [Math.cos(orbit.inclinationRad), Math.sin(orbit.inclinationRad)];
   const sunVector = new Float64Array(3);
   let shadow: ParentShadow | null | undefined;
   const epoch = new Date(orbitEpochMs);
@@ -56,16 +58,11 @@ export function missionDays(body: Body, orbit: Orbit, orbitEpochMs: number, star
       const raan = raanOnDateRad(orbit, epoch, new Date(ms));
       const argp = orbit.argPeriapsisRad + apsidalRate * elapsedS;
       // Sun components along P, Q, W (Vallado ch. 2, perifocal-to-inertial rotation)
-      const [cO, sO, cw, sw] = [Math.cos(raan), Math.sin(raan), Math.cos(argp), Math.sin(argp)];
-      const [x, y, z] = [sunVector[0], sunVector[1], sunVector[2]];
-      const sun: PerifocalSun = {
-        sp: x * (cO * cw - sO * sw * ci) + y * (sO * cw + cO * sw * ci) + z * (sw * si),
-        sq: x * (-cO * sw - sO * cw * ci) + y * (-sO * sw + cO * cw * ci) + z * (cw * si),
-        sw: x * (sO * si) + y * (-cO * si) + z * ci,
-        distanceKm: distanceAu * AU_KM,
-      };
+      const basis = orbitBasis(orbit.inclinationRad, raan, argp);
+      const v: Vector3 = [sunVector[0], sunVector[1], sunVector[2]];
+      const sun: PerifocalSun = { sp: dot(v, basis.p), sq: dot(v, basis.q), sw: dot(v, basis.w), distanceKm: distanceAu * AU_KM };
       const betaDeg = Math.asin(Math.max(-1, Math.min(1, sun.sw))) / DEG;
-      return { ms, raanRad: raan, argPeriapsisRad: argp, sun, betaDeg, solarDistanceAu: distanceAu };
+      return { ms, raanRad: raan, argPeriapsisRad: argp, sun, basis, betaDeg, solarDistanceAu: distanceAu };
     },
     parentSpans(fromMs: number, toMs: number): ShadowSpan[] {
       if (shadow === undefined) shadow = parentShadow(body, orbit, orbitEpochMs, (ms, out) => track.planetAtIcrf(ms, out), track.moon);

@@ -8,7 +8,10 @@
 // the orbit node by node (cap-radiance.ts plateOrbitMeanFluxes); other plates and eccentric orbits
 // are sampled on a coarser grid than the compute route's (SWEEP_CAP_STEPS samples evenly in eccentric
 // anomaly with their exact time weights); both on SWEEP_CAP_RADIAL x SWEEP_CAP_AZIMUTH nodes, so ten
-// years stay quick; mission-sweep.spec.ts holds the orbit averages to the compute route's.
+// years stay quick; mission-sweep.spec.ts holds the orbit averages to the compute route's. Surfaces
+// take every pointing of pointing.ts: a plate that moves in the local frame gets its Sun cosine and
+// view factor at every sample, the view factor read from a table by tilt for a circular orbit's one
+// radius (viewFactorTable), and inertial directions turned toward each day's drifted orbit.
 // Leaves out: everything computeEnvironment leaves out; drag and other perturbations that change
 // the orbit's size or inclination; the Sun's motion within one orbit. Sources: Vallado ch. 9 (J2
 // secular rates); the models of environment.ts; the Sun from VSOP87 through sun-track.ts.
@@ -25,9 +28,12 @@ import { eccentricAnomalyTimes } from './orbit-sampling';
 import { longestShadow, missionDays } from './mission-days';
 import { PhysicsError } from './physics-error';
 import { solarFluxWm2 } from './sun';
-import { prepareSurfaces, type PreparedSurface } from './surface-grid';
-import { DEG } from './vector3';
-import { plateToSphereViewFactor } from './view-factors';
+import { orientSurfaces, prepareSurfaces, type PreparedSurface } from './surface-grid';
+import { pointingAssumptions } from './pointing-words';
+import { isInertial, j2000ToPerifocal, pointingColumns, pointingColumnsFor, viewFactorTable, type PointingColumns, type ViewFactorTable } from './pointing';
+import { DEG, wrapDeg, type Vector3 } from './vector3';
+import { degPerDay } from './kepler';
+import { DAY_MS } from './constants';
 
 export interface MissionSweepRequest extends CapModelRequest {
   bodyId: BodyId | string;
@@ -96,7 +102,6 @@ const SWEEP_SCAN_STEPS = 360;
 /** The cap quadrature of a sweep: samples per orbit (evenly in eccentric anomaly) and nodes over the disk. */
 export const SWEEP_CAP_STEPS = 48;
 const { radial: SWEEP_CAP_RADIAL, azimuth: SWEEP_CAP_AZIMUTH } = COARSE_CAP_NODES;
-const DAY_MS = 86400e3;
 
 function toMs(value: string | Date, path: string): number {
   const ms = (value instanceof Date ? value : new Date(value)).getTime();
@@ -107,10 +112,6 @@ function toMs(value: string | Date, path: string): number {
 /** Number of rows for a span and step, without building them. */
 export const sweepRowCount = (days: number, stepDays: number): number => Math.floor(days / stepDays + 1e-9) + 1;
 
-const wrapDeg = (rad: number): number => {
-  const deg = (rad / DEG) % 360;
-  return deg < 0 ? deg + 360 : deg;
-};
 
 /** The environment at each date of a mission, one orbit per row. Throws PhysicsError for the impossible. */
 export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
@@ -139,6 +140,8 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   // IR depends only on the view factor, the same on every date: its orbit sum is computed once.
   const irSums = prepared.map((p) => (p.normal === null ? Number.NaN : p.viewFactor.reduce((s, f) => s + f, 0)));
   const constantViewFactor = constantViewFactors(prepared);
+  const moving = movingSurfaces(prepared, grid, body.radiusKm);
+  const inertial = prepared.some((p) => p.plan !== null && isInertial(p.source));
   const shade = gridShade(steps);
   const solarSums = new Float64Array(prepared.length);
   const albedoSums = new Float64Array(prepared.length);
@@ -150,10 +153,13 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
 
   for (let row = 0; row < rowCount; row++) {
     const ms = startMs + row * stepDays * DAY_MS;
-    const { sun, betaDeg, raanRad: raan, solarDistanceAu: distanceAu } = days.at(ms);
+    const { sun, basis, betaDeg, raanRad: raan, solarDistanceAu: distanceAu } = days.at(ms);
     const flux = solarFluxWm2(distanceAu);
+    // inertial pointings turned toward the day's orbit (its node and periapsis drift)
+    const toOrbit = inertial ? j2000ToPerifocal(body, basis, new Date(ms)) : null;
+    if (toOrbit) orientSurfaces(prepared, toOrbit);
     shadeGrid(grid, sun, shade);
-    accumulate(prepared, grid, shade, sun.sw, body.radiusKm, constantViewFactor, solarSums, albedoSums, sunIrSums);
+    accumulate(prepared, moving, grid, shade, sun.sw, body.radiusKm, constantViewFactor, solarSums, albedoSums, sunIrSums);
     const eclipse: EclipseSummary = scanGrid === grid
       ? eclipseFromShade(orbit, grid, shade, sun, body.radiusKm)
       : eclipseOnGrid(orbit, scanGrid, sun, body.radiusKm);
@@ -161,7 +167,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
     const longest = longestShadow(body, eclipse.umbraS + eclipse.penumbraS, days.parentSpans(ms - halfWindowMs, ms + halfWindowMs));
     minBeta = Math.min(minBeta, betaDeg);
     maxBeta = Math.max(maxBeta, betaDeg);
-    const capAverages = cap ? cap.averages(models, sun, flux, albedo) : null;
+    const capAverages = cap ? cap.averages(models, sun, flux, albedo, toOrbit) : null;
     const loads: SurfaceLoad[] = new Array(prepared.length);
     for (let j = 0; j < prepared.length; j++) {
       const s = prepared[j].surface;
@@ -171,7 +177,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
       loads[j] = { name: s.name, solarWm2, albedoWm2, irWm2, absorbedW: s.areaM2 * (s.absorptivity * (solarWm2 + albedoWm2) + s.emissivity * irWm2) };
     }
     rows[row] = {
-      date: new Date(ms).toISOString(), betaDeg, raanDeg: wrapDeg(raan), solarDistanceAu: distanceAu, solarFluxWm2: flux,
+      date: new Date(ms).toISOString(), betaDeg, raanDeg: wrapDeg(raan / DEG), solarDistanceAu: distanceAu, solarFluxWm2: flux,
       eclipseFraction: eclipse.eclipseFraction, eclipseDurationS: eclipse.eclipseDurationS,
       umbraDurationS: eclipse.umbraS, penumbraDurationS: eclipse.penumbraS, surfaces: loads,
       longestShadowS: longest.durationS, longestShadowCastBy: longest.castBy,
@@ -181,13 +187,13 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   return {
     bodyId: body.id,
     periodS: orbit.periodS,
-    nodalRateDegPerDay: (orbit.nodalRateRadS / DEG) * 86400,
-    apsidalRateDegPerDay: (apsidalRate / DEG) * 86400,
+    nodalRateDegPerDay: degPerDay(orbit.nodalRateRadS),
+    apsidalRateDegPerDay: degPerDay(apsidalRate),
     rows,
     minBetaDeg: rowCount > 0 ? minBeta : Number.NaN,
     maxBetaDeg: rowCount > 0 ? maxBeta : Number.NaN,
     models,
-    assumptions: sweepAssumptions(models, rows[0].solarFluxWm2),
+    assumptions: [...sweepAssumptions(models, rows[0].solarFluxWm2), ...pointingAssumptions(surfaces.map((s) => s.normal))],
   };
 }
 
@@ -198,7 +204,7 @@ function sweepAssumptions(models: CapModelChoice, firstFluxWm2: number): string[
   if (needsCap(models)) {
     lines.push(
       `the sweep's cap integrals use ${SWEEP_CAP_RADIAL} x ${SWEEP_CAP_AZIMUTH} nodes over the disk (the compute route: 20 x 48): on a circular orbit a plate fixed to the spacecraft takes the exact time average over the orbit, ` +
-      `Sun-pointed plates and eccentric orbits ${SWEEP_CAP_STEPS} samples evenly in eccentric anomaly with their exact time weights; orbit averages agree with the compute route's to about 1 %`,
+      `plates that move in the local frame (Sun-pointed, inertial, tracking, spinning, yaw-steered) and eccentric orbits ${SWEEP_CAP_STEPS} samples evenly in eccentric anomaly with their exact time weights; orbit averages agree with the compute route's to about 1 %`,
     );
   }
   return lines;
@@ -207,8 +213,8 @@ function sweepAssumptions(models: CapModelChoice, firstFluxWm2: number): string[
 /**
  * The cap quadrature of a sweep, its nodes built once for every day: per day, the orbit-average albedo
  * and IR of each surface (null for a component a closed form gives). On a circular orbit a plate fixed
- * in the local frame takes the exact time average over the orbit (plateOrbitMeanFluxes); Sun-pointed
- * plates and eccentric orbits are sampled on a small grid evenly in eccentric anomaly with exact time weights.
+ * in the local frame takes the exact time average over the orbit (plateOrbitMeanFluxes); moving
+ * plates (pointing.ts) and eccentric orbits are sampled on a small grid evenly in eccentric anomaly with exact time weights.
  */
 function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface[]) {
   const { times, weightS } = eccentricAnomalyTimes(orbit, SWEEP_CAP_STEPS);
@@ -228,8 +234,9 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
     return sum / orbit.periodS;
   };
   return {
-    averages(models: CapModelChoice, sun: PerifocalSun, fluxWm2: number, albedo: number): { albedoWm2: number[] | null; irWm2: number[] | null } {
+    averages(models: CapModelChoice, sun: PerifocalSun, fluxWm2: number, albedo: number, toOrbit: ((v: Vector3) => Vector3) | null): { albedoWm2: number[] | null; irWm2: number[] | null } {
       const { reflected, day, floor } = capExitances(models, fluxWm2, albedo);
+      if (toOrbit) orientSurfaces(sampled, toOrbit);
       const albedoWm2 = new Array<number>(prepared.length);
       const irWm2 = new Array<number>(prepared.length);
       const columns = sampled.length > 0
@@ -253,12 +260,27 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
   };
 }
 
+/** A moving surface's reusable columns and its view factor by tilt (tabulated once for a circular orbit's one radius). */
+interface MovingSurface {
+  columns: PointingColumns;
+  table: ViewFactorTable | null;
+}
+
+function movingSurfaces(prepared: readonly PreparedSurface[], grid: OrbitGrid, bodyRadiusKm: number): (MovingSurface | null)[] {
+  const r0 = grid.radiusKm[0];
+  const circular = grid.radiusKm.every((r) => r === r0);
+  return prepared.map((p) => {
+    if (!p.plan) return null;
+    return { columns: pointingColumnsFor(grid.steps), table: circular ? viewFactorTable(p.source, r0, bodyRadiusKm) : null };
+  });
+}
+
 /**
  * Orbit sums, per surface, of sunlit x max(0, cos incidence) and of F x max(0, cos subsolar); for
- * Sun-pointed surfaces also of their moving view factor. Flux, albedo and OLR multiply them after.
+ * moving surfaces (pointing.ts) also of their moving view factor. Flux, albedo and OLR multiply them after.
  */
 function accumulate(
-  prepared: readonly PreparedSurface[], grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number,
+  prepared: readonly PreparedSurface[], moving: readonly (MovingSurface | null)[], grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number,
   constantViewFactor: Float64Array, solarSums: Float64Array, albedoSums: Float64Array, sunIrSums: Float64Array,
 ): void {
   const { cx, cz, sunlit } = shade;
@@ -271,18 +293,14 @@ function accumulate(
   }
   for (let j = 0; j < prepared.length; j++) {
     const p = prepared[j];
+    const m = moving[j];
     let solar = 0;
     let albedo = 0;
     let ir = 0;
-    if (p.normal === null) {
-      for (let k = 0; k < steps; k++) {
-        const z = cz[k];
-        const viewFactor = sunPointedViewFactor(grid.radiusKm[k], bodyRadiusKm, z);
-        solar += sunlit[k] * (cx[k] * cx[k] + sunW * sunW + z * z);
-        if (z > 0) albedo += viewFactor * z;
-        ir += viewFactor;
-      }
-    } else {
+    if (p.plan && m) {
+      const { sums } = pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm, m.columns, m.table, sunlit);
+      [solar, albedo, ir] = [sums[0], sums[1], sums[2]];
+    } else if (p.normal) {
       const nx = p.normal[0];
       const nz = p.normal[2];
       const fromNormal = p.normal[1] * sunW;
@@ -317,6 +335,3 @@ function constantViewFactors(prepared: readonly PreparedSurface[]): Float64Array
   });
   return out;
 }
-
-const sunPointedViewFactor = (radiusKm: number, bodyRadiusKm: number, cz: number): number =>
-  plateToSphereViewFactor(radiusKm, bodyRadiusKm, Math.acos(Math.max(-1, Math.min(1, -cz))));

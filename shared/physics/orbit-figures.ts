@@ -4,9 +4,9 @@
 // Leaves out: what orbit-definition.ts and kepler.ts leave out (two-body motion, first-order J2).
 // Sources: Vallado ch. 2 (Kepler's third law, vis-viva) and ch. 9 (J2 secular rates).
 import type { Body } from './bodies';
-import { apsidalRateRadS, periodS } from './kepler';
+import { SECONDS_PER_DAY } from './constants';
+import { apsidalRateRadS, degPerDay, periodS } from './kepler';
 import { defineOrbit, type OrbitInput } from './orbit-definition';
-import { DEG } from './vector3';
 
 export interface OrbitFigures {
   bodyId: string;
@@ -25,23 +25,21 @@ export interface OrbitFigures {
   minimumPeriodS: number;
 }
 
-const perDay = (radS: number): number => (radS / DEG) * 86400;
-
 export function orbitFigures(body: Body, input: OrbitInput): OrbitFigures {
   const orbit = defineOrbit(input, body);
   return {
     bodyId: body.id,
     periodS: orbit.periodS,
     meanMotionRadS: orbit.meanMotionRadS,
-    meanMotionRevPerDay: 86400 / orbit.periodS,
+    meanMotionRevPerDay: SECONDS_PER_DAY / orbit.periodS,
     semiMajorAxisKm: orbit.semiMajorAxisKm,
     eccentricity: orbit.eccentricity,
     periapsisAltitudeKm: orbit.periapsisAltitudeKm,
     apoapsisAltitudeKm: orbit.apoapsisAltitudeKm,
     periapsisSpeedKmS: orbit.periapsisSpeedKmS,
     apoapsisSpeedKmS: orbit.apoapsisSpeedKmS,
-    nodalRateDegPerDay: perDay(orbit.nodalRateRadS),
-    apsidalRateDegPerDay: orbit.circular ? 0 : perDay(apsidalRateRadS(body, orbit.semiMajorAxisKm, orbit.eccentricity, orbit.inclinationRad)),
+    nodalRateDegPerDay: degPerDay(orbit.nodalRateRadS),
+    apsidalRateDegPerDay: orbit.circular ? 0 : degPerDay(apsidalRateRadS(body, orbit.semiMajorAxisKm, orbit.eccentricity, orbit.inclinationRad)),
     // Kepler's third law with a = R: any eccentricity with periapsis at or above the surface has a larger a
     minimumPeriodS: periodS(body.radiusKm, body.gmKm3S2),
   };

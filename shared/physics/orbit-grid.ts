@@ -4,7 +4,7 @@
 // Sun's direction in the local frame at a sample is two multiplications, and the shadow tests
 // compare cosines instead of taking arc functions.
 // Leaves out: what eclipse.ts leaves out (the same conical shadow and two-disk overlap, here in a
-// form for speed; eclipse.spec.ts and orbit-grid.spec.ts hold the two to the same answers).
+// form for speed; mission-sweep.spec.ts holds the sweep built on it to computeEnvironment's answers).
 // Sources: Vallado ch. 2 (perifocal frame, conic equation); Montenbruck & Gill sect. 3.4.2 (conical
 // shadow, from memory).
 import { SUN_RADIUS_KM } from './constants';

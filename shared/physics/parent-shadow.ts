@@ -15,7 +15,7 @@
 // plane is held where it is at the passage's middle. Sources: Montenbruck & Gill,
 // Satellite Orbits, sect. 3.4.2 (conical shadow, from memory); Vallado ch. 2 and 9 (orbit, J2 drift).
 import { getBody, type Body, type BodyId } from './bodies';
-import { AU_KM, SUN_RADIUS_KM } from './constants';
+import { AU_KM, DAY_MS, SUN_RADIUS_KM } from './constants';
 import { shadowGeometry, sunlitFraction, type ShadowGeometry } from './eclipse';
 import { apsidalRateRadS } from './kepler';
 import { jdeOfMs, localMoonTrack, moonTrack, type MoonTrack } from './moon-ephemeris';
@@ -100,7 +100,7 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
   const buffer = new Float64Array(3);
 
   // The planet's Sun from its own Sun track (VSOP87 at 4-day nodes, sun-track.ts), a year at a time.
-  const yearMs = 365.25 * 86400e3;
+  const yearMs = 365.25 * DAY_MS;
   const sunTracks = new Map<number, SunTrack>();
   const sunVector = new Float64Array(3);
   const sunOfPlanet: PlanetSun = planetSun ?? ((ms, out) => {
@@ -160,9 +160,9 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
 
   // How far off the shadow's axis the moon's centre may be for the spacecraft to reach the penumbra.
   const reachKm = orbit.apoapsisKm;
-  const moonPeriodMs = moonOrbit.periodDays * 86400e3;
+  const moonPeriodMs = moonOrbit.periodDays * DAY_MS;
   // The moon's returns to the anti-Sun direction: its synodic rate (the planet's own motion about the Sun taken off).
-  const meanRate = (2 * Math.PI) / moonPeriodMs - (2 * Math.PI) / (body.solarYearDays * 86400e3);
+  const meanRate = (2 * Math.PI) / moonPeriodMs - (2 * Math.PI) / (body.solarYearDays * DAY_MS);
   const synodicMs = (2 * Math.PI) / meanRate;
   // Departure from uniform motion: about 2e for the moon and for the planet (equations of centre) plus 0.04 rad of perturbations.
   const phaseSlackRad = 2 * moonOrbit.eccentricity + 2 * body.eccentricity + 0.04;

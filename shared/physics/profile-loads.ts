@@ -3,14 +3,15 @@
 // and peaks taken in the same pass. This is the physics the compute route answers; the API's shape
 // (one object per surface per sample, API.md) is built from these columns by profilePoints, apart,
 // because at 3600 samples x 20 surfaces building 72,000 objects costs several times the physics.
-// Leaves out: nothing of surface-grid.ts's loadAt; the formulas are the same (direct solar S
-// cos(incidence) times the sunlit share, albedo S a F cos(theta_subsolar) on the sunlit side, IR OLR F).
+// Leaves out: nothing of heat-loads.ts's surfaceLoad; the formulas are the same (direct solar S
+// cos(incidence) times the sunlit share, albedo S a F cos(theta_subsolar) on the sunlit side, IR OLR F),
+// with a moving surface's cosine and view factor per sample from pointing.ts.
 import type { CapColumns } from './cap-loads';
 import type { SurfaceLoad } from './heat-loads';
 import type { GridShade, OrbitGrid } from './orbit-grid';
+import { pointingColumns } from './pointing';
 import type { PreparedSurface } from './surface-grid';
 import { DEG } from './vector3';
-import { plateToSphereViewFactor } from './view-factors';
 
 /** One load component per surface: `values[j]` holds surface j's value at every sample. */
 export interface LoadColumns {
@@ -64,29 +65,18 @@ export function profileColumns(
     out.albedoWm2.push(column(1, j));
     out.irWm2.push(column(2, j));
     out.absorbedW.push(column(3, j));
-    // A Sun-pointed surface's tilt from nadir moves with the Sun: its cosine and view factor per sample first.
-    const [cosSun, viewFactor] = p.normal === null ? sunPointed(grid, shade, sunW, bodyRadiusKm) : [null, p.viewFactor];
+    // A moving surface's tilt from nadir moves: its cosine and view factor per sample first (pointing.ts).
+    const moving = p.plan ? pointingColumns(p.plan, grid, shade, sunW, bodyRadiusKm) : null;
+    const [cosSun, viewFactor] = moving ? [moving.sunCos, moving.viewFactor] : [null, p.viewFactor];
     const [nx, ny, nz] = p.normal ?? [0, 0, 0];
     fillSurface(out, j, shade, cosSun, nx, nz, ny * sunW, viewFactor, p, solarFluxWm2, albedo, olrWm2, cap?.albedoWm2?.[j] ?? null, cap?.irWm2?.[j] ?? null);
   }
   return out;
 }
 
-function sunPointed(grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number): [Float64Array, Float64Array] {
-  const { cx, cz } = shade;
-  const cosSun = new Float64Array(grid.steps);
-  const viewFactor = new Float64Array(grid.steps);
-  for (let k = 0; k < grid.steps; k++) {
-    const z = cz[k];
-    cosSun[k] = cx[k] * cx[k] + sunW * sunW + z * z;
-    viewFactor[k] = plateToSphereViewFactor(grid.radiusKm[k], bodyRadiusKm, Math.acos(Math.max(-1, Math.min(1, -z))));
-  }
-  return [cosSun, viewFactor];
-}
-
 /**
  * Surface j's columns, sums and peaks. The cosine of incidence is `cosSun` per sample where given
- * (a Sun-pointed surface), else nx cx + nz cz + fromNormal (a fixed normal; its y part is constant).
+ * (a moving surface), else nx cx + nz cz + fromNormal (a fixed normal; its y part is constant).
  */
 function fillSurface(
   out: ProfileColumns, j: number, shade: GridShade, cosSun: Float64Array | null, nx: number, nz: number, fromNormal: number,

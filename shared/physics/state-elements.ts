@@ -3,7 +3,7 @@
 // and its anomaly counts from the ascending node, an equatorial orbit's node is at the x axis, as
 // orbit-definition.ts takes them. Source: Vallado, Fundamentals of Astrodynamics and Applications,
 // Algorithm 9 (RV2COE).
-import { cross, DEG, dot, norm, scale, subtract, type Vector3 } from './vector3';
+import { cross, DEG, dot, norm, scale, subtract, wrapDeg, type Vector3 } from './vector3';
 
 export interface StateElements {
   semiMajorAxisKm: number;
@@ -19,10 +19,7 @@ export interface StateElements {
 /** Below this eccentricity (or sine of inclination) the orbit is taken as circular (equatorial). */
 const SMALL = 1e-9;
 const angle = (cos: number): number => Math.acos(Math.max(-1, Math.min(1, cos)));
-const turn = (rad: number): number => {
-  const deg = rad / DEG;
-  return deg < 0 ? deg + 360 : deg >= 360 ? deg - 360 : deg;
-};
+const turn = (rad: number): number => wrapDeg(rad / DEG);
 
 export function elementsFromState(positionKm: Vector3, velocityKmS: Vector3, gmKm3S2: number): StateElements {
   const r = norm(positionKm);

@@ -5,20 +5,19 @@
 // direction and under 1e-6 AU in distance (flux within 2e-6) for Earth with nodes 4 days apart (the largest short-period term is
 // Earth's monthly wobble about the Earth-Moon barycentre, about 6 arcsec; the four-point error is
 // about (3/128) (omega h)^4 of it). Source: Abramowitz & Stegun 25.2.13 (four-point Lagrange
-// interpolation); the interpolated values are checked against sunFromBody in sun-track.spec.ts.
+// interpolation); the interpolated values are checked against sunFromBody in mission-sweep.spec.ts.
 // A moon's Sun adds the moon's offset from its planet at each instant (moon-ephemeris.ts), from a
 // track of the moon's theory (nodes a sixteenth of a revolution apart, or 4 days for the fast moons),
 // interpolated in the frame turning with the moon (the offset then errs by tens of km for the Moon
 // and a few thousand km at most for the fast moons: under 1e-4 in their solar flux, checked in
 // parent-shadow.spec.ts).
 import type { Body } from './bodies';
-import { AU_KM } from './constants';
+import { AU_KM, DAY_MS } from './constants';
 import { moonTrack, type MoonTrack } from './moon-ephemeris';
 import { DEG, type Vector3 } from './vector3';
 import { bodyFrameAxes, eclipticToEquatorial, julianDateTT, toBodyFrame } from './sun';
 import { vsop87Series } from './vsop87';
 
-const DAY_MS = 86400e3;
 export const SUN_TRACK_NODE_DAYS = 4;
 
 export interface SunTrack {

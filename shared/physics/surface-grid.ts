@@ -1,20 +1,27 @@
 // Surfaces made ready for an orbit grid: each fixed normal as a local unit vector with its
 // plate-to-sphere view factor at every sample (it depends only on the radius and the tilt from
-// nadir, so it is the same for every date of a sweep), and the load formulas of heat-loads.ts on
-// that form.
+// nadir, so it is the same for every date of a sweep); a surface whose normal moves in the local
+// frame (the Sun, inertial, tracking, spinning, yaw-steered: pointing.ts) keeps its compiled pointing,
+// its inertial direction turned toward the orbit.
 // Leaves out: what heat-loads.ts leaves out; the formulas are the same (direct solar S cos(incidence)
 // times the sunlit share, albedo S a F cos(theta_subsolar) on the sunlit side, IR OLR F; DOMAIN.md,
 // Howell catalogue). Source: API.md for absorbed = A (alpha (solar + albedo) + epsilon ir).
-import { localNormal, type Surface, type SurfaceLoad } from './heat-loads';
+import type { Surface } from './heat-loads';
 import type { OrbitGrid } from './orbit-grid';
+import { fixedNormal, isInertial, orientPlan, pointingPlan, type PointingPlan } from './pointing';
+import type { Vector3 } from './vector3';
 import { plateToSphereViewFactor } from './view-factors';
 
 export interface PreparedSurface {
   surface: Surface;
-  /** Local unit normal (x ram, y orbit normal, z zenith); null for a Sun-pointed surface. */
+  /** Local unit normal (x ram, y orbit normal, z zenith); null for a surface whose normal moves in that frame (pointing.ts). */
   normal: readonly [number, number, number] | null;
-  /** View factor to the body at each grid sample; empty for a Sun-pointed surface (its tilt moves). */
+  /** View factor to the body at each grid sample; empty for a moving surface. */
   viewFactor: Float64Array;
+  /** A moving surface's pointing, its inertial direction in the orbit's perifocal frame (orientSurfaces); null for a fixed one. */
+  plan: PointingPlan | null;
+  /** The pointing as compiled, inertial directions in the body's equatorial frame of J2000. */
+  source: PointingPlan;
 }
 
 /** View factors of a fixed normal at every sample; a circular orbit has one radius, so one evaluation. */
@@ -29,36 +36,33 @@ function viewFactorsOnGrid(grid: OrbitGrid, bodyRadiusKm: number, tiltRad: numbe
   return out;
 }
 
-export function prepareSurfaces(surfaces: readonly Surface[], grid: OrbitGrid, bodyRadiusKm: number): PreparedSurface[] {
+/**
+ * The surfaces made ready for a grid. `toOrbit` turns an inertial direction (body equatorial J2000)
+ * into the orbit's perifocal components (pointing.ts j2000ToPerifocal); without it an inertial
+ * direction is taken as already in them.
+ */
+export function prepareSurfaces(
+  surfaces: readonly Surface[], grid: OrbitGrid, bodyRadiusKm: number, toOrbit: ((v: Vector3) => Vector3) | null = null,
+): PreparedSurface[] {
   return surfaces.map((surface, i) => {
-    if (surface.normal === 'sun') return { surface, normal: null, viewFactor: new Float64Array(0) };
-    const [x, y, z] = localNormal(surface.normal, [0, 0, 1], `surfaces.${i}.normal`);
+    const source = pointingPlan(surface.normal, `surfaces.${i}.normal`);
+    const fixed = fixedNormal(source);
+    if (!fixed) return { surface, normal: null, viewFactor: new Float64Array(0), source, plan: toOrbit ? orientPlan(source, toOrbit) : source };
+    const [x, y, z] = fixed;
     // tilt from nadir: nadir is -z in the local frame
     const tiltRad = Math.acos(Math.max(-1, Math.min(1, -z)));
-    return { surface, normal: [x, y, z], viewFactor: viewFactorsOnGrid(grid, bodyRadiusKm, tiltRad) };
+    return { surface, normal: [x, y, z], viewFactor: viewFactorsOnGrid(grid, bodyRadiusKm, tiltRad), source, plan: null };
   });
 }
 
-/** Cosine of the Sun's incidence on the surface and its view factor at sample k, with the Sun (cx, cy, cz) in the local frame. */
-export function incidence(p: PreparedSurface, k: number, cx: number, cy: number, cz: number, radiusKm: number, bodyRadiusKm: number): [number, number] {
-  if (p.normal === null) {
-    const tiltRad = Math.acos(Math.max(-1, Math.min(1, -cz)));
-    return [cx * cx + cy * cy + cz * cz, plateToSphereViewFactor(radiusKm, bodyRadiusKm, tiltRad)];
+/** Turns the moving surfaces' inertial directions toward another orbit (a sweep's next day); true when any holds one. */
+export function orientSurfaces(prepared: readonly PreparedSurface[], toOrbit: (v: Vector3) => Vector3): boolean {
+  let any = false;
+  for (const p of prepared) {
+    if (p.plan && isInertial(p.source)) {
+      p.plan = orientPlan(p.source, toOrbit);
+      any = true;
+    }
   }
-  const n = p.normal;
-  return [n[0] * cx + n[1] * cy + n[2] * cz, p.viewFactor[k]];
-}
-
-/** Incident fluxes and absorbed power on one prepared surface at sample k (same formulas as surfaceLoad). */
-export function loadAt(
-  p: PreparedSurface, k: number, cx: number, cy: number, cz: number, sunlit: number,
-  radiusKm: number, bodyRadiusKm: number, solarFluxWm2: number, albedo: number, olrWm2: number,
-): SurfaceLoad {
-  const [cosSun, viewFactor] = incidence(p, k, cx, cy, cz, radiusKm, bodyRadiusKm);
-  const solarWm2 = cosSun > 0 ? solarFluxWm2 * sunlit * cosSun : 0;
-  // cos of the Sun's zenith angle at the sub-spacecraft point is the Sun's z component
-  const albedoWm2 = cz > 0 ? solarFluxWm2 * albedo * viewFactor * cz : 0;
-  const irWm2 = olrWm2 * viewFactor;
-  const s = p.surface;
-  return { name: s.name, solarWm2, albedoWm2, irWm2, absorbedW: s.areaM2 * (s.absorptivity * (solarWm2 + albedoWm2) + s.emissivity * irWm2) };
+  return any;
 }

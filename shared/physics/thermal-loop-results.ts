@@ -6,11 +6,11 @@
 import { KELVIN_OFFSET, type ControlFigures, type LoopResult, type ThermalModelInput, type ThermalSolveResult } from './thermal-model';
 import type { ThermalNetwork } from './thermal-network';
 import type { PeriodicRun } from './thermal-periodic';
+import { round } from './rounding';
 
 /** Default control requirement when the loop states none, K (common practice, no source). */
 export const DEFAULT_CONTROL_BAND_K = 0.5;
 
-const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
 const series = (values: ArrayLike<number>, offset = 0, digits = 4) => Array.from(values, (v) => round(v - offset, digits));
 
 /** Largest |T - set point| and time outside +/- band over one orbit of evenly spaced samples. */

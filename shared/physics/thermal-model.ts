@@ -278,9 +278,6 @@ export interface ThermalSolveResult {
   assumptions: string[];
 }
 
-/** MIL-STD-1540 temperature margins, K [S: Gilmore, Spacecraft Thermal Control Handbook, Ch. 19]. */
-export const MARGIN_CORRELATED_PASSIVE_K = 11;
-export const MARGIN_UNCORRELATED_K = 17;
 /** Heater sizing: duty cycle at most 70-80 % at minimum bus voltage [M: DOMAIN.md]; the middle of that. */
 export const DEFAULT_MAX_HEATER_DUTY = 0.75;
 export const DEFAULT_TOLERANCE_K = 0.01;

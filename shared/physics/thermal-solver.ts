@@ -3,6 +3,7 @@
 // with V^2, so the cold case at minimum voltage is where a heater runs longest).
 // Pass/fail takes the coldest prediction of all the runs against the minimum limits and the hottest
 // against the maximum limits.
+import { round } from './rounding';
 import { checkLimits } from './thermal-limits';
 import { loopResults } from './thermal-loop-results';
 import { DEFAULT_MAX_ORBITS, DEFAULT_TOLERANCE_K, KELVIN_OFFSET, ThermalConvergenceError, type HeaterResult, type HeaterVoltageResult, type NodeResult, type ThermalSolveInput, type ThermalSolveResult, type UnsettledRun } from './thermal-model';
@@ -10,7 +11,6 @@ import { buildNetwork, type ThermalNetwork } from './thermal-network';
 import { runPeriodic, unsettledMessage, type PeriodicRun } from './thermal-periodic';
 
 const toC = (k: number) => k - KELVIN_OFFSET;
-const round = (x: number, digits = 4) => Math.round(x * 10 ** digits) / 10 ** digits;
 /** A series rounded to 1e-4 (of C when `offset` is the kelvin offset): a loop, as it runs per node and sample. */
 function roundedSeries(series: Float64Array, offset = 0, scale = 1e4): number[] {
   const out = new Array<number>(series.length);

@@ -32,6 +32,25 @@ function circularSamples(stepS: number, withVelocity: boolean): TrajectorySample
 }
 
 describe('trajectoryEnvironment', () => {
+  it('surfaces pointed beyond the local frame (inertial, yaw-steered, a drive, a spinner) get the compute route\'s orbit averages for the same orbit and epoch (consistency; pointing.ts at each row)', () => {
+    const pointed: Surface[] = [
+      { name: 'inertial', normal: { inertial: { raDeg: 100, decDeg: 30 } }, areaM2: 1, absorptivity: 0.5, emissivity: 0.8 },
+      { name: 'yaw', normal: { yawSteered: { normal: { x: 0.6, y: 0.8, z: 0 } } }, areaM2: 1, absorptivity: 0.5, emissivity: 0.8 },
+      { name: 'drive', normal: { trackSun: { axis: 'orbit-normal' } }, areaM2: 1, absorptivity: 0.5, emissivity: 0.8 },
+      { name: 'spinner', normal: { spin: { axis: { inertial: { raDeg: 0, decDeg: 90 } }, angleDeg: 70 } }, areaM2: 1, absorptivity: 0.5, emissivity: 0.8 },
+    ];
+    const result = trajectoryEnvironment(circularSamples(10, true), { body: earth, surfaces: pointed, albedo: 0.3, olrWm2: 237 });
+    const single = computeEnvironment({
+      bodyId: 'earth', orbit: { periapsisAltitudeKm: 700, apoapsisAltitudeKm: 700, inclinationDeg: 51.6, raanDeg: 40 },
+      epoch: new Date(t0).toISOString(), albedo: 0.3, olrWm2: 237, steps: 600, surfaces: pointed,
+    });
+    for (const [j, load] of result.averages.surfaces.entries()) {
+      const reference = single.orbitAverage.surfaces[j];
+      // the trajectory's Sun moves over the orbit and its shadow edges fall between rows: within 1 W/m^2 (0.07 % of S)
+      for (const key of ['solarWm2', 'albedoWm2', 'irWm2'] as const) expect(Math.abs(load[key] - reference[key]), `${load.name} ${key}`).toBeLessThan(1);
+    }
+  });
+
   it('a nadir plate sees OLR (R/r)^2 of IR at every point (Howell catalogue, plate facing the sphere)', () => {
     const result = trajectoryEnvironment(circularSamples(60, true), { body: earth, surfaces: panels });
     const f = (earth.radiusKm / (earth.radiusKm + 700)) ** 2;

@@ -2,7 +2,8 @@
 // at every point the Sun from that point's epoch, the conical shadow of the central body (and, about a
 // moon, of its planet: parent-shadow.ts's model), the plate-to-sphere view factors from that point's
 // altitude and every surface's loads in the local orbital frame built from r and v (v by finite
-// differences when the file gave none).
+// differences when the file gave none); a surface that moves in that frame (pointing.ts) takes its
+// normal at each row, an inertial direction turned from the body's equatorial J2000 frame into ICRF.
 // Albedo and planetary IR take the compute route's models (cap-loads.ts chooseCapModels, on the
 // file's highest altitude): an airless body's surface temperature field and the Lambertian albedo
 // integral by cap quadrature at every row (the coarser COARSE_CAP_NODES grid, its nodes rebuilt when
@@ -13,12 +14,13 @@
 // orbit-position.ts (x ram, y orbit normal, z zenith).
 import { getBody, type Body } from './bodies';
 import { shadowGeometry, sunlitFraction } from './eclipse';
-import { absorbedW, localNormal, surfaceLoad, type Surface, type SurfaceLoad } from './heat-loads';
-import { capExitances, chooseCapModels, COARSE_CAP_NODES, needsCap, reportedOlrWm2, type CapModelChoice, type CapModelRequest } from './cap-loads';
+import { absorbedW, loadFromFactors, type Surface, type SurfaceLoad } from './heat-loads';
+import { capExitances, chooseCapModels, COARSE_CAP_NODES, needsCap, pointingPlateNodes, reportedOlrWm2, type CapModelChoice, type CapModelRequest } from './cap-loads';
 import { capNodes, plateFluxes, plateNodes, type PlateNodes } from './cap-radiance';
-import { AU_KM } from './constants';
+import { AU_KM, DAY_MS } from './constants';
 import { PhysicsError } from './physics-error';
 import { moonTrack } from './moon-ephemeris';
+import { directionAt, fixedNormal, j2000ToIcrf, orientPlan, pointingPlan, pointingViewFactor, sunCosine, type PointingPlan } from './pointing';
 import { combinedSunlit } from './parent-shadow';
 import { solarFluxWm2 } from './sun';
 import { sunTrack, type SunTrack } from './sun-track';
@@ -75,7 +77,7 @@ export interface TrajectoryEnvironment {
   meanSolarFluxWm2: number;
 }
 
-const SUN_CHUNK_MS = 30 * 86400e3;
+const SUN_CHUNK_MS = 30 * DAY_MS;
 
 interface SunState {
   directionIcrf: Vector3;
@@ -132,13 +134,13 @@ function differencedVelocity(prev: TrajectorySample | null, cur: TrajectorySampl
  * The cap quadrature at one row: replaces the closed-form albedo and/or IR of a surface's load with the
  * chosen models' (its plate nodes kept while the radius stays within 1e-4 of itself).
  */
-function capLoads(models: CapModelChoice, surfaces: readonly Surface[], bodyRadiusKm: number, albedo: number) {
-  const fixed = surfaces.map((s, i) => (s.normal === 'sun' ? null : localNormal(s.normal, [0, 0, 1], `surfaces.${i}.normal`)));
+function capLoads(models: CapModelChoice, surfaces: readonly Surface[], plans: readonly PointingPlan[], bodyRadiusKm: number, albedo: number) {
+  const fixed = plans.map(fixedNormal);
   let radiusKm = Number.NaN;
   let cap = capNodes(2, COARSE_CAP_NODES.radial, COARSE_CAP_NODES.azimuth);
   let plates: (PlateNodes | null)[] = [];
   const out = new Float64Array(2);
-  return (load: SurfaceLoad, i: number, r: number, sun: Vector3, fluxWm2: number): SurfaceLoad => {
+  return (load: SurfaceLoad, i: number, r: number, sun: Vector3, fluxWm2: number, n: Float64Array): SurfaceLoad => {
     if (!(Math.abs(r - radiusKm) <= 1e-4 * r)) {
       radiusKm = r;
       cap = capNodes(r / bodyRadiusKm, COARSE_CAP_NODES.radial, COARSE_CAP_NODES.azimuth);
@@ -146,7 +148,8 @@ function capLoads(models: CapModelChoice, surfaces: readonly Surface[], bodyRadi
       plates = fixed.map((n) => (n ? plateNodes(nodes, n[0], n[1], n[2]) : null));
     }
     const { reflected, day, floor } = capExitances(models, fluxWm2, albedo);
-    plateFluxes(plates[i] ?? plateNodes(cap, sun[0], sun[1], sun[2]), sun[0], sun[1], sun[2], reflected, day, floor, out);
+    // a moving plate's nodes follow its normal (a spinner's axis) at this row
+    plateFluxes(plates[i] ?? pointingPlateNodes(plans[i], cap, n[0], n[1], n[2]), sun[0], sun[1], sun[2], reflected, day, floor, out);
     const albedoWm2 = models.albedoModel === 'lambertian' ? out[0] : load.albedoWm2;
     const irWm2 = models.field ? out[1] : load.irWm2;
     return { ...load, albedoWm2, irWm2, absorbedW: absorbedW(surfaces[i], load.solarWm2, albedoWm2, irWm2) };
@@ -160,9 +163,12 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
   const olrWm2 = options.olrWm2 ?? body.olrWm2.nominal;
   const keep = options.keep ?? (() => true);
   const models = chooseCapModels(body, options, albedo, options.maxAltitudeKm ?? 0);
-  const capAt = needsCap(models) ? capLoads(models, surfaces, body.radiusKm, albedo) : null;
+  // inertial directions in ICRF, the frame of the trajectory's positions
+  const toIcrf = j2000ToIcrf(body);
+  const plans = surfaces.map((s, i) => orientPlan(pointingPlan(s.normal, `surfaces.${i}.normal`), toIcrf));
+  const capAt = needsCap(models) ? capLoads(models, surfaces, plans, body.radiusKm, albedo) : null;
   const sunAt = sunInterpolator(body);
-  const fixed = surfaces.map((s, i) => (s.normal === 'sun' ? null : localNormal(s.normal, [0, 0, 1], `surfaces.${i}.normal`)));
+  const n = new Float64Array(3);
   const sums = surfaces.map((s) => zeroLoad(s.name));
   const peaks = surfaces.map((s) => zeroLoad(s.name));
   const points: TrajectoryPointLoads[] = [];
@@ -202,7 +208,13 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
     betaSum += Math.asin(Math.max(-1, Math.min(1, sunLocal[1]))) * weightS;
     fluxSum += point.solarFluxWm2 * weightS;
     const loads = surfaces.map((surface, i) => {
-      const load = capAt ? capAt(surfaceLoad(surface, fixed[i] ?? sunLocal, point), i, radiusKm, sunLocal, point.solarFluxWm2) : surfaceLoad(surface, fixed[i] ?? sunLocal, point);
+      const plan = plans[i];
+      const d = plan.direction;
+      const inertial = d.kind === 'inertial' ? d.v : ram;
+      // the surface's normal (a spinner's axis) at this row (pointing.ts), and its two load factors
+      directionAt(d, sunLocal[0], sunLocal[1], sunLocal[2], dot(inertial, ram), dot(inertial, normal), dot(inertial, zenith), n);
+      const closed = loadFromFactors(surface, sunCosine(plan, n[0], n[1], n[2], sunLocal[0], sunLocal[1], sunLocal[2]), pointingViewFactor(plan, radiusKm, body.radiusKm, -n[2]), point);
+      const load = capAt ? capAt(closed, i, radiusKm, sunLocal, point.solarFluxWm2, n) : closed;
       const [sum, peak] = [sums[i], peaks[i]];
       sum.solarWm2 += load.solarWm2 * weightS; sum.albedoWm2 += load.albedoWm2 * weightS;
       sum.irWm2 += load.irWm2 * weightS; sum.absorbedW += load.absorbedW * weightS;

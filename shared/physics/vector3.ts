@@ -30,7 +30,7 @@ export const fromSpherical = (raRad: number, decRad: number): Vector3 => [
   Math.sin(decRad),
 ];
 
-/** Angle between two vectors in radians, robust near 0 and pi (atan2 of cross and dot). */
-export const angleBetween = (a: Vector3, b: Vector3): number => Math.atan2(norm(cross(a, b)), dot(a, b));
-
 export const DEG = Math.PI / 180;
+
+/** An angle in degrees brought into [0, 360). */
+export const wrapDeg = (deg: number): number => ((deg % 360) + 360) % 360;

@@ -77,7 +77,7 @@ describe('deriving cases', () => {
       .expect(201);
     expect(res.body.kind).toBe('custom');
     expect(res.body.results.betaDeg).toBeCloseTo(0, 6);
-    expect(res.body.inputs.attitude).toMatch(/Zenith radiator sun/);
+    expect(res.body.inputs.attitude).toMatch(/Zenith radiator pointed at the Sun/);
   });
 });
 

@@ -1,5 +1,6 @@
-// Hostile JSON bodies for every JSON route, and the check each answer must pass. Shared by the
-// hostile-input test (npm test, 1000 runs a route) and bench/soak.ts (longer, random seeds).
+// Hostile JSON bodies for every JSON route, and the check each answer must pass: the one source of
+// the probe bodies and of the run over every route, shared by the hostile-input test (npm test,
+// TEST_RUNS bodies a route, a fixed seed) and bench/soak.ts (10,000 a route, random seeds).
 //
 // A body is a route's valid sample with one mutation that makes it invalid by construction
 // (protected from the later mutations) (an
@@ -16,7 +17,7 @@ import { Agent, request as httpRequest, type Server } from 'node:http';
 import type { Express } from 'express';
 import { errorBody } from '../../shared/api/errors';
 import type { Sqlite } from '../../server/db/database';
-import { buildScene, type Scene } from './route-samples';
+import { buildScene, concretePath, jsonRoutes, routeKey, sampleBody, validatesBody, type Scene } from './route-samples';
 import { createTestApp, type TestApp } from './test-app';
 
 type Json = { raw: string } | { items: Json[] } | { pairs: [string, Json][] };
@@ -131,36 +132,49 @@ const breaking = fc.oneof(
   fc.record({ kind: fc.constant('root' as const), value: fc.oneof(fc.constantFrom('null', '[]', '0', '"{}"', 'true'), fc.jsonValue().filter((v) => v === null || typeof v !== 'object' || Array.isArray(v)).map((v) => JSON.stringify(v))) }),
 );
 
+type BreakingMutation = typeof breaking extends fc.Arbitrary<infer T> ? T : never;
+export type BreakingKind = BreakingMutation['kind'];
+
+/** Bodies derived from `sample`, each invalid by construction, with the kind of their breaking mutation. */
+function labelledBodies(sample: unknown): fc.Arbitrary<{ body: string; breaking: BreakingKind }> {
+  return fc.tuple(breaking, fc.array(anyMutation, { maxLength: 3 })).map(([first, mutations]) => ({ body: mutated(sample, first, mutations), breaking: first.kind }));
+}
+
 /** Bodies derived from `sample`, each invalid by construction. */
 export function hostileBodies(sample: unknown): fc.Arbitrary<string> {
-  return fc.tuple(breaking, fc.array(anyMutation, { maxLength: 3 })).map(([first, mutations]) => {
-    if (first.kind === 'root') return first.value;
-    const root = { body: toAst(structuredClone(sample)) };
-    if (!('pairs' in root.body)) root.body = { pairs: [] };
-    let broken: Json;
-    if (first.kind === 'add') {
-      const objects = places(root).map((p) => p.node).filter((n): n is { pairs: [string, Json][] } => 'pairs' in n);
-      broken = { raw: first.value };
-      objects[first.at % objects.length]?.pairs.push([first.key, broken]);
-    } else {
-      // A leaf that held a string gets an overlong one; a number gets Infinity or NaN.
-      const leaves = places(root).filter((p) => 'raw' in p.node && /^["\d-]/.test(p.node.raw));
-      const leaf = leaves[first.at % Math.max(1, leaves.length)];
-      broken = { raw: leaf && 'raw' in leaf.node && leaf.node.raw.startsWith('"') ? first.text : first.number };
-      if (leaf) leaf.set(broken);
-      else if ('pairs' in root.body) root.body.pairs.push(['extra field', broken]);
-    }
-    const brokenPlace = places(root).find((p) => p.node === broken);
-    const kept = new Set<Json>([broken, ...(brokenPlace?.parents ?? [])]);
-    for (const m of mutations) apply(root, m, kept);
-    return render(root.body);
-  });
+  return labelledBodies(sample).map((b) => b.body);
+}
+
+/** `sample` with the breaking mutation applied last, so that none of the others can undo it. */
+function mutated(sample: unknown, first: BreakingMutation, mutations: Mutation[]): string {
+  if (first.kind === 'root') return first.value;
+  const root = { body: toAst(structuredClone(sample)) };
+  if (!('pairs' in root.body)) root.body = { pairs: [] };
+  let broken: Json;
+  if (first.kind === 'add') {
+    const objects = places(root).map((p) => p.node).filter((n): n is { pairs: [string, Json][] } => 'pairs' in n);
+    broken = { raw: first.value };
+    objects[first.at % objects.length]?.pairs.push([first.key, broken]);
+  } else {
+    // A leaf that held a string gets an overlong one; a number gets Infinity or NaN.
+    const leaves = places(root).filter((p) => 'raw' in p.node && /^["\d-]/.test(p.node.raw));
+    const leaf = leaves[first.at % Math.max(1, leaves.length)];
+    broken = { raw: leaf && 'raw' in leaf.node && leaf.node.raw.startsWith('"') ? first.text : first.number };
+    if (leaf) leaf.set(broken);
+    else if ('pairs' in root.body) root.body.pairs.push(['extra field', broken]);
+  }
+  const brokenPlace = places(root).find((p) => p.node === broken);
+  const kept = new Set<Json>([broken, ...(brokenPlace?.parents ?? [])]);
+  for (const m of mutations) apply(root, m, kept);
+  return render(root.body);
 }
 
 /** A hostile body as sent: maybe compressed, maybe only said to be, with its headers. */
 export interface HostileRequest {
   body: string | Buffer;
   headers: Record<string, string>;
+  /** What makes it hostile: the breaking mutation and the Content-Encoding's kind (for the coverage count). */
+  kinds: { breaking: BreakingKind; encoding: EncodingKind };
 }
 
 // Brotli at its fastest: its default (11) takes seconds on the megabyte-long strings.
@@ -182,22 +196,27 @@ const encoding = fc.oneof(
   { weight: 1, arbitrary: fc.record({ kind: fc.constant('unsupported' as const), header: fc.constantFrom('gzip, br', 'compress', 'zstd', 'x-gzip2', 'identity, gzip', '*') }) },
 );
 
+export type EncodingKind = (typeof encoding extends fc.Arbitrary<infer T> ? T : never)['kind'];
+export const breakingKinds: readonly BreakingKind[] = ['add', 'leaf', 'root'];
+export const encodingKinds: readonly EncodingKind[] = ['plain', 'compressed', 'declared', 'truncated', 'unsupported'];
+
 /** Hostile bodies of hostileBodies(), some of them with a hostile Content-Encoding as well. */
 export function hostileRequests(sample: unknown): fc.Arbitrary<HostileRequest> {
-  return fc.tuple(hostileBodies(sample), encoding).map(([body, enc]): HostileRequest => {
+  return fc.tuple(labelledBodies(sample), encoding).map(([{ body, breaking: broken }, enc]): HostileRequest => {
+    const kinds = { breaking: broken, encoding: enc.kind };
     switch (enc.kind) {
       case 'plain':
-        return { body, headers: {} };
+        return { body, headers: {}, kinds };
       case 'compressed':
-        return { body: compressors[enc.name](body), headers: { 'content-encoding': enc.name } };
+        return { body: compressors[enc.name](body), headers: { 'content-encoding': enc.name }, kinds };
       case 'declared':
-        return { body, headers: { 'content-encoding': enc.name } };
+        return { body, headers: { 'content-encoding': enc.name }, kinds };
       case 'truncated': {
         const whole = compressors[enc.name](body);
-        return { body: whole.subarray(0, Math.floor(whole.length * enc.keep)), headers: { 'content-encoding': enc.name } };
+        return { body: whole.subarray(0, Math.floor(whole.length * enc.keep)), headers: { 'content-encoding': enc.name }, kinds };
       }
       case 'unsupported':
-        return { body, headers: { 'content-encoding': enc.header } };
+        return { body, headers: { 'content-encoding': enc.header }, kinds };
     }
   });
 }
@@ -297,4 +316,56 @@ export async function probe(client: Client, sqlite: Sqlite, target: ProbeTarget,
   if (shape.data.error.message.trim() === '') return `${where} with an empty message`;
   if (wrote) return `${where} but wrote to the database`;
   return null;
+}
+
+/**
+ * Hostile requests a route gets in `npm test` (a fixed seed); bench/soak.ts sends SOAK_RUNS (10,000)
+ * with fresh seeds. The rarest kinds are each Content-Encoding but plain (1 in 16 each): at 100 a
+ * route, any seed misses one of the four with a chance of 4 (15/16)^100, about 0.6 %, and the test
+ * checks that this seed missed none on any route.
+ */
+export const TEST_RUNS = 100;
+
+export interface RouteProbing {
+  /** A line for each failing route: its key, what was wrong and the request that showed it. */
+  failures: string[];
+  /** Requests sent in all. */
+  total: number;
+  /** Per route, the kinds of hostile request it was sent ("breaking add", "encoding truncated", ...). */
+  kindsByRoute: Map<string, Set<string>>;
+}
+
+/**
+ * `runs` hostile requests (a property of fast-check, `seed`) on every JSON route the app answers,
+ * as the Kestrel owner; the owner's session must outlive every route but sign-out (tried last), or
+ * the routes after it would only have heard 401. `onRoute` hears each route as it is done.
+ */
+export async function probeEveryRoute(
+  { t, scene, client }: ProbeScene, runs: number, seed: number,
+  onRoute?: (key: string, sent: number, ms: number, failed: boolean) => void,
+): Promise<RouteProbing> {
+  const owner = { cookie: scene.cookies['owner@kestrel.test'] ?? '' };
+  const out: RouteProbing = { failures: [], total: 0, kindsByRoute: new Map() };
+  for (const route of jsonRoutes(t.app)) {
+    const key = routeKey(route);
+    const kinds = new Set<string>();
+    out.kindsByRoute.set(key, kinds);
+    const target = { method: route.method, path: concretePath(route, scene.ids), headers: owner, validatesBody: validatesBody(key) };
+    const started = Date.now();
+    const result = await fc.check(
+      fc.asyncProperty(hostileRequests(sampleBody(key, scene.ids)), async (hostile) => {
+        kinds.add(`breaking ${hostile.kinds.breaking}`).add(`encoding ${hostile.kinds.encoding}`);
+        const problem = await probe(client, t.ctx.sqlite, target, hostile);
+        if (problem) throw new Error(problem);
+      }),
+      { numRuns: runs, seed, endOnFailure: true },
+    );
+    out.total += result.numRuns;
+    if (result.failed) out.failures.push(`${key}: ${String(result.errorInstance ?? '').slice(0, 1500)} counterexample ${JSON.stringify(result.counterexample)?.slice(0, 500) ?? ''}`);
+    if (key !== 'POST /api/v1/auth/sign-out' && (await client.send('GET', '/api/v1/auth/me', '', owner)).status !== 200) {
+      out.failures.push(`${key}: the owner's session ended, so the routes after it were not really tried`);
+    }
+    onRoute?.(key, result.numRuns, Date.now() - started, result.failed);
+  }
+  return out;
 }

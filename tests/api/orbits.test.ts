@@ -66,6 +66,18 @@ describe('POST /api/v1/missions/:id/orbits', () => {
     expect(res.body.items.length).toBe(3);
   });
 
+  // Before any other quantity of this file needs mathjs: the first such quantity loads it, and the
+  // write is made once, complete (NIST SP 811 appendix B: 1 ft = 0.3048 m exactly).
+  it("reads a unit outside the typed-unit table with mathjs, loaded when first needed: '1804462 ft' is 550.00 km, one row and one audit event", async () => {
+    const before = countRows(t, 'orbits');
+    const res = await post({ name: 'in feet', periapsisAltitudeKm: '1804462 ft', apoapsisAltitudeKm: '1804462 ft', inclinationDeg: 97.6 }).expect(201);
+    const saved = orbit.parse(res.body);
+    expect(saved.periapsisAltitudeKm).toBeCloseTo(1804462 * 0.3048e-3, 9);
+    expect(saved.input).toEqual({ periapsisAltitudeKm: '1804462 ft', apoapsisAltitudeKm: '1804462 ft', inclinationDeg: 97.6 });
+    expect(countRows(t, 'orbits')).toBe(before + 1);
+    expect(auditFor(t, saved.id).map((a) => a.action)).toEqual(['orbit.created']);
+  });
+
   it.each([
     [{ periapsisAltitudeKm: '5 kg', apoapsisAltitudeKm: 500 }, 400, 'orbit.periapsisAltitudeKm: "5 kg" is a mass, not a length'],
     [{ periodS: '95 km', eccentricity: 0 }, 400, 'orbit.periodS: "95 km" is a length, not a time'],

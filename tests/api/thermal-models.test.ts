@@ -165,17 +165,17 @@ describe('runs against a load case', () => {
   });
 
   it("sums each node's surfaces from the case with the case's heat-load margin", async () => {
-    const kase = (await thermal.get(`/api/v1/cases/${hotCaseId}`).expect(200)).body as CaseDetailBody;
+    const loadCase = (await thermal.get(`/api/v1/cases/${hotCaseId}`).expect(200)).body as CaseDetailBody;
     const run = await analyst.post(`/api/v1/thermal-models/${demoModelId}/run`).send({ caseId: hotCaseId }).expect(200);
-    const zenith = kase.results.surfaces.find((s) => s.name === 'Zenith radiator')!;
-    const { heatLoadPercent } = kase.inputs.margins;
-    expect(kase.inputs.conditions.marginDirection).toBe('increase');
+    const zenith = loadCase.results.surfaces.find((s) => s.name === 'Zenith radiator')!;
+    const { heatLoadPercent } = loadCase.inputs.margins;
+    expect(loadCase.inputs.conditions.marginDirection).toBe('increase');
     const panel = (run.body.solveRequest.nodes as { name: string; absorbedW: number[]; radiatorAreaM2: number; emissivity: number }[]).find((n) => n.name === 'radiator panel')!;
-    expect(panel.absorbedW).toHaveLength(kase.results.tS.length);
+    expect(panel.absorbedW).toHaveLength(loadCase.results.tS.length);
     panel.absorbedW.forEach((w, k) => expect(w).toBeCloseTo(zenith.series.absorbedW[k]! * (1 + heatLoadPercent / 100), 3));
     expect(panel.radiatorAreaM2).toBe(zenith.areaM2);
     expect(panel.emissivity).toBeCloseTo(zenith.emissivity, 6);
-    expect(run.body.solveRequest.periodS).toBe(kase.results.periodS);
+    expect(run.body.solveRequest.periodS).toBe(loadCase.results.periodS);
     expect(run.body.inputs[0].dissipation).toBe('2.5 W'); // the battery's hot-case value
   });
 
@@ -186,9 +186,9 @@ describe('runs against a load case', () => {
       .send({ name: 'Heavy plate', model: { nodes: [{ name: 'plate', capacitanceJK: 1e6, initialC: 0, dissipationW: 20, surfaceIds: [zenith] }] } })
       .expect(201);
     const run = await thermal.post(`/api/v1/thermal-models/${created.body.id}/run`).send({ caseId: hotCaseId }).expect(200);
-    const kase = (await thermal.get(`/api/v1/cases/${hotCaseId}`).expect(200)).body as CaseDetailBody;
-    const s = kase.results.surfaces.find((x) => x.name === 'Zenith radiator')!;
-    const absorbed = (s.series.absorbedW.reduce((a, b) => a + b, 0) / s.series.absorbedW.length) * (1 + kase.inputs.margins.heatLoadPercent / 100);
+    const loadCase = (await thermal.get(`/api/v1/cases/${hotCaseId}`).expect(200)).body as CaseDetailBody;
+    const s = loadCase.results.surfaces.find((x) => x.name === 'Zenith radiator')!;
+    const absorbed = (s.series.absorbedW.reduce((a, b) => a + b, 0) / s.series.absorbedW.length) * (1 + loadCase.inputs.margins.heatLoadPercent / 100);
     // eps sigma A T^4 = Q + absorbed: so large a capacitance that the orbit's swing is negligible
     const expectedC = ((20 + absorbed) / (s.emissivity * STEFAN_BOLTZMANN * s.areaM2)) ** 0.25 - 273.15;
     const plate = run.body.result.nodes[0] as NodeResult;

@@ -136,7 +136,10 @@ async function internalsOn(page: Page): Promise<string[]> {
   // what is folded away (sources, assumptions) is read too
   await page.locator('details:not([open])').evaluateAll((all) => all.forEach((d) => d.setAttribute('open', '')));
   // an icon's ligature ("account_circle") is drawn as a picture, not read; both read at one moment
-  const seen = await page.evaluate(() => ({ text: document.body.innerText, icons: [...document.querySelectorAll('mat-icon')].map((i) => (i.textContent ?? '').trim()) }));
+  const seen = await page.locator('body').evaluate((body) => ({
+    text: (body as unknown as { innerText: string }).innerText,
+    icons: Array.from(body.querySelectorAll('mat-icon')).map((icon) => ((icon as { textContent: string | null }).textContent ?? '').trim()),
+  }));
   const text = seen.text;
   const icons = new Set(seen.icons);
   return INTERNALS.flatMap(({ what, pattern }) => {

@@ -11,12 +11,11 @@ export type FieldUnit = 'km' | 's' | 'min' | 'deg' | 'm^2';
 export type QuantityReading = TypedReading;
 
 /**
- * The typed text as a number in the field's unit. A bare number is already in it; a number with a
- * unit is converted; anything else says what is wrong in words the field can show.
+ * The typed text as a number in the field's unit: the shared table's own reader, limited to the
+ * units a field shows. A bare number is already in it; a number with a unit is converted; anything
+ * else says what is wrong in words the field can show.
  */
-export function readQuantityText(text: string, fieldUnit: FieldUnit): QuantityReading {
-  return readTypedQuantity(text, fieldUnit);
-}
+export const readQuantityText: (text: string, fieldUnit: FieldUnit) => QuantityReading = readTypedQuantity;
 
 /**
  * What to send the server for a field: the text as typed, but a bare number gets the field's

@@ -17,6 +17,7 @@ import { DurationPipe } from '../time/duration-pipe';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { OrbitView } from './orbit-view';
 import { nearestIndex } from '../plots/plot-scales';
+import { describeNormal } from '../surfaces/surface-normals';
 import { defaultFacesRequest, faceAverages } from './default-faces';
 
 /** The face plotted first: the Sun-pointing plate, the largest solar load. */
@@ -101,6 +102,12 @@ export class EnvironmentResults {
     return a ? faceAverages(a) : [];
   });
   private readonly shownIndex = computed(() => Math.min(this.surfaceIndex(), Math.max(0, this.surfaceNames().length - 1)));
+  /** Each saved surface's pointing in words, by name. */
+  private readonly pointingByName = computed(() => new Map(this.mission().surfaces.map((s) => [s.name, describeNormal(s.normal)])));
+  protected pointingOf(name: string): string {
+    return this.pointingByName().get(name) ?? '';
+  }
+  protected readonly shownName = computed(() => this.surfaceNames()[this.shownIndex()] ?? '');
   protected readonly bands = computed(() => eclipseBands(this.answer()?.profile ?? [], this.answer()?.parentBodyId ?? null));
   protected readonly parentName = computed(() => bodyName(this.answer()?.parentBodyId ?? ''));
   protected readonly absorbed = computed(() => {

@@ -11,6 +11,7 @@ import type { PlotSeries } from '../plots/plot-series';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { castByText, sweepCsvColumns, sweepExtremes, sweepSeries } from './sweep-plot-data';
 import { streamSweep } from './sweep-stream';
+import { describeNormal } from '../surfaces/surface-normals';
 
 type SweepState = 'idle' | 'running' | 'done' | 'cancelled' | 'failed';
 
@@ -27,6 +28,8 @@ export class MissionSweep {
   private readonly document = inject(DOCUMENT);
 
   readonly mission = input.required<MissionDetail>();
+  /** Each surface's pointing in words, beside the plot of its loads. */
+  protected readonly pointingWords = describeNormal;
   readonly orbit = input.required<Orbit>();
 
   protected readonly properties = signal<PropertySet>('bol');

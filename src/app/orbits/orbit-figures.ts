@@ -1,5 +1,6 @@
 // The figures the orbit editor derives while the user types, from the compute route's answer.
 import type { BodySummaryResponse, EnvironmentResponse } from '../../../shared/api/environment';
+import { semiMajorAxisForPeriodKm, speedKmS } from '../../../shared/physics/kepler';
 
 export interface OrbitFigures {
   readonly periodS: number;
@@ -13,19 +14,14 @@ export interface OrbitFigures {
   readonly eclipseDurationS: number;
 }
 
-// Vis-viva: v^2 = GM (2/r - 1/a) (Vallado, "Fundamentals of Astrodynamics", eq. 1-31).
-function visVivaKmS(gmKm3S2: number, radiusKm: number, semiMajorAxisKm: number): number {
-  return Math.sqrt(gmKm3S2 * (2 / radiusKm - 1 / semiMajorAxisKm));
-}
-
 export function orbitFigures(answer: EnvironmentResponse, body: BodySummaryResponse): OrbitFigures {
   const a = answer.semiMajorAxisKm;
   return {
     periodS: answer.periodS,
     periapsisAltitudeKm: answer.periapsisAltitudeKm,
     apoapsisAltitudeKm: answer.apoapsisAltitudeKm,
-    periapsisSpeedKmS: visVivaKmS(body.gmKm3S2, body.radiusKm + answer.periapsisAltitudeKm, a),
-    apoapsisSpeedKmS: visVivaKmS(body.gmKm3S2, body.radiusKm + answer.apoapsisAltitudeKm, a),
+    periapsisSpeedKmS: speedKmS(body.radiusKm + answer.periapsisAltitudeKm, a, body.gmKm3S2),
+    apoapsisSpeedKmS: speedKmS(body.radiusKm + answer.apoapsisAltitudeKm, a, body.gmKm3S2),
     betaDeg: answer.epochBetaDeg ?? answer.betaDeg,
     eclipseFraction: answer.eclipseFraction,
     eclipseDurationS: answer.eclipseDurationS,
@@ -38,10 +34,6 @@ export function meanAltitudeKm(orbit: { periapsisAltitudeKm?: number; apoapsisAl
     return (orbit.periapsisAltitudeKm + orbit.apoapsisAltitudeKm) / 2;
   }
   if (orbit.semiMajorAxisKm !== undefined) return orbit.semiMajorAxisKm - body.radiusKm;
-  if (orbit.periodS !== undefined) {
-    // Kepler's third law: a = (GM T^2 / 4 pi^2)^(1/3).
-    const a = Math.cbrt((body.gmKm3S2 * orbit.periodS ** 2) / (4 * Math.PI ** 2));
-    return a - body.radiusKm;
-  }
+  if (orbit.periodS !== undefined) return semiMajorAxisForPeriodKm(orbit.periodS, body.gmKm3S2) - body.radiusKm;
   return null;
 }

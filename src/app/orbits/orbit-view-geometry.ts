@@ -2,6 +2,7 @@
 // periapsis along +x, the body at the focus. Pure functions of the environment answer's profile.
 // Conic equation r = a (1 − e²) / (1 + e cos ν) (Vallado, "Fundamentals of Astrodynamics", ch. 2).
 import type { EnvironmentResponse } from '../../../shared/api/environment';
+import { wrapDeg } from '../../../shared/physics/vector3';
 
 type Profile = EnvironmentResponse['profile'];
 
@@ -42,7 +43,7 @@ export interface SunAzimuth {
 export function sunAzimuth(profile: Profile, fallbackDeg = 0): SunAzimuth {
   // only the body's own shadow tells where the Sun is; a planet's shadow falls wherever the moon is
   const shaded = profile.filter((p) => p.sunlit < 1 && (p.parentSunlit ?? 1) >= 1);
-  if (shaded.length === 0 || shaded.length === profile.length) return { deg: normalizeDeg(fallbackDeg), fromShadow: false };
+  if (shaded.length === 0 || shaded.length === profile.length) return { deg: wrapDeg(fallbackDeg), fromShadow: false };
   // circular mean of the shaded directions, weighted by how much of the Sun is hidden
   let sx = 0;
   let sy = 0;
@@ -51,10 +52,9 @@ export function sunAzimuth(profile: Profile, fallbackDeg = 0): SunAzimuth {
     sx += w * Math.cos(rad(p.trueAnomalyDeg));
     sy += w * Math.sin(rad(p.trueAnomalyDeg));
   }
-  return { deg: normalizeDeg(deg(Math.atan2(sy, sx)) + 180), fromShadow: true };
+  return { deg: wrapDeg(deg(Math.atan2(sy, sx)) + 180), fromShadow: true };
 }
 
-export const normalizeDeg = (d: number): number => ((d % 360) + 360) % 360;
 
 /**
  * The body's shadow where it crosses the orbit plane (cylindrical, Sun at infinity), as a polygon in

@@ -35,11 +35,6 @@ export interface NavEntry {
   readonly link: readonly string[];
 }
 
-/** The roles that may open a workspace section; used by the route guards. */
-export function sectionRoles(id: SectionId): readonly Role[] {
-  return SECTIONS.find((s) => s.id === id)?.roles ?? [];
-}
-
 function linkOf(section: Section, workspaceId: string | null): readonly string[] {
   switch (section.scope) {
     case 'workspace':

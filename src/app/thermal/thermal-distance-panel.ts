@@ -53,7 +53,7 @@ export function parseDistances(text: string): number[] | null {
     <div class="pick-row">
       <mat-form-field appearance="outline">
         <mat-label>Load case</mat-label>
-        <mat-select [value]="caseId()" (valueChange)="kase.set($event)" data-testid="study-case">
+        <mat-select [value]="caseId()" (valueChange)="pickedCaseId.set($event)" data-testid="study-case">
           <mat-select-trigger>@if (caseOf(caseId()); as c) { <ecl-case-kind [kind]="c.kind" /> {{ c.name }} · rev {{ c.revision }} }</mat-select-trigger>
           @for (c of cases(); track c.id) { <mat-option [value]="c.id"><ecl-case-kind [kind]="c.kind" /> {{ c.name }} · rev {{ c.revision }}</mat-option> }
         </mat-select>
@@ -145,7 +145,7 @@ export class ThermalDistancePanel {
   readonly canRun = input(false);
 
   private readonly document = inject(DOCUMENT);
-  protected readonly kase = signal<string | null>(null);
+  protected readonly pickedCaseId = signal<string | null>(null);
   protected readonly radiator = signal<string | null>(null);
   protected readonly distancesText = signal('0.72, 1, 1.52');
   protected readonly missionRange = signal(true);
@@ -155,7 +155,7 @@ export class ThermalDistancePanel {
   protected readonly points = signal<readonly PointLine[]>([]);
   private subscription: Subscription | null = null;
 
-  protected readonly caseId = computed(() => this.kase() ?? this.cases().find((c) => c.kind === 'hot')?.id ?? this.cases()[0]?.id ?? null);
+  protected readonly caseId = computed(() => this.pickedCaseId() ?? this.cases().find((c) => c.kind === 'hot')?.id ?? this.cases()[0]?.id ?? null);
   protected readonly radiatorNode = computed(() => this.radiator() ?? this.nodes().find((n) => /radiator/i.test(n)) ?? this.nodes()[0] ?? null);
   protected readonly progress = computed(() => {
     const total = this.start()?.distances.length ?? 0;

@@ -1,7 +1,7 @@
 // A run of the saved model on one of the mission's load cases: choose the case (hot and cold named
 // in words and tone), run with a progress bar, then the per-node table with PASS/FAIL and margin,
 // the temperature plot with its limits, the heaters' strips and table, the loops' flows and CSV.
-import { DOCUMENT, DecimalPipe, PercentPipe } from '@angular/common';
+import { DOCUMENT, DecimalPipe } from '@angular/common';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { MatButton } from '@angular/material/button';
@@ -31,7 +31,7 @@ const GUTTERS = { left: 150, right: 56 } as const;
 
 @Component({
   selector: 'ecl-thermal-run-panel',
-  imports: [DecimalPipe, PercentPipe, MatButton, MatFormField, MatLabel, MatHint, MatInput, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, StripPlot, ThermalLoopResults, SourceWordsPipe],
+  imports: [DecimalPipe, MatButton, MatFormField, MatLabel, MatHint, MatInput, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, StripPlot, ThermalLoopResults, SourceWordsPipe],
   templateUrl: './thermal-run-panel.html',
   styleUrl: './thermal-run-panel.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
