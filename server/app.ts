@@ -8,6 +8,8 @@ import { securityHeaders } from './http/security-headers';
 import { routeDispatcher } from './http/route-dispatch';
 import { rememberRouteTable } from './route-list';
 import { apiRoutes } from './routes/api-routes';
+import { lookupCustomBody } from './bodies/custom-body-store';
+import { setCustomBodyLookup } from '../shared/physics/bodies';
 
 export interface AppOptions {
   /** Built client to serve; defaults to the config's clientDir. */
@@ -15,6 +17,8 @@ export interface AppOptions {
 }
 
 export function createApp(ctx: AppContext, options: AppOptions = {}): Express {
+  // The physics finds a workspace's own bodies (custom-...) in this app's database.
+  setCustomBodyLookup((id) => lookupCustomBody(ctx.db, id));
   const app = express();
   app.disable('x-powered-by');
   app.use(securityHeaders(ctx.config.publicUrl));

@@ -1,7 +1,7 @@
 // Missions, their orbits and spacecraft surfaces, and the material library (shared/api/missions.ts).
 // An orbit keeps what the user typed (input, with units) beside the canonical values.
 import { index, integer, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
-import { bodyIds } from '../../shared/physics/bodies';
+import type { AnyBodyId } from '../../shared/physics/bodies';
 import { orbitDefinitions } from '../../shared/api/missions';
 import type { SurfaceNormal } from '../../shared/physics/pointing';
 import { createdAt, id, updatedAt } from './columns';
@@ -15,7 +15,7 @@ export const missions = sqliteTable(
       .notNull()
       .references(() => workspaces.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
-    bodyId: text('body_id', { enum: bodyIds }).notNull(),
+    bodyId: text('body_id').$type<AnyBodyId>().notNull(),
     description: text('description').notNull().default(''),
     startDate: text('start_date').notNull(),
     endDate: text('end_date').notNull(),

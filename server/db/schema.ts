@@ -8,3 +8,4 @@ export * from './ephemeris-tables';
 export * from './case-tables';
 export * from './thermal-tables';
 export * from './environment-tables';
+export * from './body-tables';

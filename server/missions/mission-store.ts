@@ -5,6 +5,7 @@ import type { MissionDetail, Mission, missionCreate, missionUpdate } from '../..
 import type { Role } from '../../shared/api/workspaces';
 import type { z } from 'zod';
 import { getBody } from '../../shared/physics/bodies';
+import { useCustomBodyIn } from '../bodies/custom-body-store';
 import { recordAudit } from '../audit/audit-log';
 import { noWorkspace, roleRefused } from '../auth/middleware';
 import type { Db } from '../db/database';
@@ -64,6 +65,8 @@ export function createMission(db: Db, userId: string, input: MissionCreate): Mis
     const role = memberRole(tx, userId, workspaceId);
     if (!role) throw noWorkspace(workspaceId);
     if (!editorRoles.includes(role)) throw roleRefused(role, editorRoles);
+    // a workspace's own body only in its own missions
+    useCustomBodyIn(tx, [workspaceId], input.bodyId);
     const { workspaceId: _named, ...fields } = input;
     const row = tx.insert(missions).values({ ...fields, workspaceId, createdBy: userId }).returning().get();
     recordAudit(tx, {
@@ -125,7 +128,10 @@ export function updateMission(db: Db, userId: string, missionId: string, input: 
       changes.push('un-archived');
     }
     if (changes.length === 0) return toMission(mission);
-    if (fields.bodyId !== undefined && fields.bodyId !== mission.bodyId) recomputeOrbits(tx, mission.id, fields.bodyId, read);
+    if (fields.bodyId !== undefined && fields.bodyId !== mission.bodyId) {
+      useCustomBodyIn(tx, [mission.workspaceId], fields.bodyId);
+      recomputeOrbits(tx, mission.id, fields.bodyId, read);
+    }
     const row = tx
       .update(missions)
       .set({ ...fields, archivedAt, updatedAt: new Date().toISOString() })

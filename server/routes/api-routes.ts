@@ -7,6 +7,7 @@ import { authRoutes } from './auth';
 import { caseRoutes } from './cases';
 import { environmentRoutes } from './environment';
 import { environmentTableRoutes } from './environment-table';
+import { customBodyRoutes } from './custom-bodies';
 import { ephemerisRoutes } from './ephemerides';
 import { invitationRoutes } from './invitations';
 import { missionRoutes } from './missions';
@@ -25,6 +26,7 @@ export const apiRoutes: readonly ApiRoute[] = [
   ...thermalRoutes,
   ...missionRoutes,
   ...environmentTableRoutes,
+  ...customBodyRoutes,
   ...ephemerisRoutes,
   ...caseRoutes,
   ...apiDocsRoutes,

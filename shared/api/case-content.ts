@@ -2,7 +2,7 @@
 // These schemas describe the stored JSON, the case routes' answers and the JSON export, and the
 // JSON Schema served at /api/v1/schemas/load-case.json is generated from them.
 import { z } from 'zod';
-import { bodyIds } from '../physics/bodies';
+import { anyBodyIdOut } from './body-id';
 import type { CaseDecision, CaseWhyRecord } from '../physics/case-why';
 import type { CaseConditions, CaseResults, SurfaceDriver, ScanSummary } from '../physics/design-cases';
 import type { Margins } from '../physics/design-environment';
@@ -33,7 +33,7 @@ export const caseSurface = z.object({
 });
 
 export const caseConditions = z.object({
-  bodyId: z.enum(bodyIds),
+  bodyId: anyBodyIdOut,
   /** Canonical elements: km, deg. */
   orbit: z.object({
     semiMajorAxisKm: num,
@@ -116,7 +116,7 @@ export const caseDecision = z.object({
 export const caseInputs = z.object({
   mission: z.object({ id: z.string(), name: z.string(), startDate: z.string(), endDate: z.string(), crewed: z.boolean() }),
   body: z.object({
-    id: z.enum(bodyIds),
+    id: anyBodyIdOut,
     name: z.string(),
     gmKm3S2: num,
     radiusKm: num,

@@ -5,8 +5,8 @@
 // Ranges here catch malformed input (400); physics/orbit-definition.ts refuses the impossible (422)
 // so its messages can say by how much.
 import { z } from 'zod';
+import { anyBodyId, anyBodyIdOut } from './body-id';
 import { lineText } from './text';
-import { bodyIds } from '../physics/bodies';
 import type { EnvironmentRequest } from '../physics/environment';
 import { albedoModels, irModels } from '../physics/cap-loads';
 import { surfaceNormal } from './pointing';
@@ -71,7 +71,7 @@ export const surfaceInput = z.strictObject({
 
 export const environmentRequest = z
   .strictObject({
-    bodyId: z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` }),
+    bodyId: anyBodyId(),
     orbit: orbitInput,
     epoch: z.iso.datetime({ offset: true, message: 'epoch is an ISO 8601 date and time, e.g. 2027-03-20T12:00:00Z' }).optional(),
     betaDeg: finite('beta').min(-90, 'beta is -90..90 deg').max(90, 'beta is -90..90 deg').optional(),
@@ -148,7 +148,9 @@ export const environmentResponse = z.object({
 const range = z.object({ min: z.number(), nominal: z.number(), max: z.number() });
 
 export const bodySummary = z.object({
-  id: z.enum(bodyIds),
+  id: anyBodyIdOut,
+  /** A workspace's own body: its workspace (absent for the catalogue's). */
+  workspaceId: z.string().optional(),
   name: z.string(),
   kind: z.enum(['planet', 'moon']),
   planetId: z.string(),
@@ -184,7 +186,7 @@ export const asEnvironmentRequest = (parsed: EnvironmentRequestParsed): Environm
 //   GET  /api/v1/bodies/:bodyId                    -> bodyDetail (404 for an unknown body)
 //   POST /api/v1/units/convert                     unitConvertRequest -> unitConvertResponse
 
-const bodyIdField = z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` });
+const bodyIdField = anyBodyId();
 
 export const orbitFiguresRequest = z.strictObject({ bodyId: bodyIdField, orbit: orbitInput });
 

@@ -21,9 +21,9 @@
 //   POST   workspaces/:workspaceId/materials      materialCreate -> 201 material
 //   PATCH|DELETE workspaces/:workspaceId/materials/:materialId   (only a workspace's own materials)
 import { z } from 'zod';
+import { anyBodyId, anyBodyIdOut } from './body-id';
 import { lineText, multilineText } from './text';
 import { answerLayout } from './answer-formats';
-import { bodyIds } from '../physics/bodies';
 import { samplings } from '../physics/orbit-sampling';
 import { surfaceNormal } from './pointing';
 
@@ -39,7 +39,7 @@ export const mission = z.object({
   id: z.string(),
   workspaceId: z.string(),
   name: z.string(),
-  bodyId: z.enum(bodyIds),
+  bodyId: anyBodyIdOut,
   description: z.string(),
   startDate: z.string(),
   endDate: z.string(),
@@ -52,7 +52,7 @@ export const mission = z.object({
 
 const missionFields = {
   name: text('mission name', 120),
-  bodyId: z.enum(bodyIds, { message: `bodyId is one of ${bodyIds.join(', ')}` }),
+  bodyId: anyBodyId(),
   description: multilineText(4000).default(''),
   startDate: isoDate,
   endDate: isoDate,

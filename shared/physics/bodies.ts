@@ -12,6 +12,10 @@ export const bodyIds = [
   'io', 'europa', 'ganymede', 'callisto', 'titan', 'enceladus',
 ] as const;
 export type BodyId = (typeof bodyIds)[number];
+/** A workspace's own body (custom-bodies.ts): the prefix keeps it apart from the catalogue's names. */
+export type CustomBodyId = `custom-${string}`;
+/** Any body a mission or a computation may name: the catalogue's or a workspace's own. */
+export type AnyBodyId = BodyId | CustomBodyId;
 export type PlanetId = 'mercury' | 'venus' | 'earth' | 'mars' | 'jupiter' | 'saturn' | 'uranus' | 'neptune';
 
 export interface Range {
@@ -64,8 +68,19 @@ export interface AirlessSurface {
   sources: { emissivity: string; nightFloorK: string };
 }
 
+/** A custom body's own path about the Sun (custom-bodies.ts); the catalogue's follow VSOP87. */
+export interface HeliocentricOrbit {
+  aAu: number;
+  e: number;
+  yearDays: number;
+  /** The distances as entered, AU. */
+  meanAu: number;
+  minAu: number;
+  maxAu: number;
+}
+
 export interface Body {
-  id: BodyId;
+  id: AnyBodyId;
   name: string;
   kind: 'planet' | 'moon';
   /** The planet whose heliocentric position, plus the moon's own offset, places a moon. */
@@ -87,6 +102,10 @@ export interface Body {
   provisional: boolean;
   /** Present for a body without a thick atmosphere: its IR comes from a surface temperature field. */
   airless: AirlessSurface | null;
+  /** A custom body about the Sun: its Keplerian path in place of its planetId's VSOP87; null otherwise. */
+  heliocentric: HeliocentricOrbit | null;
+  /** True for a workspace's own body. */
+  custom?: boolean;
   sources: Record<string, string>;
 }
 
@@ -389,6 +408,7 @@ const bodies: ReadonlyMap<BodyId, Body> = new Map(
       solarYearDays: orbit.yearDays,
       provisional: d.provisional ?? false,
       airless: d.airless ?? null,
+      heliocentric: null,
       sources: {
         ...d.sources,
         solarDistanceAu: d.id === d.planetId ? ORBIT_SOURCE : `${ORBIT_SOURCE}, of ${d.planetId}, plus the moon's own offset (${d.parentOrbit?.source ?? 'no theory'})`,
@@ -400,10 +420,16 @@ const bodies: ReadonlyMap<BodyId, Body> = new Map(
 
 export const isBodyId = (id: string): id is BodyId => (bodyIds as readonly string[]).includes(id);
 
+/** Where getBody finds a workspace's own bodies: the server sets it (its database); unset, there are none. */
+let customBodyLookup: ((id: string) => Body | undefined) | null = null;
+export const setCustomBodyLookup = (lookup: ((id: string) => Body | undefined) | null): void => {
+  customBodyLookup = lookup;
+};
+
 export function getBody(id: string): Body {
-  const body = isBodyId(id) ? bodies.get(id) : undefined;
+  const body = isBodyId(id) ? bodies.get(id) : id.startsWith('custom-') ? customBodyLookup?.(id) : undefined;
   if (!body) {
-    throw new PhysicsError('unknown_body', `"${id}" is not a body Eclipta knows; choose one of ${bodyIds.join(', ')}`, [
+    throw new PhysicsError('unknown_body', `"${id}" is not a body Eclipta knows; choose one of ${bodyIds.join(', ')} or one of the workspace's own bodies`, [
       { path: 'bodyId', message: `unknown body "${id}"` },
     ]);
   }
@@ -417,6 +443,7 @@ export const allBodies = (): Body[] => bodyIds.map((id) => getBody(id));
  * its planet on either side (it can sit on the Sun's side or beyond the planet).
  */
 export const solarDistanceRangeAu = (body: Body) => {
+  if (body.heliocentric) return { mean: body.heliocentric.meanAu, min: body.heliocentric.minAu, max: body.heliocentric.maxAu };
   const moonAu = body.parentOrbit ? (body.parentOrbit.semiMajorAxisKm * (1 + body.parentOrbit.eccentricity)) / AU_KM : 0;
   return {
     mean: body.semiMajorAxisAu,
@@ -427,7 +454,7 @@ export const solarDistanceRangeAu = (body: Body) => {
 
 /** One body as GET /api/v1/bodies answers it (API.md "Other fixed routes"). */
 export interface BodySummary {
-  id: BodyId;
+  id: AnyBodyId;
   name: string;
   kind: 'planet' | 'moon';
   planetId: PlanetId;
@@ -448,10 +475,12 @@ export interface BodySummary {
 }
 
 /** The catalogue in the shape of GET /api/v1/bodies; the pole is its J2000 value. */
-export const bodySummaries = (): BodySummary[] =>
-  allBodies().map((b) => ({
-    id: b.id, name: b.name, kind: b.kind, planetId: b.planetId, gmKm3S2: b.gmKm3S2, radiusKm: b.radiusKm, j2: b.j2,
-    poleRaDeg: b.pole.alpha0Deg, poleDecDeg: b.pole.delta0Deg,
-    solarDistanceAu: solarDistanceRangeAu(b), albedo: { ...b.albedo }, olrWm2: { ...b.olrWm2 },
-    provisional: b.provisional, airless: b.airless !== null, surfaceField: b.airless, sources: { ...b.sources },
-  }));
+export const bodySummaries = (): BodySummary[] => allBodies().map(bodySummary);
+
+/** One body, the catalogue's or a workspace's own, in that shape. */
+export const bodySummary = (b: Body): BodySummary => ({
+  id: b.id, name: b.name, kind: b.kind, planetId: b.planetId, gmKm3S2: b.gmKm3S2, radiusKm: b.radiusKm, j2: b.j2,
+  poleRaDeg: b.pole.alpha0Deg, poleDecDeg: b.pole.delta0Deg,
+  solarDistanceAu: solarDistanceRangeAu(b), albedo: { ...b.albedo }, olrWm2: { ...b.olrWm2 },
+  provisional: b.provisional, airless: b.airless !== null, surfaceField: b.airless, sources: { ...b.sources },
+});

@@ -4,7 +4,7 @@
 // Leaves out: dissipation and attitude modes (the thermal model's part), survival cases, and any
 // coupling between parameters: the worst Sun distance and the worst beta are combined even when
 // they fall on different days, the usual conservative practice (DOMAIN.md "Cases" [P, G]).
-import { getBody, solarDistanceRangeAu, type Body, type BodyId } from './bodies';
+import { getBody, solarDistanceRangeAu, type AnyBodyId, type Body } from './bodies';
 import { caseRationale, fixed, type CaseDecision } from './case-why';
 import { designPairs, heatLoadFactor, opticalProperties, type CaseMaterial, type EnvironmentPair, type MarginDirection, type Margins, type PropertySet } from './design-environment';
 import { candidateDays, maxBy, raanOnDateRad, scanMission, type ScanDay } from './design-scan';
@@ -28,7 +28,7 @@ export interface CaseSurface {
 
 /** Everything one case is computed from; a case's results follow from these alone. */
 export interface CaseConditions {
-  bodyId: BodyId;
+  bodyId: AnyBodyId;
   orbit: OrbitInput;
   orbitEpoch: string;
   /** YYYY-MM-DD: sets the node (J2 drift) and the Sun's azimuth; beta and distance are given below. */
@@ -171,7 +171,7 @@ export function evaluateCase(conditions: CaseConditions, margins: Margins): Case
 }
 
 export interface DerivationInput {
-  bodyId: BodyId;
+  bodyId: AnyBodyId;
   orbit: OrbitInput;
   orbitEpoch: string;
   startDate: string;

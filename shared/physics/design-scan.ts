@@ -2,7 +2,7 @@
 // the node drifting under J2 and the Sun moving, and the body's distance from the Sun.
 // Leaves out: drag and every perturbation but J2's secular node drift (see beta-angle.ts).
 // Sources: Gilmore Vol. I ch. 2 (beta angle); Vallado ch. 9 (J2 nodal regression); VSOP87 (sun.ts).
-import type { Body, BodyId } from './bodies';
+import type { AnyBodyId, Body } from './bodies';
 import { missionDays, type MissionDays } from './mission-days';
 import type { Orbit } from './orbit-definition';
 import { PhysicsError } from './physics-error';
@@ -16,7 +16,7 @@ export interface ScanDay {
   raanDeg: number;
   solarDistanceAu: number;
   /** About a moon: the longest shadow its planet takes part in that day (mission-days.ts), or null. */
-  parentShadow: { durationS: number; startMs: number; castBy: BodyId[]; parentS: number; parentMiddleMs: number } | null;
+  parentShadow: { durationS: number; startMs: number; castBy: AnyBodyId[]; parentS: number; parentMiddleMs: number } | null;
 }
 
 // Beyond about ten years of daily samples the scan steps more coarsely; beta moves slowly enough.

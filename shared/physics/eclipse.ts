@@ -8,7 +8,7 @@
 // formula from Gilmore, Spacecraft Thermal Control Handbook Vol. I, ch. 2.
 import { SUN_RADIUS_KM } from './constants';
 import type { OrbitState } from './orbit-position';
-import { dot, norm, type Vector3 } from './vector3';
+import type { Vector3 } from './vector3';
 
 export interface ShadowGeometry {
   /** Apparent radius of the Sun, radians. */
@@ -21,20 +21,28 @@ export interface ShadowGeometry {
 
 /** Apparent disks of Sun and body seen from positionKm (body-centred); sunDirection is a unit vector from the body's centre. */
 export function shadowGeometry(positionKm: Vector3, sunDirection: Vector3, sunDistanceKm: number, bodyRadiusKm: number): ShadowGeometry {
-  const toSun: Vector3 = [
-    sunDirection[0] * sunDistanceKm - positionKm[0],
-    sunDirection[1] * sunDistanceKm - positionKm[1],
-    sunDirection[2] * sunDistanceKm - positionKm[2],
-  ];
-  const dSun = norm(toSun);
-  const r = norm(positionKm);
-  const cosSep = -dot(toSun, positionKm) / (dSun * r);
-  return {
-    sunRadiusRad: Math.asin(Math.min(1, SUN_RADIUS_KM / dSun)),
-    bodyRadiusRad: Math.asin(Math.min(1, bodyRadiusKm / r)),
-    separationRad: Math.acos(Math.max(-1, Math.min(1, cosSep))),
-  };
+  const [x, y, z] = positionKm;
+  return shadowGeometryInto(
+    x, y, z, sunDirection[0] * sunDistanceKm - x, sunDirection[1] * sunDistanceKm - y, sunDirection[2] * sunDistanceKm - z, bodyRadiusKm,
+    { sunRadiusRad: 0, bodyRadiusRad: 0, separationRad: 0 },
+  );
 }
+
+/**
+ * The same from the point (x, y, z) (body-centred, km) and the vector (tx, ty, tz) from it to the
+ * Sun's centre, written into `out` (no allocation, for scans of many instants).
+ */
+export function shadowGeometryInto(x: number, y: number, z: number, tx: number, ty: number, tz: number, bodyRadiusKm: number, out: ShadowGeometry): ShadowGeometry {
+  const dSun = Math.sqrt(tx * tx + ty * ty + tz * tz);
+  const r = Math.sqrt(x * x + y * y + z * z);
+  const cosSep = -(tx * x + ty * y + tz * z) / (dSun * r);
+  out.sunRadiusRad = Math.asin(Math.min(1, SUN_RADIUS / dSun));
+  out.bodyRadiusRad = Math.asin(Math.min(1, bodyRadiusKm / r));
+  out.separationRad = Math.acos(Math.max(-1, Math.min(1, cosSep)));
+  return out;
+}
+// a local copy: an imported binding may be read through a getter on every use
+const SUN_RADIUS = SUN_RADIUS_KM;
 
 /** Share of the Sun's disk (0..1) left visible by the body's disk. */
 // area of intersection of two circles (lens), radii a (Sun) and b (body), centres c apart

@@ -5,7 +5,7 @@
 // Leaves out: everything the modules it calls leave out; the Sun is held fixed for the one orbit
 // computed. Surfaces take every pointing form of pointing.ts. About a moon with an epoch, the planet's shadow (parent-shadow.ts) darkens the samples
 // it covers and the eclipse is counted from both bodies. Source: API.md "Environment computation".
-import { getBody, type BodyId } from './bodies';
+import { getBody, type AnyBodyId } from './bodies';
 import { betaFromVectorsRad } from './beta-angle';
 import { capColumns, chooseCapModels, reportedOlrWm2, type AlbedoModel, type CapModelChoice, type IrModel } from './cap-loads';
 import { AU_KM } from './constants';
@@ -26,7 +26,7 @@ import { pointingAssumptions } from './pointing-words';
 import { DEG, dot, norm, scale, subtract, type Vector3 } from './vector3';
 
 export interface EnvironmentRequest {
-  bodyId: BodyId | string;
+  bodyId: AnyBodyId | string;
   orbit: OrbitInput;
   /** ISO 8601 UTC; sets the Sun's direction and distance. Optional when betaDeg is given. */
   epoch?: string;

@@ -6,7 +6,7 @@
 // Leaves out: what sun-track.ts, parent-shadow.ts and the J2 secular rates leave out. Sources:
 // Vallado ch. 2 (perifocal-to-inertial rotation) and ch. 9 (J2 secular rates); Gilmore Vol. I ch. 2
 // (beta angle).
-import type { Body, BodyId } from './bodies';
+import type { AnyBodyId, Body, BodyId } from './bodies';
 import { AU_KM } from './constants';
 import { apsidalRateRadS } from './kepler';
 import type { Orbit } from './orbit-definition';
@@ -72,8 +72,8 @@ export function missionDays(body: Body, orbit: Orbit, orbitEpochMs: number, star
 }
 
 /** The longest darkness of a day: the body's own shadow over one orbit (edge to edge) or a span its planet takes part in. */
-export function longestShadow(body: Body, ownShadowS: number, spans: readonly ShadowSpan[]): { durationS: number; castBy: BodyId[]; startMs: number | null } {
-  let best: { durationS: number; castBy: BodyId[]; startMs: number | null } = { durationS: ownShadowS, castBy: ownShadowS > 0 ? [body.id] : [], startMs: null };
+export function longestShadow(body: Body, ownShadowS: number, spans: readonly ShadowSpan[]): { durationS: number; castBy: AnyBodyId[]; startMs: number | null } {
+  let best: { durationS: number; castBy: AnyBodyId[]; startMs: number | null } = { durationS: ownShadowS, castBy: ownShadowS > 0 ? [body.id] : [], startMs: null };
   for (const span of spans) if (span.durationS > best.durationS) best = { durationS: span.durationS, castBy: span.castBy, startMs: span.startMs };
   return best;
 }

@@ -76,6 +76,27 @@ describe('sweepMission (one orbit per date, the fast path of the mission sweep)'
     expect(sso.minBetaDeg).toBeGreaterThan(55);
   });
 
+  // From 1000 rows a sweep without a surface temperature field reads each fixed plate's Lambertian
+  // albedo from a table by beta; a one-row sweep works the same day's cap integral directly.
+  // Self-consistency of mission-sweep.ts (no outside source): within 1e-5 of the plate's value (a few 1e-6 seen).
+  it('a long sweep\'s tabulated Lambertian albedo equals the day-by-day cap integral on the same days', () => {
+    const normals = ['nadir', 'zenith', 'ram', 'wake', 'orbit-normal', 'anti-orbit-normal'] as const;
+    const plates = normals.map((normal, i) => ({ name: normal, normal, areaM2: 1, absorptivity: 0.3 + 0.05 * i, emissivity: 0.8 }));
+    const request: MissionSweepRequest = {
+      bodyId: 'europa', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 85, raanDeg: 40 },
+      epochStart: '2027-01-01T12:00:00Z', days: 1100, steps: 72, surfaces: plates, albedo: 0.68, olrWm2: 7,
+    };
+    const long = sweepMission(request);
+    expect(long.models.albedoModel).toBe('lambertian');
+    for (const day of [0, 137, 555, 1099]) {
+      const date = new Date(Date.parse('2027-01-01T12:00:00Z') + day * 86400e3);
+      const [one] = sweepMission({ ...request, epochStart: date, orbitEpoch: '2027-01-01T12:00:00Z', days: 0 }).rows;
+      long.rows[day]!.surfaces.forEach((s, j) => {
+        expect(Math.abs(s.albedoWm2 - one!.surfaces[j]!.albedoWm2)).toBeLessThanOrEqual(1e-5 * Math.max(1, one!.surfaces[j]!.albedoWm2));
+      });
+    }
+  });
+
   it('refuses more than 20000 rows and a non-positive step', () => {
     const base = { bodyId: 'earth', orbit: { periodS: 6000, eccentricity: 0 }, epochStart: '2027-01-01T00:00:00Z' };
     expect(() => sweepMission({ ...base, days: 20000 })).toThrow(/20001 rows is more than 20000/);

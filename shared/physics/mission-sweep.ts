@@ -15,12 +15,12 @@
 // Leaves out: everything computeEnvironment leaves out; drag and other perturbations that change
 // the orbit's size or inclination; the Sun's motion within one orbit. Sources: Vallado ch. 9 (J2
 // secular rates); the models of environment.ts; the Sun from VSOP87 through sun-track.ts.
-import { getBody, type BodyId } from './bodies';
+import { getBody, type AnyBodyId } from './bodies';
 import { capAssumptions, capColumns, capExitances, capGridNodes, COARSE_CAP_NODES, chooseCapModels, needsCap, type CapModelChoice, type CapModelRequest } from './cap-loads';
 import type { EclipseSummary } from './eclipse';
 import type { Surface, SurfaceLoad } from './heat-loads';
 import { defineOrbit, type Orbit, type OrbitInput } from './orbit-definition';
-import { plateOrbitMeanFluxes } from './cap-radiance';
+import { plateOrbitMeanFluxes, type PlateNodes } from './cap-radiance';
 import {
   eclipseFromShade, eclipseOnGrid, gridShade, orbitGrid, orbitGridAt, shadeGrid, type GridShade, type OrbitGrid, type PerifocalSun,
 } from './orbit-grid';
@@ -36,7 +36,7 @@ import { degPerDay } from './kepler';
 import { DAY_MS } from './constants';
 
 export interface MissionSweepRequest extends CapModelRequest {
-  bodyId: BodyId | string;
+  bodyId: AnyBodyId | string;
   /** The compute route's orbit object; RAAN and argument of periapsis hold at orbitEpoch. */
   orbit: OrbitInput;
   /** The first date of the sweep (ISO 8601 UTC or a Date). */
@@ -75,13 +75,13 @@ export interface MissionSweepRow {
    */
   longestShadowS: number;
   /** Which bodies cast it ('europa', 'jupiter', or both); empty without shadow. */
-  longestShadowCastBy: BodyId[];
+  longestShadowCastBy: AnyBodyId[];
   /** When it starts (ISO 8601 UTC) for a shadow the planet takes part in; null for the body's own. */
   longestShadowStart: string | null;
 }
 
 export interface MissionSweepResult {
-  bodyId: BodyId;
+  bodyId: AnyBodyId;
   periodS: number;
   nodalRateDegPerDay: number;
   apsidalRateDegPerDay: number;
@@ -146,7 +146,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   const solarSums = new Float64Array(prepared.length);
   const albedoSums = new Float64Array(prepared.length);
   const sunIrSums = new Float64Array(prepared.length);
-  const cap = needsCap(models) ? sweepCap(orbit, body.radiusKm, surfaces) : null;
+  const cap = needsCap(models) ? sweepCap(orbit, body.radiusKm, surfaces, rowCount) : null;
   const rows: MissionSweepRow[] = new Array(rowCount);
   let minBeta = Infinity;
   let maxBeta = -Infinity;
@@ -216,7 +216,7 @@ function sweepAssumptions(models: CapModelChoice, firstFluxWm2: number): string[
  * in the local frame takes the exact time average over the orbit (plateOrbitMeanFluxes); moving
  * plates (pointing.ts) and eccentric orbits are sampled on a small grid evenly in eccentric anomaly with exact time weights.
  */
-function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface[]) {
+function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface[], rowCount: number) {
   const { times, weightS } = eccentricAnomalyTimes(orbit, SWEEP_CAP_STEPS);
   const grid = orbitGridAt(orbit, bodyRadiusKm, times);
   const prepared = prepareSurfaces(surfaces, grid, bodyRadiusKm);
@@ -228,6 +228,7 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
   const sampledNodesAt = capGridNodes(sampled, grid, bodyRadiusKm, { keepAll: true, ...COARSE_CAP_NODES });
   const shade = gridShade(grid.steps);
   const out = new Float64Array(2);
+  const litTables: ((sy: number) => number)[] = [];
   const average = (column: Float64Array): number => {
     let sum = 0;
     for (let k = 0; k < column.length; k++) sum += column[k] * weightS[k];
@@ -245,7 +246,11 @@ function sweepCap(orbit: Orbit, bodyRadiusKm: number, surfaces: readonly Surface
       let i = 0;
       for (let j = 0; j < prepared.length; j++) {
         const plate = fixed[j];
-        if (plate) {
+        if (plate && !models.field && rowCount >= ALBEDO_TABLE_FROM_ROWS) {
+          // the albedo alone: its orbit mean per unit reflected exitance, tabulated by beta
+          albedoWm2[j] = reflected * (litTables[j] ??= litByBeta(plate))(sun.sw);
+          irWm2[j] = Number.NaN;
+        } else if (plate) {
           plateOrbitMeanFluxes(plate, sun.sw, reflected, day, floor, out);
           albedoWm2[j] = out[0];
           irWm2[j] = out[1];
@@ -273,6 +278,35 @@ function movingSurfaces(prepared: readonly PreparedSurface[], grid: OrbitGrid, b
     if (!p.plan) return null;
     return { columns: pointingColumnsFor(grid.steps), table: circular ? viewFactorTable(p.source, r0, bodyRadiusKm) : null };
   });
+}
+
+/**
+ * From this many rows a sweep without a surface temperature field tabulates each fixed plate's orbit
+ * mean albedo (per unit reflected exitance) by beta once, instead of integrating the cap every day:
+ * the table costs ALBEDO_TABLE_STEPS + 4 days' work. The mean is a smooth function of beta (the
+ * Sun turns about the orbit normal; plateOrbitMeanFluxes), read by four-point Lagrange interpolation
+ * (Abramowitz & Stegun 25.2.13) within a few 1e-6 of the day-by-day value
+ * (mission-sweep.spec.ts holds it to the day-by-day integral).
+ */
+const ALBEDO_TABLE_FROM_ROWS = 1000;
+const ALBEDO_TABLE_STEPS = 720;
+
+/** A fixed plate's orbit-mean lit cap, sum of w max(mu, 0), as a function of sin(beta), from a table evenly in beta. */
+function litByBeta(plate: PlateNodes): (sy: number) => number {
+  const h = Math.PI / ALBEDO_TABLE_STEPS;
+  const out = new Float64Array(2);
+  // nodes from -90 deg - h to 90 deg + 2h: beyond +-90 deg sin(beta) folds back, so the table is whole there too
+  const table = Float64Array.from({ length: ALBEDO_TABLE_STEPS + 4 }, (_, n) => {
+    plateOrbitMeanFluxes(plate, Math.sin(-Math.PI / 2 + (n - 1) * h), 1, 0, 0, out);
+    return out[0];
+  });
+  return (sy) => {
+    const s = (Math.asin(Math.max(-1, Math.min(1, sy))) + Math.PI / 2) / h + 1;
+    const j = Math.min(ALBEDO_TABLE_STEPS + 1, Math.max(1, Math.floor(s)));
+    const u = s - j;
+    return ((-u * (u - 1) * (u - 2)) / 6) * table[j - 1] + (((u + 1) * (u - 1) * (u - 2)) / 2) * table[j]
+      + ((-(u + 1) * u * (u - 2)) / 2) * table[j + 1] + (((u + 1) * u * (u - 1)) / 6) * table[j + 2];
+  };
 }
 
 /**

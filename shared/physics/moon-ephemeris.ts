@@ -101,8 +101,13 @@ export function moonOffsetKm(body: Body, jde: number): Vector3 {
   }
 }
 
+// local copies of the constants for the hot paths below (an imported binding may be read through a getter)
+const TT_MINUS_UTC = TT_MINUS_UTC_S;
+const DAY_S = SECONDS_PER_DAY;
+const J2000 = J2000_JD;
+
 /** Julian ephemeris date of a UTC instant in ms (the same as sun.ts julianDateTT, without a Date). */
-export const jdeOfMs = (ms: number): number => 2440587.5 + (ms / 1000 + TT_MINUS_UTC_S) / SECONDS_PER_DAY;
+export const jdeOfMs = (ms: number): number => 2440587.5 + (ms / 1000 + TT_MINUS_UTC) / DAY_S;
 
 export interface MoonTrack {
   /** The moon's planetocentric position (km, ICRF) at a UTC instant in ms, written into out. */
@@ -171,7 +176,7 @@ export function moonTrack(body: Body, nodeDays = defaultMoonNodeDays(body)): Moo
       return evaluations;
     },
     at(ms: number, out: Float64Array): void {
-      const days = jdeOfMs(ms) - J2000_JD;
+      const days = jdeOfMs(ms) - J2000;
       const s = days / nodeDays;
       const j = Math.floor(s);
       const u = s - j;
@@ -205,7 +210,7 @@ export function localMoonTrack(body: Body, fromMs: number, toMs: number): (ms: n
   const h = (jdeOfMs(toMs) - J2000_JD - d0) / 2;
   const [a, b, c] = [still(d0), still(d0 + h), still(d0 + 2 * h)];
   return (ms, out) => {
-    const days = jdeOfMs(ms) - J2000_JD;
+    const days = jdeOfMs(ms) - J2000;
     const u = h > 0 ? (days - d0) / h : 0;
     // three-point Lagrange weights for nodes 0, 1, 2 (Abramowitz & Stegun 25.2.11)
     const [wa, wb, wc] = [((u - 1) * (u - 2)) / 2, -u * (u - 2), (u * (u - 1)) / 2];

@@ -138,6 +138,8 @@ export function shadeGrid(grid: OrbitGrid, sun: PerifocalSun, shade: GridShade):
   const { cx, cz, shadowTest, umbraTest, sunlit } = shade;
   const steps = grid.steps;
   const dd = d * d;
+  // a local copy: an imported binding may be read through a getter on every use
+  const sunRadiusKm = SUN_RADIUS_KM;
   for (let k = 0; k < steps; k++) {
     const c = cosNu[k];
     const s = sinNu[k];
@@ -149,7 +151,7 @@ export function shadeGrid(grid: OrbitGrid, sun: PerifocalSun, shade: GridShade):
     // one division for both ratios over the distance to the Sun
     const inverseSun = 1 / Math.sqrt(dd - 2 * d * r * z + r * r);
     const cosSep = (r - d * z) * inverseSun;
-    const sinSun = Math.min(1, SUN_RADIUS_KM * inverseSun);
+    const sinSun = Math.min(1, sunRadiusKm * inverseSun);
     const cosSun = cosFromSin(sinSun);
     const sinB = sinBody[k];
     const cosB = cosBody[k];

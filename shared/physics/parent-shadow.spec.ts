@@ -256,3 +256,42 @@ describe('moon tracks against the theory they interpolate (closed form: the theo
     expect(worst('moon', localMoonTrack(getBody('moon'), from, from + 12 * 3600e3), from, from + 12 * 3600e3)).toBeLessThan(50);
   });
 });
+
+describe('the passage scan against the shade sampled every 20 s (self-consistency of parent-shadow.ts; no outside source)', () => {
+  // spans() looks only near each predicted passage, narrowed on the moon's own motion, and samples the
+  // spacecraft 32 times an orbit; at() here is taken every 20 s over the whole stretch with the
+  // moon's global track. Their dark runs that involve the planet must agree.
+  const denseRuns = (shadow: NonNullable<ReturnType<typeof parentShadow>>, from: number, to: number) => {
+    const runs: { startMs: number; endMs: number }[] = [];
+    let start: number | null = null;
+    let planet = false;
+    for (let t = from; t <= to; t += 20e3) {
+      const s = shadow.at(t);
+      if (s.sunlit < 1 && start === null) [start, planet] = [t, false];
+      if (s.sunlit < 1 && s.parent < 1) planet = true;
+      if (s.sunlit >= 1 && start !== null) {
+        if (planet) runs.push({ startMs: start, endMs: t });
+        start = null;
+      }
+    }
+    return runs;
+  };
+  for (const [id, altitudeKm, inclinationDeg, passages] of [['europa', 100, 85, 3], ['io', 300, 45, 6], ['ganymede', 1500, 20, 1]] as const) {
+    it(`finds every darkness ${id}'s planet takes part in over 12 days, edges within 60 s`, () => {
+      const body = getBody(id);
+      const orbit = defineOrbit({ periapsisAltitudeKm: altitudeKm, apoapsisAltitudeKm: altitudeKm, inclinationDeg }, body);
+      const start = Date.parse('2031-05-01T00:00:00Z');
+      const shadow = parentShadow(body, orbit, start)!;
+      // the dense scan over a day more on each side, so that runs crossing the ends are whole
+      const dense = denseRuns(shadow, start - 86400e3, start + 13 * 86400e3)
+        .filter((r) => (r.startMs + r.endMs) / 2 >= start && (r.startMs + r.endMs) / 2 < start + 12 * 86400e3);
+      const spans = shadow.spans(start, start + 12 * 86400e3);
+      expect(dense.length).toBeGreaterThanOrEqual(passages);
+      expect(spans).toHaveLength(dense.length);
+      spans.forEach((span, i) => {
+        expect(Math.abs(span.startMs - dense[i].startMs) / 1000).toBeLessThan(60);
+        expect(Math.abs(span.endMs - dense[i].endMs) / 1000).toBeLessThan(60);
+      });
+    });
+  }
+});

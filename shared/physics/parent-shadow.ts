@@ -14,9 +14,9 @@
 // by linear interpolation of the shadow test (seconds); within one passage (hours) the orbit's
 // plane is held where it is at the passage's middle. Sources: Montenbruck & Gill,
 // Satellite Orbits, sect. 3.4.2 (conical shadow, from memory); Vallado ch. 2 and 9 (orbit, J2 drift).
-import { getBody, type Body, type BodyId } from './bodies';
+import { getBody, type AnyBodyId, type Body } from './bodies';
 import { AU_KM, DAY_MS, SUN_RADIUS_KM } from './constants';
-import { shadowGeometry, sunlitFraction, type ShadowGeometry } from './eclipse';
+import { shadowGeometryInto, sunlitFraction, type ShadowGeometry } from './eclipse';
 import { apsidalRateRadS } from './kepler';
 import { jdeOfMs, localMoonTrack, moonTrack, type MoonTrack } from './moon-ephemeris';
 import type { Orbit } from './orbit-definition';
@@ -34,7 +34,7 @@ export interface ShadowSpan {
   parentS: number;
   parentMiddleMs: number;
   /** The bodies whose shadow makes up the span: the planet, and the moon where its own shadow joins on. */
-  castBy: BodyId[];
+  castBy: AnyBodyId[];
 }
 
 export interface ShadowAt {
@@ -129,6 +129,8 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     }
     : moonKm;
   const ROUGH_KM = coarseMoon ? 10000 : 0;
+  /** Bound on the local track's error over a passage's stretch (localMoonTrack: tens of km over a day; parent-shadow.spec.ts), km. */
+  const LOCAL_TRACK_KM = 1000;
   /** The orbit's perifocal P and Q in ICRF at ms (node and periapsis drifted), for a window of a few hours. */
   const perifocalAt = (ms: number, frame: Frame): { p: Vector3; q: Vector3 } => {
     const elapsedS = (ms - orbitEpochMs) / 1000;
@@ -140,20 +142,27 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     return { p: icrf(basis.p), q: icrf(basis.q) };
   };
   /** Both shadow tests and sunlit shares at ms, the orbit's plane held as `axes` gives it. */
-  const shadeAt = (ms: number, frame: Frame, axes: { p: Vector3; q: Vector3 }, moonAt: (ms: number) => Vector3 = moonKm): Shade => {
-    const m = moonAt(ms);
+  const planetGeometry: ShadowGeometry = { sunRadiusRad: 0, bodyRadiusRad: 0, separationRad: 0 };
+  const moonGeometry: ShadowGeometry = { sunRadiusRad: 0, bodyRadiusRad: 0, separationRad: 0 };
+  const moonAtBuffer = new Float64Array(3);
+  /** `planetPossible` false: the caller knows the planet's penumbra is out of reach, so only the moon's shadow is worked. */
+  const shadeAt = (
+    ms: number, frame: Frame, axes: { p: Vector3; q: Vector3 }, moonAt: (ms: number, out: Float64Array) => void = (t, out) => track.at(t, out), planetPossible = true,
+  ): Shade => {
+    moonAt(ms, moonAtBuffer);
+    const [mx, my, mz] = [moonAtBuffer[0], moonAtBuffer[1], moonAtBuffer[2]];
     const elapsedS = (ms - orbitEpochMs) / 1000;
     const nu = trueAnomalyAt(orbit, ((elapsedS % orbit.periodS) + orbit.periodS) % orbit.periodS);
     const r = (a * (1 - e * e)) / (1 + e * Math.cos(nu));
     const [c, s] = [Math.cos(nu) * r, Math.sin(nu) * r];
     const { p, q } = axes;
-    const sc: Vector3 = [p[0] * c + q[0] * s, p[1] * c + q[1] * s, p[2] * c + q[2] * s];
-    const planetGeometry = shadowGeometry([m[0] + sc[0], m[1] + sc[1], m[2] + sc[2]], frame.sun, frame.sunKm, parent.radiusKm);
-    // The Sun seen from the moon's centre: the planet's Sun moved by the moon's offset.
-    const toSun: Vector3 = [frame.sun[0] * frame.sunKm - m[0], frame.sun[1] * frame.sunKm - m[1], frame.sun[2] * frame.sunKm - m[2]];
-    const moonSunKm = norm(toSun);
-    const moonGeometry = shadowGeometry(sc, [toSun[0] / moonSunKm, toSun[1] / moonSunKm, toSun[2] / moonSunKm], moonSunKm, body.radiusKm);
+    const [x, y, z] = [p[0] * c + q[0] * s, p[1] * c + q[1] * s, p[2] * c + q[2] * s];
+    // The Sun's centre from the spacecraft: the planet's Sun moved by the moon's offset and the spacecraft's.
+    const [tx, ty, tz] = [frame.sun[0] * frame.sunKm - mx - x, frame.sun[1] * frame.sunKm - my - y, frame.sun[2] * frame.sunKm - mz - z];
+    shadowGeometryInto(x, y, z, tx, ty, tz, body.radiusKm, moonGeometry);
     const fMoon = sunlitFraction(moonGeometry);
+    if (!planetPossible) return { moonTest: shadowTest(moonGeometry), parentTest: 1, moon: fMoon, parent: 1, sunlit: fMoon };
+    shadowGeometryInto(mx + x, my + y, mz + z, tx, ty, tz, parent.radiusKm, planetGeometry);
     const fParent = sunlitFraction(planetGeometry);
     return { moonTest: shadowTest(moonGeometry), parentTest: shadowTest(planetGeometry), moon: fMoon, parent: fParent, sunlit: combinedSunlit(fMoon, fParent) };
   };
@@ -203,16 +212,40 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     const moonSpeedKmMs = (behind * 2 * Math.PI) / moonPeriodMs;
     // the slack twice: once for the anchor's own departure, once for this passage's
     const halfWidthMs = (penumbraKm(behind, frame.sunKm) + reachKm) / moonSpeedKmMs + (2 * phaseSlackRad) / meanRate;
-    // 1. Where the moon's centre comes within reach of the penumbra, and where it is so deep in the
-    //    umbra that the whole orbit is (coarse, on the moon's own motion).
+    // 1. Where the moon's centre may come within reach of the penumbra (coarse, on the moon's own
+    //    motion and the rough track): the stretch to look at more closely, or no passage at all.
     const coarseMs = Math.max(60e3, Math.min(halfWidthMs / 12, orbit.periodS * 1000));
-    const marginKm = moonSpeedKmMs * coarseMs + ROUGH_KM;
-    let [firstIn, lastIn, firstDeep, lastDeep] = [Infinity, -Infinity, Infinity, -Infinity];
+    const coarseMarginKm = moonSpeedKmMs * coarseMs + ROUGH_KM;
+    let [roughFrom, roughTo] = [Infinity, -Infinity];
     for (let t = centreMs - halfWidthMs; t <= centreMs + halfWidthMs; t += coarseMs) {
       const m = roughMoonKm(t);
       const back = -dot(m, frame.sun);
       if (back <= 0) continue;
       const off = Math.sqrt(Math.max(0, dot(m, m) - back * back));
+      if (off < penumbraKm(back, frame.sunKm) + reachKm + coarseMarginKm) {
+        roughFrom = Math.min(roughFrom, t - coarseMs);
+        roughTo = Math.max(roughTo, t + coarseMs);
+      }
+    }
+    if (!(roughTo >= roughFrom)) return [];
+    const periodMs = orbit.periodS * 1000;
+    const stepMs = periodMs / 32;
+    // The moon over this stretch and half an orbit beyond either side from three evaluations of its theory.
+    const local = localMoonTrack(body, roughFrom - periodMs / 2, roughTo + periodMs / 2 + stepMs);
+    // 1b. The same on the accurate track in fine steps: where the moon's centre is within reach of
+    //     the penumbra, and where it is so deep in the umbra that the whole orbit is. The margin is
+    //     the moon's motion in one step (the distance off the axis changes no faster) and the
+    //     local track's own error (LOCAL_TRACK_KM).
+    const fineMs = Math.max(10e3, Math.min(stepMs, coarseMs / 8));
+    const marginKm = moonSpeedKmMs * fineMs + LOCAL_TRACK_KM;
+    let [firstIn, lastIn, firstDeep, lastDeep] = [Infinity, -Infinity, Infinity, -Infinity];
+    const [sx, sy, sz] = frame.sun;
+    for (let t = roughFrom; t <= roughTo; t += fineMs) {
+      local(t, buffer);
+      const [bx, by, bz] = [buffer[0], buffer[1], buffer[2]];
+      const back = -(bx * sx + by * sy + bz * sz);
+      if (back <= 0) continue;
+      const off = Math.sqrt(Math.max(0, bx * bx + by * by + bz * bz - back * back));
       if (off < penumbraKm(back, frame.sunKm) + reachKm + marginKm) {
         firstIn = Math.min(firstIn, t);
         lastIn = Math.max(lastIn, t);
@@ -226,35 +259,33 @@ export function parentShadow(body: Body, orbit: Orbit, orbitEpochMs: number, pla
     // 2. The spacecraft, 32 samples an orbit, half an orbit beyond either side (more than any
     //    shadow of the moon's own lasts) so that those joining on are whole; deep in the umbra it is
     //    dark throughout and is not sampled.
-    const periodMs = orbit.periodS * 1000;
-    const stepMs = periodMs / 32;
-    const from = firstIn - coarseMs - periodMs / 2;
-    const to = lastIn + coarseMs + periodMs / 2;
+    //    The samples keep the phase of the rough stretch (whole steps from its start), so that
+    //    narrowing the stretch changes no sample's time.
+    const from = roughFrom - periodMs / 2 + Math.max(0, Math.floor((firstIn - fineMs - roughFrom) / stepMs)) * stepMs;
+    const to = lastIn + fineMs + periodMs / 2;
     const axes = perifocalAt(centreMs, frame);
-    // The moon over this window from three evaluations of its theory.
-    const local = localMoonTrack(body, from, to + stepMs);
-    const localKm = (ms: number): Vector3 => {
-      local(ms, buffer);
-      return [buffer[0], buffer[1], buffer[2]];
-    };
-    const shade = (ms: number): Shade => shadeAt(ms, frame, axes, localKm);
+    // Outside [firstIn, lastIn] the fine scan proved the planet's penumbra out of reach: there only the
+    // moon's shadow is worked, from a sample step beyond (an edge is interpolated between two real tests).
+    const shade = (ms: number): Shade => shadeAt(ms, frame, axes, local, ms >= firstIn - fineMs - stepMs && ms <= lastIn + fineMs + stepMs);
     const spans: ShadowSpan[] = [];
     let run: { startMs: number; parentS: number; moon: boolean; parentFirstMs: number; parentLastMs: number } | null = null;
     let prev = shade(from);
     let prevT = from;
     for (let t = from + stepMs; t <= to + stepMs / 2; t += stepMs) {
-      const deep = t > firstDeep && t < lastDeep;
+      // (a sample after a lit one is always taken: an edge is interpolated between the two)
+      const deep = t > firstDeep && t < lastDeep && prev.sunlit < 1;
       const cur: Shade = deep ? { moonTest: -1, parentTest: -1, moon: 1, parent: 0, sunlit: 0 } : shade(t);
       const wasDark = prev.sunlit < 1;
       const isDark = cur.sunlit < 1;
-      if (!wasDark && isDark) run = { startMs: edgeMs(prevT, prev, t, cur), parentS: 0, moon: cur.moon < 1, parentFirstMs: Infinity, parentLastMs: -Infinity };
+      if (!wasDark && isDark) run = { startMs: edgeMs(prevT, prev, t, cur), parentS: 0, moon: cur.moon < 1 && cur.parent >= 1, parentFirstMs: Infinity, parentLastMs: -Infinity };
       if (run && isDark) {
         if (cur.parent < 1 || prev.parent < 1) {
           run.parentS += (t - prevT) / 1000;
           run.parentFirstMs = Math.min(run.parentFirstMs, prevT);
           run.parentLastMs = t;
         }
-        if (cur.moon < 1) run.moon = true;
+        // the moon's shadow joins on where it darkens the spacecraft outside the planet's shadow
+        if (cur.moon < 1 && cur.parent >= 1) run.moon = true;
       }
       if (run && wasDark && !isDark) {
         const endMs = edgeMs(prevT, prev, t, cur);

@@ -11,12 +11,23 @@
 // interpolated in the frame turning with the moon (the offset then errs by tens of km for the Moon
 // and a few thousand km at most for the fast moons: under 1e-4 in their solar flux, checked in
 // parent-shadow.spec.ts).
-import type { Body } from './bodies';
+import type { Body, HeliocentricOrbit } from './bodies';
 import { AU_KM, DAY_MS } from './constants';
 import { moonTrack, type MoonTrack } from './moon-ephemeris';
 import { DEG, type Vector3 } from './vector3';
 import { bodyFrameAxes, eclipticToEquatorial, julianDateTT, toBodyFrame } from './sun';
 import { vsop87Series } from './vsop87';
+import { keplerHeliocentric } from './custom-bodies';
+
+/** A custom body's Keplerian path (custom-bodies.ts) at the nodes, in vsop87Series's shape. */
+function keplerSeries(orbit: HeliocentricOrbit, jde0: number, stepDays: number, count: number) {
+  const series = { lon: new Float64Array(count), lat: new Float64Array(count), range: new Float64Array(count) };
+  for (let i = 0; i < count; i++) {
+    const p = keplerHeliocentric(orbit, jde0 + i * stepDays);
+    [series.lon[i], series.lat[i], series.range[i]] = [p.lon, p.lat, p.range];
+  }
+  return series;
+}
 
 export const SUN_TRACK_NODE_DAYS = 4;
 
@@ -70,7 +81,7 @@ export function sunTrack(body: Body, startMs: number, endMs: number, nodeDays = 
   const zs = new Float64Array(count);
   // The nodes are evenly spaced in time, so the VSOP87 sums run as series over the grid (vsop87Series).
   const jde0 = julianDateTT(new Date(first));
-  const helio = vsop87Series(body.planetId, jde0, nodeDays, count);
+  const helio = body.heliocentric ? keplerSeries(body.heliocentric, jde0, nodeDays, count) : vsop87Series(body.planetId, jde0, nodeDays, count);
   for (let i = 0; i < count; i++) {
     const jde = jde0 + i * nodeDays;
     const cosLat = Math.cos(helio.lat[i]);

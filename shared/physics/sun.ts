@@ -6,7 +6,8 @@
 // Leaves out: light time, aberration and nutation (arcseconds).
 // Sources: Bretagnon & Francou 1988 (VSOP87) with astronomia's tables (vsop87.ts); Meeus, Astronomical
 // Algorithms, ch. 25 and 32; IAU WGCCRE 2015 for the poles.
-import { solarDistanceRangeAu, type Body, type PlanetId } from './bodies';
+import { solarDistanceRangeAu, type Body, type HeliocentricOrbit, type PlanetId } from './bodies';
+import { keplerHeliocentric } from './custom-bodies';
 import {
   AU_KM, DAYS_PER_JULIAN_CENTURY, J2000_JD, OBLIQUITY_J2000_DEG, SECONDS_PER_DAY, SOLAR_CONSTANT_WM2, TT_MINUS_UTC_S,
 } from './constants';
@@ -31,6 +32,12 @@ export const eclipticToEquatorial = ([x, y, z]: Vector3): Vector3 => [x, y * COS
 /** Heliocentric position of a planet in AU, J2000 ecliptic and equinox (VSOP87B). */
 export function heliocentricEclipticAu(id: PlanetId, jde: number): Vector3 {
   const { lon, lat, range } = vsop87Position(id, jde);
+  return scale(fromSpherical(lon, lat), range);
+}
+
+/** The same for a custom body's Keplerian path about the Sun. */
+export function keplerHeliocentricAu(orbit: HeliocentricOrbit, jde: number): Vector3 {
+  const { lon, lat, range } = keplerHeliocentric(orbit, jde);
   return scale(fromSpherical(lon, lat), range);
 }
 
@@ -77,7 +84,8 @@ export interface SunGeometry {
 /** Where the Sun is, seen from the body's centre, at a UTC epoch. */
 export function sunFromBody(body: Body, epoch: Date): SunGeometry {
   const jde = julianDateTT(epoch);
-  const helio = heliocentricEclipticAu(body.planetId, jde);
+  // a custom body about the Sun keeps its own Keplerian path (custom-bodies.ts)
+  const helio = body.heliocentric ? keplerHeliocentricAu(body.heliocentric, jde) : heliocentricEclipticAu(body.planetId, jde);
   // the moon's offset from its planet, km to AU (zero for a planet)
   const towardSunIcrf = subtract(eclipticToEquatorial(scale(helio, -1)), scale(moonOffsetKm(body, jde), 1 / AU_KM));
   const distanceAu = norm(towardSunIcrf);

@@ -3,6 +3,7 @@
 // (sun.ts solarFluxWm2); planetary IR stays (the planet's own emission). At each distance the
 // model is solved (its loops' PI controllers set the pump flow) and the radiator is sized to hold
 // its set point (thermal-sizing.ts radiatorAreaFor).
+import { isCustomBodyId } from './custom-bodies';
 import { getBody, isBodyId, solarDistanceRangeAu } from './bodies';
 import { ThermalConvergenceError, ThermalModelError, type ThermalSolveInput, type ThermalSolveResult } from './thermal-model';
 import { radiatorAreaFor, type RadiatorSizing } from './thermal-sizing';
@@ -51,7 +52,8 @@ export function bodyDistances(bodyId: string): StudyDistance[] {
 }
 
 export function perihelionAphelion(bodyId: string): StudyDistance[] {
-  if (!isBodyId(bodyId)) return [];
+  // a mission's body may be the workspace's own (custom-bodies.ts), found by getBody on the server
+  if (!isBodyId(bodyId) && !isCustomBodyId(bodyId)) return [];
   const body = getBody(bodyId);
   const { min, max } = solarDistanceRangeAu(body);
   return [{ label: `${body.name} perihelion`, distanceAu: min }, { label: `${body.name} aphelion`, distanceAu: max }];

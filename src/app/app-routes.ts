@@ -93,6 +93,12 @@ export const appRoutes: Routes = [
             loadComponent: () => import('./workspace/environment-table-page').then((m) => m.EnvironmentTablePage),
           },
           {
+            path: 'bodies',
+            title: 'Bodies · Eclipta',
+            canActivate: [sectionGuard('bodies')],
+            loadComponent: () => import('./workspace/bodies-page').then((m) => m.BodiesPage),
+          },
+          {
             path: 'thermal',
             title: 'Thermal models · Eclipta',
             canActivate: [sectionGuard('thermal')],

@@ -88,6 +88,12 @@ const rules: Record<string, string> = {
   // the workspace's environment table: every member reads; owners and thermal engineers replace it
   'GET /api/v1/workspaces/:workspaceId/environment-table': '401 ok ok ok ok ok 404',
   'PUT /api/v1/workspaces/:workspaceId/environment-table': '401 ok 403 ok 403 403 404',
+  // the workspace's own bodies: every member reads; owners, analysts and thermal engineers write
+  'GET /api/v1/workspaces/:workspaceId/bodies': '401 ok ok ok ok ok 404',
+  'POST /api/v1/workspaces/:workspaceId/bodies': '401 ok ok ok 403 403 404',
+  'GET /api/v1/workspaces/:workspaceId/bodies/:bodyId': '401 ok ok ok ok ok 404',
+  'PUT /api/v1/workspaces/:workspaceId/bodies/:bodyId': '401 ok ok ok 403 403 404',
+  'DELETE /api/v1/workspaces/:workspaceId/bodies/:bodyId': '401 ok ok ok 403 403 404',
   'POST /api/v1/missions/:id/ephemerides': '401 ok ok ok 403 403 404',
   'GET /api/v1/missions/:id/ephemerides': '401 ok ok ok ok ok 404',
   'GET /api/v1/missions/:id/ephemerides/:ephemerisId': '401 ok ok ok ok ok 404',

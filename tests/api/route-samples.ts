@@ -16,6 +16,8 @@ export interface SceneIds {
   orbitId: string;
   surfaceId: string;
   materialId: string;
+  /** A body of Kestrel's own (custom-…). */
+  customBodyId: string;
   ephemerisId: string;
   /** A draft hot case of Kestrel-1 (derived for the scene). */
   draftCaseId: string;
@@ -60,6 +62,13 @@ const one = (t: TestApp, sql: string, ...params: string[]): string => {
   return row.id;
 };
 
+/** A body of the workspace's own, about the Sun (invented). */
+export const sampleCustomBody = {
+  name: 'Scene asteroid', gmKm3S2: 0.4, radiusKm: '110 km', place: { kind: 'sun', meanAu: 2.6, minAu: 2.4, maxAu: 2.8 },
+  albedo: { min: 0.05, nominal: 0.08, max: 0.1 }, olrWm2: { min: 30, nominal: 45, max: 50 },
+  airless: { emissivity: { min: 0.9, nominal: 0.95, max: 0.97 }, nightFloorK: { min: 60, nominal: 70, max: 80 } },
+};
+
 /** A small saved thermal model: one bus node on the mission's first surface. */
 export const sampleThermalModel = (surfaceId: string) => ({
   name: 'Scene bus model',
@@ -92,6 +101,7 @@ export async function buildScene(t: TestApp): Promise<Scene> {
       .send({ name: 'scene grey paint', absorptivityBol: 0.5, emissivityBol: 0.85, absorptivityEol: 0.6, emissivityEol: 0.85 }),
     201, 'material',
   );
+  const customBody = expectStatus(await api.post(`/api/v1/workspaces/${workspaceId}/bodies`).set(owner).send(sampleCustomBody), 201, 'custom body');
   const ephemeris = expectStatus(
     await api.post(`/api/v1/missions/${missionId}/ephemerides`).set(owner).field('frame', 'EME2000').attach('file', path.join(fixturesDir, 'leo-bom.csv')),
     201, 'ephemeris',
@@ -125,6 +135,7 @@ export async function buildScene(t: TestApp): Promise<Scene> {
       viewerUserId: userIdOf(t, 'viewer@kestrel.test'),
       missionId, orbitId, surfaceId, releasedCaseId, thermalModelId,
       materialId: String(material['id']),
+      customBodyId: String(customBody['id']),
       ephemerisId: String(ephemeris['id']),
       draftCaseId: hot,
       reviewCaseId: cold,
@@ -166,7 +177,8 @@ export function concretePath(route: { method: string; path: string }, ids: Scene
         materialId: ids.materialId,
         ephemerisId: ids.ephemerisId,
         caseId: ids.releasedCaseId,
-        bodyId: 'earth',
+        // a workspace's own body under /workspaces, a catalogue body under /bodies
+        bodyId: route.path.startsWith('/api/v1/workspaces/') ? ids.customBodyId : 'earth',
         token: ids.invitationSecret,
       }[param];
     }
@@ -213,6 +225,8 @@ export function sampleBody(key: string, ids: SceneIds): unknown {
     'PATCH /api/v1/missions/:id/surfaces/:surfaceId': { areaM2: '0.25 m^2' },
     'POST /api/v1/workspaces/:workspaceId/materials': { name: 'hostile paint', absorptivityBol: 0.3, emissivityBol: 0.8, absorptivityEol: 0.4, emissivityEol: 0.8 },
     'PATCH /api/v1/workspaces/:workspaceId/materials/:materialId': { absorptivityEol: 0.65 },
+    'POST /api/v1/workspaces/:workspaceId/bodies': { ...sampleCustomBody, name: 'Hostile asteroid' },
+    'PUT /api/v1/workspaces/:workspaceId/bodies/:bodyId': { ...sampleCustomBody, name: 'Scene asteroid, changed' },
     'PUT /api/v1/workspaces/:workspaceId/environment-table': {
       rows: [{ bodyId: 'earth', inclinationMinDeg: 30, inclinationMaxDeg: 60, averagingTimeS: 896, hot: { albedo: 0.3, olrWm2: 260 }, cold: { albedo: 0.2, olrWm2: 200 }, source: 'invented for the test' }],
     },

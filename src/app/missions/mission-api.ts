@@ -1,6 +1,6 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { Observable, map, shareReplay } from 'rxjs';
+import { Observable, map } from 'rxjs';
 import type { BodySummaryResponse, EnvironmentRequestInput, EnvironmentResponse } from '../../../shared/api/environment';
 import type {
   Material,
@@ -33,10 +33,13 @@ function readSunSynchronous(body: unknown): SunSynchronousAnswer {
 export class MissionApi {
   private readonly http = inject(HttpClient);
 
-  // The catalogue is constant for the life of the server; fetched once per visit.
-  readonly bodies$: Observable<BodySummaryResponse[]> = this.http
-    .get<BodySummaryResponse[]>(apiPath('bodies'))
-    .pipe(shareReplay({ bufferSize: 1, refCount: false }));
+  /**
+   * The catalogue and the caller's workspaces' own bodies, fetched by each page that asks (a body
+   * the workspace added meanwhile is then in it; the list is a few kB).
+   */
+  get bodies$(): Observable<BodySummaryResponse[]> {
+    return this.http.get<BodySummaryResponse[]>(apiPath('bodies'));
+  }
 
   missions(includeArchived: boolean): Observable<Mission[]> {
     const params = includeArchived ? new HttpParams().set('includeArchived', 'true') : undefined;

@@ -7,7 +7,7 @@ import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDial
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
-import { Observable } from 'rxjs';
+import { map, Observable } from 'rxjs';
 import type { BodySummaryResponse } from '../../../shared/api/environment';
 import type { Mission } from '../../../shared/api/missions';
 import { dialogSubmit, refusalDetails } from '../shell/dialog-submit';
@@ -39,7 +39,7 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
           <mat-label>Central body</mat-label>
           <mat-select formControlName="bodyId" data-testid="mission-body">
             @for (b of bodies() ?? []; track b.id) {
-              <mat-option [value]="b.id">{{ b.name }} ({{ b.kind }})</mat-option>
+              <mat-option [value]="b.id">{{ b.name }} ({{ b.workspaceId ? 'the workspace’s own body' : b.kind }})</mat-option>
             }
           </mat-select>
           <mat-error>{{ problems()['bodyId'] ?? 'Choose the body the spacecraft orbits.' }}</mat-error>
@@ -96,7 +96,10 @@ export class MissionFormDialog {
   private readonly api = inject(MissionApi);
   protected readonly data = inject<MissionFormData>(MAT_DIALOG_DATA);
   protected readonly dialogRef = inject<MatDialogRef<MissionFormDialog, Mission>>(MatDialogRef);
-  protected readonly bodies = toSignal<BodySummaryResponse[]>(this.api.bodies$);
+  // the catalogue and this workspace's own bodies (another workspace's could not be its body)
+  protected readonly bodies = toSignal<BodySummaryResponse[]>(
+    this.api.bodies$.pipe(map((all) => all.filter((b) => b.workspaceId === undefined || b.workspaceId === this.data.workspaceId))),
+  );
   protected readonly problems = signal<Partial<Record<MissionFieldName, string>>>({});
 
   protected readonly form = inject(NonNullableFormBuilder).group({

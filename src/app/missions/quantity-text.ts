@@ -6,7 +6,7 @@ import { readTypedQuantity, type TypedReading } from '../../../shared/physics/ty
 export { unitsOfKind, durationText } from '../../../shared/physics/typed-units';
 
 /** The unit a field shows as its suffix; a bare number is taken in it. */
-export type FieldUnit = 'km' | 's' | 'min' | 'deg' | 'm^2';
+export type FieldUnit = 'km' | 's' | 'min' | 'd' | 'deg' | 'm^2';
 
 export type QuantityReading = TypedReading;
 

@@ -14,16 +14,16 @@ function ids(role: Role | null, isAdmin = false): string[] {
 
 describe('navEntriesFor', () => {
   it('gives an owner every workspace section', () => {
-    expect(ids('owner')).toEqual(['missions', 'overview', 'cases', 'environment', 'thermal', 'members', 'audit', 'tokens']);
+    expect(ids('owner')).toEqual(['missions', 'overview', 'cases', 'environment', 'bodies', 'thermal', 'members', 'audit', 'tokens']);
   });
 
   it('gives a thermal engineer thermal models but not members or audit', () => {
-    expect(ids('thermal')).toEqual(['missions', 'overview', 'cases', 'environment', 'thermal', 'tokens']);
+    expect(ids('thermal')).toEqual(['missions', 'overview', 'cases', 'environment', 'bodies', 'thermal', 'tokens']);
   });
 
   it('gives analysts and viewers neither thermal models nor owner pages', () => {
-    expect(ids('analyst')).toEqual(['missions', 'overview', 'cases', 'environment', 'tokens']);
-    expect(ids('viewer')).toEqual(['missions', 'overview', 'cases', 'environment', 'tokens']);
+    expect(ids('analyst')).toEqual(['missions', 'overview', 'cases', 'environment', 'bodies', 'tokens']);
+    expect(ids('viewer')).toEqual(['missions', 'overview', 'cases', 'environment', 'bodies', 'tokens']);
   });
 
   it('adds the mail outbox only for an instance administrator, whatever the role', () => {
@@ -47,7 +47,7 @@ describe('roleMayOpen', () => {
     const roles: Role[] = ['owner', 'analyst', 'thermal', 'viewer'];
     for (const role of roles) {
       const shown = new Set(ids(role));
-      for (const section of ['missions', 'overview', 'cases', 'environment', 'thermal', 'members', 'audit'] as const) {
+      for (const section of ['missions', 'overview', 'cases', 'environment', 'bodies', 'thermal', 'members', 'audit'] as const) {
         expect(roleMayOpen(role, section), `${role} / ${section}`).toBe(shown.has(section));
       }
     }

@@ -1,7 +1,7 @@
 import type { MembershipSummary } from '../../../shared/api/auth';
 import { roles, type Role } from '../../../shared/api/plain-lists';
 
-export type SectionId = 'missions' | 'overview' | 'cases' | 'environment' | 'thermal' | 'members' | 'audit' | 'tokens' | 'mail';
+export type SectionId = 'missions' | 'overview' | 'cases' | 'environment' | 'bodies' | 'thermal' | 'members' | 'audit' | 'tokens' | 'mail';
 
 interface Section {
   readonly id: SectionId;
@@ -21,6 +21,8 @@ const SECTIONS: readonly Section[] = [
   { id: 'cases', label: 'Load cases', icon: 'stacked_line_chart', scope: 'workspace', roles },
   // every member reads the table the cases use; owners and thermal engineers edit it (the page says so)
   { id: 'environment', label: 'Environment table', icon: 'table_chart', scope: 'workspace', roles },
+  // every member reads the workspace's own bodies; owners, thermal engineers and analysts edit them (the page says so)
+  { id: 'bodies', label: 'Bodies', icon: 'brightness_3', scope: 'workspace', roles },
   { id: 'thermal', label: 'Thermal models', icon: 'device_thermostat', scope: 'workspace', roles: ['thermal', 'owner'] },
   { id: 'members', label: 'Members', icon: 'group', scope: 'workspace', roles: ['owner'] },
   { id: 'audit', label: 'Audit log', icon: 'history', scope: 'workspace', roles: ['owner'] },

@@ -1,6 +1,7 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
+import type { CustomBodyInput, CustomBodyResponse } from '../../../shared/api/custom-bodies';
 import type { EnvironmentTablePut, EnvironmentTableResponse } from '../../../shared/api/environment-table';
 import type { AuditEvent, Invitation, InvitationCreate, Member, Role } from '../../../shared/api/workspaces';
 import { apiPath } from '../api/api-path';
@@ -50,6 +51,22 @@ export class WorkspaceApi {
 
   saveEnvironmentTable(workspaceId: string, table: EnvironmentTablePut): Observable<EnvironmentTableResponse> {
     return this.http.put<EnvironmentTableResponse>(apiPath('workspaces', workspaceId, 'environment-table'), table);
+  }
+
+  customBodies(workspaceId: string): Observable<{ items: CustomBodyResponse[] }> {
+    return this.http.get<{ items: CustomBodyResponse[] }>(apiPath('workspaces', workspaceId, 'bodies'));
+  }
+
+  createCustomBody(workspaceId: string, body: CustomBodyInput): Observable<CustomBodyResponse> {
+    return this.http.post<CustomBodyResponse>(apiPath('workspaces', workspaceId, 'bodies'), body);
+  }
+
+  updateCustomBody(workspaceId: string, bodyId: string, body: CustomBodyInput): Observable<CustomBodyResponse> {
+    return this.http.put<CustomBodyResponse>(apiPath('workspaces', workspaceId, 'bodies', bodyId), body);
+  }
+
+  deleteCustomBody(workspaceId: string, bodyId: string): Observable<unknown> {
+    return this.http.delete(apiPath('workspaces', workspaceId, 'bodies', bodyId));
   }
 
   audit(workspaceId: string, query: AuditFilter): Observable<{ items: AuditEvent[]; total: number }> {
