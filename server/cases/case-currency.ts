@@ -1,12 +1,12 @@
 // Is a case still current with its mission? The inputs a case was made from (its snapshot of the
 // surfaces with their materials, the orbit, the body's constants and the mission's dates) against
 // the mission as it is now, as a list of changes in words. A case from an ephemeris compares its
-// surfaces and body only (its orbit is the trajectory's).
-import { eq, sql } from 'drizzle-orm';
+// surfaces and body only (its orbit is the trajectory's), and whether its ephemeris is still there.
+import { and, eq, sql } from 'drizzle-orm';
 import type { CaseInputs } from '../../shared/api/case-content';
 import type { Db } from '../db/database';
 import { preparedPer } from '../db/prepared';
-import { loadCases, missions, orbits, type MissionRow, type OrbitRow } from '../db/schema';
+import { ephemerides, loadCases, missions, orbits, type MissionRow, type OrbitRow } from '../db/schema';
 import { canonicalJson } from './canonical-json';
 import { missionInputs, surfaceSnapshotWithIds } from './case-snapshot';
 import { flownPhases, normalsInMode, type FlownPhase } from '../missions/phase-pointing';
@@ -28,11 +28,13 @@ interface MissionNow {
   orbits: Map<string, OrbitRow>;
   /** The mission's surfaces with their ids, as a case keeps them. */
   surfaces: ReturnType<typeof surfaceSnapshotWithIds>;
+  ephemerisIds: Set<string>;
   phases: FlownPhase[];
 }
 
 const missionById = preparedPer((db: Db) => db.select().from(missions).where(eq(missions.id, sql.placeholder('id'))).prepare());
 const orbitsOfMission = preparedPer((db: Db) => db.select().from(orbits).where(eq(orbits.missionId, sql.placeholder('missionId'))).prepare());
+const ephemerisIdsOfMission = preparedPer((db: Db) => db.select({ id: ephemerides.id }).from(ephemerides).where(eq(ephemerides.missionId, sql.placeholder('missionId'))).prepare());
 
 /**
  * Reads each mission once however many of its cases are compared (a case list compares every case
@@ -44,7 +46,13 @@ export function missionsNow(db: Db): (missionId: string) => MissionNow | null {
     let found = read.get(missionId);
     if (found === undefined) {
       const mission = missionById(db).get({ id: missionId });
-      found = mission ? { mission, inputs: missionInputs(mission), orbits: new Map(orbitsOfMission(db).all({ missionId }).map((o) => [o.id, o])), surfaces: currentSurfaces(db, mission), phases: flownPhases(db, mission) } : null;
+      found = mission
+        ? {
+            mission, inputs: missionInputs(mission), orbits: new Map(orbitsOfMission(db).all({ missionId }).map((o) => [o.id, o])), surfaces: currentSurfaces(db, mission),
+            ephemerisIds: new Set(ephemerisIdsOfMission(db).all({ missionId }).map((e) => e.id)),
+            phases: flownPhases(db, mission),
+          }
+        : null;
       read.set(missionId, found);
     }
     return found;
@@ -66,6 +74,7 @@ export type CurrencyInputs = Pick<CaseInputs, 'mission' | 'body' | 'orbit'> & {
   /** null when cut out of a case that has none */
   ephemeris?: CaseInputs['ephemeris'] | null;
   handEdited?: CaseInputs['handEdited'] | null;
+  fixed?: CaseInputs['fixed'] | null;
   /** A phase's case: the phase as it was. */
   phase?: CaseInputs['phase'] | null;
 };
@@ -109,6 +118,7 @@ export function inputChanges(db: Db, row: { missionId: string; inputs: CurrencyI
       for (const [key, label, unit] of fields) out.push(changed(`orbit "${i.orbit.name}" ${label}`, i.orbit[key], orbit[key], unit));
     }
   }
+  if (i.ephemeris && !found.ephemerisIds.has(i.ephemeris.id)) out.push(`ephemeris "${i.ephemeris.name}" was deleted`);
   const current = i.phase ? phaseChanges(i.phase, found, out) : listed.map((x) => x.surface);
   const was = i.conditions.surfaces;
   for (const s of was) {
@@ -118,7 +128,7 @@ export function inputChanges(db: Db, row: { missionId: string; inputs: CurrencyI
       continue;
     }
     out.push(changed(`surface "${s.name}" area`, s.areaM2, c.areaM2, ' m^2'));
-    if (!same(s.normal, c.normal) && !i.handEdited?.includes('surfaces')) out.push(`surface "${s.name}" pointing changed`);
+    if (!same(s.normal, c.normal) && !i.handEdited?.includes('surfaces') && !i.fixed?.normals?.[s.name]) out.push(`surface "${s.name}" pointing changed`);
     if (s.material.name !== c.material.name) out.push(`surface "${s.name}" material: ${s.material.name} -> ${c.material.name}`);
     else {
       for (const k of ['absorptivityBol', 'emissivityBol', 'absorptivityEol', 'emissivityEol'] as const) {
@@ -128,6 +138,23 @@ export function inputChanges(db: Db, row: { missionId: string; inputs: CurrencyI
   }
   for (const c of current) if (!was.some((s) => s.name === c.name)) out.push(`surface "${c.name}" was added`);
   return [...new Set(out.filter((x): x is string => x !== null))];
+}
+
+/**
+ * Why a new revision cannot be computed again from the mission's current inputs: the ephemeris or
+ * the orbit it was computed on was deleted (the route's 409 and the case page say it); null when it can.
+ */
+export function rederivationBlocked(db: Db, row: { missionId: string; inputs: CurrencyInputs }): string | null {
+  const i = row.inputs;
+  const keep = 'a new revision can keep its stored inputs and loads only';
+  if (i.ephemeris) {
+    const kept = db.select({ id: ephemerides.id }).from(ephemerides).where(and(eq(ephemerides.id, i.ephemeris.id), eq(ephemerides.missionId, row.missionId))).get();
+    if (kept) return null;
+    return `The ephemeris "${i.ephemeris.name}" this case was computed along was deleted from the mission: ${keep}, or upload the file again and make a new case from it.`;
+  }
+  const orbit = i.orbit.id ? db.select({ id: orbits.id }).from(orbits).where(and(eq(orbits.id, i.orbit.id), eq(orbits.missionId, row.missionId))).get() : undefined;
+  if (orbit) return null;
+  return `The orbit "${i.orbit.name}" this case was computed on was deleted from the mission: ${keep}, or add the orbit again and make a new case on it.`;
 }
 
 /**

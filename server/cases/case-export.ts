@@ -59,16 +59,20 @@ const metaColumns = [
 
 /** Every column of the case CSV, in order: what the export's documentation lists. */
 export const caseCsvColumns = [
-  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'surface', 'pointing',
+  ...metaColumns, 'row', 'step', 'time from periapsis (s)', 'sunlit (0-1)', 'sunlit past the parent planet (0-1)', 'surface', 'pointing',
   ...componentColumns.map(([, header]) => header), 'absorbed total with margin (W)', 'caution',
 ] as const;
+
+/** A step's sunlit share, and past the parent planet alone about a moon when the case holds it. */
+type Shade = [number | undefined, number | undefined];
 
 /** Rounded to what the quantity means (W/m^2 to 0.01, W to 0.001, s to 0.1): no floating-point noise. */
 const rounded = (x: number | null | undefined, digits: number): number | null => (x === null || x === undefined ? null : round(x, digits));
 
 /**
  * The CSV export, tidy: one header row with units, then one row per time step and surface
- * (row = "step"), per surface its "orbit average" and "peak", and the spacecraft's total as the
+ * (row = "step"; "sunlit past the parent planet" is the planet's shadow about a moon, empty where the
+ * case holds none: not a moon, or the planet's shadow does not fall on its orbit), per surface its "orbit average" and "peak", and the spacecraft's total as the
  * surface "spacecraft total". The case's metadata and the caution are columns repeated on every
  * row; the inputs in full, the "why" and the assumptions are in the JSON export.
  */
@@ -82,13 +86,14 @@ export function caseExportCsv(ctx: AppContext, row: LoadCaseRow): { csv: string;
   ];
   // each surface's pointing in words (pointing.ts), from the case's own conditions
   const pointing = new Map(conditions.surfaces.map((s) => [s.name, pointingWords(s.normal)]));
-  const line = (kind: string, step: number | null, t: number | null, sunlit: number | null, surface: string, loads: (number | null)[], withMargin: number | null) =>
-    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit, 4), surface, pointing.get(surface) ?? null, ...loads, rounded(withMargin, 3), doc.caution]);
+  const line = (kind: string, step: number | null, t: number | null, sunlit: Shade | null, surface: string, loads: (number | null)[], withMargin: number | null) =>
+    csvRecord([...meta, kind, step, rounded(t, 1), rounded(sunlit?.[0], 4), rounded(sunlit?.[1], 4), surface, pointing.get(surface) ?? null, ...loads, rounded(withMargin, 3), doc.caution]);
   const loadsOf = (pick: (key: (typeof componentColumns)[number][0]) => number | undefined) =>
     componentColumns.map(([key, , digits]) => rounded(pick(key), digits));
   const out = [csvRecord([...caseCsvColumns])];
   results.tS.forEach((t, k) => {
-    for (const s of results.surfaces) out.push(line('step', k + 1, t, results.sunlit[k] ?? null, s.name, loadsOf((key) => s.series[key][k]), null));
+    const sunlit: Shade = [results.sunlit[k], results.parentSunlit?.[k]];
+    for (const s of results.surfaces) out.push(line('step', k + 1, t, sunlit, s.name, loadsOf((key) => s.series[key][k]), null));
   });
   for (const s of results.surfaces) {
     out.push(line('orbit average', null, null, null, s.name, loadsOf((key) => s.orbitAverage[key]), s.orbitAverage.absorbedWithMarginW));

@@ -6,6 +6,9 @@ import type { CaseRevisionParsed, CaseUpdateParsed } from '../../shared/api/case
 import type { CaseInputs } from '../../shared/api/case-content';
 import { derivedCaseValues } from './case-derivation';
 import { resultSummary, withRationale } from './case-drafts';
+import { customCaseValues, customRequestOf } from './custom-case';
+import { rederivationBlocked } from './case-currency';
+import { ephemerisOf } from '../ephemerides/ephemeris-store';
 import { evaluateCase } from '../../shared/physics/design-cases';
 import { resolveMargins } from '../../shared/physics/design-environment';
 import type { AppContext } from '../app-context';
@@ -15,9 +18,10 @@ import { auditEvents, caseComments, caseSubscriptions, loadCases, missions, user
 import { ApiError, conflict, forbidden, unprocessable } from '../errors';
 import { canonicalJson } from './canonical-json';
 import { caseChecksum } from './case-export';
-import { limitCaseWork } from './case-snapshot';
+import { limitCaseWork, surfaceSnapshot } from './case-snapshot';
 import { attitudeText } from '../../shared/physics/case-words';
 import { caseReleasedMail } from './case-mail';
+import { ephemerisCaseValues, ephemerisRequestOf } from './ephemeris-case';
 import { withMargins } from '../../shared/physics/trajectory-case';
 import { emailsOf, subscribersOf, surfaceDifferences } from './case-views';
 
@@ -208,8 +212,8 @@ async function notifySubscribers(ctx: AppContext, released: LoadCaseRow, previou
 
 /**
  * Starts a new draft revision from a released (or superseded) one: the same inputs, or with
- * `fromCurrentInputs` a hot or cold case derived again from the mission as it is now (same orbit,
- * steps and margins); the reason is kept in its inputs (history, compare, exports, mail).
+ * `fromCurrentInputs` the case computed again from the mission as it is now (`derivedAgain`);
+ * the reason is kept in its inputs (history, compare, exports, mail).
  */
 export function newRevision(ctx: AppContext, user: UserRow, row: LoadCaseRow, request: CaseRevisionParsed = { fromCurrentInputs: false }): LoadCaseRow {
   requireStatus(row, ['released', 'superseded'], 'revised');
@@ -232,24 +236,33 @@ export function newRevision(ctx: AppContext, user: UserRow, row: LoadCaseRow, re
   });
 }
 
-/** The hot or cold case of the revision's orbit, derived from the mission's current inputs with its steps and margins. */
+/**
+ * The revision computed again from the mission as it is now: a hot or cold case derived again on its
+ * orbit with its steps, margins and property set; a custom case on its date with the values its
+ * author fixed; a case from an ephemeris along the same window. 409 when its orbit or ephemeris is gone.
+ */
 function derivedAgain(ctx: AppContext, row: LoadCaseRow): Pick<LoadCaseRow, 'inputs' | 'results'> {
-  const inputs = row.inputs;
+  const i = row.inputs;
   const mission = ctx.db.select().from(missions).where(eq(missions.id, row.missionId)).get();
-  if (row.kind === 'custom' || !inputs.orbit.id || inputs.ephemeris || !mission) {
-    throw unprocessable(`The case ${label(row)} is a custom case or was computed along an ephemeris: make a new one from the current inputs instead.`, [
-      { path: 'fromCurrentInputs', message: `only a derived hot or cold case is derived again (this one is ${row.kind})` },
-    ]);
+  const blocked = mission ? rederivationBlocked(ctx.db, row) : `The mission of ${label(row)} is gone.`;
+  if (blocked || !mission) throw conflict(blocked ?? '', 'case_source_deleted');
+  if (i.ephemeris) {
+    const ephemeris = ephemerisOf(ctx, mission.id, i.ephemeris.id);
+    return ephemerisCaseValues(ctx, mission, ephemeris, ephemerisRequestOf(row, ephemeris));
+  }
+  if (row.kind === 'custom') {
+    const names = surfaceSnapshot(ctx.db, mission).map((s) => s.name);
+    return customCaseValues(ctx.db, mission, customRequestOf(row, names));
   }
   const values = derivedCaseValues(ctx.db, mission, {
-    orbitId: inputs.orbit.id, steps: inputs.conditions.steps,
-    margins: { heatLoadPercent: inputs.margins.heatLoadPercent, temperatureMarginC: inputs.margins.temperatureMarginC },
-    properties: { hot: inputs.conditions.properties, cold: inputs.conditions.properties },
+    orbitId: i.orbit.id ?? '', steps: i.conditions.steps,
+    margins: { heatLoadPercent: i.margins.heatLoadPercent, temperatureMarginC: i.margins.temperatureMarginC },
+    properties: { hot: i.conditions.properties, cold: i.conditions.properties },
     // a phase's case is derived again in its phase; a survival case with its survival dissipation
-    ...(inputs.phase ? { phaseId: inputs.phase.id } : {}),
-    survival: inputs.decision?.survival !== undefined,
+    ...(i.phase ? { phaseId: i.phase.id } : {}),
+    survival: i.decision?.survival !== undefined,
   });
-  const again = values.find((v) => v.kind === row.kind && (v.inputs.decision?.survival !== undefined) === (inputs.decision?.survival !== undefined))!;
+  const again = values.find((v) => v.kind === row.kind && (v.inputs.decision?.survival !== undefined) === (i.decision?.survival !== undefined))!;
   return { inputs: again.inputs, results: again.results };
 }
 

@@ -11,7 +11,7 @@ import { preparedPer } from '../db/prepared';
 import { memoisedRead } from '../db/read-memo';
 import { caseComments, caseSubscriptions, loadCases, memberships, missions, users, type LoadCaseRow } from '../db/schema';
 import { caseEditors, visibleToViewer } from './case-access';
-import { caseInputsOf, inputChanges, missionsNow } from './case-currency';
+import { caseInputsOf, inputChanges, missionsNow, rederivationBlocked, type CurrencyInputs } from './case-currency';
 
 export { cautionFor, cautionText, crewedCaution } from '../../shared/api/caution';
 import { cautionFor } from '../../shared/api/caution';
@@ -40,16 +40,24 @@ export function toSummary(db: Db, row: LoadCaseRow): CaseSummary {
     author: personOf(db, row.authorId), releasedBy: personOf(db, row.releasedBy), releasedAt: row.releasedAt,
     orbitAverageAbsorbedW: row.results.total.orbitAverageAbsorbedW, betaDeg: row.results.betaDeg,
     version: row.version, createdAt: row.createdAt, updatedAt: row.updatedAt,
-    inputsChanged: row.status !== 'superseded' && inputChanges(db, row).length > 0,
+    ...currency(db, row),
     ...phaseOfCase(row.inputs),
   };
 }
 
 /** The phase that drove a case and its variant, as the lists show them. */
-export const phaseOfCase = (inputs: CaseInputs): Pick<CaseSummary, 'phase' | 'variant'> => ({
+export const phaseOfCase = (inputs: Pick<CaseInputs, 'phase' | 'decision'>): Pick<CaseSummary, 'phase' | 'variant'> => ({
   phase: inputs.phase?.name ?? null,
   variant: inputs.decision?.survival ? 'survival' : null,
 });
+
+/** What changed since a revision was made, as a list says it: not said of superseded revisions. */
+function currency(
+  db: Db, row: { missionId: string; status: LoadCaseRow['status']; inputs: CurrencyInputs }, missionNow = missionsNow(db),
+): Pick<CaseSummary, 'inputsChanged' | 'inputChanges'> {
+  const changes = row.status === 'superseded' ? [] : inputChanges(db, row, missionNow);
+  return { inputsChanged: changes.length > 0, inputChanges: changes };
+}
 
 export function isSubscribed(db: Db, seriesId: string, userId: string): boolean {
   return !!db
@@ -93,14 +101,17 @@ export function commentsOf(db: Db, seriesId: string): CaseComment[] {
 }
 
 export function toDetail(db: Db, row: LoadCaseRow, userId: string): CaseDetail {
+  const summary = toSummary(db, row);
   return {
-    ...toSummary(db, row),
+    ...summary,
     submittedBy: personOf(db, row.submittedBy),
     submittedAt: row.submittedAt,
     subscribed: isSubscribed(db, row.seriesId, userId),
     actions: caseActionsFor(row, memberRole(db, userId, row.workspaceId), userId),
     comments: commentsOf(db, row.seriesId),
-    inputChanges: inputChanges(db, row),
+    // the page says what changed of a superseded revision too
+    inputChanges: row.status === 'superseded' ? inputChanges(db, row) : summary.inputChanges,
+    currentInputsBlocked: rederivationBlocked(db, row),
     caution: cautionFor(row.inputs.mission.crewed),
     inputs: row.inputs,
     results: row.results,
@@ -191,7 +202,7 @@ function readCaseList(ctx: AppContext, userId: string, filter: CaseFilter): Case
       name: r.c.name, kind: r.c.kind, status: r.c.status, revision: r.c.revision, checksum: r.c.checksum,
       author: person(r.c.authorId), releasedBy: person(r.c.releasedBy), releasedAt: r.c.releasedAt,
       orbitAverageAbsorbedW: Number(r.orbitAverageAbsorbedW), betaDeg: Number(r.betaDeg),
-      inputsChanged: r.c.status !== 'superseded' && inputChanges(ctx.db, { missionId: r.c.missionId, inputs: caseInputsOf(ctx.db, r.c.id, r.c.version) }, missionNow).length > 0,
+      ...currency(ctx.db, { missionId: r.c.missionId, status: r.c.status, inputs: caseInputsOf(ctx.db, r.c.id, r.c.version) }, missionNow),
       version: r.c.version, createdAt: r.c.createdAt, updatedAt: r.c.updatedAt,
       ...phaseOfCase(caseInputsOf(ctx.db, r.c.id, r.c.version)),
     }));

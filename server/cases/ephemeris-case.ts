@@ -7,7 +7,7 @@
 import type { EphemerisCaseCreateParsed } from '../../shared/api/ephemerides';
 import type { CaseInputs, StoredConditions } from '../../shared/api/case-content';
 import { getBody } from '../../shared/physics/bodies';
-import { attitudeText, pairWords } from '../../shared/physics/case-words';
+import { attitudeText, pairWords, USER_GIVEN_SOURCE } from '../../shared/physics/case-words';
 import { opticalProperties, resolveMargins } from '../../shared/physics/design-environment';
 import { round } from '../../shared/physics/rounding';
 import { elementsFromState } from '../../shared/physics/state-elements';
@@ -18,15 +18,15 @@ import { recordAudit } from '../audit/audit-log';
 import type { EphemerisRow, LoadCaseRow, MissionRow, UserRow } from '../db/schema';
 import { unprocessable } from '../errors';
 import { ephemerisWindow, firstStates, windowEnvironment } from '../ephemerides/ephemeris-environment';
-import { insertDraft, withRationale } from './case-drafts';
+import { insertDraft, withRationale, type DraftValues } from './case-drafts';
 import { limitCaseWork, missionInputs, surfaceSnapshot } from './case-snapshot';
 
 const oneDecimal = (x: number) => x.toFixed(1);
 
-/** Computes and saves the case as a draft (kind custom). */
-export function createEphemerisCase(
-  ctx: AppContext, user: UserRow, mission: MissionRow, ephemeris: EphemerisRow, input: EphemerisCaseCreateParsed,
-): LoadCaseRow {
+/** Computes the case along the window with the mission's surfaces and materials as they are now (kind custom). */
+export function ephemerisCaseValues(
+  ctx: AppContext, mission: MissionRow, ephemeris: EphemerisRow, input: EphemerisCaseCreateParsed,
+): DraftValues {
   const body = getBody(mission.bodyId);
   const snapshot = surfaceSnapshot(ctx.db, mission);
   limitCaseWork(input.steps, snapshot.length);
@@ -86,8 +86,36 @@ export function createEphemerisCase(
     assumptions: trajectoryCaseAssumptions(env),
     ephemeris: { id: ephemeris.id, name: ephemeris.name, fileName: ephemeris.fileName, sha256: ephemeris.sha256, from, to, rows: window.rows },
   };
+  return { name: input.name, kind: 'custom', inputs: withRationale('custom', inputs, results), results };
+}
+
+/**
+ * The request that computes a stored case again along the same ephemeris and window: its steps,
+ * property set, margins and direction, and its albedo and OLR only where the user gave them.
+ */
+export function ephemerisRequestOf(row: Pick<LoadCaseRow, 'name' | 'inputs'>, ephemeris: EphemerisRow): EphemerisCaseCreateParsed {
+  const i = row.inputs;
+  const c = i.conditions;
+  const trajectory = i.ephemeris!;
+  // the whole file was asked for: no bounds, so an OEM's sub-millisecond first and last epochs stay in
+  const wholeFile = trajectory.from === ephemeris.startEpoch && trajectory.to === ephemeris.endEpoch;
+  const givenPair = i.environmentSource === USER_GIVEN_SOURCE;
+  return {
+    name: row.name, properties: c.properties, marginDirection: c.marginDirection, steps: c.steps,
+    margins: { heatLoadPercent: i.margins.heatLoadPercent, temperatureMarginC: i.margins.temperatureMarginC },
+    ...(wholeFile ? {} : { from: trajectory.from, to: trajectory.to }),
+    ...(givenPair ? { albedo: c.albedo, olrWm2: c.olrWm2 } : {}),
+  };
+}
+
+/** Computes and saves the case as a draft (kind custom). */
+export function createEphemerisCase(
+  ctx: AppContext, user: UserRow, mission: MissionRow, ephemeris: EphemerisRow, input: EphemerisCaseCreateParsed,
+): LoadCaseRow {
+  const values = ephemerisCaseValues(ctx, mission, ephemeris, input);
+  const { from, to } = values.inputs.ephemeris!;
   return ctx.db.transaction((tx) => {
-    const row = insertDraft(tx, mission, user, { name: input.name, kind: 'custom', inputs: withRationale('custom', inputs, results), results });
+    const row = insertDraft(tx, mission, user, values);
     recordAudit(tx, {
       workspaceId: mission.workspaceId, actorUserId: user.id, action: 'case.created', targetType: 'load_case', targetId: row.id,
       summary: `Created custom case "${row.name}" (revision 1, draft) from ephemeris "${ephemeris.name}" (${from} – ${to}) for mission "${mission.name}".`,

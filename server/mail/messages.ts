@@ -1,5 +1,10 @@
 // The texts of the mails the product sends. Plain text first; the links are the client's routes.
+// Every mail ends with the preliminary-design caution (DOMAIN.md; the release mail says it per case).
+import { cautionText } from '../../shared/api/caution';
 import type { OutgoingMail } from './mailer';
+
+/** What Eclipta's results are, said at the end of an account mail as in every other. */
+const cautionLines = ['', `About Eclipta's results: ${cautionText}`];
 
 export function invitationMail(opts: {
   to: string;
@@ -19,6 +24,7 @@ export function invitationMail(opts: {
       '',
       `The link works once and until ${opts.expiresAt}.`,
       'If you were not expecting this, ignore this message.',
+      ...cautionLines,
     ].join('\n'),
   };
 }
@@ -34,6 +40,7 @@ export function passwordResetMail(opts: { to: string; link: string; expiresAt: s
       '',
       `The link works once and until ${opts.expiresAt}.`,
       'If it was not you, ignore this message; your password stays as it is.',
+      ...cautionLines,
     ].join('\n'),
   };
 }

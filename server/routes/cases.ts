@@ -91,7 +91,7 @@ export const caseRoutes: ApiRoute[] = [
   }),
   route({
     method: 'post', path: `${c}/revisions`, tag, access: 'signed-in', body: caseRevisionCreate, bodyOptional: true, status: 201, response: caseDetail,
-    summary: `Start a new draft revision from a released one, with its reason; fromCurrentInputs derives a hot or cold case again from the mission as it is now ${editors}`,
+    summary: `Start a new draft revision from a released one, with its reason; fromCurrentInputs computes it again from the mission as it is now (hot, cold, custom, or along its ephemeris window; 409 when its orbit or ephemeris was deleted) ${editors}`,
     handle: ({ ctx, auth, param, body }) => {
       const { row } = caseFor(ctx, auth.user.id, param('id'), true);
       return toDetail(ctx.db, newRevision(ctx, auth.user, row, body()), auth.user.id);
@@ -116,7 +116,7 @@ export const caseRoutes: ApiRoute[] = [
   }),
   route({
     method: 'get', path: `${c}/export`, tag, access: 'signed-in', query: caseExportQuery, response: caseExport, produces: ['application/json', 'text/csv'], perStep: true,
-    summary: 'The case as a file: JSON (load-case.json schema) or a tidy CSV (RFC 4180): one header row with units, a row per time step and surface, then per surface its orbit average and peak and the spacecraft total; case, revision, status, checksum, mission, body, orbit, date, beta, Sun distance, property set, heat-load margin and caution as columns on every row',
+    summary: 'The case as a file: JSON (load-case.json schema) or a tidy CSV (RFC 4180): one header row with units, a row per time step and surface (with the sunlit share, and past the parent planet about a moon), then per surface its orbit average and peak and the spacecraft total; case, revision, status, checksum, mission, body, orbit, date, beta, Sun distance, property set, heat-load margin and caution as columns on every row',
     handle: ({ ctx, req, res, auth, param, query }) => {
       const { row } = caseFor(ctx, auth.user.id, param('id'));
       return sendCaseExport(ctx, req, res, auth, row, query());

@@ -93,7 +93,24 @@ export const caseDecision = z.object({
   sun: z.object({ basis: z.enum(['mission', 'perihelion', 'aphelion']), date: z.string().describe('YYYY-MM-DD the mission is closest to (hot) or farthest from (cold) the Sun'), distanceAu: num }),
   day: dayFigures.describe('the day the derivation chose for beta'),
   eclipseExtreme: dayFigures.extend({ eclipseDurationS: num, orbitAverageAbsorbedW: num }).nullable().describe('the day of the shortest (hot) or longest (cold) eclipse when it is another day'),
-  pair: z.object({ albedo: num, olrWm2: num, source: z.string() }),
+  pair: z.object({
+    albedo: num,
+    olrWm2: num,
+    source: z.string(),
+    surfaceField: z
+      .object({ emissivity: num, nightFloorK: num.describe('K'), subsolarK: num.describe('K'), albedoRange: z.boolean().describe('true when both ends of the Bond albedo range were tried') })
+      .optional()
+      .describe("an airless body: the surface temperature field the IR comes from, at the hot or cold end of its ranges"),
+  }),
+  shadow: z
+    .object({
+      durationS: num.describe('s'),
+      date: z.string().describe('YYYY-MM-DD'),
+      start: z.string().describe('ISO 8601 UTC'),
+      castBy: z.array(z.string()).describe('the bodies whose shadow it is (the planet, and the moon itself)'),
+    })
+    .optional()
+    .describe("about a moon (cold case): the mission's longest shadow the planet takes part in, which set the case's orbit"),
   properties: z.enum(propertySetValues),
   phase: z
     .object({
@@ -147,6 +164,16 @@ export const caseInputs = z.object({
   decision: caseDecision.optional().describe('hot and cold cases: what the derivation decided; the rationale lines are built from it, the conditions and the results'),
   facts: z.array(z.string()).optional().describe('custom cases and cases from an ephemeris: how the case was set up, the rationale lines before the margins'),
   handEdited: z.array(z.string()).optional().describe('condition keys changed by hand since the case was made'),
+  fixed: z
+    .object({
+      betaDeg: num.optional(),
+      solarDistanceAu: num.optional(),
+      albedo: num.optional(),
+      olrWm2: num.optional(),
+      normals: z.record(z.string(), surfaceNormal).optional().describe('surface name -> normal, over the mission\'s own'),
+    })
+    .optional()
+    .describe('custom cases: the values their author fixed over what the date and the mission give; a new revision derived from the current inputs keeps them'),
   revisionReason: z.string().optional().describe('why this revision was made, as its author gave it'),
   phase: casePhase.optional().describe("the mission phase this case was derived in: its dates, attitude mode and its nodes' dissipation, as they were"),
   /** Set when the case was computed along a window of an uploaded ephemeris rather than a Keplerian orbit. */
@@ -192,7 +219,13 @@ export const caseResultsContent = z.object({
   tS: z.array(num).describe('s from periapsis (from the ascending node for a circular orbit; from the first row for a case from an ephemeris)'),
   weightS: z.array(num).optional().describe("each sample's share of the period in s, when the series are not evenly spaced in time"),
   sunlit: z.array(num).describe('1 full sun, 0 umbra'),
-  parentSunlit: z.array(num).optional().describe("about a moon, the share of the Sun's disk past its planet alone (1 clear of the planet's shadow); only when the planet's shadow falls on the orbit"),
+  parentSunlit: z
+    .array(num)
+    .optional()
+    .describe(
+      "about a moon, one value per time step of tS: the share of the Sun's disk past its planet alone (1 clear of the planet's shadow, 0 in its umbra); " +
+        'only when the planet\'s shadow falls on the orbit (or the ephemeris window). sunlit already includes it. The CSV export\'s column "sunlit past the parent planet (0-1)", empty when absent',
+    ),
   surfaces: z.array(caseSurfaceResult),
   total: z.object({ orbitAverageAbsorbedW: num, orbitAverageWithMarginW: num, peakAbsorbedW: num }),
 });

@@ -61,24 +61,32 @@ export const caseDerive = z.strictObject({
 
 /** A new revision: why it is made (shown in history, compare, exports and mail), and whether it is derived again from the mission's current inputs. */
 export const caseRevisionCreate = z.strictObject({
-  reason: lineText(500, 'a reason has at most 500 characters').min(1, 'say why this revision is made').optional(),
-  fromCurrentInputs: z.boolean().default(false),
+  reason: lineText(500, 'a reason has at most 500 characters')
+    .min(1, 'say why this revision is made')
+    .optional()
+    .describe('why this revision is made; kept as inputs.revisionReason, shown in history, compare, the exports and the subscribers\' mail'),
+  fromCurrentInputs: z
+    .boolean()
+    .default(false)
+    .describe(
+      'false: the same inputs and loads as the revision it starts from. true: computed again from the mission as it is now: a hot or cold case derived ' +
+        'again on its orbit; a custom case on its date with the values its author fixed (inputs.fixed) and the current orbit, surfaces and materials; ' +
+        'a case from an ephemeris along the same window with the current surfaces and materials (409 case_source_deleted when the orbit or ephemeris was deleted)',
+    ),
 });
 
 export const caseCreate = z.strictObject({
   orbitId: z.string().min(1, 'choose an orbit').max(64),
   name,
   date: isoDate,
-  /** Overrides the beta the date gives. */
-  betaDeg: z.number().min(-90, 'beta is -90..90 deg').max(90, 'beta is -90..90 deg').optional(),
-  solarDistanceAu: z.number().positive('solar distance must be above 0 AU').max(100).optional(),
+  betaDeg: z.number().min(-90, 'beta is -90..90 deg').max(90, 'beta is -90..90 deg').optional().describe('deg; overrides the beta the date gives'),
+  solarDistanceAu: z.number().positive('solar distance must be above 0 AU').max(100).optional().describe('AU; overrides the distance of the date'),
   albedo: fraction('albedo').optional(),
-  olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000).optional(),
+  olrWm2: z.number().min(0, 'OLR cannot be negative').max(20000).optional().describe('W/m^2'),
   properties: z.enum(propertySetValues).default('bol'),
   marginDirection: z.enum(['increase', 'decrease']).default('increase'),
-  /** Attitude: surface name -> normal, over the mission's own normals. */
-  normals: z.record(lineText(80), surfaceNormal).optional(),
-  attitude: lineText(300).optional(),
+  normals: z.record(lineText(80), surfaceNormal).optional().describe("attitude: surface name -> normal, over the mission's own normals"),
+  attitude: lineText(300).optional().describe('the attitude in words, e.g. "safe mode, array to Sun"'),
   margins: marginsInput.optional(),
   steps: steps.default(120),
 });
@@ -157,14 +165,17 @@ export const caseSummary = z.object({
   author: person,
   releasedBy: person,
   releasedAt: z.string().nullable(),
-  orbitAverageAbsorbedW: z.number(),
-  betaDeg: z.number(),
-  /** Counts the changes of this revision; a PATCH that names an older one is refused (409). */
-  version: z.number().int(),
+  orbitAverageAbsorbedW: z.number().describe('W, the whole spacecraft, without margin'),
+  betaDeg: z.number().describe('deg'),
+  version: z.number().int().describe('counts the changes of this revision; a PATCH that names an older one is refused (409)'),
   createdAt: z.string(),
   updatedAt: z.string(),
-  /** True when the mission's inputs (surfaces, materials, orbit, body, dates) changed since this revision was made (not said of superseded revisions). */
-  inputsChanged: z.boolean(),
+  inputsChanged: z
+    .boolean()
+    .describe("true when the mission's inputs (surfaces, materials, orbit, body constants, dates, the ephemeris) changed since this revision was made; false for superseded revisions"),
+  inputChanges: z
+    .array(z.string())
+    .describe('what changed in the mission since this revision was made, in words with old and new values (surfaces, materials, orbit, body constants, dates, a deleted ephemeris); empty when current (in lists, also for superseded revisions)'),
   /** The mission phase that drove the case (its name), null for a case of a mission without phases or a custom one. */
   phase: z.string().nullable(),
   /** "survival" for a survival cold case (kind cold: minimum dissipation, heaters only), null otherwise. */
@@ -175,7 +186,7 @@ export const caseActionNames = ['edit', 'submit', 'release', 'return', 'comment'
 
 export const caseComment = z.object({
   id: z.string(),
-  revision: z.number().int(),
+  revision: z.number().int().describe('the revision the comment was made on'),
   kind: z.enum(['comment', 'returned']).describe('returned: the reviewer sent the revision back to its author with this comment'),
   text: z.string(),
   author: person,
@@ -184,20 +195,24 @@ export const caseComment = z.object({
 
 /** A comment on a case (draft or in review), and the reason a reviewer gives when returning one. */
 export const caseCommentCreate = z.strictObject({
-  text: multilineText(4000, 'a comment has at most 4000 characters').pipe(z.string().min(1, 'write the comment')),
+  text: multilineText(4000, 'a comment has at most 4000 characters')
+    .pipe(z.string().min(1, 'write the comment'))
+    .describe('the comment, or (returning a case) what its author should change; line breaks kept'),
 });
 
 export const caseDetail = caseSummary.extend({
   submittedBy: person,
   submittedAt: z.string().nullable(),
-  subscribed: z.boolean(),
-  /** What the caller may do with this revision now: the server refuses the others. */
-  actions: z.array(z.enum(caseActionNames)),
-  /** The review conversation of every revision of the case, oldest first. */
-  comments: z.array(caseComment),
-  /** What changed in the mission (surfaces, materials, orbit, body constants, dates) since this revision was made; empty when current. */
-  inputChanges: z.array(z.string()),
-  caution: z.string(),
+  subscribed: z.boolean().describe('the caller follows the case (mail on every new release)'),
+  actions: z
+    .array(z.enum(caseActionNames))
+    .describe('what the caller may do with this revision now (role, status, four eyes: the author neither releases nor returns it); the server refuses the others'),
+  comments: z.array(caseComment).describe('the review conversation of every revision of the case, oldest first'),
+  currentInputsBlocked: z
+    .string()
+    .nullable()
+    .describe('why a new revision cannot be computed again from the current inputs (its ephemeris or orbit was deleted); null when it can'),
+  caution: z.string().describe('the preliminary-design caution'),
   inputs: caseInputs,
   results: caseResultsContent,
 });
@@ -211,21 +226,22 @@ export const caseList = z.object({ items: z.array(caseSummary) });
  * mission inputs changed since. Viewers see released and superseded revisions only, as in the list.
  */
 export const workspaceOverview = z.object({
-  waitingForReview: z.array(caseSummary),
-  returnedToMe: z.array(z.object({ case: caseSummary, comment: caseComment })),
+  waitingForReview: z.array(caseSummary).describe('cases in review written by someone else, which the caller may release or return (thermal engineers and owners; empty for others)'),
+  returnedToMe: z.array(z.object({ case: caseSummary, comment: caseComment })).describe("the caller's drafts a reviewer returned, each with the reviewer's comment"),
   followed: z.array(caseSummary).describe('the newest revisions of followed cases, newest change first, at most 10'),
-  stale: z.array(caseSummary),
+  stale: z.array(caseSummary).describe('released cases whose mission inputs changed since (inputsChanged)'),
 });
 export const derivedCases = z.object({ items: z.array(caseDetail) });
 export const subscriptionState = z.object({ subscribed: z.boolean() });
 
-const compared = z.object({ a: z.number(), b: z.number(), difference: z.number() });
+const compared = z.object({ a: z.number(), b: z.number(), difference: z.number().describe('b - a (new - old)') });
 
 export const caseComparison = z.object({
   a: caseSummary,
   b: caseSummary,
-  /** Every input whose value differs (or every scalar one, when `all` is true), by path. */
-  inputs: z.array(z.object({ path: z.string(), a: z.unknown(), b: z.unknown(), changed: z.boolean() })),
+  inputs: z
+    .array(z.object({ path: z.string().describe('the input\'s place in inputs, e.g. "margins.heatLoadPercent"'), a: z.unknown(), b: z.unknown(), changed: z.boolean() }))
+    .describe('every scalar input of both, by path; a is the older revision, b the newer'),
   surfaces: z.array(
     z.object({
       name: z.string(),
@@ -237,7 +253,7 @@ export const caseComparison = z.object({
     }),
   ),
   total: z.object({ orbitAverageAbsorbedW: compared }),
-});
+}).describe('two revisions side by side: a the older, b the newer, every difference b - a (new - old), loads in W');
 
 /**
  * The hashed part of an export's metadata: only what never changes once released (people are named

@@ -59,6 +59,8 @@ export interface CaseFactor {
   text: string;
   /** The sentence without its sources, for the page (the sources are one click away). */
   short?: string;
+  /** What the figure is about when a factor has one per item (the material of a property factor). */
+  about?: string;
   sources: string[];
 }
 
@@ -171,7 +173,7 @@ function propertyFactors(r: CaseWhyRecord): CaseFactor[] {
   return [...seen.values()].map((m) => {
     const p = opticalProperties(m, set);
     return {
-      key: 'properties', title: `${label} properties`, figure: `${m.name}: a ${f(p.absorptivity, 2)}, e ${f(p.emissivity, 2)}`,
+      key: 'properties', title: `${label} properties`, about: m.name, figure: `α ${f(p.absorptivity, 2)}, ε ${f(p.emissivity, 2)}`,
       text: `${label} absorptivity ${f(p.absorptivity, 2)} and emissivity ${f(p.emissivity, 2)} for ${m.name}${note} (${m.source})`,
       short: `${label} absorptivity ${f(p.absorptivity, 2)} and emissivity ${f(p.emissivity, 2)} for ${m.name}${note}`, sources: [m.source],
     };

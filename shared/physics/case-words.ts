@@ -23,10 +23,13 @@ export const attitudeText = (list: readonly CaseSurface[]): string =>
  * A single case's albedo and OLR in words: where they come from (the body's nominal values unless
  * the user gave either) and the rationale line, which names the body's design pairs beside them.
  */
+/** A case's `environmentSource` when the user gave its albedo or OLR (a new revision keeps them). */
+export const USER_GIVEN_SOURCE = 'entered by the user';
+
 export function pairWords(body: Body, inclinationDeg: number, albedo: number, olrWm2: number, userGiven: boolean): { source: string; rationale: string } {
   const pairs = designPairs(body, inclinationDeg);
   return {
-    source: userGiven ? 'entered by the user' : `${body.name} nominal: ${body.sources['albedo'] ?? ''}`,
+    source: userGiven ? USER_GIVEN_SOURCE : `${body.name} nominal: ${body.sources['albedo'] ?? ''}`,
     rationale: `albedo ${albedo.toFixed(2)} with OLR ${olrWm2.toFixed(0)} W/m^2, ${userGiven ? 'given by the user' : `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}`}`,
   };
 }

@@ -112,18 +112,26 @@ function unsettledOf(input: ThermalSolveInput, net: ThermalNetwork, runs: [Perio
 function assumptions(input: ThermalSolveInput, net: ThermalNetwork, withBus: boolean): string[] {
   const list = [
     `Periodic steady state: orbits repeated until no node changes by more than ${input.toleranceK ?? 0.01} K over an orbit, and no node is estimated to be more than that from its periodic state (the orbit's net heat over the network's conductances and time constants).`,
-    `Implicit BDF2 steps of ${round(net.dtS, 2)} s; loads between samples interpolated linearly; heaters and loop flows set at the start of each step.`,
+    `Implicit second-order time steps (BDF2) of ${round(net.dtS, 2)} s; loads between the case's samples interpolated linearly; heaters and loop flows set at the start of each step.`,
     'Radiators see deep space at 0 K unless a sink temperature is given.',
   ];
   if (net.n && input.heaters?.some((h) => (h.control ?? 'thermostat') === 'thermostat')) {
     list.push('Thermostat cycles that do not repeat with the orbit are judged by their averages over 24 orbits.');
   }
   if (withBus) list.push('Heater power scales with the square of the bus voltage; pass/fail uses the coldest and hottest of the nominal, minimum and maximum voltage runs.');
-  if ((input.loops ?? []).some((l) => l.inletC !== undefined)) list.push("Each node of an open loop sees the loop's flow at its fixed inlet temperature: effectiveness x flow x c_p x (T_node - T_inlet).");
-  if (net.loops) list.push('A closed loop carries its coolant as one lump per path element (its share of the fluid mass); each element takes effectiveness x flow x c_p x (T_node - T_coolant in) with effectiveness 1 - exp(-UA/(flow c_p)); flow held over each step, set from the controlled node at its start.');
+  if ((input.loops ?? []).some((l) => l.inletC !== undefined)) {
+    list.push("Each node on an open loop gives the coolant effectiveness × mass flow × specific heat × (node temperature − the loop's fixed inlet temperature).");
+  }
+  if (net.loops) {
+    list.push(
+      'A closed loop carries its coolant as one lump per element along its path (that element\'s share of the fluid); each element gives the coolant ' +
+        'effectiveness × mass flow × specific heat × (node temperature − coolant temperature entering it), with effectiveness 1 − exp(−UA / (mass flow × specific heat)); ' +
+        "the flow is held over each step, set from the controlled node's temperature at its start.",
+    );
+  }
   const m = input.margins;
   list.push(m && (m.operatingK || m.survivalK)
     ? `Limits checked with margins of ${m.operatingK ?? 0} K (operating) and ${m.survivalK ?? 0} K (survival).`
-    : 'Limits checked with no margin; MIL-STD-1540 uses 11 K for a correlated passive model and 17 K before correlation (Gilmore Ch. 19).');
+    : 'Limits checked with no margin; MIL-STD-1540 uses 11 K for a correlated passive model and 17 K before correlation (Gilmore, Spacecraft Thermal Control Handbook, ch. 19).');
   return list;
 }

@@ -66,6 +66,8 @@ export function trajectoryCaseResults(
     penumbraDurationS: round(env.penumbraS, 1),
     tS: env.points.map((p) => round((p.tMs - startMs) / 1000, 3)),
     sunlit: env.points.map((p) => round(p.sunlit, 5)),
+    // about a moon, the planet's shadow where it falls on the window (as a derived case keeps it)
+    ...(env.points.some((p) => (p.parentSunlit ?? 1) < 1) ? { parentSunlit: env.points.map((p) => round(p.parentSunlit ?? 1, 5)) } : {}),
     surfaces: results,
     total: { orbitAverageAbsorbedW: round(totalAverage), orbitAverageWithMarginW: round(totalAverage * factor), peakAbsorbedW: round(env.peakTotalAbsorbedW) },
   };

@@ -60,6 +60,8 @@ describe('trajectoryEnvironment', () => {
       // a zenith plate faces away from the whole sphere at this altitude: no IR, no albedo
       expect(p.surfaces[1].irWm2).toBe(0);
       expect(p.surfaces[1].albedoWm2).toBe(0);
+      // a planet has no parent planet's shadow
+      expect(p.parentSunlit).toBeUndefined();
     }
   });
 
@@ -92,6 +94,13 @@ describe('trajectoryEnvironment', () => {
     // an OLR given asks for the uniform model, as in the compute route: OLR (R/r)^2 on a nadir plate (Howell catalogue)
     const uniform = trajectoryEnvironment(samples, { body: moon, surfaces: panels, olrWm2: 271, maxAltitudeKm: 100 });
     expect(uniform.points[0].surfaces[0].irWm2).toBeCloseTo(271 * (moon.radiusKm / (moon.radiusKm + 100)) ** 2, 6);
+    // about a moon every point carries its planet's share of the Sun, and the combined sunlit share never exceeds it
+    // (parent-shadow.ts: sunlit = max(0, f_moon + f_planet - 1); from memory)
+    for (const p of result.points) {
+      expect(p.parentSunlit).toBeGreaterThanOrEqual(0);
+      expect(p.parentSunlit).toBeLessThanOrEqual(1);
+      expect(p.sunlit).toBeLessThanOrEqual(p.parentSunlit! + 1e-12);
+    }
   });
 
   it('finite-difference velocities give the loads of exact ones within 0.5 % (10 s steps; common practice, no source)', () => {

@@ -38,6 +38,8 @@ export interface TrajectoryPointLoads {
   tMs: number;
   altitudeKm: number;
   sunlit: number;
+  /** About a moon: the share of the Sun's disk past its planet alone (1 clear of the planet's shadow). */
+  parentSunlit?: number;
   surfaces: SurfaceLoad[];
 }
 
@@ -194,7 +196,8 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
     const ram = cross(normal, zenith);
     const sun = sunAt(cur.tMs);
     const sunLocal: Vector3 = [dot(sun.directionIcrf, ram), dot(sun.directionIcrf, normal), dot(sun.directionIcrf, zenith)];
-    const sunlit = combinedSunlit(sunlitFraction(shadowGeometry(r, sun.directionIcrf, sun.distanceAu * AU_KM, body.radiusKm)), sun.planetSunlit(r));
+    const parentSunlit = sun.planetSunlit(r);
+    const sunlit = combinedSunlit(sunlitFraction(shadowGeometry(r, sun.directionIcrf, sun.distanceAu * AU_KM, body.radiusKm)), parentSunlit);
     const point = { sunLocal, sunlit, solarFluxWm2: solarFluxWm2(sun.distanceAu), albedo, olrWm2, radiusKm, bodyRadiusKm: body.radiusKm };
     // trapezoidal weight: half of each neighbouring interval, s
     const weightS = ((next ? next.tMs - cur.tMs : 0) + (prev ? cur.tMs - prev.tMs : 0)) / 2000;
@@ -222,7 +225,7 @@ export function trajectoryEnvironment(samples: Iterable<TrajectorySample>, optio
     let totalW = 0;
     for (const load of loads) totalW += load.absorbedW;
     peakTotalAbsorbedW = Math.max(peakTotalAbsorbedW, totalW);
-    if (keep(index, cur.tMs)) points.push({ tMs: cur.tMs, altitudeKm: radiusKm - body.radiusKm, sunlit, surfaces: loads });
+    if (keep(index, cur.tMs)) points.push({ tMs: cur.tMs, altitudeKm: radiusKm - body.radiusKm, sunlit, ...(body.parentId ? { parentSunlit } : {}), surfaces: loads });
     index++;
   };
 

@@ -125,6 +125,32 @@ describe('GET /api/v1/cases/:id/export?format=csv', () => {
     expect(csv).not.toMatch(/\d\.\d{7,}/);
   });
 
+  it("carries a moon orbiter's planet shadow per step (parentSunlit) as read back by csv-parse, and leaves the column empty about a planet", async () => {
+    // The Europa demo orbit's cold case takes the orbit amid the mission's longest shadow of Jupiter (DEVELOPERS.md "Moons").
+    const thermal = await t.signIn('thermal@kestrel.test');
+    const mission = t.ctx.sqlite.prepare("SELECT m.id AS missionId, o.id AS orbitId FROM missions m JOIN orbits o ON o.mission_id = m.id WHERE m.body_id = 'europa'").get() as { missionId: string; orbitId: string };
+    const derived = (await thermal.post(`/api/v1/missions/${mission.missionId}/cases/derive`).send({ orbitId: mission.orbitId, name: 'Europa export', steps: 60 }).expect(201)).body.items as { id: string; kind: string }[];
+    const cold = derived.find((c) => c.kind === 'cold')!;
+    const [hotJson, json] = await Promise.all(['hot', 'cold'].map(async (kind) => JSON.parse((await thermal.get(`/api/v1/cases/${derived.find((c) => c.kind === kind)!.id}/export?format=json`).expect(200)).text)));
+    const parent = json.results.parentSunlit as number[];
+    expect(parent).toHaveLength(json.results.tS.length);
+    expect(Math.min(...parent)).toBeLessThan(1);
+    const schema = (await viewer.get('/api/v1/schemas/load-case.json').expect(200)).body;
+    const ajv = new Ajv2020({ allErrors: true, strict: false });
+    addFormats(ajv);
+    const validate = ajv.compile(schema);
+    // both follow the schema, with what a moon's derivation decides (the planet's shadow, the surface field)
+    for (const doc of [hotJson, json]) expect({ valid: validate(doc), errors: validate.errors ?? null }).toEqual({ valid: true, errors: null });
+    const csv = (await thermal.get(`/api/v1/cases/${cold.id}/export?format=csv`).expect(200)).text;
+    const rows = parseCsv(csv, { columns: true, cast: (value, ctx) => (ctx.header || value === '' || Number.isNaN(Number(value)) ? value : Number(value)) }) as Record<string, string | number>[];
+    const steps = rows.filter((r) => r['row'] === 'step');
+    expect(steps.length).toBe(json.results.tS.length * json.results.surfaces.length);
+    for (const r of steps) near(r['sunlit past the parent planet (0-1)'], parent[(r['step'] as number) - 1]!, 4);
+    // about the Earth there is no parent planet: the column is there, empty
+    const earth = parseCsv((await viewer.get(`/api/v1/cases/${released[0]!.id}/export?format=csv`).expect(200)).text, { columns: true }) as Record<string, string>[];
+    expect(earth.every((r) => r['sunlit past the parent planet (0-1)'] === '')).toBe(true);
+  });
+
   it('refuses an unknown format with 400 naming it', async () => {
     const res = await viewer.get(`/api/v1/cases/${released[0]!.id}/export?format=xlsx`).expect(400);
     expect(res.body.error.details[0].path).toBe('format');

@@ -2,6 +2,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, demoPassword, linkToken, workspaceIdOf, type TestApp } from './test-app';
+import { cautionText } from '../../shared/api/caution';
 
 let t: TestApp;
 let owner: request.Agent;
@@ -27,6 +28,8 @@ describe('inviting a new person', () => {
     expect(days).toBeLessThan(7.01);
     const mail = await t.waitForMail('new.engineer@kestrel.test', 'Kestrel');
     expect(mail.from).toBe('no-reply@eclipta.local');
+    // the preliminary-design caution, as in every mail (DOMAIN.md)
+    expect(mail.text).toContain(cautionText);
     token = linkToken(mail.text, 'invite');
     // Only the hash is stored.
     expect(t.ctx.sqlite.prepare('SELECT count(*) AS n FROM invitations WHERE token_hash = ?').get(token)).toEqual({ n: 0 });

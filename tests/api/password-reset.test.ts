@@ -2,6 +2,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, demoPassword, linkToken, type TestApp } from './test-app';
+import { cautionText } from '../../shared/api/caution';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -26,6 +27,8 @@ describe('password reset', () => {
     const oldSession = await t.signIn('analyst@kestrel.test');
     await request(t.app).post('/api/v1/auth/password-reset').send({ email: 'analyst@kestrel.test' });
     const mail = await t.waitForMail('analyst@kestrel.test', 'Reset');
+    // the preliminary-design caution, as in every mail (DOMAIN.md)
+    expect(mail.text).toContain(cautionText);
     const token = linkToken(mail.text, 'reset-password');
 
     const short = await request(t.app).post('/api/v1/auth/password-reset/confirm').send({ token, password: 'short' });

@@ -12,7 +12,7 @@ import { Router, RouterLink } from '@angular/router';
 import { combineLatest, filter, switchMap } from 'rxjs';
 import type { CaseDetail } from '../../../shared/api/cases';
 import { whyRecordOf } from '../../../shared/api/case-content';
-import { caseFactors } from '../../../shared/physics/case-why';
+import { caseFactors, type CaseFactor } from '../../../shared/physics/case-why';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { DesignCaution } from '../shell/design-caution';
@@ -27,13 +27,23 @@ import { CaseLoadsPanel } from './case-loads-panel';
 import { CaseReviewDialog } from './case-review-dialog';
 import { CaseStatusChip } from './case-status-chip';
 import { UtcTimePipe } from '../time/utc-time-pipe';
+import { SourceWordsPipe } from '../shell/source-words-pipe';
+
+/** A line of the "why" list: a deciding factor, or one factor's rows per item (material). */
+interface FactorItem {
+  key: CaseFactor['key'];
+  title: string;
+  figure: string;
+  text: string;
+  rows: { about: string; figure: string }[];
+}
 
 /** One load case: why it is the worst case, its loads around the orbit, its inputs, and its life cycle. */
 @Component({
   selector: 'ecl-case-page',
   imports: [
     UtcTimePipe, DecimalPipe, RouterLink, MatButton, MatIcon, MatSlideToggle, DesignCaution, CaseKindLabel, CaseStatusChip,
-    CaseInputsPanel, CaseLoadsPanel, MatFormField, MatLabel, MatInput, MatCheckbox,
+    CaseInputsPanel, CaseLoadsPanel, MatFormField, MatLabel, MatInput, MatCheckbox, SourceWordsPipe,
   ],
   templateUrl: './case-page.html',
   styleUrl: './case-page.css',
@@ -65,6 +75,23 @@ export class CasePage {
   protected readonly factors = computed(() => {
     const c = this.current();
     return c ? caseFactors(whyRecordOf(c.kind, c.inputs, c.results)) : [];
+  });
+  /**
+   * The factors as the page lists them: a factor given per item (each material's properties) is one
+   * entry with a short row per item, so a phone reads "EOL properties" once, not a sentence per material.
+   */
+  protected readonly factorItems = computed(() => {
+    const items: FactorItem[] = [];
+    for (const f of this.factors()) {
+      const last = items.at(-1);
+      if (f.about !== undefined && last?.key === f.key) {
+        last.rows.push({ about: f.about, figure: f.figure });
+        continue;
+      }
+      const perItem = f.about !== undefined;
+      items.push({ key: f.key, title: f.title, figure: perItem ? '' : f.figure, text: perItem ? '' : (f.short ?? f.text), rows: perItem ? [{ about: f.about ?? '', figure: f.figure }] : [] });
+    }
+    return items;
   });
   protected readonly sources = computed(() => [...new Set(this.factors().flatMap((f) => f.sources))]);
   protected readonly subscribed = linkedSignal(() => this.current()?.subscribed ?? false);
@@ -98,7 +125,7 @@ export class CasePage {
   /** The new-revision form: open, its reason, and whether to derive from the current inputs. */
   protected readonly revising = signal(false);
   protected readonly revisionReason = signal('');
-  protected readonly fromCurrent = linkedSignal(() => (this.current()?.inputChanges.length ?? 0) > 0 && this.current()?.kind !== 'custom');
+  protected readonly fromCurrent = linkedSignal(() => (this.current()?.inputChanges.length ?? 0) > 0 && !this.current()?.currentInputsBlocked);
 
   protected startRevision(c: CaseDetail): void {
     const reason = this.revisionReason().trim();
@@ -108,7 +135,7 @@ export class CasePage {
     }
     this.busy.set(true);
     this.failure.set(null);
-    this.api.newRevision(c.id, reason, this.fromCurrent()).subscribe({
+    this.api.newRevision(c.id, reason, this.fromCurrent() && !c.currentInputsBlocked).subscribe({
       next: (draft) => {
         this.busy.set(false);
         this.revising.set(false);

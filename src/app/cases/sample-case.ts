@@ -40,6 +40,7 @@ export function sampleCase(overrides: Partial<CaseDetail> = {}): CaseDetail {
     actions: ['edit', 'submit', 'comment'],
     comments: [],
     inputChanges: [],
+    currentInputsBlocked: null,
     inputsChanged: false,
     phase: null,
     variant: null,

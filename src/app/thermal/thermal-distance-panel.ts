@@ -4,6 +4,7 @@
 // request and the server stops. Pump flow per loop and radiator area are plotted against distance,
 // tabled, and exported as CSV with the design caution.
 import { DOCUMENT, DecimalPipe } from '@angular/common';
+import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
@@ -46,7 +47,7 @@ export function parseDistances(text: string): number[] | null {
 
 @Component({
   selector: 'ecl-thermal-distance-panel',
-  imports: [DecimalPipe, MatButton, MatCheckbox, MatFormField, MatHint, MatLabel, MatIcon, MatInput, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot],
+  imports: [DecimalPipe, MatButton, MatCheckbox, MatFormField, MatHint, MatLabel, MatIcon, MatInput, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, SourceWordsPipe],
   template: `
     <p class="ecl-muted">The same model with the Sun nearer or farther: the case's solar and albedo loads scale with the inverse square of the distance, planetary IR stays. At each distance: the pump flow the loops' controllers settle to, and the radiator area that holds the chosen node at its maximum less the margin.</p>
     <div class="pick-row">
@@ -122,7 +123,7 @@ export function parseDistances(text: string): number[] | null {
       </div>
       <button mat-button type="button" (click)="downloadCsv()" data-testid="study-csv"><mat-icon>download</mat-icon>Download CSV</button>
       @if (start(); as s) {
-        <details class="ecl-muted small"><summary>Assumptions</summary><ul>@for (a of s.assumptions; track $index) { <li>{{ a }}</li> }</ul></details>
+        <details class="ecl-muted small"><summary>Assumptions</summary><ul>@for (a of s.assumptions; track $index) { <li>{{ a | sourceWords }}</li> }</ul></details>
       }
     }
   `,

@@ -2,6 +2,7 @@
 // in words and tone), run with a progress bar, then the per-node table with PASS/FAIL and margin,
 // the temperature plot with its limits, the heaters' strips and table, the loops' flows and CSV.
 import { DOCUMENT, DecimalPipe } from '@angular/common';
+import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
@@ -30,7 +31,7 @@ const GUTTERS = { left: 150, right: 56 } as const;
 
 @Component({
   selector: 'ecl-thermal-run-panel',
-  imports: [DecimalPipe, MatButton, MatFormField, MatLabel, MatHint, MatInput, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, StripPlot, ThermalLoopResults],
+  imports: [DecimalPipe, MatButton, MatFormField, MatLabel, MatHint, MatInput, MatIcon, MatProgressBar, MatSelect, MatSelectTrigger, MatOption, CaseKindLabel, TimeSeriesPlot, StripPlot, ThermalLoopResults, SourceWordsPipe],
   templateUrl: './thermal-run-panel.html',
   styleUrl: './thermal-run-panel.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

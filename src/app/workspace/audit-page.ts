@@ -45,7 +45,7 @@ export class AuditPage {
   protected applyFilters(): void {
     const { action, actor, since, until } = this.filterForm.getRawValue();
     this.query.set({
-      action: action.trim() || undefined,
+      action: actionCode(action) || undefined,
       actor: actor.trim() || undefined,
       since: dayBound(since, false),
       until: dayBound(until, true),
@@ -53,6 +53,9 @@ export class AuditPage {
       offset: 0,
     });
   }
+
+  /** An action as the log names it ("thermal_model.created"), in words ("thermal model: created"). */
+  protected readonly actionWords = actionWords;
 
   protected clearFilters(): void {
     this.filterForm.reset();
@@ -63,3 +66,9 @@ export class AuditPage {
     this.query.update((q) => ({ ...q, limit: page.pageSize, offset: page.pageIndex * page.pageSize }));
   }
 }
+
+/** An audit action in words: "thermal_model.created" -> "thermal model: created". */
+export const actionWords = (code: string): string => code.replace('.', ': ').replaceAll('_', ' ');
+
+/** What the filter field holds back into the log's action: words as the table shows them, or the code itself. */
+export const actionCode = (text: string): string => text.trim().toLowerCase().replace(/\s*:\s*/, '.').replace(/\s+/g, '_');

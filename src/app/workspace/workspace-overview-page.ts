@@ -92,7 +92,12 @@ import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
                 <section aria-labelledby="needs-stale" data-testid="overview-stale">
                   <h3 id="needs-stale">Released, mission inputs changed since ({{ n.stale.length }})</h3>
                   @for (c of n.stale; track c.id) {
-                    <p class="line"><ng-container *ngTemplateOutlet="caseLine; context: { $implicit: c }" /></p>
+                    <p class="line">
+                      <ng-container *ngTemplateOutlet="caseLine; context: { $implicit: c }" />
+                      <span class="ecl-muted changed" data-testid="overview-stale-change">
+                        {{ c.inputChanges[0] }}@if (c.inputChanges.length > 1) { (and {{ c.inputChanges.length - 1 }} more)}
+                      </span>
+                    </p>
                   } @empty {
                     <p class="ecl-muted">Every released case is current with its mission.</p>
                   }
@@ -153,6 +158,10 @@ import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
     }
     .line ecl-case-status {
       margin-left: 6px;
+    }
+    .line .changed {
+      display: block;
+      font: var(--mat-sys-body-small);
     }
     blockquote {
       margin: 4px 0 0 16px;
