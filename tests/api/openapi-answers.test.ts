@@ -77,7 +77,8 @@ function forAjv(value: unknown): unknown {
   }
   if (out['nullable'] === true) {
     delete out['nullable'];
-    if (Array.isArray(out['enum'])) out['enum'] = [...(out['enum'] as unknown[]), null];
+    // OpenAPI 3.0.3 asks a nullable enum to list null itself; zod-to-openapi does, so add it only where missing.
+    if (Array.isArray(out['enum']) && !out['enum'].includes(null)) out['enum'] = [...(out['enum'] as unknown[]), null];
     if (typeof out['type'] === 'string') return { ...out, type: [out['type'], 'null'] };
     return { anyOf: [out, { type: 'null' }] };
   }
