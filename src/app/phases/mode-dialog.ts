@@ -48,7 +48,7 @@ type Choice = '' | 'set';
         <h3>Pointing in this mode</h3>
         <p class="ecl-muted hint">A surface left "as defined" faces as on the Surfaces tab.</p>
         @for (s of data.surfaces; track s.id; let i = $index) {
-          <div class="surface" role="group" [attr.aria-label]="'Pointing of ' + s.name + ' in this mode'">
+          <div class="surface" [class.pointed]="chosen()[i] === 'set'" role="group" [attr.aria-label]="'Pointing of ' + s.name + ' in this mode'">
             <mat-form-field appearance="outline" subscriptSizing="dynamic">
               <mat-label>{{ s.name }}</mat-label>
               <mat-select [formControl]="choices[i]!" [attr.data-testid]="'mode-pointing-' + i">
@@ -75,7 +75,8 @@ type Choice = '' | 'set';
     .fields { display: flex; flex-direction: column; gap: 8px; min-width: min(480px, 80vw); }
     h3 { font: var(--mat-sys-title-small); margin: 8px 0 0; }
     .hint { margin: 0; font: var(--mat-sys-body-small); }
-    .surface { display: flex; flex-direction: column; gap: 8px; padding-left: 12px; border-left: 2px solid var(--mat-sys-outline-variant); }
+    .surface { display: flex; flex-direction: column; gap: 8px; }
+    .surface.pointed { padding: 4px 0 0 12px; border-left: 2px solid var(--mat-sys-outline-variant); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
