@@ -83,4 +83,34 @@ test('the thermal engineer reads and adds phases, sweeps the mission by phase an
   await expect(page.getByTestId('mode-name')).toHaveValue('Sun safe');
   await screenshot(page, 'phases-mode-dialog-390');
   await page.keyboard.press('Escape');
+
+  // The +Y radiator on a spinner in nadir imaging, through the mode's pointing editor (the surface
+  // dialog's own); the choice from the keyboard, the save by Enter, the table says it in words.
+  await page.getByRole('button', { name: 'Edit mode nadir imaging' }).click();
+  await dialogReady(page);
+  await page.getByTestId('mode-pointing-2').focus();
+  await page.keyboard.press('Enter');
+  await page.keyboard.press('ArrowDown');
+  await page.keyboard.press('Enter');
+  await expect(page.getByTestId('mode-2-pointing-preview')).toHaveText('Faces: facing the orbit normal.');
+  await page.getByTestId('mode-2-pointing-kind').click();
+  await page.getByRole('option', { name: /spinning body/ }).click();
+  await page.getByTestId('mode-2-spin-axis').click();
+  await page.getByRole('option', { name: /^Orbit normal/ }).click();
+  await page.getByTestId('mode-2-spin-angle').fill('190');
+  await expect(page.getByTestId('mode-2-pointing-preview')).toHaveText('The angle from the spin axis is 0 to 180°.');
+  await page.getByTestId('mode-2-spin-angle').fill('45');
+  await expect(page.getByTestId('mode-2-pointing-preview')).toHaveText('Faces: on a body spinning about the orbit normal, 45° from the spin axis (loads averaged over a turn).');
+  const dialog = page.locator('mat-dialog-container');
+  expect(await dialog.evaluate((e) => e.scrollWidth - e.clientWidth)).toBeLessThanOrEqual(0);
+  await screenshot(page, 'phases-mode-editor-390');
+  await page.emulateMedia({ colorScheme: 'dark' });
+  await screenshot(page, 'phases-mode-editor-390-dark');
+  await page.setViewportSize({ width: 1400, height: 1000 });
+  await screenshot(page, 'phases-mode-editor-dark');
+  await page.emulateMedia({ colorScheme: 'light' });
+  await screenshot(page, 'phases-mode-editor');
+  await page.getByTestId('mode-2-spin-angle').press('Enter');
+  await expect(dialog).toHaveCount(0);
+  await expect(page.getByTestId('mode-table')).toContainText('+Y radiator → on a body spinning about the orbit normal, 45° from the spin axis');
 });

@@ -1,5 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { FormArray, FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
@@ -7,12 +8,13 @@ import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDial
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
-import type { Observable } from 'rxjs';
+import { map, merge, type Observable } from 'rxjs';
 import type { Surface, SurfaceNormal } from '../../../shared/api/missions';
 import type { AttitudeMode } from '../../../shared/api/phases';
 import { apiErrorMessage } from '../api/api-error-message';
 import { dialogSubmit, placedBeside } from '../shell/dialog-submit';
-import { describeNormal, NAMED_NORMALS, NORMAL_LABELS } from '../surfaces/surface-normals';
+import { PointingEditor, pointingForm, readPointingForm } from '../surfaces/pointing-editor';
+import { describeNormal } from '../surfaces/surface-normals';
 import { PhaseApi } from './phase-api';
 
 export interface ModeDialogData {
@@ -21,13 +23,13 @@ export interface ModeDialogData {
   readonly surfaces: readonly Surface[];
 }
 
-/** '' keeps the surface's own facing; 'kept' a pointing set otherwise (a vector), kept as it is. */
-type Choice = string;
+/** '' keeps the surface's own facing; 'set' points it in this mode with the pointing editor. */
+type Choice = '' | 'set';
 
 /** Adds or edits an attitude mode: where each surface points in it, and whether it yaw-steers. */
 @Component({
   selector: 'ecl-mode-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption],
+  imports: [ReactiveFormsModule, MatButton, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption, PointingEditor],
   template: `
     <h2 mat-dialog-title>{{ data.mode ? 'Edit the attitude mode' : 'New attitude mode' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
@@ -44,19 +46,20 @@ type Choice = string;
         </mat-form-field>
         <mat-checkbox formControlName="yawSteering" data-testid="mode-yaw">Yaw steering (turn about nadir to keep the Sun off one side)</mat-checkbox>
         <h3>Pointing in this mode</h3>
+        <p class="ecl-muted hint">A surface left "as defined" faces as on the Surfaces tab.</p>
         @for (s of data.surfaces; track s.id; let i = $index) {
-          <mat-form-field appearance="outline" subscriptSizing="dynamic">
-            <mat-label>{{ s.name }}</mat-label>
-            <mat-select [formControl]="choices[i]!" [attr.data-testid]="'mode-pointing-' + i">
-              <mat-option value="">As defined ({{ describe(s.normal) }})</mat-option>
-              @if (kept.has(s.id)) {
-                <mat-option value="kept">As set before ({{ describe(kept.get(s.id)!) }})</mat-option>
-              }
-              @for (n of normals; track n) {
-                <mat-option [value]="n">{{ labels[n] }}</mat-option>
-              }
-            </mat-select>
-          </mat-form-field>
+          <div class="surface" [class.pointed]="chosen()[i] === 'set'" role="group" [attr.aria-label]="'Pointing of ' + s.name + ' in this mode'">
+            <mat-form-field appearance="outline" subscriptSizing="dynamic">
+              <mat-label>{{ s.name }}</mat-label>
+              <mat-select [formControl]="choices[i]!" [attr.data-testid]="'mode-pointing-' + i">
+                <mat-option value="">As defined ({{ describe(s.normal) }})</mat-option>
+                <mat-option value="set">Pointed in this mode</mat-option>
+              </mat-select>
+            </mat-form-field>
+            @if (chosen()[i] === 'set') {
+              <ecl-pointing-editor [form]="pointings[i]!" [testid]="'mode-' + i" [label]="'How ' + s.name + ' points'" />
+            }
+          </div>
         }
         @if (submit.failure(); as message) {
           <p class="ecl-error" role="alert" data-testid="mode-form-error">{{ message }}</p>
@@ -71,6 +74,9 @@ type Choice = string;
   styles: `
     .fields { display: flex; flex-direction: column; gap: 8px; min-width: min(480px, 80vw); }
     h3 { font: var(--mat-sys-title-small); margin: 8px 0 0; }
+    .hint { margin: 0; font: var(--mat-sys-body-small); }
+    .surface { display: flex; flex-direction: column; gap: 8px; }
+    .surface.pointed { padding: 4px 0 0 12px; border-left: 2px solid var(--mat-sys-outline-variant); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -78,24 +84,21 @@ export class ModeDialog {
   private readonly api = inject(PhaseApi);
   protected readonly data = inject<ModeDialogData>(MAT_DIALOG_DATA);
   protected readonly dialogRef = inject<MatDialogRef<ModeDialog, AttitudeMode>>(MatDialogRef);
-  protected readonly normals = NAMED_NORMALS;
-  protected readonly labels = NORMAL_LABELS;
   protected readonly problem = signal<string | null>(null);
 
   private readonly pointed = new Map((this.data.mode?.pointing ?? []).map((p) => [p.surfaceId, p.normal as SurfaceNormal]));
-  /** Pointings the picker has no name for (a vector, or another form given through the API): offered as they are. */
-  protected readonly kept = new Map([...this.pointed].filter(([, n]) => typeof n !== 'string'));
-  protected readonly choices = this.data.surfaces.map((s) => {
-    const n = this.pointed.get(s.id);
-    return new FormControl<Choice>(n === undefined ? '' : typeof n === 'string' ? n : 'kept', { nonNullable: true });
-  });
+  /** Per surface: whether the mode points it, and its pointing (the mode's, else the surface's own to start from). */
+  protected readonly choices = this.data.surfaces.map((s) => new FormControl<Choice>(this.pointed.has(s.id) ? 'set' : '', { nonNullable: true }));
+  protected readonly pointings = this.data.surfaces.map((s) => pointingForm(this.pointed.get(s.id) ?? s.normal));
+  private readonly choiceValues = () => this.choices.map((c) => c.value);
+  protected readonly chosen = toSignal(merge(...this.choices.map((c) => c.valueChanges)).pipe(map(this.choiceValues)), { initialValue: this.choiceValues() });
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: [this.data.mode?.name ?? '', Validators.required],
     description: this.data.mode?.description ?? '',
     yawSteering: this.data.mode?.yawSteering ?? false,
   });
 
-  protected readonly submit = dialogSubmit<AttitudeMode>(new FormGroup({ mode: this.form, pointing: new FormArray(this.choices) }));
+  protected readonly submit = dialogSubmit<AttitudeMode>(new FormGroup({ mode: this.form, choices: new FormArray(this.choices), pointing: new FormArray(this.pointings) }));
 
   protected describe(normal: SurfaceNormal): string {
     return describeNormal(normal);
@@ -108,12 +111,10 @@ export class ModeDialog {
   protected save(): void {
     this.problem.set(null);
     const v = this.form.getRawValue();
-    const pointing = this.data.surfaces.flatMap((s, i) => {
-      const choice = this.choices[i]!.value;
-      if (choice === '') return [];
-      const normal = choice === 'kept' ? this.kept.get(s.id) : (choice as SurfaceNormal);
-      return normal === undefined ? [] : [{ surfaceId: s.id, normal }];
-    });
+    const readings = this.data.surfaces.flatMap((s, i) => (this.choices[i]!.value === 'set' ? [{ surfaceId: s.id, reading: readPointingForm(this.pointings[i]!) }] : []));
+    const pointing = readings.flatMap(({ surfaceId, reading }) => (reading.ok ? [{ surfaceId, normal: reading.normal }] : []));
+    // A pointing not yet complete is said under its editor; nothing is sent until each is.
+    if (pointing.length < readings.length) return;
     this.submit.submit(
       () => this.api.saveMode(this.data.missionId, this.data.mode?.id ?? null, { name: v.name.trim(), description: v.description, yawSteering: v.yawSteering, pointing }),
       (failure) => {

@@ -7,12 +7,11 @@ import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDial
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatOptgroup, MatOption, MatSelect } from '@angular/material/select';
-import { Observable, map } from 'rxjs';
+import type { Observable } from 'rxjs';
 import type { Material, Surface, SurfaceCreate } from '../../../shared/api/missions';
 import { MissionApi } from '../missions/mission-api';
 import { readQuantityText } from '../missions/quantity-text';
-import { customDirection, LOCAL_NAMES, NORMAL_LABELS, POINTING_KIND_LIST, POINTING_KINDS, pointingFields, pointingFromFields, type PointingFields } from './surface-normals';
-import { pointingWords } from '../../../shared/physics/pointing-words';
+import { PointingEditor, pointingForm, readPointingForm } from './pointing-editor';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { dialogSubmit, refusalDetails } from '../shell/dialog-submit';
 
@@ -29,7 +28,7 @@ type SurfaceField = 'name' | 'areaM2' | 'normal' | 'materialId';
   selector: 'ecl-surface-dialog',
   imports: [
     SourceWordsPipe, ReactiveFormsModule, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel,
-    MatInput, MatError, MatHint, MatSuffix, MatSelect, MatOption, MatOptgroup,
+    MatInput, MatError, MatHint, MatSuffix, MatSelect, MatOption, MatOptgroup, PointingEditor,
   ],
   templateUrl: './surface-dialog.html',
   styleUrl: './surface-dialog.css',
@@ -39,55 +38,19 @@ export class SurfaceDialog {
   private readonly api = inject(MissionApi);
   protected readonly data = inject<SurfaceDialogData>(MAT_DIALOG_DATA);
   protected readonly dialogRef = inject<MatDialogRef<SurfaceDialog, Surface>>(MatDialogRef);
-  protected readonly localNames = LOCAL_NAMES;
-  protected readonly normalLabels = NORMAL_LABELS;
-  protected readonly kinds = POINTING_KIND_LIST;
-  protected readonly kindLabels = POINTING_KINDS;
   protected readonly library = this.data.materials.filter((m) => m.workspaceId === null);
   protected readonly own = this.data.materials.filter((m) => m.workspaceId !== null);
   protected readonly problems = signal<Partial<Record<SurfaceField, string>>>({});
 
   private readonly start = this.data.surface;
-  private readonly startPointing = pointingFields(this.start?.normal ?? null);
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: [this.start?.name ?? '', Validators.required],
     area: [this.start ? String(this.start.areaM2) : '', Validators.required],
-    kind: this.startPointing.kind,
-    normal: this.startPointing.face as PointingFields['face'],
-    x: this.startPointing.x,
-    y: this.startPointing.y,
-    z: this.startPointing.z,
-    raDeg: this.startPointing.raDeg,
-    decDeg: this.startPointing.decDeg,
-    driveAxis: this.startPointing.driveAxis as PointingFields['driveAxis'],
-    spinAxis: this.startPointing.spinAxis as PointingFields['spinAxis'],
-    angleDeg: this.startPointing.angleDeg,
+    pointing: pointingForm(this.start?.normal ?? null),
     materialId: [this.start?.materialId ?? '', Validators.required],
-  });
-  private readonly values = toSignal(this.form.valueChanges.pipe(map(() => this.form.getRawValue())), { initialValue: this.form.getRawValue() });
-  protected readonly kind = computed(() => this.values().kind);
-  protected readonly normalChoice = computed(() => this.values().normal);
-  protected readonly spinAxisChoice = computed(() => this.values().spinAxis);
-  /** The pointing the fields give, or what is missing; and the same in words for the preview. */
-  protected readonly pointing = computed(() => pointingFromFields(this.fieldsOf(this.values())));
-  protected readonly pointingPreview = computed(() => {
-    const p = this.pointing();
-    return p.ok ? { ok: true, text: `Faces: ${pointingWords(p.normal)}.` } : { ok: false, text: p.message };
   });
   protected readonly submit = dialogSubmit<Surface>(this.form);
   private readonly materialId = toSignal(this.form.controls.materialId.valueChanges, { initialValue: this.form.controls.materialId.value });
-  /** The custom direction scaled to length 1, and a sentence saying so when the typed one was not. */
-  protected readonly direction = computed(() => {
-    const { x, y, z } = this.values();
-    return customDirection(Number(x), Number(y), Number(z));
-  });
-  protected readonly directionNote = computed(() => {
-    const d = this.direction();
-    if (d === null) return 'Give the direction: at least one of x, y and z must not be 0.';
-    if (Math.abs(d.typedLength - 1) <= 1e-9) return null;
-    const f = (v: number) => (Math.round(v * 1000) / 1000).toString();
-    return `Length ${d.typedLength.toLocaleString('en-US', { maximumFractionDigits: 3 })} scaled to 1: saved as (${f(d.unit.x)}, ${f(d.unit.y)}, ${f(d.unit.z)}).`;
-  });
   private readonly areaText = toSignal(this.form.controls.area.valueChanges, { initialValue: this.form.controls.area.value });
   /** The area as the server will read it ("1.2 m²", "3 sq m", "5000 cm²"), or what is wrong with it. */
   protected readonly areaPreview = computed(() => {
@@ -103,20 +66,13 @@ export class SurfaceDialog {
     return dialog.open<SurfaceDialog, SurfaceDialogData, Surface>(SurfaceDialog, { data, width: '600px' }).afterClosed();
   }
 
-  private fieldsOf(v: ReturnType<typeof this.form.getRawValue>): PointingFields {
-    return {
-      kind: v.kind, face: v.normal, x: v.x, y: v.y, z: v.z, raDeg: String(v.raDeg), decDeg: String(v.decDeg),
-      driveAxis: v.driveAxis, spinAxis: v.spinAxis, angleDeg: String(v.angleDeg),
-    };
-  }
-
   protected save(): void {
     this.problems.set({});
     this.submit.submit(
       () => {
         const v = this.form.getRawValue();
         // A custom direction goes as a unit vector; the note beside the fields says it was scaled.
-        const pointing = this.pointing();
+        const pointing = readPointingForm(this.form.controls.pointing);
         if (!pointing.ok) return null;
         const areaText = v.area.trim();
         // A bare number is m²; text with a unit ("5000 cm^2") goes as typed, the server converts it.
