@@ -48,15 +48,15 @@ export const caseA: EnvironmentRequest = {
   epoch: '2027-03-20T12:00:00Z', albedo: 0.3, olrWm2: 237, steps: 3600, surfaces: twenty,
 };
 const missionOrbit: OrbitInput = { periapsisAltitudeKm: 550, apoapsisAltitudeKm: 550, inclinationDeg: 51.6, raanDeg: 40 };
-const caseB: MissionSweepRequest = {
+export const caseB: MissionSweepRequest = {
   bodyId: 'earth', orbit: missionOrbit, epochStart: '2027-01-01T12:00:00Z', days: 3652, stepDays: 1, steps: 360,
   surfaces: six, albedo: 0.3, olrWm2: 237,
 };
 // (c) and (d): the same ten years about a moon, with the planet's shadow (parent-shadow.ts) searched every day.
-const caseC: MissionSweepRequest = {
+export const caseC: MissionSweepRequest = {
   ...caseB, bodyId: 'europa', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 85, raanDeg: 40 }, albedo: 0.68, olrWm2: 7,
 };
-const caseD: MissionSweepRequest = {
+export const caseD: MissionSweepRequest = {
   ...caseB, bodyId: 'moon', orbit: { periapsisAltitudeKm: 100, apoapsisAltitudeKm: 100, inclinationDeg: 90, raanDeg: 40 }, albedo: 0.11, olrWm2: 300,
 };
 // (e): (d) with the Moon's own models (no OLR given): its surface temperature field and the Lambertian
@@ -68,7 +68,7 @@ const caseF: EnvironmentRequest = { ...caseA, steps: 100_000, surfaces: [{ name:
 // local frame: every face yaw-steered; every face fixed in inertial space (an inertial science mode);
 // six plates on a spinner about the Sun (a Sun-pointing safe mode); and a mix of every moving form.
 const pointedSix = (normalOf: (n: (typeof named)[number], i: number) => Surface['normal']): Surface[] => named.map((n, i) => panel(n, normalOf(n, i), i));
-const pointedCases: [string, MissionSweepRequest][] = [
+export const pointedCases: [string, MissionSweepRequest][] = [
   ['(g) as (b), every face yaw-steered', { ...caseB, surfaces: pointedSix((n) => ({ yawSteered: { normal: n } })) }],
   ['(h) as (b), every face fixed in inertial space', { ...caseB, surfaces: pointedSix((_, i) => ({ inertial: { raDeg: 60 * i, decDeg: -75 + 30 * i } })) }],
   ['(i) as (b), six plates on a spinner about the Sun', { ...caseB, surfaces: pointedSix((_, i) => ({ spin: { axis: 'sun', angleDeg: 30 * i } })) }],
@@ -104,7 +104,7 @@ const SWEEP_BEFORE_MS = 109.2;
  * on the shared development machine (load averages of 10 to 20 on 2 cores) a ratio of wall-clock
  * times swings by 3x between neighbouring runs, the CPU time far less.
  */
-function cpuRuns(run: () => unknown, warmUp: number, repeats: number): { median: number; best: number } {
+export function cpuRuns(run: () => unknown, warmUp: number, repeats: number): { median: number; best: number } {
   for (let i = 0; i < warmUp; i++) run();
   const times: number[] = [];
   for (let i = 0; i < repeats; i++) {

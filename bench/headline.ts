@@ -1,10 +1,12 @@
 // The one table of a plain `npm run bench` (issue 16): every headline figure beside its anchor,
 // measured in this same run, with its target and whether this run meets it. The figures come from
-// the named benches' own measuring functions (wire, auth, thermal), which print their longer
+// the named benches' own measuring functions (wire, auth, thermal, environment), which print their longer
 // tables under `npm run bench -- wire` (or auth, thermal, ...). Takes a few minutes: the 1 M-row
 // ingest, three rounds of autocannon per route and SciPy's solve are most of it.
 import { cpus, loadavg } from 'node:os';
 import { measureAuth, type AuthFigure } from './auth.bench';
+import { caseB, caseC, caseD, cpuRuns, pointedCases } from './environment.bench';
+import { sweepMission } from '../shared/physics/mission-sweep';
 import type { BenchRow } from './bench-table';
 import { measureThermal, type ThermalFigures } from './thermal.bench';
 import { forms, measureWire, type ComputeFigures, type WireFigures } from './wire.bench';
@@ -99,6 +101,30 @@ function thermalRows(t: ThermalFigures): BenchRow[] {
   }];
 }
 
+/**
+ * The ten-year sweeps (bench/environment.bench.ts): a moon orbiter with its planet's shadow against
+ * (b), the Earth sweep without one (issue 13: under twice), and a mission in phases and attitude
+ * modes against (b) with fixed normals (issue 19: within 1.5x). CPU time of this process, each case
+ * timed right beside its own (b), because the machine's load stretches wall-clock ratios.
+ */
+function sweepRows(repeats = 5): BenchRow[] {
+  const phased = pointedCases.find(([name]) => name.startsWith('(k)'));
+  const cases: [string, typeof caseB, number][] = [
+    ['ten-year sweep about Europa, with Jupiter\'s shadow', caseC, 2],
+    ['ten-year sweep about the Moon, with Earth\'s shadow', caseD, 2],
+    ...(phased ? [['ten-year sweep in five phases and two attitude modes (one spinning)', phased[1], 1.5] as [string, typeof caseB, number]] : []),
+  ];
+  return cases.map(([label, request, limit]) => {
+    const anchor = cpuRuns(() => sweepMission(caseB), 1, repeats);
+    const measured = cpuRuns(() => sweepMission(request), 1, repeats);
+    const ratio = measured.median / anchor.median;
+    return {
+      figure: `${label} (CPU)`, eclipta: ms(measured.median), 'anchor (this run)': `Earth sweep, fixed normals, no planet's shadow ${ms(anchor.median)}`,
+      ratio: `${ratio.toFixed(2)}x`, target: `< ${limit}x`, result: verdict(ratio < limit),
+    };
+  });
+}
+
 export default async function headline(): Promise<BenchRow[]> {
   const started = performance.now();
   const step = (what: string) => process.stderr.write(`   ${((performance.now() - started) / 1000).toFixed(0).padStart(4)} s  ${what}\n`);
@@ -108,8 +134,10 @@ export default async function headline(): Promise<BenchRow[]> {
   const thermal = measureThermal();
   step('authenticated GET vs bare Express');
   const auth = await measureAuth();
+  step('ten-year sweeps');
+  const sweeps = sweepRows();
   step('done');
-  const rows = [...computeRows(wire.compute), ...clientRows(wire), ...authRows(auth), ...ingestRows(wire), ...thermalRows(thermal)];
+  const rows = [...computeRows(wire.compute), ...clientRows(wire), ...authRows(auth), ...ingestRows(wire), ...thermalRows(thermal), ...sweeps];
   const failed = rows.filter((r) => String(r['result'] ?? '').startsWith('FAIL')).length;
   rows.push({
     figure: `    ${failed === 0 ? 'every target met' : `${failed} target(s) not met`} in this run; node ${process.version}, load average ${loadavg()[0].toFixed(1)} on ${cpus().length} cores (shared machine: figures drift between runs), ${((performance.now() - started) / 1000).toFixed(0)} s`,
