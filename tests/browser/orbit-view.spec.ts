@@ -171,7 +171,7 @@ test("draws an eccentric orbit that is never shaded with the Sun where the answe
   await view.scrollIntoViewIfNeeded();
   await screenshot(page, 'orbit-view-eccentric-unshaded-1440-light');
   // the top bar's Workspace label lies wholly inside the bar (it was clipped at the top edge)
-  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.evaluate('window.scrollTo(0, 0)');
   const bar = await page.locator('.top-bar').boundingBox();
   const label = await page.locator('.workspace-switcher mat-label').boundingBox();
   expect(bar && label && label.y >= bar.y).toBe(true);
