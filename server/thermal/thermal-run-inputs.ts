@@ -7,6 +7,7 @@ import type { SavedThermalNode, ThermalModelContent, ThermalRunNodeInput } from 
 import type { LoadCaseRow } from '../db/schema';
 import { absorbedAtScale } from '../../shared/physics/thermal-distance-study';
 import { round } from '../../shared/physics/rounding';
+import { durationText } from '../../shared/physics/typed-units';
 import { heatLoadFactor } from '../../shared/physics/design-environment';
 import { unprocessable } from '../errors';
 
@@ -157,7 +158,7 @@ export function runInputs(model: ThermalModelContent, surfaceNames: ReadonlyMap<
     ...(model.substeps !== undefined ? { substeps: model.substeps } : {}),
   };
   const assumptions = [
-    `Loads from case "${loadCase.name}" (${loadCase.kind}, revision ${loadCase.revision}, ${loadCase.status}): each node absorbs the sum of its surfaces' absorbed loads, ${steps} samples over ${round(results.periodS, 1)} s.`,
+    `Loads from case "${loadCase.name}" (${loadCase.kind}, revision ${loadCase.revision}, ${loadCase.status}): each node absorbs the sum of its surfaces' absorbed loads, ${steps} samples over ${durationText(results.periodS)}.`,
     ...(results.weightS
       ? ['The case is sampled densely at periapsis; its loads are averaged over each of the solver\'s even time steps, so the periapsis pass keeps its energy but is spread over the step it falls in.']
       : []),

@@ -112,6 +112,9 @@ export const environmentResponse = z.object({
   apoapsisAltitudeKm: z.number(),
   betaDeg: z.number(),
   epochBetaDeg: z.number().nullable(),
+  sunDirection: z.object({ x: z.number(), y: z.number(), z: z.number() }).describe(
+    "the Sun's unit direction in the orbit's perifocal frame, held fixed over the orbit: x toward periapsis (the ascending node for a circular orbit, where tS counts from), y along the motion there, z along the orbit normal (z = sin beta)",
+  ),
   solarDistanceAu: z.number(),
   solarFluxWm2: z.number(),
   albedo: z.number(),

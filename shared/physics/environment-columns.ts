@@ -53,6 +53,8 @@ export interface EnvironmentColumns {
   betaDeg: number;
   /** The beta the epoch implies, before any override; null without an epoch. */
   epochBetaDeg: number | null;
+  /** The Sun's unit direction in the orbit's perifocal frame: x toward periapsis (the ascending node for a circular orbit, as tS counts), z along the orbit normal. */
+  sunDirection: { x: number; y: number; z: number };
   solarDistanceAu: number;
   solarFluxWm2: number;
   albedo: number;
@@ -178,6 +180,7 @@ export function computeEnvironmentColumns(request: EnvironmentRequest): Environm
     bodyId: body.id, orbit,
     betaDeg: betaFromVectorsRad(basis.w, sunDirection) / DEG,
     epochBetaDeg: epochBetaRad === null ? null : epochBetaRad / DEG,
+    sunDirection: { x: sun.sp, y: sun.sq, z: sun.sw },
     solarDistanceAu, solarFluxWm2: solarFlux, albedo, olrWm2: reportedOlrWm2(models, solarFlux, olrWm2), models, eclipse,
     sampling, grid, weightS: onE?.weightS ?? null, shade, loads,
     averages: onE ? weightedAverages(loads, onE.weightS, orbit.periodS) : averaged(loads.sums, steps),

@@ -23,6 +23,8 @@ export interface EnvironmentResult {
   betaDeg: number;
   /** The beta the epoch implies, before any override; null without an epoch. */
   epochBetaDeg: number | null;
+  /** The Sun's unit direction in the orbit's perifocal frame (x toward periapsis or, circular, the ascending node; z along the orbit normal). */
+  sunDirection: { x: number; y: number; z: number };
   solarDistanceAu: number;
   solarFluxWm2: number;
   albedo: number;
@@ -80,6 +82,7 @@ export function environmentHeader(c: EnvironmentColumns): Omit<EnvironmentResult
     apoapsisAltitudeKm: orbit.apoapsisAltitudeKm,
     betaDeg: c.betaDeg,
     epochBetaDeg: c.epochBetaDeg,
+    sunDirection: c.sunDirection,
     solarDistanceAu: c.solarDistanceAu,
     solarFluxWm2: c.solarFluxWm2,
     albedo: c.albedo,

@@ -133,6 +133,7 @@ describe('POST /environment/compute in its three forms', () => {
     expect(Number(meta.get('periodS'))).toBe(json.periodS);
     expect(Number(meta.get('eclipseFraction'))).toBe(json.eclipseFraction);
     expect(meta.get('bodyId')).toBe('earth');
+    expect(JSON.parse(meta.get('sunDirection') ?? 'null')).toEqual(json['sunDirection']);
     expect(JSON.parse(meta.get('orbitAverage') ?? 'null')).toEqual(json['orbitAverage']);
     expect(JSON.parse(meta.get('assumptions') ?? '[]')).toEqual(json['assumptions']);
   });

@@ -37,6 +37,29 @@ describe('GET /api/v1/bodies', () => {
 });
 
 describe('POST /api/v1/environment/compute', () => {
+  // The Sun's direction in the perifocal frame: closed form sin beta = s . h (h the orbit normal, z here),
+  // beta the Sun's angle above the orbit plane (Gilmore, "Spacecraft Thermal Control Handbook" vol. 1, ch. 2, from memory).
+  const sunOf = async (request: object) =>
+    (await viewer.post('/api/v1/environment/compute').send(request).expect(200)).body as { betaDeg: number; sunDirection: { x: number; y: number; z: number } };
+  it('gives the Sun as a unit vector in the orbit plane at beta = 0 and along +z / -z at beta = +90 / -90 deg (sin beta = s . h)', async () => {
+    for (const betaDeg of [0, 90, -90, 35]) {
+      const { sunDirection: s } = await sunOf({ ...leo, betaDeg });
+      expect(Math.hypot(s.x, s.y, s.z)).toBeCloseTo(1, 12);
+      expect(s.z).toBeCloseTo(Math.sin((betaDeg * Math.PI) / 180), 9);
+    }
+  });
+
+  it('gives the Sun of an eccentric orbit from its epoch, z = sin beta, and x, y turning with the argument of periapsis', async () => {
+    const eccentric = { ...leo, betaDeg: undefined, orbit: { periapsisAltitudeKm: 500, apoapsisAltitudeKm: 30000, inclinationDeg: 63.4, raanDeg: 40, argPeriapsisDeg: 0 } };
+    const a = await sunOf(eccentric);
+    const b = await sunOf({ ...eccentric, orbit: { ...eccentric.orbit, argPeriapsisDeg: 90 } });
+    expect(a.sunDirection.z).toBeCloseTo(Math.sin((a.betaDeg * Math.PI) / 180), 9);
+    // turning the periapsis 90 deg along the motion turns the Sun's in-plane angle from it by -90 deg (rotation of the frame, from memory)
+    expect(b.sunDirection.x).toBeCloseTo(a.sunDirection.y, 9);
+    expect(b.sunDirection.y).toBeCloseTo(-a.sunDirection.x, 9);
+    expect(b.sunDirection.z).toBeCloseTo(a.sunDirection.z, 9);
+  });
+
   it("answers API.md's example with Kepler's period and the absorbed-load formula", async () => {
     const res = await viewer.post('/api/v1/environment/compute').send(leo).expect(200);
     // Kepler's third law with GM = 398600.4418 km^3/s^2, a = 6928.137 km: 5739 s (API.md's example shape)

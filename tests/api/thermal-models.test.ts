@@ -157,6 +157,11 @@ describe('runs against a load case', () => {
     expect(heater.atMinVoltage.powerW).toBeCloseTo(12 * (24 / 28) ** 2, 3);
     expect(heater.atMinVoltage.dutyCycle).toBeGreaterThanOrEqual(heater.atMaxVoltage.dutyCycle);
     expect(run.body.case.kind).toBe('cold');
+    // the case's orbit period said in the unit that reads best (a ~95 min low orbit in minutes, not "5726.6 s")
+    const texts: string[] = [];
+    JSON.stringify(run.body, (_k, v: unknown) => (typeof v === 'string' && texts.push(v), v));
+    const loadsLine = texts.find((x) => x.startsWith('Loads from case')) ?? '';
+    expect(loadsLine).toMatch(/samples over \d+\.\d\d min\.$/);
     expect(run.body.inputs[1].dissipation).toMatch(/^30 W for 1800 s every 5700 s, 18 W otherwise$/);
     const kept = await viewer.get(`/api/v1/thermal-models/${demoModelId}/runs/${coldCaseId}`).expect(200);
     expect(kept.body.result.nodes[0].minC).toBe(nodes[0]!.minC);

@@ -139,3 +139,41 @@ test('without surfaces the environment shows the six body-frame faces and a Sun-
   await page.getByTestId('result-faces-table').scrollIntoViewIfNeeded();
   await screenshot(page, 'environment-default-faces-390-dark');
 });
+
+test("draws an eccentric orbit that is never shaded with the Sun where the answer's sunDirection puts it", async ({ page }) => {
+  await page.setViewportSize({ width: 1440, height: 900 });
+  await signIn(page, 'thermal@kestrel.test');
+  const me = await api(page).get('/auth/me');
+  const workspaceId = (me['workspaces'] as { workspaceId: string }[])[0].workspaceId;
+  const mission = await api(page).send('post', '/missions', { workspaceId, name: `High ellipse ${Date.now()}`, bodyId: 'earth', startDate: '2027-06-01', endDate: '2027-06-30' });
+  // Solstice Sun (RA 90°, dec 23.4°) on a polar orbit with its node at RA 0: beta = asin(−cos 23.4°) ≈ −66.5°,
+  // so the shadow reaches R / |sin β| ≈ 6,950 km behind Earth, short of the 7,378 km periapsis radius: never shaded (closed form, cylindrical shadow).
+  const orbit = await api(page).send('post', `/missions/${String(mission['id'])}/orbits`, {
+    name: 'High ellipse', periapsisAltitudeKm: '1000 km', apoapsisAltitudeKm: '40000 km', inclinationDeg: '90 deg', raanDeg: '0 deg', argPeriapsisDeg: '45 deg', epoch: '2027-06-21T12:00:00Z',
+  });
+  const answer = await api(page).send('post', `/missions/${String(mission['id'])}/orbits/${String(orbit['id'])}/environment`, {});
+  const sun = answer['sunDirection'] as { x: number; y: number; z: number };
+  expect(answer['eclipseFraction']).toBe(0);
+  await page.goto(`/w/${workspaceId}/missions/${String(mission['id'])}`);
+  await page.getByRole('tab', { name: 'Environment' }).click();
+  const view = page.getByTestId('orbit-view');
+  await expect(view).toBeVisible();
+  await expect(view.locator('path.arc-band')).toHaveCount(0);
+  // the Sun is drawn to the left: periapsis, at angle −az from the Sun's in-plane direction, is turned to 180° − az on screen (y down)
+  const az = Math.atan2(sun.y, sun.x);
+  const centre = view.locator('circle.body');
+  const marker = view.locator('g.periapsis rect');
+  const [cx, cy] = [Number(await centre.getAttribute('cx')), Number(await centre.getAttribute('cy'))];
+  const [px, py] = [Number(await marker.getAttribute('x')) + 4, Number(await marker.getAttribute('y')) + 4];
+  const drawn = Math.atan2(-(py - cy), px - cx);
+  const expected = Math.PI - az;
+  expect(Math.abs(Math.atan2(Math.sin(drawn - expected), Math.cos(drawn - expected)))).toBeLessThan(0.02);
+  await view.scrollIntoViewIfNeeded();
+  await screenshot(page, 'orbit-view-eccentric-unshaded-1440-light');
+  // the top bar's Workspace label lies wholly inside the bar (it was clipped at the top edge)
+  await page.evaluate('window.scrollTo(0, 0)');
+  const bar = await page.locator('.top-bar').boundingBox();
+  const label = await page.locator('.workspace-switcher mat-label').boundingBox();
+  expect(bar && label && label.y >= bar.y).toBe(true);
+  await page.screenshot({ path: 'tmp/screenshots/top-bar-workspace-1440-light.png', clip: { x: 1000, y: 0, width: 440, height: 70 } });
+});

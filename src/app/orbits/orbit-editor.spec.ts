@@ -28,7 +28,7 @@ const earth: BodySummaryResponse = {
 function answer(overrides: Partial<EnvironmentResponse>): EnvironmentResponse {
   return {
     bodyId: 'earth', periodS: 5739, semiMajorAxisKm: 6928.137, eccentricity: 0, periapsisAltitudeKm: 550,
-    apoapsisAltitudeKm: 550, betaDeg: 21.4, epochBetaDeg: 21.4, solarDistanceAu: 0.996, solarFluxWm2: 1375,
+    apoapsisAltitudeKm: 550, betaDeg: 21.4, epochBetaDeg: 21.4, sunDirection: { x: 0.9311, y: 0, z: 0.3649 }, solarDistanceAu: 0.996, solarFluxWm2: 1375,
     albedo: 0.3, olrWm2: 237, eclipseFraction: 0.372, eclipseDurationS: 2136, umbraDurationS: 2120,
     penumbraDurationS: 16, nodalRateDegPerDay: 0, albedoModel: 'subsolar-cosine', irModel: 'uniform', sampling: 'time', surfaceField: null,
     parentBodyId: null, parentShadowDurationS: 0, warnings: [], profile: [], sampleWeightsS: null, orbitAverage: { surfaces: [] }, peak: { surfaces: [] },

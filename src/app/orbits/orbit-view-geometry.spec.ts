@@ -1,5 +1,5 @@
 import type { EnvironmentResponse } from '../../../shared/api/environment';
-import { inShadow, orbitPoint, shadedArcs, shadowOutline, sunAzimuth } from './orbit-view-geometry';
+import { inShadow, orbitPoint, shadedArcs, shadowOutline, sunAzimuthDeg } from './orbit-view-geometry';
 
 type Sample = EnvironmentResponse['profile'][number];
 const sample = (trueAnomalyDeg: number, sunlit: number, parentSunlit?: number): Sample => ({
@@ -29,8 +29,8 @@ describe('orbit view geometry', () => {
     // Circular orbit, eclipse half-angle asin(R/r) ≈ 68° about ν = 180° (Sun at ν = 0).
     const half = (Math.asin(R / A) * 180) / Math.PI;
     const profile = Array.from({ length: 72 }, (_, k) => k * 5).map((nu) => sample(nu, Math.abs(nu - 180) < half ? 0 : 1));
-    const sun = sunAzimuth(profile);
-    expect(sun.fromShadow).toBe(true);
+    // the Sun along +x of the perifocal frame, in the orbit plane (beta 0)
+    const sun = { deg: sunAzimuthDeg({ x: 1, y: 0, z: 0 }) };
     expect(sun.deg).toBeCloseTo(0, 6);
     for (const p of profile.filter((s) => s.sunlit === 0)) {
       const point = orbitPoint(A, 0, p.trueAnomalyDeg);
@@ -41,13 +41,15 @@ describe('orbit view geometry', () => {
     expect(inShadow(orbitPoint(A, 0, 0), R, 0, sun.deg)).toBe(false);
   });
 
-  it('finds the Sun opposite a shadow centred anywhere along the orbit', () => {
-    const profile = Array.from({ length: 36 }, (_, k) => k * 10).map((nu) => sample(nu, Math.abs(nu - 60) <= 30 ? 0 : 1));
-    expect(sunAzimuth(profile).deg).toBeCloseTo(240, 6);
-    // no shadow: the given fallback, flagged as not read from the shadow
-    expect(sunAzimuth(profile.map((p) => ({ ...p, sunlit: 1 })), -30)).toEqual({ deg: 330, fromShadow: false });
-    // a planet's shadow (a moon orbiter) says nothing of the Sun's place along the orbit
-    expect(sunAzimuth(profile.map((p) => ({ ...p, parentSunlit: p.sunlit })), 45)).toEqual({ deg: 45, fromShadow: false });
+  it("reads the Sun's angle along the orbit from its direction in the perifocal frame, whatever the beta (atan2 of the in-plane part)", () => {
+    const b = (40 * Math.PI) / 180;
+    const at = (nuDeg: number) => {
+      const nu = (nuDeg * Math.PI) / 180;
+      return { x: Math.cos(b) * Math.cos(nu), y: Math.cos(b) * Math.sin(nu), z: Math.sin(b) };
+    };
+    expect(sunAzimuthDeg(at(240))).toBeCloseTo(240, 9);
+    expect(sunAzimuthDeg(at(-30))).toBeCloseTo(330, 9);
+    expect(sunAzimuthDeg(at(90))).toBeCloseTo(90, 9);
   });
 
   it('the shadow in the orbit plane reaches R / sin β behind the body, and is a strip of width 2R at β = 0 (closed form)', () => {

@@ -27,34 +27,13 @@ export function orbitOutline(semiMajorAxisKm: number, eccentricity: number, step
   return Array.from({ length: steps }, (_, k) => orbitPoint(semiMajorAxisKm, eccentricity, (360 * k) / steps));
 }
 
-export interface SunAzimuth {
-  /** The Sun's direction projected on the orbit plane, as an angle from periapsis (deg, along the motion). */
-  deg: number;
-  /** True when read from the shadow on this orbit; false when no sample is shaded and it is a guess. */
-  fromShadow: boolean;
-}
-
 /**
- * Where the Sun lies along the orbit: opposite the middle of the shadow arc (exact on a circular
- * orbit, where the shadow is symmetric about the anti-Sun line; close on an eccentric one). Without
- * any sample in the body's own shadow (a planet's shadow says nothing of it) the answer does not fix it; `fallbackDeg` (e.g. the ascending node, where the
- * computation puts the Sun when it has only a beta) is used.
+ * The Sun's direction projected on the orbit plane, as an angle from periapsis along the motion
+ * (deg): read from the answer's sunDirection (perifocal frame, x toward periapsis or, circular,
+ * the ascending node, where trueAnomalyDeg counts from), so exact for every orbit, shaded or not.
  */
-export function sunAzimuth(profile: Profile, fallbackDeg = 0): SunAzimuth {
-  // only the body's own shadow tells where the Sun is; a planet's shadow falls wherever the moon is
-  const shaded = profile.filter((p) => p.sunlit < 1 && (p.parentSunlit ?? 1) >= 1);
-  if (shaded.length === 0 || shaded.length === profile.length) return { deg: wrapDeg(fallbackDeg), fromShadow: false };
-  // circular mean of the shaded directions, weighted by how much of the Sun is hidden
-  let sx = 0;
-  let sy = 0;
-  for (const p of shaded) {
-    const w = 1 - p.sunlit;
-    sx += w * Math.cos(rad(p.trueAnomalyDeg));
-    sy += w * Math.sin(rad(p.trueAnomalyDeg));
-  }
-  return { deg: wrapDeg(deg(Math.atan2(sy, sx)) + 180), fromShadow: true };
-}
-
+export const sunAzimuthDeg = (sunDirection: EnvironmentResponse['sunDirection']): number =>
+  wrapDeg(deg(Math.atan2(sunDirection.y, sunDirection.x)));
 
 /**
  * The body's shadow where it crosses the orbit plane (cylindrical, Sun at infinity), as a polygon in

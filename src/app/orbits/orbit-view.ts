@@ -10,7 +10,7 @@ import {
   sampleKind,
   shadedArcs,
   shadowOutline,
-  sunAzimuth,
+  sunAzimuthDeg,
   type PlanePoint,
 } from './orbit-view-geometry';
 
@@ -30,20 +30,19 @@ export class OrbitView {
   readonly bodyRadiusKm = input.required<number>();
   /** The planet a moon orbits, in words ("Jupiter"), or '' about a planet. */
   readonly parentName = input('');
-  /** Where the Sun is put along the orbit when the answer has no shadow to read it from (deg from periapsis). */
-  readonly fallbackSunDeg = input(0);
   /** The profile sample shown; two-way, so the load plots' cursor can follow and lead it. */
   readonly index = model(0);
 
   protected readonly size = SIZE;
 
-  protected readonly sun = computed(() => sunAzimuth(this.answer().profile, this.fallbackSunDeg()));
+  /** The Sun's angle along the orbit from periapsis (deg), from the answer's Sun direction. */
+  protected readonly sunDeg = computed(() => sunAzimuthDeg(this.answer().sunDirection));
 
   /** km → px: the Sun's direction turned to the left, y up, the ellipse and disk fitted into the frame. */
   private readonly frame = computed(() => {
     const { semiMajorAxisKm: a, eccentricity: e } = this.answer();
     const R = this.bodyRadiusKm();
-    const turn = ((180 - this.sun().deg) * Math.PI) / 180;
+    const turn = ((180 - this.sunDeg()) * Math.PI) / 180;
     const [c, s] = [Math.cos(turn), Math.sin(turn)];
     const outline = orbitOutline(a, e, 90);
     const turned = (p: PlanePoint): PlanePoint => ({ x: p.x * c - p.y * s, y: p.x * s + p.y * c });
@@ -69,7 +68,7 @@ export class OrbitView {
       centre,
       radiusPx: R * scale,
       orbit: pathThrough(orbitOutline(a.semiMajorAxisKm, a.eccentricity).map(toPx), true),
-      shadow: pathThrough(shadowOutline(R, a.betaDeg, this.sun().deg, reachKm).map(toPx), true),
+      shadow: pathThrough(shadowOutline(R, a.betaDeg, this.sunDeg(), reachKm).map(toPx), true),
       arcs: shadedArcs(a.profile, a.semiMajorAxisKm, a.eccentricity).map((arc) => ({ kind: arc.kind, d: pathThrough(arc.points.map(toPx)) })),
       periapsis,
       // the label stands outside the orbit, on the far side from the body, kept inside the frame

@@ -31,4 +31,15 @@ describe('DifferenceBarPlot', () => {
     expect(cells).toEqual([['Radiator', '−3.4', '+12'], ['Antenna', 'only in one case', 'only in one case']]);
     expect(el.querySelectorAll('rect')).toHaveLength(2);
   });
+
+  it('says "no difference" instead of drawing an empty axis when every difference is 0 (common practice, no source)', async () => {
+    const el = await render([{ label: 'Radiator', values: [0, 0] }, { label: 'Antenna', values: [null, 0] }]);
+    expect(el.querySelector('svg')).toBeNull();
+    expect(el.querySelector('[data-testid="no-difference"]')?.textContent).toMatch(/No difference/);
+    // the table still reads each value
+    expect(el.querySelectorAll('tbody tr')).toHaveLength(2);
+    const changed = await render([{ label: 'Radiator', values: [0, 0.5] }]);
+    expect(changed.querySelector('[data-testid="no-difference"]')).toBeNull();
+    expect(changed.querySelector('svg')).not.toBeNull();
+  });
 });

@@ -31,6 +31,9 @@ const AXIS_PX = 42;
   changeDetection: ChangeDetectionStrategy.OnPush,
   styleUrls: ['./plot-axis.css', './plot-table.css'],
   template: `
+    @if (noDifference()) {
+      <p class="no-difference ecl-muted" data-testid="no-difference">No difference: every value is the same in both cases.</p>
+    } @else {
     <div class="legend" aria-hidden="true">
       @for (s of series(); track s.name) {
         <span><i [style.background]="color(s.color)"></i>{{ s.name }}</span>
@@ -48,6 +51,7 @@ const AXIS_PX = 42;
         <g eclPlotXAxis [attr.transform]="'translate(0,' + layout().plotHeight + ')'" [ticks]="layout().ticks" [width]="layout().plotWidth" [title]="axisLabel()" />
       </g>
     </svg>
+    }
     <table class="ecl-plot-table ecl-visually-hidden">
       <caption>{{ caption() }}</caption>
       <thead>
@@ -92,6 +96,10 @@ const AXIS_PX = 42;
       margin-right: 6px;
       vertical-align: -1px;
     }
+    .no-difference {
+      margin: 4px 0;
+      font: var(--mat-sys-body-medium);
+    }
     .row-label {
       fill: var(--mat-sys-on-surface, #1a1b21);
       font-size: 12px;
@@ -117,6 +125,12 @@ export class DifferenceBarPlot {
   /** Narrow screens give the labels less room. */
   protected readonly labelPx = computed(() => Math.min(LABEL_PX, Math.round(this.width() * 0.3)));
   protected readonly axisLabel = computed(() => axisTitle(this.axisName(), this.unit()));
+
+  /** Every value present is 0: an axis around nothing says less than the words. */
+  protected readonly noDifference = computed(() => {
+    const values = this.rows().flatMap((r) => r.values.filter((v): v is number => v !== null));
+    return values.length > 0 && values.every((v) => v === 0);
+  });
 
   protected readonly layout = computed(() => {
     const series = this.series();
