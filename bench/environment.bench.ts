@@ -100,29 +100,12 @@ export const pointedCases: [string, MissionSweepRequest][] = [
 const SWEEP_BEFORE_MS = 109.2;
 
 /**
- * Median and best CPU time (user + system of this process, ms) of `repeats` runs after `warmUp` runs:
- * on the shared development machine (load averages of 10 to 20 on 2 cores) a ratio of wall-clock
- * times swings by 3x between neighbouring runs, the CPU time far less.
+ * Median and best wall-clock time of `repeats` runs after `warmUp` runs, and the median and best of
+ * the process's CPU time (user + system, ms) per run: on the shared development machine (load
+ * averages of 10 to 20 on 2 cores) a ratio of wall-clock times swings by 3x between neighbouring
+ * runs, the CPU time far less.
  */
-export function cpuRuns(run: () => unknown, warmUp: number, repeats: number): { median: number; best: number } {
-  for (let i = 0; i < warmUp; i++) run();
-  const times: number[] = [];
-  for (let i = 0; i < repeats; i++) {
-    const started = process.cpuUsage();
-    run();
-    const used = process.cpuUsage(started);
-    times.push((used.user + used.system) / 1000);
-  }
-  times.sort((x, y) => x - y);
-  return { median: times[Math.floor(times.length / 2)], best: times[0] };
-}
-
-/**
- * Median and best wall-clock time of `repeats` runs after `warmUp` runs, and the median of the
- * process's CPU time (user + system) per run: on a shared machine other processes stretch the wall
- * clock far more than this process's own CPU time.
- */
-function timeRuns(run: () => unknown, warmUp: number, repeats: number): { median: number; best: number; cpuMedian: number } {
+export function timeRuns(run: () => unknown, warmUp: number, repeats: number): { median: number; best: number; cpuMedian: number; cpuBest: number } {
   for (let i = 0; i < warmUp; i++) run();
   const times: number[] = [];
   const cpu: number[] = [];
@@ -135,7 +118,7 @@ function timeRuns(run: () => unknown, warmUp: number, repeats: number): { median
     cpu.push((used.user + used.system) / 1000);
   }
   const median = (values: number[]) => [...values].sort((x, y) => x - y)[Math.floor(values.length / 2)];
-  return { median: median(times), best: Math.min(...times), cpuMedian: median(cpu) };
+  return { median: median(times), best: Math.min(...times), cpuMedian: median(cpu), cpuBest: Math.min(...cpu) };
 }
 
 function orbitJob(input: OrbitInput) {
@@ -217,12 +200,12 @@ export default async function environmentBench(): Promise<BenchRow[]> {
   });
   // (b) again right beside each pointed sweep, so both see the same machine load
   const pointedRows = pointedCases.map(([name, request]): BenchRow => {
-    const fixed = cpuRuns(() => sweepMission(caseB), 1, repeats);
-    const pointed = cpuRuns(() => sweepMission(request), 1, repeats);
+    const fixed = timeRuns(() => sweepMission(caseB), 1, repeats);
+    const pointed = timeRuns(() => sweepMission(request), 1, repeats);
     return {
-      case: `${name} (CPU ms)`, 'eclipta ms': pointed.median, 'eclipta best ms': pointed.best,
-      'largest difference': `${(pointed.median / fixed.median).toFixed(2)}x the CPU time of (b) with fixed normals timed beside it (${fixed.median.toFixed(1)} ms)`,
-      'within 1.5x (b)': pointed.median <= 1.5 * fixed.median ? 'yes' : 'NO',
+      case: `${name} (CPU ms)`, 'eclipta ms': pointed.cpuMedian, 'eclipta best ms': pointed.cpuBest,
+      'largest difference': `${(pointed.cpuMedian / fixed.cpuMedian).toFixed(2)}x the CPU time of (b) with fixed normals timed beside it (${fixed.cpuMedian.toFixed(1)} ms)`,
+      'within 1.5x (b)': pointed.cpuMedian <= 1.5 * fixed.cpuMedian ? 'yes' : 'NO',
     };
   });
   const rowC = moonRow('(c) 10 years about Europa, as (b), with Jupiter\'s shadow', timeC);

@@ -5,7 +5,7 @@
 // ingest, three rounds of autocannon per route and SciPy's solve are most of it.
 import { cpus, loadavg } from 'node:os';
 import { measureAuth, type AuthFigure } from './auth.bench';
-import { caseB, caseC, caseD, cpuRuns, pointedCases } from './environment.bench';
+import { caseB, caseC, caseD, pointedCases, timeRuns } from './environment.bench';
 import { sweepMission } from '../shared/physics/mission-sweep';
 import type { BenchRow } from './bench-table';
 import { measureThermal, type ThermalFigures } from './thermal.bench';
@@ -115,11 +115,11 @@ function sweepRows(repeats = 5): BenchRow[] {
     ...(phased ? [['ten-year sweep in five phases and two attitude modes (one spinning)', phased[1], 1.5] as [string, typeof caseB, number]] : []),
   ];
   return cases.map(([label, request, limit]) => {
-    const anchor = cpuRuns(() => sweepMission(caseB), 1, repeats);
-    const measured = cpuRuns(() => sweepMission(request), 1, repeats);
-    const ratio = measured.median / anchor.median;
+    const anchor = timeRuns(() => sweepMission(caseB), 1, repeats);
+    const measured = timeRuns(() => sweepMission(request), 1, repeats);
+    const ratio = measured.cpuMedian / anchor.cpuMedian;
     return {
-      figure: `${label} (CPU)`, eclipta: ms(measured.median), 'anchor (this run)': `Earth sweep, fixed normals, no planet's shadow ${ms(anchor.median)}`,
+      figure: `${label} (CPU)`, eclipta: ms(measured.cpuMedian), 'anchor (this run)': `Earth sweep, fixed normals, no planet's shadow ${ms(anchor.cpuMedian)}`,
       ratio: `${ratio.toFixed(2)}x`, target: `< ${limit}x`, result: verdict(ratio < limit),
     };
   });
