@@ -146,9 +146,10 @@ describe('pointing: checks against closed forms', () => {
         directionAt(pointingPlan({ yawSteered: { normal: { x: v[0], y: v[1], z: v[2] } } }).direction, sun[0], sun[1], sun[2], 0, 0, 0, n);
         return [n[0], n[1], n[2]];
       };
-      expect(dot(at([0, -1, 0]), sun)).toBeLessThanOrEqual(1e-12);
-      expect(dot(at([1, 0, 0]), sun)).toBeCloseTo(0, 12);
-      expect(dot(at([0, 1, 0]), sun)).toBeCloseTo(Math.hypot(sun[0], sun[1]), 12);
+      // 1e-9: with the Sun within 1e-12 of the nadir axis the yaw angle is set by rounding noise
+      expect(dot(at([0, -1, 0]), sun)).toBeLessThanOrEqual(1e-9);
+      expect(dot(at([1, 0, 0]), sun)).toBeCloseTo(0, 9);
+      expect(dot(at([0, 1, 0]), sun)).toBeCloseTo(Math.hypot(sun[0], sun[1]), 9);
       const turned = at(face);
       expect(norm(turned)).toBeCloseTo(1, 12);
       expect(turned[2]).toBeCloseTo(face[2], 12);
