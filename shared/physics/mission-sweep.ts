@@ -61,6 +61,11 @@ export interface MissionSweepRequest extends CapModelRequest {
    * share one surfaces list (phases in one mode) share its preparation.
    */
   attitudeSpans?: readonly AttitudeSpan[] | undefined;
+  /**
+   * The moving plates' view-factor tables (pointing.ts viewFactorTables), kept by the caller across
+   * calls that sweep one orbit a chunk of days at a time, so each is made once; made afresh without it.
+   */
+  viewFactorTables?: Map<string, ViewFactorTable> | undefined;
 }
 
 export interface AttitudeSpan {
@@ -158,7 +163,7 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   const pointings = new Map<readonly Surface[], Pointing>();
   // a circular orbit's one radius: moving plates read their view factor from tables shared across the lists
   const r0 = grid.radiusKm[0];
-  const tables = grid.radiusKm.every((r) => r === r0) ? viewFactorTables(r0, body.radiusKm) : null;
+  const tables = grid.radiusKm.every((r) => r === r0) ? viewFactorTables(r0, body.radiusKm, request.viewFactorTables) : null;
   const spans = request.attitudeSpans ?? [];
   const pointingAt = (ms: number): { index: number; set: Pointing } => {
     const index = spans.findIndex((span) => ms >= span.fromMs && ms < span.toMs);

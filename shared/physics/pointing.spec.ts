@@ -251,6 +251,19 @@ describe('pointing: the sweep and the table agree with the compute route', () =>
     }
   });
 
+  it('view-factor tables kept across the chunks of a sweep (as the route computes it) give the rows of chunks made with fresh tables, for other orbits and cone angles too (consistency)', () => {
+    const surfaces: Surface[] = [plate('band', { spin: { axis: 'sun', angleDeg: 90 } }), plate('cone', { spin: { axis: 'sun', angleDeg: 30 } }), plate('inertial', { inertial: { raDeg: 10, decDeg: 20 } })];
+    const kept = new Map();
+    for (const altitudeKm of [550, 1200]) {
+      const request = { bodyId: 'earth', orbit: { ...LEO, periapsisAltitudeKm: altitudeKm, apoapsisAltitudeKm: altitudeKm }, orbitEpoch: '2027-02-01T12:00:00Z', days: 2, steps: 72, surfaces };
+      for (const epochStart of ['2027-02-01T12:00:00Z', '2027-02-04T12:00:00Z']) {
+        expect(sweepMission({ ...request, epochStart, viewFactorTables: kept }).rows).toEqual(sweepMission({ ...request, epochStart }).rows);
+      }
+    }
+    // one table per radius and cone angle (and one for the plate that does not spin)
+    expect(kept.size).toBe(6);
+  });
+
   it("each sweep row's orbit averages equal the compute route's for every pointing form, inertial ones turned with the drifting node (consistency)", () => {
     const surfaces: Surface[] = [
       plate('inertial', { inertial: { raDeg: 120, decDeg: 20 } }),

@@ -353,14 +353,14 @@ export function viewFactorTable(plan: PointingPlan, rKm: number, bodyRadiusKm: n
 /**
  * viewFactorTable at one radius for any number of plans, made once per cone angle: the table depends
  * on a plan's spin alone (u is its argument), so plates that spin alike share one and every plate that
- * does not spin shares one.
+ * does not spin shares one. `kept` holds the tables across calls (keyed by radius too), e.g. across
+ * the chunks of days one sweep is computed in.
  */
-export function viewFactorTables(rKm: number, bodyRadiusKm: number): (plan: PointingPlan) => ViewFactorTable {
-  const tables = new Map<string, ViewFactorTable>();
+export function viewFactorTables(rKm: number, bodyRadiusKm: number, kept = new Map<string, ViewFactorTable>()): (plan: PointingPlan) => ViewFactorTable {
   return (plan) => {
-    const key = plan.spin ? `${plan.spin.cos} ${plan.spin.sin}` : 'no spin';
-    let table = tables.get(key);
-    if (table === undefined) tables.set(key, (table = viewFactorTable(plan, rKm, bodyRadiusKm)));
+    const key = `${rKm} ${bodyRadiusKm} ${plan.spin ? `${plan.spin.cos} ${plan.spin.sin}` : 'no spin'}`;
+    let table = kept.get(key);
+    if (table === undefined) kept.set(key, (table = viewFactorTable(plan, rKm, bodyRadiusKm)));
     return table;
   };
 }
