@@ -5,9 +5,9 @@
 // computed (`orientPlan`: an inertial direction into the frame the caller's samples use), and at each
 // sample gives its instantaneous local normal (`directionsAt`, the one rule every path uses: the
 // compute route, the mission sweep, the trajectory and the case derivation through the compute
-// route). From that normal the loads need two factors (`sunCosine` and `pointingViewFactor`, `pointingColumns` over an orbit): the positive
-// part of the Sun's cosine on the plate and its view factor to the body (view-factors.ts, the
-// Howell closed form). A spinner's factors are averaged over a turn: the Sun's cosine in closed form
+// route). From that normal the loads need two factors (`sunCosine` and `pointingViewFactor`;
+// `pointingColumns` over an orbit): the positive part of the Sun's cosine on the plate and its view
+// factor to the body (view-factors.ts, the Howell closed form). A spinner's factors are averaged over a turn: the Sun's cosine in closed form
 // (the mean of max(0, a cos phi + b), elementary), the view factor in closed form over the arcs of
 // the turn that see all or none of the body and by Gauss-Legendre quadrature over the arc between
 // (spinViewFactor), and the cap quadrature of cap-radiance.ts with each ray's weight averaged over
@@ -33,7 +33,8 @@
 // nutation and any spin-rate effect beyond the average over a turn.
 // Sources: Howell catalogue (plate-to-sphere view factor, view-factors.ts); the spin average of
 // max(0, cos) and of the view factor's fully visible part c / h^2 are elementary calculus (closed
-// form); Gauss-Legendre quadrature (Press et al., Numerical Recipes sect. 4.5); the frames as in orbit-position.ts (Vallado ch. 2).
+// form); Gauss-Legendre quadrature (Press et al., Numerical Recipes sect. 4.5); the frames as in
+// orbit-position.ts (Vallado ch. 2).
 import { gaussLegendre01, meanPositiveCosine } from './cap-radiance';
 import { J2000_JD } from './constants';
 import { localNormal, type LocalVector, type NamedNormal } from './heat-loads';
@@ -282,16 +283,17 @@ const PARTIAL = gaussLegendre01(SPIN_PARTIAL_NODES);
 /**
  * The view factor to the body of a plate on a spinner, averaged over a turn: the plate's normal is
  * at cone angle (cos, sin) from the axis, the axis tilted from nadir by the angle of cosine `u`.
- * Over the turn the normal's cosine with nadir is c(phi) = a + b cos(phi), a = cos * u, b = sin * sqrt(1 - u^2),
- * and the mean is (1/pi) times the integral over phi in [0, pi] of F(c(phi)), F the Howell form of
+ * Over the turn the normal's cosine with nadir is c(phi) = a + b cos(phi), a = cos * u,
+ * b = sin * sqrt(1 - u^2), and the mean is (1/pi) times the integral over phi in [0, pi] of F(c(phi)), F the Howell form of
  * view-factors.ts. F is c / h^2 where the plate sees the whole body (c >= 1/h) and 0 where it sees none
  * (c <= -1/h): on those arcs, cut off at the phases where c(phi) crosses +-1/h, the integral is
  * elementary; on the arc between, where F is the partly-visible form, SPIN_PARTIAL_NODES-point
  * Gauss-Legendre. F's departure from those two forms grows as the 5/2 power of the distance from the
- * crossings (seen numerically in the Howell form), so the quadrature meets no kink: within 2e-7 of the nadir plate's factor 1/h^2 of a
- * brute-force average over 20,000 phases of the turn for every radius, tilt and cone angle
- * (pointing.spec.ts; 5e-8 the worst seen, near the body's surface), where the midpoint rule over 64
- * evenly spaced phases, used before, was off by up to 7e-6.
+ * crossings (seen numerically in the Howell form), so the quadrature meets no kink: within 2e-7 of
+ * the nadir plate's factor 1/h^2 of a brute-force average over 20,000 phases of the turn for every
+ * radius, tilt and cone angle (pointing.spec.ts; 5e-8 the worst seen, near the body's surface),
+ * where the midpoint rule over 64 evenly spaced phases, used before, was off by up to 7e-6 at about
+ * four times the cost.
  */
 export function spinViewFactor(rKm: number, bodyRadiusKm: number, u: number, cos: number, sin: number): number {
   const h = rKm / bodyRadiusKm;
@@ -356,7 +358,9 @@ export function viewFactorTable(plan: PointingPlan, rKm: number, bodyRadiusKm: n
  * does not spin shares one. `kept` holds the tables across calls (keyed by radius too), e.g. across
  * the chunks of days one sweep is computed in.
  */
-export function viewFactorTables(rKm: number, bodyRadiusKm: number, kept = new Map<string, ViewFactorTable>()): (plan: PointingPlan) => ViewFactorTable {
+export function viewFactorTables(
+  rKm: number, bodyRadiusKm: number, kept = new Map<string, ViewFactorTable>(),
+): (plan: PointingPlan) => ViewFactorTable {
   return (plan) => {
     const key = `${rKm} ${bodyRadiusKm} ${plan.spin ? `${plan.spin.cos} ${plan.spin.sin}` : 'no spin'}`;
     let table = kept.get(key);
@@ -398,9 +402,9 @@ export function pointingColumnsFor(steps: number): PointingColumns {
  * frame), with the Sun of `shade` and `sunW`. The view factor comes from `table` where given (one
  * radius), else the direct form at each sample's radius. Given the sunlit shares, `out.sums` receives
  * the orbit sums of sunlit x the Sun's factor, of F x max(0, cos subsolar) and of F (the sweep's).
- * The sweep calls this for every moving plate on every date (millions of samples), so each sample is
- * read and written as few times as the rule allows: the view factor pass and the factor-and-sums
- * pass each have one loop per case instead of a test per sample.
+ * The sweep calls this for every moving plate on every date (millions of samples), so the passes
+ * over the samples are few and plain: the view factor has one loop per case (one value, a table, the
+ * direct form), and an inertial direction's local components go straight into the normal's columns.
  */
 export function pointingColumns(
   plan: PointingPlan, grid: OrbitGrid, shade: GridShade, sunW: number, bodyRadiusKm: number,
