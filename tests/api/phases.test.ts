@@ -197,6 +197,75 @@ describe('derivation per phase', () => {
   });
 });
 
+describe('derivation per phase: dissipation counts with the environment', () => {
+  // DOMAIN.md "Cases": hot = the hot environment with maximum dissipation, cold = the cold one with the
+  // minimum; the phases are compared by the heat each puts into the spacecraft (orbit-average absorbed
+  // load + the orbit-average dissipation of the nodes it names).
+  type Compared = { name: string; orbitAverageAbsorbedW: number; dissipationW?: number };
+  type Figures = Detail & { inputs: { decision?: { phase?: { name: string; by?: string; compared: Compared[] } } }; results: Results & { periodS: number; surfaces: { emissivity: number }[] } };
+
+  it('the phase of modest environment and high dissipation drives the hot case, the other the cold case (closed forms: a Sun-pointed plate alpha S (1 - eclipse fraction) plus the limb it sees, a zenith plate alpha S cos(beta) / pi, Gilmore Vol. I ch. 2 / from memory; a schedule\'s mean offW + (onW - offW) onS / period)', async () => {
+    const { missionId, orbitId, surfaceId } = await missionWithRadiator('Dissipation in the choice', '2028-03-10', '2028-04-20');
+    const periodS = (await as.thermal.get(`/api/v1/missions/${missionId}/orbits/${orbitId}`).expect(200)).body.periodS as number;
+    const zenith = (await as.thermal.post(`/api/v1/missions/${missionId}/attitude-modes`).send({ name: 'radiator to zenith' }).expect(201)).body.id as string;
+    const sun = (await as.thermal.post(`/api/v1/missions/${missionId}/attitude-modes`).send({ name: 'radiator to the Sun', pointing: [{ surfaceId, normal: 'sun' }] }).expect(201)).body.id as string;
+    // Imaging: 300 W of payload and a unit at 200 W a quarter of each half-orbit cycle, 40 W otherwise: 300 + 40 + 160 / 4 = 380 W
+    const imaging = (await as.thermal.post(`/api/v1/missions/${missionId}/phases`).send({
+      name: 'Imaging', startDate: '2028-03-10', endDate: '2028-03-31', modeId: zenith,
+      dissipation: [{ node: 'payload', dissipationW: 300 }, { node: 'unit', dissipationW: { onW: 200, offW: 40, periodS: periodS / 2, onS: periodS / 8 } }],
+    }).expect(201)).body.id as string;
+    const sunHold = (await as.thermal.post(`/api/v1/missions/${missionId}/phases`).send({
+      name: 'Sun hold', startDate: '2028-04-01', endDate: '2028-04-20', modeId: sun, dissipation: [{ node: 'payload', dissipationW: 20 }, { node: 'unit', dissipationW: 0 }],
+    }).expect(201)).body.id as string;
+    const dissipated = { Imaging: 380, 'Sun hold': 20 };
+
+    // each phase's own cases, derived alone, against their closed forms
+    const alone = async (phaseId: string) => (await as.thermal.post(`/api/v1/missions/${missionId}/cases/derive`).send({ orbitId, phaseId, steps: 360 }).expect(201)).body.items as Figures[];
+    const [imagingHot, imagingCold] = await alone(imaging);
+    const [sunHot, sunCold] = await alone(sunHold);
+    const zenithW = (r: Figures['results']) => (r.surfaces[0]!.absorptivity * r.solarFluxWm2 * Math.cos((r.betaDeg * Math.PI) / 180)) / Math.PI;
+    const sunPointedW = (r: Figures['results']) => {
+      const s = r.surfaces[0]!;
+      return s.absorptivity * r.solarFluxWm2 * (1 - r.eclipseFraction) + s.absorptivity * s.orbitAverage.albedoWm2 + s.emissivity * s.orbitAverage.irWm2;
+    };
+    for (const c of [imagingHot!, imagingCold!]) expect(c.results.total.orbitAverageAbsorbedW / zenithW(c.results)).toBeCloseTo(1, 2);
+    for (const c of [sunHot!, sunCold!]) expect(c.results.total.orbitAverageAbsorbedW / sunPointedW(c.results)).toBeCloseTo(1, 2);
+    // the totals from the closed forms: Sun hold absorbs more, Imaging puts more heat in (hot); Imaging absorbs less, Sun hold puts less in (cold)
+    const heat = { imagingHot: zenithW(imagingHot!.results) + 380, sunHot: sunPointedW(sunHot!.results) + 20, imagingCold: zenithW(imagingCold!.results) + 380, sunCold: sunPointedW(sunCold!.results) + 20 };
+    expect(sunPointedW(sunHot!.results)).toBeGreaterThan(zenithW(imagingHot!.results));
+    expect(heat.imagingHot).toBeGreaterThan(heat.sunHot);
+    expect(zenithW(imagingCold!.results)).toBeLessThan(sunPointedW(sunCold!.results));
+    expect(heat.sunCold).toBeLessThan(heat.imagingCold);
+
+    const items = (await as.thermal.post(`/api/v1/missions/${missionId}/cases/derive`).send({ orbitId, name: 'Both', steps: 360, survival: true }).expect(201)).body.items as Figures[];
+    expect(items.map((c) => [c.kind, c.phase, c.variant])).toEqual([['hot', 'Imaging', null], ['cold', 'Sun hold', null], ['cold', 'Imaging', 'survival']]);
+    const [hot, cold, survival] = items as [Figures, Figures, Figures];
+    expect(hot.results.total.orbitAverageAbsorbedW).toBe(imagingHot!.results.total.orbitAverageAbsorbedW);
+    expect(cold.results.total.orbitAverageAbsorbedW).toBe(sunCold!.results.total.orbitAverageAbsorbedW);
+    // the record holds every phase's figures; the heat totals are the closed forms'
+    for (const [c, own] of [[hot, { Imaging: imagingHot!, 'Sun hold': sunHot! }], [cold, { Imaging: imagingCold!, 'Sun hold': sunCold! }]] as const) {
+      expect(c.inputs.decision!.phase!.by).toBe('heat');
+      for (const x of c.inputs.decision!.phase!.compared) {
+        const name = x.name as keyof typeof dissipated;
+        expect(x.dissipationW).toBeCloseTo(dissipated[name], 3);
+        expect(x.orbitAverageAbsorbedW).toBe(own[name].results.total.orbitAverageAbsorbedW);
+      }
+    }
+    // "why this case" says it, from the record
+    expect(hot.inputs.rationale[0]).toMatch(/^phase Imaging \(2028-03-10 to 2028-03-31, attitude mode radiator to zenith\) puts the most heat into the spacecraft of the mission's phases/);
+    expect(hot.inputs.rationale[0]).toContain(`${imagingHot!.results.total.orbitAverageAbsorbedW.toFixed(1)} W absorbed + 380.0 W dissipated`);
+    expect(hot.inputs.rationale[0]).toMatch(/Sun hold absorbs more \(\d+\.\d W\) but dissipates 360\.0 W less$/);
+    expect(cold.inputs.rationale[0]).toMatch(/^phase Sun hold .* puts the least heat into the spacecraft .*; Imaging absorbs less \(\d+\.\d W\) but dissipates 360\.0 W more$/);
+    // survival dissipates the same whatever the phase: the least absorbed load (Imaging) chooses it
+    expect(survival.inputs.decision!.phase!.by).toBe('environment');
+    expect(survival.results.total.orbitAverageAbsorbedW).toBe(imagingCold!.results.total.orbitAverageAbsorbedW);
+    expect(survival.inputs.rationale[0]).toMatch(/gives the smallest total orbit-average absorbed load .*; survival dissipation is the same in every phase, so the absorbed load alone chose it$/);
+    // the detail's phase figure and the exported JSON carry the same words
+    const exported = (await as.thermal.get(`/api/v1/cases/${hot.id}/export?format=json`).expect(200)).body as { inputs: { rationale: string[] } };
+    expect(exported.inputs.rationale[0]).toBe(hot.inputs.rationale[0]);
+  });
+});
+
 describe('the demo mission flown in phases', () => {
   it('its cases name the phase that drove them: hot, cold and survival cold, drafts of the thermal engineer', async () => {
     const listed = (await as.thermal.get(`/api/v1/cases?missionId=${demoId}`).expect(200)).body.items as { name: string; kind: string; phase: string | null; variant: string | null }[];
