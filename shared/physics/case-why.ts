@@ -103,7 +103,7 @@ function phaseFactor(r: CaseWhyRecord): CaseFactor[] {
   const heat = total(mine);
   if (others.length === 0) {
     const text = `phase ${where}: the only phase derived, ${sum(mine)} orbit-average into the spacecraft`;
-    return [{ key: 'phase', title, figure: `${figure}, ${heat} in`, text, sources: [] }];
+    return [{ key: 'phase', title, figure: `${figure}, ${heat} absorbed + dissipated`, text, sources: [] }];
   }
   // the phase the environment alone would have chosen, when it is another one
   const sign = hot ? 1 : -1;
@@ -116,7 +116,7 @@ function phaseFactor(r: CaseWhyRecord): CaseFactor[] {
     : `; counted 0 W where a phase does not name a node (${unnamed.map((x) => `${x.name}: ${x.notNamed!.join(', ')}`).join('; ')}), a thermal run gives it its model's own value`;
   const text = `phase ${where} puts the ${hot ? 'most' : 'least'} heat into the spacecraft of the mission's phases, orbit-average absorbed load and the dissipation the phase names: ` +
     `${sum(mine)}; ` + others.map((x) => `${x.name} ${sum(x)}`).join(', ') + despite + counted;
-  return [{ key: 'phase', title, figure: `${figure}, ${heat} in`, text, sources: ['dissipation: orbit average of each node\'s constant or on/off schedule'] }];
+  return [{ key: 'phase', title, figure: `${figure}, ${heat} absorbed + dissipated`, text, sources: ['dissipation: orbit average of each node\'s constant or on/off schedule'] }];
 }
 
 function survivalFactor(r: CaseWhyRecord): CaseFactor[] {

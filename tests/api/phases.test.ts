@@ -65,8 +65,11 @@ describe('attitude modes and phases: reading, roles and audit', () => {
     }
     const mode = attitudeMode.parse((await as.thermal.post(`/api/v1/missions/${demoId}/attitude-modes`).send(body).expect(201)).body);
     expect(auditFor(t, mode.id).map((a) => a.action)).toEqual(['attitude_mode.created']);
+    // the demo's phases fill its dates: a month of the nominal phase is given to the new one first
+    const nominal = missionPhase.parse(((await as.viewer.get(`/api/v1/missions/${demoId}/phases`)).body.items as unknown[]).at(-1));
+    await as.thermal.patch(`/api/v1/missions/${demoId}/phases/${nominal.id}`).send({ endDate: '2030-11-30' }).expect(200);
     const phase = missionPhase.parse((await as.owner.post(`/api/v1/missions/${demoId}/phases`).send({
-      name: 'Extended mission', startDate: '2031-01-01', endDate: '2031-06-30', modeId: mode.id, dissipation: [{ node: 'avionics', dissipationW: 16 }],
+      name: 'Extended mission', startDate: '2030-12-01', endDate: '2030-12-31', modeId: mode.id, dissipation: [{ node: 'avionics', dissipationW: 16 }],
     }).expect(201)).body);
     await as.analyst.patch(`/api/v1/missions/${demoId}/phases/${phase.id}`).send({ name: 'Extended' }).expect(403);
     const renamed = missionPhase.parse((await as.thermal.patch(`/api/v1/missions/${demoId}/phases/${phase.id}`).send({ name: 'Extended' }).expect(200)).body);
@@ -76,6 +79,7 @@ describe('attitude modes and phases: reading, roles and audit', () => {
     expect(busy.body.error.message).toMatch(/phase "Extended"/);
     await as.thermal.delete(`/api/v1/missions/${demoId}/phases/${phase.id}`).expect(204);
     await as.thermal.delete(`/api/v1/missions/${demoId}/attitude-modes/${mode.id}`).expect(204);
+    await as.thermal.patch(`/api/v1/missions/${demoId}/phases/${nominal.id}`).send({ endDate: '2030-12-31' }).expect(200);
     expect(auditFor(t, phase.id).map((a) => a.action)).toEqual(['phase.created', 'phase.updated', 'phase.deleted']);
     expect(auditFor(t, mode.id).map((a) => a.action)).toEqual(['attitude_mode.created', 'attitude_mode.deleted']);
   });
@@ -110,6 +114,43 @@ describe('attitude modes and phases: refusals name the field and the value', () 
     expectDetail(await as.thermal.post(path).send({ name: 'Twice', startDate: '2031-02-01', endDate: '2031-03-01', modeId, dissipation: [{ node: 'camera', dissipationW: 1 }, { node: 'camera', dissipationW: 2 }] }).expect(400), 'dissipation.1', /camera/);
     expectDetail(await as.thermal.post(path).send({ name: 'Bad date', startDate: '2031-02-30', endDate: '2031-03-01', modeId }).expect(400), 'startDate', /2031-02-30/);
     expect((await as.viewer.get(path)).body.items).toHaveLength(before);
+  });
+
+  it('a phase outside the mission\'s dates (before its start, after its end, created or moved) or taking in another phase: 400 naming the field, the value and the mission\'s date; nothing written', async () => {
+    const modeId = (await as.viewer.get(`/api/v1/missions/${demoId}/attitude-modes`)).body.items[0].id as string;
+    const path = `/api/v1/missions/${demoId}/phases`;
+    const before = (await as.viewer.get(path)).body.items as { id: string; name: string; startDate: string; endDate: string }[];
+    const early = await as.thermal.post(path).send({ name: 'Pre-launch', startDate: '2028-01-01', endDate: '2028-01-09', modeId }).expect(400);
+    expectDetail(early, 'startDate', /2028-01-01 is before the mission starts \(2028-01-10\)/);
+    expect(early.body.error.code).toBe('invalid_input');
+    expectDetail(await as.thermal.post(path).send({ name: 'Extended', startDate: '2031-01-01', endDate: '2031-03-31', modeId }).expect(400), 'endDate', /2031-03-31 is after the mission ends \(2030-12-31\)/);
+    // moving an existing phase out of the mission
+    const nominal = before.find((p) => p.name === 'Nominal operations')!;
+    expectDetail(await as.thermal.patch(`${path}/${nominal.id}`).send({ endDate: '2031-06-30' }).expect(400), 'endDate', /2031-06-30 is after the mission ends/);
+    const launch = before.find((p) => p.name === 'Launch and early orbit')!;
+    expectDetail(await as.thermal.patch(`${path}/${launch.id}`).send({ startDate: '2027-12-31' }).expect(400), 'startDate', /2027-12-31 is before the mission starts/);
+    // a phase that takes in another whole (neither of its dates falls in it) is named by its range
+    const shortened = (await as.thermal.patch(`${path}/${nominal.id}`).send({ endDate: '2030-06-30' }).expect(200)).body as { endDate: string };
+    expect(shortened.endDate).toBe('2030-06-30');
+    const gap = (await as.thermal.post(path).send({ name: 'Gap', startDate: '2030-08-01', endDate: '2030-08-31', modeId }).expect(201)).body.id as string;
+    expectDetail(await as.thermal.post(path).send({ name: 'Wide', startDate: '2030-07-01', endDate: '2030-12-31', modeId }).expect(400), 'endDate', /2030-07-01 to 2030-12-31 takes in phase \\"Gap\\" \(2030-08-01 to 2030-08-31\); phases do not overlap/);
+    await as.thermal.delete(`${path}/${gap}`).expect(204);
+    await as.thermal.patch(`${path}/${nominal.id}`).send({ endDate: '2030-12-31' }).expect(200);
+    expect(((await as.viewer.get(path)).body.items as typeof before).map((p) => [p.name, p.startDate, p.endDate])).toEqual(before.map((p) => [p.name, p.startDate, p.endDate]));
+  });
+
+  it('mission dates that would leave a phase outside them: 400 naming the mission\'s date and the phase; the mission is unchanged, no audit', async () => {
+    const path = `/api/v1/missions/${demoId}`;
+    const audits = () => (t.ctx.sqlite.prepare("SELECT count(*) AS n FROM audit_events WHERE target_id = ? AND action LIKE 'mission.%'").get(demoId) as { n: number }).n;
+    const was = audits();
+    expectDetail(await as.thermal.patch(path).send({ startDate: '2028-02-01' }).expect(400), 'startDate', /2028-02-01 is after the start of phase \\"Launch and early orbit\\" \(2028-01-10 to 2028-01-24\); move or shorten the phase first/);
+    expectDetail(await as.analyst.patch(path).send({ endDate: '2030-06-30' }).expect(400), 'endDate', /2030-06-30 is before the end of phase \\"Nominal operations\\"/);
+    const mission = (await as.viewer.get(path).expect(200)).body as { startDate: string; endDate: string };
+    expect([mission.startDate, mission.endDate]).toEqual(['2028-01-10', '2030-12-31']);
+    expect(audits()).toBe(was);
+    // dates that still hold every phase are taken
+    await as.thermal.patch(path).send({ endDate: '2031-06-30' }).expect(200);
+    await as.thermal.patch(path).send({ endDate: '2030-12-31' }).expect(200);
   });
 
   it('a mode that points a surface the mission does not have, or with a normal the API does not take', async () => {
