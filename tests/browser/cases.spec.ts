@@ -20,9 +20,16 @@ async function openLibrary(page: Page): Promise<void> {
   await expect(page.getByRole('heading', { name: 'Load cases' })).toBeVisible();
 }
 
+/**
+ * Picks an option, retrying while the list fills: a picker whose options load after the one before
+ * it was chosen (a mission's orbits) may open empty or not open while it is still disabled.
+ */
 async function choose(page: Page, selectTestId: string, option: string): Promise<void> {
-  await page.getByTestId(selectTestId).click();
-  await page.getByRole('option', { name: option, exact: true }).click();
+  await expect(async () => {
+    if ((await page.getByRole('listbox').count()) === 0) await page.getByTestId(selectTestId).click();
+    await page.getByRole('option', { name: option, exact: true }).click({ timeout: 3_000 });
+  }).toPass({ timeout: 30_000 });
+  await expect(page.getByRole('listbox')).toHaveCount(0);
 }
 
 /** The shell scrolls inside its content pane, so a full-page shot needs a tall window to show a long page. */
