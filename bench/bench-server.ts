@@ -32,8 +32,16 @@ export interface Server {
   url: string;
 }
 
-export function startServer(dataDir: string, clientDir = path.join(dataDir, 'no-client')): Promise<Server> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
+/**
+ * The bench-only route that answers the compute request the way the route did before issue 16
+ * (bench/issue16-anchor-route.ts), on a server started with `anchorRoute`.
+ */
+export const ISSUE16_ANCHOR_PATH = '/api/v1/bench/environment/compute-as-before';
+
+/** A server of its own; `anchorRoute` adds the bench-only route above (never part of the product). */
+export function startServer(dataDir: string, clientDir = path.join(dataDir, 'no-client'), options: { anchorRoute?: boolean } = {}): Promise<Server> {
+  const preload = options.anchorRoute ? ['--import', './bench/issue16-anchor-route.ts'] : [];
+  const child = spawn(process.execPath, ['--import', 'tsx', ...preload, 'server/main.ts'], {
     cwd: root,
     env: { ...process.env, PORT: '0', ECLIPTA_DATA_DIR: dataDir, ECLIPTA_DB_PATH: path.join(dataDir, 'eclipta.db'), ECLIPTA_UPLOAD_LIMIT_MB: '1000', ECLIPTA_LOG_LEVEL: 'info', ECLIPTA_CLIENT_DIR: clientDir },
     stdio: ['ignore', 'pipe', 'inherit'],
