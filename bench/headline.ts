@@ -15,7 +15,8 @@ const verdict = (ok: boolean): string => (ok ? 'pass' : 'FAIL');
 const ms = (v: number): string => `${v.toFixed(v < 100 ? 1 : 0)} ms`;
 const mb = (bytes: number): string => `${(bytes / 1e6).toFixed(2)} MB`;
 
-function computeRows({ python, numpyMs, figures }: ComputeFigures): BenchRow[] {
+/** The headline's rows of the compute figures (exported for a run of those rows alone). */
+export function computeRows({ python, numpyMs, figures }: ComputeFigures): BenchRow[] {
   // The compressed default JSON's anchor is the issue's "today" (wire.bench.ts anchorForm): the
   // answer as before issue 16, timed in this run; its ratio to today's plain JSON is shown beside it.
   const { anchor, plain } = defaultJsonFigures(figures);

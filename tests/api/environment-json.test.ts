@@ -22,8 +22,8 @@ function columnsFor(names: string[], steps: number) {
   return computeEnvironmentColumns(asEnvironmentRequest(request));
 }
 
-/** Values that repeat, alternate and are not finite, in the order a column will hold them. */
-const awkward = [0, 0, -0, 0, -0, NaN, NaN, 1.5, 1.5, Infinity, -Infinity, -Infinity, 0.1 + 0.2, 0.30000000000000004, 1e21, 1e-7, 5e-324, -0, NaN, 7];
+/** Values that repeat, alternate, are not finite or have the longest texts (24 characters), in the order a column will hold them. */
+const awkward = [0, 0, -0, 0, -0, NaN, NaN, 1.5, 1.5, Infinity, -Infinity, -Infinity, 0.1 + 0.2, 0.30000000000000004, 1e21, 1e-7, 5e-324, -0, NaN, 7, -2.2250738585072014e-308, -Number.MAX_VALUE];
 
 describe('environmentJsonPieces', () => {
   it('writes JSON.stringify\'s bytes where values repeat, change one quantity at a time, or are -0, NaN or infinite', () => {
