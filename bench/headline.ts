@@ -20,6 +20,7 @@ export function computeRows({ python, numpyMs, figures }: ComputeFigures): Bench
   // The compressed default JSON's anchor is the issue's "today" (wire.bench.ts anchorForm): the
   // answer as before issue 16, timed in this run; its ratio to today's plain JSON is shown beside it.
   const { anchor, plain } = defaultJsonFigures(figures);
+  const cpu = (f: (typeof figures)[number]) => f.serverCpuMs + f.clientCpuMs;
   const isDefault = (f: (typeof figures)[number]) => f.form.anchor === true || isDefaultJson(f.form);
   const within = (f: (typeof figures)[number]) => !isDefault(f) && f.offered && numpyMs !== null && f.ms / numpyMs <= 4;
   // The target asks it of the columnar or the Arrow answer: a form over it fails only when none is within.
@@ -31,7 +32,7 @@ export function computeRows({ python, numpyMs, figures }: ComputeFigures): Bench
       const [time, bytes] = [f.ms / anchor.ms, f.wireBytes / anchor.wireBytes];
       return {
         figure: label, eclipta: `${ms(f.ms)}, ${mb(f.wireBytes)}`, 'anchor (this run)': `JSON as before issue 16 ${ms(anchor.ms)}, ${mb(anchor.wireBytes)}`,
-        ratio: `${time.toFixed(2)}x time, ${bytes.toFixed(2)}x bytes (${(f.ms / plain.ms).toFixed(2)}x, ${(f.wireBytes / plain.wireBytes).toFixed(2)}x today's plain JSON)`,
+        ratio: `${time.toFixed(2)}x time, ${bytes.toFixed(2)}x bytes (${(f.ms / plain.ms).toFixed(2)}x, ${(f.wireBytes / plain.wireBytes).toFixed(2)}x today's plain JSON; CPU ${(cpu(f) / cpu(anchor)).toFixed(2)}x the anchor's)`,
         target: 'time <= 1.0x, bytes <= 0.20x',
         result: verdict(f.offered && time <= 1 && bytes <= 0.2) + unoffered,
       };
@@ -44,7 +45,7 @@ export function computeRows({ python, numpyMs, figures }: ComputeFigures): Bench
       result: isDefault(f) || !numpyMs ? unoffered.trim() : (within(f) ? 'pass' : someWithin ? 'over 4x (another form holds the target)' : 'FAIL') + unoffered,
     };
   });
-  rows.push({ figure: `    numpy: ${python ?? 'no python3 with numpy'}; each form timed end to end (request, compute, answer received, decompressed as it arrives, read into numbers), the forms taking turns in blocks of 5` });
+  rows.push({ figure: `    numpy: ${python ?? 'no python3 with numpy'}; each form timed end to end (request, compute, answer received, decompressed as it arrives, read into numbers), the forms taking turns in blocks of 5; CPU: the server's and the client's per request (for information: the wall clock stretches with the machine's load)` });
   return rows;
 }
 

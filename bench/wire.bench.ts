@@ -27,7 +27,7 @@ import { tableFromIPC } from 'apache-arrow';
 import { buildClientIfStale } from '../scripts/client-build.mjs';
 // @ts-expect-error -- a plain .mjs script of the build, without types
 import { initialModules } from '../scripts/initial-modules.mjs';
-import { ingest, ISSUE16_ANCHOR_PATH, median, openSession, resetPeak, root, startServer, statusMb, writeCsv, type Session } from './bench-server';
+import { ingest, ISSUE16_ANCHOR_PATH, median, openSession, processCpuMs, resetPeak, root, startServer, statusMb, writeCsv, type Session } from './bench-server';
 import type { BenchRow } from './bench-table';
 import { caseA, findNumpy, orbitCaseJob, runNumpy } from './environment.bench';
 
@@ -158,6 +158,13 @@ export interface ComputeFigure {
   /** The media type and coding answered, and whether they are what was asked for. */
   answered: string;
   offered: boolean;
+  /**
+   * CPU time per request, the server's (every thread: formatting, compressing) and this client's
+   * (receiving, decompressing, reading), over the timed requests: on this shared machine the wall
+   * clock stretches with the other users' load, the CPU time much less.
+   */
+  serverCpuMs: number;
+  clientCpuMs: number;
 }
 
 export interface ComputeFigures {
@@ -183,13 +190,20 @@ export async function measureCompute(session: Session): Promise<ComputeFigures> 
   for (let i = 0; i < WARM_UPS; i++) for (const form of forms) await computeOnce(session, form);
   const times = forms.map(() => [] as number[]);
   const last: (Once | null)[] = forms.map(() => null);
+  const serverCpu = forms.map(() => 0);
+  const clientCpu = forms.map(() => 0);
+  const pid = session.server.child.pid!;
   for (let done = 0; done < REPEATS; done += BLOCK) {
     for (const [f, form] of forms.entries()) {
+      const [server, client] = [processCpuMs(pid), process.cpuUsage()];
       for (let i = done; i < Math.min(REPEATS, done + BLOCK); i++) {
         const once = await computeOnce(session, form);
         times[f].push(once.ms);
         last[f] = once;
       }
+      serverCpu[f] += processCpuMs(pid) - server;
+      const used = process.cpuUsage(client);
+      clientCpu[f] += (used.user + used.system) / 1000;
     }
   }
   const figures = forms.map((form, f): ComputeFigure => {
@@ -202,6 +216,7 @@ export async function measureCompute(session: Session): Promise<ComputeFigures> 
       form, ms: median(times[f]), wireBytes: once.wireBytes,
       answered: `${type}${coding ? ` + ${String(coding)}` : ''}`,
       offered: type === wanted && (form.query === '' || once.columns) && codingOk,
+      serverCpuMs: serverCpu[f] / REPEATS, clientCpuMs: clientCpu[f] / REPEATS,
     };
   });
   return { python, numpyMs: numpy?.medianMs ?? null, figures };
@@ -219,7 +234,7 @@ export const isDefaultJson = (form: Form): boolean => !form.anchor && form.query
 
 function computeRows({ python, numpyMs, figures }: ComputeFigures): BenchRow[] {
   const { anchor, plain } = defaultJsonFigures(figures);
-  const rows: BenchRow[] = figures.map(({ form, ms, wireBytes, answered, offered }) => {
+  const rows: BenchRow[] = figures.map(({ form, ms, wireBytes, answered, offered, serverCpuMs, clientCpuMs }) => {
     const compressedDefault = isDefaultJson(form) && form.encoding !== 'identity';
     const target = form.anchor ? "the compressed JSON's anchor"
       : compressedDefault ? `bytes <= 0.20x, time <= 1.0x the anchor's (${(wireBytes / anchor.wireBytes).toFixed(2)}x, ${(ms / anchor.ms).toFixed(2)}x; ${(ms / plain.ms).toFixed(2)}x plain JSON's time)`
@@ -231,7 +246,7 @@ function computeRows({ python, numpyMs, figures }: ComputeFigures): BenchRow[] {
       ratio: numpyMs ? `${(ms / numpyMs).toFixed(1)}x numpy's time` : '',
       target,
       'on the wire': `${(wireBytes / 1e6).toFixed(3)} MB`,
-      note: offered ? answered : `not offered (answered ${answered})`,
+      note: `${offered ? answered : `not offered (answered ${answered})`}; CPU per request: server ${serverCpuMs.toFixed(0)} ms, client ${clientCpuMs.toFixed(0)} ms`,
     };
   });
   rows.push({
