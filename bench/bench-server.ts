@@ -1,7 +1,7 @@
 // What the benches that talk to a real server share: a server process of its own (node --import tsx
 // server/main.ts on a free port, its own data directory), a signed-in demo session with a mission,
 // its memory from /proc, and the ephemeris CSV the ingest benches upload.
-import { spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { openAsBlob, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { createInterface } from 'node:readline';
@@ -32,8 +32,16 @@ export interface Server {
   url: string;
 }
 
-export function startServer(dataDir: string, clientDir = path.join(dataDir, 'no-client')): Promise<Server> {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
+/**
+ * The bench-only route that answers the compute request the way the route did before issue 16
+ * (bench/issue16-anchor-route.ts), on a server started with `anchorRoute`.
+ */
+export const ISSUE16_ANCHOR_PATH = '/api/v1/bench/environment/compute-as-before';
+
+/** A server of its own; `anchorRoute` adds the bench-only route above (never part of the product). */
+export function startServer(dataDir: string, clientDir = path.join(dataDir, 'no-client'), options: { anchorRoute?: boolean } = {}): Promise<Server> {
+  const preload = options.anchorRoute ? ['--import', './bench/issue16-anchor-route.ts'] : [];
+  const child = spawn(process.execPath, ['--import', 'tsx', ...preload, 'server/main.ts'], {
     cwd: root,
     env: { ...process.env, PORT: '0', ECLIPTA_DATA_DIR: dataDir, ECLIPTA_DB_PATH: path.join(dataDir, 'eclipta.db'), ECLIPTA_UPLOAD_LIMIT_MB: '1000', ECLIPTA_LOG_LEVEL: 'info', ECLIPTA_CLIENT_DIR: clientDir },
     stdio: ['ignore', 'pipe', 'inherit'],
@@ -53,6 +61,16 @@ export const statusMb = (pid: number, field: 'VmHWM' | 'VmRSS'): number => {
   const kb = Number(new RegExp(`${field}:\\s+(\\d+)`).exec(status)?.[1] ?? NaN);
   return kb / 1024;
 };
+
+let ticksPerSecond = 0;
+
+/** CPU time (user + system, every thread) a process has used, in ms, from /proc (clock ticks, 10 ms on Linux). */
+export function processCpuMs(pid: number): number {
+  ticksPerSecond ||= Number(execFileSync('getconf', ['CLK_TCK'], { encoding: 'utf8' }).trim()) || 100;
+  // The fields after the command's closing parenthesis: utime and stime are the 12th and 13th.
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / ticksPerSecond;
+}
 
 /** Resets the peak to the current size (Linux clear_refs 5); false where that is not allowed. */
 export function resetPeak(pid: number): boolean {

@@ -21,6 +21,13 @@ const SMALL = 1024;
 /** From this many bytes the fastest settings. */
 const LARGE = 1_000_000;
 const CHUNK = 256 * 1024;
+/**
+ * Brotli's window at quality 1: 256 kB (2^18) instead of its default 4 MB. There the default window's
+ * larger tables cost time without finding more: on the 8.4 MB compute answer 2^18 compresses in
+ * about 0.7x the time of 2^22 (in one go; a little less gain written in pieces) to slightly fewer
+ * bytes (1.095 MB against 1.111 MB), and each answer being compressed holds a smaller encoder.
+ */
+const WINDOW_BITS = 18;
 
 type Encoding = 'br' | 'gzip' | 'identity';
 
@@ -50,7 +57,13 @@ function chooseEncoding(req: Request): Encoding {
 function compressor(encoding: 'br' | 'gzip', sizeHint: number): Writable & NodeJS.ReadableStream {
   const large = sizeHint >= LARGE;
   return encoding === 'br'
-    ? createBrotliCompress({ chunkSize: CHUNK, params: { [constants.BROTLI_PARAM_QUALITY]: large ? 1 : 4, [constants.BROTLI_PARAM_SIZE_HINT]: sizeHint } })
+    ? createBrotliCompress({
+      chunkSize: CHUNK,
+      params: {
+        [constants.BROTLI_PARAM_QUALITY]: large ? 1 : 4, [constants.BROTLI_PARAM_SIZE_HINT]: sizeHint,
+        ...(large ? { [constants.BROTLI_PARAM_LGWIN]: WINDOW_BITS } : {}),
+      },
+    })
     : createGzip({ chunkSize: CHUNK, level: large ? 1 : 4 });
 }
 
