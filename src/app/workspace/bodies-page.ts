@@ -17,6 +17,7 @@ import { readQuantityText, type FieldUnit } from '../missions/quantity-text';
 import { DesignCaution } from '../shell/design-caution';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { pathWords } from '../shell/user-words';
+import { RowActions } from '../shell/row-actions';
 import { WorkspaceApi } from './workspace-api';
 
 const PLANETS = [
@@ -57,6 +58,7 @@ const typedIn = (unit: FieldUnit): ValidatorFn => (control) => {
 @Component({
   selector: 'ecl-bodies-page',
   imports: [
+    RowActions,
     ReactiveFormsModule, DesignCaution, SourceWordsPipe, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatSelect, MatOption,
     MatButton, MatCheckbox,
   ],
