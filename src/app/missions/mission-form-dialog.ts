@@ -1,15 +1,15 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { map, Observable } from 'rxjs';
 import type { BodySummaryResponse } from '../../../shared/api/environment';
 import type { Mission } from '../../../shared/api/missions';
+import { DialogButtons } from '../shell/dialog-buttons';
 import { dialogSubmit, refusalDetails } from '../shell/dialog-submit';
 import { MissionApi } from './mission-api';
 import { isoDateValidator } from '../time/iso-date-validator';
@@ -25,7 +25,7 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
 /** Creates or edits a mission's facts: name, central body, dates, crewed. */
 @Component({
   selector: 'ecl-mission-form-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption],
+  imports: [ReactiveFormsModule, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption],
   template: `
     <h2 mat-dialog-title>{{ data.mission ? 'Edit the mission' : 'New mission' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
@@ -66,12 +66,7 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
           <p class="ecl-error" role="alert" data-testid="mission-form-error">{{ message }}</p>
         }
       </mat-dialog-content>
-      <mat-dialog-actions align="end">
-        <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="mission-save">
-          {{ data.mission ? 'Save' : 'Create mission' }}
-        </button>
-      </mat-dialog-actions>
+      <mat-dialog-actions align="end" eclDialogButtons [busy]="submit.busy()" [label]="data.mission ? 'Save' : 'Create mission'" testid="mission-save" />
     </form>
   `,
   styles: `
@@ -95,7 +90,6 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
 export class MissionFormDialog {
   private readonly api = inject(MissionApi);
   protected readonly data = inject<MissionFormData>(MAT_DIALOG_DATA);
-  protected readonly dialogRef = inject<MatDialogRef<MissionFormDialog, Mission>>(MatDialogRef);
   // the catalogue and this workspace's own bodies (another workspace's could not be its body)
   protected readonly bodies = toSignal<BodySummaryResponse[]>(
     this.api.bodies$.pipe(map((all) => all.filter((b) => b.workspaceId === undefined || b.workspaceId === this.data.workspaceId))),

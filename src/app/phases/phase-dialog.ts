@@ -1,13 +1,14 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { FormArray, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators, type FormControl } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { AttitudeMode, MissionPhase, PhaseDissipation } from '../../../shared/api/phases';
+import { DialogButtons } from '../shell/dialog-buttons';
 import { dialogSubmit, placedBeside } from '../shell/dialog-submit';
 import { isoDateValidator } from '../time/iso-date-validator';
 import { PhaseApi } from './phase-api';
@@ -31,7 +32,7 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
 /** Adds or edits a phase: its dates (UTC days, both included), its attitude mode and each node's dissipation. */
 @Component({
   selector: 'ecl-phase-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatIconButton, MatIcon, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatSelect, MatOption],
+  imports: [ReactiveFormsModule, MatButton, MatIconButton, MatIcon, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, MatFormField, MatLabel, MatInput, MatError, MatSelect, MatOption],
   template: `
     <h2 mat-dialog-title>{{ data.phase ? 'Edit the phase' : 'New phase' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
@@ -94,10 +95,7 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
           <p class="ecl-error" role="alert" data-testid="phase-form-error">{{ message }}</p>
         }
       </mat-dialog-content>
-      <mat-dialog-actions align="end">
-        <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="phase-save">{{ data.phase ? 'Save' : 'Add phase' }}</button>
-      </mat-dialog-actions>
+      <mat-dialog-actions align="end" eclDialogButtons [busy]="submit.busy()" [label]="data.phase ? 'Save' : 'Add phase'" testid="phase-save" />
     </form>
   `,
   styles: `
@@ -116,7 +114,6 @@ export class PhaseDialog {
   private readonly api = inject(PhaseApi);
   private readonly fb = inject(NonNullableFormBuilder);
   protected readonly data = inject<PhaseDialogData>(MAT_DIALOG_DATA);
-  protected readonly dialogRef = inject<MatDialogRef<PhaseDialog, MissionPhase>>(MatDialogRef);
   /** A refusal for the node rows, which no single field shows. */
   protected readonly rowProblem = signal<string | null>(null);
   protected readonly problems = signal<Partial<Record<'name' | 'startDate' | 'endDate' | 'modeId', string>>>({});
