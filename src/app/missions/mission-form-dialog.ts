@@ -10,6 +10,7 @@ import { map, Observable } from 'rxjs';
 import type { BodySummaryResponse } from '../../../shared/api/environment';
 import type { Mission } from '../../../shared/api/missions';
 import { DialogButtons } from '../shell/dialog-buttons';
+import { LabelledField } from '../shell/labelled-field';
 import { dialogSubmit, refusalDetails } from '../shell/dialog-submit';
 import { MissionApi } from './mission-api';
 import { isoDateValidator } from '../time/iso-date-validator';
@@ -25,16 +26,12 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
 /** Creates or edits a mission's facts: name, central body, dates, crewed. */
 @Component({
   selector: 'ecl-mission-form-dialog',
-  imports: [ReactiveFormsModule, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption],
+  imports: [ReactiveFormsModule, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, LabelledField, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption],
   template: `
     <h2 mat-dialog-title>{{ data.mission ? 'Edit the mission' : 'New mission' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="fields">
-        <mat-form-field appearance="outline">
-          <mat-label>Mission name</mat-label>
-          <input matInput formControlName="name" data-testid="mission-name" cdkFocusInitial />
-          <mat-error>{{ problems()['name'] ?? 'Give the mission a name.' }}</mat-error>
-        </mat-form-field>
+        <ecl-field [control]="form.controls.name" label="Mission name" testid="mission-name" initialFocus [error]="problems()['name'] ?? 'Give the mission a name.'" />
         <mat-form-field appearance="outline">
           <mat-label>Central body</mat-label>
           <mat-select formControlName="bodyId" data-testid="mission-body">
@@ -45,16 +42,8 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
           <mat-error>{{ problems()['bodyId'] ?? 'Choose the body the spacecraft orbits.' }}</mat-error>
         </mat-form-field>
         <div class="dates">
-          <mat-form-field appearance="outline">
-            <mat-label>Start (UTC date)</mat-label>
-            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="startDate" data-testid="mission-start" />
-            <mat-error>{{ problems()['startDate'] ?? 'Give the start date as YYYY-MM-DD, e.g. 2027-06-01.' }}</mat-error>
-          </mat-form-field>
-          <mat-form-field appearance="outline">
-            <mat-label>End (UTC date)</mat-label>
-            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="endDate" data-testid="mission-end" />
-            <mat-error data-testid="mission-end-error">{{ problems()['endDate'] ?? 'Give the end date as YYYY-MM-DD, e.g. 2028-06-01.' }}</mat-error>
-          </mat-form-field>
+          <ecl-field [control]="form.controls.startDate" kind="date" label="Start (UTC date)" testid="mission-start" [error]="problems()['startDate'] ?? 'Give the start date as YYYY-MM-DD, e.g. 2027-06-01.'" />
+          <ecl-field [control]="form.controls.endDate" kind="date" label="End (UTC date)" testid="mission-end" errorTestid="mission-end-error" [error]="problems()['endDate'] ?? 'Give the end date as YYYY-MM-DD, e.g. 2028-06-01.'" />
         </div>
         <mat-form-field appearance="outline">
           <mat-label>Description</mat-label>
@@ -81,7 +70,7 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
       flex-wrap: wrap;
       gap: 0 12px;
     }
-    .dates mat-form-field {
+    .dates ecl-field {
       flex: 1 1 180px;
     }
   `,

@@ -9,6 +9,7 @@ import { MatOption, MatSelect } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { AttitudeMode, MissionPhase, PhaseDissipation } from '../../../shared/api/phases';
 import { DialogButtons } from '../shell/dialog-buttons';
+import { LabelledField } from '../shell/labelled-field';
 import { dialogSubmit, placedBeside } from '../shell/dialog-submit';
 import { isoDateValidator } from '../time/iso-date-validator';
 import { PhaseApi } from './phase-api';
@@ -32,27 +33,15 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
 /** Adds or edits a phase: its dates (UTC days, both included), its attitude mode and each node's dissipation. */
 @Component({
   selector: 'ecl-phase-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatIconButton, MatIcon, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, MatFormField, MatLabel, MatInput, MatError, MatSelect, MatOption],
+  imports: [ReactiveFormsModule, MatButton, MatIconButton, MatIcon, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, LabelledField, MatFormField, MatLabel, MatInput, MatError, MatSelect, MatOption],
   template: `
     <h2 mat-dialog-title>{{ data.phase ? 'Edit the phase' : 'New phase' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="fields">
-        <mat-form-field appearance="outline">
-          <mat-label>Phase name</mat-label>
-          <input matInput formControlName="name" data-testid="phase-name" cdkFocusInitial />
-          <mat-error>{{ problems()['name'] ?? 'Give the phase a name, e.g. commissioning.' }}</mat-error>
-        </mat-form-field>
+        <ecl-field [control]="form.controls.name" label="Phase name" testid="phase-name" initialFocus [error]="problems()['name'] ?? 'Give the phase a name, e.g. commissioning.'" />
         <div class="pair">
-          <mat-form-field appearance="outline">
-            <mat-label>From (UTC date)</mat-label>
-            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="startDate" data-testid="phase-start" />
-            <mat-error>{{ problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.' }}</mat-error>
-          </mat-form-field>
-          <mat-form-field appearance="outline">
-            <mat-label>To (UTC date, included)</mat-label>
-            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="endDate" data-testid="phase-end" />
-            <mat-error data-testid="phase-end-error">{{ problems()['endDate'] ?? 'Give the last day as YYYY-MM-DD.' }}</mat-error>
-          </mat-form-field>
+          <ecl-field [control]="form.controls.startDate" kind="date" label="From (UTC date)" testid="phase-start" [error]="problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.'" />
+          <ecl-field [control]="form.controls.endDate" kind="date" label="To (UTC date, included)" testid="phase-end" errorTestid="phase-end-error" [error]="problems()['endDate'] ?? 'Give the last day as YYYY-MM-DD.'" />
         </div>
         <mat-form-field appearance="outline">
           <mat-label>Attitude mode</mat-label>
@@ -101,7 +90,7 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
   styles: `
     .fields { display: flex; flex-direction: column; gap: 6px; min-width: min(560px, 80vw); }
     .pair { display: flex; flex-wrap: wrap; gap: 0 12px; }
-    .pair mat-form-field { flex: 1 1 180px; }
+    .pair ecl-field { flex: 1 1 180px; }
     h3 { font: var(--mat-sys-title-small); margin: 8px 0 0; }
     .hint { margin: 0 0 4px; font: var(--mat-sys-body-small); }
     .row { display: flex; flex-wrap: wrap; gap: 6px; align-items: center; }
