@@ -41,7 +41,7 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
           </mat-select>
           <mat-error>{{ problems()['bodyId'] ?? 'Choose the body the spacecraft orbits.' }}</mat-error>
         </mat-form-field>
-        <div class="dates">
+        <div class="ecl-pair">
           <ecl-field [control]="form.controls.startDate" kind="date" label="Start (UTC date)" testid="mission-start" [error]="problems()['startDate'] ?? 'Give the start date as YYYY-MM-DD, e.g. 2027-06-01.'" />
           <ecl-field [control]="form.controls.endDate" kind="date" label="End (UTC date)" testid="mission-end" errorTestid="mission-end-error" [error]="problems()['endDate'] ?? 'Give the end date as YYYY-MM-DD, e.g. 2028-06-01.'" />
         </div>
@@ -64,14 +64,6 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
       flex-direction: column;
       gap: 4px;
       min-width: min(480px, 80vw);
-    }
-    .dates {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 0 12px;
-    }
-    .dates ecl-field {
-      flex: 1 1 180px;
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

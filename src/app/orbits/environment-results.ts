@@ -43,7 +43,7 @@ const AVERAGE_COLUMNS: readonly FigureColumn[] = [
   selector: 'ecl-environment-results',
   imports: [DurationPipe, SourceWordsPipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot, OrbitView, FigureTable],
   templateUrl: './environment-results.html',
-  styleUrl: './environment-results.css',
+  styleUrls: ['./result-panel.css', './environment-results.css'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class EnvironmentResults {

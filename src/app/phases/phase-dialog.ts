@@ -39,7 +39,7 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="fields">
         <ecl-field [control]="form.controls.name" label="Phase name" testid="phase-name" initialFocus [error]="problems()['name'] ?? 'Give the phase a name, e.g. commissioning.'" />
-        <div class="pair">
+        <div class="ecl-pair">
           <ecl-field [control]="form.controls.startDate" kind="date" label="From (UTC date)" testid="phase-start" [error]="problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.'" />
           <ecl-field [control]="form.controls.endDate" kind="date" label="To (UTC date, included)" testid="phase-end" errorTestid="phase-end-error" [error]="problems()['endDate'] ?? 'Give the last day as YYYY-MM-DD.'" />
         </div>
@@ -89,8 +89,6 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
   `,
   styles: `
     .fields { display: flex; flex-direction: column; gap: 6px; min-width: min(560px, 80vw); }
-    .pair { display: flex; flex-wrap: wrap; gap: 0 12px; }
-    .pair ecl-field { flex: 1 1 180px; }
     h3 { font: var(--mat-sys-title-small); margin: 8px 0 0; }
     .hint { margin: 0 0 4px; font: var(--mat-sys-body-small); }
     .row { display: flex; flex-wrap: wrap; gap: 6px; align-items: center; }
