@@ -33,6 +33,12 @@ export class CaseDeriveDialog {
   private readonly api = inject(CaseApi);
   private readonly data = inject<CaseDeriveData>(MAT_DIALOG_DATA);
 
+  /** The property set of each case derived, with why its default is what it is. */
+  protected readonly propertyRows = [
+    { control: 'hot', label: 'Hot case', note: 'default EOL: absorptivity is highest at end of life' },
+    { control: 'cold', label: 'Cold case', note: 'default BOL' },
+  ] as const;
+
   protected readonly form = inject(NonNullableFormBuilder).group({
     missionId: [this.data.missionId ?? '', Validators.required],
     orbitId: ['', Validators.required],
