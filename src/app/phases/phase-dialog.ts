@@ -18,6 +18,8 @@ export interface PhaseDialogData {
   readonly missionId: string;
   readonly phase: MissionPhase | null;
   readonly modes: readonly AttitudeMode[];
+  /** The mission's dates (a phase lies within them); null when not known. */
+  readonly missionDates: { readonly startDate: string; readonly endDate: string } | null;
 }
 
 interface DissipationRow {
@@ -40,9 +42,12 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
       <mat-dialog-content class="fields">
         <ecl-field [control]="form.controls.name" label="Phase name" testid="phase-name" initialFocus [error]="problems()['name'] ?? 'Give the phase a name, e.g. commissioning.'" />
         <div class="ecl-pair">
-          <ecl-field [control]="form.controls.startDate" kind="date" label="From (UTC date)" testid="phase-start" [error]="problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.'" />
+          <ecl-field [control]="form.controls.startDate" kind="date" label="From (UTC date)" testid="phase-start" errorTestid="phase-start-error" [error]="problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.'" />
           <ecl-field [control]="form.controls.endDate" kind="date" label="To (UTC date, included)" testid="phase-end" errorTestid="phase-end-error" [error]="problems()['endDate'] ?? 'Give the last day as YYYY-MM-DD.'" />
         </div>
+        @if (data.missionDates; as m) {
+          <p class="ecl-muted hint" data-testid="phase-mission-dates">The mission runs {{ m.startDate }} to {{ m.endDate }} (UTC); a phase lies within them and shares no day with another phase.</p>
+        }
         <mat-form-field appearance="outline">
           <mat-label>Attitude mode</mat-label>
           <mat-select formControlName="modeId" data-testid="phase-mode">

@@ -13,7 +13,7 @@ import { ConfirmDialog } from '../shell/confirm-dialog';
 import { RowActions } from '../shell/row-actions';
 import { ModeDialog } from './mode-dialog';
 import { PhaseApi } from './phase-api';
-import { PhaseDialog } from './phase-dialog';
+import { PhaseDialog, type PhaseDialogData } from './phase-dialog';
 import { dissipationText, pointingText } from './phase-words';
 
 /** A mission's attitude modes (how each surface is pointed) and its phases (dates, mode, dissipation per node). */
@@ -119,6 +119,8 @@ export class PhasesPanel {
 
   readonly missionId = input.required<string>();
   readonly surfaces = input.required<readonly Surface[]>();
+  /** The mission's dates, which every phase lies within. */
+  readonly missionDates = input<PhaseDialogData['missionDates']>(null);
   /** Thermal engineers and owners change modes and phases (the server says so too). */
   readonly canEdit = input(false);
   /** A mode or phase was added, changed or removed. */
@@ -150,7 +152,7 @@ export class PhasesPanel {
   }
 
   protected editPhase(phase: MissionPhase | null): void {
-    this.after(PhaseDialog.open(this.dialog, { missionId: this.missionId(), phase, modes: this.modes() }), 'Phase saved.');
+    this.after(PhaseDialog.open(this.dialog, { missionId: this.missionId(), phase, modes: this.modes(), missionDates: this.missionDates() }), 'Phase saved.');
   }
 
   private remove(title: string, message: string, request: () => Observable<void>): void {
