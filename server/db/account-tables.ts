@@ -23,6 +23,12 @@ export const workspaces = sqliteTable('workspaces', {
   createdAt: createdAt(),
 });
 
+/** A row that belongs to one workspace and goes with it. */
+export const workspaceRef = () =>
+  text('workspace_id')
+    .notNull()
+    .references(() => workspaces.id, { onDelete: 'cascade' });
+
 export const memberships = sqliteTable(
   'memberships',
   {
@@ -30,9 +36,7 @@ export const memberships = sqliteTable(
     userId: text('user_id')
       .notNull()
       .references(() => users.id, { onDelete: 'cascade' }),
-    workspaceId: text('workspace_id')
-      .notNull()
-      .references(() => workspaces.id, { onDelete: 'cascade' }),
+    workspaceId: workspaceRef(),
     role: text('role', { enum: roles }).notNull(),
     createdAt: createdAt(),
   },
@@ -63,9 +67,7 @@ export const invitations = sqliteTable(
   'invitations',
   {
     id: id(),
-    workspaceId: text('workspace_id')
-      .notNull()
-      .references(() => workspaces.id, { onDelete: 'cascade' }),
+    workspaceId: workspaceRef(),
     email: text('email').notNull(),
     role: text('role', { enum: roles }).notNull(),
     tokenHash: text('token_hash').notNull().unique(),

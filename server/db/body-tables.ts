@@ -4,16 +4,14 @@
 import { index, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import type { CustomBodyDefinition } from '../../shared/physics/custom-bodies';
 import { createdAt, id, updatedAt } from './columns';
-import { users, workspaces } from './account-tables';
+import { users, workspaceRef } from './account-tables';
 
 export const customBodies = sqliteTable(
   'custom_bodies',
   {
     /** A UUID; the API's body id is "custom-" and this. */
     id: id(),
-    workspaceId: text('workspace_id')
-      .notNull()
-      .references(() => workspaces.id, { onDelete: 'cascade' }),
+    workspaceId: workspaceRef(),
     name: text('name').notNull(),
     /** Everything but the id and the name, in the physics' own shape. */
     definition: text('definition', { mode: 'json' }).$type<Omit<CustomBodyDefinition, 'id' | 'name'>>().notNull(),

@@ -5,19 +5,15 @@ import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-or
 import type { CaseInputs, CaseResultsContent } from '../../shared/api/case-content';
 import { caseKinds, caseStatuses } from '../../shared/api/case-content';
 import { createdAt, id, updatedAt } from './columns';
-import { missions } from './mission-tables';
-import { users, workspaces } from './account-tables';
+import { missionRef } from './mission-tables';
+import { users, workspaceRef } from './account-tables';
 
 export const loadCases = sqliteTable(
   'load_cases',
   {
     id: id(),
-    missionId: text('mission_id')
-      .notNull()
-      .references(() => missions.id, { onDelete: 'cascade' }),
-    workspaceId: text('workspace_id')
-      .notNull()
-      .references(() => workspaces.id, { onDelete: 'cascade' }),
+    missionId: missionRef(),
+    workspaceId: workspaceRef(),
     /** Shared by every revision of one case. */
     seriesId: text('series_id').notNull(),
     revision: integer('revision').notNull(),

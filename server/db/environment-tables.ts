@@ -3,15 +3,13 @@
 import { index, integer, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import { bodyIds } from '../../shared/physics/bodies';
 import { createdAt, id } from './columns';
-import { workspaces } from './account-tables';
+import { workspaceRef } from './account-tables';
 
 export const environmentTableRows = sqliteTable(
   'environment_table_rows',
   {
     id: id(),
-    workspaceId: text('workspace_id')
-      .notNull()
-      .references(() => workspaces.id, { onDelete: 'cascade' }),
+    workspaceId: workspaceRef(),
     /** The row's place in the table as the user ordered it. */
     position: integer('position').notNull(),
     bodyId: text('body_id', { enum: bodyIds }).notNull(),

@@ -3,16 +3,14 @@
 // positions in km and velocities in km/s in the declared inertial frame centred on the mission's body.
 import { blob, index, integer, primaryKey, real, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import { createdAt, id } from './columns';
-import { missions } from './mission-tables';
+import { missionRef } from './mission-tables';
 import { users } from './account-tables';
 
 export const ephemerides = sqliteTable(
   'ephemerides',
   {
     id: id(),
-    missionId: text('mission_id')
-      .notNull()
-      .references(() => missions.id, { onDelete: 'cascade' }),
+    missionId: missionRef(),
     name: text('name').notNull(),
     /** The declared inertial frame, upper case (EME2000, ICRF, GCRF, J2000). */
     frame: text('frame').notNull(),

@@ -5,15 +5,13 @@ import type { AnyBodyId } from '../../shared/physics/bodies';
 import { orbitDefinitions } from '../../shared/api/missions';
 import type { SurfaceNormal } from '../../shared/physics/pointing';
 import { createdAt, id, updatedAt } from './columns';
-import { users, workspaces } from './account-tables';
+import { users, workspaceRef, workspaces } from './account-tables';
 
 export const missions = sqliteTable(
   'missions',
   {
     id: id(),
-    workspaceId: text('workspace_id')
-      .notNull()
-      .references(() => workspaces.id, { onDelete: 'cascade' }),
+    workspaceId: workspaceRef(),
     name: text('name').notNull(),
     bodyId: text('body_id').$type<AnyBodyId>().notNull(),
     description: text('description').notNull().default(''),
@@ -28,13 +26,17 @@ export const missions = sqliteTable(
   (t) => [index('missions_workspace').on(t.workspaceId)],
 );
 
+/** A row that belongs to one mission and goes with it. */
+export const missionRef = () =>
+  text('mission_id')
+    .notNull()
+    .references(() => missions.id, { onDelete: 'cascade' });
+
 export const orbits = sqliteTable(
   'orbits',
   {
     id: id(),
-    missionId: text('mission_id')
-      .notNull()
-      .references(() => missions.id, { onDelete: 'cascade' }),
+    missionId: missionRef(),
     name: text('name').notNull(),
     definition: text('definition', { enum: orbitDefinitions }).notNull(),
     /** JSON of the fields as typed, e.g. {"periapsisAltitudeKm": "550 km"}. */
@@ -75,9 +77,7 @@ export const surfaces = sqliteTable(
   'surfaces',
   {
     id: id(),
-    missionId: text('mission_id')
-      .notNull()
-      .references(() => missions.id, { onDelete: 'cascade' }),
+    missionId: missionRef(),
     name: text('name').notNull(),
     areaM2: real('area_m2').notNull(),
     /** The pointing as JSON: a named normal ("nadir"), a unit vector {"x":..,"y":..,"z":..} or another form of shared/api/pointing.ts. */

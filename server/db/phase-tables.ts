@@ -5,12 +5,7 @@ import { index, integer, sqliteTable, text } from 'drizzle-orm/sqlite-core';
 import type { PhaseDissipation } from '../../shared/api/phases';
 import type { SurfaceNormal } from '../../shared/api/missions';
 import { createdAt, id, updatedAt } from './columns';
-import { missions } from './mission-tables';
-
-const missionRef = () =>
-  text('mission_id')
-    .notNull()
-    .references(() => missions.id, { onDelete: 'cascade' });
+import { missionRef } from './mission-tables';
 
 export const attitudeModes = sqliteTable(
   'attitude_modes',

@@ -5,19 +5,15 @@ import { index, integer, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqli
 import type { ThermalModelContent, ThermalRunResponse } from '../../shared/api/thermal-models';
 import { createdAt, id, updatedAt } from './columns';
 import { loadCases } from './case-tables';
-import { missions } from './mission-tables';
-import { users, workspaces } from './account-tables';
+import { missionRef } from './mission-tables';
+import { users, workspaceRef } from './account-tables';
 
 export const thermalModels = sqliteTable(
   'thermal_models',
   {
     id: id(),
-    missionId: text('mission_id')
-      .notNull()
-      .references(() => missions.id, { onDelete: 'cascade' }),
-    workspaceId: text('workspace_id')
-      .notNull()
-      .references(() => workspaces.id, { onDelete: 'cascade' }),
+    missionId: missionRef(),
+    workspaceId: workspaceRef(),
     name: text('name').notNull(),
     description: text('description').notNull().default(''),
     model: text('model', { mode: 'json' }).$type<ThermalModelContent>().notNull(),

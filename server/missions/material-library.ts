@@ -29,28 +29,26 @@ export function assumedEolAbsorptivity(absorptivityBol: number): number {
   return Math.min(MAX_LIBRARY_ABSORPTIVITY, Math.floor((absorptivityBol + rise) * 100 + 1e-9) / 100);
 }
 
-function assumedEol(name: string, absorptivityBol: number, emissivityBol: number): LibraryMaterial {
-  const absorptivityEol = assumedEolAbsorptivity(absorptivityBol);
-  const rule = absorptivityEol < Math.round((absorptivityBol + 0.05) * 100) / 100 ? 'BOL + half the distance to 1' : 'BOL + 0.05';
+/** A library material: emissivity kept at end of life, the source naming where each value comes from. */
+function libraryMaterial(name: string, absorptivityBol: number, emissivityBol: number, absorptivityEol: number, eolWords: string): LibraryMaterial {
   return {
     name,
     absorptivityBol,
     emissivityBol,
     absorptivityEol,
     emissivityEol: emissivityBol,
-    source: `${bolSource}. EOL absorptivity ${absorptivityEol} = ${rule}, no published degradation figure at hand (common practice, no source). ${emissivityKept}.`,
+    source: `${bolSource}. ${eolWords}. ${emissivityKept}.`,
   };
 }
 
+function assumedEol(name: string, absorptivityBol: number, emissivityBol: number): LibraryMaterial {
+  const absorptivityEol = assumedEolAbsorptivity(absorptivityBol);
+  const rule = absorptivityEol < Math.round((absorptivityBol + 0.05) * 100) / 100 ? 'BOL + half the distance to 1' : 'BOL + 0.05';
+  return libraryMaterial(name, absorptivityBol, emissivityBol, absorptivityEol, `EOL absorptivity ${absorptivityEol} = ${rule}, no published degradation figure at hand (common practice, no source)`);
+}
+
 function rangedEol(name: string, absorptivityBol: number, emissivityBol: number, range: string, absorptivityEol: number): LibraryMaterial {
-  return {
-    name,
-    absorptivityBol,
-    emissivityBol,
-    absorptivityEol,
-    emissivityEol: emissivityBol,
-    source: `${bolSource}. ${eolFromRange(range, absorptivityEol)}. ${emissivityKept}.`,
-  };
+  return libraryMaterial(name, absorptivityBol, emissivityBol, absorptivityEol, eolFromRange(range, absorptivityEol));
 }
 
 /** DOMAIN.md "Optical properties, beginning of life" [S: F, G App. A], in its order. */

@@ -95,7 +95,8 @@ export const environmentRequest = z
     message: 'give an epoch (it sets the Sun) or a betaDeg',
   });
 
-const surfaceLoad = z.object({
+/** A surface's loads (incident fluxes and the power absorbed); the ephemeris answers use it too. */
+export const surfaceLoad = z.object({
   name: z.string(),
   solarWm2: z.number(),
   albedoWm2: z.number(),

@@ -15,6 +15,7 @@
 //   POST   missions/:id/ephemerides/:ephemerisId/cases  ephemerisCaseCreate -> 201 caseDetail (a custom
 //            case, draft, from a window of the ephemeris; thermal engineers and owners)
 import { z } from 'zod';
+import { surfaceLoad } from './environment';
 import { lineText } from './text';
 import { ephemerisFrames, type EphemerisFrame } from './plain-lists';
 
@@ -118,13 +119,6 @@ export const ephemerisCaseCreate = z
   })
   .refine(windowOrder, windowOrderError);
 
-const surfaceLoad = z.object({
-  name: z.string(),
-  solarWm2: z.number(),
-  albedoWm2: z.number(),
-  irWm2: z.number(),
-  absorbedW: z.number(),
-});
 
 export const trajectoryEnvironmentResponse = z.object({
   ephemerisId: z.string(),

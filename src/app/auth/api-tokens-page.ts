@@ -18,12 +18,14 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { apiPath } from '../api/api-path';
 import { loaded } from '../api/loaded';
 import { ConfirmDialog } from '../shell/confirm-dialog';
+import { RowActions } from '../shell/row-actions';
 import { UtcTimePipe } from '../time/utc-time-pipe';
 
 /** Personal API tokens: other teams' scripts import released cases with them. */
 @Component({
   selector: 'ecl-api-tokens-page',
   imports: [
+    RowActions,
     ReactiveFormsModule,
     UtcTimePipe,
     MatTableModule,

@@ -1,13 +1,13 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MatCheckbox } from '@angular/material/checkbox';
-import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import type { CaseDerive, CaseDetail } from '../../../shared/api/cases';
+import { DialogButtons } from '../shell/dialog-buttons';
 import { dialogSubmit } from '../shell/dialog-submit';
 import { CaseApi } from './case-api';
 import { MarginFields, marginGroup } from './margin-fields';
@@ -22,8 +22,8 @@ export interface CaseDeriveData {
 @Component({
   selector: 'ecl-case-derive-dialog',
   imports: [
-    ReactiveFormsModule, MatButton, MatButtonToggleGroup, MatButtonToggle, MatDialogTitle, MatDialogContent, MatDialogActions,
-    MatDialogClose, MatFormField, MatLabel, MatHint, MatInput, MatProgressBar, MarginFields, MissionOrbitPicker, MatCheckbox,
+    ReactiveFormsModule, MatButtonToggleGroup, MatButtonToggle, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons,
+    MatFormField, MatLabel, MatHint, MatInput, MatProgressBar, MarginFields, MissionOrbitPicker, MatCheckbox,
   ],
   templateUrl: './case-derive-dialog.html',
   styleUrl: './case-dialog.css',
@@ -32,6 +32,12 @@ export interface CaseDeriveData {
 export class CaseDeriveDialog {
   private readonly api = inject(CaseApi);
   private readonly data = inject<CaseDeriveData>(MAT_DIALOG_DATA);
+
+  /** The property set of each case derived, with why its default is what it is. */
+  protected readonly propertyRows = [
+    { control: 'hot', label: 'Hot case', note: 'default EOL: absorptivity is highest at end of life' },
+    { control: 'cold', label: 'Cold case', note: 'default BOL' },
+  ] as const;
 
   protected readonly form = inject(NonNullableFormBuilder).group({
     missionId: [this.data.missionId ?? '', Validators.required],

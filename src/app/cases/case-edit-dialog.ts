@@ -2,11 +2,12 @@ import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import type { CaseDetail, CaseUpdate } from '../../../shared/api/cases';
+import { DialogButtons } from '../shell/dialog-buttons';
 import { dialogSubmit } from '../shell/dialog-submit';
 import { CaseApi } from './case-api';
 import { MarginFields, marginGroup } from './margin-fields';
@@ -18,7 +19,7 @@ import { MarginFields, marginGroup } from './margin-fields';
 @Component({
   selector: 'ecl-case-edit-dialog',
   imports: [
-    ReactiveFormsModule, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatDialogClose,
+    ReactiveFormsModule, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons,
     MatFormField, MatLabel, MatError, MatInput, MatProgressBar, MarginFields,
   ],
   template: `
@@ -39,12 +40,10 @@ import { MarginFields, marginGroup } from './margin-fields';
         <p class="ecl-error refusal" role="alert" data-testid="edit-error">{{ message }}</p>
       }
     </mat-dialog-content>
-    <mat-dialog-actions align="end">
-      <button mat-button type="button" mat-dialog-close [disabled]="submit.busy()">Cancel</button>
+    <mat-dialog-actions align="end" eclDialogButtons [busy]="submit.busy()" [cancelLocked]="true" formId="edit-form" label="Save" testid="edit-save">
       @if (stale()) {
         <button mat-stroked-button type="button" (click)="loadLatest()" [disabled]="submit.busy()" data-testid="edit-reload">Load the latest</button>
       }
-      <button mat-flat-button type="submit" form="edit-form" [disabled]="submit.busy()" data-testid="edit-save">Save</button>
     </mat-dialog-actions>
   `,
   styleUrl: './case-dialog.css',

@@ -1,11 +1,11 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import type { CaseCreate, CaseDetail } from '../../../shared/api/cases';
+import { DialogButtons } from '../shell/dialog-buttons';
 import { dialogSubmit } from '../shell/dialog-submit';
 import { CaseApi } from './case-api';
 import type { CaseDeriveData } from './case-derive-dialog';
@@ -18,8 +18,8 @@ import { isoDateValidator } from '../time/iso-date-validator';
 @Component({
   selector: 'ecl-custom-case-dialog',
   imports: [
-    ReactiveFormsModule, MatButton, CaseTreatmentToggles, MatDialogTitle, MatDialogContent, MatDialogActions,
-    MatDialogClose, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatProgressBar, MarginFields, MissionOrbitPicker,
+    ReactiveFormsModule, CaseTreatmentToggles, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons,
+    MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatProgressBar, MarginFields, MissionOrbitPicker,
   ],
   templateUrl: './custom-case-dialog.html',
   styleUrl: './case-dialog.css',

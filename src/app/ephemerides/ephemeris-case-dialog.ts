@@ -1,7 +1,6 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogClose, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatProgressBar } from '@angular/material/progress-bar';
@@ -10,6 +9,7 @@ import type { CaseDetail } from '../../../shared/api/cases';
 import type { EphemerisSummary } from '../../../shared/api/ephemerides';
 import { CaseTreatmentToggles } from '../cases/case-treatment-toggles';
 import { MarginFields, marginGroup } from '../cases/margin-fields';
+import { DialogButtons } from '../shell/dialog-buttons';
 import { dialogSubmit } from '../shell/dialog-submit';
 import { EphemerisApi } from './ephemeris-api';
 import { windowText } from './ephemeris-window';
@@ -27,8 +27,8 @@ export interface EphemerisCaseData {
 @Component({
   selector: 'ecl-ephemeris-case-dialog',
   imports: [
-    ReactiveFormsModule, MatButton, CaseTreatmentToggles, MatDialogTitle, MatDialogContent, MatDialogActions,
-    MatDialogClose, MatFormField, MatLabel, MatError, MatInput, MatProgressBar, MarginFields,
+    ReactiveFormsModule, CaseTreatmentToggles, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons,
+    MatFormField, MatLabel, MatError, MatInput, MatProgressBar, MarginFields,
   ],
   template: `
     <h2 mat-dialog-title>Load case from this window</h2>
@@ -54,10 +54,7 @@ export interface EphemerisCaseData {
         <p class="ecl-error" role="alert" data-testid="ephemeris-case-error">{{ message }}</p>
       }
     </mat-dialog-content>
-    <mat-dialog-actions align="end">
-      <button mat-button type="button" mat-dialog-close [disabled]="submit.busy()">Cancel</button>
-      <button mat-flat-button type="submit" form="ephemeris-case-form" [disabled]="submit.busy()" data-testid="ephemeris-case-submit">Create case</button>
-    </mat-dialog-actions>
+    <mat-dialog-actions align="end" eclDialogButtons [busy]="submit.busy()" [cancelLocked]="true" formId="ephemeris-case-form" label="Create case" testid="ephemeris-case-submit" />
   `,
   styleUrl: '../cases/case-dialog.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -16,6 +16,7 @@ import { loaded } from '../api/loaded';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { ConfirmDialog } from '../shell/confirm-dialog';
 import { DesignCaution } from '../shell/design-caution';
+import { RowActions } from '../shell/row-actions';
 import { EphemerisApi } from './ephemeris-api';
 import { EphemerisCaseDialog } from './ephemeris-case-dialog';
 import { isoFromUtcField, utcFieldValue, windowText } from './ephemeris-window';
@@ -27,6 +28,7 @@ import { UtcTimePipe } from '../time/utc-time-pipe';
 @Component({
   selector: 'ecl-mission-ephemerides',
   imports: [
+    RowActions,
     UtcTimePipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatSelect, MatOption,
     TimeSeriesPlot, DesignCaution, EphemerisUpload,
   ],

@@ -1,15 +1,16 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { map, Observable } from 'rxjs';
 import type { BodySummaryResponse } from '../../../shared/api/environment';
 import type { Mission } from '../../../shared/api/missions';
+import { DialogButtons } from '../shell/dialog-buttons';
+import { LabelledField } from '../shell/labelled-field';
 import { dialogSubmit, refusalDetails } from '../shell/dialog-submit';
 import { MissionApi } from './mission-api';
 import { isoDateValidator } from '../time/iso-date-validator';
@@ -25,16 +26,12 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
 /** Creates or edits a mission's facts: name, central body, dates, crewed. */
 @Component({
   selector: 'ecl-mission-form-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption],
+  imports: [ReactiveFormsModule, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, LabelledField, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption],
   template: `
     <h2 mat-dialog-title>{{ data.mission ? 'Edit the mission' : 'New mission' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="fields">
-        <mat-form-field appearance="outline">
-          <mat-label>Mission name</mat-label>
-          <input matInput formControlName="name" data-testid="mission-name" cdkFocusInitial />
-          <mat-error>{{ problems()['name'] ?? 'Give the mission a name.' }}</mat-error>
-        </mat-form-field>
+        <ecl-field [control]="form.controls.name" label="Mission name" testid="mission-name" initialFocus [error]="problems()['name'] ?? 'Give the mission a name.'" />
         <mat-form-field appearance="outline">
           <mat-label>Central body</mat-label>
           <mat-select formControlName="bodyId" data-testid="mission-body">
@@ -44,17 +41,9 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
           </mat-select>
           <mat-error>{{ problems()['bodyId'] ?? 'Choose the body the spacecraft orbits.' }}</mat-error>
         </mat-form-field>
-        <div class="dates">
-          <mat-form-field appearance="outline" subscriptSizing="dynamic">
-            <mat-label>Start (UTC date)</mat-label>
-            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="startDate" data-testid="mission-start" />
-            <mat-error>{{ problems()['startDate'] ?? 'Give the start date as YYYY-MM-DD, e.g. 2027-06-01.' }}</mat-error>
-          </mat-form-field>
-          <mat-form-field appearance="outline" subscriptSizing="dynamic">
-            <mat-label>End (UTC date)</mat-label>
-            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="endDate" data-testid="mission-end" />
-            <mat-error data-testid="mission-end-error">{{ problems()['endDate'] ?? 'Give the end date as YYYY-MM-DD, e.g. 2028-06-01.' }}</mat-error>
-          </mat-form-field>
+        <div class="ecl-pair">
+          <ecl-field [control]="form.controls.startDate" kind="date" label="Start (UTC date)" testid="mission-start" [error]="problems()['startDate'] ?? 'Give the start date as YYYY-MM-DD, e.g. 2027-06-01.'" />
+          <ecl-field [control]="form.controls.endDate" kind="date" label="End (UTC date)" testid="mission-end" errorTestid="mission-end-error" [error]="problems()['endDate'] ?? 'Give the end date as YYYY-MM-DD, e.g. 2028-06-01.'" />
         </div>
         <mat-form-field appearance="outline">
           <mat-label>Description</mat-label>
@@ -66,12 +55,7 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
           <p class="ecl-error" role="alert" data-testid="mission-form-error">{{ message }}</p>
         }
       </mat-dialog-content>
-      <mat-dialog-actions align="end">
-        <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="mission-save">
-          {{ data.mission ? 'Save' : 'Create mission' }}
-        </button>
-      </mat-dialog-actions>
+      <mat-dialog-actions align="end" eclDialogButtons [busy]="submit.busy()" [label]="data.mission ? 'Save' : 'Create mission'" testid="mission-save" />
     </form>
   `,
   styles: `
@@ -81,21 +65,12 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
       gap: 4px;
       min-width: min(480px, 80vw);
     }
-    .dates {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 0 12px;
-    }
-    .dates mat-form-field {
-      flex: 1 1 180px;
-    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class MissionFormDialog {
   private readonly api = inject(MissionApi);
   protected readonly data = inject<MissionFormData>(MAT_DIALOG_DATA);
-  protected readonly dialogRef = inject<MatDialogRef<MissionFormDialog, Mission>>(MatDialogRef);
   // the catalogue and this workspace's own bodies (another workspace's could not be its body)
   protected readonly bodies = toSignal<BodySummaryResponse[]>(
     this.api.bodies$.pipe(map((all) => all.filter((b) => b.workspaceId === undefined || b.workspaceId === this.data.workspaceId))),

@@ -19,6 +19,7 @@ import { OrbitEditor } from '../orbits/orbit-editor';
 import { ConfirmDialog } from '../shell/confirm-dialog';
 import { roleMayOpen } from '../shell/navigation';
 import { DesignCaution } from '../shell/design-caution';
+import { RowActions } from '../shell/row-actions';
 import { SurfacesPanel } from '../surfaces/surfaces-panel';
 import { PhasesPanel } from '../phases/phases-panel';
 import { CurrentWorkspace } from '../workspace/current-workspace';
@@ -31,6 +32,7 @@ import { UtcTimePipe } from '../time/utc-time-pipe';
 @Component({
   selector: 'ecl-mission-page',
   imports: [
+    RowActions,
     DurationPipe, UtcTimePipe,
     RouterLink, DecimalPipe, NgTemplateOutlet, MatButton, MatIcon, MatTabGroup, MatTab, MatTabContent, MatFormField, MatLabel, MatSelect, MatOption,
     OrbitEditor, SurfacesPanel, PhasesPanel, EnvironmentResults, MissionSweep, DesignCaution,

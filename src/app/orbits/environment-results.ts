@@ -19,16 +19,31 @@ import { OrbitView } from './orbit-view';
 import { nearestIndex } from '../plots/plot-scales';
 import { describeNormal } from '../surfaces/surface-normals';
 import { defaultFacesRequest, faceAverages } from './default-faces';
+import { FigureTable, type FigureColumn, type FigureRow } from './figure-table';
 
 /** The face plotted first: the Sun-pointing plate, the largest solar load. */
 const DEFAULT_FACE_SHOWN = 6;
 
+const FACE_COLUMNS: readonly FigureColumn[] = [
+  { label: 'Solar', digits: '1.1-1' },
+  { label: 'Albedo', digits: '1.1-1' },
+  { label: 'Planetary IR', digits: '1.1-1' },
+  { label: 'Total', digits: '1.1-1' },
+];
+const AVERAGE_COLUMNS: readonly FigureColumn[] = [
+  { label: 'Solar (W/m²)', digits: '1.1-1' },
+  { label: 'Albedo (W/m²)', digits: '1.1-1' },
+  { label: 'Planetary IR (W/m²)', digits: '1.1-1' },
+  { label: 'Absorbed, average (W)', digits: '1.2-2' },
+  { label: 'Absorbed, peak (W)', digits: '1.2-2' },
+];
+
 /** One saved orbit's environment with the mission's surfaces: figures, plots around the orbit, averages. */
 @Component({
   selector: 'ecl-environment-results',
-  imports: [DurationPipe, SourceWordsPipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot, OrbitView],
+  imports: [DurationPipe, SourceWordsPipe, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatSelect, MatOption, TimeSeriesPlot, OrbitView, FigureTable],
   templateUrl: './environment-results.html',
-  styleUrl: './environment-results.css',
+  styleUrls: ['./result-panel.css', './environment-results.css'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class EnvironmentResults {
@@ -97,14 +112,15 @@ export class EnvironmentResults {
     const a = this.bare() ? this.facesAnswer() : this.answer();
     return a && a.profile.length > 0 && this.plotNames().length > 0 ? fluxSeries(a.profile, this.plotIndex()) : [];
   });
-  protected readonly faceRows = computed(() => {
+  protected readonly faceColumns = FACE_COLUMNS;
+  protected readonly faceTable = computed<FigureRow[]>(() => {
     const a = this.facesAnswer();
-    return a ? faceAverages(a) : [];
+    return (a ? faceAverages(a) : []).map((r) => ({ name: r.name, values: [r.solarWm2, r.albedoWm2, r.irWm2, r.totalWm2] }));
   });
   private readonly shownIndex = computed(() => Math.min(this.surfaceIndex(), Math.max(0, this.surfaceNames().length - 1)));
   /** Each saved surface's pointing in words, by name. */
   private readonly pointingByName = computed(() => new Map(this.mission().surfaces.map((s) => [s.name, describeNormal(s.normal)])));
-  protected pointingOf(name: string): string {
+  private pointingOf(name: string): string {
     return this.pointingByName().get(name) ?? '';
   }
   protected readonly shownName = computed(() => this.surfaceNames()[this.shownIndex()] ?? '');
@@ -114,10 +130,16 @@ export class EnvironmentResults {
     const a = this.answer();
     return a && a.profile.length > 0 && this.surfaceNames().length > 0 ? absorbedSeries(a.profile, this.shownIndex()) : [];
   });
-  protected readonly averages = computed(() => {
+  protected readonly averageColumns = AVERAGE_COLUMNS;
+  /** Per surface, under its name how it is pointed. */
+  protected readonly averageTable = computed<FigureRow[]>(() => {
     const a = this.answer();
     if (!a) return [];
-    return a.orbitAverage.surfaces.map((avg, i) => ({ ...avg, peakW: a.peak.surfaces[i]?.absorbedW ?? NaN }));
+    return a.orbitAverage.surfaces.map((avg, i) => ({
+      name: avg.name,
+      note: this.pointingOf(avg.name),
+      values: [avg.solarWm2, avg.albedoWm2, avg.irWm2, avg.absorbedW, a.peak.surfaces[i]?.absorbedW ?? NaN],
+    }));
   });
 
   protected readonly fileStem = computed(() => `${this.mission().name}-${this.orbit().name}-${this.properties()}`.replace(/[^A-Za-z0-9._-]+/g, '-'));

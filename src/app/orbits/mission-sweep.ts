@@ -20,7 +20,7 @@ type SweepState = 'idle' | 'running' | 'done' | 'cancelled' | 'failed';
   selector: 'ecl-mission-sweep',
   imports: [DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatProgressBar, TimeSeriesPlot],
   templateUrl: './mission-sweep.html',
-  styleUrl: './mission-sweep.css',
+  styleUrls: ['./result-panel.css', './mission-sweep.css'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class MissionSweep {

@@ -1,12 +1,10 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, OnInit, afterNextRender, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, ElementRef, OnInit, afterNextRender, inject, input, output, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { ErrorStateMatcher } from '@angular/material/core';
-import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
-import { MatInput } from '@angular/material/input';
 import { HttpErrorResponse } from '@angular/common/http';
 import { Observable, catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 import type { BodySummaryResponse } from '../../../shared/api/environment';
@@ -14,6 +12,7 @@ import type { Orbit } from '../../../shared/api/missions';
 import { apiErrorMessage } from '../api/api-error-message';
 import { MissionApi } from '../missions/mission-api';
 import { readQuantityText } from '../missions/quantity-text';
+import { LabelledField } from '../shell/labelled-field';
 import { meanAltitudeKm, orbitFigures, type OrbitFigures } from './orbit-figures';
 import {
   NUMBER_FIELDS,
@@ -62,7 +61,7 @@ export function problemsFromFailure(failure: unknown): { problems: FieldProblems
 /** Defines or edits one orbit; derived figures follow the typing, checked by the server's physics. */
 @Component({
   selector: 'ecl-orbit-editor',
-  imports: [DurationPipe, ReactiveFormsModule, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSuffix],
+  imports: [DurationPipe, ReactiveFormsModule, DecimalPipe, MatButton, MatButtonToggleGroup, MatButtonToggle, LabelledField],
   templateUrl: './orbit-editor.html',
   styleUrl: './orbit-editor.css',
   providers: [{ provide: ErrorStateMatcher, useClass: ShowWhenInvalid }],
@@ -94,13 +93,14 @@ export class OrbitEditor implements OnInit {
 
   protected readonly form = buildOrbitForm(inject(NonNullableFormBuilder));
   protected readonly fields = NUMBER_FIELDS;
-  protected readonly orientationFields = ORIENTATION_FIELDS;
   protected readonly definitions: readonly { id: OrbitDefinition; label: string }[] = [
     { id: 'altitudes', label: 'Periapsis and apoapsis' },
     { id: 'semi-major-axis', label: 'Semi-major axis and e' },
     { id: 'period', label: 'Period and e' },
   ];
-  protected readonly shapeFields = signal(SHAPE_FIELDS.altitudes);
+  private readonly shapeFields = signal(SHAPE_FIELDS.altitudes);
+  /** The number fields in their two rows: the size and shape (as the definition chosen asks), then the orientation. */
+  protected readonly numberRows = computed(() => [this.shapeFields(), ORIENTATION_FIELDS]);
   private readonly previewState = signal<OrbitPreview>({ kind: 'computing' });
   readonly preview = this.previewState.asReadonly();
   protected readonly saveFailure = signal<string | null>(null);

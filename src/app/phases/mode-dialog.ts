@@ -2,16 +2,17 @@ import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormArray, FormControl, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
-import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
+import { MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { map, merge, type Observable } from 'rxjs';
 import type { Surface, SurfaceNormal } from '../../../shared/api/missions';
 import type { AttitudeMode } from '../../../shared/api/phases';
 import { apiErrorMessage } from '../api/api-error-message';
+import { DialogButtons } from '../shell/dialog-buttons';
+import { LabelledField } from '../shell/labelled-field';
 import { dialogSubmit, placedBeside } from '../shell/dialog-submit';
 import { PointingEditor, pointingForm, readPointingForm } from '../surfaces/pointing-editor';
 import { describeNormal } from '../surfaces/surface-normals';
@@ -29,16 +30,12 @@ type Choice = '' | 'set';
 /** Adds or edits an attitude mode: where each surface points in it, and whether it yaw-steers. */
 @Component({
   selector: 'ecl-mode-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatHint, MatSelect, MatOption, PointingEditor],
+  imports: [ReactiveFormsModule, MatCheckbox, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, LabelledField, MatFormField, MatLabel, MatInput, MatHint, MatSelect, MatOption, PointingEditor],
   template: `
     <h2 mat-dialog-title>{{ data.mode ? 'Edit the attitude mode' : 'New attitude mode' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="fields">
-        <mat-form-field appearance="outline">
-          <mat-label>Mode name</mat-label>
-          <input matInput formControlName="name" data-testid="mode-name" cdkFocusInitial />
-          <mat-error>{{ problem() ?? 'Give the mode a name, e.g. nadir imaging.' }}</mat-error>
-        </mat-form-field>
+        <ecl-field [control]="form.controls.name" label="Mode name" testid="mode-name" initialFocus [error]="problem() ?? 'Give the mode a name, e.g. nadir imaging.'" />
         <mat-form-field appearance="outline">
           <mat-label>Description</mat-label>
           <textarea matInput formControlName="description" rows="2" data-testid="mode-description"></textarea>
@@ -65,10 +62,7 @@ type Choice = '' | 'set';
           <p class="ecl-error" role="alert" data-testid="mode-form-error">{{ message }}</p>
         }
       </mat-dialog-content>
-      <mat-dialog-actions align="end">
-        <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="mode-save">{{ data.mode ? 'Save' : 'Add mode' }}</button>
-      </mat-dialog-actions>
+      <mat-dialog-actions align="end" eclDialogButtons [busy]="submit.busy()" [label]="data.mode ? 'Save' : 'Add mode'" testid="mode-save" />
     </form>
   `,
   styles: `
@@ -83,7 +77,6 @@ type Choice = '' | 'set';
 export class ModeDialog {
   private readonly api = inject(PhaseApi);
   protected readonly data = inject<ModeDialogData>(MAT_DIALOG_DATA);
-  protected readonly dialogRef = inject<MatDialogRef<ModeDialog, AttitudeMode>>(MatDialogRef);
   protected readonly problem = signal<string | null>(null);
 
   private readonly pointed = new Map((this.data.mode?.pointing ?? []).map((p) => [p.surfaceId, p.normal as SurfaceNormal]));

@@ -1,13 +1,15 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { FormArray, FormGroup, NonNullableFormBuilder, ReactiveFormsModule, Validators, type FormControl } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
 import { MatOption, MatSelect } from '@angular/material/select';
 import type { Observable } from 'rxjs';
 import type { AttitudeMode, MissionPhase, PhaseDissipation } from '../../../shared/api/phases';
+import { DialogButtons } from '../shell/dialog-buttons';
+import { LabelledField } from '../shell/labelled-field';
 import { dialogSubmit, placedBeside } from '../shell/dialog-submit';
 import { isoDateValidator } from '../time/iso-date-validator';
 import { PhaseApi } from './phase-api';
@@ -33,27 +35,15 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
 /** Adds or edits a phase: its dates (UTC days, both included), its attitude mode and each node's dissipation. */
 @Component({
   selector: 'ecl-phase-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatIconButton, MatIcon, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatSelect, MatOption],
+  imports: [ReactiveFormsModule, MatButton, MatIconButton, MatIcon, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, LabelledField, MatFormField, MatLabel, MatInput, MatError, MatSelect, MatOption],
   template: `
     <h2 mat-dialog-title>{{ data.phase ? 'Edit the phase' : 'New phase' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="fields">
-        <mat-form-field appearance="outline">
-          <mat-label>Phase name</mat-label>
-          <input matInput formControlName="name" data-testid="phase-name" cdkFocusInitial />
-          <mat-error>{{ problems()['name'] ?? 'Give the phase a name, e.g. commissioning.' }}</mat-error>
-        </mat-form-field>
-        <div class="pair">
-          <mat-form-field appearance="outline" subscriptSizing="dynamic">
-            <mat-label>From (UTC date)</mat-label>
-            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="startDate" data-testid="phase-start" />
-            <mat-error data-testid="phase-start-error">{{ problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.' }}</mat-error>
-          </mat-form-field>
-          <mat-form-field appearance="outline" subscriptSizing="dynamic">
-            <mat-label>To (UTC date, included)</mat-label>
-            <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="endDate" data-testid="phase-end" />
-            <mat-error data-testid="phase-end-error">{{ problems()['endDate'] ?? 'Give the last day as YYYY-MM-DD.' }}</mat-error>
-          </mat-form-field>
+        <ecl-field [control]="form.controls.name" label="Phase name" testid="phase-name" initialFocus [error]="problems()['name'] ?? 'Give the phase a name, e.g. commissioning.'" />
+        <div class="ecl-pair">
+          <ecl-field [control]="form.controls.startDate" kind="date" label="From (UTC date)" testid="phase-start" errorTestid="phase-start-error" [error]="problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.'" />
+          <ecl-field [control]="form.controls.endDate" kind="date" label="To (UTC date, included)" testid="phase-end" errorTestid="phase-end-error" [error]="problems()['endDate'] ?? 'Give the last day as YYYY-MM-DD.'" />
         </div>
         @if (data.missionDates; as m) {
           <p class="ecl-muted hint" data-testid="phase-mission-dates">The mission runs {{ m.startDate }} to {{ m.endDate }} (UTC); a phase lies within them and shares no day with another phase.</p>
@@ -99,16 +89,11 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
           <p class="ecl-error" role="alert" data-testid="phase-form-error">{{ message }}</p>
         }
       </mat-dialog-content>
-      <mat-dialog-actions align="end">
-        <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="phase-save">{{ data.phase ? 'Save' : 'Add phase' }}</button>
-      </mat-dialog-actions>
+      <mat-dialog-actions align="end" eclDialogButtons [busy]="submit.busy()" [label]="data.phase ? 'Save' : 'Add phase'" testid="phase-save" />
     </form>
   `,
   styles: `
     .fields { display: flex; flex-direction: column; gap: 6px; min-width: min(560px, 80vw); }
-    .pair { display: flex; flex-wrap: wrap; gap: 0 12px; }
-    .pair mat-form-field { flex: 1 1 180px; }
     h3 { font: var(--mat-sys-title-small); margin: 8px 0 0; }
     .hint { margin: 0 0 4px; font: var(--mat-sys-body-small); }
     .row { display: flex; flex-wrap: wrap; gap: 6px; align-items: center; }
@@ -121,7 +106,6 @@ export class PhaseDialog {
   private readonly api = inject(PhaseApi);
   private readonly fb = inject(NonNullableFormBuilder);
   protected readonly data = inject<PhaseDialogData>(MAT_DIALOG_DATA);
-  protected readonly dialogRef = inject<MatDialogRef<PhaseDialog, MissionPhase>>(MatDialogRef);
   /** A refusal for the node rows, which no single field shows. */
   protected readonly rowProblem = signal<string | null>(null);
   protected readonly problems = signal<Partial<Record<'name' | 'startDate' | 'endDate' | 'modeId', string>>>({});

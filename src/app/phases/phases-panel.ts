@@ -10,6 +10,7 @@ import type { AttitudeMode, MissionPhase } from '../../../shared/api/phases';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { ConfirmDialog } from '../shell/confirm-dialog';
+import { RowActions } from '../shell/row-actions';
 import { ModeDialog } from './mode-dialog';
 import { PhaseApi } from './phase-api';
 import { PhaseDialog, type PhaseDialogData } from './phase-dialog';
@@ -18,7 +19,7 @@ import { dissipationText, pointingText } from './phase-words';
 /** A mission's attitude modes (how each surface is pointed) and its phases (dates, mode, dissipation per node). */
 @Component({
   selector: 'ecl-phases-panel',
-  imports: [MatButton, MatIcon],
+  imports: [MatButton, MatIcon, RowActions],
   template: `
     <section aria-labelledby="modes-heading">
       <h2 id="modes-heading">Attitude modes</h2>
@@ -37,10 +38,7 @@ import { dissipationText, pointingText } from './phase-words';
                   <th scope="row">{{ m.name }}@if (m.description) {<div class="note">{{ m.description }}</div>}</th>
                   <td>{{ pointingText(m) }}</td>
                   @if (canEdit()) {
-                    <td class="row-actions">
-                      <button mat-button type="button" (click)="editMode(m)" [attr.aria-label]="'Edit mode ' + m.name">Edit</button>
-                      <button mat-button type="button" (click)="deleteMode(m)" [attr.aria-label]="'Delete mode ' + m.name">Delete</button>
-                    </td>
+                    <td eclRowActions layout="stack-narrow" [name]="'mode ' + m.name" (edit)="editMode(m)" (remove)="deleteMode(m)"></td>
                   }
                 </tr>
               }
@@ -81,10 +79,7 @@ import { dissipationText, pointingText } from './phase-words';
                     </ul>
                   </td>
                   @if (canEdit()) {
-                    <td class="row-actions">
-                      <button mat-button type="button" (click)="editPhase(p)" [attr.aria-label]="'Edit phase ' + p.name">Edit</button>
-                      <button mat-button type="button" (click)="deletePhase(p)" [attr.aria-label]="'Delete phase ' + p.name">Delete</button>
-                    </td>
+                    <td eclRowActions layout="stack-narrow" [name]="'phase ' + p.name" (edit)="editPhase(p)" (remove)="deletePhase(p)"></td>
                   }
                 </tr>
               }
@@ -109,11 +104,9 @@ import { dissipationText, pointingText } from './phase-words';
     .note { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); font-weight: normal; }
     .date { white-space: nowrap; font-variant-numeric: tabular-nums; }
     .dissipation { margin: 0; padding: 0; list-style: none; }
-    .row-actions { text-align: right; white-space: nowrap; }
     .actions { display: flex; gap: 8px; align-items: center; flex-wrap: wrap; }
     @media (max-width: 600px) {
       table.plain th, table.plain td { padding: 6px 6px; }
-      .row-actions button { display: block; min-width: 0; }
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -67,8 +67,8 @@ export class ShellLayout {
   );
 
   protected readonly entries = computed(() => navEntriesFor(this.workspace.membership(), this.session.user()?.isAdmin ?? false));
-  protected readonly workspaceEntries = computed(() => this.entries().filter((e) => e.link[0] === '/w'));
-  protected readonly otherEntries = computed(() => this.entries().filter((e) => e.link[0] !== '/w'));
+  /** The workspace's sections, then the others (account, administration), a divider between. */
+  protected readonly navGroups = computed(() => [this.entries().filter((e) => e.link[0] === '/w'), this.entries().filter((e) => e.link[0] !== '/w')]);
 
   protected skipToContent(event: Event): void {
     // A plain #fragment would resolve against <base href> and leave the page; move focus instead.

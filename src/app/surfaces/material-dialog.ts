@@ -1,12 +1,12 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { Observable } from 'rxjs';
 import type { Material } from '../../../shared/api/missions';
 import { MissionApi } from '../missions/mission-api';
+import { DialogButtons } from '../shell/dialog-buttons';
 import { dialogSubmit } from '../shell/dialog-submit';
 
 const fraction = [Validators.required, Validators.min(0), Validators.max(1)];
@@ -14,7 +14,7 @@ const fraction = [Validators.required, Validators.min(0), Validators.max(1)];
 /** A workspace's own surface finish, beside the built-in library. */
 @Component({
   selector: 'ecl-material-dialog',
-  imports: [ReactiveFormsModule, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel, MatInput, MatError, MatHint],
+  imports: [ReactiveFormsModule, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, MatFormField, MatLabel, MatInput, MatError, MatHint],
   template: `
     <h2 mat-dialog-title>Add a material</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
@@ -42,10 +42,7 @@ const fraction = [Validators.required, Validators.min(0), Validators.max(1)];
           <p class="ecl-error" role="alert">{{ message }}</p>
         }
       </mat-dialog-content>
-      <mat-dialog-actions align="end">
-        <button mat-button type="button" (click)="dialogRef.close()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="submit.busy()" data-testid="material-save">Add material</button>
-      </mat-dialog-actions>
+      <mat-dialog-actions align="end" eclDialogButtons [busy]="submit.busy()" label="Add material" testid="material-save" />
     </form>
   `,
   styles: `
@@ -57,7 +54,6 @@ const fraction = [Validators.required, Validators.min(0), Validators.max(1)];
 export class MaterialDialog {
   private readonly api = inject(MissionApi);
   private readonly workspaceId = inject<string>(MAT_DIALOG_DATA);
-  protected readonly dialogRef = inject<MatDialogRef<MaterialDialog, Material>>(MatDialogRef);
   protected readonly optical = [
     { key: 'absorptivityBol', label: 'Solar absorptivity α, BOL', symbol: 'α' },
     { key: 'emissivityBol', label: 'IR emissivity ε, BOL', symbol: 'ε' },

@@ -2,8 +2,7 @@ import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
-import { MatButton } from '@angular/material/button';
-import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogRef, MatDialogTitle } from '@angular/material/dialog';
+import { MAT_DIALOG_DATA, MatDialog, MatDialogActions, MatDialogContent, MatDialogTitle } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatOptgroup, MatOption, MatSelect } from '@angular/material/select';
@@ -12,6 +11,7 @@ import type { Material, Surface, SurfaceCreate } from '../../../shared/api/missi
 import { MissionApi } from '../missions/mission-api';
 import { readQuantityText } from '../missions/quantity-text';
 import { PointingEditor, pointingForm, readPointingForm } from './pointing-editor';
+import { DialogButtons } from '../shell/dialog-buttons';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { dialogSubmit, refusalDetails } from '../shell/dialog-submit';
 
@@ -27,7 +27,7 @@ type SurfaceField = 'name' | 'areaM2' | 'normal' | 'materialId';
 @Component({
   selector: 'ecl-surface-dialog',
   imports: [
-    SourceWordsPipe, ReactiveFormsModule, DecimalPipe, MatButton, MatDialogTitle, MatDialogContent, MatDialogActions, MatFormField, MatLabel,
+    SourceWordsPipe, ReactiveFormsModule, DecimalPipe, MatDialogTitle, MatDialogContent, MatDialogActions, DialogButtons, MatFormField, MatLabel,
     MatInput, MatError, MatHint, MatSuffix, MatSelect, MatOption, MatOptgroup, PointingEditor,
   ],
   templateUrl: './surface-dialog.html',
@@ -37,7 +37,6 @@ type SurfaceField = 'name' | 'areaM2' | 'normal' | 'materialId';
 export class SurfaceDialog {
   private readonly api = inject(MissionApi);
   protected readonly data = inject<SurfaceDialogData>(MAT_DIALOG_DATA);
-  protected readonly dialogRef = inject<MatDialogRef<SurfaceDialog, Surface>>(MatDialogRef);
   protected readonly library = this.data.materials.filter((m) => m.workspaceId === null);
   protected readonly own = this.data.materials.filter((m) => m.workspaceId !== null);
   protected readonly problems = signal<Partial<Record<SurfaceField, string>>>({});

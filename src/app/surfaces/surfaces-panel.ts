@@ -15,11 +15,12 @@ import { MaterialDialog } from './material-dialog';
 import { SurfaceDialog } from './surface-dialog';
 import { describeNormal } from './surface-normals';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
+import { RowActions } from '../shell/row-actions';
 
 /** The spacecraft's surfaces of one mission, with their materials' optical properties. */
 @Component({
   selector: 'ecl-surfaces-panel',
-  imports: [SourceWordsPipe, DecimalPipe, MatButton, MatIcon],
+  imports: [RowActions, SourceWordsPipe, DecimalPipe, MatButton, MatIcon],
   templateUrl: './surfaces-panel.html',
   styleUrl: './surfaces-panel.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

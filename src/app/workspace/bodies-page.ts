@@ -4,8 +4,7 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators, type AbstractControl, type ValidatorFn } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatCheckbox } from '@angular/material/checkbox';
-import { MatError, MatFormField, MatHint, MatLabel, MatSuffix } from '@angular/material/form-field';
-import { MatInput } from '@angular/material/input';
+import { MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatOption, MatSelect } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { startWith, Subject, switchMap } from 'rxjs';
@@ -17,6 +16,8 @@ import { readQuantityText, type FieldUnit } from '../missions/quantity-text';
 import { DesignCaution } from '../shell/design-caution';
 import { SourceWordsPipe } from '../shell/source-words-pipe';
 import { pathWords } from '../shell/user-words';
+import { LabelledField } from '../shell/labelled-field';
+import { RowActions } from '../shell/row-actions';
 import { WorkspaceApi } from './workspace-api';
 
 const PLANETS = [
@@ -57,7 +58,8 @@ const typedIn = (unit: FieldUnit): ValidatorFn => (control) => {
 @Component({
   selector: 'ecl-bodies-page',
   imports: [
-    ReactiveFormsModule, DesignCaution, SourceWordsPipe, MatFormField, MatLabel, MatHint, MatError, MatSuffix, MatInput, MatSelect, MatOption,
+    RowActions,
+    ReactiveFormsModule, DesignCaution, SourceWordsPipe, LabelledField, MatFormField, MatLabel, MatSelect, MatOption,
     MatButton, MatCheckbox,
   ],
   templateUrl: './bodies-page.html',

@@ -15,6 +15,7 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { AuthSession } from '../auth/auth-session';
 import { ConfirmDialog } from '../shell/confirm-dialog';
+import { RowActions } from '../shell/row-actions';
 import { WorkspaceApi } from './workspace-api';
 import { UtcTimePipe } from '../time/utc-time-pipe';
 
@@ -22,6 +23,7 @@ import { UtcTimePipe } from '../time/utc-time-pipe';
 @Component({
   selector: 'ecl-members-page',
   imports: [
+    RowActions,
     ReactiveFormsModule,
     UtcTimePipe,
     MatTableModule,
