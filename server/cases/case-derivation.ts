@@ -1,7 +1,9 @@
 // Derives the hot and cold cases of a mission's orbit (physics/design-cases.ts) from its snapshot
 // and the workspace's environment table, and saves them as drafts. A mission flown in phases is
-// derived phase by phase (physics/phase-cases.ts), each case naming the phase that drove it; the
-// survival cold case is the cold case's loads with each node's least dissipation over the phases.
+// derived phase by phase (physics/phase-cases.ts), each case naming the phase that drove it (the most
+// or least heat into the spacecraft: absorbed load plus the phase's dissipation); the survival cold
+// case takes the loads of the phase of least absorbed load with each node's least dissipation over
+// the phases (the same in every phase).
 import type { CaseDeriveParsed } from '../../shared/api/cases';
 import type { PhaseDissipation } from '../../shared/api/phases';
 import { caseRationale, type SurvivalDecision } from '../../shared/physics/case-why';
@@ -28,7 +30,8 @@ const userPair = (given: { albedo: number; olrWm2: number; source: string } | un
 /**
  * The hot and cold cases of a mission's orbit, ready to be saved (the seed saves them too). A mission
  * with phases is derived per phase (or in the one phase asked for) and each case names the phase
- * that drove it; `survival` adds the survival cold case (the cold case's loads, minimum dissipation).
+ * that drove it; `survival` adds the survival cold case (minimum dissipation; with phases, the loads of the
+ * phase of least absorbed load).
  */
 export function derivedCaseValues(db: DbOrTx, mission: MissionRow, input: CaseDeriveParsed): DraftValues[] {
   const { orbit, surfaces: list, ids } = snapshotOf(db, mission, input.orbitId, input.steps);
@@ -58,15 +61,18 @@ export function derivedCaseValues(db: DbOrTx, mission: MissionRow, input: CaseDe
     const pointed = phases.map((f) => ({
       id: f.phase.id, name: f.phase.name, startDate: f.phase.startDate, endDate: f.phase.endDate, modeName: f.mode.name,
       surfaces: normalsInMode(list.map((s, i) => ({ id: ids[i]!, name: s.name, normal: s.normal })), f.mode).map((normal, i) => ({ ...list[i]!, normal })),
+      dissipation: f.phase.dissipation,
     }));
-    const { hot, cold } = derivePhasedCases(common, pointed);
-    derived = [hot, cold].map((c) => ({ c, scan: c.scan, phase: phases[c.phaseIndex]! }));
+    const { hot, cold, survival } = derivePhasedCases(common, pointed);
+    derived = [hot, cold, survival].map((c) => ({ c, scan: c.scan, phase: phases[c.phaseIndex]! }));
   }
+  // without phases the survival case takes the cold case's loads; with phases, the phase of least absorbed load
+  const survivalLoads = derived[2] ?? derived[1]!;
+  derived = derived.slice(0, 2);
   if (input.survival) {
-    const cold = derived[1]!;
-    const decision = { ...cold.c.decision, survival: survivalDissipation(flown) };
-    const rationale = caseRationale({ kind: 'cold', bodyName: getBody(mission.bodyId).name, conditions: cold.c.conditions, results: cold.c.results, margins, decision });
-    derived.push({ ...cold, c: { ...cold.c, decision, rationale } });
+    const decision = { ...survivalLoads.c.decision, survival: survivalDissipation(flown) };
+    const rationale = caseRationale({ kind: 'cold', bodyName: getBody(mission.bodyId).name, conditions: survivalLoads.c.conditions, results: survivalLoads.c.results, margins, decision });
+    derived.push({ ...survivalLoads, c: { ...survivalLoads.c, decision, rationale } });
   }
   const prefix = input.name ?? `${mission.name} ${orbit.name}`;
   return derived.map(({ c, scan, phase }) => ({

@@ -18,6 +18,7 @@ import { memberRole } from '../auth/middleware';
 import { editorRoles, missionFor, type Tx } from './mission-access';
 import { toMission, toOrbit, toSurface } from './mission-responses';
 import { canonicalOrbit } from './orbit-values';
+import { phasesStayWithin } from './phase-store';
 import { withQuantityReader, type ReadQuantity } from './quantity-reader';
 
 type MissionCreate = z.output<typeof missionCreate>;
@@ -113,6 +114,7 @@ export function updateMission(db: Db, userId: string, missionId: string, input: 
       const message = `${path}: the mission would end (${endDate}) before it starts (${startDate})`;
       throw badRequest(`${message}.`, [{ path, message }]);
     }
+    if (startDate !== mission.startDate || endDate !== mission.endDate) phasesStayWithin(tx, mission.id, startDate, endDate);
     const { archived, ...fields } = input;
     const changes: string[] = [];
     for (const [name, value] of Object.entries(fields)) {

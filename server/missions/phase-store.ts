@@ -1,8 +1,8 @@
 // A mission's attitude modes and phases (shared/api/phases.ts): every member reads, thermal
 // engineers and owners change them (an analyst is refused with 403), each change with its audit
 // event in the same transaction. A mode points the mission's surfaces by id; a phase flies a mode of
-// the same mission, and phases do not overlap (each day of the mission is in one phase at most, so
-// the sweep and the cases know which attitude and dissipation hold).
+// the same mission, lies within the mission's dates, and phases do not overlap (each day of the
+// mission is in one phase at most, so the sweep and the cases know which attitude and dissipation hold).
 import { and, asc, eq, ne, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { AttitudeMode, MissionPhase, attitudeModeCreate, attitudeModeUpdate, phaseCreate, phaseUpdate } from '../../shared/api/phases';
@@ -105,12 +105,32 @@ function uniquePhaseName(tx: Tx, missionId: string, name: string, exceptId?: str
   if (clash) throw conflict(`The mission already has a phase named ${shown(name)}; phase names are unique in a mission.`, 'duplicate_name');
 }
 
-/** Each day in one phase at most: 400 naming the date that falls in another phase. */
+/** Each day in one phase at most: 400 naming the date that falls in another phase (or the range that takes one in). */
 function noOverlap(tx: Tx, missionId: string, startDate: string, endDate: string, exceptId?: string): void {
   const other = phaseRowsOf(tx, missionId).find((p) => p.id !== exceptId && p.startDate <= endDate && startDate <= p.endDate);
   if (!other) return;
-  const path = other.startDate <= startDate ? 'startDate' : 'endDate';
-  throw refuse(path, `${path === 'startDate' ? startDate : endDate} falls in phase ${shown(other.name)} (${other.startDate} to ${other.endDate}); phases do not overlap`);
+  const theirs = `phase ${shown(other.name)} (${other.startDate} to ${other.endDate}); phases do not overlap`;
+  if (other.startDate <= startDate) throw refuse('startDate', `${startDate} falls in ${theirs}`);
+  if (endDate <= other.endDate) throw refuse('endDate', `${endDate} falls in ${theirs}`);
+  throw refuse('endDate', `${startDate} to ${endDate} takes in ${theirs}`);
+}
+
+/** A phase lies within its mission's dates: 400 naming the date outside them. */
+function withinMission(mission: MissionRow, startDate: string, endDate: string): void {
+  if (startDate < mission.startDate) throw refuse('startDate', `${startDate} is before the mission starts (${mission.startDate})`);
+  if (endDate > mission.endDate) throw refuse('endDate', `${endDate} is after the mission ends (${mission.endDate})`);
+}
+
+/**
+ * New mission dates that would leave a phase outside them: 400 naming the mission's date and the phase
+ * (the phases are moved first, so no phase is ever flown outside its mission).
+ */
+export function phasesStayWithin(tx: Tx, missionId: string, startDate: string, endDate: string): void {
+  for (const p of phaseRowsOf(tx, missionId)) {
+    const phase = `phase ${shown(p.name)} (${p.startDate} to ${p.endDate}); move or shorten the phase first`;
+    if (p.startDate < startDate) throw refuse('startDate', `${startDate} is after the start of ${phase}`);
+    if (p.endDate > endDate) throw refuse('endDate', `${endDate} is before the end of ${phase}`);
+  }
 }
 
 const describeMode = (m: { name: string; yawSteering: boolean; pointing: unknown[] }) =>
@@ -171,6 +191,7 @@ export function createPhase(db: Db, userId: string, missionId: string, input: Ph
     const mission = missionToEdit(tx, userId, missionId);
     const mode = modeOf(tx, mission.id, input.modeId);
     uniquePhaseName(tx, mission.id, input.name);
+    withinMission(mission, input.startDate, input.endDate);
     noOverlap(tx, mission.id, input.startDate, input.endDate);
     const row = tx.insert(missionPhases).values({ missionId: mission.id, ...input }).returning().get();
     audit(tx, userId, mission, 'phase.created', 'mission_phase', row.id, `Phase ${describePhase(row, mode.name)} added to mission "${mission.name}".`);
@@ -190,6 +211,8 @@ export function updatePhase(db: Db, userId: string, missionId: string, phaseId: 
     if (next.startDate > next.endDate) throw refuse('endDate', `${next.endDate} is before the phase's start ${next.startDate}`);
     const mode = modeOf(tx, mission.id, next.modeId);
     if (next.name !== phase.name) uniquePhaseName(tx, mission.id, next.name, phase.id);
+    // a phase kept from before the mission's dates were checked may still be renamed as it is
+    if (input.startDate !== undefined || input.endDate !== undefined) withinMission(mission, next.startDate, next.endDate);
     noOverlap(tx, mission.id, next.startDate, next.endDate, phase.id);
     const row = tx.update(missionPhases).set({ ...next, updatedAt: new Date().toISOString() }).where(eq(missionPhases.id, phase.id)).returning().get();
     audit(tx, userId, mission, 'phase.updated', 'mission_phase', row.id, `Phase "${phase.name}" of mission "${mission.name}" changed: now ${describePhase(row, mode.name)}.`);

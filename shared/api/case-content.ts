@@ -115,7 +115,14 @@ export const caseDecision = z.object({
   phase: z
     .object({
       id: z.string(), name: z.string(), startDate: z.string(), endDate: z.string(), modeName: z.string(),
-      compared: z.array(z.object({ name: z.string(), orbitAverageAbsorbedW: num })).describe("every phase's own case of this kind, total orbit-average absorbed W without margin"),
+      by: z.enum(['heat', 'environment']).optional()
+        .describe('what chose the phase: "heat" the most (hot) or least (cold) orbit-average absorbed load plus the dissipation the phase names; "environment" the absorbed load alone (the survival cold case, whose dissipation is the same in every phase; absent on cases derived before dissipation counted)'),
+      compared: z.array(z.object({
+        name: z.string(),
+        orbitAverageAbsorbedW: num.describe('total orbit-average absorbed W without margin'),
+        dissipationW: num.optional().describe("orbit-average dissipation of the nodes the phase names, W (an on/off schedule's mean over the orbit); present when the phases were compared by heat"),
+        notNamed: z.array(z.string()).optional().describe('nodes another phase names and this one does not, counted 0 W in its total'),
+      })).describe("every phase's own case of this kind"),
     })
     .optional()
     .describe('a mission flown in phases: the phase that drove this case'),

@@ -5,7 +5,7 @@
 // A new deciding factor is one more builder in factorBuilders.
 import type { CaseConditions, CaseResults } from './design-cases';
 import { opticalProperties, type CaseMaterial, type Margins, type PropertySet } from './design-environment';
-import type { PhaseDecision } from './phase-cases';
+import type { PhaseDecision, PhaseFigures, PhaseRanking } from './phase-cases';
 
 /** What the derivation of a hot or cold case decided, kept with the case so its words can be rebuilt. */
 export interface CaseDecision {
@@ -64,6 +64,9 @@ export interface CaseFactor {
   sources: string[];
 }
 
+/** What a phase's figures rank by (phase-cases.ts): the heat into the spacecraft, or its absorbed load alone. */
+export const rankedW = (x: PhaseFigures, by: PhaseRanking | undefined): number => x.orbitAverageAbsorbedW + (by === 'heat' ? (x.dissipationW ?? 0) : 0);
+
 /** Fixed digits for words; never "-0.0". */
 export const fixed = (x: number, digits = 1): string => {
   const text = x.toFixed(digits);
@@ -77,14 +80,43 @@ function phaseFactor(r: CaseWhyRecord): CaseFactor[] {
   const p = r.decision?.phase;
   if (!p) return [];
   const hot = r.kind === 'hot';
-  const own = `${f(r.results.total.orbitAverageAbsorbedW)} W`;
-  const others = p.compared.filter((x) => x.name !== p.name);
   const where = `${p.name} (${p.startDate} to ${p.endDate}, attitude mode ${p.modeName})`;
-  const text = others.length === 0
-    ? `phase ${where}: the only phase derived, ${own} orbit-average absorbed`
-    : `phase ${where} gives the ${hot ? 'largest' : 'smallest'} total orbit-average absorbed load of the mission's phases (${own}); ` +
-      others.map((x) => `${x.name} ${f(x.orbitAverageAbsorbedW)} W`).join(', ');
-  return [{ key: 'phase', title: 'Phase', figure: `${p.name} (${p.modeName})`, text, sources: [] }];
+  const mine = p.compared.find((x) => x.name === p.name);
+  const others = p.compared.filter((x) => x !== mine);
+  const title = 'Phase';
+  const figure = `${p.name} (${p.modeName})`;
+  const absorbedOnly = p.by !== 'heat' || p.compared.every((x) => (x.dissipationW ?? 0) === 0);
+  if (absorbedOnly || !mine) {
+    const own = `${f(r.results.total.orbitAverageAbsorbedW)} W`;
+    // the survival cold case: its dissipation is the same in every phase; hot and cold cases where no phase names any
+    const why = r.decision?.survival ? '; survival dissipation is the same in every phase, so the absorbed load alone chose it'
+      : p.by === 'heat' ? '; no phase names a dissipation' : '';
+    const text = others.length === 0
+      ? `phase ${where}: the only phase derived, ${own} orbit-average absorbed`
+      : `phase ${where} gives the ${hot ? 'largest' : 'smallest'} total orbit-average absorbed load of the mission's phases (${own}); ` +
+        others.map((x) => `${x.name} ${f(x.orbitAverageAbsorbedW)} W`).join(', ') + why;
+    return [{ key: 'phase', title, figure, text, sources: [] }];
+  }
+  // the total of the parts as written, so the words add up
+  const total = (x: PhaseFigures) => `${f(Number(f(x.orbitAverageAbsorbedW)) + Number(f(x.dissipationW ?? 0)))} W`;
+  const sum = (x: PhaseFigures) => `${f(x.orbitAverageAbsorbedW)} W absorbed + ${f(x.dissipationW ?? 0)} W dissipated = ${total(x)}`;
+  const heat = total(mine);
+  if (others.length === 0) {
+    const text = `phase ${where}: the only phase derived, ${sum(mine)} orbit-average into the spacecraft`;
+    return [{ key: 'phase', title, figure: `${figure}, ${heat} absorbed + dissipated`, text, sources: [] }];
+  }
+  // the phase the environment alone would have chosen, when it is another one
+  const sign = hot ? 1 : -1;
+  const byEnvironment = p.compared.reduce((best, x) => (sign * x.orbitAverageAbsorbedW > sign * best.orbitAverageAbsorbedW ? x : best));
+  const despite = byEnvironment === mine ? ''
+    : `; ${byEnvironment.name} ${hot ? 'absorbs more' : 'absorbs less'} (${f(byEnvironment.orbitAverageAbsorbedW)} W) but dissipates ` +
+      `${f(Math.abs((mine.dissipationW ?? 0) - (byEnvironment.dissipationW ?? 0)))} W ${hot ? 'less' : 'more'}`;
+  const unnamed = p.compared.filter((x) => x.notNamed && x.notNamed.length > 0);
+  const counted = unnamed.length === 0 ? ''
+    : `; counted 0 W where a phase does not name a node (${unnamed.map((x) => `${x.name}: ${x.notNamed!.join(', ')}`).join('; ')}), a thermal run gives it its model's own value`;
+  const text = `phase ${where} puts the ${hot ? 'most' : 'least'} heat into the spacecraft of the mission's phases, orbit-average absorbed load and the dissipation the phase names: ` +
+    `${sum(mine)}; ` + others.map((x) => `${x.name} ${sum(x)}`).join(', ') + despite + counted;
+  return [{ key: 'phase', title, figure: `${figure}, ${heat} absorbed + dissipated`, text, sources: ['dissipation: orbit average of each node\'s constant or on/off schedule'] }];
 }
 
 function survivalFactor(r: CaseWhyRecord): CaseFactor[] {

@@ -82,6 +82,14 @@ function scheduleMean(schedule: DissipationSchedule, t0: number, t1: number): nu
   return (on * onW + (t1 - t0 - on) * offW) / (t1 - t0);
 }
 
+/**
+ * The orbit-average of a node's dissipation as a thermal run on a case of period `periodS` applies it:
+ * a constant as it is, an on/off schedule its mean over the orbit (its cycle restarts each orbit).
+ */
+export function orbitAverageDissipationW(dissipation: number | DissipationSchedule, periodS: number): number {
+  return typeof dissipation === 'number' ? dissipation : scheduleMean(dissipation, 0, periodS);
+}
+
 export function capacitanceOf(node: ThermalModelInput['nodes'][number], path: string): number {
   if (node.capacitanceJK !== undefined) return node.capacitanceJK;
   if (node.massKg !== undefined && node.specificHeatJKgK !== undefined) return node.massKg * node.specificHeatJKgK;

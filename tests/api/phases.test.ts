@@ -65,8 +65,11 @@ describe('attitude modes and phases: reading, roles and audit', () => {
     }
     const mode = attitudeMode.parse((await as.thermal.post(`/api/v1/missions/${demoId}/attitude-modes`).send(body).expect(201)).body);
     expect(auditFor(t, mode.id).map((a) => a.action)).toEqual(['attitude_mode.created']);
+    // the demo's phases fill its dates: a month of the nominal phase is given to the new one first
+    const nominal = missionPhase.parse(((await as.viewer.get(`/api/v1/missions/${demoId}/phases`)).body.items as unknown[]).at(-1));
+    await as.thermal.patch(`/api/v1/missions/${demoId}/phases/${nominal.id}`).send({ endDate: '2030-11-30' }).expect(200);
     const phase = missionPhase.parse((await as.owner.post(`/api/v1/missions/${demoId}/phases`).send({
-      name: 'Extended mission', startDate: '2031-01-01', endDate: '2031-06-30', modeId: mode.id, dissipation: [{ node: 'avionics', dissipationW: 16 }],
+      name: 'Extended mission', startDate: '2030-12-01', endDate: '2030-12-31', modeId: mode.id, dissipation: [{ node: 'avionics', dissipationW: 16 }],
     }).expect(201)).body);
     await as.analyst.patch(`/api/v1/missions/${demoId}/phases/${phase.id}`).send({ name: 'Extended' }).expect(403);
     const renamed = missionPhase.parse((await as.thermal.patch(`/api/v1/missions/${demoId}/phases/${phase.id}`).send({ name: 'Extended' }).expect(200)).body);
@@ -76,6 +79,7 @@ describe('attitude modes and phases: reading, roles and audit', () => {
     expect(busy.body.error.message).toMatch(/phase "Extended"/);
     await as.thermal.delete(`/api/v1/missions/${demoId}/phases/${phase.id}`).expect(204);
     await as.thermal.delete(`/api/v1/missions/${demoId}/attitude-modes/${mode.id}`).expect(204);
+    await as.thermal.patch(`/api/v1/missions/${demoId}/phases/${nominal.id}`).send({ endDate: '2030-12-31' }).expect(200);
     expect(auditFor(t, phase.id).map((a) => a.action)).toEqual(['phase.created', 'phase.updated', 'phase.deleted']);
     expect(auditFor(t, mode.id).map((a) => a.action)).toEqual(['attitude_mode.created', 'attitude_mode.deleted']);
   });
@@ -110,6 +114,43 @@ describe('attitude modes and phases: refusals name the field and the value', () 
     expectDetail(await as.thermal.post(path).send({ name: 'Twice', startDate: '2031-02-01', endDate: '2031-03-01', modeId, dissipation: [{ node: 'camera', dissipationW: 1 }, { node: 'camera', dissipationW: 2 }] }).expect(400), 'dissipation.1', /camera/);
     expectDetail(await as.thermal.post(path).send({ name: 'Bad date', startDate: '2031-02-30', endDate: '2031-03-01', modeId }).expect(400), 'startDate', /2031-02-30/);
     expect((await as.viewer.get(path)).body.items).toHaveLength(before);
+  });
+
+  it('a phase outside the mission\'s dates (before its start, after its end, created or moved) or taking in another phase: 400 naming the field, the value and the mission\'s date; nothing written', async () => {
+    const modeId = (await as.viewer.get(`/api/v1/missions/${demoId}/attitude-modes`)).body.items[0].id as string;
+    const path = `/api/v1/missions/${demoId}/phases`;
+    const before = (await as.viewer.get(path)).body.items as { id: string; name: string; startDate: string; endDate: string }[];
+    const early = await as.thermal.post(path).send({ name: 'Pre-launch', startDate: '2028-01-01', endDate: '2028-01-09', modeId }).expect(400);
+    expectDetail(early, 'startDate', /2028-01-01 is before the mission starts \(2028-01-10\)/);
+    expect(early.body.error.code).toBe('invalid_input');
+    expectDetail(await as.thermal.post(path).send({ name: 'Extended', startDate: '2031-01-01', endDate: '2031-03-31', modeId }).expect(400), 'endDate', /2031-03-31 is after the mission ends \(2030-12-31\)/);
+    // moving an existing phase out of the mission
+    const nominal = before.find((p) => p.name === 'Nominal operations')!;
+    expectDetail(await as.thermal.patch(`${path}/${nominal.id}`).send({ endDate: '2031-06-30' }).expect(400), 'endDate', /2031-06-30 is after the mission ends/);
+    const launch = before.find((p) => p.name === 'Launch and early orbit')!;
+    expectDetail(await as.thermal.patch(`${path}/${launch.id}`).send({ startDate: '2027-12-31' }).expect(400), 'startDate', /2027-12-31 is before the mission starts/);
+    // a phase that takes in another whole (neither of its dates falls in it) is named by its range
+    const shortened = (await as.thermal.patch(`${path}/${nominal.id}`).send({ endDate: '2030-06-30' }).expect(200)).body as { endDate: string };
+    expect(shortened.endDate).toBe('2030-06-30');
+    const gap = (await as.thermal.post(path).send({ name: 'Gap', startDate: '2030-08-01', endDate: '2030-08-31', modeId }).expect(201)).body.id as string;
+    expectDetail(await as.thermal.post(path).send({ name: 'Wide', startDate: '2030-07-01', endDate: '2030-12-31', modeId }).expect(400), 'endDate', /2030-07-01 to 2030-12-31 takes in phase \\"Gap\\" \(2030-08-01 to 2030-08-31\); phases do not overlap/);
+    await as.thermal.delete(`${path}/${gap}`).expect(204);
+    await as.thermal.patch(`${path}/${nominal.id}`).send({ endDate: '2030-12-31' }).expect(200);
+    expect(((await as.viewer.get(path)).body.items as typeof before).map((p) => [p.name, p.startDate, p.endDate])).toEqual(before.map((p) => [p.name, p.startDate, p.endDate]));
+  });
+
+  it('mission dates that would leave a phase outside them: 400 naming the mission\'s date and the phase; the mission is unchanged, no audit', async () => {
+    const path = `/api/v1/missions/${demoId}`;
+    const audits = () => (t.ctx.sqlite.prepare("SELECT count(*) AS n FROM audit_events WHERE target_id = ? AND action LIKE 'mission.%'").get(demoId) as { n: number }).n;
+    const was = audits();
+    expectDetail(await as.thermal.patch(path).send({ startDate: '2028-02-01' }).expect(400), 'startDate', /2028-02-01 is after the start of phase \\"Launch and early orbit\\" \(2028-01-10 to 2028-01-24\); move or shorten the phase first/);
+    expectDetail(await as.analyst.patch(path).send({ endDate: '2030-06-30' }).expect(400), 'endDate', /2030-06-30 is before the end of phase \\"Nominal operations\\"/);
+    const mission = (await as.viewer.get(path).expect(200)).body as { startDate: string; endDate: string };
+    expect([mission.startDate, mission.endDate]).toEqual(['2028-01-10', '2030-12-31']);
+    expect(audits()).toBe(was);
+    // dates that still hold every phase are taken
+    await as.thermal.patch(path).send({ endDate: '2031-06-30' }).expect(200);
+    await as.thermal.patch(path).send({ endDate: '2030-12-31' }).expect(200);
   });
 
   it('a mode that points a surface the mission does not have, or with a normal the API does not take', async () => {
@@ -194,6 +235,75 @@ describe('derivation per phase', () => {
     await as.thermal.post(`/api/v1/missions/${missionId}/phases`).send({ name: 'Yawing', startDate: '2028-06-01', endDate: '2028-06-10', modeId: mode }).expect(201);
     const items = (await as.thermal.post(`/api/v1/missions/${missionId}/cases/derive`).send({ orbitId, steps: 24 }).expect(201)).body.items as { inputs: { conditions: { surfaces: { normal: unknown }[] } } }[];
     expect(items[0]!.inputs.conditions.surfaces[0]!.normal).toEqual({ yawSteered: { normal: 'zenith' } });
+  });
+});
+
+describe('derivation per phase: dissipation counts with the environment', () => {
+  // DOMAIN.md "Cases": hot = the hot environment with maximum dissipation, cold = the cold one with the
+  // minimum; the phases are compared by the heat each puts into the spacecraft (orbit-average absorbed
+  // load + the orbit-average dissipation of the nodes it names).
+  type Compared = { name: string; orbitAverageAbsorbedW: number; dissipationW?: number };
+  type Figures = Detail & { inputs: { decision?: { phase?: { name: string; by?: string; compared: Compared[] } } }; results: Results & { periodS: number; surfaces: { emissivity: number }[] } };
+
+  it('the phase of modest environment and high dissipation drives the hot case, the other the cold case (closed forms: a Sun-pointed plate alpha S (1 - eclipse fraction) plus the limb it sees, a zenith plate alpha S cos(beta) / pi, Gilmore Vol. I ch. 2 / from memory; a schedule\'s mean offW + (onW - offW) onS / period)', async () => {
+    const { missionId, orbitId, surfaceId } = await missionWithRadiator('Dissipation in the choice', '2028-03-10', '2028-04-20');
+    const periodS = (await as.thermal.get(`/api/v1/missions/${missionId}/orbits/${orbitId}`).expect(200)).body.periodS as number;
+    const zenith = (await as.thermal.post(`/api/v1/missions/${missionId}/attitude-modes`).send({ name: 'radiator to zenith' }).expect(201)).body.id as string;
+    const sun = (await as.thermal.post(`/api/v1/missions/${missionId}/attitude-modes`).send({ name: 'radiator to the Sun', pointing: [{ surfaceId, normal: 'sun' }] }).expect(201)).body.id as string;
+    // Imaging: 300 W of payload and a unit at 200 W a quarter of each half-orbit cycle, 40 W otherwise: 300 + 40 + 160 / 4 = 380 W
+    const imaging = (await as.thermal.post(`/api/v1/missions/${missionId}/phases`).send({
+      name: 'Imaging', startDate: '2028-03-10', endDate: '2028-03-31', modeId: zenith,
+      dissipation: [{ node: 'payload', dissipationW: 300 }, { node: 'unit', dissipationW: { onW: 200, offW: 40, periodS: periodS / 2, onS: periodS / 8 } }],
+    }).expect(201)).body.id as string;
+    const sunHold = (await as.thermal.post(`/api/v1/missions/${missionId}/phases`).send({
+      name: 'Sun hold', startDate: '2028-04-01', endDate: '2028-04-20', modeId: sun, dissipation: [{ node: 'payload', dissipationW: 20 }, { node: 'unit', dissipationW: 0 }],
+    }).expect(201)).body.id as string;
+    const dissipated = { Imaging: 380, 'Sun hold': 20 };
+
+    // each phase's own cases, derived alone, against their closed forms
+    const alone = async (phaseId: string) => (await as.thermal.post(`/api/v1/missions/${missionId}/cases/derive`).send({ orbitId, phaseId, steps: 360 }).expect(201)).body.items as Figures[];
+    const [imagingHot, imagingCold] = await alone(imaging);
+    const [sunHot, sunCold] = await alone(sunHold);
+    const zenithW = (r: Figures['results']) => (r.surfaces[0]!.absorptivity * r.solarFluxWm2 * Math.cos((r.betaDeg * Math.PI) / 180)) / Math.PI;
+    const sunPointedW = (r: Figures['results']) => {
+      const s = r.surfaces[0]!;
+      return s.absorptivity * r.solarFluxWm2 * (1 - r.eclipseFraction) + s.absorptivity * s.orbitAverage.albedoWm2 + s.emissivity * s.orbitAverage.irWm2;
+    };
+    for (const c of [imagingHot!, imagingCold!]) expect(c.results.total.orbitAverageAbsorbedW / zenithW(c.results)).toBeCloseTo(1, 2);
+    for (const c of [sunHot!, sunCold!]) expect(c.results.total.orbitAverageAbsorbedW / sunPointedW(c.results)).toBeCloseTo(1, 2);
+    // the totals from the closed forms: Sun hold absorbs more, Imaging puts more heat in (hot); Imaging absorbs less, Sun hold puts less in (cold)
+    const heat = { imagingHot: zenithW(imagingHot!.results) + 380, sunHot: sunPointedW(sunHot!.results) + 20, imagingCold: zenithW(imagingCold!.results) + 380, sunCold: sunPointedW(sunCold!.results) + 20 };
+    expect(sunPointedW(sunHot!.results)).toBeGreaterThan(zenithW(imagingHot!.results));
+    expect(heat.imagingHot).toBeGreaterThan(heat.sunHot);
+    expect(zenithW(imagingCold!.results)).toBeLessThan(sunPointedW(sunCold!.results));
+    expect(heat.sunCold).toBeLessThan(heat.imagingCold);
+
+    const items = (await as.thermal.post(`/api/v1/missions/${missionId}/cases/derive`).send({ orbitId, name: 'Both', steps: 360, survival: true }).expect(201)).body.items as Figures[];
+    expect(items.map((c) => [c.kind, c.phase, c.variant])).toEqual([['hot', 'Imaging', null], ['cold', 'Sun hold', null], ['cold', 'Imaging', 'survival']]);
+    const [hot, cold, survival] = items as [Figures, Figures, Figures];
+    expect(hot.results.total.orbitAverageAbsorbedW).toBe(imagingHot!.results.total.orbitAverageAbsorbedW);
+    expect(cold.results.total.orbitAverageAbsorbedW).toBe(sunCold!.results.total.orbitAverageAbsorbedW);
+    // the record holds every phase's figures; the heat totals are the closed forms'
+    for (const [c, own] of [[hot, { Imaging: imagingHot!, 'Sun hold': sunHot! }], [cold, { Imaging: imagingCold!, 'Sun hold': sunCold! }]] as const) {
+      expect(c.inputs.decision!.phase!.by).toBe('heat');
+      for (const x of c.inputs.decision!.phase!.compared) {
+        const name = x.name as keyof typeof dissipated;
+        expect(x.dissipationW).toBeCloseTo(dissipated[name], 3);
+        expect(x.orbitAverageAbsorbedW).toBe(own[name].results.total.orbitAverageAbsorbedW);
+      }
+    }
+    // "why this case" says it, from the record
+    expect(hot.inputs.rationale[0]).toMatch(/^phase Imaging \(2028-03-10 to 2028-03-31, attitude mode radiator to zenith\) puts the most heat into the spacecraft of the mission's phases/);
+    expect(hot.inputs.rationale[0]).toContain(`${imagingHot!.results.total.orbitAverageAbsorbedW.toFixed(1)} W absorbed + 380.0 W dissipated`);
+    expect(hot.inputs.rationale[0]).toMatch(/Sun hold absorbs more \(\d+\.\d W\) but dissipates 360\.0 W less$/);
+    expect(cold.inputs.rationale[0]).toMatch(/^phase Sun hold .* puts the least heat into the spacecraft .*; Imaging absorbs less \(\d+\.\d W\) but dissipates 360\.0 W more$/);
+    // survival dissipates the same whatever the phase: the least absorbed load (Imaging) chooses it
+    expect(survival.inputs.decision!.phase!.by).toBe('environment');
+    expect(survival.results.total.orbitAverageAbsorbedW).toBe(imagingCold!.results.total.orbitAverageAbsorbedW);
+    expect(survival.inputs.rationale[0]).toMatch(/gives the smallest total orbit-average absorbed load .*; survival dissipation is the same in every phase, so the absorbed load alone chose it$/);
+    // the detail's phase figure and the exported JSON carry the same words
+    const exported = (await as.thermal.get(`/api/v1/cases/${hot.id}/export?format=json`).expect(200)).body as { inputs: { rationale: string[] } };
+    expect(exported.inputs.rationale[0]).toBe(hot.inputs.rationale[0]);
   });
 });
 

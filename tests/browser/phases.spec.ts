@@ -1,10 +1,25 @@
 // Attitude modes and phases (issue 19) as the thermal engineer: the demo mission flown in three
-// phases and two modes, a phase added from the keyboard with typed UTC dates, the sweep's days by
-// phase, and the cases that name the phase that drove them; light, dark and 390 px.
-import { expect, test } from '@playwright/test';
+// phases and two modes, a phase added from the keyboard with typed UTC dates (refused beside its field
+// outside the mission's dates, and the mission's dates refused when they would leave a phase out), the
+// sweep's days by phase, and the cases that name the phase that drove them; light, dark and 390 px.
+import { expect, test, type Page } from '@playwright/test';
 import { dialogReady, screenshot, signIn } from './session';
 
 const mission = 'Kestrel-2 ocean-colour smallsat';
+
+/** The "Extended mission" phase from the keyboard: its dates typed, avionics at 15 W, saved by Enter. */
+async function extendedPhase(page: Page, startDate: string, endDate: string): Promise<void> {
+  await page.getByTestId('phase-add').focus();
+  await page.keyboard.press('Enter');
+  await dialogReady(page);
+  await page.keyboard.type('Extended mission');
+  await page.getByTestId('phase-start').fill(startDate);
+  await page.getByTestId('phase-end').fill(endDate);
+  await page.getByTestId('phase-node-add').click();
+  await page.getByTestId('phase-node-name-0').fill('avionics');
+  await page.getByTestId('phase-node-w-0').fill('15');
+  await page.getByTestId('phase-end').press('Enter');
+}
 
 test('the thermal engineer reads and adds phases, sweeps the mission by phase and opens a case driven by a phase', async ({ page }) => {
   test.setTimeout(180_000);
@@ -21,21 +36,31 @@ test('the thermal engineer reads and adds phases, sweeps the mission by phase an
   await screenshot(page, 'phases-mission-tab');
 
   // A phase from the keyboard: typed ISO dates; a reversed range is refused beside its field.
-  await page.getByTestId('phase-add').focus();
-  await page.keyboard.press('Enter');
-  await dialogReady(page);
-  await page.keyboard.type('Extended mission');
-  await page.getByTestId('phase-start').fill('2031-03-31');
-  await page.getByTestId('phase-end').fill('2031-01-01');
-  await page.getByTestId('phase-node-add').click();
-  await page.getByTestId('phase-node-name-0').fill('avionics');
-  await page.getByTestId('phase-node-w-0').fill('15');
-  await page.getByTestId('phase-end').press('Enter');
+  await extendedPhase(page, '2031-03-31', '2031-01-01');
   await expect(page.getByTestId('phase-end-error')).toContainText('ends before it starts');
   await screenshot(page, 'phases-phase-dialog');
+  // A phase after the mission's end is refused beside its field, naming the mission's dates.
+  await expect(page.getByTestId('phase-mission-dates')).toContainText('The mission runs 2028-01-10 to 2030-12-31');
   await page.getByTestId('phase-start').fill('2031-01-01');
   await page.getByTestId('phase-end').fill('2031-03-31');
   await page.getByTestId('phase-end').press('Enter');
+  await expect(page.getByTestId('phase-end-error')).toContainText('2031-03-31 is after the mission ends (2030-12-31)');
+  await screenshot(page, 'phases-phase-dialog-outside-mission');
+  await page.keyboard.press('Escape');
+  await expect(page.locator('mat-dialog-container')).toHaveCount(0);
+
+  // The mission is extended; cutting it short of a phase is refused beside the end date.
+  await page.getByTestId('mission-edit').click();
+  await dialogReady(page);
+  await page.getByTestId('mission-end').fill('2030-06-30');
+  await page.getByTestId('mission-end').press('Enter');
+  await expect(page.getByTestId('mission-end-error')).toContainText('2030-06-30 is before the end of phase "Nominal operations" (2028-04-01 to 2030-12-31)');
+  await screenshot(page, 'phases-mission-dates-refused');
+  await page.getByTestId('mission-end').fill('2031-06-30');
+  await page.getByTestId('mission-end').press('Enter');
+  await expect(page.locator('mat-dialog-container')).toHaveCount(0);
+  await page.getByRole('tab', { name: 'Modes and phases' }).click();
+  await extendedPhase(page, '2031-01-01', '2031-03-31');
   await expect(page.getByTestId('phase-row')).toHaveCount(4);
   await expect(page.getByTestId('phase-table')).toContainText('avionics: 15 W');
 
@@ -48,7 +73,8 @@ test('the thermal engineer reads and adds phases, sweeps the mission by phase an
   await expect(phaseRows.nth(0)).toContainText('Launch and early orbit');
   await expect(phaseRows.nth(0)).toContainText('Sun safe');
   await expect(phaseRows.nth(0).locator('td').nth(3)).toHaveText('15');
-  await expect(phaseRows.nth(3)).toContainText('no day shown');
+  await expect(phaseRows.nth(3)).toContainText('Extended mission');
+  await expect(phaseRows.nth(3).locator('td').nth(3)).toHaveText('90');
   await expect(page.getByTestId('sweep-phases')).not.toContainText('NaN');
   await page.getByTestId('sweep-phases').scrollIntoViewIfNeeded();
   await screenshot(page, 'phases-sweep');
@@ -61,7 +87,9 @@ test('the thermal engineer reads and adds phases, sweeps the mission by phase an
   await expect(page.getByTestId('case-name')).toHaveText('Kestrel-2 SSO 600 hot');
   await expect(page.getByTestId('case-phase')).toContainText('Phase');
   await expect(page.getByTestId('case-phase')).toContainText('attitude mode');
-  await expect(page.locator('body')).toContainText(/gives the largest total orbit-average absorbed load of the mission's phases/);
+  // the phase that puts the most heat into the spacecraft: its absorbed load and its dissipation, beside every phase's
+  await expect(page.getByTestId('case-factors')).toContainText(/puts the most heat into the spacecraft of the mission's phases, orbit-average absorbed load and the dissipation the phase names: \d+\.\d W absorbed \+ \d+\.\d W dissipated = \d+\.\d W; /);
+  await expect(page.getByTestId('case-factor-figure').first()).toContainText(/W absorbed \+ dissipated$/);
   await screenshot(page, 'phases-case');
 
   await page.emulateMedia({ colorScheme: 'dark' });

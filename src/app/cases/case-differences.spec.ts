@@ -42,6 +42,8 @@ describe('input values', () => {
   it('writes numbers with their unit and differences only between numbers', () => {
     expect(formatInputValue('conditions.betaDeg', 21.456)).toBe('21.46 deg');
     expect(formatInputValue('conditions.properties', 'eol')).toBe('eol');
+    // sources are text for people: our notes' shorthand said in words (the same rule as the case page's)
+    expect(formatInputValue('environmentSource', 'Earth nominal: fact sheet (from memory)')).toBe('Earth nominal: fact sheet (value not yet checked against its published source)');
     expect(inputDifference('margins.heatLoadPercent', 25, 30)?.absolute).toBe('+5.0 percentage points');
     expect(inputDifference('conditions.properties', 'bol', 'eol')).toBeNull();
   });

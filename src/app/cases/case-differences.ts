@@ -1,6 +1,8 @@
 // How the comparison view writes a difference: signed, in the quantity's unit and as a percentage
 // of the first case, and whether it counts as a change at all (floating noise does not).
 
+import { sourceWords } from '../shell/user-words';
+
 export interface Compared {
   readonly a: number;
   readonly b: number;
@@ -87,7 +89,7 @@ export function formatDifference(compared: Compared, unit: string, decimals = de
 /** An input value of any kind as the comparison table shows it. */
 export function formatInputValue(path: string, value: unknown): string {
   if (typeof value === 'number') return formatQuantity(value, unitOfPath(path));
-  if (typeof value === 'string') return value === '' ? '—' : value;
+  if (typeof value === 'string') return value === '' ? '—' : sourceWords(value);
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (value === null || value === undefined) return '—';
   return JSON.stringify(value);

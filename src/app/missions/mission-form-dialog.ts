@@ -45,12 +45,12 @@ type MissionFieldName = 'name' | 'bodyId' | 'description' | 'startDate' | 'endDa
           <mat-error>{{ problems()['bodyId'] ?? 'Choose the body the spacecraft orbits.' }}</mat-error>
         </mat-form-field>
         <div class="dates">
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>Start (UTC date)</mat-label>
             <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="startDate" data-testid="mission-start" />
             <mat-error>{{ problems()['startDate'] ?? 'Give the start date as YYYY-MM-DD, e.g. 2027-06-01.' }}</mat-error>
           </mat-form-field>
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>End (UTC date)</mat-label>
             <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="endDate" data-testid="mission-end" />
             <mat-error data-testid="mission-end-error">{{ problems()['endDate'] ?? 'Give the end date as YYYY-MM-DD, e.g. 2028-06-01.' }}</mat-error>

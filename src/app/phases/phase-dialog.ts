@@ -16,6 +16,8 @@ export interface PhaseDialogData {
   readonly missionId: string;
   readonly phase: MissionPhase | null;
   readonly modes: readonly AttitudeMode[];
+  /** The mission's dates (a phase lies within them); null when not known. */
+  readonly missionDates: { readonly startDate: string; readonly endDate: string } | null;
 }
 
 interface DissipationRow {
@@ -42,17 +44,20 @@ const numberText = /^\s*\d+(\.\d+)?\s*$/;
           <mat-error>{{ problems()['name'] ?? 'Give the phase a name, e.g. commissioning.' }}</mat-error>
         </mat-form-field>
         <div class="pair">
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>From (UTC date)</mat-label>
             <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="startDate" data-testid="phase-start" />
-            <mat-error>{{ problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.' }}</mat-error>
+            <mat-error data-testid="phase-start-error">{{ problems()['startDate'] ?? 'Give the first day as YYYY-MM-DD.' }}</mat-error>
           </mat-form-field>
-          <mat-form-field appearance="outline">
+          <mat-form-field appearance="outline" subscriptSizing="dynamic">
             <mat-label>To (UTC date, included)</mat-label>
             <input matInput type="text" inputmode="numeric" autocomplete="off" placeholder="YYYY-MM-DD" formControlName="endDate" data-testid="phase-end" />
             <mat-error data-testid="phase-end-error">{{ problems()['endDate'] ?? 'Give the last day as YYYY-MM-DD.' }}</mat-error>
           </mat-form-field>
         </div>
+        @if (data.missionDates; as m) {
+          <p class="ecl-muted hint" data-testid="phase-mission-dates">The mission runs {{ m.startDate }} to {{ m.endDate }} (UTC); a phase lies within them and shares no day with another phase.</p>
+        }
         <mat-form-field appearance="outline">
           <mat-label>Attitude mode</mat-label>
           <mat-select formControlName="modeId" data-testid="phase-mode">

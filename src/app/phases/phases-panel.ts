@@ -12,7 +12,7 @@ import { loaded } from '../api/loaded';
 import { ConfirmDialog } from '../shell/confirm-dialog';
 import { ModeDialog } from './mode-dialog';
 import { PhaseApi } from './phase-api';
-import { PhaseDialog } from './phase-dialog';
+import { PhaseDialog, type PhaseDialogData } from './phase-dialog';
 import { dissipationText, pointingText } from './phase-words';
 
 /** A mission's attitude modes (how each surface is pointed) and its phases (dates, mode, dissipation per node). */
@@ -126,6 +126,8 @@ export class PhasesPanel {
 
   readonly missionId = input.required<string>();
   readonly surfaces = input.required<readonly Surface[]>();
+  /** The mission's dates, which every phase lies within. */
+  readonly missionDates = input<PhaseDialogData['missionDates']>(null);
   /** Thermal engineers and owners change modes and phases (the server says so too). */
   readonly canEdit = input(false);
   /** A mode or phase was added, changed or removed. */
@@ -157,7 +159,7 @@ export class PhasesPanel {
   }
 
   protected editPhase(phase: MissionPhase | null): void {
-    this.after(PhaseDialog.open(this.dialog, { missionId: this.missionId(), phase, modes: this.modes() }), 'Phase saved.');
+    this.after(PhaseDialog.open(this.dialog, { missionId: this.missionId(), phase, modes: this.modes(), missionDates: this.missionDates() }), 'Phase saved.');
   }
 
   private remove(title: string, message: string, request: () => Observable<void>): void {
