@@ -1,6 +1,6 @@
 // The audit log: who changed what, written in the same transaction as the change itself.
 // Summaries are for people and never hold secrets (no passwords, tokens or links).
-import { and, count, desc, eq, gte, lte, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gte, lte, sql, type SQL } from 'drizzle-orm';
 import type { AuditEvent } from '../../shared/api/workspaces';
 import type { Db } from '../db/database';
 import { auditEvents, users } from '../db/schema';
@@ -53,7 +53,8 @@ export function listAudit(db: Db, workspaceId: string, filter: AuditFilter): { i
     .from(auditEvents)
     .leftJoin(users, eq(users.id, auditEvents.actorUserId))
     .where(where)
-    .orderBy(desc(auditEvents.at), desc(auditEvents.id))
+    // newest first; within one millisecond (one transaction writes several) by insertion, not by the random id
+    .orderBy(desc(auditEvents.at), desc(sql`"audit_events".rowid`))
     .limit(filter.limit)
     .offset(filter.offset)
     .all();

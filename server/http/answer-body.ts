@@ -54,17 +54,30 @@ function compressor(encoding: 'br' | 'gzip', sizeHint: number): Writable & NodeJ
     : createGzip({ chunkSize: CHUNK, level: large ? 1 : 4 });
 }
 
+// One 'drain' and one 'close' listener per sink for its whole life, however often it is awaited:
+// the compression middleware moves a response's 'drain' listeners onto its own stream, where
+// removing them from the response does not reach, so adding and removing one per wait leaked.
+const waiters = new WeakMap<Writable, Set<() => void>>();
+
 /** Resolves when the sink takes more (its 'drain'), or the client is gone (the answer's 'close'). */
 export function drained(sink: Writable, res: Response): Promise<void> {
-  return new Promise((resolve) => {
-    const done = () => {
-      sink.off('drain', done);
-      res.off('close', done);
-      resolve();
+  let pending = waiters.get(sink);
+  if (!pending) {
+    const set = new Set<() => void>();
+    const wake = () => {
+      const now = [...set];
+      set.clear();
+      for (const resolve of now) resolve();
     };
-    sink.on('drain', done);
-    res.on('close', done);
-  });
+    sink.on('drain', wake);
+    res.on('close', wake);
+    if (sink !== res) sink.on('close', wake);
+    waiters.set(sink, set);
+    pending = set;
+  }
+  if (res.destroyed || res.writableFinished) return Promise.resolve();
+  const set = pending;
+  return new Promise((resolve) => set.add(resolve));
 }
 
 /** Marks the answer as compressed here, for the compression middleware's filter to leave alone. */

@@ -8,6 +8,7 @@ import type { SweepDay, sweepQuery } from '../../shared/api/missions';
 import { CAUTION } from '../../shared/physics/environment';
 import { DAY_MS } from '../../shared/physics/constants';
 import { DEFAULT_SWEEP_STEPS, sweepMission } from '../../shared/physics/mission-sweep';
+import type { ViewFactorTable } from '../../shared/physics/pointing';
 import type { MissionRow, OrbitRow } from '../db/schema';
 import { badRequest } from '../errors';
 import { limitWork } from '../work-limit';
@@ -84,6 +85,8 @@ export function sweepChunkComputer(
     }
     return { ...phaseSpanMs(f.phase), surfaces: list };
   });
+  // the moving plates' view-factor tables, made in the first chunk that needs them and kept for the rest
+  const viewFactorTables = new Map<string, ViewFactorTable>();
   return (first, count) => {
     const startDate = isoDay(dayMs(plan.from) + first * plan.stepDays * DAY_MS);
     const result = sweepMission({
@@ -96,6 +99,7 @@ export function sweepChunkComputer(
       steps: SWEEP_STEPS,
       surfaces: physicsSurfaces,
       attitudeSpans,
+      viewFactorTables,
     });
     return result.rows.map((row, i) => ({
       type: 'day',

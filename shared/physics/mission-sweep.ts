@@ -30,7 +30,7 @@ import { PhysicsError } from './physics-error';
 import { solarFluxWm2 } from './sun';
 import { orientSurfaces, prepareSurfaces, type PreparedSurface } from './surface-grid';
 import { pointingAssumptions } from './pointing-words';
-import { isInertial, j2000ToPerifocal, pointingColumns, pointingColumnsFor, viewFactorTable, type PointingColumns, type ViewFactorTable } from './pointing';
+import { isInertial, j2000ToPerifocal, pointingColumns, pointingColumnsFor, viewFactorTables, type PointingColumns, type PointingPlan, type ViewFactorTable } from './pointing';
 import { DEG, wrapDeg, type Vector3 } from './vector3';
 import { degPerDay } from './kepler';
 import { DAY_MS } from './constants';
@@ -61,6 +61,11 @@ export interface MissionSweepRequest extends CapModelRequest {
    * share one surfaces list (phases in one mode) share its preparation.
    */
   attitudeSpans?: readonly AttitudeSpan[] | undefined;
+  /**
+   * The moving plates' view-factor tables (pointing.ts viewFactorTables), kept by the caller across
+   * calls that sweep one orbit a chunk of days at a time, so each is made once; made afresh without it.
+   */
+  viewFactorTables?: Map<string, ViewFactorTable> | undefined;
 }
 
 export interface AttitudeSpan {
@@ -156,13 +161,16 @@ export function sweepMission(request: MissionSweepRequest): MissionSweepResult {
   // What each pointing needs for every date, made once per list of surfaces the rows meet (spans
   // that share one list, e.g. two phases in one attitude mode, share it too).
   const pointings = new Map<readonly Surface[], Pointing>();
+  // a circular orbit's one radius: moving plates read their view factor from tables shared across the lists
+  const r0 = grid.radiusKm[0];
+  const tables = grid.radiusKm.every((r) => r === r0) ? viewFactorTables(r0, body.radiusKm, request.viewFactorTables) : null;
   const spans = request.attitudeSpans ?? [];
   const pointingAt = (ms: number): { index: number; set: Pointing } => {
     const index = spans.findIndex((span) => ms >= span.fromMs && ms < span.toMs);
     const list = index < 0 ? surfaces : spans[index]!.surfaces;
     let set = pointings.get(list);
     if (set === undefined) {
-      set = pointing(list, grid, orbit, body.radiusKm, needsCap(models), rowCount);
+      set = pointing(list, grid, orbit, body.radiusKm, needsCap(models), rowCount, tables);
       pointings.set(list, set);
     }
     return { index, set };
@@ -233,16 +241,21 @@ interface Pointing {
   cap: ReturnType<typeof sweepCap> | null;
 }
 
-/** One pointing of the surfaces made ready for every date of the sweep. */
-/** `rowCount`: the sweep's rows, which sweepCap takes to decide on its tables. */
-function pointing(surfaces: readonly Surface[], grid: OrbitGrid, orbit: Orbit, bodyRadiusKm: number, withCap: boolean, rowCount: number): Pointing {
+/**
+ * One pointing of the surfaces made ready for every date of the sweep. `rowCount`: the sweep's rows,
+ * which sweepCap takes to decide on its tables; `tables`: the view-factor tables of a circular orbit.
+ */
+function pointing(
+  surfaces: readonly Surface[], grid: OrbitGrid, orbit: Orbit, bodyRadiusKm: number, withCap: boolean, rowCount: number,
+  tables: ((plan: PointingPlan) => ViewFactorTable) | null,
+): Pointing {
   const prepared = prepareSurfaces(surfaces, grid, bodyRadiusKm);
   return {
     prepared,
     // IR depends only on the view factor, the same on every date: its orbit sum is computed once.
     irSums: prepared.map((p) => (p.normal === null ? Number.NaN : p.viewFactor.reduce((s, f) => s + f, 0))),
     constantViewFactor: constantViewFactors(prepared),
-    moving: movingSurfaces(prepared, grid, bodyRadiusKm),
+    moving: movingSurfaces(prepared, grid.steps, tables),
     inertial: prepared.some((p) => p.plan !== null && isInertial(p.source)),
     solarSums: new Float64Array(prepared.length),
     albedoSums: new Float64Array(prepared.length),
@@ -325,13 +338,8 @@ interface MovingSurface {
   table: ViewFactorTable | null;
 }
 
-function movingSurfaces(prepared: readonly PreparedSurface[], grid: OrbitGrid, bodyRadiusKm: number): (MovingSurface | null)[] {
-  const r0 = grid.radiusKm[0];
-  const circular = grid.radiusKm.every((r) => r === r0);
-  return prepared.map((p) => {
-    if (!p.plan) return null;
-    return { columns: pointingColumnsFor(grid.steps), table: circular ? viewFactorTable(p.source, r0, bodyRadiusKm) : null };
-  });
+function movingSurfaces(prepared: readonly PreparedSurface[], steps: number, tables: ((plan: PointingPlan) => ViewFactorTable) | null): (MovingSurface | null)[] {
+  return prepared.map((p) => (p.plan ? { columns: pointingColumnsFor(steps), table: tables ? tables(p.source) : null } : null));
 }
 
 /**

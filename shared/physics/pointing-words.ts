@@ -41,7 +41,7 @@ export function pointingAssumptions(normals: readonly SurfaceNormal[]): string[]
   const lines: string[] = [];
   if (uses(inertial)) lines.push("inertial pointing: right ascension and declination in the body's equatorial frame of J2000 (IAU pole; for Earth EME2000); with a beta angle given, the Sun is placed by that beta and the inertial plates see it there");
   if (uses((n) => object(n) && 'trackSun' in n)) lines.push('Sun-tracking drives follow the Sun at once, also in shadow; a one-axis drive turns a plate whose normal is perpendicular to its axis; no gimbal limits');
-  if (uses((n) => object(n) && 'spin' in n)) lines.push("spinning plates: loads averaged over a turn, the Sun's cosine in closed form, the view factor over 64 phases of the turn, the cap integrals with each ray's weight averaged in closed form");
+  if (uses((n) => object(n) && 'spin' in n)) lines.push("spinning plates: loads averaged over a turn, the Sun's cosine in closed form, the view factor in closed form over the part of the turn in which the plate sees all or none of the body and by Gauss-Legendre quadrature over the part in which it sees some of it, the cap integrals with each ray's weight averaged in closed form");
   if (uses((n) => object(n) && 'yawSteered' in n)) lines.push('yaw steering: the spacecraft turns about nadir so that the Sun stays in its y-z plane on the +y side (the -y face never sees it); no yaw-rate limit');
   return lines;
 }

@@ -20,12 +20,21 @@ export function plateToSphereViewFactor(rKm: number, radiusKm: number, tiltRad: 
   const tilt = lambda > Math.PI ? 2 * Math.PI - lambda : lambda;
   const cosL = Math.cos(tilt);
   const sinL = Math.sin(tilt);
-  const x = Math.sqrt(h * h - 1);
   // The sphere fills a cone of half-angle asin(1/H); the plate sees all of it while tilt <= acos(1/H).
   const fullLimit = Math.acos(1 / h);
   // Howell catalogue, plate-to-sphere, fully visible: F = cos(lambda) / H^2
   if (tilt <= fullLimit) return cosL / (h * h);
   if (tilt >= Math.PI - fullLimit) return 0;
+  return partlyVisibleViewFactor(h, cosL, sinL);
+}
+
+/**
+ * The Howell partly-visible form at r/R = h for a plate whose normal makes an angle of cosine cosL
+ * (sine sinL) with the direction to the centre, valid for -1/h < cosL < 1/h (where the plate's plane
+ * cuts the sphere); the caller keeps to that range. pointing.ts integrates it over a spinner's turn.
+ */
+export function partlyVisibleViewFactor(h: number, cosL: number, sinL: number): number {
+  const x = Math.sqrt(h * h - 1);
   // Howell catalogue, plate-to-sphere, tilted, partly visible:
   // F = 1/2 - asin(X / (H sin l)) / pi + [cos l acos(-X cot l) - X sqrt(1 - H^2 cos^2 l)] / (pi H^2)
   const f = 0.5 - Math.asin(clamp(x / (h * sinL))) / Math.PI

@@ -39,7 +39,7 @@ const statusOf = (seriesId: string) =>
 /** A released case of the demo mission with a fresh series of its own: derive, submit, release. */
 async function releasedCase(name: string): Promise<Detail> {
   const missionId = missionIdOf(t, kestrelOne);
-  const orbitId = (t.ctx.sqlite.prepare('SELECT id FROM orbits WHERE mission_id = ? ORDER BY created_at LIMIT 1').get(missionId) as { id: string }).id;
+  const orbitId = (t.ctx.sqlite.prepare('SELECT id FROM orbits WHERE mission_id = ? ORDER BY created_at, rowid LIMIT 1').get(missionId) as { id: string }).id;
   const derived = await thermal.post(`/api/v1/missions/${missionId}/cases/derive`).send({ orbitId, name, steps: 24 }).expect(201);
   const hot = (derived.body.items as Detail[])[0]!;
   await thermal.post(`/api/v1/cases/${hot.id}/submit`).expect(200);

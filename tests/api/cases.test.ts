@@ -39,7 +39,7 @@ interface Detail {
 }
 
 const auditActions = (caseId: string) =>
-  (t.ctx.sqlite.prepare('SELECT action FROM audit_events WHERE target_id = ? ORDER BY at').all(caseId) as { action: string }[]).map((r) => r.action);
+  (t.ctx.sqlite.prepare('SELECT action FROM audit_events WHERE target_id = ? ORDER BY at, rowid').all(caseId) as { action: string }[]).map((r) => r.action);
 
 describe('deriving cases', () => {
   it('gives a thermal engineer the hot and the cold draft, each with its rationale, and audits it', async () => {

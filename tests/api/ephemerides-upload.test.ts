@@ -5,7 +5,7 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import { readFileSync } from 'node:fs';
 import { createHash } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import type request from 'supertest';
 import { createTestApp, type TestApp } from './test-app';
 import { createTestMission, fixturesDir, trace } from './ephemeris-test-mission';
@@ -273,28 +273,31 @@ describe('limits and access', () => {
       const boundary = 'eclipta-abort-test';
       const head = `--${boundary}\r\nContent-Disposition: form-data; name="frame"\r\n\r\nEME2000\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="half.csv"\r\nContent-Type: text/csv\r\n\r\n`;
       const content = readFileSync(fixture('leo-circular.csv'));
-      let during: string[] = [];
-      await new Promise<void>((resolve) => {
-        const req = http.request({
-          port, method: 'POST', path: `/api/v1/missions/${missionId}/ephemerides`,
-          headers: { authorization: `Bearer ${token.body.secret}`, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': head.length + content.length * 2 },
-        });
+      const req = http.request({
+        port, method: 'POST', path: `/api/v1/missions/${missionId}/ephemerides`,
+        headers: { authorization: `Bearer ${token.body.secret}`, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': head.length + content.length * 2 },
+      });
+      const closed = new Promise<void>((resolve) => {
         req.on('error', () => resolve());
         req.on('close', () => resolve());
-        req.write(head);
-        req.write(content.subarray(0, content.length / 2), () => setTimeout(() => {
-          during = trace(t).uploads;
-          req.destroy();
-        }, 200));
       });
-      // the server notices the abort asynchronously
-      for (let i = 0; i < 40 && JSON.stringify(trace(t)) !== JSON.stringify(before); i++) await new Promise((r) => setTimeout(r, 50));
-      // half the file was on disk under a generated name, its rows read so far spooled beside it
-      // (the frame came first, so reading began with the transfer); both went with the request
+      req.write(head);
+      req.write(content.subarray(0, content.length / 2));
+      // Half the file is on disk under a generated name, its rows read so far spooled beside it (the
+      // frame came first, so reading began with the transfer). Waited for, not timed: a fixed 200 ms
+      // was too short for a loaded machine.
+      const during = await vi.waitFor(() => {
+        const uploads = trace(t).uploads;
+        if (!uploads.some((f) => f.endsWith('.upload')) || !uploads.some((f) => f.endsWith('.points'))) throw new Error(`only ${uploads.join(', ') || 'nothing'} in uploads/ yet`);
+        return uploads;
+      }, { timeout: 15_000, interval: 20 });
+      req.destroy();
+      await closed;
       expect(during).toHaveLength(2);
       expect(during.filter((f) => /^[0-9a-f-]{36}\.upload$/.test(f))).toHaveLength(1);
       expect(during.filter((f) => /^[0-9a-f-]{36}\.points$/.test(f))).toHaveLength(1);
-      expect(trace(t)).toEqual(before);
+      // both went with the request; the server notices the abort asynchronously
+      await vi.waitFor(() => expect(trace(t)).toEqual(before), { timeout: 15_000, interval: 50 });
     } finally {
       server.close();
     }

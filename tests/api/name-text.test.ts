@@ -33,7 +33,7 @@ const hostile = {
 };
 
 function orbitId(): string {
-  return (t.ctx.sqlite.prepare('SELECT id FROM orbits WHERE mission_id = ? ORDER BY created_at LIMIT 1').get(missionIdOf(t, kestrelOne)) as { id: string }).id;
+  return (t.ctx.sqlite.prepare('SELECT id FROM orbits WHERE mission_id = ? ORDER BY created_at, rowid LIMIT 1').get(missionIdOf(t, kestrelOne)) as { id: string }).id;
 }
 
 /** Every route that takes a name or a free text, with the body that puts `value` there and the field it names. */

@@ -29,7 +29,7 @@ const resetRequest = (email: string) => request(t.app).post('/api/v1/auth/passwo
 const signInRequest = (email: string, password: string) => request(t.app).post('/api/v1/auth/sign-in').send({ email, password });
 const mailsTo = (email: string) => (t.ctx.mailer.inbox?.list() ?? []).filter((m) => m.to.includes(email));
 const audit = (action: string, targetId: string) =>
-  t.ctx.sqlite.prepare('SELECT summary FROM audit_events WHERE action = ? AND target_id = ? ORDER BY at').all(action, targetId) as { summary: string }[];
+  t.ctx.sqlite.prepare('SELECT summary FROM audit_events WHERE action = ? AND target_id = ? ORDER BY at, rowid').all(action, targetId) as { summary: string }[];
 
 /** A session cookie ("eclipta_session=…") of a fresh sign-in. */
 async function sessionCookie(email: string, password = demoPassword): Promise<string> {

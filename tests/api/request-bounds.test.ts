@@ -7,7 +7,7 @@ import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node
 import { request as httpRequest } from 'node:http';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import express from 'express';
 import request from 'supertest';
 import { sendJson } from '../../server/json-stream';
@@ -180,8 +180,7 @@ describe('a stalled upload', () => {
     // The upload's files are removed once its request ends.
     const uploads = path.join(dir, 'stall-data', 'uploads');
     const leftovers = () => (existsSync(uploads) ? readdirSync(uploads).filter((n) => /\.(upload|points)$/.test(n)) : []);
-    for (let i = 0; i < 50 && leftovers().length > 0; i++) await new Promise((r) => setTimeout(r, 100));
-    expect(leftovers()).toEqual([]);
+    await vi.waitFor(() => expect(leftovers()).toEqual([]), { timeout: 15_000, interval: 100 });
     expect(stalling.output.filter((line) => line.includes('"status":5') || line.includes('unhandled error'))).toEqual([]);
     if (process.env['ECLIPTA_BOUNDS_LOG']) console.log(stalled, stalling.output.filter((l) => l.includes('ephemerides')));
   }, 60_000);

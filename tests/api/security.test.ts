@@ -150,7 +150,8 @@ async function workspaceOf(url: string, cookie: string): Promise<string> {
 }
 
 async function mailTexts(url: string, cookie: string): Promise<string[]> {
-  for (let i = 0; i < 50; i++) {
+  // 15 s: a deadline for a loaded machine, not a measure
+  for (const deadline = Date.now() + 15_000; Date.now() < deadline;) {
     const list = (await (await fetch(`${url}/api/v1/admin/mail`, { headers: { cookie } })).json()) as { items: { id: string }[] };
     if (list.items.length >= 2) {
       return Promise.all(list.items.map(async (m) => ((await (await fetch(`${url}/api/v1/admin/mail/${m.id}`, { headers: { cookie } })).json()) as { text: string }).text));

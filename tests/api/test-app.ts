@@ -64,7 +64,8 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     async waitForMail(to, subjectPart) {
       const inbox = ctx.mailer.inbox;
       if (!inbox) throw new Error('no fake SMTP inbox in this test app');
-      for (let i = 0; i < 100; i++) {
+      // 15 s: a deadline for a loaded machine (mail goes through the fake SMTP server), not a measure
+      for (const deadline = Date.now() + 15_000; Date.now() < deadline;) {
         const found = inbox.list().find((m) => m.to.includes(to) && m.subject.includes(subjectPart));
         if (found) {
           const message = await inbox.get(found.id);
@@ -72,7 +73,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
         }
         await new Promise((resolve) => setTimeout(resolve, 50));
       }
-      throw new Error(`no mail to ${to} with "${subjectPart}" arrived within 5 s`);
+      throw new Error(`no mail to ${to} with "${subjectPart}" arrived within 15 s`);
     },
     async close() {
       await ctx.background.idle();

@@ -105,6 +105,21 @@ describe('invitations and audit', () => {
     expect(bad.status).toBe(400);
     expect(bad.body.error.details[0].path).toBe('limit');
   });
+
+  it('lists events of one millisecond newest first too (one transaction writes several; common practice, no source)', async () => {
+    // The two role changes above, put in the same millisecond, the older with the larger (random) id:
+    // ordered by id the older came first.
+    const changes = t.ctx.sqlite.prepare("SELECT rowid FROM audit_events WHERE action = 'member.role_changed' ORDER BY rowid").all() as { rowid: number }[];
+    expect(changes).toHaveLength(2);
+    const set = t.ctx.sqlite.prepare("UPDATE audit_events SET at = '2027-01-01T00:00:00.000Z', id = ? WHERE rowid = ?");
+    set.run('ffffffff-ffff-4fff-bfff-ffffffffffff', changes[0]!.rowid);
+    set.run('00000000-0000-4000-8000-000000000000', changes[1]!.rowid);
+    const res = await as('owner@kestrel.test').get(`/api/v1/workspaces/${kestrel}/audit?action=member.role_changed`);
+    expect(res.body.items.map((e: { summary: string }) => e.summary)).toEqual([
+      'Role of viewer@kestrel.test changed from analyst to viewer.',
+      'Role of viewer@kestrel.test changed from viewer to analyst.',
+    ]);
+  });
 });
 
 describe('isolation', () => {

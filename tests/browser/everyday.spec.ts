@@ -2,7 +2,7 @@
 // read as engineers type them (days, superscripts, "sq m"); times read as ISO 8601 on a 24-hour UTC
 // clock; and no page shows our internals (identifiers, field paths, file names, NaN).
 import { expect, test, type Page } from '@playwright/test';
-import { dialogReady, demoPassword, screenshot, signIn } from './session';
+import { clickAndAwaitAnswer, dialogReady, demoPassword, screenshot, signIn, THERMAL_RUN_PATH } from './session';
 
 const roles = ['owner', 'analyst', 'thermal', 'viewer'] as const;
 
@@ -242,8 +242,8 @@ test('the main dialogs and a thermal run\'s results show no identifiers, file na
   await page.getByRole('link', { name: /Kestrel-1 bus, 4 nodes/ }).click();
   await page.getByTestId('run-case').click();
   await page.getByRole('option', { name: /hot/ }).first().click();
-  await page.getByTestId('run-model').click();
-  await expect(page.getByTestId('run-progress')).toBeHidden({ timeout: 90_000 });
+  await clickAndAwaitAnswer(page, page.getByTestId('run-model'), THERMAL_RUN_PATH, 90_000);
+  await expect(page.getByTestId('run-progress')).toBeHidden();
   await expect(page.getByTestId('run-results')).toBeVisible();
   await scan('thermal run results');
   await screenshot(page, 'everyday-thermal-run-assumptions');

@@ -1,9 +1,13 @@
 // Browser tests: Debian's Chromium (no downloaded browser) against the bundled server on a spare port,
 // with a fresh database and data dir each run (tests/browser/serve.mjs).
+import { execFileSync } from 'node:child_process';
 import { defineConfig } from '@playwright/test';
 
 // A port of its own per run, so that two runs on one machine don't meet; the test workers inherit it.
-process.env['ECLIPTA_TEST_PORT'] ??= String(4400 + Math.floor(Math.random() * 500));
+// The system picks a free one (a random 4400-4899 could be a port a developer's server already holds).
+process.env['ECLIPTA_TEST_PORT'] ??= execFileSync(process.execPath, [
+  '-e', "const s = require('node:net').createServer().listen(0, '127.0.0.1', () => { process.stdout.write(String(s.address().port)); s.close(); });",
+]).toString();
 export const browserTestPort = Number(process.env['ECLIPTA_TEST_PORT']);
 
 export default defineConfig({

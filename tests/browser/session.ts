@@ -1,5 +1,5 @@
 // Shared steps of the browser tests: signing in through the real sign-in page.
-import { expect, type Browser, type Page } from '@playwright/test';
+import { expect, type Browser, type Locator, type Page } from '@playwright/test';
 
 export const demoPassword = process.env['ECLIPTA_DEMO_PASSWORD'] ?? 'eclipta-demo';
 
@@ -24,6 +24,20 @@ export async function dialogReady(page: Page): Promise<void> {
   await expect(page.locator('mat-dialog-container').last()).toBeVisible();
   await expect(page.locator('mat-dialog-container').last().locator(':focus')).toHaveCount(1);
 }
+
+/**
+ * Clicks a control that POSTs to a path matching `path` and waits (up to `timeout`) for the answer.
+ * A progress bar checked with toBeHidden right after the click can pass before the page has drawn
+ * it, that is before the work has begun; the answer is what says the work is done.
+ */
+export async function clickAndAwaitAnswer(page: Page, control: Locator, path: RegExp, timeout: number): Promise<void> {
+  const answered = page.waitForResponse((r) => r.request().method() === 'POST' && path.test(new URL(r.url()).pathname), { timeout });
+  await control.click();
+  await answered;
+}
+
+/** The POST a thermal model run sends (src/app/thermal/thermal-api.ts). */
+export const THERMAL_RUN_PATH = /^\/api\/v1\/thermal-models\/[^/]+\/run$/;
 
 /** A new page signed in as `email`. */
 export async function as(browser: Browser, email: string): Promise<Page> {

@@ -14,10 +14,12 @@ test('the two-loop demo\'s pump flow and radiator area against the distance from
   await expect(page.getByRole('heading', { name: 'Distance study' })).toBeVisible();
   await page.getByTestId('study-distances').fill('0.72, 1, 1.52');
   await page.getByTestId('study-run').click();
-  await expect(page.getByTestId('study-stop')).toBeHidden({ timeout: 120_000 });
-  await expect(page.getByTestId('study-error')).toHaveCount(0);
+  // Every distance's row, waited for as long as the study may take; the Stop button hidden right
+  // after the click alone could pass before the page has drawn it, before the study has begun.
   const rows = page.getByTestId('study-table').locator('tbody tr');
-  await expect(rows).toHaveCount(5);
+  await expect(rows).toHaveCount(5, { timeout: 120_000 });
+  await expect(page.getByTestId('study-stop')).toBeHidden();
+  await expect(page.getByTestId('study-error')).toHaveCount(0);
   await expect(rows.first()).toContainText('0.720');
   await expect(page.getByTestId('study-table')).toContainText('hull loop flow');
   await expect(page.getByTestId('study-results')).not.toContainText('NaN');

@@ -3,14 +3,14 @@
 // the flow are shown, and the run's CSV carries the loops' columns and figures.
 import { readFileSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
-import { screenshot, signIn } from './session';
+import { clickAndAwaitAnswer, screenshot, signIn, THERMAL_RUN_PATH } from './session';
 
 async function runOn(page: Page, kind: RegExp): Promise<void> {
   await page.getByTestId('run-case').click();
   await page.getByRole('option', { name: kind }).first().click();
   await expect(page.getByRole('listbox')).toHaveCount(0);
-  await page.getByTestId('run-model').click();
-  await expect(page.getByTestId('run-progress')).toBeHidden({ timeout: 30_000 });
+  await clickAndAwaitAnswer(page, page.getByTestId('run-model'), THERMAL_RUN_PATH, 60_000);
+  await expect(page.getByTestId('run-progress')).toBeHidden();
   await expect(page.getByTestId('run-results')).toContainText(kind);
 }
 

@@ -2,7 +2,7 @@
 // allowed shows its last orbit under a banner and can be run again with more; a settled cold run
 // shows one duty figure in the heater strip and the table; sizing answers "None needed" with the reason.
 import { expect, test, type Page } from '@playwright/test';
-import { screenshot, signIn } from './session';
+import { clickAndAwaitAnswer, screenshot, signIn, THERMAL_RUN_PATH } from './session';
 
 async function choose(page: Page, selectTestId: string, option: RegExp | string): Promise<void> {
   await page.getByTestId(selectTestId).click();
@@ -11,8 +11,8 @@ async function choose(page: Page, selectTestId: string, option: RegExp | string)
 }
 
 async function run(page: Page): Promise<void> {
-  await page.getByTestId('run-model').click();
-  await expect(page.getByTestId('run-progress')).toBeHidden({ timeout: 60_000 });
+  await clickAndAwaitAnswer(page, page.getByTestId('run-model'), THERMAL_RUN_PATH, 60_000);
+  await expect(page.getByTestId('run-progress')).toBeHidden();
   await expect(page.getByTestId('run-results')).toBeVisible();
 }
 
@@ -36,9 +36,9 @@ test('a run that does not settle shows its last orbit, marked; the heater strip 
   await screenshot(page, 'thermal-run-unsettled');
 
   // Run again with more orbits from the banner: the model settles.
-  await page.getByTestId('run-more-orbits').click();
+  await clickAndAwaitAnswer(page, page.getByTestId('run-more-orbits'), THERMAL_RUN_PATH, 60_000);
   await expect(page.getByTestId('run-orbits')).toHaveValue('4');
-  await expect(page.getByTestId('run-progress')).toBeHidden({ timeout: 60_000 });
+  await expect(page.getByTestId('run-progress')).toBeHidden();
   await page.getByTestId('run-orbits').fill('');
   await run(page);
   await expect(page.getByTestId('run-verdict')).toHaveText(/^(PASS|FAIL)$/);

@@ -2,7 +2,7 @@
 // a refused value and its message, a heater on a 24-32 V bus), run on the demo hot and cold cases,
 // the heater's duty cycle read, and the radiator and heater sized.
 import { expect, test, type Page } from '@playwright/test';
-import { screenshot, signIn } from './session';
+import { clickAndAwaitAnswer, screenshot, signIn, THERMAL_RUN_PATH } from './session';
 
 async function choose(page: Page, selectTestId: string, option: RegExp | string): Promise<void> {
   await page.getByTestId(selectTestId).click();
@@ -13,8 +13,8 @@ async function choose(page: Page, selectTestId: string, option: RegExp | string)
 
 async function runOn(page: Page, kind: RegExp): Promise<string> {
   await choose(page, 'run-case', kind);
-  await page.getByTestId('run-model').click();
-  await expect(page.getByTestId('run-progress')).toBeHidden({ timeout: 30_000 });
+  await clickAndAwaitAnswer(page, page.getByTestId('run-model'), THERMAL_RUN_PATH, 60_000);
+  await expect(page.getByTestId('run-progress')).toBeHidden();
   const results = page.getByTestId('run-results');
   await expect(results).toContainText(kind);
   await expect(page.getByTestId('run-verdict')).toHaveText(/^(PASS|FAIL)$/);
