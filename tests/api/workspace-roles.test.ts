@@ -116,8 +116,8 @@ describe('invitations and audit', () => {
     set.run('00000000-0000-4000-8000-000000000000', changes[1]!.rowid);
     const res = await as('owner@kestrel.test').get(`/api/v1/workspaces/${kestrel}/audit?action=member.role_changed`);
     expect(res.body.items.map((e: { summary: string }) => e.summary)).toEqual([
-      'Role of viewer@kestrel.test changed from analyst to viewer.',
-      'Role of viewer@kestrel.test changed from viewer to analyst.',
+      'Role of viewer@kestrel.test changed from Mission analyst to Viewer.',
+      'Role of viewer@kestrel.test changed from Viewer to Mission analyst.',
     ]);
   });
 });
