@@ -3,6 +3,7 @@
 import type { Request, RequestHandler } from 'express';
 import { and, eq, sql } from 'drizzle-orm';
 import type { Role } from '../../shared/api/workspaces';
+import { roleLabels } from '../../shared/api/plain-lists';
 import type { AppContext } from '../app-context';
 import { pathParam } from '../path-param';
 import type { DbOrTx } from '../db/database';
@@ -147,8 +148,8 @@ export function noWorkspace(workspaceId: string): ApiError {
 }
 
 export function roleRefused(role: Role, allowed: readonly Role[]): ApiError {
-  const needs = allowed.length === 1 ? `the ${allowed[0]} role` : `one of the roles ${allowed.join(', ')}`;
-  return forbidden(`Your role in this workspace is ${role}; this needs ${needs}.`);
+  const needs = allowed.length === 1 ? `the ${roleLabels[allowed[0]!]} role` : `one of the roles ${allowed.map((r) => roleLabels[r]).join(', ')}`;
+  return forbidden(`Your role in this workspace is ${roleLabels[role]}; this needs ${needs}.`);
 }
 
 /**

@@ -127,7 +127,7 @@ export function inputChanges(db: Db, row: { missionId: string; inputs: CurrencyI
       out.push(`surface "${s.name}" was removed`);
       continue;
     }
-    out.push(changed(`surface "${s.name}" area`, s.areaM2, c.areaM2, ' m^2'));
+    out.push(changed(`surface "${s.name}" area`, s.areaM2, c.areaM2, ' m²'));
     if (!same(s.normal, c.normal) && !i.handEdited?.includes('surfaces') && !i.fixed?.normals?.[s.name]) out.push(`surface "${s.name}" pointing changed`);
     if (s.material.name !== c.material.name) out.push(`surface "${s.name}" material: ${s.material.name} -> ${c.material.name}`);
     else {

@@ -75,7 +75,7 @@ export function ephemerisCaseValues(
     facts: [
       `loads along the ephemeris "${ephemeris.name}" (${ephemeris.fileName}, SHA-256 ${ephemeris.sha256.slice(0, 12)}…) from ${from} to ${to}: ${window.rows} rows, every one counted in the averages and peaks; the series keeps ${env.points.length} of them`,
       `beta ${oneDecimal(results.betaDeg)} deg: the time-weighted mean over the window of the Sun's angle above the orbit plane (r x v at each row)`,
-      `Sun distance ${solarDistanceAu.toFixed(4)} AU at the middle of the window (VSOP87); mean solar flux ${oneDecimal(results.solarFluxWm2)} W/m^2`,
+      `Sun distance ${solarDistanceAu.toFixed(4)} AU at the middle of the window (VSOP87); mean solar flux ${oneDecimal(results.solarFluxWm2)} W/m²`,
       pairText.rationale,
       `eclipse ${oneDecimal(eclipseS / 60)} min of the window's ${oneDecimal(spanS / 60)} min (umbra ${oneDecimal(env.umbraS / 60)} min, penumbra ${oneDecimal(env.penumbraS / 60)} min)`,
       `${input.properties.toUpperCase()} optical properties`,

@@ -1,6 +1,7 @@
 // The texts of the mails the product sends. Plain text first; the links are the client's routes.
 // Every mail ends with the preliminary-design caution (DOMAIN.md; the release mail says it per case).
 import { cautionText } from '../../shared/api/caution';
+import { roleLabels, type Role } from '../../shared/api/plain-lists';
 import type { OutgoingMail } from './mailer';
 
 /** What Eclipta's results are, said at the end of an account mail as in every other. */
@@ -9,7 +10,7 @@ const cautionLines = ['', `About Eclipta's results: ${cautionText}`];
 export function invitationMail(opts: {
   to: string;
   workspaceName: string;
-  role: string;
+  role: Role;
   invitedBy: string;
   link: string;
   expiresAt: string;
@@ -18,7 +19,7 @@ export function invitationMail(opts: {
     to: opts.to,
     subject: `You are invited to the ${opts.workspaceName} workspace on Eclipta`,
     text: [
-      `${opts.invitedBy} invites you to join the workspace "${opts.workspaceName}" on Eclipta as ${opts.role}.`,
+      `${opts.invitedBy} invites you to join the workspace "${opts.workspaceName}" on Eclipta with the role ${roleLabels[opts.role]}.`,
       '',
       `Accept the invitation here: ${opts.link}`,
       '',

@@ -29,8 +29,8 @@ function readAreaM2(read: ReadQuantity, value: number | string): number {
     if (error instanceof PhysicsError) throw refuse('areaM2', error.message);
     throw error;
   }
-  if (!(area > 0)) throw refuse('areaM2', `the area must be above 0 m^2 (got ${JSON.stringify(value)})`);
-  if (area > MAX_AREA_M2) throw refuse('areaM2', `the area is at most ${MAX_AREA_M2} m^2 (got ${JSON.stringify(value)})`);
+  if (!(area > 0)) throw refuse('areaM2', `the area must be above 0 m² (got ${JSON.stringify(value)})`);
+  if (area > MAX_AREA_M2) throw refuse('areaM2', `the area is at most ${MAX_AREA_M2} m² (got ${JSON.stringify(value)})`);
   return area;
 }
 
@@ -68,7 +68,7 @@ export function createSurface(db: Db, userId: string, missionId: string, input: 
       .values({ missionId: mission.id, name: input.name, areaM2, normal: input.normal, materialId: material.id })
       .returning()
       .get();
-    audit(tx, userId, mission, 'surface.created', row.id, `Surface "${row.name}" added to mission "${mission.name}": ${areaM2} m^2, ${describeNormal(row.normal)}, ${material.name}.`);
+    audit(tx, userId, mission, 'surface.created', row.id, `Surface "${row.name}" added to mission "${mission.name}": ${areaM2} m², ${describeNormal(row.normal)}, ${material.name}.`);
     return toSurface(row);
   }));
 }
@@ -88,7 +88,7 @@ export function updateSurface(db: Db, userId: string, missionId: string, surface
     }
     if (input.areaM2 !== undefined) {
       next.areaM2 = readAreaM2(read, input.areaM2);
-      if (next.areaM2 !== surface.areaM2) changes.push(`area ${surface.areaM2} -> ${next.areaM2} m^2`);
+      if (next.areaM2 !== surface.areaM2) changes.push(`area ${surface.areaM2} -> ${next.areaM2} m²`);
     }
     if (input.normal !== undefined && JSON.stringify(input.normal) !== JSON.stringify(surface.normal)) {
       changes.push(`${describeNormal(surface.normal)} -> ${describeNormal(input.normal)}`);

@@ -51,7 +51,7 @@ export async function streamDistanceStudy(db: Db, logger: Logger, userId: string
     distances,
     assumptions: [
       ...(first?.assumptions ?? []),
-      `The case's solar and albedo loads are scaled by the solar flux at each distance over the case's ${round(caseFlux, 1)} W/m^2 (inverse square, 1361 W/m^2 at 1 AU); planetary IR is kept as in the case.`,
+      `The case's solar and albedo loads are scaled by the solar flux at each distance over the case's ${round(caseFlux, 1)} W/m² (inverse square, 1361 W/m² at 1 AU); planetary IR is kept as in the case.`,
       'Pump flow is what the loops\' controllers settle to at each distance; the radiator is sized on its own to hold the node\'s maximum less the margin.',
     ],
   }));

@@ -3,6 +3,7 @@
 import { and, desc, eq, isNull } from 'drizzle-orm';
 import type { InvitationAccept, InvitationPreview } from '../../shared/api/auth';
 import type { Invitation, InvitationCreate } from '../../shared/api/workspaces';
+import { roleLabels } from '../../shared/api/plain-lists';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit-log';
 import { hashPassword, verifyPassword } from '../auth/passwords';
@@ -75,7 +76,7 @@ export async function createInvitation(
       action: 'invitation.created',
       targetType: 'invitation',
       targetId: created.id,
-      summary: `${input.email} invited as ${input.role}.`,
+      summary: `${input.email} invited as ${roleLabels[input.role]}.`,
     });
     return created;
   });
@@ -115,7 +116,7 @@ export function withdrawInvitation(ctx: AppContext, workspaceId: string, id: str
       action: 'invitation.withdrawn',
       targetType: 'invitation',
       targetId: id,
-      summary: `Invitation of ${row.email} as ${row.role} withdrawn.`,
+      summary: `Invitation of ${row.email} as ${roleLabels[row.role]} withdrawn.`,
     });
   });
 }
@@ -192,7 +193,7 @@ export async function acceptInvitation(ctx: AppContext, token: string, input: In
       action: 'member.joined',
       targetType: 'user',
       targetId: user.id,
-      summary: `${user.email} accepted the invitation and joined as ${invitation.role}.`,
+      summary: `${user.email} accepted the invitation and joined as ${roleLabels[invitation.role]}.`,
     });
     return user;
   });

@@ -1,6 +1,7 @@
 // Members of a workspace: listing, role changes and removal, never leaving a workspace without an owner.
 import { and, asc, count, eq, inArray } from 'drizzle-orm';
 import type { Member, Role } from '../../shared/api/workspaces';
+import { roleLabels } from '../../shared/api/plain-lists';
 import { recordAudit } from '../audit/audit-log';
 import type { Db, Tx } from '../db/database';
 import { caseSubscriptions, loadCases, memberships, users } from '../db/schema';
@@ -62,7 +63,7 @@ export function changeMemberRole(db: Db, workspaceId: string, userId: string, ro
       action: 'member.role_changed',
       targetType: 'user',
       targetId: userId,
-      summary: `Role of ${member.email} changed from ${member.role} to ${role}.`,
+      summary: `Role of ${member.email} changed from ${roleLabels[member.role]} to ${roleLabels[role]}.`,
     });
     return { ...member, role };
   });
@@ -88,7 +89,7 @@ export function removeMember(db: Db, workspaceId: string, userId: string, actorU
       action: 'member.removed',
       targetType: 'user',
       targetId: userId,
-      summary: `${member.email} (${member.role}) was removed from the workspace.${subscriptions}`,
+      summary: `${member.email} (${roleLabels[member.role]}) was removed from the workspace.${subscriptions}`,
     });
   });
 }

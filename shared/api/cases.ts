@@ -103,7 +103,7 @@ const materialInput = z.strictObject({
 export const caseSurfaceInput = z.strictObject({
   name: lineText(80).min(1, 'give the surface a name'),
   normal: surfaceNormal,
-  areaM2: z.number().positive('area must be above 0 m^2').max(10000),
+  areaM2: z.number().positive('area must be above 0 m²').max(10000),
   material: materialInput,
 });
 

@@ -47,13 +47,13 @@ const planetPlace = z.strictObject({
 
 export const customBodyInput = z.strictObject({
   name: lineText(80, 'a body name has at most 80 characters').min(1, 'give the body a name'),
-  gmKm3S2: num('GM').pipe(z.number().positive('GM must be above 0 km^3/s^2').max(2e8, 'GM is at most 2e8 km^3/s^2 (a little above Jupiter)')),
+  gmKm3S2: num('GM').pipe(z.number().positive('GM must be above 0 km³/s²').max(2e8, 'GM is at most 2e8 km³/s² (a little above Jupiter)')),
   /** Typed: "1,737.4 km", a bare number in km. */
   radiusKm: quantity,
   j2: num('J2').pipe(z.number().min(-0.1, 'J2 is -0.1..0.1').max(0.1, 'J2 is -0.1..0.1')).default(0),
   place: z.discriminatedUnion('kind', [sunPlace, planetPlace], { message: 'place is {kind: "sun", meanAu, minAu, maxAu} or {kind: "planet", parentId, orbitRadiusKm, periodDays}' }),
   albedo: rangeOf('albedo', 0, 1, ''),
-  olrWm2: rangeOf('OLR', 0, 20000, ' W/m^2'),
+  olrWm2: rangeOf('OLR', 0, 20000, ' W/m²'),
   /** Absent or null: a body with an atmosphere (uniform OLR). */
   airless: z
     .strictObject({ emissivity: rangeOf('surface emissivity', 0.01, 1, ''), nightFloorK: rangeOf('night floor temperature', 0, 500, ' K') })

@@ -8,7 +8,7 @@ import type { EnvironmentTableRow } from '../physics/environment-table';
 
 const num = (label: string) => z.number({ message: `${label} must be a number` });
 const albedo = num('albedo').min(0, 'albedo is 0..1').max(1, 'albedo is 0..1');
-const olr = num('OLR').min(0, 'OLR cannot be negative').max(20000, 'OLR is at most 20000 W/m^2');
+const olr = num('OLR').min(0, 'OLR cannot be negative').max(20000, 'OLR is at most 20000 W/m²');
 const pair = z.strictObject({ albedo, olrWm2: olr });
 
 export const environmentTableRow = z

@@ -64,7 +64,7 @@ export const orbitInput = z
 export const surfaceInput = z.strictObject({
   name: lineText(80, 'a surface name has at most 80 characters').min(1, 'give the surface a name'),
   normal: surfaceNormal,
-  areaM2: finite('area').positive('area must be above 0 m^2').max(10000),
+  areaM2: finite('area').positive('area must be above 0 m²').max(10000),
   absorptivity: finite('absorptivity').min(0, 'absorptivity is 0..1').max(1, 'absorptivity is 0..1'),
   emissivity: finite('emissivity').min(0, 'emissivity is 0..1').max(1, 'emissivity is 0..1'),
 });

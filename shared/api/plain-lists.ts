@@ -4,6 +4,14 @@
 export const roles = ['owner', 'analyst', 'thermal', 'viewer'] as const;
 export type Role = (typeof roles)[number];
 
+/** Each role as people say it (PRODUCT.md "Users and roles"), wherever a role is shown or written: pages, mails, audit lines. */
+export const roleLabels: Readonly<Record<Role, string>> = {
+  owner: 'Owner',
+  analyst: 'Mission analyst',
+  thermal: 'Thermal engineer',
+  viewer: 'Viewer',
+};
+
 /** The inertial frames a CSV ephemeris may declare. */
 export const ephemerisFrames = ['EME2000', 'J2000', 'ICRF', 'GCRF'] as const;
 export type EphemerisFrame = (typeof ephemerisFrames)[number];

@@ -75,7 +75,7 @@ export const conductiveCoupling = z.strictObject({
 export const radiativeCoupling = z.strictObject({
   from: name,
   to: name,
-  areaM2: num('areaM2').positive('areaM2 must be above 0 m^2').max(1e4),
+  areaM2: num('areaM2').positive('areaM2 must be above 0 m²').max(1e4),
   effectiveEmissivity: fraction('effectiveEmissivity'),
   viewFactor: fraction('viewFactor'),
 });
@@ -129,7 +129,7 @@ export const coolantLoop = z
       conductanceWK: num('conductanceWK').positive('conductanceWK must be above 0 W/K').max(1e6),
     })).min(1, 'a closed loop passes at least one node').max(200, 'a path has at most 200 elements').optional(),
     fluidMassKg: num('fluidMassKg').positive('fluidMassKg must be above 0 kg').max(1e6).optional(),
-    densityKgM3: num('densityKgM3').positive('densityKgM3 must be above 0 kg/m^3').max(30000).optional(),
+    densityKgM3: num('densityKgM3').positive('densityKgM3 must be above 0 kg/m³').max(30000).optional(),
     specificHeatJKgK: num('specificHeatJKgK').positive('specificHeatJKgK must be above 0 J/(kg K)'),
     setPointC: celsius('setPointC').optional(),
     controlNode: name.optional(),

@@ -112,7 +112,7 @@ export interface Body {
 const CENTURY_DAYS = 36525;
 const FACT_SHEET = 'NASA Goddard planetary fact sheet (from memory)';
 const IAU_2015 = 'IAU WGCCRE 2015 (Archinal et al. 2018), as transcribed in NAIF pck00011';
-const ENERGY_BALANCE = 'derived: (1 - Bond albedo) * S / 4 at the mean distance, S = 1361 W/m^2 (energy balance, no internal heat)';
+const ENERGY_BALANCE = 'derived: (1 - Bond albedo) * S / 4 at the mean distance, S = 1361 W/m² (energy balance, no internal heat)';
 const NO_RANGE = 'no published range sourced here: min = max = nominal';
 
 const fixedPole = (alpha0Deg: number, delta0Deg: number, alphaRate = 0, deltaRate = 0, terms: PoleTerm[] = []): PoleModel => ({

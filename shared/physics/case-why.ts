@@ -130,18 +130,18 @@ function survivalFactor(r: CaseWhyRecord): CaseFactor[] {
 
 function sunFactor(r: CaseWhyRecord): CaseFactor[] {
   const c = r.conditions;
-  const flux = `solar flux ${f(r.results.solarFluxWm2, 0)} W/m^2 at ${f(c.solarDistanceAu, 4)} AU`;
+  const flux = `solar flux ${f(r.results.solarFluxWm2, 0)} W/m² at ${f(c.solarDistanceAu, 4)} AU`;
   const d = r.decision;
   if (!d) return [];
   if (edited(r, 'solarDistanceAu')) {
-    return [{ key: 'sun', title: 'Sun distance', figure: `${f(c.solarDistanceAu, 4)} AU`, text: `${flux}: set by hand (the derivation gave ${f(d.sun.distanceAu, 4)} AU on ${d.sun.date})`, sources: ['TSI 1361 W/m^2 at 1 AU, inverse square'] }];
+    return [{ key: 'sun', title: 'Sun distance', figure: `${f(c.solarDistanceAu, 4)} AU`, text: `${flux}: set by hand (the derivation gave ${f(d.sun.distanceAu, 4)} AU on ${d.sun.date})`, sources: ['TSI 1361 W/m² at 1 AU, inverse square'] }];
   }
   const where =
     d.sun.basis === 'mission'
       ? `the ${r.kind === 'hot' ? 'closest' : 'farthest'} the mission comes to the Sun, reached ${d.sun.date}`
       : `${d.sun.basis} of ${r.bodyName}'s orbit (a(1 ${d.sun.basis === 'perihelion' ? '-' : '+'} e)), the mission comes nearest to it on ${d.sun.date}`;
   const combined = d.sun.date === c.date ? '' : `; combined with the beta of ${c.date}: worst distance and worst beta on different days, conservative`;
-  return [{ key: 'sun', title: 'Sun distance', figure: `${f(c.solarDistanceAu, 4)} AU (${d.sun.date})`, text: `${flux} (${where}${combined})`, sources: ['TSI 1361 W/m^2 at 1 AU, inverse square', 'VSOP87 for the Sun distance by date'] }];
+  return [{ key: 'sun', title: 'Sun distance', figure: `${f(c.solarDistanceAu, 4)} AU (${d.sun.date})`, text: `${flux} (${where}${combined})`, sources: ['TSI 1361 W/m² at 1 AU, inverse square', 'VSOP87 for the Sun distance by date'] }];
 }
 
 function betaFactor(r: CaseWhyRecord): CaseFactor[] {
@@ -187,11 +187,11 @@ function environmentFactor(r: CaseWhyRecord): CaseFactor[] {
       `subsolar ${f(field.subsolarK, 0)} K in radiative equilibrium, night floor ${f(field.nightFloorK, 0)} K`;
     return [{ key: 'environment', title: 'Albedo and ground temperature', figure: `albedo ${f(c.albedo, 2)}, ${f(field.subsolarK, 0)} K / ${f(field.nightFloorK, 0)} K`, text: `${short} (${d.pair.source})`, short, sources: [d.pair.source] }];
   }
-  const figure = `albedo ${f(c.albedo, 2)}, OLR ${f(c.olrWm2, 0)} W/m^2`;
+  const figure = `albedo ${f(c.albedo, 2)}, OLR ${f(c.olrWm2, 0)} W/m²`;
   const byHand = edited(r, 'albedo') || edited(r, 'olrWm2');
   const text = byHand
-    ? `${figure}: set by hand (the ${r.kind} pair was ${f(d.pair.albedo, 2)} with ${f(d.pair.olrWm2, 0)} W/m^2)`
-    : `albedo ${f(c.albedo, 2)} with OLR ${f(c.olrWm2, 0)} W/m^2: the ${r.kind} pair`;
+    ? `${figure}: set by hand (the ${r.kind} pair was ${f(d.pair.albedo, 2)} with ${f(d.pair.olrWm2, 0)} W/m²)`
+    : `albedo ${f(c.albedo, 2)} with OLR ${f(c.olrWm2, 0)} W/m²: the ${r.kind} pair`;
   return [{ key: 'environment', title: 'Albedo and OLR', figure, text: byHand ? text : `${text} (${d.pair.source})`, short: text, sources: byHand ? [] : [d.pair.source] }];
 }
 
@@ -221,9 +221,9 @@ function marginFactor(r: CaseWhyRecord): CaseFactor[] {
   const sign = r.conditions.marginDirection === 'increase' ? '+' : '-';
   return [{
     key: 'margins', title: 'Margins',
-    figure: `${sign}${m.heatLoadPercent} %, ${m.temperatureMarginC} C`,
-    text: `heat loads ${sign}${m.heatLoadPercent} % (${m.sources.heatLoadPercent}): ${f(r.results.total.orbitAverageWithMarginW)} W orbit-average with margin; temperature margin ${m.temperatureMarginC} C (${m.sources.temperatureMarginC})`,
-    short: `heat loads ${sign}${m.heatLoadPercent} %: ${f(r.results.total.orbitAverageWithMarginW)} W orbit-average with margin; temperature margin ${m.temperatureMarginC} C`,
+    figure: `${sign}${m.heatLoadPercent} %, ${m.temperatureMarginC} K`,
+    text: `heat loads ${sign}${m.heatLoadPercent} % (${m.sources.heatLoadPercent}): ${f(r.results.total.orbitAverageWithMarginW)} W orbit-average with margin; temperature margin ${m.temperatureMarginC} K (${m.sources.temperatureMarginC})`,
+    short: `heat loads ${sign}${m.heatLoadPercent} %: ${f(r.results.total.orbitAverageWithMarginW)} W orbit-average with margin; temperature margin ${m.temperatureMarginC} K`,
     sources: [m.sources.heatLoadPercent, m.sources.temperatureMarginC],
   }];
 }

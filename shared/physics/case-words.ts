@@ -30,6 +30,6 @@ export function pairWords(body: Body, inclinationDeg: number, albedo: number, ol
   const pairs = designPairs(body, inclinationDeg);
   return {
     source: userGiven ? USER_GIVEN_SOURCE : `${body.name} nominal: ${body.sources['albedo'] ?? ''}`,
-    rationale: `albedo ${albedo.toFixed(2)} with OLR ${olrWm2.toFixed(0)} W/m^2, ${userGiven ? 'given by the user' : `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}`}`,
+    rationale: `albedo ${albedo.toFixed(2)} with OLR ${olrWm2.toFixed(0)} W/m², ${userGiven ? 'given by the user' : `${body.name}'s nominal values; design pairs: hot ${pairs.hot.albedo}/${pairs.hot.olrWm2.toFixed(0)}, cold ${pairs.cold.albedo}/${pairs.cold.olrWm2.toFixed(0)}`}`,
   };
 }

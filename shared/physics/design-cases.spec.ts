@@ -26,8 +26,8 @@ describe('deriveDesignCases over a whole year (Earth, 500 km, 51.6 deg)', () => 
     // 1361 / (1 - 0.0167)^2 = 1407.7; 1361 / (1 + 0.0167)^2 = 1316.6 (eccentricity from the JPL mean elements)
     expect(d.hot.results.solarFluxWm2).toBeCloseTo(1407.7, 0);
     expect(d.cold.results.solarFluxWm2).toBeCloseTo(1316.6, 0);
-    expect(d.hot.rationale[0]).toMatch(/solar flux 1408 W\/m\^2 at 0\.9833 AU \(perihelion/);
-    expect(d.cold.rationale[0]).toMatch(/solar flux 1317 W\/m\^2 at 1\.0167 AU \(aphelion/);
+    expect(d.hot.rationale[0]).toMatch(/solar flux 1408 W\/m² at 0\.9833 AU \(perihelion/);
+    expect(d.cold.rationale[0]).toMatch(/solar flux 1317 W\/m² at 1\.0167 AU \(aphelion/);
   });
 
   it("uses Earth's provisional hot and cold sets: albedo 0.50 with OLR 350, albedo 0.06 with OLR 110 (DOMAIN.md short-averaging extremes [M], not TM pairs)", () => {

@@ -90,7 +90,7 @@ export const defaultMargins = (): Margins => ({
   sources: {
     heatLoadPercent: `default: MIL-STD-1540, ${DEFAULT_HEAT_LOAD_MARGIN_PERCENT} % on heat loads for active systems (Gilmore Vol. I ch. 19)`,
     temperatureMarginC:
-      `default: MIL-STD-1540, ${DEFAULT_TEMPERATURE_MARGIN_C} C before model correlation (${CORRELATED_TEMPERATURE_MARGIN_C} C once correlated) (Gilmore Vol. I ch. 19)`,
+      `default: MIL-STD-1540, ${DEFAULT_TEMPERATURE_MARGIN_C} K before model correlation (${CORRELATED_TEMPERATURE_MARGIN_C} K once correlated) (Gilmore Vol. I ch. 19)`,
   },
 });
 
@@ -112,8 +112,8 @@ export function resolveMargins(given: { heatLoadPercent?: number | undefined; te
     margins.temperatureMarginC = given.temperatureMarginC;
     margins.sources.temperatureMarginC =
       given.temperatureMarginC === CORRELATED_TEMPERATURE_MARGIN_C
-        ? `MIL-STD-1540, ${CORRELATED_TEMPERATURE_MARGIN_C} C with a correlated model (Gilmore Vol. I ch. 19)`
-        : `project choice (default ${DEFAULT_TEMPERATURE_MARGIN_C} C per MIL-STD-1540)`;
+        ? `MIL-STD-1540, ${CORRELATED_TEMPERATURE_MARGIN_C} K with a correlated model (Gilmore Vol. I ch. 19)`
+        : `project choice (default ${DEFAULT_TEMPERATURE_MARGIN_C} K per MIL-STD-1540)`;
   }
   return margins;
 }

@@ -39,12 +39,16 @@ function expectWordsMatchRecord(c: { kind: Detail['kind']; inputs: CaseInputs; r
   // Built again from the record, the words are the stored ones.
   expect(c.inputs.rationale).toEqual(caseRationale(whyRecordOf(c.kind, c.inputs, r)));
   // The numbers the words quote are the record's (the tiles show the same fields).
-  expect(text).toContain(`solar flux ${r.solarFluxWm2.toFixed(0)} W/m^2 at ${c.inputs.conditions.solarDistanceAu.toFixed(4)} AU`);
+  expect(text).toContain(`solar flux ${r.solarFluxWm2.toFixed(0)} W/m² at ${c.inputs.conditions.solarDistanceAu.toFixed(4)} AU`);
   expect(text).toContain(`beta ${r.betaDeg.toFixed(1)} deg on ${c.inputs.conditions.date}`);
   expect(text).toContain(`(${r.total.orbitAverageAbsorbedW.toFixed(1)} W)`);
   const sign = c.kind === 'hot' ? '+' : '-';
   expect(text).toContain(`heat loads ${sign}${c.inputs.margins.heatLoadPercent} %`);
   expect(text).toContain(`${r.total.orbitAverageWithMarginW.toFixed(1)} W orbit-average with margin`);
+  // Units as engineers write them: W/m² and m², never a caret power; a temperature margin (a
+  // difference of temperatures) in K (common practice, no source).
+  expect(text).not.toMatch(/\^[23]/);
+  expect(text).toContain(`temperature margin ${c.inputs.margins.temperatureMarginC} K`);
   // The day quoted as the shortest (hot) or longest (cold) eclipse never beats the case it is set against.
   const x = c.inputs.decision!.eclipseExtreme;
   if (x) expect((c.kind === 'hot' ? 1 : -1) * (r.total.orbitAverageAbsorbedW - x.orbitAverageAbsorbedW)).toBeGreaterThanOrEqual(0);

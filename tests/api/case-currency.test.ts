@@ -45,7 +45,7 @@ describe('a case that knows its inputs', () => {
   it('says which input changed since, in words with the old and new values', async () => {
     await thermal.patch(`/api/v1/missions/${missionId}/surfaces/${surface.id}`).send({ areaM2: surface.areaM2 + 0.3 }).expect(200);
     const now = (await thermal.get(`/api/v1/cases/${hot.id}`).expect(200)).body as Detail;
-    expect(now.inputChanges).toEqual([`surface "${surface.name}" area: ${surface.areaM2} m^2 -> ${surface.areaM2 + 0.3} m^2`]);
+    expect(now.inputChanges).toEqual([`surface "${surface.name}" area: ${surface.areaM2} m² -> ${surface.areaM2 + 0.3} m²`]);
     const list = (await thermal.get(`/api/v1/cases?missionId=${missionId}`).expect(200)).body.items as { id: string; inputsChanged: boolean }[];
     expect(list.find((c) => c.id === hot.id)!.inputsChanged).toBe(true);
   });

@@ -65,7 +65,7 @@ describe('a custom case, computed again from the current inputs', () => {
     const surface = firstSurface(missionId);
     await thermal.patch(`/api/v1/missions/${missionId}/surfaces/${surface.id}`).send({ areaM2: surface.areaM2 + 0.4 }).expect(200);
     const stale = (await thermal.get(`/api/v1/cases/${rev1.id}`).expect(200)).body as CaseDetail;
-    expect(stale.inputChanges).toEqual([`surface "${surface.name}" area: ${surface.areaM2} m^2 -> ${surface.areaM2 + 0.4} m^2`]);
+    expect(stale.inputChanges).toEqual([`surface "${surface.name}" area: ${surface.areaM2} m² -> ${surface.areaM2 + 0.4} m²`]);
     expect(stale.currentInputsBlocked).toBeNull();
     // the list says it too, in the same words
     const list = (await thermal.get(`/api/v1/cases?missionId=${missionId}&kind=custom`).expect(200)).body.items as { id: string; inputsChanged: boolean; inputChanges: string[] }[];
@@ -135,7 +135,7 @@ describe('a case from an ephemeris window, computed again from the current input
     const surface = firstSurface(missionId);
     await thermal.patch(`/api/v1/missions/${missionId}/surfaces/${surface.id}`).send({ areaM2: surface.areaM2 * 2 }).expect(200);
     expect(((await thermal.get(`/api/v1/cases/${rev1.id}`).expect(200)).body as CaseDetail).inputChanges).toEqual([
-      `surface "${surface.name}" area: ${surface.areaM2} m^2 -> ${surface.areaM2 * 2} m^2`,
+      `surface "${surface.name}" area: ${surface.areaM2} m² -> ${surface.areaM2 * 2} m²`,
     ]);
     const rev2 = (await thermal.post(`/api/v1/cases/${rev1.id}/revisions`).send({ reason: 'panel doubled', fromCurrentInputs: true }).expect(201)).body as CaseDetail;
     expect(rev2.inputChanges).toEqual([]);

@@ -51,7 +51,7 @@ describe('deriving cases', () => {
     ]);
     expect(items[0]?.inputs.conditions.properties).toBe('eol');
     expect(items[1]?.inputs.conditions.properties).toBe('bol');
-    expect(items[0]?.inputs.rationale[0]).toMatch(/^solar flux \d+ W\/m\^2 at [\d.]+ AU/);
+    expect(items[0]?.inputs.rationale[0]).toMatch(/^solar flux \d+ W\/m² at [\d.]+ AU/);
     // Margins default to MIL-STD-1540's 25 % and say so (Gilmore ch. 19)
     expect(items[0]?.inputs.margins.heatLoadPercent).toBe(25);
     expect(items[0]?.inputs.margins.sources.heatLoadPercent).toMatch(/MIL-STD-1540/);

@@ -257,7 +257,7 @@ describe('limits and access', () => {
     expect((await stranger.get(`/api/v1/missions/${missionId}/ephemerides`)).status).toBe(404);
     const refusedViewer = await upload(viewer, fixture('leo-bom.csv'));
     expect(refusedViewer.status).toBe(403);
-    expect(refusedViewer.body.error.message).toMatch(/viewer/);
+    expect(refusedViewer.body.error.message).toMatch(/Viewer/);
     expect(trace(t)).toEqual(before);
     // the viewer reads
     expect((await viewer.get(`/api/v1/missions/${missionId}/ephemerides`)).status).toBe(200);

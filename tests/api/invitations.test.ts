@@ -30,6 +30,7 @@ describe('inviting a new person', () => {
     expect(mail.from).toBe('no-reply@eclipta.local');
     // the preliminary-design caution, as in every mail (DOMAIN.md)
     expect(mail.text).toContain(cautionText);
+    expect(mail.text).toContain('with the role Thermal engineer.'); // the role as people say it, not its identifier
     token = linkToken(mail.text, 'invite');
     // Only the hash is stored.
     expect(t.ctx.sqlite.prepare('SELECT count(*) AS n FROM invitations WHERE token_hash = ?').get(token)).toEqual({ n: 0 });
@@ -59,7 +60,7 @@ describe('inviting a new person', () => {
     const fresh = await t.signIn('new.engineer@kestrel.test', 'a-long-new-password');
     expect((await fresh.get(`/api/v1/workspaces/${kestrel}/members`)).status).toBe(200);
     const audit = await owner.get(`/api/v1/workspaces/${kestrel}/audit?action=member.joined`);
-    expect(audit.body.items[0].summary).toBe('new.engineer@kestrel.test accepted the invitation and joined as thermal.');
+    expect(audit.body.items[0].summary).toBe('new.engineer@kestrel.test accepted the invitation and joined as Thermal engineer.');
   });
 });
 

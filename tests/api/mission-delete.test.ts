@@ -30,7 +30,7 @@ describe('deleting the mission of released cases', () => {
     for (const agent of [analyst, thermal, viewer]) {
       const res = await agent.delete(`/api/v1/missions/${id}`);
       expect(res.status).toBe(403);
-      expect(res.body.error.message).toMatch(/needs the owner role/);
+      expect(res.body.error.message).toMatch(/needs the Owner role/);
     }
     await analyst.get(`/api/v1/missions/${id}`).expect(200);
   });

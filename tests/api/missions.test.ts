@@ -86,7 +86,7 @@ describe('POST /api/v1/missions', () => {
     // Named, it works where the role allows and is refused where it does not.
     await two.post('/api/v1/missions').send({ ...newMission, name: 'Two', workspaceId: workspaceIdOf(t, 'Kestrel') }).expect(201);
     const refused = await two.post('/api/v1/missions').send({ ...newMission, workspaceId: workspaceIdOf(t, 'Plover') }).expect(403);
-    expect(refused.body.error.message).toMatch(/viewer/);
+    expect(refused.body.error.message).toMatch(/Viewer/);
   });
 
   it('is 404 for a workspace the caller is not in', async () => {
@@ -96,7 +96,7 @@ describe('POST /api/v1/missions', () => {
   it('refuses a viewer and a read-only token with 403, writing nothing', async () => {
     const before = countRows(t, 'missions');
     const res = await viewer.post('/api/v1/missions').send(newMission).expect(403);
-    expect(res.body.error.message).toMatch(/viewer/);
+    expect(res.body.error.message).toMatch(/Viewer/);
     const token = await tokenOf(analyst, true);
     await request(t.app).get('/api/v1/missions').set('Authorization', `Bearer ${token}`).expect(200);
     const byToken = await request(t.app).post('/api/v1/missions').set('Authorization', `Bearer ${token}`).send(newMission).expect(403);

@@ -61,7 +61,7 @@ describe('attitude modes and phases: reading, roles and audit', () => {
     const body = { name: 'Inertial science', pointing: [] };
     for (const agent of [as.analyst, as.viewer]) {
       const res = await agent.post(`/api/v1/missions/${demoId}/attitude-modes`).send(body).expect(403);
-      expect(res.body.error.message).toMatch(/owner, thermal/);
+      expect(res.body.error.message).toMatch(/Owner, Thermal engineer/);
     }
     const mode = attitudeMode.parse((await as.thermal.post(`/api/v1/missions/${demoId}/attitude-modes`).send(body).expect(201)).body);
     expect(auditFor(t, mode.id).map((a) => a.action)).toEqual(['attitude_mode.created']);

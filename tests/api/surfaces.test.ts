@@ -158,8 +158,8 @@ describe('surfaces', () => {
 
   it.each([
     [{ areaM2: '3 kg' }, 'areaM2', '"3 kg" is a mass, not an area'],
-    [{ areaM2: 0 }, 'areaM2', 'above 0 m^2 (got 0)'],
-    [{ areaM2: '20000 m^2' }, 'areaM2', 'at most 10000 m^2'],
+    [{ areaM2: 0 }, 'areaM2', 'above 0 m² (got 0)'],
+    [{ areaM2: '20000 m^2' }, 'areaM2', 'at most 10000 m²'],
     [{ normal: 'up' }, 'normal', '"up"'],
     [{ normal: { x: 1, y: 1, z: 0 } }, 'normal', 'length must be 1'],
     [{ materialId: 'no-such-material' }, 'materialId', '"no-such-material"'],
@@ -190,7 +190,7 @@ describe('surfaces', () => {
     await plover.delete(`/api/v1/missions/${missionIdOf(t, ploverRelay)}/surfaces/${created.id}`).expect(404);
     const res = await thermal.patch(`${surfacesPath()}/${created.id}`).send({ areaM2: '0.25 m^2', materialId: libraryMaterialIdOf(t, 'black paint') }).expect(200);
     expect(res.body).toMatchObject({ areaM2: 0.25, materialId: libraryMaterialIdOf(t, 'black paint'), normal: 'wake' });
-    expect(auditFor(t, created.id).at(-1)?.summary).toMatch(/area 0\.1 -> 0\.25 m\^2; material -> black paint/);
+    expect(auditFor(t, created.id).at(-1)?.summary).toMatch(/area 0\.1 -> 0\.25 m²; material -> black paint/);
     const listed = await viewer.get(surfacesPath()).expect(200);
     expect((listed.body.items as { id: string }[]).map((s) => s.id)).toContain(created.id);
     await viewer.delete(`${surfacesPath()}/${created.id}`).expect(403);

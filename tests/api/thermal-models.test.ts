@@ -85,7 +85,7 @@ describe('saved models', () => {
     for (const agent of [analyst, viewer]) {
       const res = await agent.post(`/api/v1/missions/${missionId}/thermal-models`).send(body);
       expect(res.status).toBe(403);
-      expect(res.body.error.message).toMatch(/thermal/);
+      expect(res.body.error.message).toMatch(/Thermal engineer/);
     }
     expect((await analyst.patch(`/api/v1/thermal-models/${demoModelId}`).send({ name: 'x' })).status).toBe(403);
     expect((await viewer.delete(`/api/v1/thermal-models/${demoModelId}`)).status).toBe(403);

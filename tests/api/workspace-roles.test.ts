@@ -45,11 +45,12 @@ describe('members', () => {
 
   it('may have their role changed and be removed only by an owner (403 naming the role otherwise)', async () => {
     const viewerId = userIdOf(t, 'viewer@kestrel.test');
-    for (const role of ['analyst', 'thermal', 'viewer']) {
+    // The message names roles as people say them (roleLabels), never their identifiers.
+    for (const [role, label] of [['analyst', 'Mission analyst'], ['thermal', 'Thermal engineer'], ['viewer', 'Viewer']]) {
       const email = `${role}@kestrel.test`;
       const patch = await as(email).patch(`/api/v1/workspaces/${kestrel}/members/${viewerId}`).send({ role: 'analyst' });
       expect(patch.status).toBe(403);
-      expect(patch.body.error.message).toBe(`Your role in this workspace is ${role}; this needs the owner role.`);
+      expect(patch.body.error.message).toBe(`Your role in this workspace is ${label}; this needs the Owner role.`);
       expect((await as(email).delete(`/api/v1/workspaces/${kestrel}/members/${viewerId}`)).status).toBe(403);
     }
     const changed = await as('owner@kestrel.test').patch(`/api/v1/workspaces/${kestrel}/members/${viewerId}`).send({ role: 'analyst' });
@@ -96,7 +97,7 @@ describe('invitations and audit', () => {
     expect(res.body.items[0]).toMatchObject({
       actorEmail: 'owner@kestrel.test',
       action: 'member.role_changed',
-      summary: 'Role of viewer@kestrel.test changed from analyst to viewer.',
+      summary: 'Role of viewer@kestrel.test changed from Mission analyst to Viewer.',
     });
     const byOther = await as('owner@kestrel.test').get(`/api/v1/workspaces/${kestrel}/audit?actor=analyst@kestrel.test`);
     expect(byOther.body.total).toBe(0);
@@ -115,8 +116,8 @@ describe('invitations and audit', () => {
     set.run('00000000-0000-4000-8000-000000000000', changes[1]!.rowid);
     const res = await as('owner@kestrel.test').get(`/api/v1/workspaces/${kestrel}/audit?action=member.role_changed`);
     expect(res.body.items.map((e: { summary: string }) => e.summary)).toEqual([
-      'Role of viewer@kestrel.test changed from analyst to viewer.',
-      'Role of viewer@kestrel.test changed from viewer to analyst.',
+      'Role of viewer@kestrel.test changed from Mission analyst to Viewer.',
+      'Role of viewer@kestrel.test changed from Viewer to Mission analyst.',
     ]);
   });
 });

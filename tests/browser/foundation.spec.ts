@@ -4,17 +4,18 @@ import { expect, test } from '@playwright/test';
 import { screenshot, signIn } from './session';
 
 const navigationByRole = [
-  { email: 'owner@kestrel.test', role: 'owner', shows: ['missions', 'overview', 'cases', 'thermal', 'members', 'audit', 'tokens', 'mail'], hides: [] },
-  { email: 'analyst@kestrel.test', role: 'analyst', shows: ['overview', 'cases', 'tokens'], hides: ['thermal', 'members', 'audit', 'mail'] },
-  { email: 'thermal@kestrel.test', role: 'thermal', shows: ['overview', 'cases', 'thermal', 'tokens'], hides: ['members', 'audit', 'mail'] },
-  { email: 'viewer@kestrel.test', role: 'viewer', shows: ['overview', 'cases', 'tokens'], hides: ['thermal', 'members', 'audit', 'mail'] },
+  { email: 'owner@kestrel.test', role: 'owner', label: 'Owner', shows: ['missions', 'overview', 'cases', 'thermal', 'members', 'audit', 'tokens', 'mail'], hides: [] },
+  { email: 'analyst@kestrel.test', role: 'analyst', label: 'Mission analyst', shows: ['overview', 'cases', 'tokens'], hides: ['thermal', 'members', 'audit', 'mail'] },
+  { email: 'thermal@kestrel.test', role: 'thermal', label: 'Thermal engineer', shows: ['overview', 'cases', 'thermal', 'tokens'], hides: ['members', 'audit', 'mail'] },
+  { email: 'viewer@kestrel.test', role: 'viewer', label: 'Viewer', shows: ['overview', 'cases', 'tokens'], hides: ['thermal', 'members', 'audit', 'mail'] },
 ];
 
-for (const { email, role, shows, hides } of navigationByRole) {
+for (const { email, role, label, shows, hides } of navigationByRole) {
   test(`${role} signs in and sees the ${role}'s navigation`, async ({ page }) => {
     await signIn(page, email);
     await page.getByTestId('nav-overview').click(); // "/" lands on the missions list
-    await expect(page.getByTestId('overview-role')).toContainText(role);
+    // The role in words (roleLabels), never its identifier.
+    await expect(page.getByTestId('overview-role')).toHaveText(label);
     for (const id of shows) await expect(page.getByTestId(`nav-${id}`)).toBeVisible();
     for (const id of hides) await expect(page.getByTestId(`nav-${id}`)).toHaveCount(0);
     await screenshot(page, `signed-in-${role}`);

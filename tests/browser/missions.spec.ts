@@ -74,6 +74,23 @@ test('the analyst creates a mission, an orbit and surfaces, and reads the enviro
   await expect(page.getByTestId('result-absorbed-plot').locator('svg.ecl-plot-svg')).toBeVisible();
   await expect(page.getByTestId('result-averages').locator('tbody tr')).toHaveCount(2);
   await expect(page.getByLabel('Design caution')).toBeVisible();
+  // The flux and absorbed plots share the orbit's time axis: a drag across one zooms both, and the
+  // other's reset shows the whole orbit in both again.
+  const fluxSvg = page.getByTestId('result-flux-plot').locator('svg.ecl-plot-svg');
+  await fluxSvg.scrollIntoViewIfNeeded();
+  const box = await fluxSvg.boundingBox();
+  if (!box) throw new Error('the flux plot has no box');
+  await page.mouse.move(box.x + box.width * 0.3, box.y + box.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(box.x + box.width * 0.5, box.y + box.height / 2, { steps: 5 });
+  await page.mouse.up();
+  const lastTick = async (testId: string) => Number((await page.getByTestId(testId).locator('g[eclPlotXAxis] .ecl-axis-tick text').last().textContent()) ?? NaN);
+  await expect(page.getByTestId('result-absorbed-plot').locator('.ecl-plot-zoom-reset')).toBeVisible();
+  expect(await lastTick('result-absorbed-plot')).toBe(await lastTick('result-flux-plot'));
+  expect(await lastTick('result-absorbed-plot')).toBeLessThan(60);
+  await page.getByTestId('result-absorbed-plot').locator('.ecl-plot-zoom-reset').click();
+  await expect(page.getByTestId('result-flux-plot').locator('.ecl-plot-zoom-reset')).toHaveCount(0);
+  expect(await lastTick('result-flux-plot')).toBeGreaterThanOrEqual(80); // the whole 95.6 min orbit again
   await screenshot(page, 'orbit-environment-results');
   await page.getByTestId('result-averages').scrollIntoViewIfNeeded();
   await screenshot(page, 'orbit-environment-averages');
@@ -96,6 +113,14 @@ test('the analyst creates a mission, an orbit and surfaces, and reads the enviro
   await expect(page.getByTestId('sweep-done')).toContainText('62 days', { timeout: 60_000 });
   await expect(page.getByTestId('sweep-beta-plot').locator('svg.ecl-plot-svg')).toBeVisible();
   await expect(page.getByTestId('sweep-absorbed-plot')).toContainText('Zenith radiator');
+  // The sweep's plots share the mission's dates: + on the beta plot zooms all three, 0 on it shows all again.
+  const sweepPlots = ['sweep-beta-plot', 'sweep-eclipse-plot', 'sweep-absorbed-plot'];
+  await page.getByTestId('sweep-beta-plot').locator('svg.ecl-plot-svg').focus();
+  await page.keyboard.press('Home');
+  await page.keyboard.press('+');
+  for (const id of sweepPlots) await expect(page.getByTestId(id).locator('.ecl-plot-zoom-reset')).toBeVisible();
+  await page.keyboard.press('0');
+  for (const id of sweepPlots) await expect(page.getByTestId(id).locator('.ecl-plot-zoom-reset')).toHaveCount(0);
   await screenshot(page, 'mission-sweep');
   await page.getByTestId('sweep-absorbed-plot').scrollIntoViewIfNeeded();
   await screenshot(page, 'mission-sweep-absorbed');

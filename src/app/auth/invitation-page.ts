@@ -10,12 +10,13 @@ import type { InvitationAccept, InvitationPreview, MeResponse } from '../../../s
 import { apiErrorMessage } from '../api/api-error-message';
 import { apiPath } from '../api/api-path';
 import { type Loaded, loaded } from '../api/loaded';
+import { RoleLabelPipe } from '../workspace/role-label-pipe';
 import { AuthSession } from './auth-session';
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from './matching-passwords';
 
 @Component({
   selector: 'ecl-invitation-page',
-  imports: [ReactiveFormsModule, MatFormField, MatLabel, MatHint, MatError, MatInput, MatButton],
+  imports: [ReactiveFormsModule, MatFormField, MatLabel, MatHint, MatError, MatInput, MatButton, RoleLabelPipe],
   templateUrl: './invitation-page.html',
   styleUrl: './auth-page.css',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -30,12 +30,14 @@ const UNIT_SUFFIXES: readonly (readonly [RegExp, string])[] = [
   [/Percent$/, '%'],
   [/W$/, 'W'],
   [/S$/, 's'],
+  // A temperature margin is a difference of temperatures: K, as the case's words write it.
+  [/MarginC$/, 'K'],
   [/C$/, '°C'],
 ];
 
 /** Decimals worth showing per unit: an engineer reads 0.1 W and 0.01 deg, not 14 digits. */
 const DECIMALS: Readonly<Record<string, number>> = {
-  km: 1, deg: 2, 'W/m²': 1, W: 2, 'm²': 3, AU: 4, s: 0, '°C': 1, '%': 1, 'km³/s²': 1,
+  km: 1, deg: 2, 'W/m²': 1, W: 2, 'm²': 3, AU: 4, s: 0, '°C': 1, K: 1, '%': 1, 'km³/s²': 1,
 };
 
 /** The unit a field's name carries, '' for a pure number (albedo, eccentricity). */

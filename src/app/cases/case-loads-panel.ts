@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, input, signal } from '@an
 import { MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatOption, MatSelect } from '@angular/material/select';
 import type { CaseResultsContent } from '../../../shared/api/case-content';
+import { sharedZoom } from '../plots/plot-cursor';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { isBodyId, getBody } from '../../../shared/physics/bodies';
 import { WHOLE_SPACECRAFT, absorbedSeries, eclipseBands, incidentSeries } from './case-plots';
@@ -32,6 +33,9 @@ export class CaseLoadsPanel {
 
   protected readonly whole = WHOLE_SPACECRAFT;
   protected readonly surface = signal(WHOLE_SPACECRAFT);
+  /** The incident and absorbed plots share the orbit's time axis: they zoom together, and line up. */
+  protected readonly zoom = sharedZoom(this.results);
+  protected readonly gutters = { left: 64 };
   protected readonly bands = computed(() => eclipseBands(this.results(), parentName(this.bodyId())));
   protected readonly incident = computed(() => incidentSeries(this.results(), this.surface()));
   protected readonly absorbed = computed(() => absorbedSeries(this.results(), this.surface()));

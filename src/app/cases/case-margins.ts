@@ -19,10 +19,10 @@ export function heatLoadMarginHint(value: number | null): string {
 
 export function temperatureMarginHint(value: number | null): string {
   if (value === DEFAULT_TEMPERATURE_MARGIN_C) {
-    return `${DEFAULT_TEMPERATURE_MARGIN_C} °C (default before model correlation, MIL-STD-1540 via Gilmore Ch. 19)`;
+    return `${DEFAULT_TEMPERATURE_MARGIN_C} K (default before model correlation, MIL-STD-1540 via Gilmore Ch. 19)`;
   }
   if (value === CORRELATED_TEMPERATURE_MARGIN_C) {
-    return `${CORRELATED_TEMPERATURE_MARGIN_C} °C (MIL-STD-1540 with a correlated model, via Gilmore Ch. 19)`;
+    return `${CORRELATED_TEMPERATURE_MARGIN_C} K (MIL-STD-1540 with a correlated model, via Gilmore Ch. 19)`;
   }
-  return `Project choice; the default is ${DEFAULT_TEMPERATURE_MARGIN_C} °C (${CORRELATED_TEMPERATURE_MARGIN_C} °C once correlated)`;
+  return `Project choice; the default is ${DEFAULT_TEMPERATURE_MARGIN_C} K (${CORRELATED_TEMPERATURE_MARGIN_C} K once correlated)`;
 }

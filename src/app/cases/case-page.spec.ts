@@ -64,7 +64,7 @@ describe('CasePage', () => {
   });
 
   it('offers a custom case to be computed again on its date with the current surfaces', async () => {
-    const page = await render('thermal', 'released', ['newRevision'], { kind: 'custom', inputChanges: ['surface "Radiator" area: 0.5 m^2 -> 0.8 m^2'] });
+    const page = await render('thermal', 'released', ['newRevision'], { kind: 'custom', inputChanges: ['surface "Radiator" area: 0.5 m² -> 0.8 m²'] });
     (page.element.querySelector('[data-testid="case-revise-current"]') as HTMLButtonElement).click();
     await TestBed.inject(ApplicationRef).whenStable();
     const choice = page.element.querySelector('[data-testid="case-revision-current"]');

@@ -32,9 +32,9 @@ export function marginGroup(fb: NonNullableFormBuilder, initial: { heatLoadPerce
       <mat-form-field appearance="outline" subscriptSizing="dynamic">
         <mat-label>Temperature margin</mat-label>
         <input matInput type="number" min="0" max="100" formControlName="temperatureMarginC" [attr.data-testid]="testId('temperature-margin')" />
-        <span matTextSuffix>°C</span>
+        <span matTextSuffix>K</span>
         <mat-hint>{{ temperatureHint() }}</mat-hint>
-        <mat-error>0 to 100 °C.</mat-error>
+        <mat-error>0 to 100 K.</mat-error>
       </mat-form-field>
     </div>
   `,

@@ -13,6 +13,7 @@ import { BehaviorSubject, combineLatest, filter, of, switchMap } from 'rxjs';
 import type { EphemerisSummary } from '../../../shared/api/ephemerides';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
+import { sharedZoom } from '../plots/plot-cursor';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { ConfirmDialog } from '../shell/confirm-dialog';
 import { DesignCaution } from '../shell/design-caution';
@@ -98,6 +99,8 @@ export class MissionEphemerides {
   protected readonly surfaceNames = computed(() => this.env()?.averages.surfaces.map((s) => s.name) ?? []);
   protected readonly surfaceName = computed(() => this.surfaceNames().at(this.surfaceIndex()) ?? '');
   protected readonly gutters = { left: 64, right: 16 };
+  /** The altitude, sunlit, absorbed and flux plots share the window's dates: they zoom together. */
+  protected readonly zoom = sharedZoom(this.env);
 
   protected showWindow(): void {
     const [from, to] = [isoFromUtcField(this.fromText()), isoFromUtcField(this.toText())];

@@ -11,6 +11,7 @@ import type { MissionDetail, Orbit } from '../../../shared/api/missions';
 import { loaded } from '../api/loaded';
 import { MissionApi, type PropertySet } from '../missions/mission-api';
 import { buildResultCsv, downloadCsv } from '../plots/csv-download';
+import { sharedZoom } from '../plots/plot-cursor';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { absorbedSeries, bodyName, eclipseBands, fluxSeries, profileCsvColumns } from './environment-plot-data';
 import { DurationPipe } from '../time/duration-pipe';
@@ -82,6 +83,8 @@ export class EnvironmentResults {
   });
 
   protected readonly surfaceNames = computed(() => this.answer()?.orbitAverage.surfaces.map((s) => s.name) ?? []);
+  /** The flux and absorbed plots share the orbit's time axis: they zoom together. */
+  protected readonly zoom = sharedZoom(this.answer);
 
   // Without surfaces: the incident fluxes on the six body-frame faces and a Sun-pointing plate,
   // asked once the saved orbit's answer says how it was sampled (default-faces.ts).

@@ -8,6 +8,7 @@ import type { MissionDetail, Orbit, SweepDay, SweepLine } from '../../../shared/
 import { MissionApi, type PropertySet } from '../missions/mission-api';
 import { buildResultCsv, downloadCsv } from '../plots/csv-download';
 import type { PlotSeries } from '../plots/plot-series';
+import { sharedZoom } from '../plots/plot-cursor';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { castByText, sweepCsvColumns, sweepExtremes, sweepPhaseRows, sweepSeries } from './sweep-plot-data';
 import { streamSweep } from './sweep-stream';
@@ -48,6 +49,8 @@ export class MissionSweep {
   protected readonly percent = computed(() => (this.totalDays() > 0 ? (100 * this.days().length) / this.totalDays() : 0));
   protected readonly series = computed(() => sweepSeries(this.days()));
   protected readonly absorbed = computed<readonly PlotSeries[]>(() => this.series().absorbed);
+  /** The beta, eclipse and absorbed plots share the mission's dates: they zoom together, afresh with each sweep. */
+  protected readonly zoom = sharedZoom(() => this.days()[0]?.date ?? null);
   /** Each quantity's lowest and highest day of those swept. */
   protected readonly extremes = computed(() => sweepExtremes(this.days()));
   /** About a moon: the day whose longest shadow (its planet's included) is the longest of those shown. */

@@ -1,10 +1,10 @@
 // The shared cursor and zoom of the plots: the pure steps, then the zoom as a user meets it on a
 // time-series plot (drag, keys, reset) and on a strip plot. Common practice, no source.
-import type { Type } from '@angular/core';
+import { signal, type Type } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { beforeEach, describe, expect, it } from 'vitest';
 import { clampDomain } from './plot-scales';
-import { cursorKeyTarget, MIN_ZOOM_FRACTION, panToShow, zoomAbout, zoomBetween } from './plot-cursor';
+import { cursorKeyTarget, MIN_ZOOM_FRACTION, panToShow, sharedZoom, zoomAbout, zoomBetween } from './plot-cursor';
 import type { PlotSeries } from './plot-series';
 import { StripPlot } from './strip-plot';
 import { TimeSeriesPlot } from './time-series-plot';
@@ -185,5 +185,17 @@ describe('zoom on a plot', () => {
     expect(el.querySelector('.ecl-plot-zoom-reset')).not.toBeNull();
     await press(fixture, '0');
     expect(Math.max(...ticks(el))).toBe(100);
+  });
+});
+
+describe('sharedZoom', () => {
+  it('keeps one zoom for the plots bound to it, and shows the whole range again when their data changes', () => {
+    const run = signal({ id: 1 });
+    const zoom = sharedZoom(run);
+    expect(zoom()).toBeNull();
+    zoom.set([20, 40]); // a drag on one plot, told through its [(zoomed)] binding
+    expect(zoom()).toEqual([20, 40]);
+    run.set({ id: 2 }); // a new run: the old zoom may lie outside its range
+    expect(zoom()).toBeNull();
   });
 });

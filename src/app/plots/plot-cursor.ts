@@ -2,7 +2,7 @@
 // pointer or the arrow keys move the cursor, a drag across the plot or the + and − keys zoom the
 // x range, 0 or the reset button shows it all again, and each move is said to screen readers. The
 // pure steps below hold the rules; PlotCursor keeps the state as signals for a component.
-import { computed, signal, type Signal, type WritableSignal } from '@angular/core';
+import { computed, linkedSignal, signal, type Signal, type WritableSignal } from '@angular/core';
 import { nearestIndex, type XScale } from './plot-scales';
 
 /** The sentence under every plot that tells keyboard users what the keys do. */
@@ -133,6 +133,16 @@ export interface CursorHost {
   readonly external?: Signal<number | null>;
   /** Where the zoom is kept: the plot's two-way `zoomed` binding, so stacked plots zoom together. */
   readonly zoom?: WritableSignal<Range | null>;
+}
+
+/**
+ * One zoom for the plots of a page that share an x axis (a time axis, each plot given the same
+ * `xDomain` or the same data): bind every plot's two-way `[(zoomed)]` to it and a zoom in one is a
+ * zoom in all. It shows the whole range again whenever `data` changes (a new run, answer or sweep),
+ * so a zoom never outlives the range it was made on. Create it in a field initialiser.
+ */
+export function sharedZoom(data: () => unknown): WritableSignal<Range | null> {
+  return linkedSignal<unknown, Range | null>({ source: data, computation: () => null });
 }
 
 /** The cursor, zoom and table toggle of one plot; create it in the component's field initialisers. */

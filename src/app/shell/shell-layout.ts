@@ -7,7 +7,7 @@ import { MatListItem, MatListItemIcon, MatListItemTitle, MatNavList } from '@ang
 import { MatDivider } from '@angular/material/divider';
 import { MatMenu, MatMenuItem, MatMenuTrigger } from '@angular/material/menu';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
-import { MatOption, MatSelect } from '@angular/material/select';
+import { MatOption, MatSelect, MatSelectTrigger } from '@angular/material/select';
 import { MatSidenav, MatSidenavContainer, MatSidenavContent } from '@angular/material/sidenav';
 import { MatToolbar } from '@angular/material/toolbar';
 import { MatTooltip } from '@angular/material/tooltip';
@@ -15,6 +15,7 @@ import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/rou
 import { map } from 'rxjs';
 import { AuthSession } from '../auth/auth-session';
 import { CurrentWorkspace } from '../workspace/current-workspace';
+import { RoleLabelPipe } from '../workspace/role-label-pipe';
 import { navEntriesFor, roleMayOpen, type SectionId } from './navigation';
 import { ThemePreference } from './theme-preference';
 
@@ -43,7 +44,9 @@ import { ThemePreference } from './theme-preference';
     MatFormField,
     MatLabel,
     MatSelect,
+    MatSelectTrigger,
     MatOption,
+    RoleLabelPipe,
   ],
   templateUrl: './shell-layout.html',
   styleUrl: './shell-layout.css',

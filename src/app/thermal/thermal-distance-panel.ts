@@ -22,6 +22,7 @@ import { streamNdjson } from '../orbits/sweep-stream';
 import { buildCsv, downloadCsv } from '../plots/csv-download';
 import { seriesLook } from '../plots/plot-colors';
 import type { PlotSeries } from '../plots/plot-series';
+import { sharedZoom } from '../plots/plot-cursor';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { DESIGN_CAUTION_TEXT } from '../shell/design-caution';
 
@@ -87,8 +88,8 @@ export function parseDistances(text: string): number[] | null {
     }
     @if (points().length > 0) {
       <div class="plots" data-testid="study-results">
-        <ecl-time-series-plot [series]="flowSeries()" title="Pump flow needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Flow" yUnit="L/min" yRange="non-negative" [height]="240" />
-        <ecl-time-series-plot [series]="areaSeries()" title="Radiator area needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Area" yUnit="m²" yRange="non-negative" [height]="240" />
+        <ecl-time-series-plot [series]="flowSeries()" title="Pump flow needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Flow" yUnit="L/min" yRange="non-negative" [height]="240" [gutters]="gutters" [(zoomed)]="zoom" />
+        <ecl-time-series-plot [series]="areaSeries()" title="Radiator area needed" xLabel="Distance from the Sun" xUnit="AU" yLabel="Area" yUnit="m²" yRange="non-negative" [height]="240" [gutters]="gutters" [(zoomed)]="zoom" />
       </div>
       <div class="table-wrap">
         <table class="ecl-table" data-testid="study-table">
@@ -153,6 +154,9 @@ export class ThermalDistancePanel {
   protected readonly failure = signal<string | null>(null);
   protected readonly start = signal<StartLine | null>(null);
   protected readonly points = signal<readonly PointLine[]>([]);
+  /** The flow and area plots share the distance axis: they zoom together, afresh with each study. */
+  protected readonly zoom = sharedZoom(this.start);
+  protected readonly gutters = { left: 64 };
   private subscription: Subscription | null = null;
 
   protected readonly caseId = computed(() => this.pickedCaseId() ?? this.cases().find((c) => c.kind === 'hot')?.id ?? this.cases()[0]?.id ?? null);
@@ -236,10 +240,10 @@ export class ThermalDistancePanel {
     const csv = buildCsv([
       { header: 'Sun at', values: points.map((p) => p.label) },
       { header: 'Distance', unit: 'AU', values: points.map((p) => p.distanceAu) },
-      { header: 'Solar flux', unit: 'W/m^2', values: points.map((p) => p.solarFluxWm2) },
+      { header: 'Solar flux', unit: 'W/m²', values: points.map((p) => p.solarFluxWm2) },
       { header: 'Settled', values: points.map((p) => (p.settled ? 'yes' : 'no')) },
       ...loops,
-      { header: `Radiator area on ${this.start()?.node ?? ''}`, unit: 'm^2', values: points.map((p) => p.radiator?.areaM2 ?? '') },
+      { header: `Radiator area on ${this.start()?.node ?? ''}`, unit: 'm²', values: points.map((p) => p.radiator?.areaM2 ?? '') },
       { header: 'Radiator note', values: points.map((p) => p.radiator?.note ?? p.radiatorRefused ?? p.solveRefused ?? '') },
       { header: 'Note', values: [DESIGN_CAUTION_TEXT] },
     ]);

@@ -3,7 +3,7 @@
 // orbit the flow sits at a limit), the controlled node against its band, the coolant along the
 // path, the heat each element gives the coolant, and the flow in kg/s and L/min.
 import { DecimalPipe, PercentPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, model } from '@angular/core';
 import type { ThermalRunResponse } from '../../../shared/api/thermal-models';
 import type { PlotBand, PlotGutters } from '../plots/plot-series';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
@@ -14,7 +14,7 @@ import { controlLines, controlRows, controlSeries, coolantSeries, flowSeries, re
   imports: [DecimalPipe, PercentPipe, TimeSeriesPlot],
   template: `
     <h3>Coolant loops</h3>
-    <ecl-time-series-plot [series]="flows()" [bands]="bands()" [xDomain]="xDomain()" [gutters]="gutters()" title="Pump flow" xLabel="Time in orbit" xUnit="min" yLabel="Flow" yUnit="kg/s" yRange="non-negative" [height]="200" data-testid="plot-loops" />
+    <ecl-time-series-plot [series]="flows()" [bands]="bands()" [xDomain]="xDomain()" [(zoomed)]="zoomed" [gutters]="gutters()" title="Pump flow" xLabel="Time in orbit" xUnit="min" yLabel="Flow" yUnit="kg/s" yRange="non-negative" [height]="200" data-testid="plot-loops" />
     @for (row of rows(); track row.loop.name) {
       @let l = row.loop;
       <section class="loop" [attr.aria-label]="l.name" data-testid="loop-results">
@@ -51,10 +51,10 @@ import { controlLines, controlRows, controlSeries, coolantSeries, flowSeries, re
               }
             </ul>
           }
-          <ecl-time-series-plot [series]="controlled(l)" [limits]="lines(l)" [bands]="withRecoveries(l)" [xDomain]="xDomain()" [gutters]="gutters()" [title]="c.node + ' against its set point'" xLabel="Time in orbit" xUnit="min" yLabel="Temperature" yUnit="°C" [height]="220" />
+          <ecl-time-series-plot [series]="controlled(l)" [limits]="lines(l)" [bands]="withRecoveries(l)" [xDomain]="xDomain()" [(zoomed)]="zoomed" [gutters]="gutters()" [title]="c.node + ' against its set point'" xLabel="Time in orbit" xUnit="min" yLabel="Temperature" yUnit="°C" [height]="220" />
         }
         @if (l.coolantC.length > 0) {
-          <ecl-time-series-plot [series]="coolant(l)" [bands]="bands()" [xDomain]="xDomain()" [gutters]="gutters()" [title]="'Coolant along the path of ' + l.name" xLabel="Time in orbit" xUnit="min" yLabel="Coolant" yUnit="°C" [height]="220" />
+          <ecl-time-series-plot [series]="coolant(l)" [bands]="bands()" [xDomain]="xDomain()" [(zoomed)]="zoomed" [gutters]="gutters()" [title]="'Coolant along the path of ' + l.name" xLabel="Time in orbit" xUnit="min" yLabel="Coolant" yUnit="°C" [height]="220" />
           <div class="ecl-table-wrap">
             <table class="figures" data-testid="loop-heat">
               <thead><tr><th scope="col">Path element</th><th scope="col" class="num">Heat to the coolant, orbit average (W)</th></tr></thead>
@@ -84,6 +84,8 @@ export class ThermalLoopResults {
   readonly bands = input<readonly PlotBand[]>([]);
   readonly xDomain = input<[number, number] | undefined>(undefined);
   readonly gutters = input<PlotGutters>({});
+  /** The run's shared zoom (thermal-run-panel): the loops' plots zoom with the temperature plot above them. */
+  readonly zoomed = model<readonly [number, number] | null>(null);
 
   protected readonly rows = computed(() => controlRows(this.run()));
   /** A run kept from before loops were judged: no recoveries. */

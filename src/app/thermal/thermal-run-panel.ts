@@ -16,6 +16,7 @@ import type { ThermalRunResponse } from '../../../shared/api/thermal-models';
 import { apiErrorMessage } from '../api/api-error-message';
 import { CaseKindLabel } from '../cases/case-kind-label';
 import { buildResultCsv, downloadCsv } from '../plots/csv-download';
+import { sharedZoom } from '../plots/plot-cursor';
 import { StripPlot } from '../plots/strip-plot';
 import { TimeSeriesPlot } from '../plots/time-series-plot';
 import { ThermalModelApi } from './thermal-api';
@@ -54,8 +55,8 @@ export class ThermalRunPanel {
   protected readonly run = signal<ThermalRunResponse | null>(null);
   protected readonly node = signal<string | null>(null);
   protected readonly gutters = GUTTERS;
-  /** The temperature plot and the heater strips beneath it zoom together. */
-  protected readonly zoom = signal<readonly [number, number] | null>(null);
+  /** The temperature plot, the heater strips and the loops' plots beneath it zoom together. */
+  protected readonly zoom = sharedZoom(this.run);
   protected readonly maxOrbitsLimit = MAX_ORBITS;
   /** Orbits allowed for the next run; null: the model's setting, else the solver's default. */
   protected readonly orbits = signal<number | null>(null);

@@ -9,13 +9,14 @@ import { MatOption, MatSelect } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { BehaviorSubject, combineLatest, filter, switchMap } from 'rxjs';
-import { roles, type Role } from '../../../shared/api/plain-lists';
+import { roleLabels, roles, type Role } from '../../../shared/api/plain-lists';
 import type { Invitation, Member } from '../../../shared/api/workspaces';
 import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { AuthSession } from '../auth/auth-session';
 import { ConfirmDialog } from '../shell/confirm-dialog';
 import { RowActions } from '../shell/row-actions';
+import { RoleLabelPipe } from './role-label-pipe';
 import { WorkspaceApi } from './workspace-api';
 import { UtcTimePipe } from '../time/utc-time-pipe';
 
@@ -26,6 +27,7 @@ import { UtcTimePipe } from '../time/utc-time-pipe';
     RowActions,
     ReactiveFormsModule,
     UtcTimePipe,
+    RoleLabelPipe,
     MatTableModule,
     MatFormField,
     MatLabel,
@@ -74,7 +76,7 @@ export class MembersPage {
   protected changeRole(member: Member, role: Role): void {
     this.api.changeRole(this.workspaceId(), member.userId, role).subscribe({
       next: () => {
-        this.snackBar.open(`${member.name} is now ${role}.`, undefined, { duration: 3000 });
+        this.snackBar.open(`${member.name}’s role is now ${roleLabels[role]}.`, undefined, { duration: 3000 });
         this.refresh.next();
       },
       // e.g. 409 when the last owner would be demoted; reload so the select shows the real role again.

@@ -13,6 +13,7 @@ import { AuthSession } from '../auth/auth-session';
 import { navEntriesFor } from '../shell/navigation';
 import { CurrentWorkspace } from './current-workspace';
 import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
+import { RoleLabelPipe } from './role-label-pipe';
 
 /**
  * The workspace's front page: what needs you (cases waiting for your review, your drafts returned
@@ -21,7 +22,7 @@ import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
  */
 @Component({
   selector: 'ecl-workspace-overview-page',
-  imports: [RouterLink, NgTemplateOutlet, CaseStatusChip, CaseKindLabel, UtcTimePipe],
+  imports: [RouterLink, NgTemplateOutlet, CaseStatusChip, CaseKindLabel, UtcTimePipe, RoleLabelPipe],
   template: `
     <ng-template #caseLine let-c>
       <a [routerLink]="['/w', c.workspaceId, 'cases', c.id]" data-testid="overview-case">{{ c.name }}</a>
@@ -34,7 +35,7 @@ import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
         <h1 data-testid="overview-title">{{ m.workspaceName }}</h1>
         <p>
           You are signed in as <strong>{{ session.user()?.name }}</strong> with the role
-          <strong data-testid="overview-role">{{ m.role }}</strong> ({{ abilities()?.who }}).
+          <strong data-testid="overview-role">{{ m.role | roleLabel }}</strong>@if (abilities()?.who; as who) { ({{ who }})}.
         </p>
         <h2>What needs you</h2>
         @switch (overview().status) {
@@ -124,15 +125,16 @@ import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
             <thead>
               <tr>
                 <th scope="col">Role</th>
-                <th scope="col">Who</th>
                 <th scope="col">May</th>
               </tr>
             </thead>
             <tbody>
               @for (role of roleOrder; track role) {
                 <tr [class.mine]="role === m.role">
-                  <th scope="row">{{ role }}@if (role === m.role) { <span class="ecl-muted"> (you)</span> }</th>
-                  <td>{{ abilitiesOf[role].who }}</td>
+                  <th scope="row">
+                    {{ role | roleLabel }}@if (role === m.role) { <span class="ecl-muted"> (you)</span> }
+                    @if (abilitiesOf[role].who; as who) { <span class="who ecl-muted">{{ who }}</span> }
+                  </th>
                   <td>{{ abilitiesOf[role].may.join('; ') }}</td>
                 </tr>
               }
@@ -178,6 +180,10 @@ import { ROLE_ABILITIES, ROLE_ORDER } from './role-abilities';
       padding: 6px 12px;
       border-bottom: 1px solid var(--mat-sys-outline-variant);
       vertical-align: top;
+    }
+    .roles .who {
+      display: block;
+      font: var(--mat-sys-body-small);
     }
     .roles tr.mine {
       background: var(--mat-sys-secondary-container);
