@@ -120,6 +120,51 @@ test('forms: after a token is made the emptied name field shows no error', async
   await screenshot(page, 'everyday-token-made');
 });
 
+test('forms: after an invitation is sent the emptied e-mail field shows no error', async ({ page }) => {
+  await signIn(page, 'owner@kestrel.test');
+  await page.getByRole('link', { name: 'Members' }).click();
+  await page.getByTestId('invite-email').fill(`everyday.${Date.now()}@partner-thermal-lab.test`);
+  await page.getByTestId('invite-submit').click();
+  await expect(page.getByTestId('invitation-table')).toBeVisible();
+  await expect(page.getByTestId('invite-email')).toHaveValue('');
+  await expect(page.locator('mat-error')).toHaveCount(0);
+});
+
+// At 390 px the members, invitations and tokens tables are cards (.ecl-stacked-rows-narrow): nothing
+// scrolls sideways, in either theme, and a row's Remove is reached with the keyboard from its role.
+test('members, invitations and API tokens fit a 390 px phone, light and dark', async ({ page }) => {
+  await signIn(page, 'owner@kestrel.test');
+  await page.goto('/tokens');
+  await page.getByTestId('token-name').fill('phone width check');
+  await page.getByTestId('token-create').click();
+  await expect(page.getByTestId('token-secret')).toBeVisible();
+  await page.getByRole('link', { name: 'Members' }).click();
+  await page.getByTestId('invite-email').fill('margaret.hollingsworth-okonkwo@partner-thermal-lab.test');
+  await page.getByTestId('invite-submit').click();
+  await expect(page.getByTestId('invitation-table')).toBeVisible();
+  const membersUrl = page.url();
+  const fits = async (testId: string): Promise<void> => {
+    const table = page.getByTestId(testId);
+    await expect(table).toBeVisible();
+    const [scroll, client] = await table.locator('xpath=..').evaluate((wrap) => [wrap.scrollWidth, wrap.clientWidth]);
+    expect(scroll, `${testId} scrolls sideways`).toBeLessThanOrEqual(client);
+  };
+  await page.setViewportSize({ width: 390, height: 844 });
+  for (const scheme of ['light', 'dark'] as const) {
+    await page.emulateMedia({ colorScheme: scheme });
+    await page.goto(membersUrl);
+    await fits('member-table');
+    await fits('invitation-table');
+    await page.getByTestId('member-table').locator('mat-select').nth(1).focus();
+    await page.keyboard.press('Tab');
+    await expect(page.getByRole('button', { name: /^Remove / }).first()).toBeFocused();
+    await screenshot(page, `everyday-390-${scheme}-members`);
+    await page.goto('/tokens');
+    await fits('token-table');
+    await screenshot(page, `everyday-390-${scheme}-tokens`);
+  }
+});
+
 // Our internals, as a user must never read them: camelCase identifiers, dotted field paths,
 // file names and NaN. E-mail addresses and hosts ("owner@kestrel.test") are not identifiers.
 const INTERNALS = [

@@ -18,6 +18,7 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { apiPath } from '../api/api-path';
 import { loaded } from '../api/loaded';
 import { ConfirmDialog } from '../shell/confirm-dialog';
+import { pageSubmit } from '../shell/dialog-submit';
 import { RowActions } from '../shell/row-actions';
 import { UtcTimePipe } from '../time/utc-time-pipe';
 
@@ -64,32 +65,18 @@ export class ApiTokensPage {
   });
   /** The secret of the token just made; the server shows it this once. */
   protected readonly created = signal<TokenCreated | null>(null);
-  protected readonly failure = signal<string | null>(null);
-  protected readonly busy = signal(false);
-
   private readonly formDirective = viewChild(FormGroupDirective);
+  /** Makes the token; the emptied form shows no errors afterwards (pageSubmit). */
+  protected readonly submit = pageSubmit<TokenCreated>(this.form, this.formDirective, (made) => {
+    this.created.set(made);
+    this.refresh.next();
+  });
 
   protected createToken(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const { name, readOnly, expiresInDays } = this.form.getRawValue();
-    const body: TokenCreate = { name: name.trim(), readOnly, ...(expiresInDays ? { expiresInDays } : {}) };
-    this.busy.set(true);
-    this.failure.set(null);
-    this.http.post<TokenCreated>(apiPath('tokens'), body).subscribe({
-      next: (made) => {
-        this.created.set(made);
-        // Through the directive: it also forgets the submit, so the emptied name shows no error.
-        this.formDirective()?.resetForm();
-        this.busy.set(false);
-        this.refresh.next();
-      },
-      error: (failure: unknown) => {
-        this.failure.set(apiErrorMessage(failure));
-        this.busy.set(false);
-      },
+    this.submit.submit(() => {
+      const { name, readOnly, expiresInDays } = this.form.getRawValue();
+      const body: TokenCreate = { name: name.trim(), readOnly, ...(expiresInDays ? { expiresInDays } : {}) };
+      return this.http.post<TokenCreated>(apiPath('tokens'), body);
     });
   }
 

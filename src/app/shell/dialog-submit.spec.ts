@@ -1,10 +1,10 @@
 // The one submit of the form dialogs (issue 18: four copies had drifted; two left the form editable
 // while busy). Common practice, no source.
 import { HttpErrorResponse } from '@angular/common/http';
-import { FormControl, FormGroup, Validators } from '@angular/forms';
+import { FormControl, FormGroup, FormGroupDirective, Validators } from '@angular/forms';
 import { Subject } from 'rxjs';
 import { describe, expect, it } from 'vitest';
-import { DialogSubmit, refusalDetails } from './dialog-submit';
+import { DialogSubmit, pageSubmit, refusalDetails } from './dialog-submit';
 
 function setUp() {
   const form = new FormGroup({ name: new FormControl('', { nonNullable: true, validators: Validators.required }) });
@@ -94,5 +94,42 @@ describe('DialogSubmit', () => {
     expect(submit.busy()).toBe(true);
     answer.next('latest');
     expect(closed).toEqual(['latest']);
+  });
+
+  it('pageSubmit: the answer readies the form for the next one, emptied and not shown as submitted, and goes to the page', () => {
+    const form = new FormGroup({ name: new FormControl('', { nonNullable: true, validators: Validators.required }) });
+    const directive = new FormGroupDirective([], []);
+    directive.form = form;
+    const made: string[] = [];
+    const submit = pageSubmit<string>(form, () => directive, (answer) => made.push(answer));
+    form.controls.name.setValue('power budget import');
+    directive.onSubmit(new Event('submit'));
+    const answer = new Subject<string>();
+    submit.submit(() => answer);
+    expect(directive.submitted).toBe(true);
+    expect(form.disabled).toBe(true);
+    answer.next('made');
+    expect(made).toEqual(['made']);
+    expect(submit.busy()).toBe(false);
+    expect(form.enabled).toBe(true);
+    // the emptied name is invalid, but neither touched nor submitted: no red error under it
+    expect(form.controls.name.value).toBe('');
+    expect(form.controls.name.invalid).toBe(true);
+    expect(form.controls.name.touched).toBe(false);
+    expect(directive.submitted).toBe(false);
+  });
+
+  it('pageSubmit: a refusal keeps what was typed and shows the message; nothing reaches the page', () => {
+    const form = new FormGroup({ name: new FormControl('', { nonNullable: true, validators: Validators.required }) });
+    const made: string[] = [];
+    const submit = pageSubmit<string>(form, () => undefined, (answer) => made.push(answer));
+    form.controls.name.setValue('ci@kestrel.test');
+    const answer = new Subject<string>();
+    submit.submit(() => answer);
+    answer.error(refusal);
+    expect(made).toEqual([]);
+    expect(form.enabled).toBe(true);
+    expect(form.controls.name.value).toBe('ci@kestrel.test');
+    expect(submit.failure()).toBe('the draft changed since you opened it');
   });
 });

@@ -2,10 +2,11 @@
 // is disabled while its request runs (so nothing can change under it), the dialog closes with the
 // answer, and a refusal enables the form again with the server's message in the user's words.
 // (enable() enables every control: a form that keeps some disabled on purpose would have to restore
-// them in its refusal handler.)
+// them in its refusal handler.) A form on a page (not in a dialog) takes the same path through
+// pageSubmit: the answer readies the form for the next one instead of closing anything.
 import { HttpErrorResponse } from '@angular/common/http';
 import { inject, signal } from '@angular/core';
-import type { AbstractControl } from '@angular/forms';
+import type { AbstractControl, FormGroupDirective } from '@angular/forms';
 import { MatDialogRef } from '@angular/material/dialog';
 import type { Observable } from 'rxjs';
 import { apiErrorMessage } from '../api/api-error-message';
@@ -75,6 +76,30 @@ export class DialogSubmit<R> {
 /** A DialogSubmit for the dialog being constructed; call in its injection context. */
 export function dialogSubmit<R>(form: AbstractControl): DialogSubmit<R> {
   return new DialogSubmit<R>(inject<MatDialogRef<unknown, R>>(MatDialogRef), form);
+}
+
+/**
+ * A DialogSubmit for a form on a page: after an answer the form is enabled again and emptied through
+ * its directive (which also forgets the submit, so the emptied fields show no errors), then `done`
+ * gets the answer. `directive` is the page's viewChild(FormGroupDirective).
+ */
+export function pageSubmit<R>(
+  form: AbstractControl,
+  directive: () => FormGroupDirective | undefined,
+  done: (answer: R) => void,
+): DialogSubmit<R> {
+  const submit: DialogSubmit<R> = new DialogSubmit<R>(
+    {
+      close: (answer) => {
+        submit.busy.set(false);
+        form.enable();
+        directive()?.resetForm();
+        done(answer as R);
+      },
+    },
+    form,
+  );
+  return submit;
 }
 
 /**

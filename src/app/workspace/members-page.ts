@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, viewChild } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -15,6 +15,7 @@ import { apiErrorMessage } from '../api/api-error-message';
 import { loaded } from '../api/loaded';
 import { AuthSession } from '../auth/auth-session';
 import { ConfirmDialog } from '../shell/confirm-dialog';
+import { pageSubmit } from '../shell/dialog-submit';
 import { RowActions } from '../shell/row-actions';
 import { RoleLabelPipe } from './role-label-pipe';
 import { WorkspaceApi } from './workspace-api';
@@ -70,8 +71,6 @@ export class MembersPage {
     email: ['', [Validators.required, Validators.email]],
     role: ['viewer' as Role, Validators.required],
   });
-  protected readonly inviteFailure = signal<string | null>(null);
-  protected readonly busy = signal(false);
 
   protected changeRole(member: Member, role: Role): void {
     this.api.changeRole(this.workspaceId(), member.userId, role).subscribe({
@@ -103,28 +102,17 @@ export class MembersPage {
       });
   }
 
-  /** The form's directive: resetting through it also forgets that it was submitted, so the emptied field shows no error. */
-  private readonly inviteFormDirective = viewChild(FormGroupDirective);
+  private readonly formDirective = viewChild(FormGroupDirective);
+  /** Sends the invitation; the emptied form shows no errors afterwards (pageSubmit). */
+  protected readonly inviteSubmit = pageSubmit<Invitation>(this.inviteForm, this.formDirective, (made) => {
+    this.snackBar.open(`Invitation sent to ${made.email}.`, undefined, { duration: 3000 });
+    this.refresh.next();
+  });
 
   protected invite(): void {
-    if (this.inviteForm.invalid) {
-      this.inviteForm.markAllAsTouched();
-      return;
-    }
-    const { email, role } = this.inviteForm.getRawValue();
-    this.busy.set(true);
-    this.inviteFailure.set(null);
-    this.api.invite(this.workspaceId(), { email: email.trim().toLowerCase(), role }).subscribe({
-      next: (made) => {
-        this.snackBar.open(`Invitation sent to ${made.email}.`, undefined, { duration: 3000 });
-        this.inviteFormDirective()?.resetForm();
-        this.busy.set(false);
-        this.refresh.next();
-      },
-      error: (failure: unknown) => {
-        this.inviteFailure.set(apiErrorMessage(failure));
-        this.busy.set(false);
-      },
+    this.inviteSubmit.submit(() => {
+      const { email, role } = this.inviteForm.getRawValue();
+      return this.api.invite(this.workspaceId(), { email: email.trim().toLowerCase(), role });
     });
   }
 
