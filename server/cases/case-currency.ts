@@ -178,6 +178,13 @@ const phaseLabel = (was: { name: string }, now: FlownPhase) =>
 /** The orbit-average dissipation of a phase's nodes, W, as a case keeps it (over the case's orbit). */
 const dissipationTotalW = (dissipation: FlownPhase['phase']['dissipation'], periodS: number) => round(phaseDissipationW(dissipation, periodS), 3);
 
+/** A phase's dissipation total changed, to 0.1 W as "why this case" shows it (to 0.001 W when that hides the change). */
+function dissipationChanged(label: string, was: number, now: number): string | null {
+  if (was === now) return null;
+  const digits = round(was, 1) === round(now, 1) ? 3 : 1;
+  return changed(`${label} dissipation`, round(was, digits), round(now, digits), ' W');
+}
+
 /** The mission's surfaces' normals in a phase's mode now, computed once per request; null when the mode cannot be computed. */
 function pointedNow(found: MissionNow, flown: FlownPhase): SurfaceNormal[] | null {
   let normals = found.pointed.get(flown.phase.id);
@@ -209,7 +216,7 @@ function phaseChanges(was: NonNullable<CaseInputs['phase']>, periodS: number, fo
   if (now.mode.id !== was.mode.id) out.push(`${label} attitude mode: ${was.mode.name} -> ${now.mode.name}`);
   if (!same(was.dissipation, p.dissipation)) {
     // the total when it changed; a node's share moved with the same total, in words
-    out.push(changed(`${label} dissipation`, dissipationTotalW(was.dissipation, periodS), dissipationTotalW(p.dissipation, periodS), ' W') ?? `${label} dissipation of its nodes changed (same total)`);
+    out.push(dissipationChanged(label, dissipationTotalW(was.dissipation, periodS), dissipationTotalW(p.dissipation, periodS)) ?? `${label} dissipation of its nodes changed (same total)`);
   }
   const normals = pointedNow(found, now);
   if (!normals) {
@@ -236,7 +243,7 @@ function comparedPhaseChanges(was: NonNullable<CaseInputs['phases']>, i: Currenc
     out.push(changed(`${label} start`, w.startDate, now.phase.startDate), changed(`${label} end`, w.endDate, now.phase.endDate));
     if (now.mode.id !== w.mode.id) out.push(`${label} attitude mode: ${w.mode.name} -> ${now.mode.name}`);
     // the survival case's phase is chosen by the absorbed load alone; its dissipation is survivalChanges'
-    if (i.decision?.phase?.by !== 'environment') out.push(changed(`${label} dissipation`, w.dissipationW, dissipationTotalW(now.phase.dissipation, i.orbit.periodS), ' W'));
+    if (i.decision?.phase?.by !== 'environment') out.push(dissipationChanged(label, w.dissipationW, dissipationTotalW(now.phase.dissipation, i.orbit.periodS)));
     const normals = pointedNow(found, now);
     if (!normals) out.push(`attitude mode "${now.mode.name}" can no longer be computed`);
     else found.surfaces.forEach((x, k) => {

@@ -147,6 +147,9 @@ describe('a case chosen among the phases of its mission', () => {
     // ...but a change to the renamed phase names it as the case knew it and as it is called now
     await patchPhase(m.sunHold, { dissipation: [{ node: 'payload', dissipationW: 24.7 }] });
     expect(await changes(rev2)).toEqual(['phase "Sun hold" (now "Safe hold") dissipation: 40 W -> 24.7 W']);
+    // to 0.1 W as "why this case" shows it, finer when 0.1 W would hide the change
+    await patchPhase(m.sunHold, { dissipation: [{ node: 'payload', dissipationW: 40.02 }] });
+    expect(await changes(rev2)).toEqual(['phase "Sun hold" (now "Safe hold") dissipation: 40 W -> 40.02 W']);
   });
 
   it('a case saved before the phases were kept reports its own phase only, never a false change; a mission without phases is not flagged when phases are added', async () => {
@@ -156,7 +159,7 @@ describe('a case chosen among the phases of its mission', () => {
     expect(own).toEqual([
       'phase "Sun hold" (now "Safe hold") end: 2028-04-20 -> 2028-04-21',
       'phase "Sun hold" (now "Safe hold") attitude mode: radiator to the Sun -> radiator to zenith',
-      'phase "Sun hold" (now "Safe hold") dissipation: 20 W -> 24.7 W',
+      'phase "Sun hold" (now "Safe hold") dissipation: 20 W -> 40 W',
       'surface "radiator" pointing changed',
     ]);
     await patchPhase(m.imaging, { dissipation: [{ node: 'payload', dissipationW: 500 }] });
