@@ -2,6 +2,9 @@
 // surfaces with their materials, the orbit, the body's constants and the mission's dates) against
 // the mission as it is now, as a list of changes in words. A case from an ephemeris compares its
 // surfaces and body only (its orbit is the trajectory's), and whether its ephemeris is still there.
+// A case chosen among a mission's phases also compares every phase the choice weighed (dates, mode,
+// the normals the mode gives, dissipation; a phase added or deleted): a change to another phase can
+// change which phase drives it. A phase's name does not enter the choice, so renaming is no change.
 import { and, eq, sql } from 'drizzle-orm';
 import type { CaseInputs } from '../../shared/api/case-content';
 import type { Db } from '../db/database';
@@ -10,6 +13,10 @@ import { ephemerides, loadCases, missions, orbits, type MissionRow, type OrbitRo
 import { canonicalJson } from './canonical-json';
 import { missionInputs, surfaceSnapshotWithIds } from './case-snapshot';
 import { flownPhases, normalsInMode, type FlownPhase } from '../missions/phase-pointing';
+import type { SurfaceNormal } from '../../shared/api/missions';
+import { phaseDissipationW } from '../../shared/physics/phase-cases';
+import { round } from '../../shared/physics/rounding';
+import { survivalDissipation } from './case-derivation';
 
 const isObject = (v: unknown): v is object => v !== null && typeof v === 'object';
 /** Equal as stored: numbers and texts directly, ranges and vectors by their canonical JSON. */
@@ -30,6 +37,8 @@ interface MissionNow {
   surfaces: ReturnType<typeof surfaceSnapshotWithIds>;
   ephemerisIds: Set<string>;
   phases: FlownPhase[];
+  /** Phase id -> the surfaces' normals in its mode now (null: cannot be computed); filled as asked. */
+  pointed: Map<string, SurfaceNormal[] | null>;
 }
 
 const missionById = preparedPer((db: Db) => db.select().from(missions).where(eq(missions.id, sql.placeholder('id'))).prepare());
@@ -50,7 +59,7 @@ export function missionsNow(db: Db): (missionId: string) => MissionNow | null {
         ? {
             mission, inputs: missionInputs(mission), orbits: new Map(orbitsOfMission(db).all({ missionId }).map((o) => [o.id, o])), surfaces: currentSurfaces(db, mission),
             ephemerisIds: new Set(ephemerisIdsOfMission(db).all({ missionId }).map((e) => e.id)),
-            phases: flownPhases(db, mission),
+            phases: flownPhases(db, mission), pointed: new Map(),
           }
         : null;
       read.set(missionId, found);
@@ -77,6 +86,9 @@ export type CurrencyInputs = Pick<CaseInputs, 'mission' | 'body' | 'orbit'> & {
   fixed?: CaseInputs['fixed'] | null;
   /** A phase's case: the phase as it was. */
   phase?: CaseInputs['phase'] | null;
+  /** A case chosen among the phases: every phase as it was when chosen. */
+  phases?: CaseInputs['phases'] | null;
+  decision?: CaseInputs['decision'] | null;
 };
 
 const inputsOfCase = preparedPer((db: Db) => db.select({ inputs: loadCases.inputs, version: loadCases.version }).from(loadCases).where(eq(loadCases.id, sql.placeholder('id'))).prepare());
@@ -119,7 +131,9 @@ export function inputChanges(db: Db, row: { missionId: string; inputs: CurrencyI
     }
   }
   if (i.ephemeris && !found.ephemerisIds.has(i.ephemeris.id)) out.push(`ephemeris "${i.ephemeris.name}" was deleted`);
-  const current = i.phase ? phaseChanges(i.phase, found, out) : listed.map((x) => x.surface);
+  const current = i.phase ? phaseChanges(i.phase, i.orbit.periodS, found, out) : listed.map((x) => x.surface);
+  if (i.phases) comparedPhaseChanges(i.phases, i, found, out);
+  if (i.phase && i.decision?.survival) survivalChanges(i.decision.survival.nodes, found, out);
   const was = i.conditions.surfaces;
   for (const s of was) {
     const c = current.find((x) => x.name === s.name);
@@ -157,11 +171,39 @@ export function rederivationBlocked(db: Db, row: { missionId: string; inputs: Cu
   return `The orbit "${i.orbit.name}" this case was computed on was deleted from the mission: ${keep}, or add the orbit again and make a new case on it.`;
 }
 
+/** A phase named as the case knew it, with its name now when renamed since (a name alone is no change). */
+const phaseLabel = (was: { name: string }, now: FlownPhase) =>
+  now.phase.name === was.name ? `phase "${was.name}"` : `phase "${was.name}" (now "${now.phase.name}")`;
+
+/** The orbit-average dissipation of a phase's nodes, W, as a case keeps it (over the case's orbit). */
+const dissipationTotalW = (dissipation: FlownPhase['phase']['dissipation'], periodS: number) => round(phaseDissipationW(dissipation, periodS), 3);
+
+/** A phase's dissipation total changed, to 0.1 W as "why this case" shows it (to 0.001 W when that hides the change). */
+function dissipationChanged(label: string, was: number, now: number): string | null {
+  if (was === now) return null;
+  const digits = round(was, 1) === round(now, 1) ? 3 : 1;
+  return changed(`${label} dissipation`, round(was, digits), round(now, digits), ' W');
+}
+
+/** The mission's surfaces' normals in a phase's mode now, computed once per request; null when the mode cannot be computed. */
+function pointedNow(found: MissionNow, flown: FlownPhase): SurfaceNormal[] | null {
+  let normals = found.pointed.get(flown.phase.id);
+  if (normals === undefined) {
+    try {
+      normals = normalsInMode(found.surfaces.map((x) => ({ id: x.id, name: x.surface.name, normal: x.surface.normal })), flown.mode);
+    } catch {
+      normals = null;
+    }
+    found.pointed.set(flown.phase.id, normals);
+  }
+  return normals;
+}
+
 /**
  * A phase's case: what changed in its phase (dates, mode, dissipation), written to `out`; answers the
  * mission's surfaces as the phase's mode points them now (their own normals when it cannot be computed).
  */
-function phaseChanges(was: NonNullable<CaseInputs['phase']>, found: MissionNow, out: (string | null)[]): ReturnType<typeof surfaceSnapshotWithIds>[number]['surface'][] {
+function phaseChanges(was: NonNullable<CaseInputs['phase']>, periodS: number, found: MissionNow, out: (string | null)[]): ReturnType<typeof surfaceSnapshotWithIds>[number]['surface'][] {
   const own = found.surfaces.map((x) => x.surface);
   const now = found.phases.find((f) => f.phase.id === was.id);
   if (!now) {
@@ -169,14 +211,55 @@ function phaseChanges(was: NonNullable<CaseInputs['phase']>, found: MissionNow, 
     return own;
   }
   const p = now.phase;
-  out.push(changed(`phase "${was.name}" start`, was.startDate, p.startDate), changed(`phase "${was.name}" end`, was.endDate, p.endDate));
-  if (now.mode.id !== was.mode.id) out.push(`phase "${was.name}" attitude mode: ${was.mode.name} -> ${now.mode.name}`);
-  if (!same(was.dissipation, p.dissipation)) out.push(`phase "${was.name}" dissipation changed`);
-  try {
-    const normals = normalsInMode(found.surfaces.map((x) => ({ id: x.id, name: x.surface.name, normal: x.surface.normal })), now.mode);
-    return own.map((c, k) => ({ ...c, normal: normals[k]! }));
-  } catch {
+  const label = phaseLabel(was, now);
+  out.push(changed(`${label} start`, was.startDate, p.startDate), changed(`${label} end`, was.endDate, p.endDate));
+  if (now.mode.id !== was.mode.id) out.push(`${label} attitude mode: ${was.mode.name} -> ${now.mode.name}`);
+  if (!same(was.dissipation, p.dissipation)) {
+    // the total when it changed; a node's share moved with the same total, in words
+    out.push(dissipationChanged(label, dissipationTotalW(was.dissipation, periodS), dissipationTotalW(p.dissipation, periodS)) ?? `${label} dissipation of its nodes changed (same total)`);
+  }
+  const normals = pointedNow(found, now);
+  if (!normals) {
     out.push(`attitude mode "${now.mode.name}" can no longer be computed`);
     return own;
   }
+  return own.map((c, k) => ({ ...c, normal: normals[k]! }));
+}
+
+/**
+ * A case chosen among the phases: what changed in the other phases since (their dates, modes, the
+ * normals their modes give, their dissipation; a phase added or deleted), any of which can change
+ * which phase drives the case. Its own phase is phaseChanges'.
+ */
+function comparedPhaseChanges(was: NonNullable<CaseInputs['phases']>, i: CurrencyInputs, found: MissionNow, out: (string | null)[]): void {
+  for (const w of was) {
+    if (w.id === i.phase?.id) continue;
+    const now = found.phases.find((f) => f.phase.id === w.id);
+    if (!now) {
+      out.push(`phase "${w.name}" was deleted`);
+      continue;
+    }
+    const label = phaseLabel(w, now);
+    out.push(changed(`${label} start`, w.startDate, now.phase.startDate), changed(`${label} end`, w.endDate, now.phase.endDate));
+    if (now.mode.id !== w.mode.id) out.push(`${label} attitude mode: ${w.mode.name} -> ${now.mode.name}`);
+    // the survival case's phase is chosen by the absorbed load alone; its dissipation is survivalChanges'
+    if (i.decision?.phase?.by !== 'environment') out.push(dissipationChanged(label, w.dissipationW, dissipationTotalW(now.phase.dissipation, i.orbit.periodS)));
+    const normals = pointedNow(found, now);
+    if (!normals) out.push(`attitude mode "${now.mode.name}" can no longer be computed`);
+    else found.surfaces.forEach((x, k) => {
+      const before = w.normals[x.surface.name];
+      if (before !== undefined && !same(before, normals[k])) out.push(`${label}: surface "${x.surface.name}" pointing changed`);
+    });
+  }
+  for (const f of found.phases) if (!was.some((w) => w.id === f.phase.id)) out.push(`phase "${f.phase.name}" was added`);
+}
+
+/** A survival cold case: each node's least dissipation over the phases, as the phases give it now. */
+function survivalChanges(was: { node: string; dissipationW: number }[], found: MissionNow, out: (string | null)[]): void {
+  const now = survivalDissipation(found.phases).nodes;
+  for (const w of was) {
+    const n = now.find((x) => x.node === w.node);
+    out.push(n ? changed(`survival dissipation of node "${w.node}"`, w.dissipationW, n.dissipationW, ' W') : `survival dissipation: no phase names node "${w.node}" any more`);
+  }
+  for (const n of now) if (!was.some((w) => w.node === n.node)) out.push(`survival dissipation: node "${n.node}" was added (${n.dissipationW} W)`);
 }

@@ -5,9 +5,11 @@
 // case takes the loads of the phase of least absorbed load with each node's least dissipation over
 // the phases (the same in every phase).
 import type { CaseDeriveParsed } from '../../shared/api/cases';
-import type { PhaseDissipation } from '../../shared/api/phases';
+import type { SurfaceNormal } from '../../shared/api/missions';
+import type { CasePhaseCompared, PhaseDissipation } from '../../shared/api/phases';
 import { caseRationale, type SurvivalDecision } from '../../shared/physics/case-why';
-import { derivePhasedCases } from '../../shared/physics/phase-cases';
+import { derivePhasedCases, phaseDissipationW } from '../../shared/physics/phase-cases';
+import { round } from '../../shared/physics/rounding';
 import { getBody } from '../../shared/physics/bodies';
 import { attitudeText, caseAssumptions } from '../../shared/physics/case-words';
 import { deriveDesignCases, type DerivedCase, type ScanSummary } from '../../shared/physics/design-cases';
@@ -54,6 +56,8 @@ export function derivedCaseValues(db: DbOrTx, mission: MissionRow, input: CaseDe
     throw badRequest(`phaseId: ${message} ("${mission.name}").`, [{ path: 'phaseId', message }]);
   }
   let derived: { c: DerivedCase; scan: ScanSummary; phase?: FlownPhase }[];
+  // a case chosen among all the phases keeps what the choice depended on (case-currency.ts compares it)
+  let compared: CasePhaseCompared[] | undefined;
   if (phases.length === 0) {
     const derivation = deriveDesignCases({ ...common, startDate: mission.startDate, endDate: mission.endDate, surfaces: list });
     derived = [derivation.hot, derivation.cold].map((c) => ({ c, scan: derivation.scan }));
@@ -64,6 +68,7 @@ export function derivedCaseValues(db: DbOrTx, mission: MissionRow, input: CaseDe
       dissipation: f.phase.dissipation,
     }));
     const { hot, cold, survival } = derivePhasedCases(common, pointed);
+    if (input.phaseId === undefined) compared = pointed.map((p, k) => comparedPhase(phases[k]!, p.surfaces, orbit.periodS));
     derived = [hot, cold, survival].map((c) => ({ c, scan: c.scan, phase: phases[c.phaseIndex]! }));
   }
   // without phases the survival case takes the cold case's loads; with phases, the phase of least absorbed load
@@ -91,10 +96,18 @@ export function derivedCaseValues(db: DbOrTx, mission: MissionRow, input: CaseDe
       scan,
       assumptions: caseAssumptions(c.conditions),
       ...(phase ? { phase: casePhaseOf(phase) } : {}),
+      ...(compared ? { phases: compared } : {}),
     },
     results: c.results,
   }));
 }
+
+/** A phase as a case chosen among the phases keeps it: its dates, mode, each surface's normal in it, its dissipation. */
+export const comparedPhase = ({ phase, mode }: FlownPhase, surfaces: readonly { name: string; normal: SurfaceNormal }[], periodS: number): CasePhaseCompared => ({
+  id: phase.id, name: phase.name, startDate: phase.startDate, endDate: phase.endDate, mode: { id: mode.id, name: mode.name },
+  normals: Object.fromEntries(surfaces.map((s) => [s.name, s.normal])),
+  dissipationW: round(phaseDissipationW(phase.dissipation, periodS), 3),
+});
 
 /** The least a dissipation gives over its cycle: a constant, or the lower of an on/off schedule's levels. */
 export function leastDissipationW(d: PhaseDissipation['dissipationW']): number {

@@ -258,8 +258,10 @@ function derivedAgain(ctx: AppContext, row: LoadCaseRow): Pick<LoadCaseRow, 'inp
     orbitId: i.orbit.id ?? '', steps: i.conditions.steps,
     margins: { heatLoadPercent: i.margins.heatLoadPercent, temperatureMarginC: i.margins.temperatureMarginC },
     properties: { hot: i.conditions.properties, cold: i.conditions.properties },
-    // a phase's case is derived again in its phase; a survival case with its survival dissipation
-    ...(i.phase ? { phaseId: i.phase.id } : {}),
+    // a case chosen among the phases is chosen again among them as they are now; a case derived in the
+    // one phase asked for, again in that phase; a survival case with its survival dissipation
+    // (one made before `phases` was kept tells by having compared more than one)
+    ...(i.phase && !i.phases && (i.decision?.phase?.compared.length ?? 0) <= 1 ? { phaseId: i.phase.id } : {}),
     survival: i.decision?.survival !== undefined,
   });
   const again = values.find((v) => v.kind === row.kind && (v.inputs.decision?.survival !== undefined) === (i.decision?.survival !== undefined))!;

@@ -8,7 +8,7 @@ import type { CaseConditions, CaseResults, SurfaceDriver, ScanSummary } from '..
 import type { Margins } from '../physics/design-environment';
 import { samplings } from '../physics/orbit-sampling';
 import { surfaceNormal } from './missions';
-import { casePhase } from './phases';
+import { casePhase, casePhaseCompared } from './phases';
 
 export const caseKinds = ['hot', 'cold', 'custom'] as const;
 export const caseStatuses = ['draft', 'review', 'released', 'superseded'] as const;
@@ -183,6 +183,10 @@ export const caseInputs = z.object({
     .describe('custom cases: the values their author fixed over what the date and the mission give; a new revision derived from the current inputs keeps them'),
   revisionReason: z.string().optional().describe('why this revision was made, as its author gave it'),
   phase: casePhase.optional().describe("the mission phase this case was derived in: its dates, attitude mode and its nodes' dissipation, as they were"),
+  phases: z
+    .array(casePhaseCompared)
+    .optional()
+    .describe("a case chosen among the mission's phases: every phase as it was when the choice was made; absent on cases derived in one phase asked for, on missions without phases, and on cases made before it was kept"),
   /** Set when the case was computed along a window of an uploaded ephemeris rather than a Keplerian orbit. */
   ephemeris: z
     .object({

@@ -124,9 +124,25 @@ export const casePhase = z.object({
   dissipation: z.array(phaseDissipation),
 });
 
+/**
+ * A case chosen among the mission's phases keeps every phase as it was when the choice was made: what
+ * the choice depended on (its dates, its attitude mode and the normal that mode gave each surface, its
+ * orbit-average dissipation), so a change to any phase says the case is out of date. Names do not enter it.
+ */
+export const casePhaseCompared = z.object({
+  id: z.string(),
+  name: z.string(),
+  startDate: z.string(),
+  endDate: z.string(),
+  mode: z.object({ id: z.string(), name: z.string() }),
+  normals: z.record(z.string(), surfaceNormal).describe('surface name -> the normal it had in the mode'),
+  dissipationW: z.number().describe("orbit-average dissipation of the nodes the phase names, W, over the case's orbit"),
+});
+
 export type AttitudeMode = z.infer<typeof attitudeMode>;
 export type AttitudeModeCreate = z.input<typeof attitudeModeCreate>;
 export type MissionPhase = z.infer<typeof missionPhase>;
 export type PhaseCreate = z.input<typeof phaseCreate>;
 export type PhaseDissipation = z.infer<typeof phaseDissipation>;
 export type CasePhase = z.infer<typeof casePhase>;
+export type CasePhaseCompared = z.infer<typeof casePhaseCompared>;
