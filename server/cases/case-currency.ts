@@ -14,9 +14,8 @@ import { canonicalJson } from './canonical-json';
 import { missionInputs, surfaceSnapshotWithIds } from './case-snapshot';
 import { flownPhases, normalsInMode, type FlownPhase } from '../missions/phase-pointing';
 import type { SurfaceNormal } from '../../shared/api/missions';
-import { phaseDissipationW } from '../../shared/physics/phase-cases';
+import { phaseDissipationW, survivalDissipation } from '../../shared/physics/phase-cases';
 import { round } from '../../shared/physics/rounding';
-import { survivalDissipation } from './case-derivation';
 
 const isObject = (v: unknown): v is object => v !== null && typeof v === 'object';
 /** Equal as stored: numbers and texts directly, ranges and vectors by their canonical JSON. */
@@ -175,6 +174,12 @@ export function rederivationBlocked(db: Db, row: { missionId: string; inputs: Cu
 const phaseLabel = (was: { name: string }, now: FlownPhase) =>
   now.phase.name === was.name ? `phase "${was.name}"` : `phase "${was.name}" (now "${now.phase.name}")`;
 
+/** A phase's dates and attitude mode against what the case knew of them. */
+function datesAndMode(label: string, was: { startDate: string; endDate: string; mode: { id: string; name: string } }, now: FlownPhase, out: (string | null)[]): void {
+  out.push(changed(`${label} start`, was.startDate, now.phase.startDate), changed(`${label} end`, was.endDate, now.phase.endDate));
+  if (now.mode.id !== was.mode.id) out.push(`${label} attitude mode: ${was.mode.name} -> ${now.mode.name}`);
+}
+
 /** The orbit-average dissipation of a phase's nodes, W, as a case keeps it (over the case's orbit). */
 const dissipationTotalW = (dissipation: FlownPhase['phase']['dissipation'], periodS: number) => round(phaseDissipationW(dissipation, periodS), 3);
 
@@ -210,13 +215,11 @@ function phaseChanges(was: NonNullable<CaseInputs['phase']>, periodS: number, fo
     out.push(`phase "${was.name}" was deleted`);
     return own;
   }
-  const p = now.phase;
   const label = phaseLabel(was, now);
-  out.push(changed(`${label} start`, was.startDate, p.startDate), changed(`${label} end`, was.endDate, p.endDate));
-  if (now.mode.id !== was.mode.id) out.push(`${label} attitude mode: ${was.mode.name} -> ${now.mode.name}`);
-  if (!same(was.dissipation, p.dissipation)) {
+  datesAndMode(label, was, now, out);
+  if (!same(was.dissipation, now.phase.dissipation)) {
     // the total when it changed; a node's share moved with the same total, in words
-    out.push(dissipationChanged(label, dissipationTotalW(was.dissipation, periodS), dissipationTotalW(p.dissipation, periodS)) ?? `${label} dissipation of its nodes changed (same total)`);
+    out.push(dissipationChanged(label, dissipationTotalW(was.dissipation, periodS), dissipationTotalW(now.phase.dissipation, periodS)) ?? `${label} dissipation of its nodes changed (same total)`);
   }
   const normals = pointedNow(found, now);
   if (!normals) {
@@ -240,8 +243,7 @@ function comparedPhaseChanges(was: NonNullable<CaseInputs['phases']>, i: Currenc
       continue;
     }
     const label = phaseLabel(w, now);
-    out.push(changed(`${label} start`, w.startDate, now.phase.startDate), changed(`${label} end`, w.endDate, now.phase.endDate));
-    if (now.mode.id !== w.mode.id) out.push(`${label} attitude mode: ${w.mode.name} -> ${now.mode.name}`);
+    datesAndMode(label, w, now, out);
     // the survival case's phase is chosen by the absorbed load alone; its dissipation is survivalChanges'
     if (i.decision?.phase?.by !== 'environment') out.push(dissipationChanged(label, w.dissipationW, dissipationTotalW(now.phase.dissipation, i.orbit.periodS)));
     const normals = pointedNow(found, now);
@@ -256,7 +258,7 @@ function comparedPhaseChanges(was: NonNullable<CaseInputs['phases']>, i: Currenc
 
 /** A survival cold case: each node's least dissipation over the phases, as the phases give it now. */
 function survivalChanges(was: { node: string; dissipationW: number }[], found: MissionNow, out: (string | null)[]): void {
-  const now = survivalDissipation(found.phases).nodes;
+  const now = survivalDissipation(found.phases.map((f) => f.phase)).nodes;
   for (const w of was) {
     const n = now.find((x) => x.node === w.node);
     out.push(n ? changed(`survival dissipation of node "${w.node}"`, w.dissipationW, n.dissipationW, ' W') : `survival dissipation: no phase names node "${w.node}" any more`);

@@ -6,9 +6,9 @@
 // the phases (the same in every phase).
 import type { CaseDeriveParsed } from '../../shared/api/cases';
 import type { SurfaceNormal } from '../../shared/api/missions';
-import type { CasePhaseCompared, PhaseDissipation } from '../../shared/api/phases';
-import { caseRationale, type SurvivalDecision } from '../../shared/physics/case-why';
-import { derivePhasedCases, phaseDissipationW } from '../../shared/physics/phase-cases';
+import type { CasePhaseCompared } from '../../shared/api/phases';
+import { caseRationale } from '../../shared/physics/case-why';
+import { derivePhasedCases, phaseDissipationW, survivalDissipation } from '../../shared/physics/phase-cases';
 import { round } from '../../shared/physics/rounding';
 import { getBody } from '../../shared/physics/bodies';
 import { attitudeText, caseAssumptions } from '../../shared/physics/case-words';
@@ -75,7 +75,7 @@ export function derivedCaseValues(db: DbOrTx, mission: MissionRow, input: CaseDe
   const survivalLoads = derived[2] ?? derived[1]!;
   derived = derived.slice(0, 2);
   if (input.survival) {
-    const decision = { ...survivalLoads.c.decision, survival: survivalDissipation(flown) };
+    const decision = { ...survivalLoads.c.decision, survival: survivalDissipation(flown.map((f) => f.phase)) };
     const rationale = caseRationale({ kind: 'cold', bodyName: getBody(mission.bodyId).name, conditions: survivalLoads.c.conditions, results: survivalLoads.c.results, margins, decision });
     derived.push({ ...survivalLoads, c: { ...survivalLoads.c, decision, rationale } });
   }
@@ -108,26 +108,6 @@ export const comparedPhase = ({ phase, mode }: FlownPhase, surfaces: readonly { 
   normals: Object.fromEntries(surfaces.map((s) => [s.name, s.normal])),
   dissipationW: round(phaseDissipationW(phase.dissipation, periodS), 3),
 });
-
-/** The least a dissipation gives over its cycle: a constant, or the lower of an on/off schedule's levels. */
-export function leastDissipationW(d: PhaseDissipation['dissipationW']): number {
-  if (typeof d === 'number') return d;
-  if (d.onS >= d.periodS) return d.onW;
-  return d.onS <= 0 ? (d.offW ?? 0) : Math.min(d.onW, d.offW ?? 0);
-}
-
-/** Survival: each node a phase names keeps the least any phase gives it (and that phase's name); other nodes none. */
-export function survivalDissipation(flown: readonly FlownPhase[]): SurvivalDecision {
-  const least = new Map<string, { node: string; dissipationW: number; phase: string }>();
-  for (const { phase } of flown) {
-    for (const d of phase.dissipation) {
-      const w = leastDissipationW(d.dissipationW);
-      const was = least.get(d.node);
-      if (!was || w < was.dissipationW) least.set(d.node, { node: d.node, dissipationW: w, phase: phase.name });
-    }
-  }
-  return { nodes: [...least.values()] };
-}
 
 /** Derives and saves the hot and cold drafts of a mission's orbit. */
 export function deriveCases(ctx: AppContext, user: UserRow, mission: MissionRow, input: CaseDeriveParsed): LoadCaseRow[] {

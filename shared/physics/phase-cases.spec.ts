@@ -7,7 +7,7 @@ import { caseFactors } from './case-why';
 import { getBody } from './bodies';
 import { deriveDesignCases, type CaseResults, type CaseSurface } from './design-cases';
 import { defaultMargins } from './design-environment';
-import { derivePhasedCases, type PhaseToDerive } from './phase-cases';
+import { derivePhasedCases, survivalDissipation, type PhaseToDerive } from './phase-cases';
 import { orbitAverageDissipationW } from './thermal-network';
 
 // DOMAIN.md optical properties, BOL [S: F Table 11.3, G App. A]; EOL white silicone 0.4-0.6 [M]
@@ -125,5 +125,19 @@ describe('phases compared by the heat into the spacecraft', () => {
     const phase = { ...d.hot.decision.phase!, by: undefined, compared: d.hot.decision.phase!.compared.map(({ name, orbitAverageAbsorbedW }) => ({ name, orbitAverageAbsorbedW })) };
     const [factor] = caseFactors({ kind: 'hot', bodyName: 'Earth', conditions: d.hot.conditions, results: d.hot.results, margins: input.margins, decision: { ...d.hot.decision, phase } });
     expect(factor!.text).toMatch(/^phase Imaging .* gives the largest total orbit-average absorbed load of the mission's phases \(\d+\.\d W\); Sun hold \d+\.\d W$/);
+  });
+});
+
+describe('survivalDissipation', () => {
+  it("keeps each node's least over the phases and the phase that gives it; a schedule counts its lower level (DOMAIN.md: survival cold, minimum dissipation)", () => {
+    const survival = survivalDissipation([
+      { name: 'Cruise', dissipation: [{ node: 'bus', dissipationW: 10 }, { node: 'camera', dissipationW: { onW: 5, offW: 2, periodS: 600, onS: 60 } }] },
+      { name: 'Safe', dissipation: [{ node: 'bus', dissipationW: 4 }, { node: 'camera', dissipationW: { onW: 3, periodS: 600, onS: 600 } }] },
+    ]);
+    expect(survival.nodes).toEqual([
+      { node: 'bus', dissipationW: 4, phase: 'Safe' },
+      // Cruise's camera is off at 2 W part of each cycle; Safe's is on all the cycle at 3 W
+      { node: 'camera', dissipationW: 2, phase: 'Cruise' },
+    ]);
   });
 });

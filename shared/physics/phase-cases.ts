@@ -11,7 +11,7 @@
 // compare them (case-why.ts phaseFactor).
 // Leaves out: a node a phase does not name is counted 0 W in that phase's total (a thermal run gives
 // it its model's own value; the case is not tied to a model). Slews between modes.
-import { caseRationale, rankedW } from './case-why';
+import { caseRationale, rankedW, type SurvivalDecision } from './case-why';
 import { deriveDesignCases, type CaseSurface, type DerivationInput, type DerivedCase, type ScanSummary } from './design-cases';
 import { getBody } from './bodies';
 import { maxBy } from './design-scan';
@@ -105,4 +105,24 @@ export function derivePhasedCases(
     return { ...chosen, decision, rationale, phaseIndex: index, scan: each[index]!.scan };
   };
   return { hot: pick('hot', 'heat'), cold: pick('cold', 'heat'), survival: pick('cold', 'environment') };
+}
+
+/** The least a dissipation gives over its cycle: a constant, or the lower of an on/off schedule's levels. */
+export function leastDissipationW(d: PhaseNodeDissipation['dissipationW']): number {
+  if (typeof d === 'number') return d;
+  if (d.onS >= d.periodS) return d.onW;
+  return d.onS <= 0 ? (d.offW ?? 0) : Math.min(d.onW, d.offW ?? 0);
+}
+
+/** Survival: each node a phase names keeps the least any phase gives it (and that phase's name); other nodes none. */
+export function survivalDissipation(phases: readonly { name: string; dissipation: readonly PhaseNodeDissipation[] }[]): SurvivalDecision {
+  const least = new Map<string, { node: string; dissipationW: number; phase: string }>();
+  for (const phase of phases) {
+    for (const d of phase.dissipation) {
+      const w = leastDissipationW(d.dissipationW);
+      const was = least.get(d.node);
+      if (!was || w < was.dissipationW) least.set(d.node, { node: d.node, dissipationW: w, phase: phase.name });
+    }
+  }
+  return { nodes: [...least.values()] };
 }
